@@ -1,0 +1,56 @@
+/**
+ * Production entry: reads the environment, connects to DATABASE_URL, runs pending migrations and
+ * listens. `npm start` (scripts/start.ts) wraps the same `startServer` with its own local services.
+ */
+import http from 'node:http';
+import path from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { pino } from 'pino';
+import { createApp } from './app';
+import { loadConfig, type Config } from './config';
+import { createDb, type Db } from './db/knex';
+
+export const ROOT_DIR = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..');
+
+export interface RunningServer {
+  url: string;
+  port: number;
+  db: Db;
+  close: () => Promise<void>;
+}
+
+export async function startServer(config: Config, opts: { clientDir?: string; db?: Db } = {}): Promise<RunningServer> {
+  const logger = pino({ level: config.LOG_LEVEL, base: { app: 'brineline' } });
+  const db = opts.db ?? createDb(config.DATABASE_URL);
+  const app = createApp({ db, config, logger, clientDir: opts.clientDir ?? path.join(ROOT_DIR, 'dist', 'client') });
+  const server = http.createServer(app);
+  await new Promise<void>((resolve, reject) => {
+    server.once('error', reject);
+    server.listen(config.PORT, '0.0.0.0', () => resolve());
+  });
+  const address = server.address();
+  const port = typeof address === 'object' && address ? address.port : config.PORT;
+  return {
+    url: `http://localhost:${port}`,
+    port,
+    db,
+    close: async () => {
+      server.closeAllConnections();
+      await new Promise<void>((resolve) => server.close(() => resolve()));
+      await db.destroy();
+    },
+  };
+}
+
+const invokedDirectly = process.argv[1] && path.resolve(process.argv[1]) === fileURLToPath(import.meta.url);
+if (invokedDirectly) {
+  const config = loadConfig();
+  const { migrateLatest } = await import('../scripts/lib/migrate');
+  const db = createDb(config.DATABASE_URL);
+  await migrateLatest(db);
+  const running = await startServer(config, { db });
+  console.log(`Brineline listening on ${running.url}`);
+  const shutdown = () => void running.close().then(() => process.exit(0));
+  process.on('SIGINT', shutdown);
+  process.on('SIGTERM', shutdown);
+}

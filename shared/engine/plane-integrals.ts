@@ -1,0 +1,146 @@
+/**
+ * Exact integrals over plane regions in a plate's 2D axes (u across, v up the steepest slope):
+ * area and first and second moments of polygons by Green's theorem (the standard vertex-sum
+ * formulas, e.g. Bourke, "Calculating the area and centroid of a polygon", and any statics text),
+ * and of circular segments in closed form. Polygons are flat arrays [u0, v0, u1, v1, ...].
+ */
+
+/** ∫dA, ∫u dA, ∫v dA, ∫uv dA, ∫v² dA over a region (m², m³, m³, m⁴, m⁴). */
+export interface Moments {
+  a: number;
+  su: number;
+  sv: number;
+  suv: number;
+  svv: number;
+}
+
+export const zeroMoments = (): Moments => ({ a: 0, su: 0, sv: 0, suv: 0, svv: 0 });
+
+/** Adds k × m into acc. */
+export function addMoments(acc: Moments, m: Moments, k = 1): void {
+  acc.a += k * m.a;
+  acc.su += k * m.su;
+  acc.sv += k * m.sv;
+  acc.suv += k * m.suv;
+  acc.svv += k * m.svv;
+}
+
+/** Moments of a simple or self-touching polygon; positive when counter-clockwise. */
+export function polygonMoments(p: readonly number[]): Moments {
+  const n = p.length;
+  let a = 0, su = 0, sv = 0, suv = 0, svv = 0;
+  for (let i = 0; i < n; i += 2) {
+    const j = i + 2 < n ? i + 2 : 0;
+    const x0 = p[i], y0 = p[i + 1], x1 = p[j], y1 = p[j + 1];
+    const c = x0 * y1 - x1 * y0;
+    a += c;
+    su += (x0 + x1) * c;
+    sv += (y0 + y1) * c;
+    svv += (y0 * y0 + y0 * y1 + y1 * y1) * c;
+    suv += (x0 * y1 + 2 * x0 * y0 + 2 * x1 * y1 + x1 * y0) * c;
+  }
+  return { a: a / 2, su: su / 6, sv: sv / 6, suv: suv / 24, svv: svv / 12 };
+}
+
+/** Second moment ∫u² dA of a polygon (used by reference checks and plate properties). */
+export function polygonSuu(p: readonly number[]): number {
+  const n = p.length;
+  let s = 0;
+  for (let i = 0; i < n; i += 2) {
+    const j = i + 2 < n ? i + 2 : 0;
+    const x0 = p[i], y0 = p[i + 1], x1 = p[j], y1 = p[j + 1];
+    s += (x0 * x0 + x0 * x1 + x1 * x1) * (x0 * y1 - x1 * y0);
+  }
+  return s / 12;
+}
+
+/**
+ * Splits a polygon by the line v = c into the parts below and above (Sutherland–Hodgman, one pass).
+ * For a non-convex polygon a part may hold zero-area bridges along the cut line; they cancel in
+ * every Green's-theorem integral, so moments stay exact.
+ */
+export function splitAtV(p: readonly number[], c: number): [number[], number[]] {
+  const below: number[] = [];
+  const above: number[] = [];
+  const n = p.length;
+  for (let i = 0; i < n; i += 2) {
+    const j = i + 2 < n ? i + 2 : 0;
+    const x0 = p[i], y0 = p[i + 1], x1 = p[j], y1 = p[j + 1];
+    const d0 = y0 - c, d1 = y1 - c;
+    if (d0 <= 0) below.push(x0, y0);
+    if (d0 >= 0) above.push(x0, y0);
+    if ((d0 < 0 && d1 > 0) || (d0 > 0 && d1 < 0)) {
+      const t = d0 / (d0 - d1);
+      const x = x0 + t * (x1 - x0);
+      below.push(x, c);
+      above.push(x, c);
+    }
+  }
+  return [below.length >= 6 ? below : [], above.length >= 6 ? above : []];
+}
+
+/** Keeps the part of a polygon where a·u + b·v ≤ c (Sutherland–Hodgman). */
+export function clipHalfPlane(p: readonly number[], a: number, b: number, c: number): number[] {
+  const out: number[] = [];
+  const n = p.length;
+  for (let i = 0; i < n; i += 2) {
+    const j = i + 2 < n ? i + 2 : 0;
+    const x0 = p[i], y0 = p[i + 1], x1 = p[j], y1 = p[j + 1];
+    const d0 = a * x0 + b * y0 - c, d1 = a * x1 + b * y1 - c;
+    if (d0 <= 0) out.push(x0, y0);
+    if ((d0 < 0 && d1 > 0) || (d0 > 0 && d1 < 0)) {
+      const t = d0 / (d0 - d1);
+      out.push(x0 + t * (x1 - x0), y0 + t * (y1 - y0));
+    }
+  }
+  return out.length >= 6 ? out : [];
+}
+
+/** Total length of the chord(s) of a polygon along the line v = c. */
+export function polygonWidthAtV(p: readonly number[], c: number): number {
+  const xs: number[] = [];
+  const n = p.length;
+  for (let i = 0; i < n; i += 2) {
+    const j = i + 2 < n ? i + 2 : 0;
+    const y0 = p[i + 1], y1 = p[j + 1];
+    if ((y0 <= c && y1 > c) || (y1 <= c && y0 > c)) {
+      const x0 = p[i], x1 = p[j];
+      xs.push(x0 + ((c - y0) / (y1 - y0)) * (x1 - x0));
+    }
+  }
+  xs.sort((q, r) => q - r);
+  let w = 0;
+  for (let k = 0; k + 1 < xs.length; k += 2) w += xs[k + 1] - xs[k];
+  return w;
+}
+
+/** Antiderivatives in t = v − v_c of a circle's chord integrals ∫w, ∫t·w, ∫t²·w, w(t) = 2√(r² − t²). */
+function circlePrimitive(r: number, t: number): [number, number, number] {
+  const tc = Math.max(-r, Math.min(r, t));
+  const s = Math.sqrt(Math.max(0, r * r - tc * tc));
+  const as = Math.asin(tc / r);
+  const f0 = tc * s + r * r * as;
+  const f1 = (-2 / 3) * s * s * s;
+  const f2 = (tc / 4) * (2 * tc * tc - r * r) * s + (r ** 4 / 4) * as;
+  return [f0, f1, f2];
+}
+
+/**
+ * Exact moments of the part of a circle (centre (uc, vc), radius r) between v = v1 and v = v2:
+ * circular-segment areas and moments in closed form (integrals of the chord 2√(r² − t²)).
+ */
+export function circleStripMoments(uc: number, vc: number, r: number, v1: number, v2: number): Moments {
+  const [a1, b1, c1] = circlePrimitive(r, v1 - vc);
+  const [a2, b2, c2] = circlePrimitive(r, v2 - vc);
+  const a = a2 - a1;
+  const st = b2 - b1;
+  const stt = c2 - c1;
+  const sv = st + vc * a;
+  return { a, su: uc * a, sv, suv: uc * sv, svv: stt + 2 * vc * st + vc * vc * a };
+}
+
+/** Chord length of a circle at v = c. */
+export function circleWidthAtV(vc: number, r: number, c: number): number {
+  const t = c - vc;
+  return t > -r && t < r ? 2 * Math.sqrt(r * r - t * t) : 0;
+}

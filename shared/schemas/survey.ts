@@ -1,0 +1,331 @@
+/**
+ * The survey format: one JSON document per casualty survey. Everything is SI (m, m², m³, kg/m³,
+ * Pa, N, s) in ship axes: x forward from the aft perpendicular, y to port, z up from the baseline.
+ * Types are inferred from these schemas; the published JSON Schema (survey.schema.json) is
+ * generated from them by scripts/gen-schema.ts.
+ */
+import { z } from 'zod';
+import { catalogueFluid } from '../fluids/catalogue';
+import { SpaceTypeSchema } from './space-types';
+
+export const SURVEY_SCHEMA_VERSION = 1;
+
+const Id = z.uuid();
+const Length = z.number();
+const PositiveLength = z.number().positive();
+const NonNegative = z.number().nonnegative();
+
+/** A point or vector in ship axes, metres. */
+export const Point3Schema = z.object({ x: z.number(), y: z.number(), z: z.number() });
+export type Point3 = z.infer<typeof Point3Schema>;
+
+export const VesselSchema = z.object({
+  name: z.string().trim().min(1),
+  imo: z.string().regex(/^\d{7}$/, 'IMO number must be 7 digits').optional(),
+  lbpM: PositiveLength,
+  breadthM: PositiveLength,
+  depthM: PositiveLength,
+  /** Longitudinal positions (x, m from the aft perpendicular) of the draught marks read. */
+  draughtMarks: z.object({
+    forwardXM: Length,
+    aftXM: Length,
+    /** Position of the midship marks read on each side for heel, if any. */
+    midshipXM: Length.optional(),
+  }),
+});
+export type Vessel = z.infer<typeof VesselSchema>;
+
+/** Where a sounding pipe stands: x, y of the pipe (m) and the height of its bottom (striking plate) above baseline. */
+export const SoundingPipeSchema = z.object({ x: z.number(), y: z.number(), bottomZM: z.number() });
+
+/**
+ * How a liquid surface was found. A sounding pipe is taken as straight along the ship's z axis
+ * (pipes are fixed to the structure and heel with it); the tape reading is measured along the pipe,
+ * so the level plane passes through (x, y, bottomZM + soundingM). An ullage is measured down the
+ * same way from its reference point: the plane passes through (x, y, z − ullageM). An interface
+ * sounding (water-finding paste under oil) gives the top of a lower layer. "openToSea" puts the
+ * level on the outside waterline; "point" gives any ship point the surface passes through.
+ */
+export const LevelSourceSchema = z.discriminatedUnion('kind', [
+  z.object({ kind: z.literal('sounding'), pipe: SoundingPipeSchema, soundingM: NonNegative }),
+  z.object({ kind: z.literal('interfaceSounding'), pipe: SoundingPipeSchema, soundingM: NonNegative }),
+  z.object({ kind: z.literal('ullage'), reference: Point3Schema, ullageM: NonNegative }),
+  z.object({ kind: z.literal('openToSea') }),
+  z.object({ kind: z.literal('point'), point: Point3Schema }),
+]);
+export type LevelSource = z.infer<typeof LevelSourceSchema>;
+
+export const LayerSchema = z.object({
+  id: Id,
+  /** Catalogue id (see shared/fluids/catalogue) or the id of a survey fluid override. */
+  fluidId: z.string().min(1),
+  /** Measured density for this layer, overriding the fluid's density. */
+  densityKgM3: z.number().positive().max(2000).optional(),
+  /** The top surface of this layer. */
+  level: LevelSourceSchema,
+});
+export type Layer = z.infer<typeof LayerSchema>;
+
+/** The gas space over the liquid: vented to atmosphere, or held at a gauge pressure (negative for suction). */
+export const GasSpaceSchema = z.discriminatedUnion('kind', [
+  z.object({ kind: z.literal('vented') }),
+  z.object({ kind: z.literal('pressurised'), gaugePressurePa: z.number().min(-101325) }),
+]);
+export type GasSpace = z.infer<typeof GasSpaceSchema>;
+
+/** What one compartment holds in one condition: layers from the bottom up, and the gas space. */
+export const ContentsSchema = z.object({
+  compartmentId: Id,
+  layers: z.array(LayerSchema),
+  gas: GasSpaceSchema.optional(),
+});
+export type Contents = z.infer<typeof ContentsSchema>;
+
+export const ConditionSchema = z.object({
+  id: Id,
+  name: z.string().optional(),
+  time: z.iso.datetime({ offset: true }),
+  /** Drafts at the marks, m above baseline. Forward and aft are centreline (mean of both sides) values. */
+  drafts: z.object({
+    forwardM: z.number(),
+    aftM: z.number(),
+    midPortM: z.number().optional(),
+    midStarboardM: z.number().optional(),
+  }),
+  /** Inclinometer heel, degrees, positive with starboard down. If absent, taken from the midship drafts, else 0. */
+  heelDeg: z.number().gt(-60).lt(60).optional(),
+  /** Sea water density, kg/m³ (default 1025). */
+  seaDensityKgM3: z.number().min(990).max(1050).optional(),
+  /** Acceleration of gravity, m/s² (default standard gravity 9.80665). */
+  gravityMS2: z.number().min(9.7).max(9.9).optional(),
+  contents: z.array(ContentsSchema),
+});
+export type Condition = z.infer<typeof ConditionSchema>;
+
+export const BreachSchema = z.object({
+  id: Id,
+  /** Centre of the opening, ship axes. */
+  position: Point3Schema,
+  areaM2: z.number().positive(),
+  /** Discharge coefficient (default 0.6, sharp-edged orifice). */
+  dischargeCoefficient: z.number().gt(0).max(1).optional(),
+});
+
+export const PumpSchema = z.object({
+  id: Id,
+  name: z.string(),
+  capacityM3S: z.number().nonnegative(),
+});
+
+export const SoundingLogSchema = z.object({
+  pipe: SoundingPipeSchema,
+  readings: z.array(z.object({ time: z.iso.datetime({ offset: true }), soundingM: NonNegative })).min(2),
+});
+
+export const CompartmentGeometrySchema = z.discriminatedUnion('kind', [
+  z.object({ kind: z.literal('box'), min: Point3Schema, max: Point3Schema }),
+  /** A section polygon in the y–z plane (any order, not self-intersecting) extruded between two x positions. */
+  z.object({
+    kind: z.literal('prism'),
+    xAftM: z.number(),
+    xForeM: z.number(),
+    section: z.array(z.object({ y: z.number(), z: z.number() })).min(3),
+  }),
+]);
+export type CompartmentGeometry = z.infer<typeof CompartmentGeometrySchema>;
+
+export const CompartmentSchema = z.object({
+  id: Id,
+  name: z.string().trim().min(1),
+  spaceType: SpaceTypeSchema,
+  geometry: CompartmentGeometrySchema,
+  /** Overrides the default permeability of the space type. */
+  permeability: z.number().min(0).max(1).optional(),
+  /** Open to the sea through a breach: unless the condition gives contents, it floods to the outside waterline. */
+  openToSea: z.boolean().optional(),
+  breaches: z.array(BreachSchema).optional(),
+  pumps: z.array(PumpSchema).optional(),
+  soundingLog: SoundingLogSchema.optional(),
+});
+export type Compartment = z.infer<typeof CompartmentSchema>;
+
+export const BoundarySideSchema = z.discriminatedUnion('kind', [
+  z.object({ kind: z.literal('compartment'), compartmentId: Id }),
+  z.object({ kind: z.literal('sea') }),
+  z.object({ kind: z.literal('air') }),
+]);
+export type BoundarySide = z.infer<typeof BoundarySideSchema>;
+
+const PolygonVertices = z.array(Point3Schema).min(3);
+
+/**
+ * Plate geometry. The vertex order fixes the plate normal by the right-hand rule; the normal points
+ * from side A into side B, so positive net pressure (A − B) pushes the plate towards side B.
+ * Rectangle: a corner and its two edge vectors (normal = edgeU × edgeV). Circle: centre, normal
+ * (towards side B) and radius. Faceted: a curved surface as flat facets, each oriented the same way.
+ */
+export const BoundaryGeometrySchema = z.discriminatedUnion('kind', [
+  z.object({ kind: z.literal('polygon'), vertices: PolygonVertices }),
+  z.object({ kind: z.literal('rectangle'), origin: Point3Schema, edgeU: Point3Schema, edgeV: Point3Schema }),
+  z.object({ kind: z.literal('circle'), centre: Point3Schema, normal: Point3Schema, radiusM: PositiveLength }),
+  z.object({ kind: z.literal('faceted'), facets: z.array(z.object({ vertices: PolygonVertices })).min(1) }),
+]);
+export type BoundaryGeometry = z.infer<typeof BoundaryGeometrySchema>;
+
+/**
+ * Stiffeners on a flat plate: parallel lines along `direction` (ship axes, projected into the
+ * plate), `spacingM` apart, the first `firstOffsetM` (default one spacing) from the plate's edge.
+ * Each spans the plate's chord along its line unless `spanM` is given (then measured from the
+ * chord's start, the lower end along `direction`).
+ */
+export const StiffeningSchema = z.object({
+  direction: Point3Schema,
+  spacingM: PositiveLength,
+  firstOffsetM: NonNegative.optional(),
+  spanM: PositiveLength.optional(),
+  endFixity: z.enum(['simply-supported', 'fixed']),
+  sectionModulusM3: z.number().positive(),
+  allowableStressPa: z.number().positive(),
+});
+export type Stiffening = z.infer<typeof StiffeningSchema>;
+
+export const ShoreSectionSchema = z.discriminatedUnion('kind', [
+  z.object({ kind: z.literal('rectangular'), widthM: PositiveLength, depthM: PositiveLength }),
+  z.object({ kind: z.literal('tube'), outerDiameterM: PositiveLength, wallThicknessM: PositiveLength }),
+  z.object({ kind: z.literal('generic'), areaM2: z.number().positive(), leastSecondMomentM4: z.number().positive(), leastDimensionM: PositiveLength }),
+]);
+export type ShoreSection = z.infer<typeof ShoreSectionSchema>;
+
+export const SHORE_END_CONDITIONS = ['pinned-pinned', 'fixed-fixed', 'fixed-pinned', 'fixed-free'] as const;
+
+export const ShoreSchema = z.object({
+  id: Id,
+  /** Where the shore's head bears on the plate (ship axes; projected onto the plate). */
+  position: Point3Schema,
+  lengthM: PositiveLength,
+  section: ShoreSectionSchema,
+  elasticModulusPa: z.number().positive(),
+  allowableStressPa: z.number().positive(),
+  endCondition: z.enum(SHORE_END_CONDITIONS),
+  /** The side of the plate the shore stands on: it is loaded when the net pressure pushes the plate towards it. */
+  side: z.enum(['A', 'B']),
+  /** Angle between the shore's axis and the plate normal, degrees (default 0). */
+  angleFromNormalDeg: z.number().min(0).max(75).optional(),
+});
+export type Shore = z.infer<typeof ShoreSchema>;
+
+export const RatedCapacitySchema = z.discriminatedUnion('kind', [
+  z.object({ kind: z.literal('pressure'), pressurePa: z.number().positive() }),
+  z.object({ kind: z.literal('force'), forceN: z.number().positive() }),
+]);
+
+export const BOUNDARY_KINDS = ['bulkhead', 'deck', 'tank-top', 'hatch-cover', 'door', 'manhole', 'shell', 'patch'] as const;
+
+export const BoundarySchema = z.object({
+  id: Id,
+  name: z.string().trim().min(1),
+  kind: z.enum(BOUNDARY_KINDS),
+  geometry: BoundaryGeometrySchema,
+  sideA: BoundarySideSchema,
+  sideB: BoundarySideSchema,
+  /**
+   * A door, hatch or manhole set in another boundary. The child is loaded as its own plate; the
+   * parent's loads exclude the child's opening when the child lies in the parent's plane and inside
+   * its outline (otherwise the parent is computed over its full outline and a warning says so).
+   */
+  parentBoundaryId: Id.optional(),
+  stiffening: StiffeningSchema.optional(),
+  shores: z.array(ShoreSchema).optional(),
+  ratedCapacity: RatedCapacitySchema.optional(),
+  notes: z.string().optional(),
+});
+export type Boundary = z.infer<typeof BoundarySchema>;
+
+/** A survey-level fluid: overrides a catalogue entry with the same id, or adds a new one. */
+export const FluidOverrideSchema = z
+  .object({
+    id: z.string().min(1),
+    name: z.string().min(1),
+    category: z.enum(['water', 'oil', 'other']),
+    densityKgM3: z.number().positive().max(2000).optional(),
+    /** For crude oils: density follows from API gravity. */
+    apiGravity: z.number().min(-10).max(100).optional(),
+    source: z.string().optional(),
+  })
+  .refine((f) => (f.densityKgM3 === undefined) !== (f.apiGravity === undefined), {
+    message: 'give exactly one of densityKgM3 or apiGravity',
+  });
+export type FluidOverride = z.infer<typeof FluidOverrideSchema>;
+
+export const PhotoRefSchema = z.object({
+  id: Id,
+  entity: z.object({ kind: z.enum(['survey', 'condition', 'compartment', 'boundary']), id: Id }),
+  caption: z.string(),
+  contentType: z.string().regex(/^image\/[a-z0-9.+-]+$/),
+  key: z.string().optional(),
+});
+export type PhotoRef = z.infer<typeof PhotoRefSchema>;
+
+const SurveyObjectSchema = z.object({
+  schemaVersion: z.literal(SURVEY_SCHEMA_VERSION),
+  id: Id,
+  vesselId: Id.optional(),
+  title: z.string().trim().min(1),
+  casualtyDescription: z.string(),
+  vessel: VesselSchema,
+  conditions: z.array(ConditionSchema).min(1),
+  activeConditionId: Id,
+  fluids: z.array(FluidOverrideSchema),
+  compartments: z.array(CompartmentSchema),
+  boundaries: z.array(BoundarySchema),
+  photos: z.array(PhotoRefSchema).optional(),
+});
+
+/** Cross-references: every id that is pointed at must exist, and ids must be unique. */
+export const SurveySchema = SurveyObjectSchema.superRefine((s, ctx) => {
+  const seen = new Map<string, string>();
+  const unique = (id: string, path: (string | number)[]) => {
+    const first = seen.get(id);
+    if (first !== undefined) ctx.addIssue({ code: 'custom', path, message: `duplicate id ${id} (first used at ${first})` });
+    else seen.set(id, path.join('.'));
+  };
+  s.conditions.forEach((c, i) => unique(c.id, ['conditions', i, 'id']));
+  s.compartments.forEach((c, i) => unique(c.id, ['compartments', i, 'id']));
+  s.boundaries.forEach((b, i) => unique(b.id, ['boundaries', i, 'id']));
+
+  const compartmentIds = new Set(s.compartments.map((c) => c.id));
+  const boundaryIds = new Set(s.boundaries.map((b) => b.id));
+  const fluidIds = new Set(s.fluids.map((f) => f.id));
+  if (!s.conditions.some((c) => c.id === s.activeConditionId)) {
+    ctx.addIssue({ code: 'custom', path: ['activeConditionId'], message: 'no condition has this id' });
+  }
+  s.conditions.forEach((c, i) => {
+    const inCondition = new Set<string>();
+    c.contents.forEach((k, j) => {
+      if (!compartmentIds.has(k.compartmentId)) {
+        ctx.addIssue({ code: 'custom', path: ['conditions', i, 'contents', j, 'compartmentId'], message: 'no compartment has this id' });
+      }
+      if (inCondition.has(k.compartmentId)) {
+        ctx.addIssue({ code: 'custom', path: ['conditions', i, 'contents', j, 'compartmentId'], message: 'compartment already has contents in this condition' });
+      }
+      inCondition.add(k.compartmentId);
+      k.layers.forEach((l, m) => {
+        if (!fluidIds.has(l.fluidId) && !catalogueFluid(l.fluidId)) {
+          ctx.addIssue({ code: 'custom', path: ['conditions', i, 'contents', j, 'layers', m, 'fluidId'], message: `unknown fluid "${l.fluidId}"` });
+        }
+      });
+    });
+  });
+  s.boundaries.forEach((b, i) => {
+    for (const side of ['sideA', 'sideB'] as const) {
+      const sd = b[side];
+      if (sd.kind === 'compartment' && !compartmentIds.has(sd.compartmentId)) {
+        ctx.addIssue({ code: 'custom', path: ['boundaries', i, side, 'compartmentId'], message: 'no compartment has this id' });
+      }
+    }
+    if (b.parentBoundaryId !== undefined && (!boundaryIds.has(b.parentBoundaryId) || b.parentBoundaryId === b.id)) {
+      ctx.addIssue({ code: 'custom', path: ['boundaries', i, 'parentBoundaryId'], message: 'no other boundary has this id' });
+    }
+  });
+});
+export type Survey = z.infer<typeof SurveySchema>;

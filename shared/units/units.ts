@@ -1,0 +1,140 @@
+/**
+ * Units. The stored model and the engine are SI (m, m², m³, kg, N, Pa, s); these helpers convert
+ * for display. Every factor is an exact definition from NIST Special Publication 811 (2008),
+ * Appendix B (1 ft = 0.3048 m, 1 in = 0.0254 m, 1 lb = 0.45359237 kg, standard gravity
+ * 9.80665 m/s², 1 US gallon = 231 in³, 1 petroleum barrel = 42 US gallons).
+ */
+
+declare const unitBrand: unique symbol;
+/** A number carrying its unit in the type, so metres and feet (or degrees and radians) cannot be mixed. */
+export type Quantity<U extends string> = number & { readonly [unitBrand]: U };
+export type Metres = Quantity<'m'>;
+export type SquareMetres = Quantity<'m2'>;
+export type CubicMetres = Quantity<'m3'>;
+export type Kilograms = Quantity<'kg'>;
+export type Newtons = Quantity<'N'>;
+export type Pascals = Quantity<'Pa'>;
+export type Radians = Quantity<'rad'>;
+export type Degrees = Quantity<'deg'>;
+export type Seconds = Quantity<'s'>;
+
+/** Standard acceleration of gravity, m/s² (3rd CGPM, 1901). */
+export const STANDARD_GRAVITY_M_S2 = 9.80665;
+
+export const FOOT_M = 0.3048;
+export const INCH_M = 0.0254;
+export const POUND_KG = 0.45359237;
+export const POUND_FORCE_N = POUND_KG * STANDARD_GRAVITY_M_S2;
+export const KIP_N = 1000 * POUND_FORCE_N;
+export const PSI_PA = POUND_FORCE_N / (INCH_M * INCH_M);
+export const LONG_TON_KG = 2240 * POUND_KG;
+export const SHORT_TON_KG = 2000 * POUND_KG;
+/** Long ton-force (2240 lbf), used for forces when the user prefers tons. */
+export const LONG_TON_FORCE_N = 2240 * POUND_FORCE_N;
+export const CUBIC_FOOT_M3 = FOOT_M * FOOT_M * FOOT_M;
+export const US_GALLON_M3 = 231 * INCH_M * INCH_M * INCH_M;
+export const BARREL_M3 = 42 * US_GALLON_M3;
+
+export const degToRad = (deg: number): Radians => ((deg * Math.PI) / 180) as Radians;
+export const radToDeg = (rad: number): Degrees => ((rad * 180) / Math.PI) as Degrees;
+
+/** Every unit the app displays, with its size in the SI unit of its dimension. */
+export const UNITS = {
+  m: { dimension: 'length', toSi: 1, label: 'm' },
+  mm: { dimension: 'length', toSi: 0.001, label: 'mm' },
+  ft: { dimension: 'length', toSi: FOOT_M, label: 'ft' },
+  in: { dimension: 'length', toSi: INCH_M, label: 'in' },
+  m2: { dimension: 'area', toSi: 1, label: 'm²' },
+  ft2: { dimension: 'area', toSi: FOOT_M * FOOT_M, label: 'ft²' },
+  in2: { dimension: 'area', toSi: INCH_M * INCH_M, label: 'in²' },
+  m3: { dimension: 'volume', toSi: 1, label: 'm³' },
+  ft3: { dimension: 'volume', toSi: CUBIC_FOOT_M3, label: 'ft³' },
+  usgal: { dimension: 'volume', toSi: US_GALLON_M3, label: 'US gal' },
+  bbl: { dimension: 'volume', toSi: BARREL_M3, label: 'bbl' },
+  kg: { dimension: 'mass', toSi: 1, label: 'kg' },
+  t: { dimension: 'mass', toSi: 1000, label: 't' },
+  lb: { dimension: 'mass', toSi: POUND_KG, label: 'lb' },
+  LT: { dimension: 'mass', toSi: LONG_TON_KG, label: 'LT' },
+  ST: { dimension: 'mass', toSi: SHORT_TON_KG, label: 'ST' },
+  N: { dimension: 'force', toSi: 1, label: 'N' },
+  kN: { dimension: 'force', toSi: 1000, label: 'kN' },
+  lbf: { dimension: 'force', toSi: POUND_FORCE_N, label: 'lbf' },
+  kip: { dimension: 'force', toSi: KIP_N, label: 'kip' },
+  LTf: { dimension: 'force', toSi: LONG_TON_FORCE_N, label: 'LTf' },
+  Pa: { dimension: 'pressure', toSi: 1, label: 'Pa' },
+  kPa: { dimension: 'pressure', toSi: 1000, label: 'kPa' },
+  MPa: { dimension: 'pressure', toSi: 1e6, label: 'MPa' },
+  psi: { dimension: 'pressure', toSi: PSI_PA, label: 'psi' },
+  ksi: { dimension: 'pressure', toSi: 1000 * PSI_PA, label: 'ksi' },
+  kgm3: { dimension: 'density', toSi: 1, label: 'kg/m³' },
+  lbft3: { dimension: 'density', toSi: POUND_KG / CUBIC_FOOT_M3, label: 'lb/ft³' },
+  m3s: { dimension: 'flow', toSi: 1, label: 'm³/s' },
+  m3h: { dimension: 'flow', toSi: 1 / 3600, label: 'm³/h' },
+  usgpm: { dimension: 'flow', toSi: US_GALLON_M3 / 60, label: 'US gal/min' },
+  bblh: { dimension: 'flow', toSi: BARREL_M3 / 3600, label: 'bbl/h' },
+  Nm: { dimension: 'moment', toSi: 1, label: 'N·m' },
+  kNm: { dimension: 'moment', toSi: 1000, label: 'kN·m' },
+  kipft: { dimension: 'moment', toSi: KIP_N * FOOT_M, label: 'kip·ft' },
+  m3mod: { dimension: 'sectionModulus', toSi: 1, label: 'm³' },
+  cm3: { dimension: 'sectionModulus', toSi: 1e-6, label: 'cm³' },
+  in3: { dimension: 'sectionModulus', toSi: INCH_M ** 3, label: 'in³' },
+  s: { dimension: 'time', toSi: 1, label: 's' },
+  h: { dimension: 'time', toSi: 3600, label: 'h' },
+  deg: { dimension: 'angle', toSi: Math.PI / 180, label: '°' },
+  rad: { dimension: 'angle', toSi: 1, label: 'rad' },
+} as const;
+
+export type UnitId = keyof typeof UNITS;
+export type Dimension = (typeof UNITS)[UnitId]['dimension'];
+export type UnitSystem = 'si' | 'us';
+
+/** Converts a value in SI base units to `unit`. */
+export function fromSi(valueSi: number, unit: UnitId): number {
+  return valueSi / UNITS[unit].toSi;
+}
+
+/** Converts a value in `unit` to SI base units. */
+export function toSi(value: number, unit: UnitId): number {
+  return value * UNITS[unit].toSi;
+}
+
+/** Display unit for each dimension in each system: SI (m, kPa, kN, t) or US customary (ft, psi, kip, LT). */
+export const DISPLAY_UNITS: Record<UnitSystem, Record<Dimension, UnitId>> = {
+  si: {
+    length: 'm', area: 'm2', volume: 'm3', mass: 't', force: 'kN', pressure: 'kPa', density: 'kgm3',
+    flow: 'm3h', moment: 'kNm', sectionModulus: 'cm3', time: 'h', angle: 'deg',
+  },
+  us: {
+    length: 'ft', area: 'ft2', volume: 'ft3', mass: 'LT', force: 'kip', pressure: 'psi', density: 'lbft3',
+    flow: 'usgpm', moment: 'kipft', sectionModulus: 'in3', time: 'h', angle: 'deg',
+  },
+};
+
+export interface FormattedQuantity {
+  value: number;
+  unit: UnitId;
+  label: string;
+  text: string;
+}
+
+/**
+ * Formats an SI value of the given dimension in the user's unit system, with `digits`
+ * significant figures (default 4).
+ */
+export function formatQuantity(valueSi: number, dimension: Dimension, system: UnitSystem, digits = 4): FormattedQuantity {
+  const unit = DISPLAY_UNITS[system][dimension];
+  const value = fromSi(valueSi, unit);
+  const label = UNITS[unit].label;
+  const text = `${formatNumber(value, digits)} ${label}`;
+  return { value, unit, label, text };
+}
+
+/** Significant-figure formatting without exponent notation for everyday magnitudes. */
+export function formatNumber(value: number, digits = 4): string {
+  if (!Number.isFinite(value)) return String(value);
+  if (value === 0) return '0';
+  const magnitude = Math.floor(Math.log10(Math.abs(value)));
+  if (magnitude >= 9 || magnitude < -4) return value.toExponential(digits - 1);
+  const decimals = Math.max(0, digits - 1 - magnitude);
+  return value.toFixed(decimals);
+}
