@@ -98,16 +98,22 @@ export function clipHalfPlane(p: readonly number[], a: number, b: number, c: num
 
 /** Total length of the chord(s) of a polygon along the line v = c. */
 export function polygonWidthAtV(p: readonly number[], c: number): number {
-  const xs: number[] = [];
+  // convex outlines cross twice: no allocation on that path
+  let x0c = NaN, x1c = NaN;
+  let xs: number[] | null = null;
   const n = p.length;
   for (let i = 0; i < n; i += 2) {
     const j = i + 2 < n ? i + 2 : 0;
     const y0 = p[i + 1], y1 = p[j + 1];
     if ((y0 <= c && y1 > c) || (y1 <= c && y0 > c)) {
-      const x0 = p[i], x1 = p[j];
-      xs.push(x0 + ((c - y0) / (y1 - y0)) * (x1 - x0));
+      const x = p[i] + ((c - y0) / (y1 - y0)) * (p[j] - p[i]);
+      if (xs) xs.push(x);
+      else if (Number.isNaN(x0c)) x0c = x;
+      else if (Number.isNaN(x1c)) x1c = x;
+      else xs = [x0c, x1c, x];
     }
   }
+  if (!xs) return Number.isNaN(x1c) ? 0 : Math.abs(x1c - x0c);
   xs.sort((q, r) => q - r);
   let w = 0;
   for (let k = 0; k + 1 < xs.length; k += 2) w += xs[k + 1] - xs[k];

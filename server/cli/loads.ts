@@ -1,0 +1,203 @@
+/**
+ * Command-line load calculator: reads a survey JSON file, validates it with the survey schema and
+ * prints the engine's results.
+ *
+ *   tsx server/cli/loads.ts path/to/survey.json [--units si|us] [--table] [--condition <id>]
+ *
+ * JSON output keeps the engine's field names, with unit suffixes renamed when --units us converts
+ * them (forceN → forceKip, areaM2 → areaFt2, ...). Exit codes: 0 ok, 1 invalid input, 2 usage or file error.
+ */
+import { readFileSync } from 'node:fs';
+import { resolve } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { computeSurvey, type SurveyResults } from '@shared/engine';
+import { formatIssues } from '@shared/schemas/format-issues';
+import { SurveySchema } from '@shared/schemas/survey';
+import { formatNumber, formatQuantity, fromSi, type Dimension, type UnitId, type UnitSystem } from '@shared/units/units';
+
+interface Args {
+  file: string;
+  units: UnitSystem;
+  table: boolean;
+  conditionId?: string;
+}
+
+export class CliError extends Error {
+  constructor(message: string, readonly exitCode: number) {
+    super(message);
+  }
+}
+
+export function parseArgs(argv: readonly string[]): Args {
+  let file: string | undefined;
+  let units: UnitSystem = 'si';
+  let table = false;
+  let conditionId: string | undefined;
+  for (let i = 0; i < argv.length; i++) {
+    const a = argv[i];
+    if (a === '--table') table = true;
+    else if (a === '--units') {
+      const u = argv[++i];
+      if (u !== 'si' && u !== 'us') throw new CliError(`--units must be "si" or "us", got ${u ?? 'nothing'}`, 2);
+      units = u;
+    } else if (a.startsWith('--units=')) {
+      const u = a.slice(8);
+      if (u !== 'si' && u !== 'us') throw new CliError(`--units must be "si" or "us", got ${u}`, 2);
+      units = u;
+    } else if (a === '--condition') conditionId = argv[++i];
+    else if (a.startsWith('--')) throw new CliError(`unknown option ${a}`, 2);
+    else if (file === undefined) file = a;
+    else throw new CliError(`unexpected argument ${a}`, 2);
+  }
+  if (!file) throw new CliError('usage: loads <survey.json> [--units si|us] [--table] [--condition <id>]', 2);
+  return { file, units, table, conditionId };
+}
+
+/** Reads, validates and computes; throws CliError with a readable message. */
+export function runLoads(args: Args): SurveyResults {
+  let text: string;
+  try {
+    text = readFileSync(args.file, 'utf8');
+  } catch (e) {
+    const code = (e as { code?: string }).code;
+    throw new CliError(`${args.file}: ${code === 'ENOENT' ? 'file not found' : `cannot read (${code ?? String(e)})`}`, 2);
+  }
+  let doc: unknown;
+  try {
+    doc = JSON.parse(text);
+  } catch (e) {
+    throw new CliError(`${args.file}: not valid JSON (${(e as Error).message})`, 1);
+  }
+  const parsed = SurveySchema.safeParse(doc);
+  if (!parsed.success) {
+    throw new CliError(`${args.file}: invalid survey\n${formatIssues(parsed.error).map((l) => `  ${l}`).join('\n')}`, 1);
+  }
+  if (args.conditionId && !parsed.data.conditions.some((c) => c.id === args.conditionId)) {
+    throw new CliError(`${args.file}: no condition with id ${args.conditionId}`, 1);
+  }
+  return computeSurvey(parsed.data, { conditionId: args.conditionId });
+}
+
+// ---- unit conversion of the JSON output, by field-name suffix
+const SUFFIXES: [string, Dimension, string][] = [
+  ['KgM3', 'density', 'LbFt3'],
+  ['M3S', 'flow', 'UsGpm'],
+  ['M3', 'volume', 'Ft3'],
+  ['M2', 'area', 'Ft2'],
+  ['Nm', 'moment', 'KipFt'],
+  ['Kg', 'mass', 'LongTons'],
+  ['Pa', 'pressure', 'Psi'],
+  ['N', 'force', 'Kip'],
+  ['M', 'length', 'Ft'],
+];
+const POINT_KEYS = new Set(['centroid', 'centreOfPressure', 'point', 'levelPoint', 'waterlinePoint', 'origin']);
+
+function convertUs(value: unknown, key = ''): unknown {
+  if (Array.isArray(value)) return value.map((v) => convertUs(v, key));
+  if (value !== null && typeof value === 'object') {
+    const obj = value as Record<string, unknown>;
+    if (POINT_KEYS.has(key) || key === 'forceVector') {
+      const dim: Dimension = key === 'forceVector' ? 'force' : 'length';
+      const out: Record<string, unknown> = {};
+      for (const [k, v] of Object.entries(obj)) out[k] = typeof v === 'number' ? fromSi(v, usUnit(dim)) : v;
+      return out;
+    }
+    const out: Record<string, unknown> = {};
+    for (const [k, v] of Object.entries(obj)) {
+      const match = typeof v === 'number' ? SUFFIXES.find(([s]) => k.endsWith(s) && k.length > s.length) : undefined;
+      if (match && typeof v === 'number') out[k.slice(0, -match[0].length) + match[2]] = fromSi(v, usUnit(match[1]));
+      else out[k] = convertUs(v, k);
+    }
+    return out;
+  }
+  return value;
+}
+
+function usUnit(d: Dimension): UnitId {
+  const map: Partial<Record<Dimension, UnitId>> = { length: 'ft', area: 'ft2', volume: 'ft3', mass: 'LT', force: 'kip', pressure: 'psi', density: 'lbft3', flow: 'usgpm', moment: 'kipft' };
+  return map[d] ?? 'm';
+}
+
+// ---- table output
+function pad(s: string, n: number): string {
+  return s.length >= n ? s : s + ' '.repeat(n - s.length);
+}
+function table(headers: string[], rows: string[][]): string {
+  const widths = headers.map((h, i) => Math.max(h.length, ...rows.map((r) => r[i].length)));
+  const line = (cells: string[]) => cells.map((c, i) => pad(c, widths[i])).join('  ').trimEnd();
+  return [line(headers), widths.map((w) => '-'.repeat(w)).join('  '), ...rows.map(line)].join('\n');
+}
+
+export function renderTable(r: SurveyResults, units: UnitSystem): string {
+  const q = (v: number, d: Dimension) => formatQuantity(v, d, units, 4).text;
+  const out: string[] = [];
+  out.push(`Engine ${r.engineVersion}  condition ${r.conditionId} at ${r.conditionTime}`);
+  out.push(`Heel ${formatNumber(r.frame.heelDeg, 3)}° (starboard down +), trim ${q(r.frame.trimM, 'length')} by the stern (${formatNumber(r.frame.trimDeg, 3)}°), sea ${q(r.frame.seaDensityKgM3, 'density')}`);
+  out.push('');
+  out.push('BOUNDARIES');
+  out.push(
+    table(
+      ['name', 'kind', 'area', 'net force', 'peak net p', 'CoP z', 'vertical', 'horizontal', 'utilisation'],
+      r.boundaries.map((b) => [
+        b.name,
+        b.kind,
+        q(b.areaM2, 'area'),
+        q(b.net.forceN, 'force'),
+        q(b.net.peak.pressurePa, 'pressure'),
+        b.net.centreOfPressure ? q(b.net.centreOfPressure.z, 'length') : '-',
+        q(b.net.verticalN, 'force'),
+        q(b.net.horizontalN, 'force'),
+        b.maxUtilisation === null ? '-' : `${(100 * b.maxUtilisation).toFixed(0)} %${b.maxUtilisation > 1 ? ' OVER' : ''}`,
+      ]),
+    ),
+  );
+  out.push('');
+  out.push('COMPARTMENTS');
+  out.push(
+    table(
+      ['name', 'permeability', 'liquid volume', 'liquid mass', 'layers (top z at centroid)', 'inflow', 'pump-out'],
+      r.compartments.map((c) => [
+        c.name,
+        c.permeability.toFixed(2),
+        q(c.liquid.volumeM3, 'volume'),
+        q(c.liquid.massKg, 'mass'),
+        c.layers.map((l) => `${l.fluidName} ${q(l.levelPoint.z, 'length')}`).join('; ') || '-',
+        c.inflow ? q(c.inflow.inflowUsedM3S, 'flow') : '-',
+        c.inflow ? (c.inflow.timeToPumpOutS === null ? (c.inflow.pumpCapacityM3S > 0 ? 'pumps behind' : '-') : q(c.inflow.timeToPumpOutS, 'time')) : '-',
+      ]),
+    ),
+  );
+  out.push('');
+  const agg = (name: string, a: SurveyResults['ship']['floodWater']) =>
+    `${pad(name, 12)} ${q(a.massKg, 'mass')}  ${q(a.volumeM3, 'volume')}  centroid ${a.centroid ? `x ${q(a.centroid.x, 'length')}, y ${q(a.centroid.y, 'length')}, z ${q(a.centroid.z, 'length')}` : '-'}`;
+  out.push('SHIP TOTALS');
+  out.push(agg('flood water', r.ship.floodWater));
+  out.push(agg('oil', r.ship.oil));
+  out.push(agg('all liquids', r.ship.allLiquids));
+  if (r.warnings.length > 0) {
+    out.push('');
+    out.push('WARNINGS');
+    for (const w of r.warnings) out.push(`  [${w.severity}] ${w.message}`);
+  }
+  out.push('');
+  out.push('Estimates for planning only: structural decisions rest with a competent naval architect, the classification society and the authorities.');
+  return out.join('\n');
+}
+
+export function main(argv: readonly string[] = process.argv.slice(2)): number {
+  try {
+    const args = parseArgs(argv);
+    const results = runLoads(args);
+    if (args.table) process.stdout.write(`${renderTable(results, args.units)}\n`);
+    else process.stdout.write(`${JSON.stringify(args.units === 'us' ? convertUs(results) : results, null, 2)}\n`);
+    return 0;
+  } catch (e) {
+    if (e instanceof CliError) {
+      process.stderr.write(`loads: ${e.message}\n`);
+      return e.exitCode;
+    }
+    throw e;
+  }
+}
+
+if (process.argv[1] && resolve(process.argv[1]) === fileURLToPath(import.meta.url)) process.exitCode = main();

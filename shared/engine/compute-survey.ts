@@ -1,0 +1,829 @@
+/**
+ * computeSurvey: the one entry point the app and the server call. Takes a parsed Survey
+ * (SurveySchema) and returns plain-JSON results for one condition (the active one unless
+ * options.conditionId is given). Pure and deterministic: no clock, no randomness, no I/O.
+ */
+import { catalogueFluid, crudeDensityFromApi, type FluidCategory } from '../fluids/catalogue';
+import { DEFAULT_PERMEABILITY } from '../schemas/space-types';
+import type { Boundary, BoundarySide, Compartment, LevelSource, Survey } from '../schemas/survey';
+import { solveBeam } from './beam';
+import { earthFrame, type EarthFrame } from './frame';
+import { DEFAULT_DISCHARGE_COEFFICIENT, leastSquares, orificeFlow, timeToPumpOut } from './inflow';
+import { clipHalfPlane } from './plane-integrals';
+import {
+  childAsHole,
+  circlePlate,
+  evalProfile,
+  integratePlate,
+  loadDiagram,
+  plateToShip,
+  polygonPlate,
+  stripMoments,
+  type FlatPlate,
+  type PlateIntegration,
+  type SignedShape,
+} from './plate';
+import { compartmentSolid, elevationRange, volumeBelow, type Polyhedron, type VolumeMoments } from './polyhedron';
+import { constantProfile, differenceProfile, layeredProfile, type PressureProfile } from './profile';
+import type {
+  Aggregate,
+  BoundaryResult,
+  CapacityResult,
+  CompartmentResult,
+  EngineWarning,
+  FacetResult,
+  InflowResult,
+  LayerResult,
+  NetResult,
+  Point,
+  Severity,
+  ShoreResult,
+  SideResult,
+  StiffenerItem,
+  StiffenerResult,
+  SurveyResults,
+} from './results';
+import { EFFECTIVE_LENGTH_FACTOR, eulerLoad, sectionProperties, SHORE_SLENDERNESS_LIMIT } from './shore';
+import { add, cross, dot, fromPoint, norm, scale, sub, toPoint, unit, type V3 } from './vec';
+import { ENGINE_VERSION } from './version';
+
+export interface ComputeOptions {
+  /** Condition to compute (default: survey.activeConditionId). */
+  conditionId?: string;
+  /** Leave out load diagrams (smaller results for batch checks). Default true. */
+  includeLoadDiagrams?: boolean;
+}
+
+interface ResolvedFluid {
+  name: string;
+  category: FluidCategory;
+  densityKgM3: number;
+}
+
+interface CompartmentState {
+  compartment: Compartment;
+  solid: Polyhedron;
+  profile: PressureProfile;
+  pGas: number;
+  permeability: number;
+  /** volume-below function (memoised per elevation) */
+  below: (eta: number) => VolumeMoments;
+}
+
+const NULL_POINT_TOL = 1e-12;
+
+export function computeSurvey(survey: Survey, options: ComputeOptions = {}): SurveyResults {
+  const conditionId = options.conditionId ?? survey.activeConditionId;
+  const condition = survey.conditions.find((c) => c.id === conditionId);
+  if (!condition) throw new Error(`computeSurvey: no condition with id ${conditionId}`);
+  const warnings: EngineWarning[] = [];
+  const warn = (code: string, severity: Severity, entityId: string | null, message: string) =>
+    warnings.push({ code, severity, entityId, message });
+
+  const frame = earthFrame(survey.vessel, condition);
+  const { up, g } = frame;
+  const fluids = fluidResolver(survey);
+
+  // ---- compartments: contents, profiles, volumes
+  const contentsById = new Map(condition.contents.map((c) => [c.compartmentId, c]));
+  const states = new Map<string, CompartmentState>();
+  const compartmentResults: CompartmentResult[] = [];
+  const ship = { water: acc(), oil: acc(), other: acc() };
+  let totalInflow = 0;
+  let totalPumps = 0;
+
+  for (const comp of survey.compartments) {
+    const solid = compartmentSolid(comp.geometry);
+    const [eBottom, eTop] = elevationRange(solid, up);
+    const memo = new Map<number, VolumeMoments>();
+    const below = (eta: number): VolumeMoments => {
+      const key = eta <= eBottom ? -Infinity : eta >= eTop ? Infinity : eta;
+      let r = memo.get(key);
+      if (!r) {
+        r = key === -Infinity ? { volume: 0, mx: 0, my: 0, mz: 0 } : volumeBelow(solid, up, key);
+        memo.set(key, r);
+      }
+      return r;
+    };
+    const gross = below(Infinity);
+    const permeability = comp.permeability ?? DEFAULT_PERMEABILITY[comp.spaceType];
+    const contents = contentsById.get(comp.id);
+    const layersIn = contents
+      ? contents.layers
+      : comp.openToSea
+        ? [{ id: comp.id, fluidId: 'sea-water', densityKgM3: frame.seaDensityKgM3, level: { kind: 'openToSea' as const } }]
+        : [];
+    const pGas = contents?.gas?.kind === 'pressurised' ? contents.gas.gaugePressurePa : 0;
+
+    const levels: { top: number; densityKgM3: number }[] = [];
+    const layerResults: LayerResult[] = [];
+    let prevTop = -Infinity;
+    const liquid = acc();
+    const centroidXY: V3 = gross.volume > 0 ? [gross.mx / gross.volume, gross.my / gross.volume, gross.mz / gross.volume] : [0, 0, 0];
+    layersIn.forEach((layer, i) => {
+      const fluid = fluids(layer.fluidId);
+      const density = layer.densityKgM3 ?? (layer.fluidId === 'sea-water' && !survey.fluids.some((f) => f.id === 'sea-water') ? frame.seaDensityKgM3 : fluid.densityKgM3);
+      let top = levelElevation(layer.level, frame);
+      if (top < prevTop) {
+        warn('level-order', 'warning', layer.id, `${comp.name}: layer ${i + 1} (${fluid.name}) has its surface below the layer beneath it; taken as empty`);
+        top = prevTop;
+      }
+      if (i === layersIn.length - 1 && top > eTop + 1e-9) {
+        warn('level-above-top', 'info', layer.id, `${comp.name}: liquid surface is ${(top - eTop).toFixed(3)} m above the compartment's highest point (pressed up into pipes or hatch coamings)`);
+      }
+      if (top < eBottom - 1e-9 && layer.level.kind !== 'openToSea') {
+        warn('level-below-bottom', 'info', layer.id, `${comp.name}: layer ${i + 1} (${fluid.name}) surface is below the compartment bottom`);
+      }
+      levels.push({ top, densityKgM3: density });
+      const hi = below(top), lo = i === 0 ? below(-Infinity) : below(prevTop);
+      const vGeom = hi.volume - lo.volume;
+      const vol = Math.max(0, vGeom * permeability);
+      const c: Point | null = vGeom > 1e-12 ? { x: (hi.mx - lo.mx) / vGeom, y: (hi.my - lo.my) / vGeom, z: (hi.mz - lo.mz) / vGeom } : null;
+      const mass = vol * density;
+      layerResults.push({
+        layerId: layer.id,
+        fluidId: layer.fluidId,
+        fluidName: fluid.name,
+        category: fluid.category,
+        densityKgM3: density,
+        levelElevationM: top,
+        levelPoint: toPoint(pointOnLevel(up, top, centroidXY[0], centroidXY[1])),
+        volumeM3: vol,
+        massKg: mass,
+        centroid: c,
+      });
+      if (c) {
+        addAcc(liquid, vol, mass, c);
+        addAcc(fluid.category === 'water' ? ship.water : fluid.category === 'oil' ? ship.oil : ship.other, vol, mass, c);
+      }
+      prevTop = Math.max(prevTop, top);
+    });
+    const profile = layeredProfile(levels, pGas, g);
+    states.set(comp.id, { compartment: comp, solid, profile, pGas, permeability, below });
+
+    const inflow = compartmentInflow(comp, profile, frame, permeability, below, liquid.volume, warn);
+    if (inflow) {
+      totalInflow += inflow.inflowUsedM3S;
+      totalPumps += inflow.pumpCapacityM3S;
+    }
+    const permeableVolume = gross.volume * permeability;
+    compartmentResults.push({
+      id: comp.id,
+      name: comp.name,
+      spaceType: comp.spaceType,
+      permeability,
+      grossVolumeM3: gross.volume,
+      openToSea: comp.openToSea ?? false,
+      gasGaugePressurePa: pGas,
+      layers: layerResults,
+      liquid: finishAcc(liquid),
+      fillFraction: permeableVolume > 0 ? Math.min(1, liquid.volume / permeableVolume) : 0,
+      inflow,
+    });
+  }
+
+  // ---- boundaries
+  const seaProfile = layeredProfile([{ top: frame.waterlineElevation, densityKgM3: frame.seaDensityKgM3 }], 0, g);
+  const airProfile = constantProfile(0);
+  const sideProfile = (s: BoundarySide): PressureProfile =>
+    s.kind === 'sea' ? seaProfile : s.kind === 'air' ? airProfile : (states.get(s.compartmentId)?.profile ?? airProfile);
+
+  // flat plates first, so children can be cut out of their parents
+  const plates = new Map<string, { plate: FlatPlate; pts: V3[] | null }>();
+  for (const b of survey.boundaries) {
+    const geom = b.geometry;
+    if (geom.kind === 'faceted') continue;
+    const built = buildFlat(geom, up);
+    if (built) plates.set(b.id, built);
+  }
+  const openings = new Map<string, string[]>();
+  for (const b of survey.boundaries) {
+    if (!b.parentBoundaryId) continue;
+    const parent = plates.get(b.parentBoundaryId);
+    const child = plates.get(b.id);
+    if (!parent || !child) {
+      warn('opening-not-excluded', 'info', b.id, `${b.name}: parent is not a flat plate; the parent is loaded over its full outline`);
+      continue;
+    }
+    const size = Math.sqrt(Math.max(1e-12, Math.abs(parent.plate.vMax - parent.plate.vMin)));
+    const hole = childAsHole(parent.plate, child.plate, child.pts, 1e-3 * Math.max(1, size));
+    if (typeof hole === 'string') {
+      warn('opening-not-excluded', 'info', b.id, `${b.name} ${hole}; the parent is loaded over its full outline, opening included`);
+      continue;
+    }
+    parent.plate.region.push({ shape: hole, sign: -1 });
+    const list = openings.get(b.parentBoundaryId) ?? [];
+    list.push(b.id);
+    openings.set(b.parentBoundaryId, list);
+  }
+
+  const boundaryResults: BoundaryResult[] = [];
+  let maxU: number | null = null;
+  let maxUId: string | null = null;
+  const over: string[] = [];
+  for (const b of survey.boundaries) {
+    const pa = sideProfile(b.sideA), pb = sideProfile(b.sideB);
+    const net = differenceProfile(pa, pb);
+    const r =
+      b.geometry.kind === 'faceted'
+        ? facetedBoundary(b, b.geometry.facets.map((f) => f.vertices.map(fromPoint)), pa, pb, net, frame, warn)
+        : flatBoundary(b, plates.get(b.id), pa, pb, net, frame, openings.get(b.id) ?? [], options.includeLoadDiagrams !== false, warn);
+    if (!r) continue;
+    boundaryResults.push(r);
+    if (r.maxUtilisation !== null) {
+      if (maxU === null || r.maxUtilisation > maxU) {
+        maxU = r.maxUtilisation;
+        maxUId = b.id;
+      }
+      if (r.maxUtilisation > 1) {
+        over.push(b.id);
+        warn('over-capacity', 'danger', b.id, `${b.name}: utilisation ${(100 * r.maxUtilisation).toFixed(0)} % exceeds capacity`);
+      }
+    }
+  }
+
+  const all = acc();
+  for (const a of [ship.water, ship.oil, ship.other]) if (a.mass > 0) addAcc(all, a.volume, a.mass, { x: a.mx / a.mass, y: a.my / a.mass, z: a.mz / a.mass });
+
+  return {
+    engineVersion: ENGINE_VERSION,
+    surveyId: survey.id,
+    conditionId: condition.id,
+    conditionTime: condition.time,
+    frame: {
+      heelDeg: frame.heelDeg,
+      trimDeg: frame.trimDeg,
+      trimM: frame.trimM,
+      heelSource: frame.heelSource,
+      up: toPoint(up),
+      waterlinePoint: toPoint(frame.waterlinePoint),
+      waterlineElevationM: frame.waterlineElevation,
+      seaDensityKgM3: frame.seaDensityKgM3,
+      gravityMS2: g,
+    },
+    compartments: compartmentResults,
+    boundaries: boundaryResults,
+    ship: { floodWater: finishAcc(ship.water), oil: finishAcc(ship.oil), other: finishAcc(ship.other), allLiquids: finishAcc(all) },
+    summary: {
+      maxUtilisation: maxU,
+      maxUtilisationBoundaryId: maxUId,
+      overCapacityBoundaryIds: over,
+      totalInflowM3S: totalInflow,
+      totalPumpCapacityM3S: totalPumps,
+    },
+    warnings,
+  };
+}
+
+// ---------------------------------------------------------------- helpers
+
+function fluidResolver(survey: Survey): (id: string) => ResolvedFluid {
+  const overrides = new Map(survey.fluids.map((f) => [f.id, f]));
+  return (id) => {
+    const o = overrides.get(id);
+    if (o) return { name: o.name, category: o.category, densityKgM3: o.densityKgM3 ?? crudeDensityFromApi(o.apiGravity ?? 30) };
+    const c = catalogueFluid(id);
+    if (c) return { name: c.name, category: c.category, densityKgM3: c.densityKgM3 };
+    // the schema rejects unknown fluids; an unparsed document falls back to sea water
+    return { name: id, category: 'other', densityKgM3: 1025 };
+  };
+}
+
+/**
+ * Elevation of a level surface from how it was read. Sounding pipes are taken as straight along
+ * the ship's z axis, readings measured along the pipe: the surface passes through
+ * (x, y, bottom + sounding); an ullage through (x, y, reference z − ullage).
+ */
+export function levelElevation(level: LevelSource, frame: EarthFrame): number {
+  const up = frame.up;
+  switch (level.kind) {
+    case 'sounding':
+    case 'interfaceSounding':
+      return dot(up, [level.pipe.x, level.pipe.y, level.pipe.bottomZM + level.soundingM]);
+    case 'ullage':
+      return dot(up, [level.reference.x, level.reference.y, level.reference.z - level.ullageM]);
+    case 'openToSea':
+      return frame.waterlineElevation;
+    case 'point':
+      return dot(up, fromPoint(level.point));
+  }
+}
+
+/** The point at (x, y) whose elevation is eta. */
+function pointOnLevel(up: V3, eta: number, x: number, y: number): V3 {
+  return [x, y, (eta - up[0] * x - up[1] * y) / up[2]];
+}
+
+interface Acc {
+  volume: number;
+  mass: number;
+  mx: number;
+  my: number;
+  mz: number;
+}
+const acc = (): Acc => ({ volume: 0, mass: 0, mx: 0, my: 0, mz: 0 });
+/** Mass-weighted centroid accumulation (the ship's centre of liquid mass). */
+function addAcc(a: Acc, vol: number, mass: number, c: Point): void {
+  a.volume += vol;
+  a.mass += mass;
+  a.mx += mass * c.x;
+  a.my += mass * c.y;
+  a.mz += mass * c.z;
+}
+function finishAcc(a: Acc): Aggregate {
+  return {
+    volumeM3: a.volume,
+    massKg: a.mass,
+    centroid: a.mass > 0 ? { x: a.mx / a.mass, y: a.my / a.mass, z: a.mz / a.mass } : null,
+  };
+}
+
+function compartmentInflow(
+  comp: Compartment,
+  profile: PressureProfile,
+  frame: EarthFrame,
+  permeability: number,
+  below: (eta: number) => VolumeMoments,
+  liquidVolume: number,
+  warn: (code: string, s: Severity, id: string | null, m: string) => void,
+): InflowResult | null {
+  const breaches = comp.breaches ?? [];
+  const pumps = comp.pumps ?? [];
+  if (breaches.length === 0 && pumps.length === 0 && !comp.soundingLog) return null;
+  const rhoSea = frame.seaDensityKgM3;
+  const out: InflowResult['breaches'] = [];
+  let orifice = 0;
+  for (const br of breaches) {
+    const e = dot(frame.up, fromPoint(br.position));
+    const pOut = rhoSea * frame.g * Math.max(0, frame.waterlineElevation - e);
+    const pIn = evalProfile(profile, e);
+    const q = orificeFlow(br.areaM2, br.dischargeCoefficient ?? DEFAULT_DISCHARGE_COEFFICIENT, pOut, pIn, rhoSea);
+    out.push({ id: br.id, headM: (pOut - pIn) / (rhoSea * frame.g), flowM3S: q });
+    orifice += q;
+  }
+  let measured: InflowResult['measured'] = null;
+  if (comp.soundingLog) {
+    const log = comp.soundingLog;
+    const t0 = Date.parse(log.readings[0].time);
+    const ts: number[] = [];
+    const vs: number[] = [];
+    const readings = log.readings.map((r) => {
+      const eta = dot(frame.up, [log.pipe.x, log.pipe.y, log.pipe.bottomZM + r.soundingM]);
+      const v = below(eta).volume * permeability;
+      ts.push((Date.parse(r.time) - t0) / 1000);
+      vs.push(v);
+      return { time: r.time, volumeM3: v };
+    });
+    const fit = leastSquares(ts, vs);
+    measured = { inflowM3S: fit.slope, r2: fit.r2, readings };
+  }
+  const pumpCapacity = pumps.reduce((s, p) => s + p.capacityM3S, 0);
+  const inflowUsed = measured ? measured.inflowM3S : orifice;
+  const t = timeToPumpOut(liquidVolume, pumpCapacity, inflowUsed);
+  if (pumpCapacity > 0 && t === null) {
+    warn('pumps-behind', 'danger', comp.id, `${comp.name}: pumps (${(pumpCapacity * 3600).toFixed(0)} m³/h) cannot keep up with the inflow (${(inflowUsed * 3600).toFixed(0)} m³/h)`);
+  }
+  return {
+    breaches: out,
+    orificeInflowM3S: orifice,
+    measured,
+    pumpCapacityM3S: pumpCapacity,
+    inflowUsedM3S: inflowUsed,
+    netRemovalM3S: pumpCapacity - inflowUsed,
+    timeToPumpOutS: t,
+  };
+}
+
+function buildFlat(geom: Exclude<Boundary['geometry'], { kind: 'faceted' }>, up: V3): { plate: FlatPlate; pts: V3[] | null } | null {
+  switch (geom.kind) {
+    case 'polygon': {
+      const pts = geom.vertices.map(fromPoint);
+      return { plate: polygonPlate(pts, up), pts };
+    }
+    case 'rectangle': {
+      const o = fromPoint(geom.origin), eu = fromPoint(geom.edgeU), ev = fromPoint(geom.edgeV);
+      const pts: V3[] = [o, add(o, eu), add(add(o, eu), ev), add(o, ev)];
+      return { plate: polygonPlate(pts, up), pts };
+    }
+    case 'circle':
+      if (norm(fromPoint(geom.normal)) === 0) return null;
+      return { plate: circlePlate(fromPoint(geom.centre), fromPoint(geom.normal), geom.radiusM, up), pts: null };
+  }
+}
+
+function sideResult(side: BoundarySide, profile: PressureProfile, forceN: number, peak: number, wetted: number): SideResult {
+  return {
+    kind: side.kind,
+    compartmentId: side.kind === 'compartment' ? side.compartmentId : null,
+    forceN,
+    peakPressurePa: peak,
+    wettedAreaM2: wetted,
+    liquidTopElevationM: Number.isFinite(profile.liquidTop) ? profile.liquidTop : null,
+  };
+}
+
+function earthSplit(F: V3, up: V3): Pick<NetResult, 'verticalN' | 'horizontalN' | 'horizontalDirection'> {
+  const vertical = dot(F, up);
+  const h = sub(F, scale(up, vertical));
+  const hn = norm(h);
+  return { verticalN: vertical, horizontalN: hn, horizontalDirection: hn > NULL_POINT_TOL * Math.max(1, norm(F)) ? toPoint(scale(h, 1 / hn)) : null };
+}
+
+function flatNet(plate: FlatPlate, it: PlateIntegration, up: V3): NetResult {
+  const fr = plate.frame;
+  const F = it.netForceN;
+  const Fv = scale(fr.n, F);
+  const cop2 = F !== 0 ? { u: it.netMomentU / F, v: it.netMomentV / F } : null;
+  const cop = cop2 ? plateToShip(fr, cop2.u, cop2.v) : null;
+  const peakSrc = Math.abs(it.peakMin.pressurePa) > Math.abs(it.peakMax.pressurePa) ? it.peakMin : it.peakMax;
+  return {
+    forceN: F,
+    resultantN: Math.abs(F),
+    forceVector: toPoint(Fv),
+    ...earthSplit(Fv, up),
+    centreOfPressure: cop ? toPoint(cop) : null,
+    centreOfPressurePlate: cop2,
+    lineOfAction: cop ? { point: toPoint(cop), direction: toPoint(F >= 0 ? fr.n : scale(fr.n, -1)) } : null,
+    residualMomentNm: 0,
+    positive: partResult(fr, it.positive),
+    negative: partResult(fr, it.negative),
+    signChange: it.positive.forceN !== 0 && it.negative.forceN !== 0,
+    peak: { pressurePa: peakSrc.pressurePa, point: toPoint(plateToShip(fr, peakSrc.u, peakSrc.v)) },
+    maxPressurePa: it.peakMax.pressurePa,
+    minPressurePa: it.peakMin.pressurePa,
+  };
+}
+
+function partResult(fr: FlatPlate['frame'], p: PlateIntegration['positive']): NetResult['positive'] {
+  return { forceN: p.forceN, areaM2: p.areaM2, centreOfPressure: p.cop ? toPoint(plateToShip(fr, p.cop[0], p.cop[1])) : null };
+}
+
+type Warn = (code: string, s: Severity, id: string | null, m: string) => void;
+
+function flatBoundary(
+  b: Boundary,
+  built: { plate: FlatPlate; pts: V3[] | null } | undefined,
+  pa: PressureProfile,
+  pb: PressureProfile,
+  net: PressureProfile,
+  frame: EarthFrame,
+  openingIds: string[],
+  withDiagram: boolean,
+  warn: Warn,
+): BoundaryResult | null {
+  if (!built) {
+    warn('degenerate', 'warning', b.id, `${b.name}: the plate has no area (zero normal); not computed`);
+    return null;
+  }
+  const { plate } = built;
+  const size = Math.max(plate.vMax - plate.vMin, 1e-9);
+  if (plate.planarityErrorM > 1e-3 * size && plate.planarityErrorM > 1e-4) {
+    warn('non-planar', 'warning', b.id, `${b.name}: vertices stray up to ${(plate.planarityErrorM * 1000).toFixed(1)} mm from the mean plane; loads are for that plane (model it as faceted if it is curved)`);
+  }
+  const it = integratePlate(plate, pa, pb, net);
+  if (it.areaM2 <= 0) {
+    warn('degenerate', 'warning', b.id, `${b.name}: the plate has no area (self-intersecting or collinear vertices); not computed`);
+    return null;
+  }
+  const netRes = flatNet(plate, it, frame.up);
+  if (netRes.signChange) {
+    warn('sign-change', 'info', b.id, `${b.name}: net pressure reverses across the plate (${(netRes.positive.forceN / 1000).toFixed(1)} kN towards side B, ${(-netRes.negative.forceN / 1000).toFixed(1)} kN towards side A)`);
+  }
+  const stiffeners = b.stiffening ? stiffenerLoads(b, plate, net, it.cuts) : null;
+  if (stiffeners && stiffeners.maxUtilisation > 1) {
+    warn('stiffener-overstressed', 'danger', b.id, `${b.name}: stiffener bending at ${(100 * stiffeners.maxUtilisation).toFixed(0)} % of allowable`);
+  }
+  const shores = b.shores && b.shores.length > 0 ? shoreLoads(b, plate, net, it.cuts, warn) : [];
+  const capacity = capacityOf(b, netRes);
+  const fr = plate.frame;
+  return {
+    id: b.id,
+    name: b.name,
+    kind: b.kind,
+    geometryKind: b.geometry.kind,
+    parentBoundaryId: b.parentBoundaryId ?? null,
+    areaM2: it.areaM2,
+    normal: toPoint(fr.n),
+    centroid: toPoint(plateToShip(fr, it.centroidU, it.centroidV)),
+    plateAxes: { origin: toPoint(fr.origin), u: toPoint(fr.u), v: toPoint(fr.v) },
+    openingsExcluded: openingIds,
+    sideA: sideResult(b.sideA, pa, it.sideForceN[0], it.sidePeakPa[0], it.sideWettedM2[0]),
+    sideB: sideResult(b.sideB, pb, it.sideForceN[1], it.sidePeakPa[1], it.sideWettedM2[1]),
+    net: netRes,
+    loadDiagram: withDiagram ? loadDiagram(plate, net, it.cuts) : [],
+    facets: null,
+    stiffeners,
+    shores,
+    capacity,
+    maxUtilisation: maxOf([capacity?.utilisation, stiffeners?.maxUtilisation, ...shores.map((s) => s.utilisation)]),
+  };
+}
+
+function maxOf(xs: (number | undefined)[]): number | null {
+  let m: number | null = null;
+  for (const x of xs) if (x !== undefined && Number.isFinite(x) && (m === null || x > m)) m = x;
+  return m;
+}
+
+function capacityOf(b: Boundary, net: NetResult): CapacityResult | null {
+  const rc = b.ratedCapacity;
+  if (!rc) return null;
+  if (rc.kind === 'pressure') {
+    const actual = Math.abs(net.peak.pressurePa);
+    return { kind: 'pressure', rated: rc.pressurePa, actual, utilisation: actual / rc.pressurePa };
+  }
+  const actual = net.resultantN;
+  return { kind: 'force', rated: rc.forceN, actual, utilisation: actual / rc.forceN };
+}
+
+/**
+ * Stiffener loads: each stiffener carries the net pressure on a strip one spacing wide along its
+ * line (q = spacing × p along the span; the conventional tributary-strip rule, which ignores the
+ * narrower strips at the plate's edges and any opening it crosses).
+ */
+function stiffenerLoads(b: Boundary, plate: FlatPlate, net: PressureProfile, cuts: readonly number[]): StiffenerResult {
+  const st = b.stiffening!;
+  const fr = plate.frame;
+  const dShip = fromPoint(st.direction);
+  let du = dot(dShip, fr.u), dv = dot(dShip, fr.v);
+  const dl = Math.hypot(du, dv);
+  const items: StiffenerItem[] = [];
+  if (dl === 0) return { endFixity: st.endFixity, spacingM: st.spacingM, items, governingIndex: null, maxUtilisation: 0 };
+  du /= dl;
+  dv /= dl;
+  const pu = -dv, pv = du; // across the stiffeners
+  const outer = plate.region[0].shape;
+  let tMin: number, tMax: number;
+  if (outer.kind === 'circle') {
+    const tc = outer.uc * pu + outer.vc * pv;
+    tMin = tc - outer.r;
+    tMax = tc + outer.r;
+  } else {
+    tMin = Infinity;
+    tMax = -Infinity;
+    for (let i = 0; i < outer.pts.length; i += 2) {
+      const t = outer.pts[i] * pu + outer.pts[i + 1] * pv;
+      tMin = Math.min(tMin, t);
+      tMax = Math.max(tMax, t);
+    }
+  }
+  const first = st.firstOffsetM ?? st.spacingM;
+  const tol = 1e-9 * Math.max(1, tMax - tMin);
+  let best = -1, bestU = 0;
+  for (let k = 0; k < 1000; k++) {
+    const t = tMin + first + k * st.spacingM;
+    if (t >= tMax - tol) break;
+    // chord of the outer outline along the line {t}
+    let s0 = Infinity, s1 = -Infinity;
+    if (outer.kind === 'circle') {
+      const dc = t - (outer.uc * pu + outer.vc * pv);
+      const h = Math.sqrt(Math.max(0, outer.r * outer.r - dc * dc));
+      const sc = outer.uc * du + outer.vc * dv;
+      s0 = sc - h;
+      s1 = sc + h;
+    } else {
+      const p = outer.pts;
+      for (let i = 0; i < p.length; i += 2) {
+        const j = i + 2 < p.length ? i + 2 : 0;
+        const fa = p[i] * pu + p[i + 1] * pv - t, fb = p[j] * pu + p[j + 1] * pv - t;
+        if ((fa <= 0 && fb >= 0) || (fa >= 0 && fb <= 0)) {
+          const w = fa === fb ? 0 : fa / (fa - fb);
+          const x = p[i] + w * (p[j] - p[i]), y = p[i + 1] + w * (p[j + 1] - p[i + 1]);
+          const s = x * du + y * dv;
+          s0 = Math.min(s0, s);
+          s1 = Math.max(s1, s);
+        }
+      }
+    }
+    if (!(s1 > s0)) continue;
+    if (st.spanM !== undefined) s1 = s0 + st.spanM;
+    // stations: ends plus where v(s) crosses a cut
+    const v0 = t * pv; // v at s = 0 along the line point t·p + s·d
+    const stations: number[] = [s0, s1];
+    if (dv !== 0) {
+      for (const c of cuts) {
+        const s = (c - v0) / dv;
+        if (s > s0 && s < s1) stations.push(s);
+      }
+    }
+    stations.sort((x, y) => x - y);
+    const q = stations.map((s) => st.spacingM * evalProfile(net, fr.e0 + fr.k * (v0 + s * dv)));
+    const r = solveBeam(stations, q, st.endFixity);
+    const required = Math.abs(r.maxMomentNm) / st.allowableStressPa;
+    const u = required / st.sectionModulusM3;
+    items.push({
+      offsetM: t - tMin,
+      spanM: r.spanM,
+      totalLoadN: r.totalLoadN,
+      reactionStartN: r.reactionStartN,
+      reactionEndN: r.reactionEndN,
+      maxMomentNm: r.maxMomentNm,
+      maxMomentAtM: r.maxMomentAtM,
+      endMomentStartNm: r.endMomentStartNm,
+      endMomentEndNm: r.endMomentEndNm,
+      requiredModulusM3: required,
+      utilisation: u,
+    });
+    if (u > bestU || best < 0) {
+      best = items.length - 1;
+      bestU = u;
+    }
+  }
+  return { endFixity: st.endFixity, spacingM: st.spacingM, items, governingIndex: best >= 0 ? best : null, maxUtilisation: bestU };
+}
+
+const CIRCLE_AS_POLYGON_SIDES = 512;
+
+/**
+ * Shore loads. Rule: each shore carries the net pressure on the part of the plate nearer to it than
+ * to any other shore (nearest-shore, i.e. Voronoi, tributary areas, cut exactly with half-planes),
+ * and the plate's edges are assumed to carry nothing, which errs on the safe side for the shores.
+ * Circles are taken as inscribed 512-gons for this partition only (area error < 2.6e-5).
+ */
+function shoreLoads(b: Boundary, plate: FlatPlate, net: PressureProfile, cuts: readonly number[], warn: Warn): ShoreResult[] {
+  const shores = b.shores!;
+  const fr = plate.frame;
+  const polys: { pts: number[]; sign: 1 | -1 }[] = plate.region.map(({ shape, sign }) => {
+    if (shape.kind === 'polygon') return { pts: shape.pts, sign };
+    const pts: number[] = [];
+    for (let i = 0; i < CIRCLE_AS_POLYGON_SIDES; i++) {
+      const a = (2 * Math.PI * i) / CIRCLE_AS_POLYGON_SIDES;
+      pts.push(shape.uc + shape.r * Math.cos(a), shape.vc + shape.r * Math.sin(a));
+    }
+    return { pts, sign };
+  });
+  const pos = shores.map((s) => {
+    const d = sub(fromPoint(s.position), fr.origin);
+    return [dot(d, fr.u), dot(d, fr.v)] as [number, number];
+  });
+  const allCuts = [plate.vMin, ...cuts.slice(1, -1), plate.vMax];
+  return shores.map((s, i) => {
+    const cell: SignedShape[] = [];
+    for (const poly of polys) {
+      let pts = poly.pts;
+      for (let j = 0; j < shores.length && pts.length > 0; j++) {
+        if (j === i) continue;
+        const ax = pos[j][0] - pos[i][0], ay = pos[j][1] - pos[i][1];
+        if (ax === 0 && ay === 0) continue;
+        const c = (ax * (pos[i][0] + pos[j][0])) / 2 + (ay * (pos[i][1] + pos[j][1])) / 2;
+        pts = clipHalfPlane(pts, ax, ay, c);
+      }
+      if (pts.length > 0) cell.push({ shape: { kind: 'polygon', pts }, sign: poly.sign });
+    }
+    const strips = stripMoments(cell, allCuts);
+    let force = 0, area = 0;
+    for (let k = 0; k < strips.length; k++) {
+      const m = strips[k];
+      if (m.a === 0) continue;
+      area += m.a;
+      const e = fr.e0 + fr.k * 0.5 * (allCuts[k] + allCuts[k + 1]);
+      let jn = 0;
+      while (jn < net.breaks.length && e >= net.breaks[jn]) jn++;
+      force += (net.a[jn] + net.b[jn] * fr.e0) * m.a + net.b[jn] * fr.k * m.sv;
+    }
+    const towards = s.side === 'B' ? force : -force;
+    const cosA = Math.cos(((s.angleFromNormalDeg ?? 0) * Math.PI) / 180);
+    const axial = Math.max(0, towards) / cosA;
+    const sec = sectionProperties(s.section);
+    const K = EFFECTIVE_LENGTH_FACTOR[s.endCondition];
+    const pcr = eulerLoad(s.elasticModulusPa, sec.iMinM4, K, s.lengthM);
+    const stress = axial / sec.areaM2;
+    const bu = axial / pcr, su = stress / s.allowableStressPa;
+    const ratio = s.lengthM / sec.leastDimensionM;
+    if (towards <= 0) warn('shore-unloaded', 'warning', s.id, `${b.name}: a shore carries nothing, the net pressure pushes the plate away from it`);
+    if (ratio > SHORE_SLENDERNESS_LIMIT) warn('shore-slender', 'warning', s.id, `${b.name}: a shore is ${ratio.toFixed(0)} times its least thickness (over ${SHORE_SLENDERNESS_LIMIT})`);
+    if (Math.max(bu, su) > 1) warn('shore-overloaded', 'danger', s.id, `${b.name}: a shore is loaded to ${(100 * Math.max(bu, su)).toFixed(0)} % of its capacity`);
+    return {
+      id: s.id,
+      tributaryAreaM2: area,
+      tributaryForceN: towards,
+      axialLoadN: axial,
+      loaded: towards > 0,
+      effectiveLengthFactor: K,
+      eulerLoadN: pcr,
+      stressPa: stress,
+      bucklingUtilisation: bu,
+      stressUtilisation: su,
+      utilisation: Math.max(bu, su),
+      lengthToLeastDimension: ratio,
+      slender: ratio > SHORE_SLENDERNESS_LIMIT,
+    };
+  });
+}
+
+/**
+ * A faceted curved surface: facet forces and their moments about the surface centroid O are summed;
+ * the resultant acts along the central axis r = O + (F × M_O) / |F|², the point of that line
+ * closest to O. If M_O is not perpendicular to F the remainder is a couple about the axis,
+ * reported as residualMomentNm.
+ */
+function facetedBoundary(
+  b: Boundary,
+  facets: V3[][],
+  pa: PressureProfile,
+  pb: PressureProfile,
+  net: PressureProfile,
+  frame: EarthFrame,
+  warn: Warn,
+): BoundaryResult | null {
+  const up = frame.up;
+  if (b.stiffening || (b.shores && b.shores.length > 0)) {
+    warn('curved-structure', 'info', b.id, `${b.name}: stiffeners and shores are assessed on flat plates only; model the shored part as a flat boundary`);
+  }
+  const parts = facets.map((pts) => {
+    const plate = polygonPlate(pts, up);
+    return { plate, it: integratePlate(plate, pa, pb, net) };
+  });
+  let area = 0;
+  let O: V3 = [0, 0, 0];
+  for (const { plate, it } of parts) {
+    area += it.areaM2;
+    O = add(O, scale(plateToShip(plate.frame, it.centroidU, it.centroidV), it.areaM2));
+  }
+  if (area <= 0) {
+    warn('degenerate', 'warning', b.id, `${b.name}: the surface has no area; not computed`);
+    return null;
+  }
+  O = scale(O, 1 / area);
+  let F: V3 = [0, 0, 0], M: V3 = [0, 0, 0];
+  let Fp: V3 = [0, 0, 0], Fn: V3 = [0, 0, 0];
+  let Ap = 0, An = 0;
+  let peakMax = -Infinity, peakMin = Infinity, peakPt: V3 = O, peakVal = 0;
+  const side = { fa: 0, fb: 0, wa: 0, wb: 0, pa: -Infinity, pb: -Infinity };
+  const facetResults: FacetResult[] = [];
+  for (const { plate, it } of parts) {
+    const fr = plate.frame;
+    const f = scale(fr.n, it.netForceN);
+    F = add(F, f);
+    let cop: V3 | null = null;
+    if (it.netForceN !== 0) {
+      cop = plateToShip(fr, it.netMomentU / it.netForceN, it.netMomentV / it.netForceN);
+      M = add(M, cross(sub(cop, O), f));
+    }
+    Fp = add(Fp, scale(fr.n, it.positive.forceN));
+    Fn = add(Fn, scale(fr.n, it.negative.forceN));
+    Ap += it.positive.areaM2;
+    An += it.negative.areaM2;
+    for (const pk of [it.peakMax, it.peakMin]) {
+      if (Math.abs(pk.pressurePa) > Math.abs(peakVal)) {
+        peakVal = pk.pressurePa;
+        peakPt = plateToShip(fr, pk.u, pk.v);
+      }
+    }
+    peakMax = Math.max(peakMax, it.peakMax.pressurePa);
+    peakMin = Math.min(peakMin, it.peakMin.pressurePa);
+    side.fa += it.sideForceN[0];
+    side.fb += it.sideForceN[1];
+    side.wa += it.sideWettedM2[0];
+    side.wb += it.sideWettedM2[1];
+    side.pa = Math.max(side.pa, it.sidePeakPa[0]);
+    side.pb = Math.max(side.pb, it.sidePeakPa[1]);
+    facetResults.push({ areaM2: it.areaM2, forceN: it.netForceN, centreOfPressure: cop ? toPoint(cop) : null });
+  }
+  const Fm = norm(F);
+  let point: V3 | null = null;
+  let residual = 0;
+  if (Fm > 0) {
+    point = add(O, scale(cross(F, M), 1 / (Fm * Fm)));
+    residual = dot(M, F) / Fm;
+  }
+  const netRes: NetResult = {
+    forceN: Fm,
+    resultantN: Fm,
+    forceVector: toPoint(F),
+    ...earthSplit(F, up),
+    centreOfPressure: point ? toPoint(point) : null,
+    centreOfPressurePlate: null,
+    lineOfAction: point ? { point: toPoint(point), direction: toPoint(unit(F)) } : null,
+    residualMomentNm: residual,
+    positive: { forceN: norm(Fp), areaM2: Ap, centreOfPressure: null },
+    negative: { forceN: An > 0 ? -norm(Fn) : 0, areaM2: An, centreOfPressure: null },
+    signChange: Ap > 0 && An > 0,
+    peak: { pressurePa: peakVal, point: toPoint(peakPt) },
+    maxPressurePa: peakMax,
+    minPressurePa: peakMin,
+  };
+  const capacity = capacityOf(b, netRes);
+  return {
+    id: b.id,
+    name: b.name,
+    kind: b.kind,
+    geometryKind: 'faceted',
+    parentBoundaryId: b.parentBoundaryId ?? null,
+    areaM2: area,
+    normal: null,
+    centroid: toPoint(O),
+    plateAxes: null,
+    openingsExcluded: [],
+    sideA: sideResult(b.sideA, pa, side.fa, side.pa, side.wa),
+    sideB: sideResult(b.sideB, pb, side.fb, side.pb, side.wb),
+    net: netRes,
+    loadDiagram: [],
+    facets: facetResults,
+    stiffeners: null,
+    shores: [],
+    capacity,
+    maxUtilisation: capacity ? capacity.utilisation : null,
+  };
+}
+

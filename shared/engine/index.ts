@@ -1,0 +1,4 @@
+/** Public surface of the load engine: what the app, the server and the CLI import. */
+export { computeSurvey, levelElevation, type ComputeOptions } from './compute-survey';
+export { ENGINE_VERSION } from './version';
+export type * from './results';

@@ -1,0 +1,125 @@
+/**
+ * Closed polyhedra (outward-oriented faces) and their volume and centroid below a level plane.
+ * The solid below the plane is bounded by the faces clipped to the plane plus a cap in the plane.
+ * Summing signed tetrahedra from a point O on the plane (divergence theorem), the cap's tetrahedra
+ * are flat and vanish, so the cap never needs building and non-convex solids come out exact.
+ */
+import type { CompartmentGeometry } from '../schemas/survey';
+import type { V3 } from './vec';
+
+export type Polyhedron = V3[][];
+
+/** Faces of a compartment solid, outward-oriented. */
+export function compartmentSolid(g: CompartmentGeometry): Polyhedron {
+  if (g.kind === 'box') {
+    const section = [
+      { y: g.min.y, z: g.min.z },
+      { y: g.max.y, z: g.min.z },
+      { y: g.max.y, z: g.max.z },
+      { y: g.min.y, z: g.max.z },
+    ];
+    return prismSolid(g.min.x, g.max.x, section);
+  }
+  return prismSolid(g.xAftM, g.xForeM, g.section);
+}
+
+function prismSolid(xa: number, xf: number, sectionIn: readonly { y: number; z: number }[]): Polyhedron {
+  let section = sectionIn;
+  let area2 = 0;
+  for (let i = 0; i < section.length; i++) {
+    const a = section[i], b = section[(i + 1) % section.length];
+    area2 += a.y * b.z - b.y * a.z;
+  }
+  if (area2 < 0) section = [...section].reverse();
+  if (xf < xa) [xa, xf] = [xf, xa];
+  const fore: V3[] = section.map((p) => [xf, p.y, p.z]);
+  const aft: V3[] = section.map((p) => [xa, p.y, p.z]).reverse() as V3[];
+  const faces: Polyhedron = [fore, aft];
+  for (let i = 0; i < section.length; i++) {
+    const a = section[i], b = section[(i + 1) % section.length];
+    faces.push([
+      [xa, a.y, a.z],
+      [xa, b.y, b.z],
+      [xf, b.y, b.z],
+      [xf, a.y, a.z],
+    ]);
+  }
+  return faces;
+}
+
+export interface VolumeMoments {
+  /** m³ */
+  volume: number;
+  /** First moments ∫x dV, ∫y dV, ∫z dV, m⁴. */
+  mx: number;
+  my: number;
+  mz: number;
+}
+
+/**
+ * Volume and first moments of the part of the solid whose elevation up·p ≤ eta
+ * (eta = +∞ for the whole solid). `up` must be a unit vector.
+ */
+export function volumeBelow(solid: Polyhedron, up: V3, eta: number): VolumeMoments {
+  const whole = !Number.isFinite(eta) || eta === Infinity;
+  const ox = whole ? 0 : up[0] * eta, oy = whole ? 0 : up[1] * eta, oz = whole ? 0 : up[2] * eta;
+  let vol = 0, mx = 0, my = 0, mz = 0;
+  const clipped: number[] = [];
+  for (const face of solid) {
+    clipped.length = 0;
+    const n = face.length;
+    for (let i = 0; i < n; i++) {
+      const a = face[i], b = face[(i + 1) % n];
+      const da = whole ? -1 : a[0] * up[0] + a[1] * up[1] + a[2] * up[2] - eta;
+      const db = whole ? -1 : b[0] * up[0] + b[1] * up[1] + b[2] * up[2] - eta;
+      if (da <= 0) clipped.push(a[0] - ox, a[1] - oy, a[2] - oz);
+      if ((da < 0 && db > 0) || (da > 0 && db < 0)) {
+        const t = da / (da - db);
+        clipped.push(a[0] + t * (b[0] - a[0]) - ox, a[1] + t * (b[1] - a[1]) - oy, a[2] + t * (b[2] - a[2]) - oz);
+      }
+    }
+    const m = clipped.length;
+    if (m < 9) continue;
+    const x0 = clipped[0], y0 = clipped[1], z0 = clipped[2];
+    for (let i = 3; i + 5 < m; i += 3) {
+      const x1 = clipped[i], y1 = clipped[i + 1], z1 = clipped[i + 2];
+      const x2 = clipped[i + 3], y2 = clipped[i + 4], z2 = clipped[i + 5];
+      const det = x0 * (y1 * z2 - z1 * y2) - y0 * (x1 * z2 - z1 * x2) + z0 * (x1 * y2 - y1 * x2);
+      const v = det / 6;
+      vol += v;
+      mx += (v * (x0 + x1 + x2)) / 4;
+      my += (v * (y0 + y1 + y2)) / 4;
+      mz += (v * (z0 + z1 + z2)) / 4;
+    }
+  }
+  // moments about O → about the ship origin
+  return { volume: vol, mx: mx + ox * vol, my: my + oy * vol, mz: mz + oz * vol };
+}
+
+/** Lowest and highest elevation of the solid's vertices. */
+export function elevationRange(solid: Polyhedron, up: V3): [number, number] {
+  let lo = Infinity, hi = -Infinity;
+  for (const f of solid) {
+    for (const p of f) {
+      const e = p[0] * up[0] + p[1] * up[1] + p[2] * up[2];
+      if (e < lo) lo = e;
+      if (e > hi) hi = e;
+    }
+  }
+  return [lo, hi];
+}
+
+/** Whether a ship point lies inside the solid (ray casting in x through the faces). */
+export function insideSolid(g: CompartmentGeometry, p: V3): boolean {
+  if (g.kind === 'box') {
+    return p[0] >= g.min.x && p[0] <= g.max.x && p[1] >= g.min.y && p[1] <= g.max.y && p[2] >= g.min.z && p[2] <= g.max.z;
+  }
+  const xa = Math.min(g.xAftM, g.xForeM), xf = Math.max(g.xAftM, g.xForeM);
+  if (p[0] < xa || p[0] > xf) return false;
+  let inside = false;
+  const s = g.section;
+  for (let i = 0, j = s.length - 1; i < s.length; j = i++) {
+    if (s[i].z > p[2] !== s[j].z > p[2] && p[1] < ((s[j].y - s[i].y) * (p[2] - s[i].z)) / (s[j].z - s[i].z) + s[i].y) inside = !inside;
+  }
+  return inside;
+}

@@ -1,0 +1,240 @@
+/**
+ * The shape of computeSurvey's output. Plain JSON (numbers, strings, arrays, null), SI throughout:
+ * m, m², m³, kg, N, N·m, Pa, s. Points are ship axes.
+ */
+import type { LoadDiagramPoint } from './plate';
+
+export interface Point {
+  x: number;
+  y: number;
+  z: number;
+}
+
+export type Severity = 'info' | 'warning' | 'danger';
+
+export interface EngineWarning {
+  code: string;
+  severity: Severity;
+  /** Id of the compartment, boundary, shore or layer concerned, if any. */
+  entityId: string | null;
+  message: string;
+}
+
+export interface FrameResult {
+  heelDeg: number;
+  trimDeg: number;
+  /** T_aft − T_fwd, m. */
+  trimM: number;
+  heelSource: 'inclinometer' | 'midship drafts' | 'none';
+  /** Earth-up unit vector in ship axes. */
+  up: Point;
+  waterlinePoint: Point;
+  /** Elevation (m along earth-up from the ship origin) of the outside waterline. */
+  waterlineElevationM: number;
+  seaDensityKgM3: number;
+  gravityMS2: number;
+}
+
+export interface Aggregate {
+  volumeM3: number;
+  massKg: number;
+  centroid: Point | null;
+}
+
+export interface LayerResult {
+  layerId: string;
+  fluidId: string;
+  fluidName: string;
+  category: 'water' | 'oil' | 'other';
+  densityKgM3: number;
+  /** Elevation of the layer's top surface, m along earth-up. */
+  levelElevationM: number;
+  /** Where the top surface cuts the vertical (ship z) line through the compartment's centroid. */
+  levelPoint: Point;
+  /** Liquid volume with permeability applied, m³. */
+  volumeM3: number;
+  massKg: number;
+  centroid: Point | null;
+}
+
+export interface InflowResult {
+  breaches: { id: string; headM: number; flowM3S: number }[];
+  /** Sum of orifice flows, m³/s (positive = into the compartment). */
+  orificeInflowM3S: number;
+  /** From the sounding log: least-squares slope of liquid volume against time. */
+  measured: { inflowM3S: number; r2: number; readings: { time: string; volumeM3: number }[] } | null;
+  pumpCapacityM3S: number;
+  /** Inflow used for the pumping estimate: the measured one if there is a log, else the orifice estimate. */
+  inflowUsedM3S: number;
+  /** pumps − inflow, m³/s. */
+  netRemovalM3S: number;
+  /** Seconds to pump the present liquid out, or null if the pumps cannot gain on the inflow. */
+  timeToPumpOutS: number | null;
+}
+
+export interface CompartmentResult {
+  id: string;
+  name: string;
+  spaceType: string;
+  permeability: number;
+  grossVolumeM3: number;
+  openToSea: boolean;
+  gasGaugePressurePa: number;
+  layers: LayerResult[];
+  liquid: Aggregate;
+  /** Fraction of the permeable volume filled with liquid. */
+  fillFraction: number;
+  inflow: InflowResult | null;
+}
+
+export interface SideResult {
+  kind: 'compartment' | 'sea' | 'air';
+  compartmentId: string | null;
+  /** Resultant of this side's pressure alone, N (pushes on the plate from this side). */
+  forceN: number;
+  peakPressurePa: number;
+  /** Plate area below this side's top liquid surface, m². */
+  wettedAreaM2: number;
+  liquidTopElevationM: number | null;
+}
+
+export interface PartResult {
+  forceN: number;
+  areaM2: number;
+  centreOfPressure: Point | null;
+}
+
+export interface NetResult {
+  /** Flat plates: ∫(p_A − p_B) dA along the normal (positive pushes towards side B), N. Faceted: |F|. */
+  forceN: number;
+  resultantN: number;
+  /** Resultant force vector, ship axes, N. */
+  forceVector: Point;
+  /** Earth components: vertical (positive up) and horizontal magnitude with its direction. */
+  verticalN: number;
+  horizontalN: number;
+  horizontalDirection: Point | null;
+  /** Point of action (for faceted surfaces: point of the line of action closest to the surface centroid). */
+  centreOfPressure: Point | null;
+  centreOfPressurePlate: { u: number; v: number } | null;
+  lineOfAction: { point: Point; direction: Point } | null;
+  /** Faceted surfaces only: couple left about the line of action (a wrench), N·m. */
+  residualMomentNm: number;
+  positive: PartResult;
+  negative: PartResult;
+  /** True when the net pressure reverses across the plate. */
+  signChange: boolean;
+  /** Net pressure of largest magnitude and where it acts. */
+  peak: { pressurePa: number; point: Point };
+  maxPressurePa: number;
+  minPressurePa: number;
+}
+
+export interface StiffenerItem {
+  /** Distance across the plate from its edge, m. */
+  offsetM: number;
+  spanM: number;
+  totalLoadN: number;
+  reactionStartN: number;
+  reactionEndN: number;
+  maxMomentNm: number;
+  maxMomentAtM: number;
+  endMomentStartNm: number;
+  endMomentEndNm: number;
+  requiredModulusM3: number;
+  utilisation: number;
+}
+
+export interface StiffenerResult {
+  endFixity: 'simply-supported' | 'fixed';
+  spacingM: number;
+  items: StiffenerItem[];
+  governingIndex: number | null;
+  maxUtilisation: number;
+}
+
+export interface ShoreResult {
+  id: string;
+  /** Plate area nearer this shore than any other, m². */
+  tributaryAreaM2: number;
+  /** Net force on that area towards the shore, N. */
+  tributaryForceN: number;
+  axialLoadN: number;
+  loaded: boolean;
+  effectiveLengthFactor: number;
+  eulerLoadN: number;
+  stressPa: number;
+  bucklingUtilisation: number;
+  stressUtilisation: number;
+  utilisation: number;
+  /** Length over least lateral dimension. */
+  lengthToLeastDimension: number;
+  slender: boolean;
+}
+
+export interface CapacityResult {
+  kind: 'pressure' | 'force';
+  rated: number;
+  actual: number;
+  utilisation: number;
+}
+
+export interface FacetResult {
+  areaM2: number;
+  forceN: number;
+  centreOfPressure: Point | null;
+}
+
+export interface BoundaryResult {
+  id: string;
+  name: string;
+  kind: string;
+  geometryKind: 'polygon' | 'rectangle' | 'circle' | 'faceted';
+  parentBoundaryId: string | null;
+  /** Loaded area (openings of child boundaries excluded), m². */
+  areaM2: number;
+  normal: Point | null;
+  centroid: Point;
+  plateAxes: { origin: Point; u: Point; v: Point } | null;
+  /** Ids of child boundaries cut out of this plate. */
+  openingsExcluded: string[];
+  sideA: SideResult;
+  sideB: SideResult;
+  net: NetResult;
+  loadDiagram: LoadDiagramPoint[];
+  facets: FacetResult[] | null;
+  stiffeners: StiffenerResult | null;
+  shores: ShoreResult[];
+  capacity: CapacityResult | null;
+  /** Largest of capacity, stiffener and shore utilisations, or null if nothing is rated. */
+  maxUtilisation: number | null;
+}
+
+export interface ShipTotals {
+  floodWater: Aggregate;
+  oil: Aggregate;
+  other: Aggregate;
+  allLiquids: Aggregate;
+}
+
+export interface SurveyResults {
+  engineVersion: string;
+  surveyId: string;
+  conditionId: string;
+  conditionTime: string;
+  frame: FrameResult;
+  compartments: CompartmentResult[];
+  boundaries: BoundaryResult[];
+  ship: ShipTotals;
+  summary: {
+    maxUtilisation: number | null;
+    maxUtilisationBoundaryId: string | null;
+    /** Boundaries with any utilisation above 1. */
+    overCapacityBoundaryIds: string[];
+    totalInflowM3S: number;
+    totalPumpCapacityM3S: number;
+  };
+  warnings: EngineWarning[];
+}
+
+export type { LoadDiagramPoint };
