@@ -17,6 +17,13 @@ const ConfigSchema = z.object({
   BCRYPT_COST: z.coerce.number().int().min(4).max(15).default(12),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
   DEV_MAIL_DIR: z.string().optional(),
+  /** Sign-in and password-reset requests allowed per e-mail address and IP address in one window. */
+  RATE_LIMIT_PER_EMAIL: z.coerce.number().int().min(1).default(10),
+  /** The same requests allowed per IP address in one window, whatever the e-mail. */
+  RATE_LIMIT_PER_IP: z.coerce.number().int().min(1).default(50),
+  RATE_LIMIT_WINDOW_MINUTES: z.coerce.number().int().min(1).default(15),
+  /** How long a device stays signed in without use (each refresh starts the period again). */
+  REFRESH_TTL_DAYS: z.coerce.number().int().min(1).max(365).default(30),
 });
 
 export type Config = z.infer<typeof ConfigSchema> & { publicUrl: string };

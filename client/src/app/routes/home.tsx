@@ -1,9 +1,12 @@
-import { Link } from 'react-router';
+import { Link, Navigate } from 'react-router';
 import { paths } from '@client/config/paths';
 import { useHealth } from '@client/features/status/api/get-health';
+import { useSession } from '@client/lib/session';
 
 export default function HomeRoute() {
   const health = useHealth();
+  const { user } = useSession();
+  if (user) return <Navigate to={paths.surveys} replace />;
   return (
     <main className="mx-auto max-w-3xl p-4 sm:p-6">
       <h1 className="text-3xl">Flooding loads, worked out on deck</h1>

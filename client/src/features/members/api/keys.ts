@@ -1,0 +1,4 @@
+export const memberKeys = {
+  all: ['members'] as const,
+  lists: () => [...memberKeys.all, 'list'] as const,
+};

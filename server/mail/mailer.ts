@@ -1,0 +1,27 @@
+/**
+ * Outgoing e-mail behind one small interface. In production it is nodemailer over SMTP_URL to the
+ * firm's provider; `npm start` and the tests point SMTP_URL at the local mail catcher
+ * (scripts/lib/mail-catcher.ts). Tests may inject their own Mailer through AppDeps.
+ */
+import nodemailer from 'nodemailer';
+import type { Config } from '../config';
+
+export interface MailMessage {
+  to: string;
+  subject: string;
+  text: string;
+  html: string;
+}
+
+export interface Mailer {
+  send(message: MailMessage): Promise<void>;
+}
+
+export function createMailer(config: Pick<Config, 'SMTP_URL' | 'MAIL_FROM'>): Mailer {
+  const transport = nodemailer.createTransport(config.SMTP_URL);
+  return {
+    async send(message) {
+      await transport.sendMail({ from: config.MAIL_FROM, ...message });
+    },
+  };
+}

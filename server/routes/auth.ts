@@ -1,0 +1,154 @@
+/**
+ * Sign-in, token refresh, sign-out, password resets, the caller's own profile and the public side
+ * of invitations. The refresh token travels only in an httpOnly, SameSite=Strict cookie scoped to
+ * /api/auth; the access token only in the response body (the client keeps it in memory).
+ */
+import type { Request, Response } from 'express';
+import {
+  AcceptInvitationRequestSchema,
+  EmailTokenSchema,
+  ForgotPasswordRequestSchema,
+  ResetPasswordRequestSchema,
+  SignInRequestSchema,
+  UpdateMeRequestSchema,
+  type MessageResponse,
+} from '@shared/api/auth';
+import type { AppContext } from '../app';
+import { ANY_MEMBER, PUBLIC, authOf, type RouteSpec } from '../http/route';
+import { sameOrigin } from '../http/same-origin';
+import { authRateLimits } from '../http/rate-limit';
+import { notFound } from '../http/errors';
+import { createAuthService, type IssuedSession } from '../services/auth';
+import { createInvitationService } from '../services/invitations';
+import { createMemberService } from '../services/members';
+import { requestMeta } from '../services/audit';
+
+export const REFRESH_COOKIE = 'brineline_refresh';
+export const REFRESH_COOKIE_PATH = '/api/auth';
+
+export function authRoutes(deps: AppContext): RouteSpec[] {
+  const auth = createAuthService(deps);
+  const invitations = createInvitationService({ ...deps, auth });
+  const members = createMemberService(deps);
+  const secure = deps.config.publicUrl.startsWith('https:');
+  const origin = sameOrigin(deps.config);
+  const signInLimits = authRateLimits(deps.config, { onlyFailures: true });
+  const resetLimits = authRateLimits(deps.config, { onlyFailures: false });
+
+  const cookieOptions = { httpOnly: true, secure, sameSite: 'strict' as const, path: REFRESH_COOKIE_PATH };
+  const sendSession = (res: Response, session: IssuedSession) => {
+    res.cookie(REFRESH_COOKIE, session.refreshToken, { ...cookieOptions, expires: session.refreshExpiresAt });
+    res.setHeader('Cache-Control', 'no-store');
+    res.json(session.body);
+  };
+  const refreshCookie = (req: Request): string | undefined => {
+    const v = (req.cookies as Record<string, unknown> | undefined)?.[REFRESH_COOKIE];
+    return typeof v === 'string' && v.length > 0 ? v : undefined;
+  };
+  const tokenParam = (req: Request): string => {
+    const parsed = EmailTokenSchema.safeParse(req.params.token);
+    if (!parsed.success) throw notFound('This invitation link is not valid.');
+    return parsed.data;
+  };
+
+  return [
+    {
+      method: 'post',
+      path: '/auth/sign-in',
+      policy: PUBLIC,
+      before: [origin, ...signInLimits],
+      handler: async (req, res) => {
+        const body = SignInRequestSchema.parse(req.body);
+        sendSession(res, await auth.signIn(body.email, body.password, requestMeta(req)));
+      },
+    },
+    {
+      method: 'post',
+      path: '/auth/refresh',
+      policy: PUBLIC,
+      before: [origin],
+      handler: async (req, res) => {
+        try {
+          sendSession(res, await auth.refresh(refreshCookie(req), requestMeta(req)));
+        } catch (err) {
+          res.clearCookie(REFRESH_COOKIE, cookieOptions);
+          throw err;
+        }
+      },
+    },
+    {
+      method: 'post',
+      path: '/auth/sign-out',
+      policy: PUBLIC,
+      before: [origin],
+      handler: async (req, res) => {
+        await auth.signOut(refreshCookie(req), requestMeta(req));
+        res.clearCookie(REFRESH_COOKIE, cookieOptions);
+        res.status(204).end();
+      },
+    },
+    {
+      method: 'post',
+      path: '/auth/forgot-password',
+      policy: PUBLIC,
+      before: [origin, ...resetLimits],
+      handler: async (req, res) => {
+        const { email } = ForgotPasswordRequestSchema.parse(req.body);
+        const body: MessageResponse = {
+          message: 'If this address belongs to a Brineline account, a link to choose a new password is on its way. It works for one hour.',
+        };
+        // Answer first and the same way for every address; the lookup and the e-mail follow.
+        res.status(202).json(body);
+        auth.requestPasswordReset(email, requestMeta(req)).catch((err) => req.log.error({ err }, 'password reset e-mail failed'));
+      },
+    },
+    {
+      method: 'post',
+      path: '/auth/reset-password',
+      policy: PUBLIC,
+      before: [origin],
+      handler: async (req, res) => {
+        const body = ResetPasswordRequestSchema.parse(req.body);
+        await auth.resetPassword(body.token, body.password, requestMeta(req));
+        res.status(204).end();
+      },
+    },
+    {
+      method: 'get',
+      path: '/me',
+      policy: ANY_MEMBER,
+      handler: async (req, res) => {
+        res.json(await members.me(authOf(req)));
+      },
+    },
+    {
+      method: 'patch',
+      path: '/me',
+      policy: ANY_MEMBER,
+      handler: async (req, res) => {
+        const patch = UpdateMeRequestSchema.parse(req.body);
+        res.json(await members.updateMe(authOf(req), patch));
+      },
+    },
+    {
+      method: 'get',
+      path: '/invitations/:token',
+      policy: PUBLIC,
+      handler: async (req, res) => {
+        res.setHeader('Cache-Control', 'no-store');
+        res.json(await invitations.describe(tokenParam(req)));
+      },
+    },
+    {
+      method: 'post',
+      path: '/invitations/:token/accept',
+      policy: PUBLIC,
+      before: [origin],
+      handler: async (req, res) => {
+        const token = tokenParam(req);
+        const body = AcceptInvitationRequestSchema.parse(req.body);
+        sendSession(res, await invitations.accept(token, body.name, body.password, requestMeta(req)));
+      },
+    },
+  ];
+}

@@ -1,0 +1,171 @@
+/**
+ * Sign-in, refresh-token rotation, sign-out and password resets.
+ *
+ * A session is a family of refresh tokens: each refresh spends the presented token and issues the
+ * next one in the same family. Presenting a spent token again means it was copied, so the whole
+ * family is revoked and the event is audited. Only SHA-256 hashes of tokens are stored.
+ */
+import { randomUUID } from 'node:crypto';
+import bcrypt from 'bcryptjs';
+import type { Logger } from 'pino';
+import type { Me, SessionResponse } from '@shared/api/auth';
+import type { Config } from '../config';
+import type { Db } from '../db/knex';
+import type { Mailer } from '../mail/mailer';
+import { passwordResetMail } from '../mail/templates';
+import { HttpError, badRequest, unauthorized } from '../http/errors';
+import * as accounts from '../db/repositories/accounts';
+import * as secrets from '../db/repositories/auth-tokens';
+import { createAudit, type RequestMeta } from './audit';
+import { hashSecret, newSecret } from './secrets';
+import { ACCESS_TTL_SECONDS, signAccessToken } from './tokens';
+
+export const RESET_TTL_MS = 60 * 60 * 1000;
+export const WRONG_CREDENTIALS = 'The e-mail address or the password is not right.';
+
+export interface AuthDeps {
+  db: Db;
+  config: Config;
+  logger: Logger;
+  mailer: Mailer;
+}
+
+/** A signed-in session: the API body plus the refresh token that goes into the cookie. */
+export interface IssuedSession {
+  body: SessionResponse;
+  refreshToken: string;
+  refreshExpiresAt: Date;
+}
+
+export function hashPassword(config: Pick<Config, 'BCRYPT_COST'>, password: string): Promise<string> {
+  return bcrypt.hash(password, config.BCRYPT_COST);
+}
+
+export function createAuthService(deps: AuthDeps) {
+  const { db, config, logger, mailer } = deps;
+  const audit = createAudit(db, logger);
+  // Compared against when the e-mail is unknown, so both answers take the same bcrypt time.
+  let dummyHash: Promise<string> | undefined;
+  const getDummyHash = () => (dummyHash ??= bcrypt.hash('brineline-no-such-person', config.BCRYPT_COST));
+
+  /** Issues an access token and a new refresh token (in `familyId`, or a new family). */
+  async function issueSession(me: Me, familyId: string = randomUUID()): Promise<IssuedSession> {
+    const refreshToken = newSecret();
+    const refreshExpiresAt = new Date(Date.now() + config.REFRESH_TTL_DAYS * 86_400_000);
+    await secrets.insertRefreshToken(db, {
+      userId: me.id,
+      orgId: me.organisation.id,
+      familyId,
+      tokenHash: hashSecret(refreshToken),
+      expiresAt: refreshExpiresAt,
+    });
+    const accessToken = await signAccessToken(config.JWT_SECRET, {
+      userId: me.id,
+      orgId: me.organisation.id,
+      role: me.role,
+      email: me.email,
+    });
+    return { body: { accessToken, expiresIn: ACCESS_TTL_SECONDS, user: me }, refreshToken, refreshExpiresAt };
+  }
+
+  async function signIn(email: string, password: string, meta: RequestMeta): Promise<IssuedSession> {
+    const row = await accounts.findSignInRow(db, email);
+    const hash = row?.passwordHash ?? (await getDummyHash());
+    const matches = await bcrypt.compare(password, hash);
+    const me = row && row.passwordHash && matches && row.status === 'active' ? await accounts.findActiveMe(db, row.userId, row.orgId) : undefined;
+    if (!row || !me) {
+      await audit('sign_in_failed', meta, {
+        email,
+        orgId: row?.orgId,
+        subjectId: row?.userId,
+        details: { reason: !row ? 'unknown_email' : !matches ? 'wrong_password' : `membership_${row.status}` },
+      });
+      throw unauthorized(WRONG_CREDENTIALS);
+    }
+    // Hashes made with a lower cost (an older setting) are upgraded at the next sign-in.
+    if (bcrypt.getRounds(hash) < config.BCRYPT_COST) {
+      await accounts.updateUser(db, me.id, { passwordHash: await hashPassword(config, password) });
+    }
+    await accounts.touchLastSignIn(db, me.id);
+    await audit('sign_in', meta, { orgId: me.organisation.id, actorId: me.id, subjectId: me.id, email: me.email });
+    return issueSession(me);
+  }
+
+  async function refresh(token: string | undefined, meta: RequestMeta): Promise<IssuedSession> {
+    const expired = () => unauthorized('Your sign-in has expired. Sign in again.');
+    if (!token) throw expired();
+    const row = await secrets.findRefreshToken(db, hashSecret(token));
+    if (!row || row.revokedAt) throw expired();
+    const spent = row.rotatedAt !== null || !(await secrets.markRotated(db, row.id));
+    if (spent) {
+      const revoked = await secrets.revokeFamily(db, row.familyId);
+      await audit('refresh_token_reused', meta, {
+        orgId: row.orgId,
+        subjectId: row.userId,
+        details: { familyId: row.familyId, tokensRevoked: revoked },
+      });
+      throw expired();
+    }
+    if (row.expiresAt.getTime() <= Date.now()) throw expired();
+    const me = await accounts.findActiveMe(db, row.userId, row.orgId);
+    if (!me) {
+      await secrets.revokeFamily(db, row.familyId);
+      throw expired();
+    }
+    return issueSession(me, row.familyId);
+  }
+
+  async function signOut(token: string | undefined, meta: RequestMeta): Promise<void> {
+    if (!token) return;
+    const row = await secrets.findRefreshToken(db, hashSecret(token));
+    if (!row) return;
+    await secrets.revokeFamily(db, row.familyId);
+    await audit('sign_out', meta, { orgId: row.orgId, actorId: row.userId, subjectId: row.userId });
+  }
+
+  /**
+   * Sends a reset link when the address belongs to an active member with a password. The caller
+   * answers the same way whatever happens here, so it runs after the response has gone.
+   */
+  async function requestPasswordReset(email: string, meta: RequestMeta): Promise<void> {
+    const row = await accounts.findSignInRow(db, email);
+    if (!row || row.status !== 'active' || !row.passwordHash) {
+      await audit('password_reset_requested', meta, { email, details: { sent: false } });
+      return;
+    }
+    const me = await accounts.findActiveMe(db, row.userId, row.orgId);
+    if (!me) return;
+    const token = newSecret();
+    const expiresAt = new Date(Date.now() + RESET_TTL_MS);
+    await db.transaction(async (trx) => {
+      await secrets.spendResetsForUser(trx, me.id);
+      await secrets.insertPasswordReset(trx, { userId: me.id, tokenHash: hashSecret(token), expiresAt });
+    });
+    const link = `${config.publicUrl.replace(/\/$/, '')}/reset-password#${token}`;
+    await mailer.send(passwordResetMail({ to: me.email, name: me.name, link, expiresAt }));
+    await audit('password_reset_requested', meta, { orgId: me.organisation.id, subjectId: me.id, email, details: { sent: true } });
+  }
+
+  async function resetPassword(token: string, password: string, meta: RequestMeta): Promise<void> {
+    const passwordHash = await hashPassword(config, password);
+    const userId = await db.transaction(async (trx) => {
+      const reset = await secrets.findUsableReset(trx, hashSecret(token));
+      if (!reset) return undefined;
+      await accounts.updateUser(trx, reset.userId, { passwordHash });
+      await secrets.spendResetsForUser(trx, reset.userId);
+      // Every device signed in with the old password has to sign in again.
+      await secrets.revokeAllForUser(trx, reset.userId);
+      return reset.userId;
+    });
+    if (!userId) throw badRequest('This link has expired or has already been used. Ask for a new one.');
+    await audit('password_reset', meta, { actorId: userId, subjectId: userId });
+  }
+
+  return { issueSession, signIn, refresh, signOut, requestPasswordReset, resetPassword };
+}
+
+export type AuthService = ReturnType<typeof createAuthService>;
+
+/** 503 for an e-mail that could not be handed to the mail server. */
+export const mailFailed = (what: string) =>
+  new HttpError(503, 'service_unavailable', `${what} The e-mail could not be sent just now; try again in a minute.`);

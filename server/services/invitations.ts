@@ -1,0 +1,116 @@
+/**
+ * Invitations: an admin invites an e-mail address with a role; the person opens a single-use link
+ * (valid 7 days, only its hash stored), sets a name and password and is signed in. Until then the
+ * membership is `invited` and nobody can sign in with it.
+ */
+import type { Logger } from 'pino';
+import type { Role } from '@shared/api/roles';
+import type { InvitationInfo, Member } from '@shared/api/auth';
+import type { Config } from '../config';
+import type { Db } from '../db/knex';
+import type { AuthContext } from '../http/auth-context';
+import type { Mailer } from '../mail/mailer';
+import { invitationMail } from '../mail/templates';
+import { conflict, notFound } from '../http/errors';
+import * as accounts from '../db/repositories/accounts';
+import * as secrets from '../db/repositories/auth-tokens';
+import { createAudit, type RequestMeta } from './audit';
+import { hashSecret, newSecret } from './secrets';
+import { hashPassword, mailFailed, type AuthService, type IssuedSession } from './auth';
+
+export const INVITATION_TTL_MS = 7 * 86_400_000;
+const invalidLink = () =>
+  notFound('This invitation link is not valid any more: it has expired, was already used, or was withdrawn. Ask your admin to send a new one.');
+
+export function createInvitationService(deps: { db: Db; config: Config; logger: Logger; mailer: Mailer; auth: AuthService }) {
+  const { db, config, logger, mailer, auth } = deps;
+  const audit = createAudit(db, logger);
+
+  /** Creates a fresh invitation for a waiting membership (withdrawing older links) and e-mails it. */
+  async function sendInvitation(actor: AuthContext, userId: string, email: string, role: Role, meta: RequestMeta, resend: boolean) {
+    const token = newSecret();
+    const expiresAt = new Date(Date.now() + INVITATION_TTL_MS);
+    await db.transaction(async (trx) => {
+      await secrets.revokeOpenInvitations(trx, actor.orgId, userId);
+      await secrets.insertInvitation(trx, {
+        orgId: actor.orgId,
+        userId,
+        email,
+        role,
+        invitedBy: actor.userId,
+        tokenHash: hashSecret(token),
+        expiresAt,
+      });
+    });
+    const [org, inviterName] = await Promise.all([accounts.findOrganisation(db, actor.orgId), accounts.findUserName(db, actor.userId)]);
+    const link = `${config.publicUrl.replace(/\/$/, '')}/accept-invitation#${token}`;
+    try {
+      await mailer.send(invitationMail({ to: email, orgName: org?.name ?? 'your organisation', inviterName: inviterName ?? null, role, link, expiresAt }));
+    } catch (err) {
+      logger.error({ err }, 'invitation e-mail failed');
+      throw mailFailed('The invitation is saved, but not sent: use “Resend” on the members screen.');
+    }
+    await audit('invitation_sent', meta, { orgId: actor.orgId, actorId: actor.userId, subjectId: userId, email, details: { role, resend } });
+  }
+
+  async function invite(actor: AuthContext, email: string, role: Role, meta: RequestMeta): Promise<Member> {
+    const userId = await db.transaction(async (trx) => {
+      const existing = await accounts.findUserIdByEmail(trx, email);
+      if (existing) {
+        const member = await accounts.findMember(trx, actor.orgId, existing);
+        if (member?.status === 'invited') throw conflict('This address has already been invited. Use “Resend” to send the link again.');
+        if (member) throw conflict('This address already belongs to a member of your organisation.');
+        if (await accounts.hasAnyMembership(trx, existing)) {
+          throw conflict('This address already has a Brineline account with another organisation.');
+        }
+        await accounts.insertMembership(trx, { orgId: actor.orgId, userId: existing, role, status: 'invited' });
+        return existing;
+      }
+      const id = await accounts.insertUser(trx, { email, name: '' });
+      await accounts.insertMembership(trx, { orgId: actor.orgId, userId: id, role, status: 'invited' });
+      return id;
+    });
+    await sendInvitation(actor, userId, email, role, meta, false);
+    return (await accounts.findMember(db, actor.orgId, userId))!;
+  }
+
+  async function resend(actor: AuthContext, userId: string, meta: RequestMeta): Promise<Member> {
+    const member = await accounts.findMember(db, actor.orgId, userId);
+    if (!member) throw notFound('No such member in your organisation.');
+    if (member.status !== 'invited') throw conflict('This person has already accepted; there is no invitation to resend.');
+    await sendInvitation(actor, userId, member.email, member.role, meta, true);
+    return (await accounts.findMember(db, actor.orgId, userId))!;
+  }
+
+  async function describe(token: string): Promise<InvitationInfo> {
+    const inv = await secrets.findOpenInvitation(db, hashSecret(token));
+    if (!inv) throw invalidLink();
+    return {
+      email: inv.email,
+      role: inv.role,
+      organisation: { name: inv.orgName },
+      invitedBy: inv.invitedByName ? { name: inv.invitedByName } : null,
+      expiresAt: inv.expiresAt.toISOString(),
+    };
+  }
+
+  async function accept(token: string, name: string, password: string, meta: RequestMeta): Promise<IssuedSession> {
+    const passwordHash = await hashPassword(config, password);
+    const accepted = await db.transaction(async (trx) => {
+      const inv = await secrets.findOpenInvitation(trx, hashSecret(token), { forUpdate: true });
+      if (!inv) return undefined;
+      await accounts.updateUser(trx, inv.userId, { name, passwordHash });
+      await accounts.updateMembership(trx, inv.orgId, inv.userId, { status: 'active' });
+      await secrets.markInvitationAccepted(trx, inv.id);
+      await secrets.revokeOpenInvitations(trx, inv.orgId, inv.userId);
+      await accounts.touchLastSignIn(trx, inv.userId);
+      return inv;
+    });
+    if (!accepted) throw invalidLink();
+    await audit('invitation_accepted', meta, { orgId: accepted.orgId, actorId: accepted.userId, subjectId: accepted.userId, email: accepted.email });
+    const me = await accounts.findActiveMe(db, accepted.userId, accepted.orgId);
+    return auth.issueSession(me!);
+  }
+
+  return { invite, resend, describe, accept };
+}

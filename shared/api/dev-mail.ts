@@ -1,0 +1,17 @@
+/** Messages caught by the local mail catcher, as the development-only /api/dev/mail route serves them. */
+import { z } from 'zod';
+
+export const DevMailSchema = z.object({
+  id: z.uuid(),
+  receivedAt: z.string(),
+  from: z.string(),
+  to: z.array(z.string()),
+  subject: z.string(),
+  text: z.string(),
+  html: z.string(),
+});
+export type DevMail = z.infer<typeof DevMailSchema>;
+
+export const DevMailSummarySchema = DevMailSchema.pick({ id: true, receivedAt: true, to: true, subject: true });
+export const DevMailListSchema = z.object({ messages: z.array(DevMailSummarySchema) });
+export type DevMailList = z.infer<typeof DevMailListSchema>;
