@@ -1,0 +1,5 @@
+import { ReviewQueue } from '@client/features/review/components/review-queue';
+
+export default function ReviewQueueRoute() {
+  return <ReviewQueue />;
+}

@@ -1,0 +1,142 @@
+/**
+ * The engineer's notes on a survey as the surveyor's device holds them after a sync: the last
+ * status move and its note, the verdicts, the operating limits and the comment threads. Works
+ * offline. The workspace drops it in whole, or with `target` to show only one item's comments.
+ */
+import type { CommentTarget, ReviewComment } from '@shared/api/review';
+import type { Survey } from '@shared/schemas/survey';
+import { STATUS_LABELS } from '@shared/review/status';
+import { boundaryVerdictLabel, describeLimit, namesFromSurvey, surveyVerdictLabel, verdictSeverity } from '@shared/review/words';
+import { useUnitSystem } from '@client/lib/unit-system';
+import { useReviewNotes } from '@client/offline/review-notes';
+
+const when = (iso: string) => new Date(iso).toLocaleString('en-GB', { dateStyle: 'medium', timeStyle: 'short', timeZone: 'UTC' }) + ' UTC';
+const SEVERITY = ['border-ok bg-ok-soft', 'border-caution bg-caution-soft', 'border-danger bg-danger-soft', 'border-danger bg-danger-soft'];
+
+function itemName(survey: Survey | undefined, t: CommentTarget): string {
+  if (!survey) return t.kind;
+  switch (t.kind) {
+    case 'survey':
+      return 'The whole survey';
+    case 'vessel':
+      return `Vessel ${survey.vessel.name}`;
+    case 'condition': {
+      const c = survey.conditions.find((x) => x.id === t.id);
+      return `Condition ${c?.name ?? c?.time ?? ''}`.trim();
+    }
+    case 'compartment':
+      return survey.compartments.find((x) => x.id === t.id)?.name ?? 'A compartment no longer in the survey';
+    case 'boundary':
+      return survey.boundaries.find((x) => x.id === t.id)?.name ?? 'A boundary no longer in the survey';
+    case 'photo':
+      return `Photo ${survey.photos?.find((x) => x.id === t.id)?.caption ?? ''}`.trim();
+  }
+}
+
+function Thread({ root, replies, survey, showTarget }: { root: ReviewComment; replies: ReviewComment[]; survey?: Survey; showTarget: boolean }) {
+  return (
+    <li className="rounded border border-line bg-card p-2" data-testid="review-note-comment">
+      {showTarget && <p className="text-xs font-bold uppercase tracking-wide text-ink-soft">{itemName(survey, root.target)}</p>}
+      <p className="whitespace-pre-wrap">{root.body}</p>
+      <p className="text-xs text-ink-soft">
+        {root.authorName} · {when(root.createdAt)}
+      </p>
+      {replies.map((r) => (
+        <div key={r.id} className="ml-3 mt-1 border-l-4 border-sea-soft pl-2">
+          <p className="whitespace-pre-wrap">{r.body}</p>
+          <p className="text-xs text-ink-soft">
+            {r.authorName} · {when(r.createdAt)}
+          </p>
+        </div>
+      ))}
+    </li>
+  );
+}
+
+export function ReviewNotes({ surveyId, survey, target }: { surveyId: string; survey?: Survey; target?: CommentTarget }) {
+  const notes = useReviewNotes(surveyId);
+  const system = useUnitSystem();
+  if (!notes) return null;
+  const comments = target ? notes.comments.filter((c) => c.target.kind === target.kind && c.target.id === target.id) : notes.comments;
+  const roots = comments.filter((c) => !c.parentId);
+  const repliesOf = (id: string) => comments.filter((c) => c.parentId === id);
+
+  if (target) {
+    if (roots.length === 0) return null;
+    return (
+      <section aria-label="Reviewer’s comments" className="space-y-2" data-testid="review-notes">
+        <h3 className="font-bold">Reviewer’s comments</h3>
+        <ul className="space-y-2">
+          {roots.map((c) => (
+            <Thread key={c.id} root={c} replies={repliesOf(c.id)} survey={survey} showTarget={false} />
+          ))}
+        </ul>
+      </section>
+    );
+  }
+
+  const surveyVerdict = notes.verdicts.find((v) => v.scope === 'survey');
+  const boundaryVerdicts = notes.verdicts.filter((v) => v.scope === 'boundary');
+  const names = survey ? namesFromSurvey(survey) : { compartment: () => 'a compartment', boundary: () => 'a boundary' };
+  const boundaryName = (id: string | null) => (id && survey?.boundaries.find((b) => b.id === id)?.name) || 'A boundary';
+
+  return (
+    <section aria-labelledby="review-notes-h" className="space-y-3 rounded-lg border-2 border-sea bg-sea-soft/40 p-3" data-testid="review-notes">
+      <h2 id="review-notes-h" className="text-xl">
+        From the review
+      </h2>
+      <p>
+        Status: <strong>{STATUS_LABELS[notes.status]}</strong>
+        {notes.lastEvent && (
+          <span className="text-ink-soft">
+            {' '}
+            ({notes.lastEvent.actorName}, {when(notes.lastEvent.at)})
+          </span>
+        )}
+      </p>
+      {notes.lastEvent?.note && (
+        <p className="rounded border-l-4 border-hull bg-card p-2 italic" data-testid="review-status-note">
+          “{notes.lastEvent.note}”
+        </p>
+      )}
+      {surveyVerdict && (
+        <p className={`rounded border-2 p-2 font-bold ${SEVERITY[verdictSeverity(surveyVerdict.verdict)]}`}>
+          {surveyVerdictLabel(surveyVerdict.verdict)}
+          {surveyVerdict.note && <span className="block font-normal">{surveyVerdict.note}</span>}
+        </p>
+      )}
+      {boundaryVerdicts.length > 0 && (
+        <ul className="space-y-1">
+          {boundaryVerdicts.map((v) => (
+            <li key={v.boundaryId} className={`rounded border-2 px-2 py-1 ${SEVERITY[verdictSeverity(v.verdict)]}`}>
+              <strong>{boundaryName(v.boundaryId)}</strong>: {boundaryVerdictLabel(v.verdict)}
+              {v.note ? ` — ${v.note}` : ''}
+            </li>
+          ))}
+        </ul>
+      )}
+      {notes.limits.length > 0 && (
+        <div>
+          <h3 className="font-bold">Operating limits</h3>
+          <ol className="list-decimal space-y-1 pl-5">
+            {notes.limits.map((l) => (
+              <li key={l.id} className="font-bold">
+                {describeLimit(l, names, system)}
+              </li>
+            ))}
+          </ol>
+        </div>
+      )}
+      {roots.length > 0 && (
+        <div>
+          <h3 className="font-bold">Comments</h3>
+          <ul className="mt-1 space-y-2">
+            {roots.map((c) => (
+              <Thread key={c.id} root={c} replies={repliesOf(c.id)} survey={survey} showTarget />
+            ))}
+          </ul>
+        </div>
+      )}
+    </section>
+  );
+}

@@ -1,0 +1,74 @@
+/**
+ * The review as the surveyor sees it in the workspace: the survey's status, "Send for review" when
+ * it is a draft or was returned, and the engineer's notes (folded away until opened). Sends only
+ * once this device's edits have reached the server, so the engineer reviews what the surveyor sees.
+ */
+import { useState } from 'react';
+import type { Survey } from '@shared/schemas/survey';
+import { STATUS_LABELS, transitionsFor } from '@shared/review/status';
+import { api, jsonBody } from '@client/lib/api-client';
+import { useSession } from '@client/lib/session';
+import { useLocalSurvey, usePendingCount } from '@client/offline/survey-store';
+import { syncNow } from '@client/offline/sync';
+import { useReviewNotes } from '@client/offline/review-notes';
+import { ReviewNotes } from './review-notes';
+
+export function SurveyReviewBar({ surveyId, survey }: { surveyId: string; survey?: Survey }) {
+  const local = useLocalSurvey(surveyId);
+  const pending = usePendingCount(surveyId) ?? 0;
+  const notes = useReviewNotes(surveyId);
+  const { user } = useSession();
+  const [busy, setBusy] = useState(false);
+  const [error, setError] = useState<string | null>(null);
+  if (!local) return null;
+  const submit = user ? transitionsFor(local.status, user.role).find((t) => t.action === 'submit') : undefined;
+  const count = notes ? notes.comments.length + notes.verdicts.length + notes.limits.length : 0;
+
+  const send = async () => {
+    setBusy(true);
+    setError(null);
+    try {
+      await syncNow();
+      await api(`/api/surveys/${encodeURIComponent(surveyId)}/status`, { method: 'POST', ...jsonBody({ to: 'submitted' }) });
+      await syncNow();
+    } catch (e) {
+      setError(e instanceof Error ? e.message : 'The survey could not be sent.');
+    } finally {
+      setBusy(false);
+    }
+  };
+
+  return (
+    <section aria-label="Review" className="rounded-lg border border-line bg-card p-2" data-testid="survey-review-bar">
+      <div className="flex flex-wrap items-center gap-2">
+        <span className="text-sm">
+          Review: <strong data-testid="survey-review-status">{STATUS_LABELS[local.status]}</strong>
+        </span>
+        {submit && (
+          <button
+            type="button"
+            className="ml-auto min-h-touch rounded-lg bg-hull px-4 font-bold text-paper disabled:opacity-50"
+            onClick={send}
+            disabled={busy}
+          >
+            {busy ? 'Sending…' : submit.label}
+          </button>
+        )}
+      </div>
+      {submit && pending > 0 && <p className="mt-1 text-sm text-ink-soft">{pending} edits will sync first.</p>}
+      {error && (
+        <p role="alert" className="mt-1 text-sm font-bold text-danger">
+          {error}
+        </p>
+      )}
+      {notes && (count > 0 || notes.lastEvent?.note) && (
+        <details className="mt-2" open={local.status === 'returned'}>
+          <summary className="min-h-touch cursor-pointer content-center font-bold text-sea">Reviewer’s notes ({count})</summary>
+          <div className="mt-2">
+            <ReviewNotes surveyId={surveyId} survey={survey} />
+          </div>
+        </details>
+      )}
+    </section>
+  );
+}

@@ -1,0 +1,15 @@
+import { useMutation, useQueryClient } from '@tanstack/react-query';
+import type { NewComment, ReviewComment } from '@shared/api/review';
+import { api, jsonBody } from '@client/lib/api-client';
+import { reviewKeys } from './keys';
+
+export const addComment = (surveyId: string, body: NewComment) =>
+  api<ReviewComment>(`/api/review/surveys/${encodeURIComponent(surveyId)}/comments`, { method: 'POST', ...jsonBody(body) });
+
+export function useAddComment(surveyId: string) {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: (body: NewComment) => addComment(surveyId, body),
+    onSuccess: () => qc.invalidateQueries({ queryKey: reviewKeys.detail(surveyId) }),
+  });
+}

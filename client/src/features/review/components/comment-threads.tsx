@@ -1,0 +1,119 @@
+/** Comments threaded on any item of the survey; replies attach to a thread's first comment. */
+import { useState, type FormEvent } from 'react';
+import type { ReviewComment } from '@shared/api/review';
+import type { Survey } from '@shared/schemas/survey';
+import { useAddComment } from '../api/add-comment';
+import { targetKey, targetLabel, targetOptions } from './review-targets';
+
+const when = (iso: string) => new Date(iso).toLocaleString('en-GB', { dateStyle: 'medium', timeStyle: 'short', timeZone: 'UTC' }) + ' UTC';
+
+function Reply({ surveyId, parent }: { surveyId: string; parent: ReviewComment }) {
+  const [body, setBody] = useState('');
+  const [open, setOpen] = useState(false);
+  const add = useAddComment(surveyId);
+  if (!open)
+    return (
+      <button type="button" className="mt-1 min-h-touch text-sm font-bold text-sea underline" onClick={() => setOpen(true)}>
+        Reply
+      </button>
+    );
+  const submit = (e: FormEvent) => {
+    e.preventDefault();
+    add.mutate({ target: parent.target, body, parentId: parent.id }, { onSuccess: () => (setBody(''), setOpen(false)) });
+  };
+  return (
+    <form onSubmit={submit} className="mt-2 flex flex-col gap-2">
+      <label className="text-sm font-bold" htmlFor={`reply-${parent.id}`}>
+        Reply
+      </label>
+      <textarea id={`reply-${parent.id}`} className="rounded border border-line p-2" rows={2} value={body} onChange={(e) => setBody(e.target.value)} required />
+      <div className="flex gap-2">
+        <button type="submit" className="min-h-touch rounded-lg bg-hull px-4 font-bold text-paper" disabled={add.isPending}>
+          Send reply
+        </button>
+        <button type="button" className="min-h-touch rounded-lg border border-line px-4" onClick={() => setOpen(false)}>
+          Cancel
+        </button>
+      </div>
+      {add.isError && <p role="alert" className="text-danger">{add.error.message}</p>}
+    </form>
+  );
+}
+
+export function CommentThreads({
+  surveyId,
+  doc,
+  comments,
+  initialTarget,
+}: {
+  surveyId: string;
+  doc: Survey;
+  comments: ReviewComment[];
+  initialTarget?: string;
+}) {
+  const options = targetOptions(doc);
+  const [target, setTarget] = useState(initialTarget ?? options[0]!.key);
+  const [body, setBody] = useState('');
+  const add = useAddComment(surveyId);
+  const roots = comments.filter((c) => !c.parentId);
+  const replies = (id: string) => comments.filter((c) => c.parentId === id);
+
+  const submit = (e: FormEvent) => {
+    e.preventDefault();
+    const chosen = options.find((o) => o.key === target);
+    if (!chosen) return;
+    add.mutate({ target: chosen.target, body }, { onSuccess: () => setBody('') });
+  };
+
+  return (
+    <section aria-labelledby="comments-h" className="rounded-lg border border-line bg-card p-3">
+      <h2 id="comments-h" className="text-lg">
+        Comments
+      </h2>
+      <form onSubmit={submit} className="mt-2 flex flex-col gap-2" data-testid="comment-form">
+        <label className="text-sm font-bold" htmlFor="comment-target">
+          On
+        </label>
+        <select id="comment-target" className="min-h-touch rounded border border-line bg-paper px-2" value={target} onChange={(e) => setTarget(e.target.value)}>
+          {options.map((o) => (
+            <option key={o.key} value={o.key}>
+              {o.label}
+            </option>
+          ))}
+        </select>
+        <label className="text-sm font-bold" htmlFor="comment-body">
+          Comment
+        </label>
+        <textarea id="comment-body" className="rounded border border-line p-2" rows={3} value={body} onChange={(e) => setBody(e.target.value)} required />
+        <button type="submit" className="min-h-touch self-start rounded-lg bg-hull px-4 font-bold text-paper" disabled={add.isPending}>
+          Add comment
+        </button>
+        {add.isError && <p role="alert" className="text-danger">{add.error.message}</p>}
+      </form>
+      {roots.length === 0 ? (
+        <p className="mt-3 text-sm text-ink-soft">No comments yet.</p>
+      ) : (
+        <ul className="mt-3 space-y-3" data-testid="comment-list">
+          {roots.map((c) => (
+            <li key={c.id} className="rounded border border-line p-2" data-target={targetKey(c.target)}>
+              <p className="text-xs font-bold uppercase tracking-wide text-ink-soft">{targetLabel(doc, c.target)}</p>
+              <p className="mt-1 whitespace-pre-wrap">{c.body}</p>
+              <p className="text-xs text-ink-soft">
+                {c.authorName} ({c.authorRole}) · {when(c.createdAt)} · revision {c.revision}
+              </p>
+              {replies(c.id).map((r) => (
+                <div key={r.id} className="ml-3 mt-2 border-l-4 border-sea-soft pl-2">
+                  <p className="whitespace-pre-wrap">{r.body}</p>
+                  <p className="text-xs text-ink-soft">
+                    {r.authorName} ({r.authorRole}) · {when(r.createdAt)}
+                  </p>
+                </div>
+              ))}
+              <Reply surveyId={surveyId} parent={c} />
+            </li>
+          ))}
+        </ul>
+      )}
+    </section>
+  );
+}

@@ -1,0 +1,147 @@
+/**
+ * The review view of one survey: its model and results (the shared result views, read-only), the
+ * server's numbers beside this device's, and the engineer's tools: status, verdicts, limits,
+ * comments, history and the master's brief.
+ */
+import { useMemo, useState } from 'react';
+import { Link } from 'react-router';
+import { computeSurvey } from '@shared/engine';
+import type { SurveyResults } from '@shared/engine/results';
+import { SurveySchema, type Survey } from '@shared/schemas/survey';
+import { compareResults } from '@shared/review/compare';
+import { REVIEWABLE_STATUSES } from '@shared/review/status';
+import { Cautions } from '@client/components/layout/cautions';
+import { BoundaryDetail } from '@client/components/results/boundary-detail';
+import { BoundaryResultsTable } from '@client/components/results/boundary-results-table';
+import { CompartmentTable } from '@client/components/results/compartment-table';
+import { ShipTotals } from '@client/components/results/ship-totals';
+import { paths } from '@client/config/paths';
+import { useUnitSystem } from '@client/lib/unit-system';
+import { useReview } from '../api/get-review';
+import { BriefPanel } from './brief-panel';
+import { CommentThreads } from './comment-threads';
+import { HistoryPanel } from './history-panel';
+import { LimitsPanel } from './limits-panel';
+import { NumbersCheck, type DeviceNumbers } from './numbers-check';
+import { StatusActions } from './status-actions';
+import { VerdictPanel } from './verdict-panel';
+import { ReviewModel3d } from './review-model3d';
+
+type Tab = 'results' | 'model' | 'history';
+
+function useDeviceNumbers(doc: Survey | null): DeviceNumbers {
+  return useMemo(() => {
+    if (!doc) return { results: null, error: null };
+    try {
+      return { results: computeSurvey(doc), error: null };
+    } catch (e) {
+      return { results: null, error: e instanceof Error ? e.message : String(e) };
+    }
+  }, [doc]);
+}
+
+export function ReviewDesk({ surveyId }: { surveyId: string }) {
+  const review = useReview(surveyId);
+  const system = useUnitSystem();
+  const [tab, setTab] = useState<Tab>('results');
+  const [selected, setSelected] = useState<string | null>(null);
+  const parsed = useMemo(() => (review.data ? SurveySchema.safeParse(review.data.doc) : null), [review.data]);
+  const doc = parsed?.success ? parsed.data : null;
+  const device = useDeviceNumbers(doc);
+  const server = (review.data?.serverResults ?? null) as SurveyResults | null;
+  const agreement = useMemo(() => (server && device.results ? compareResults(server, device.results) : null), [server, device.results]);
+
+  if (review.isPending) return <main className="p-4">Loading the survey…</main>;
+  if (review.isError)
+    return (
+      <main className="mx-auto max-w-3xl p-4">
+        <p role="alert" className="rounded-lg border-2 border-danger bg-danger-soft p-3">
+          {review.error.message}
+        </p>
+        <Link to={paths.review} className="mt-3 inline-block underline">
+          Back to the queue
+        </Link>
+      </main>
+    );
+  const r = review.data;
+  if (!doc)
+    return (
+      <main className="p-4" role="alert">
+        The stored survey does not match the survey format, so it cannot be shown.
+      </main>
+    );
+
+  const shown = server ?? device.results;
+  const editable = r.viewer.role === 'engineer' && REVIEWABLE_STATUSES.includes(r.status);
+  const isSubmitter = r.submittedById === r.viewer.userId;
+  const selectedBoundary = shown?.boundaries.find((b) => b.id === selected) ?? null;
+  const names = new Map<string, string>([...doc.compartments, ...doc.boundaries, ...doc.conditions.map((c) => ({ id: c.id, name: c.name ?? c.time }))].map((x) => [x.id, x.name]));
+  const condition = doc.conditions.find((c) => c.id === doc.activeConditionId);
+
+  const tabBtn = (t: Tab, label: string) => (
+    <button
+      type="button"
+      role="tab"
+      aria-selected={tab === t}
+      className={`min-h-touch rounded-t-lg px-4 font-bold ${tab === t ? 'bg-card text-ink shadow' : 'text-ink-soft underline'}`}
+      onClick={() => setTab(t)}
+    >
+      {label}
+    </button>
+  );
+
+  return (
+    <main className="mx-auto max-w-7xl p-3 sm:p-5" data-testid="review-desk">
+      <Link to={paths.review} className="text-sm underline">
+        ← Review queue
+      </Link>
+      <h1 className="mt-1 text-2xl">{doc.vessel.name}</h1>
+      <p className="text-ink-soft">
+        {doc.title} · soundings {condition ? new Date(condition.time).toISOString().slice(0, 16).replace('T', ' ') + ' UTC' : '—'} · revision {r.revision}
+      </p>
+      <div className="mt-3">
+        <StatusActions surveyId={surveyId} status={r.status} role={r.viewer.role} events={r.events} isSubmitter={isSubmitter} />
+      </div>
+      <nav aria-label="On this page" className="mt-2 flex flex-wrap gap-x-4 text-sm font-bold lg:hidden">
+        {[
+          ['#verdicts-h', 'Verdicts'],
+          ['#limits-h', 'Limits'],
+          ['#comments-h', 'Comments'],
+          ['#brief-h', 'Brief'],
+        ].map(([href, label]) => (
+          <a key={href} href={href} className="inline-flex min-h-touch items-center text-sea underline">
+            {label}
+          </a>
+        ))}
+      </nav>
+      <div className="mt-3 grid gap-4 lg:grid-cols-[minmax(0,3fr)_minmax(20rem,2fr)]">
+        <div className="min-w-0 space-y-3">
+          <NumbersCheck device={device} server={server} agreement={agreement} serverRevision={r.serverComputedRevision} revision={r.revision} system={system} />
+          <div role="tablist" aria-label="Survey views" className="flex gap-1 border-b border-line">
+            {tabBtn('results', 'Results')}
+            {tabBtn('model', '3D model')}
+            {tabBtn('history', 'History')}
+          </div>
+          {tab === 'results' && shown && (
+            <div className="space-y-4">
+              <ShipTotals results={shown} system={system} />
+              <BoundaryResultsTable results={shown} system={system} selectedId={selected} onSelect={setSelected} />
+              {selectedBoundary && <BoundaryDetail boundary={selectedBoundary} results={shown} system={system} />}
+              <CompartmentTable results={shown} system={system} />
+              <Cautions compact />
+            </div>
+          )}
+          {tab === 'results' && !shown && <p>No results to show.</p>}
+          {tab === 'model' && <ReviewModel3d survey={doc} results={shown} system={system} selectedId={selected} onSelect={setSelected} />}
+          {tab === 'history' && <HistoryPanel surveyId={surveyId} names={names} system={system} />}
+        </div>
+        <div className="min-w-0 space-y-3">
+          <VerdictPanel key={`v-${r.verdicts.length}`} surveyId={surveyId} doc={doc} verdicts={r.verdicts} editable={editable} />
+          <LimitsPanel surveyId={surveyId} doc={doc} limits={r.limits} editable={editable} system={system} />
+          <CommentThreads surveyId={surveyId} doc={doc} comments={r.comments} />
+          <BriefPanel surveyId={surveyId} status={r.status} briefs={r.briefs} canIssue={r.viewer.role === 'engineer'} canRevoke={r.viewer.role !== 'surveyor'} />
+        </div>
+      </div>
+    </main>
+  );
+}

@@ -1,0 +1,27 @@
+/** The items of a survey a comment can attach to, with plain names. */
+import type { CommentTarget } from '@shared/api/review';
+import type { Survey } from '@shared/schemas/survey';
+
+export interface TargetOption {
+  key: string;
+  target: CommentTarget;
+  label: string;
+}
+
+export const targetKey = (t: CommentTarget) => `${t.kind}:${t.id}`;
+
+export function targetOptions(doc: Survey): TargetOption[] {
+  const opt = (target: CommentTarget, label: string): TargetOption => ({ key: targetKey(target), target, label });
+  return [
+    opt({ kind: 'survey', id: doc.id }, `Whole survey`),
+    opt({ kind: 'vessel', id: doc.id }, `Vessel: ${doc.vessel.name}`),
+    ...doc.conditions.map((c) => opt({ kind: 'condition', id: c.id }, `Condition: ${c.name ?? new Date(c.time).toISOString().slice(0, 16).replace('T', ' ')}`)),
+    ...doc.compartments.map((c) => opt({ kind: 'compartment', id: c.id }, `Compartment: ${c.name}`)),
+    ...doc.boundaries.map((b) => opt({ kind: 'boundary', id: b.id }, `Boundary: ${b.name}`)),
+    ...(doc.photos ?? []).map((p) => opt({ kind: 'photo', id: p.id }, `Photo: ${p.caption || p.id.slice(0, 8)}`)),
+  ];
+}
+
+export function targetLabel(doc: Survey, t: CommentTarget): string {
+  return targetOptions(doc).find((o) => o.key === targetKey(t))?.label ?? `${t.kind} (no longer in the survey)`;
+}

@@ -1,0 +1,57 @@
+/** The survey's status and the moves the viewer may make from it. */
+import { useState } from 'react';
+import type { Role } from '@shared/api/roles';
+import type { StatusEvent } from '@shared/api/review';
+import { STATUS_LABELS, transitionsFor, type SurveyStatus } from '@shared/review/status';
+import { useChangeStatus } from '../api/change-status';
+import { StatusChip } from './status-chip';
+
+const when = (iso: string) => new Date(iso).toLocaleString('en-GB', { dateStyle: 'medium', timeStyle: 'short', timeZone: 'UTC' }) + ' UTC';
+
+export function StatusActions({ surveyId, status, role, events, isSubmitter }: { surveyId: string; status: SurveyStatus; role: Role; events: StatusEvent[]; isSubmitter: boolean }) {
+  const change = useChangeStatus(surveyId);
+  const [note, setNote] = useState('');
+  const moves = transitionsFor(status, role).filter((t) => !(t.notBySubmitter && isSubmitter));
+  return (
+    <section aria-labelledby="status-h" className="rounded-lg border border-line bg-card p-3">
+      <h2 id="status-h" className="flex flex-wrap items-center gap-2 text-lg">
+        Status <StatusChip status={status} />
+      </h2>
+      {moves.length > 0 && (
+        <div className="mt-2 flex flex-col gap-2">
+          <label className="text-sm font-bold" htmlFor="status-note">
+            Note to the surveyor {moves.some((m) => m.noteRequired) ? '(needed to return or reopen)' : '(optional)'}
+          </label>
+          <textarea id="status-note" className="rounded border border-line p-2" rows={2} value={note} onChange={(e) => setNote(e.target.value)} />
+          <div className="flex flex-wrap gap-2">
+            {moves.map((t) => (
+              <button
+                key={t.action + t.to}
+                type="button"
+                className={`min-h-touch rounded-lg px-4 font-bold ${t.action === 'return' ? 'border-2 border-danger text-danger' : 'bg-hull text-paper'}`}
+                disabled={change.isPending}
+                onClick={() => change.mutate({ to: t.to, note: note || undefined }, { onSuccess: () => setNote('') })}
+              >
+                {t.label}
+              </button>
+            ))}
+          </div>
+          {change.isError && <p role="alert" className="text-danger">{change.error.message}</p>}
+        </div>
+      )}
+      {isSubmitter && status === 'in_review' && <p className="mt-2 text-sm text-ink-soft">You sent this survey, so another engineer must accept it.</p>}
+      {events.length > 0 && (
+        <details className="mt-2 text-sm">
+          <summary className="cursor-pointer font-bold">Status history ({events.length})</summary>
+          <ol className="mt-1 space-y-1">
+            {events.map((e) => (
+              <li key={e.id}>
+                {when(e.at)}: {e.actorName} — {STATUS_LABELS[e.from]} → <strong>{STATUS_LABELS[e.to]}</strong> (revision {e.revision}){e.note ? `: “${e.note}”` : ''}
+              </li>
+            ))}
+          </ol>
+        </details>
+      )}
+    </section>
+  );
+}

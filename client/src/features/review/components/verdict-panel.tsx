@@ -1,0 +1,121 @@
+/** The engineer's verdict on the survey as a whole and on each boundary. */
+import { useState } from 'react';
+import {
+  BOUNDARY_VERDICT_LABELS,
+  BOUNDARY_VERDICTS,
+  SURVEY_VERDICT_LABELS,
+  SURVEY_VERDICTS,
+  type BoundaryVerdictValue,
+  type SurveyVerdictValue,
+  type Verdict,
+} from '@shared/api/review';
+import type { Survey } from '@shared/schemas/survey';
+import { verdictSeverity } from '@shared/review/words';
+import { useSetVerdict } from '../api/set-verdict';
+
+const SEVERITY_CLS = ['border-ok bg-ok-soft', 'border-caution bg-caution-soft', 'border-danger bg-danger-soft', 'border-danger bg-danger-soft'];
+
+function BoundaryVerdictRow({ surveyId, boundary, current, editable }: { surveyId: string; boundary: { id: string; name: string }; current?: Verdict; editable: boolean }) {
+  const set = useSetVerdict(surveyId);
+  const [note, setNote] = useState(current?.note ?? '');
+  const value = (current?.verdict ?? '') as BoundaryVerdictValue | '';
+  const choose = (v: string) => {
+    if (!v) return;
+    set.mutate({ scope: 'boundary', boundaryId: boundary.id, verdict: v as BoundaryVerdictValue, note: note || undefined });
+  };
+  return (
+    <li className={`rounded border-2 p-2 ${current ? SEVERITY_CLS[verdictSeverity(current.verdict)] : 'border-line'}`} data-testid="boundary-verdict" data-boundary={boundary.name}>
+      <label className="block font-bold" htmlFor={`bv-${boundary.id}`}>
+        {boundary.name}
+      </label>
+      <div className="mt-1 flex flex-wrap gap-2">
+        <select
+          id={`bv-${boundary.id}`}
+          className="min-h-touch flex-1 rounded border border-line bg-paper px-2"
+          value={value}
+          disabled={!editable || set.isPending}
+          onChange={(e) => choose(e.target.value)}
+        >
+          <option value="">No verdict</option>
+          {BOUNDARY_VERDICTS.map((v) => (
+            <option key={v} value={v}>
+              {BOUNDARY_VERDICT_LABELS[v]}
+            </option>
+          ))}
+        </select>
+      </div>
+      <input
+        aria-label={`Note on ${boundary.name}`}
+        className="mt-1 min-h-touch w-full rounded border border-line px-2 text-sm"
+        placeholder="Note (optional, saved with the verdict)"
+        value={note}
+        disabled={!editable}
+        onChange={(e) => setNote(e.target.value)}
+        onBlur={() => value && note !== (current?.note ?? '') && choose(value)}
+      />
+      {set.isError && <p role="alert" className="text-sm text-danger">{set.error.message}</p>}
+    </li>
+  );
+}
+
+export function VerdictPanel({ surveyId, doc, verdicts, editable }: { surveyId: string; doc: Survey; verdicts: Verdict[]; editable: boolean }) {
+  const set = useSetVerdict(surveyId);
+  const surveyVerdict = verdicts.find((v) => v.scope === 'survey');
+  const [note, setNote] = useState(surveyVerdict?.note ?? '');
+  const [choice, setChoice] = useState<SurveyVerdictValue | ''>((surveyVerdict?.verdict as SurveyVerdictValue) ?? '');
+  return (
+    <section aria-labelledby="verdicts-h" className="rounded-lg border border-line bg-card p-3">
+      <h2 id="verdicts-h" className="text-lg">
+        Verdicts
+      </h2>
+      {!editable && <p className="mt-1 text-sm text-ink-soft">Verdicts are set while the survey is under review.</p>}
+      <form
+        className="mt-2 flex flex-col gap-2"
+        onSubmit={(e) => {
+          e.preventDefault();
+          if (choice) set.mutate({ scope: 'survey', verdict: choice, note: note || undefined });
+        }}
+      >
+        <label className="font-bold" htmlFor="survey-verdict">
+          On the survey as a whole
+        </label>
+        <select
+          id="survey-verdict"
+          className="min-h-touch rounded border border-line bg-paper px-2"
+          value={choice}
+          disabled={!editable}
+          onChange={(e) => setChoice(e.target.value as SurveyVerdictValue)}
+        >
+          <option value="">Choose…</option>
+          {SURVEY_VERDICTS.map((v) => (
+            <option key={v} value={v}>
+              {SURVEY_VERDICT_LABELS[v]}
+            </option>
+          ))}
+        </select>
+        <textarea aria-label="Note on the survey verdict" className="rounded border border-line p-2" rows={2} placeholder="Note (optional)" value={note} disabled={!editable} onChange={(e) => setNote(e.target.value)} />
+        <button type="submit" className="min-h-touch self-start rounded-lg bg-hull px-4 font-bold text-paper disabled:opacity-50" disabled={!editable || !choice || set.isPending}>
+          Save survey verdict
+        </button>
+        {surveyVerdict && (
+          <p className="text-sm" data-testid="survey-verdict-saved">
+            Saved: <strong>{SURVEY_VERDICT_LABELS[surveyVerdict.verdict as SurveyVerdictValue] ?? surveyVerdict.verdict}</strong> by {surveyVerdict.setByName}
+          </p>
+        )}
+        {set.isError && <p role="alert" className="text-danger">{set.error.message}</p>}
+      </form>
+      <h3 className="mt-4 font-bold">On each boundary</h3>
+      <ul className="mt-2 space-y-2">
+        {doc.boundaries.map((b) => (
+          <BoundaryVerdictRow
+            key={`${b.id}:${verdicts.find((v) => v.boundaryId === b.id)?.setAt ?? ''}`}
+            surveyId={surveyId}
+            boundary={b}
+            current={verdicts.find((v) => v.scope === 'boundary' && v.boundaryId === b.id)}
+            editable={editable}
+          />
+        ))}
+      </ul>
+    </section>
+  );
+}

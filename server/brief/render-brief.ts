@@ -1,0 +1,202 @@
+/**
+ * The master's brief as one self-contained HTML page: no script, no web font, no image, one small
+ * inline style sheet. Readable on a 360 px phone and printable on one or two A4 pages.
+ */
+import type { Survey } from '@shared/schemas/survey';
+import type { BoundaryResult, SurveyResults } from '@shared/engine/results';
+import type { OperatingLimit, Verdict } from '@shared/api/review';
+import { CAUTIONS } from '@shared/api/cautions';
+import { STATUS_LABELS, type SurveyStatus } from '@shared/review/status';
+import { formatNumber, formatQuantity, type UnitSystem } from '@shared/units/units';
+import {
+  boundaryVerdictLabel,
+  boundaryVerdictMeaning,
+  describeLimit,
+  namesFromSurvey,
+  surveyVerdictLabel,
+  verdictSeverity,
+} from '@shared/review/words';
+import { html, type SafeHtml } from './html';
+
+export interface BriefPageData {
+  doc: Survey;
+  results: SurveyResults | null;
+  status: SurveyStatus;
+  revision: number;
+  /** Revision the link was issued on; a later one means the survey changed since. */
+  issuedRevision: number;
+  units: UnitSystem;
+  verdicts: Verdict[];
+  limits: OperatingLimit[];
+  organisationName: string;
+  reviewedBy: string | null;
+  reviewedAt: string | null;
+  expiresAt: string;
+}
+
+/** How many boundaries the brief lists at most, so it stays on one or two pages. */
+const MAX_BOUNDARIES = 8;
+
+const utc = (iso: string | null) => (iso ? new Date(iso).toISOString().replace('T', ' ').slice(0, 16) + ' UTC' : '—');
+
+const SEVERITY_CLASS = ['ok', 'care', 'warn', 'bad'] as const;
+
+function boundariesThatMatter(results: SurveyResults, verdicts: Verdict[]): BoundaryResult[] {
+  const withVerdict = new Set(verdicts.filter((v) => v.scope === 'boundary').map((v) => v.boundaryId));
+  const score = (b: BoundaryResult) =>
+    (withVerdict.has(b.id) ? 10 : 0) + (b.maxUtilisation ?? 0) + (Math.abs(b.net.forceN) > 0 ? 0.01 : 0);
+  return results.boundaries
+    .filter((b) => withVerdict.has(b.id) || (b.maxUtilisation ?? 0) >= 0.5 || Math.abs(b.net.resultantN) > 0)
+    .sort((a, b) => score(b) - score(a) || Math.abs(b.net.resultantN) - Math.abs(a.net.resultantN))
+    .slice(0, MAX_BOUNDARIES);
+}
+
+function sideLabel(results: SurveyResults, side: BoundaryResult['sideA']): string {
+  if (side.kind === 'sea') return 'the sea';
+  if (side.kind === 'air') return 'open air';
+  return results.compartments.find((c) => c.id === side.compartmentId)?.name ?? 'a space';
+}
+
+export function renderBriefPage(d: BriefPageData): string {
+  const q = (v: number, dim: Parameters<typeof formatQuantity>[1], digits = 3) => formatQuantity(v, dim, d.units, digits).text;
+  const names = namesFromSurvey(d.doc);
+  const condition = d.doc.conditions.find((c) => c.id === d.doc.activeConditionId) ?? d.doc.conditions[0];
+  const surveyVerdict = d.verdicts.find((v) => v.scope === 'survey');
+  const boundaryVerdicts = new Map(d.verdicts.filter((v) => v.scope === 'boundary').map((v) => [v.boundaryId, v]));
+  const r = d.results;
+
+  const flooded = r ? r.compartments.filter((c) => c.liquid.volumeM3 > 1e-9) : [];
+  const floodedRows = flooded.map(
+    (c) => html`<tr><th scope="row">${c.name}${c.openToSea ? html` <span class="tag">open to sea</span>` : ''}</th>
+<td>${c.layers.filter((l) => l.volumeM3 > 1e-9).map((l) => html`<div>${l.fluidName}: ${q(l.massKg, 'mass')}</div>`)}</td>
+<td>${formatNumber(c.fillFraction * 100, 2)} %</td></tr>`,
+  );
+
+  const important = r ? boundariesThatMatter(r, d.verdicts) : [];
+  const boundaryItems = important.map((b) => {
+    const v = boundaryVerdicts.get(b.id);
+    const sev = v ? verdictSeverity(v.verdict) : null;
+    return html`<li class="boundary">
+<div class="bhead"><strong>${b.name}</strong> <span class="muted">(${b.kind}, between ${sideLabel(r!, b.sideA)} and ${sideLabel(r!, b.sideB)})</span></div>
+${v ? html`<div class="verdict ${SEVERITY_CLASS[sev!]}"><strong>${boundaryVerdictLabel(v.verdict)}</strong>: ${boundaryVerdictMeaning(v.verdict)}.${v.note ? html` ${v.note}` : ''}</div>` : html`<div class="muted">No verdict given.</div>`}
+<div class="figs">Net load ${q(Math.abs(b.net.resultantN), 'force')} · highest net pressure ${q(Math.abs(b.net.peak.pressurePa), 'pressure')}${
+      b.maxUtilisation !== null ? html` · <span class="${b.maxUtilisation > 1 ? 'over' : ''}">${b.maxUtilisation > 1 ? '▲ OVER CAPACITY: ' : ''}${formatNumber(b.maxUtilisation * 100, 3)} % of capacity</span>` : ''
+    }</div>
+</li>`;
+  });
+
+  const limitItems = d.limits.map((l) => html`<li>${describeLimit(l, names, d.units)}</li>`);
+  const sev = surveyVerdict ? verdictSeverity(surveyVerdict.verdict) : null;
+  const changedSince = d.revision > d.issuedRevision;
+
+  const body: SafeHtml = html`
+<header>
+  <p class="kicker">Flooding brief · read only</p>
+  <h1>${d.doc.vessel.name}${d.doc.vessel.imo ? html` <span class="muted">IMO ${d.doc.vessel.imo}</span>` : ''}</h1>
+  <p class="sub">${d.doc.title}</p>
+  <p class="when">Soundings taken <strong>${utc(condition?.time ?? null)}</strong> · review status: <strong>${STATUS_LABELS[d.status]}</strong></p>
+  ${changedSince ? html`<p class="notice">The survey has changed since this brief was sent. Ask the engineer for a fresh one before you act on it.</p>` : ''}
+</header>
+<section aria-labelledby="h-verdict">
+  <h2 id="h-verdict">The engineer’s verdict</h2>
+  ${surveyVerdict
+    ? html`<p class="verdict big ${SEVERITY_CLASS[sev!]}"><strong>${surveyVerdictLabel(surveyVerdict.verdict)}</strong>${surveyVerdict.note ? html`<br>${surveyVerdict.note}` : ''}</p>`
+    : html`<p class="verdict big care"><strong>No overall verdict yet.</strong> Treat every figure below as unchecked.</p>`}
+</section>
+<section aria-labelledby="h-limits">
+  <h2 id="h-limits">Operating limits</h2>
+  ${limitItems.length ? html`<ol class="limits">${limitItems}</ol>` : html`<p class="muted">The engineer set no limits.</p>`}
+</section>
+<section aria-labelledby="h-flooded">
+  <h2 id="h-flooded">What is flooded</h2>
+  ${r
+    ? html`<p>Flood water aboard: <strong>${q(r.ship.floodWater.massKg, 'mass')}</strong> · oil: <strong>${q(r.ship.oil.massKg, 'mass')}</strong>${
+        r.summary.totalInflowM3S > 0 ? html` · inflow about <strong>${q(r.summary.totalInflowM3S, 'flow')}</strong>` : ''
+      }</p>
+${flooded.length ? html`<table><thead><tr><th scope="col">Space</th><th scope="col">Holds</th><th scope="col">Full</th></tr></thead><tbody>${floodedRows}</tbody></table>` : html`<p>No space holds liquid in this survey.</p>`}`
+    : html`<p class="muted">The server has not worked out the loads for this survey yet.</p>`}
+</section>
+<section aria-labelledby="h-boundaries">
+  <h2 id="h-boundaries">Boundaries that matter</h2>
+  ${boundaryItems.length ? html`<ul class="boundaries">${boundaryItems}</ul>` : html`<p class="muted">No boundary carries a net load.</p>`}
+</section>
+<section aria-labelledby="h-cautions" class="cautions">
+  <h2 id="h-cautions">Cautions</h2>
+  <ul>${CAUTIONS.map((c) => html`<li>${c}</li>`)}</ul>
+</section>
+<footer>
+  <p>Reviewed by <strong>${d.reviewedBy ?? 'nobody yet'}</strong>${d.reviewedAt ? html` on ${utc(d.reviewedAt)}` : ''} · ${d.organisationName} · survey revision ${d.revision}.</p>
+  <p>This link stops working ${utc(d.expiresAt)} and may be withdrawn earlier. Do not forward it. Figures in ${d.units === 'us' ? 'US customary units' : 'SI units'}.</p>
+</footer>`;
+
+  return `<!doctype html>
+<html lang="en">
+<head>
+<meta charset="utf-8">
+<meta name="viewport" content="width=device-width, initial-scale=1">
+<meta name="robots" content="noindex, nofollow">
+<meta name="referrer" content="no-referrer">
+<title>Flooding brief: ${html`${d.doc.vessel.name}`}</title>
+<style>${STYLE}</style>
+</head>
+<body>
+<main>${body}</main>
+</body>
+</html>`;
+}
+
+/** The 404 page for unknown, expired and revoked links alike: it says nothing about which. */
+export function renderBriefNotFound(): string {
+  return `<!doctype html>
+<html lang="en"><head><meta charset="utf-8"><meta name="viewport" content="width=device-width, initial-scale=1">
+<meta name="robots" content="noindex, nofollow"><meta name="referrer" content="no-referrer">
+<title>Brief not available</title><style>${STYLE}</style></head>
+<body><main><h1>This brief is not available</h1>
+<p>The link may be mistyped, out of date or withdrawn. Ask the engineer who sent it for a new one.</p></main></body></html>`;
+}
+
+const STYLE = `
+:root{color-scheme:light;--ink:#0d1217;--soft:#3a4652;--line:#b9c0c7;--paper:#f7f5ef;--hull:#0b2239;
+--ok:#0f6b3a;--ok-soft:#d9f0e2;--care:#8a5a00;--care-soft:#fff0c2;--bad:#b0004f;--bad-soft:#fde0ec}
+*{box-sizing:border-box}
+html{-webkit-text-size-adjust:100%}
+body{margin:0;background:var(--paper);color:var(--ink);font:17px/1.45 system-ui,-apple-system,"Segoe UI",Roboto,sans-serif}
+main{max-width:46rem;margin:0 auto;padding:16px 14px 32px}
+h1{font-size:1.6rem;margin:.1em 0;line-height:1.2;overflow-wrap:anywhere}
+h2{font-size:1.15rem;margin:1.3em 0 .4em;padding-bottom:.15em;border-bottom:2px solid var(--hull)}
+p{margin:.4em 0}
+.kicker{margin:0;font-size:.85rem;font-weight:700;letter-spacing:.06em;text-transform:uppercase;color:var(--soft)}
+.sub{font-size:1.05rem;color:var(--soft)}
+.muted{color:var(--soft);font-weight:normal}
+.notice{border:2px solid var(--bad);background:var(--bad-soft);padding:8px 10px;border-radius:6px;font-weight:700}
+.verdict{border-left:6px solid var(--care);background:var(--care-soft);padding:6px 10px;border-radius:4px;margin:.3em 0}
+.verdict.big{font-size:1.1rem;padding:10px 12px}
+.verdict.ok{border-color:var(--ok);background:var(--ok-soft)}
+.verdict.care{border-color:var(--care);background:var(--care-soft)}
+.verdict.warn,.verdict.bad{border-color:var(--bad);background:var(--bad-soft)}
+.limits{padding-left:1.4em;margin:.3em 0}
+.limits li{margin:.35em 0;font-weight:700}
+table{width:100%;border-collapse:collapse;font-variant-numeric:tabular-nums;font-size:.95rem}
+th,td{text-align:left;vertical-align:top;padding:6px 4px;border-bottom:1px solid var(--line)}
+thead th{font-size:.8rem;text-transform:uppercase;letter-spacing:.04em;color:var(--soft)}
+td:last-child,th:last-child{text-align:right;white-space:nowrap}
+.tag{display:inline-block;font-size:.75rem;font-weight:700;border:1px solid var(--hull);border-radius:3px;padding:0 4px}
+.boundaries{list-style:none;padding:0;margin:0}
+.boundary{border-bottom:1px solid var(--line);padding:8px 0}
+.bhead{overflow-wrap:anywhere}
+.figs{font-size:.95rem;font-variant-numeric:tabular-nums}
+.over{color:var(--bad);font-weight:700}
+.cautions{border:2px solid var(--care);background:var(--care-soft);padding:2px 12px 8px;border-radius:8px;margin-top:1.3em}
+.cautions h2{border:0;margin-top:.5em}
+.cautions ul{padding-left:1.2em;margin:0}
+footer{margin-top:1.2em;font-size:.9rem;color:var(--soft)}
+@media print{
+  @page{size:A4;margin:14mm 14mm 16mm}
+  body{background:#fff;font-size:10.5pt}
+  main{max-width:none;padding:0}
+  h1{font-size:17pt} h2{font-size:12pt;margin-top:10pt}
+  .verdict,.notice,.cautions{-webkit-print-color-adjust:exact;print-color-adjust:exact}
+  .boundary,tr,.limits li,.cautions{break-inside:avoid}
+  h2{break-after:avoid}
+}
+`;

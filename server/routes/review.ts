@@ -1,0 +1,144 @@
+/** The review desk's API: status moves, queue, comments, verdicts, limits, history, brief links. */
+import type { Request } from 'express';
+import { z } from 'zod';
+import {
+  CompareQuerySchema,
+  IssueBriefSchema,
+  NewCommentSchema,
+  NewLimitSchema,
+  SetVerdictSchema,
+  StatusChangeRequestSchema,
+} from '@shared/api/review';
+import type { AppContext } from '../app';
+import { ANY_MEMBER, authOf, roles, type RouteSpec } from '../http/route';
+import { notFound } from '../http/errors';
+import { createReviewService } from '../services/review';
+import { createBriefService } from '../services/briefs';
+
+/** Engineers review; admins may look (and withdraw a brief link), but do not judge structure. */
+const REVIEW_READERS = roles('engineer', 'admin');
+const ENGINEER = roles('engineer');
+
+/** A malformed id is answered like an unknown one. */
+const idParam = (req: Request, name: string, what: string): string => {
+  const parsed = z.uuid().safeParse(req.params[name]);
+  if (!parsed.success) throw notFound(`No such ${what} in your organisation.`);
+  return parsed.data;
+};
+const surveyIdOf = (req: Request) => idParam(req, 'id', 'survey');
+
+export function reviewRoutes(deps: AppContext): RouteSpec[] {
+  const review = createReviewService(deps);
+  const briefs = createBriefService(deps);
+
+  return [
+    {
+      method: 'post',
+      path: '/surveys/:id/status',
+      // Who may make which move is the transition table's business (shared/review/status.ts).
+      policy: ANY_MEMBER,
+      handler: async (req, res) => {
+        const id = surveyIdOf(req);
+        res.json(await review.changeStatus(authOf(req), id, StatusChangeRequestSchema.parse(req.body)));
+      },
+    },
+    {
+      method: 'get',
+      path: '/surveys/:id/revisions',
+      policy: ANY_MEMBER,
+      handler: async (req, res) => {
+        const id = surveyIdOf(req);
+        res.json({ surveyId: id, revisions: await review.revisions(authOf(req), id) });
+      },
+    },
+    {
+      method: 'get',
+      path: '/surveys/:id/compare',
+      policy: ANY_MEMBER,
+      handler: async (req, res) => {
+        const id = surveyIdOf(req);
+        const q = CompareQuerySchema.parse(req.query);
+        res.json(await review.compare(authOf(req), id, q.a, q.b));
+      },
+    },
+    {
+      method: 'get',
+      path: '/review/queue',
+      policy: REVIEW_READERS,
+      handler: async (req, res) => {
+        res.json({ items: await review.queue(authOf(req)) });
+      },
+    },
+    {
+      method: 'get',
+      path: '/review/surveys/:id',
+      policy: REVIEW_READERS,
+      handler: async (req, res) => {
+        res.json(await review.bundle(authOf(req), surveyIdOf(req)));
+      },
+    },
+    {
+      method: 'get',
+      path: '/review/surveys/:id/comments',
+      policy: ANY_MEMBER,
+      handler: async (req, res) => {
+        res.json({ comments: await review.listComments(authOf(req), surveyIdOf(req)) });
+      },
+    },
+    {
+      method: 'post',
+      path: '/review/surveys/:id/comments',
+      // The surveyor answers in the same thread.
+      policy: ANY_MEMBER,
+      handler: async (req, res) => {
+        const id = surveyIdOf(req);
+        res.status(201).json(await review.addComment(authOf(req), id, NewCommentSchema.parse(req.body)));
+      },
+    },
+    {
+      method: 'put',
+      path: '/review/surveys/:id/verdicts',
+      policy: ENGINEER,
+      handler: async (req, res) => {
+        const id = surveyIdOf(req);
+        res.json(await review.setVerdict(authOf(req), id, SetVerdictSchema.parse(req.body)));
+      },
+    },
+    {
+      method: 'post',
+      path: '/review/surveys/:id/limits',
+      policy: ENGINEER,
+      handler: async (req, res) => {
+        const id = surveyIdOf(req);
+        res.status(201).json(await review.addLimit(authOf(req), id, NewLimitSchema.parse(req.body)));
+      },
+    },
+    {
+      method: 'delete',
+      path: '/review/surveys/:id/limits/:limitId',
+      policy: ENGINEER,
+      handler: async (req, res) => {
+        const id = surveyIdOf(req);
+        await review.removeLimit(authOf(req), id, idParam(req, 'limitId', 'limit'));
+        res.status(204).end();
+      },
+    },
+    {
+      method: 'post',
+      path: '/review/surveys/:id/briefs',
+      policy: ENGINEER,
+      handler: async (req, res) => {
+        const id = surveyIdOf(req);
+        res.status(201).json(await briefs.issue(authOf(req), id, IssueBriefSchema.parse(req.body)));
+      },
+    },
+    {
+      method: 'post',
+      path: '/review/briefs/:briefId/revoke',
+      policy: REVIEW_READERS,
+      handler: async (req, res) => {
+        res.json(await briefs.revoke(authOf(req), idParam(req, 'briefId', 'brief link')));
+      },
+    },
+  ];
+}

@@ -1,0 +1,100 @@
+/**
+ * Master's brief links: issue (token made here, only its hash stored, sent by e-mail through the
+ * app's mailer), revoke, and open. Opening a link answers the same way for a token that never
+ * existed, one that expired and one that was revoked.
+ */
+import type { Knex } from 'knex';
+import type { BriefLink, IssueBrief } from '@shared/api/review';
+import type { SurveyResults } from '@shared/engine/results';
+import { SurveySchema } from '@shared/schemas/survey';
+import { BRIEFABLE_STATUSES, STATUS_LABELS } from '@shared/review/status';
+import type { Config } from '../config';
+import type { AuthContext } from '../http/auth-context';
+import { conflict, notFound } from '../http/errors';
+import type { Mailer } from '../mail/mailer';
+import { briefMail } from '../mail/brief-mail';
+import { briefPath, hashBriefToken, looksLikeBriefToken, newBriefToken } from '../brief/brief-token';
+import type { BriefPageData } from '../brief/render-brief';
+import * as repo from '../db/repositories/review';
+import { ensureResults } from './surveys';
+
+export function createBriefService(deps: { db: Knex; config: Pick<Config, 'publicUrl'>; mailer: Mailer }) {
+  const { db, config, mailer } = deps;
+
+  async function issue(auth: AuthContext, surveyId: string, body: IssueBrief): Promise<{ link: BriefLink; url: string }> {
+    const s = await repo.findSurvey(db, auth.orgId, surveyId);
+    if (!s) throw notFound('No such survey in your organisation.');
+    if (!BRIEFABLE_STATUSES.includes(s.status)) {
+      throw conflict(`A brief is sent for a survey under review or accepted; this one is “${STATUS_LABELS[s.status]}”.`);
+    }
+    const { token, hash } = newBriefToken();
+    const expiresAt = new Date(Date.now() + body.expiresInHours * 3600_000);
+    const link = await repo.insertBrief(db, {
+      surveyId,
+      orgId: auth.orgId,
+      tokenHash: hash,
+      recipientEmail: body.recipientEmail,
+      units: body.units,
+      revision: s.revision,
+      expiresAt,
+      createdBy: auth.userId,
+    });
+    const url = new URL(briefPath(token), config.publicUrl).toString();
+    const parsed = SurveySchema.safeParse(s.doc);
+    const [engineerName, organisationName] = await Promise.all([repo.userName(db, auth.userId), repo.organisationName(db, auth.orgId)]);
+    await mailer.send({
+      to: body.recipientEmail,
+      ...briefMail({
+        url,
+        vesselName: parsed.success ? parsed.data.vessel.name : 'the vessel',
+        surveyTitle: parsed.success ? parsed.data.title : '',
+        engineerName,
+        organisationName,
+        expiresAt,
+      }),
+    });
+    return { link, url };
+  }
+
+  async function revoke(auth: AuthContext, briefId: string): Promise<BriefLink> {
+    const found = await repo.findBriefInOrg(db, auth.orgId, briefId);
+    if (!found) throw notFound('No such brief link in your organisation.');
+    await repo.revokeBrief(db, briefId, auth.userId);
+    const { surveyId: _s, ...link } = (await repo.findBriefInOrg(db, auth.orgId, briefId))!;
+    return link;
+  }
+
+  /** The page's data for a live token, or null for any other (unknown, expired, revoked, malformed). */
+  async function open(token: string, meta: { ip: string | null; userAgent: string | null }): Promise<BriefPageData | null> {
+    if (!looksLikeBriefToken(token)) return null;
+    const link = await repo.findLiveBrief(db, hashBriefToken(token));
+    if (!link) return null;
+    const s = await repo.findSurvey(db, link.orgId, link.surveyId);
+    const parsed = s ? SurveySchema.safeParse(s.doc) : null;
+    if (!s || !parsed?.success) return null;
+    const [results, verdicts, limits, reviewed, organisationName] = await Promise.all([
+      ensureResults(db, s.id, s.revision, parsed.data),
+      repo.listVerdicts(db, [s.id]),
+      repo.listLimits(db, [s.id]),
+      repo.lastReviewEvent(db, s.id),
+      repo.organisationName(db, link.orgId),
+      repo.logBriefOpening(db, link.id, meta.ip, meta.userAgent),
+    ]);
+    return {
+      doc: parsed.data,
+      results: (results.results as SurveyResults | null) ?? null,
+      status: s.status,
+      revision: s.revision,
+      issuedRevision: link.revision,
+      units: link.units,
+      verdicts,
+      limits,
+      organisationName,
+      reviewedBy: reviewed?.name ?? null,
+      reviewedAt: reviewed?.at ?? null,
+      expiresAt: link.expiresAt,
+    };
+  }
+
+  return { issue, revoke, open };
+}

@@ -1,0 +1,7 @@
+/** The cautions that stand beside every computed result and on the master's brief: one text, two places. */
+export const CAUTIONS: readonly string[] = [
+  'These figures are estimates for planning, not a structural approval.',
+  'Structural decisions rest with a competent naval architect, the vessel’s classification society, and the flag and local authorities.',
+  'Never enter a flooded or closed space without gas testing and an entry permit.',
+  'Pumping or moving liquid changes both the ship’s stability and the loads on its boundaries.',
+];
