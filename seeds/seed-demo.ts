@@ -5,10 +5,14 @@
 import bcrypt from 'bcryptjs';
 import type { Knex } from 'knex';
 import { DEMO_ORG, DEMO_USERS, OTHER_ORG } from './demo-people';
+import { seedSurveys } from './seed-surveys';
 
 export async function seedDemo(db: Knex, opts: { bcryptCost: number }): Promise<{ created: boolean }> {
   const existing = await db('organisations').where({ id: DEMO_ORG.id }).first('id');
-  if (existing) return { created: false };
+  if (existing) {
+    await seedSurveys(db);
+    return { created: false };
+  }
   await db.transaction(async (trx) => {
     await trx('organisations').insert([DEMO_ORG, OTHER_ORG]).onConflict('id').ignore();
     for (const u of DEMO_USERS) {
@@ -23,5 +27,6 @@ export async function seedDemo(db: Knex, opts: { bcryptCost: number }): Promise<
         .ignore();
     }
   });
+  await seedSurveys(db);
   return { created: true };
 }

@@ -1,0 +1,112 @@
+/**
+ * The device store (IndexedDB through Dexie). The survey lives here first: every edit is written
+ * to the survey and to the outbox in one transaction, and sync drains the outbox when a link exists.
+ *
+ * Schema versions are append-only: never edit a version that has shipped; add `version(n + 1)`
+ * with the new stores (and an `upgrade` when existing rows must change).
+ */
+import { Dexie, type EntityTable } from 'dexie';
+import type { Survey } from '@shared/schemas/survey';
+import type { Conflict, SurveyChange, SurveyStatus, UserRef } from '@shared/schemas/sync';
+
+export interface LocalSurvey {
+  id: string;
+  /** The document as this device sees it: the server's copy with this device's pending edits on top. */
+  doc: Survey;
+  /** The server's copy at `serverRevision` (null until the server has it). */
+  serverDoc: Survey | null;
+  /** 0 while the survey has never reached the server. */
+  serverRevision: number;
+  status: SurveyStatus;
+  /** Denormalised for lists and sorting. */
+  title: string;
+  vesselName: string;
+  /** ISO time of the last local or server change. */
+  updatedAt: string;
+  ownerUserId: string | null;
+  createdBy: UserRef | null;
+}
+
+export type OutboxState = 'pending' | 'rejected';
+
+/** One edit waiting for the server. `seq` (auto-increment) is the per-device sequence number. */
+export interface OutboxEntry extends Omit<SurveyChange, 'seq'> {
+  seq?: number;
+  state: OutboxState;
+  /** Why the server refused it, for the user. */
+  reason?: string;
+}
+
+export interface LocalConflict extends Conflict {
+  /** 1 while this device has a resolution in its outbox that the server has not confirmed yet. */
+  resolving?: 0 | 1;
+}
+
+export interface LocalPhoto {
+  id: string;
+  surveyId: string;
+  entity: { kind: 'survey' | 'condition' | 'compartment' | 'boundary'; id: string };
+  blob: Blob;
+  contentType: string;
+  caption: string;
+  /** 0 until the photo's bytes have reached object storage (IndexedDB cannot index booleans). */
+  uploaded: 0 | 1;
+  createdAt: string;
+  /** Storage key once uploaded. */
+  key?: string;
+}
+
+export interface MetaRow {
+  key: string;
+  value: unknown;
+}
+
+export type BrinelineDb = Dexie & {
+  surveys: EntityTable<LocalSurvey, 'id'>;
+  outbox: EntityTable<OutboxEntry, 'seq'>;
+  conflicts: EntityTable<LocalConflict, 'id'>;
+  photos: EntityTable<LocalPhoto, 'id'>;
+  meta: EntityTable<MetaRow, 'key'>;
+};
+
+export const DB_NAME = 'brineline';
+
+export function openDb(name = DB_NAME): BrinelineDb {
+  const db = new Dexie(name) as BrinelineDb;
+  db.version(1).stores({
+    surveys: 'id, updatedAt, status, ownerUserId, title',
+    outbox: '++seq, id, surveyId, state, [surveyId+state]',
+    conflicts: 'id, surveyId, status, [surveyId+status]',
+    photos: 'id, surveyId, uploaded, [entity.kind+entity.id]',
+    meta: 'key',
+  });
+  return db;
+}
+
+export const db: BrinelineDb = openDb();
+
+/** Keys of `meta` rows. */
+export const META = {
+  deviceId: 'deviceId',
+  pullCursor: 'pullCursor',
+  lastSyncedAt: 'lastSyncedAt',
+} as const;
+
+export async function getMeta<T>(key: string): Promise<T | undefined> {
+  return (await db.meta.get(key))?.value as T | undefined;
+}
+
+export async function setMeta(key: string, value: unknown): Promise<void> {
+  await db.meta.put({ key, value });
+}
+
+/** This device's id: made once, on the device, and kept with its data. */
+export async function getDeviceId(): Promise<string> {
+  return db.transaction('rw', db.meta, async () => {
+    const existing = await getMeta<string>(META.deviceId);
+    if (existing) return existing;
+    const id = crypto.randomUUID();
+    await setMeta(META.deviceId, id);
+    return id;
+  });
+}

@@ -1,0 +1,93 @@
+/**
+ * Device storage: ask the browser to keep our data (persistent storage is not evicted under
+ * pressure), report how much is used, and turn a full disk into a message the surveyor can act on.
+ */
+import { useEffect, useState, useSyncExternalStore } from 'react';
+
+export interface StorageInfo {
+  persisted: boolean | null;
+  usageBytes: number | null;
+  quotaBytes: number | null;
+}
+
+/** Asks once for persistent storage; resolves whether the data is protected from eviction. */
+export async function requestPersistentStorage(): Promise<boolean | null> {
+  if (typeof navigator === 'undefined' || !navigator.storage?.persist) return null;
+  try {
+    if (await navigator.storage.persisted()) return true;
+    return await navigator.storage.persist();
+  } catch {
+    return null;
+  }
+}
+
+export async function readStorageInfo(): Promise<StorageInfo> {
+  const s = typeof navigator === 'undefined' ? undefined : navigator.storage;
+  const [persisted, estimate] = await Promise.all([
+    s?.persisted ? s.persisted().catch(() => null) : Promise.resolve(null),
+    s?.estimate ? s.estimate().catch(() => null) : Promise.resolve(null),
+  ]);
+  return { persisted, usageBytes: estimate?.usage ?? null, quotaBytes: estimate?.quota ?? null };
+}
+
+/** True for the errors IndexedDB raises when the device has no room left. */
+export function isQuotaError(err: unknown): boolean {
+  const e = err as { name?: string; inner?: { name?: string } } | null;
+  return e?.name === 'QuotaExceededError' || e?.inner?.name === 'QuotaExceededError';
+}
+
+export const QUOTA_MESSAGE =
+  'This device is out of storage space, so the last change was not saved. Free some space (old photos, other apps) and try again; everything saved before is still here.';
+
+let storageError: string | null = null;
+const subs = new Set<() => void>();
+
+/** Records a failed write for the storage panel; returns the message to show beside the form. */
+export function reportStorageError(err: unknown): string {
+  const message = isQuotaError(err) ? QUOTA_MESSAGE : `The change could not be saved on this device: ${err instanceof Error ? err.message : String(err)}`;
+  storageError = message;
+  subs.forEach((fn) => fn());
+  return message;
+}
+
+export function clearStorageError(): void {
+  storageError = null;
+  subs.forEach((fn) => fn());
+}
+
+export function useStorageError(): string | null {
+  return useSyncExternalStore(
+    (fn) => {
+      subs.add(fn);
+      return () => subs.delete(fn);
+    },
+    () => storageError,
+    () => storageError,
+  );
+}
+
+/** Storage figures, refreshed when asked. */
+export function useStorageInfo(): { info: StorageInfo | null; refresh: () => void } {
+  const [info, setInfo] = useState<StorageInfo | null>(null);
+  const [tick, setTick] = useState(0);
+  useEffect(() => {
+    let live = true;
+    void readStorageInfo().then((i) => live && setInfo(i));
+    return () => {
+      live = false;
+    };
+  }, [tick]);
+  return { info, refresh: () => setTick((t) => t + 1) };
+}
+
+export function formatBytes(n: number): string {
+  if (n < 1024) return `${n} B`;
+  const units = ['KB', 'MB', 'GB', 'TB'];
+  let v = n / 1024;
+  let i = 0;
+  while (v >= 1024 && i < units.length - 1) {
+    v /= 1024;
+    i++;
+  }
+  return `${v.toFixed(v < 10 ? 1 : 0)} ${units[i]}`;
+}

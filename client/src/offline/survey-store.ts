@@ -1,0 +1,260 @@
+/**
+ * Reads and writes of surveys on the device. Reads are reactive (`useLiveQuery`); every write goes
+ * through `createLocalSurvey` / `applyLocalChange`, which change the document and append the edit
+ * to the outbox in ONE Dexie transaction — no network inside, so an edit is either fully kept or
+ * not made at all, even if the phone dies mid-write. Sync (./sync.ts) does the rest.
+ */
+import { useLiveQuery } from 'dexie-react-hooks';
+import { SurveySchema, type Survey } from '@shared/schemas/survey';
+import {
+  SurveyOpSchema,
+  type ConflictTarget,
+  type SurveyOp,
+  type SyncedSurvey,
+  type UserRef,
+} from '@shared/schemas/sync';
+import { applyOp, changedFields, findEntity, replay } from '@shared/sync/apply';
+import { formatZodIssues } from '@shared/api/format-issues';
+import { reportStorageError } from './storage';
+import { db, getDeviceId, type LocalConflict, type LocalSurvey, type OutboxEntry } from './db';
+
+/** An edit that would leave the survey invalid; nothing was written. */
+export class LocalChangeError extends Error {
+  constructor(
+    message: string,
+    readonly details: { path: string; message: string }[] = [],
+  ) {
+    super(message);
+    this.name = 'LocalChangeError';
+  }
+}
+
+type Listener = () => void;
+const listeners = new Set<Listener>();
+
+/** Called after every local write commits (sync uses it to push soon). */
+export function subscribeLocalChanges(fn: Listener): () => void {
+  listeners.add(fn);
+  return () => listeners.delete(fn);
+}
+const notify = () => listeners.forEach((fn) => fn());
+
+function validate(doc: Survey): Survey {
+  const parsed = SurveySchema.safeParse(doc);
+  if (!parsed.success) {
+    const details = formatZodIssues(parsed.error);
+    throw new LocalChangeError(`This change would leave the survey invalid: ${details[0]?.path ?? ''} ${details[0]?.message ?? ''}`.trim(), details);
+  }
+  return parsed.data;
+}
+
+const vesselNameOf = (doc: Survey) => doc.vessel.name;
+
+/** Runs a write; a failure that is not the user's (a full disk, a broken store) is also reported to the storage panel. */
+async function write<T>(fn: () => Promise<T>): Promise<T> {
+  try {
+    return await fn();
+  } catch (err) {
+    if (!(err instanceof LocalChangeError)) reportStorageError(err);
+    throw err;
+  }
+}
+
+/** Lists every survey on this device, most recently changed first. Undefined while loading. */
+export function useLocalSurveys(): LocalSurvey[] | undefined {
+  return useLiveQuery(() => db.surveys.orderBy('updatedAt').reverse().toArray(), []);
+}
+
+/** One survey on this device: undefined while loading, null when this device does not have it. */
+export function useLocalSurvey(id: string | undefined): LocalSurvey | null | undefined {
+  return useLiveQuery(async () => (id ? ((await db.surveys.get(id)) ?? null) : null), [id]);
+}
+
+export function getLocalSurvey(id: string): Promise<LocalSurvey | undefined> {
+  return db.surveys.get(id);
+}
+
+/** Puts a new survey on this device and queues its creation on the server. */
+export async function createLocalSurvey(survey: Survey, opts: { owner?: UserRef } = {}): Promise<string> {
+  const doc = validate(survey);
+  const deviceId = await getDeviceId();
+  const now = new Date().toISOString();
+  await write(() => db.transaction('rw', db.surveys, db.outbox, async () => {
+    if (await db.surveys.get(doc.id)) throw new LocalChangeError('A survey with this id is already on this device.');
+    await db.surveys.add({
+      id: doc.id,
+      doc,
+      serverDoc: null,
+      serverRevision: 0,
+      status: 'draft',
+      title: doc.title,
+      vesselName: vesselNameOf(doc),
+      updatedAt: now,
+      ownerUserId: opts.owner?.id ?? null,
+      createdBy: opts.owner ?? null,
+    });
+    await db.outbox.add({
+      id: crypto.randomUUID(),
+      deviceId,
+      surveyId: doc.id,
+      baseRevision: 0,
+      createdAt: now,
+      op: { kind: 'create', survey: doc },
+      state: 'pending',
+    });
+  }));
+  notify();
+  return doc.id;
+}
+
+/** Fills in `fields` of an upsert: which fields of the entity this edit actually changed. */
+function withChangedFields(doc: Survey, op: SurveyOp): SurveyOp {
+  if (op.kind !== 'upsert') return op;
+  const before = findEntity(doc, op.collection, op.entity.id);
+  if (!before) return { ...op, fields: undefined };
+  return { ...op, fields: changedFields(before, op.entity) };
+}
+
+/**
+ * Applies edits to a survey on this device and queues them for the server, all in one transaction.
+ * Each edit must leave a valid survey (the server checks the same); on error nothing is written.
+ * Returns the ids of the queued changes.
+ */
+export async function applyLocalChanges(surveyId: string, ops: SurveyOp[]): Promise<string[]> {
+  const parsedOps = ops.map((op) => {
+    const r = SurveyOpSchema.safeParse(op);
+    if (!r.success) throw new LocalChangeError('This change is not valid.', formatZodIssues(r.error));
+    if (r.data.kind === 'create') throw new LocalChangeError('Use createLocalSurvey to create a survey.');
+    return r.data;
+  });
+  const deviceId = await getDeviceId();
+  const ids: string[] = [];
+  await write(() => db.transaction('rw', db.surveys, db.outbox, async () => {
+    const local = await db.surveys.get(surveyId);
+    if (!local) throw new LocalChangeError('This survey is not on this device.');
+    let doc = local.doc;
+    const now = new Date().toISOString();
+    for (const raw of parsedOps) {
+      const op = withChangedFields(doc, raw);
+      if (op.kind === 'upsert' && op.fields && op.fields.length === 0) continue; // nothing changed
+      doc = validate(applyOp(doc, op));
+      const id = crypto.randomUUID();
+      ids.push(id);
+      await db.outbox.add({
+        id,
+        deviceId,
+        surveyId,
+        baseRevision: local.serverRevision,
+        createdAt: now,
+        op,
+        state: 'pending',
+      });
+    }
+    if (ids.length > 0) {
+      await db.surveys.update(surveyId, { doc, title: doc.title, vesselName: vesselNameOf(doc), updatedAt: now });
+    }
+  }));
+  if (ids.length > 0) notify();
+  return ids;
+}
+
+/** Applies one edit on this device and queues it (see applyLocalChanges). Returns the change id, or null if it changed nothing. */
+export async function applyLocalChange(surveyId: string, op: SurveyOp): Promise<string | null> {
+  const [id] = await applyLocalChanges(surveyId, [op]);
+  return id ?? null;
+}
+
+/** Open conflicts of a survey, oldest first. */
+export function useConflicts(surveyId: string | undefined): LocalConflict[] | undefined {
+  return useLiveQuery(
+    async () =>
+      surveyId
+        ? (await db.conflicts.where({ surveyId, status: 'open' }).toArray()).sort((a, b) => a.createdAt.localeCompare(b.createdAt))
+        : [],
+    [surveyId],
+  );
+}
+
+/** Every open conflict on this device. */
+export function useAllOpenConflicts(): LocalConflict[] | undefined {
+  return useLiveQuery(() => db.conflicts.where('status').equals('open').toArray(), []);
+}
+
+/**
+ * Settles a conflict with the chosen value (`conflict.kept`, `conflict.proposed`, or anything else
+ * valid for its target): the survey on this device takes it at once, and the choice is queued for
+ * the server like any other edit.
+ */
+export async function resolveConflict(conflictId: string, value: unknown): Promise<void> {
+  const conflict = await db.conflicts.get(conflictId);
+  if (!conflict) throw new LocalChangeError('This conflict is no longer on this device.');
+  const target: ConflictTarget = conflict.target;
+  await db.transaction('rw', [db.surveys, db.outbox, db.conflicts, db.meta], async () => {
+    await applyLocalChanges(conflict.surveyId, [{ kind: 'resolve-conflict', conflictId, target, value: value ?? null }]);
+    await db.conflicts.update(conflictId, { status: 'resolved', resolving: 1, resolvedAt: new Date().toISOString() });
+  });
+}
+
+/** Changes waiting for the server. */
+export function usePendingCount(surveyId?: string): number | undefined {
+  return useLiveQuery(
+    () =>
+      surveyId
+        ? db.outbox.where({ surveyId, state: 'pending' }).count()
+        : db.outbox.where('state').equals('pending').count(),
+    [surveyId],
+  );
+}
+
+/** Changes the server refused, with its reason. */
+export function useRejectedChanges(): OutboxEntry[] | undefined {
+  return useLiveQuery(() => db.outbox.where('state').equals('rejected').toArray(), []);
+}
+
+/** Removes a refused change from the list once the user has read it. */
+export async function dismissRejectedChange(seq: number): Promise<void> {
+  await db.transaction('rw', db.outbox, async () => {
+    const e = await db.outbox.get(seq);
+    if (e?.state === 'rejected') await db.outbox.delete(seq);
+  });
+}
+
+/**
+ * Takes the server's copies into the store without losing local work: each document becomes the
+ * server copy with this device's pending edits replayed on top. Called by sync after a pull.
+ */
+export async function mergeServerSurveys(list: SyncedSurvey[]): Promise<void> {
+  if (list.length === 0) return;
+  await db.transaction('rw', db.surveys, db.outbox, async () => {
+    for (const s of list) {
+      const local = await db.surveys.get(s.id);
+      if (local && local.serverRevision > s.revision) continue;
+      const pending = await db.outbox.where({ surveyId: s.id, state: 'pending' }).sortBy('seq');
+      const doc = replay(s.doc, pending.map((e) => e.op)) ?? s.doc;
+      await db.surveys.put({
+        id: s.id,
+        doc,
+        serverDoc: s.doc,
+        serverRevision: s.revision,
+        status: s.status,
+        title: doc.title,
+        vesselName: vesselNameOf(doc),
+        updatedAt: pending.length > 0 && local ? local.updatedAt : s.updatedAt,
+        ownerUserId: local?.ownerUserId ?? s.createdBy.id,
+        createdBy: s.createdBy,
+      });
+    }
+  });
+}
+
+/** Recomputes one survey's local document after the outbox lost entries (a refused change). */
+export async function rebaseLocalSurvey(surveyId: string): Promise<void> {
+  await db.transaction('rw', db.surveys, db.outbox, async () => {
+    const local = await db.surveys.get(surveyId);
+    if (!local) return;
+    const pending = await db.outbox.where({ surveyId, state: 'pending' }).sortBy('seq');
+    const doc = replay(local.serverDoc, pending.map((e) => e.op));
+    // A survey the server never accepted keeps its last document on the device: never drop work.
+    if (doc) await db.surveys.update(surveyId, { doc, title: doc.title, vesselName: vesselNameOf(doc) });
+  });
+}

@@ -1,0 +1,289 @@
+/**
+ * The sync engine: drains the outbox to the server and pulls what changed, on start, when the
+ * link comes back, when the app becomes visible again, every 30 s and on demand. Failures back off
+ * exponentially; a 401 that the token refresh cannot fix pauses sync with "sign in to sync" and
+ * keeps the outbox; a change the server refuses for good is marked and shown while the rest go on.
+ */
+import { useSyncExternalStore } from 'react';
+import { useLiveQuery } from 'dexie-react-hooks';
+import {
+  MAX_PUSH_CHANGES,
+  PullResponseSchema,
+  PushResponseSchema,
+  type Conflict,
+  type PushResponse,
+  type SurveyChange,
+} from '@shared/schemas/sync';
+import { ApiError, OfflineError, api, jsonBody } from '@client/lib/api-client';
+import { db, getMeta, META, setMeta, type OutboxEntry } from './db';
+import { mergeServerSurveys, rebaseLocalSurvey, subscribeLocalChanges } from './survey-store';
+import { storeReviewNotes } from './review-notes';
+
+export type SyncStateName = 'offline' | 'waiting' | 'syncing' | 'synced' | 'attention';
+
+export interface SyncState {
+  state: SyncStateName;
+  /** Changes on this device the server has not confirmed yet. */
+  pending: number;
+  lastSyncedAt?: string;
+  /** Changes the server refused for good, with its reason. */
+  rejected: OutboxEntry[];
+  openConflicts: number;
+  /** The session ended and could not be renewed: sign in again to sync (nothing is dropped). */
+  needsSignIn: boolean;
+  /** The last failure, when sync is retrying. */
+  error?: string;
+  /** When the next automatic attempt is due after a failure. */
+  retryAt?: string;
+}
+
+interface EngineStatus {
+  running: boolean;
+  /** navigator.onLine, or false after the server could not be reached. */
+  online: boolean;
+  needsSignIn: boolean;
+  lastSyncedAt?: string;
+  error?: string;
+  retryAt?: string;
+}
+
+const PUSH_BATCH = Math.min(200, MAX_PUSH_CHANGES);
+const INTERVAL_MS = 30_000;
+const LOCAL_CHANGE_DELAY_MS = 1_500;
+const BACKOFF_MIN_MS = 2_000;
+const BACKOFF_MAX_MS = 5 * 60_000;
+
+let status: EngineStatus = { running: false, online: typeof navigator === 'undefined' ? true : navigator.onLine, needsSignIn: false };
+const subscribers = new Set<() => void>();
+function setStatus(patch: Partial<EngineStatus>) {
+  status = { ...status, ...patch };
+  subscribers.forEach((fn) => fn());
+}
+
+let inFlight: Promise<void> | null = null;
+let again = false;
+let failures = 0;
+let retryTimer: ReturnType<typeof setTimeout> | undefined;
+let localTimer: ReturnType<typeof setTimeout> | undefined;
+
+const toChange = (e: OutboxEntry): SurveyChange => ({
+  id: e.id,
+  deviceId: e.deviceId,
+  seq: e.seq!,
+  surveyId: e.surveyId,
+  baseRevision: e.baseRevision,
+  createdAt: e.createdAt,
+  op: e.op,
+});
+
+/** Keeps conflicts from the server, except one this device has resolved and the server has not heard of yet. */
+async function storeConflicts(conflicts: Conflict[]): Promise<void> {
+  if (conflicts.length === 0) return;
+  await db.transaction('rw', db.conflicts, async () => {
+    for (const c of conflicts) {
+      const local = await db.conflicts.get(c.id);
+      if (local?.resolving === 1 && c.status === 'open') continue;
+      await db.conflicts.put({ ...c, resolving: 0 });
+    }
+  });
+}
+
+async function applyPushResponse(sent: OutboxEntry[], res: PushResponse): Promise<void> {
+  const bySeq = new Map(sent.map((e) => [e.id, e.seq!]));
+  const refused = new Set<string>();
+  await db.transaction('rw', db.outbox, async () => {
+    for (const r of res.results) {
+      const seq = bySeq.get(r.changeId);
+      if (seq === undefined) continue;
+      if (r.status === 'rejected') {
+        await db.outbox.update(seq, { state: 'rejected', reason: r.reason ?? 'The server refused this change.' });
+        refused.add(r.surveyId);
+      } else {
+        await db.outbox.delete(seq);
+      }
+    }
+  });
+  await storeConflicts(res.conflicts);
+  for (const surveyId of refused) await rebaseLocalSurvey(surveyId);
+}
+
+async function pushAll(): Promise<void> {
+  let size = PUSH_BATCH;
+  for (;;) {
+    const batch = (await db.outbox.where('state').equals('pending').sortBy('seq')).slice(0, size);
+    if (batch.length === 0) return;
+    let body: unknown;
+    try {
+      body = await api<unknown>('/api/sync/push', { method: 'POST', ...jsonBody({ changes: batch.map(toChange) }) });
+    } catch (err) {
+      // Too big for one request (photos' captions, huge polygons…): send fewer at a time; one change
+      // too big on its own is refused for good and shown, so it cannot block the rest.
+      if (err instanceof ApiError && err.status === 413) {
+        if (batch.length > 1) {
+          size = Math.max(1, Math.floor(batch.length / 2));
+          continue;
+        }
+        await db.outbox.update(batch[0].seq!, { state: 'rejected', reason: 'This change is too large to send to the server.' });
+        await rebaseLocalSurvey(batch[0].surveyId);
+        continue;
+      }
+      throw err;
+    }
+    await applyPushResponse(batch, PushResponseSchema.parse(body));
+    if (batch.length < size) return;
+  }
+}
+
+async function pullAll(): Promise<void> {
+  for (let page = 0; page < 1000; page++) {
+    const cursor = (await getMeta<string>(META.pullCursor)) ?? '0';
+    const body = PullResponseSchema.parse(await api<unknown>(`/api/sync/pull?cursor=${encodeURIComponent(cursor)}`));
+    await mergeServerSurveys(body.surveys);
+    await storeConflicts(body.conflicts);
+    await storeReviewNotes(body.extras.review);
+    await setMeta(META.pullCursor, body.cursor);
+    window.dispatchEvent(new CustomEvent('brineline:pulled', { detail: body }));
+    if (!body.hasMore) return;
+  }
+}
+
+function scheduleRetry(): void {
+  clearTimeout(retryTimer);
+  const base = Math.min(BACKOFF_MAX_MS, BACKOFF_MIN_MS * 2 ** Math.min(failures, 10));
+  const delay = base / 2 + Math.random() * (base / 2);
+  failures += 1;
+  setStatus({ retryAt: new Date(Date.now() + delay).toISOString() });
+  retryTimer = setTimeout(() => void syncNow(), delay);
+}
+
+async function runOnce(): Promise<void> {
+  if (typeof navigator !== 'undefined' && !navigator.onLine) {
+    setStatus({ online: false });
+    return;
+  }
+  setStatus({ running: true });
+  try {
+    await pushAll();
+    await pullAll();
+    const now = new Date().toISOString();
+    await setMeta(META.lastSyncedAt, now);
+    failures = 0;
+    clearTimeout(retryTimer);
+    setStatus({ online: true, needsSignIn: false, error: undefined, retryAt: undefined, lastSyncedAt: now });
+  } catch (err) {
+    if (err instanceof ApiError && err.status === 401) {
+      // The refresh already failed inside api-client: wait for a sign-in; the outbox stays as it is.
+      setStatus({ online: true, needsSignIn: true, error: undefined, retryAt: undefined });
+    } else if (err instanceof OfflineError) {
+      setStatus({ online: false, error: undefined });
+      scheduleRetry();
+    } else {
+      setStatus({ online: true, error: err instanceof Error ? err.message : 'Sync failed.' });
+      scheduleRetry();
+    }
+  } finally {
+    setStatus({ running: false });
+  }
+}
+
+/** Pushes and pulls now; resolves when this round (and any requested meanwhile) is done. */
+export function syncNow(): Promise<void> {
+  if (inFlight) {
+    again = true;
+    return inFlight;
+  }
+  inFlight = (async () => {
+    do {
+      again = false;
+      await runOnce();
+    } while (again && !status.needsSignIn);
+  })().finally(() => {
+    inFlight = null;
+  });
+  return inFlight;
+}
+
+let stopper: (() => void) | null = null;
+
+/** Starts automatic sync (idempotent). Returns a function that stops it. */
+export function startSync(opts: { intervalMs?: number } = {}): () => void {
+  if (stopper) return stopper;
+  const onOnline = () => {
+    setStatus({ online: true });
+    failures = 0;
+    void syncNow();
+  };
+  const onOffline = () => setStatus({ online: false });
+  const onVisible = () => {
+    if (document.visibilityState === 'visible') void syncNow();
+  };
+  window.addEventListener('online', onOnline);
+  window.addEventListener('offline', onOffline);
+  document.addEventListener('visibilitychange', onVisible);
+  const interval = setInterval(() => void syncNow(), opts.intervalMs ?? INTERVAL_MS);
+  const unsubscribe = subscribeLocalChanges(() => {
+    clearTimeout(localTimer);
+    localTimer = setTimeout(() => void syncNow(), LOCAL_CHANGE_DELAY_MS);
+  });
+  void getMeta<string>(META.lastSyncedAt).then((t) => {
+    if (t && !status.lastSyncedAt) setStatus({ lastSyncedAt: t });
+  });
+  void syncNow();
+  stopper = () => {
+    window.removeEventListener('online', onOnline);
+    window.removeEventListener('offline', onOffline);
+    document.removeEventListener('visibilitychange', onVisible);
+    clearInterval(interval);
+    clearTimeout(retryTimer);
+    clearTimeout(localTimer);
+    unsubscribe();
+    stopper = null;
+  };
+  return stopper;
+}
+
+function subscribe(fn: () => void): () => void {
+  subscribers.add(fn);
+  return () => subscribers.delete(fn);
+}
+const getSnapshot = () => status;
+
+/** The sync state for the header and anything else that shows it. */
+export function useSyncState(): SyncState {
+  const s = useSyncExternalStore(subscribe, getSnapshot, getSnapshot);
+  const counts = useLiveQuery(
+    async () => ({
+      pending: await db.outbox.where('state').equals('pending').count(),
+      rejected: await db.outbox.where('state').equals('rejected').toArray(),
+      openConflicts: await db.conflicts.where('status').equals('open').count(),
+    }),
+    [],
+  );
+  const pending = counts?.pending ?? 0;
+  const rejected = counts?.rejected ?? [];
+  const openConflicts = counts?.openConflicts ?? 0;
+  const state: SyncStateName = s.running
+    ? 'syncing'
+    : !s.online
+      ? 'offline'
+      : s.needsSignIn || rejected.length > 0 || openConflicts > 0
+        ? 'attention'
+        : pending > 0 || s.error
+          ? 'waiting'
+          : 'synced';
+  return {
+    state,
+    pending,
+    lastSyncedAt: s.lastSyncedAt,
+    rejected,
+    openConflicts,
+    needsSignIn: s.needsSignIn,
+    error: s.error,
+    retryAt: s.retryAt,
+  };
+}
+
+/** How many changes wait in the outbox (for code outside React, e.g. the update prompt). */
+export function pendingChangeCount(): Promise<number> {
+  return db.outbox.where('state').equals('pending').count();
+}

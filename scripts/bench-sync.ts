@@ -1,0 +1,156 @@
+/**
+ * Sync benchmark (`npm run bench -- sync`): on a throwaway PostgreSQL and app of its own,
+ *  1. push and pull of a 200-boundary survey, timed in the server's own services (no HTTP), and
+ *     the same over HTTP;
+ *  2. API throughput at 50 connections on loopback with autocannon, 80% reads (survey list and a
+ *     survey) and 20% pushes (one change each). Goal: ≥ 1,000 requests/s and p99 < 150 ms.
+ * The app runs in its own process (server/index.ts), so the load generator does not share its CPU.
+ */
+import { spawn, type ChildProcess } from 'node:child_process';
+import { randomUUID } from 'node:crypto';
+import path from 'node:path';
+import { fileURLToPath } from 'node:url';
+import autocannon from 'autocannon';
+import type { Survey } from '@shared/schemas/survey';
+import type { SurveyChange } from '@shared/schemas/sync';
+import { startTestStack } from '../tests/support/stack';
+import { freePort } from '../tests/support/free-port';
+import { createOrgWithMembers } from '../tests/support/auth';
+import { newSurvey, tokenFor } from '../tests/support/surveys';
+import { createDb } from '../server/db/knex';
+import { loadConfig } from '../server/config';
+import { push, pull } from '../server/services/sync';
+import type { AuthContext } from '../server/http/auth-context';
+
+const ROOT = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..');
+
+/** The demo survey with its first boundary repeated to `n` boundaries. */
+export function bigSurvey(n: number): Survey {
+  const s = newSurvey({ title: `Bench survey ${n} boundaries` });
+  const template = s.boundaries.find((b) => b.geometry.kind === 'rectangle' && !b.parentBoundaryId) ?? s.boundaries[0];
+  const boundaries = [...s.boundaries.filter((b) => !b.parentBoundaryId)];
+  for (let i = boundaries.length; i < n; i++) boundaries.push({ ...template, id: randomUUID(), name: `${template.name} ${i}`, shores: undefined });
+  return { ...s, boundaries: boundaries.slice(0, n) };
+}
+
+const ms = (t0: number) => `${(performance.now() - t0).toFixed(1)} ms`;
+
+async function startApp(env: Record<string, string>, port: number): Promise<ChildProcess> {
+  const proc = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], {
+    cwd: ROOT,
+    env: { ...process.env, ...env, PORT: String(port), LOG_LEVEL: 'silent', NODE_ENV: 'production', BCRYPT_COST: '12' },
+    stdio: ['ignore', 'ignore', 'inherit'],
+  });
+  for (let i = 0; i < 300; i++) {
+    try {
+      if ((await fetch(`http://127.0.0.1:${port}/api/health`)).ok) return proc;
+    } catch {
+      // not up yet
+    }
+    await new Promise((r) => setTimeout(r, 100));
+  }
+  proc.kill('SIGKILL');
+  throw new Error('the app did not start');
+}
+
+export async function main(): Promise<void> {
+  const stack = await startTestStack('bench-sync');
+  const db = createDb(stack.env.DATABASE_URL);
+  let app: ChildProcess | undefined;
+  try {
+    const config = loadConfig({ ...stack.env, PORT: '0' });
+    const org = await createOrgWithMembers(db);
+    const auth: AuthContext = { userId: org.surveyor.id, orgId: org.id, role: 'surveyor', email: org.surveyor.email };
+    const token = await tokenFor(config.JWT_SECRET, org.surveyor);
+    const device = randomUUID();
+    let seq = 0;
+    const change = (surveyId: string, op: SurveyChange['op'], baseRevision = 0): SurveyChange => ({
+      id: randomUUID(),
+      deviceId: device,
+      seq: ++seq,
+      surveyId,
+      baseRevision,
+      createdAt: new Date().toISOString(),
+      op,
+    });
+
+    // 1. Push and pull of a 200-boundary survey, in the services.
+    const survey = bigSurvey(200);
+    console.log(`survey: ${survey.boundaries.length} boundaries, ${(JSON.stringify(survey).length / 1024).toFixed(0)} KB as JSON`);
+    let t0 = performance.now();
+    await push(db, auth, [change(survey.id, { kind: 'create', survey })]);
+    console.log(`push (create, whole survey), server-side:           ${ms(t0)}`);
+    const edits = survey.boundaries.map((b, i) => change(survey.id, { kind: 'upsert', collection: 'boundaries', entity: { ...b, notes: `Checked ${i}` }, fields: ['notes'] }, 1));
+    t0 = performance.now();
+    await push(db, auth, edits);
+    console.log(`push (200 boundary edits in one batch), server-side:  ${ms(t0)}  (${((performance.now() - t0) / 200).toFixed(2)} ms per change)`);
+    t0 = performance.now();
+    await push(db, auth, [change(survey.id, { kind: 'set', path: 'title', value: 'Bench survey, renamed' }, 201)]);
+    console.log(`push (one edit to the 200-boundary survey), server-side: ${ms(t0)}`);
+    t0 = performance.now();
+    const pulled = await pull(db, auth, { cursor: '0', limit: 50 });
+    console.log(`pull (from an empty device), server-side:             ${ms(t0)}  (${pulled.surveys.length} survey)`);
+
+    // Small surveys for the load test: one per connection, so pushes do not queue on one row lock.
+    const small: string[] = [];
+    for (let i = 0; i < 50; i++) {
+      const s = newSurvey({ title: `Load ${i}` });
+      await push(db, auth, [change(s.id, { kind: 'create', survey: s })]);
+      small.push(s.id);
+    }
+
+    const port = await freePort();
+    app = await startApp(stack.env, port);
+    const base = `http://127.0.0.1:${port}`;
+    const headers = { authorization: `Bearer ${token}`, 'content-type': 'application/json' };
+
+    t0 = performance.now();
+    const body = JSON.stringify({ changes: [change(survey.id, { kind: 'set', path: 'title', value: 'Over HTTP' }, 202)] });
+    await fetch(`${base}/api/sync/push`, { method: 'POST', headers, body }).then((r) => r.arrayBuffer());
+    console.log(`push over HTTP (one edit, 200-boundary survey):        ${ms(t0)}`);
+    t0 = performance.now();
+    const size = await fetch(`${base}/api/sync/pull?cursor=0`, { headers }).then((r) => r.arrayBuffer());
+    console.log(`pull over HTTP (all surveys, cold device):             ${ms(t0)}  (${(size.byteLength / 1024).toFixed(0)} KB)`);
+
+    // 2. Throughput: 50 connections, 80% reads, 20% pushes.
+    let n = 0;
+    const pushBody = () => {
+      n++;
+      const id = small[n % small.length];
+      return JSON.stringify({
+        changes: [change(id, { kind: 'upsert', collection: 'fluids', entity: { id: `bench-${n % 20}`, name: `Bench ${n}`, category: 'oil', densityKgM3: 850 + (n % 100) } })],
+      });
+    };
+    const read = (p: string) => ({ method: 'GET' as const, path: p, headers });
+    const result = await autocannon({
+      url: base,
+      connections: 50,
+      duration: 10,
+      requests: [
+        read('/api/surveys?pageSize=25'),
+        read(`/api/surveys/${small[0]}`),
+        read('/api/surveys?sort=title&order=asc&pageSize=10'),
+        read(`/api/surveys/${small[1]}`),
+        { method: 'POST', path: '/api/sync/push', headers, setupRequest: (req) => ({ ...req, body: pushBody() }) },
+      ],
+    });
+    const ok = result.requests.total - result.non2xx;
+    console.log(
+      `autocannon, 50 connections, 10 s, 80% reads / 20% pushes: ${result.requests.average.toFixed(0)} requests/s, ` +
+        `latency p50 ${result.latency.p50} ms, p99 ${result.latency.p99} ms, max ${result.latency.max} ms; ` +
+        `${ok} ok, ${result.non2xx} non-2xx, ${result.errors} errors`,
+    );
+    const pass = result.requests.average >= 1000 && result.latency.p99 < 150 && result.non2xx === 0;
+    console.log(`goal ≥ 1,000 requests/s and p99 < 150 ms: ${pass ? 'met' : 'NOT met'}`);
+  } finally {
+    app?.kill('SIGTERM');
+    await db.destroy();
+    await stack.stop();
+  }
+}
+
+const invokedDirectly = process.argv[1] && path.resolve(process.argv[1]) === fileURLToPath(import.meta.url);
+if (invokedDirectly) {
+  await main();
+  process.exit(0);
+}

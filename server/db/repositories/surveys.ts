@@ -1,0 +1,539 @@
+/** SQL for surveys, their revisions, results, processed changes and conflicts. snake_case stops here. */
+import type { Knex } from 'knex';
+import type { Survey } from '@shared/schemas/survey';
+import type {
+  Conflict,
+  ConflictTarget,
+  ListSurveysQuery,
+  PushStatus,
+  SurveyResults,
+  SurveyStatus,
+  SurveySummary,
+  SyncedSurvey,
+} from '@shared/schemas/sync';
+import type { FieldChange, FieldRevisions } from '@shared/sync/merge';
+
+type Q = Knex | Knex.Transaction;
+
+/** jsonb parameters go as JSON text: node-postgres would turn a JS array into a PostgreSQL array. */
+const json = (v: unknown) => JSON.stringify(v ?? null);
+const iso = (d: Date | string | null | undefined) => (d == null ? null : new Date(d).toISOString());
+
+export interface SurveyState {
+  id: string;
+  orgId: string;
+  doc: Survey;
+  revision: number;
+  revs: FieldRevisions;
+  status: SurveyStatus;
+  vesselId: string | null;
+}
+
+interface SurveyRow {
+  id: string;
+  organisation_id: string;
+  doc: Survey;
+  revision: number;
+  field_revisions: FieldRevisions;
+  status: SurveyStatus;
+  vessel_id: string | null;
+}
+
+const toState = (r: SurveyRow): SurveyState => ({
+  id: r.id,
+  orgId: r.organisation_id,
+  doc: r.doc,
+  revision: r.revision,
+  revs: r.field_revisions ?? {},
+  status: r.status,
+  vesselId: r.vessel_id,
+});
+
+/** Locks the survey row for this transaction (SELECT … FOR UPDATE); undefined when the org has no such survey. */
+export async function lockSurvey(trx: Knex.Transaction, orgId: string, id: string): Promise<SurveyState | undefined> {
+  const row = await trx<SurveyRow>('surveys')
+    .where({ id, organisation_id: orgId })
+    .forUpdate()
+    .first('id', 'organisation_id', 'doc', 'revision', 'field_revisions', 'status', 'vessel_id');
+  return row ? toState(row) : undefined;
+}
+
+export async function surveyIdTaken(db: Q, id: string): Promise<boolean> {
+  return Boolean(await db('surveys').where({ id }).first('id'));
+}
+
+/** The vessel of this name in the organisation, made when new. */
+export async function findOrCreateVessel(db: Q, orgId: string, vessel: { name: string; imo?: string }): Promise<string> {
+  const found = await db('vessels').where({ organisation_id: orgId }).whereRaw('lower(name) = lower(?)', [vessel.name]).first('id');
+  if (found) return found.id;
+  const [row] = await db.raw(
+    `INSERT INTO vessels (organisation_id, name, imo) VALUES (?, ?, ?)
+     ON CONFLICT (organisation_id, lower(name)) DO UPDATE SET name = vessels.name RETURNING id`,
+    [orgId, vessel.name, vessel.imo ?? null],
+  ).then((r: { rows: { id: string }[] }) => r.rows);
+  return row.id;
+}
+
+export interface SurveyColumns {
+  doc: Survey;
+  revision: number;
+  revs: FieldRevisions;
+  title: string;
+  vesselName: string;
+  vesselId: string | null;
+  soundingsAt: string | null;
+}
+
+export async function insertSurvey(
+  db: Q,
+  s: SurveyColumns & { id: string; orgId: string; createdBy: string },
+): Promise<void> {
+  await db('surveys').insert({
+    id: s.id,
+    organisation_id: s.orgId,
+    vessel_id: s.vesselId,
+    vessel_name: s.vesselName,
+    title: s.title,
+    created_by: s.createdBy,
+    doc: json(s.doc),
+    revision: s.revision,
+    field_revisions: json(s.revs),
+    soundings_at: s.soundingsAt,
+  });
+}
+
+export async function updateSurvey(db: Q, id: string, s: SurveyColumns): Promise<void> {
+  await db('surveys')
+    .where({ id })
+    .update({
+      doc: json(s.doc),
+      revision: s.revision,
+      field_revisions: json(s.revs),
+      title: s.title,
+      vessel_name: s.vesselName,
+      vessel_id: s.vesselId,
+      soundings_at: s.soundingsAt,
+      updated_at: db.fn.now(),
+    });
+}
+
+export interface RevisionRow {
+  surveyId: string;
+  revision: number;
+  orgId: string;
+  userId: string;
+  deviceId: string | null;
+  changeId: string | null;
+  changes: FieldChange[];
+}
+
+export async function insertRevisions(db: Q, rows: RevisionRow[]): Promise<void> {
+  if (rows.length === 0) return;
+  await db('survey_revisions').insert(
+    rows.map((r) => ({
+      survey_id: r.surveyId,
+      revision: r.revision,
+      organisation_id: r.orgId,
+      user_id: r.userId,
+      device_id: r.deviceId,
+      change_id: r.changeId,
+      changes: json(r.changes),
+    })),
+  );
+}
+
+export const insertRevision = (db: Q, r: RevisionRow) => insertRevisions(db, [r]);
+
+export async function revisionAuthor(db: Q, surveyId: string, revision: number): Promise<string | null> {
+  const row = await db('survey_revisions').where({ survey_id: surveyId, revision }).first('user_id');
+  return row?.user_id ?? null;
+}
+
+export interface ProcessedChange {
+  orgId: string;
+  status: Exclude<PushStatus, 'duplicate'>;
+  revision: number | null;
+  reason: string | null;
+  conflictIds: string[];
+}
+
+/** The recorded outcomes of changes already processed, by change id (matched by (device, seq) or by id). */
+export async function findProcessedMany(
+  db: Q,
+  changes: { id: string; deviceId: string; seq: number }[],
+): Promise<Map<string, ProcessedChange>> {
+  const out = new Map<string, ProcessedChange>();
+  if (changes.length === 0) return out;
+  const rows = await db('processed_changes')
+    .whereIn(['device_id', 'seq'], changes.map((c) => [c.deviceId, c.seq]))
+    .orWhereIn('change_id', changes.map((c) => c.id))
+    .select('device_id', 'seq', 'change_id', 'organisation_id', 'status', 'revision', 'reason', 'conflict_ids');
+  for (const c of changes) {
+    const row = rows.find((r) => r.change_id === c.id || (r.device_id === c.deviceId && r.seq === c.seq));
+    if (row) {
+      out.set(c.id, {
+        orgId: row.organisation_id,
+        status: row.status,
+        revision: row.revision,
+        reason: row.reason,
+        conflictIds: row.conflict_ids ?? [],
+      });
+    }
+  }
+  return out;
+}
+
+export interface ProcessedRow {
+  deviceId: string;
+  seq: number;
+  changeId: string;
+  orgId: string;
+  surveyId: string;
+  userId: string;
+  status: Exclude<PushStatus, 'duplicate'>;
+  revision: number | null;
+  reason: string | null;
+  conflictIds: string[];
+}
+
+/** Records outcomes; returns how many were new (fewer than given when another transaction got there first). */
+export async function insertProcessedMany(db: Q, rows: ProcessedRow[]): Promise<number> {
+  if (rows.length === 0) return 0;
+  const inserted = await db('processed_changes')
+    .insert(
+      rows.map((p) => ({
+        device_id: p.deviceId,
+        seq: p.seq,
+        change_id: p.changeId,
+        organisation_id: p.orgId,
+        survey_id: p.surveyId,
+        user_id: p.userId,
+        status: p.status,
+        revision: p.revision,
+        reason: p.reason,
+        conflict_ids: json(p.conflictIds),
+      })),
+    )
+    .onConflict()
+    .ignore()
+    .returning('seq');
+  return inserted.length;
+}
+
+// ---- conflicts ----
+
+const CONFLICT_COLUMNS = [
+  'c.id',
+  'c.survey_id',
+  'c.target',
+  'c.proposed',
+  'c.kept',
+  'c.base_revision',
+  'c.kept_revision',
+  'c.proposed_device_id',
+  'c.change_id',
+  'c.status',
+  'c.created_at',
+  'c.resolved_at',
+  'pu.id as proposed_by_id',
+  'pu.name as proposed_by_name',
+  'ku.id as kept_by_id',
+  'ku.name as kept_by_name',
+  'ru.id as resolved_by_id',
+  'ru.name as resolved_by_name',
+];
+
+interface ConflictRow {
+  id: string;
+  survey_id: string;
+  target: ConflictTarget;
+  proposed: unknown;
+  kept: unknown;
+  base_revision: number;
+  kept_revision: number;
+  proposed_device_id: string;
+  change_id: string;
+  status: 'open' | 'resolved';
+  created_at: Date;
+  resolved_at: Date | null;
+  proposed_by_id: string;
+  proposed_by_name: string;
+  kept_by_id: string | null;
+  kept_by_name: string | null;
+  resolved_by_id: string | null;
+  resolved_by_name: string | null;
+}
+
+const toConflict = (r: ConflictRow): Conflict => ({
+  id: r.id,
+  surveyId: r.survey_id,
+  target: r.target,
+  proposed: r.proposed ?? null,
+  kept: r.kept ?? null,
+  baseRevision: r.base_revision,
+  keptRevision: r.kept_revision,
+  proposedBy: { id: r.proposed_by_id, name: r.proposed_by_name },
+  proposedDeviceId: r.proposed_device_id,
+  keptBy: r.kept_by_id ? { id: r.kept_by_id, name: r.kept_by_name ?? '' } : null,
+  changeId: r.change_id,
+  status: r.status,
+  createdAt: iso(r.created_at)!,
+  resolvedAt: iso(r.resolved_at),
+  resolvedBy: r.resolved_by_id ? { id: r.resolved_by_id, name: r.resolved_by_name ?? '' } : null,
+});
+
+const conflictQuery = (db: Q) =>
+  db('survey_conflicts as c')
+    .join('users as pu', 'pu.id', 'c.proposed_by')
+    .leftJoin('users as ku', 'ku.id', 'c.kept_by')
+    .leftJoin('users as ru', 'ru.id', 'c.resolved_by');
+
+export async function insertConflict(
+  db: Q,
+  c: {
+    id: string;
+    orgId: string;
+    surveyId: string;
+    target: ConflictTarget;
+    proposed: unknown;
+    kept: unknown;
+    baseRevision: number;
+    keptRevision: number;
+    keptBy: string | null;
+    keptDeviceId: string | null;
+    proposedBy: string;
+    proposedDeviceId: string;
+    changeId: string;
+  },
+): Promise<void> {
+  await db('survey_conflicts').insert({
+    id: c.id,
+    organisation_id: c.orgId,
+    survey_id: c.surveyId,
+    target: json(c.target),
+    proposed: json(c.proposed),
+    kept: json(c.kept),
+    base_revision: c.baseRevision,
+    kept_revision: c.keptRevision,
+    kept_by: c.keptBy,
+    kept_device_id: c.keptDeviceId,
+    proposed_by: c.proposedBy,
+    proposed_device_id: c.proposedDeviceId,
+    change_id: c.changeId,
+  });
+}
+
+export async function findConflicts(db: Q, orgId: string, ids: string[]): Promise<Conflict[]> {
+  if (ids.length === 0) return [];
+  const rows = await conflictQuery(db).where('c.organisation_id', orgId).whereIn('c.id', ids).select<ConflictRow[]>(CONFLICT_COLUMNS);
+  return rows.map(toConflict);
+}
+
+export async function lockConflict(
+  trx: Knex.Transaction,
+  orgId: string,
+  id: string,
+): Promise<{ surveyId: string; status: 'open' | 'resolved'; target: ConflictTarget } | undefined> {
+  const row = await trx('survey_conflicts').where({ id, organisation_id: orgId }).forUpdate().first('survey_id', 'status', 'target');
+  return row ? { surveyId: row.survey_id, status: row.status, target: row.target } : undefined;
+}
+
+export async function markConflictResolved(db: Q, id: string, userId: string, changeId: string): Promise<void> {
+  await db('survey_conflicts')
+    .where({ id })
+    .update({ status: 'resolved', resolved_at: db.fn.now(), resolved_by: userId, resolution_change_id: changeId });
+}
+
+export async function surveyConflicts(db: Q, orgId: string, surveyId: string, status?: 'open'): Promise<Conflict[]> {
+  const q = conflictQuery(db).where({ 'c.organisation_id': orgId, 'c.survey_id': surveyId });
+  if (status) q.andWhere('c.status', status);
+  const rows = await q.orderBy('c.created_at').select<ConflictRow[]>(CONFLICT_COLUMNS);
+  return rows.map(toConflict);
+}
+
+/** Conflicts of the organisation written by transactions at or after `sinceXid`. */
+export async function conflictsSince(db: Q, orgId: string, sinceXid: string): Promise<Conflict[]> {
+  const rows = await conflictQuery(db)
+    .where('c.organisation_id', orgId)
+    .andWhereRaw('c.change_xid >= ?::xid8', [sinceXid])
+    .orderBy('c.created_at')
+    .limit(5000)
+    .select<ConflictRow[]>(CONFLICT_COLUMNS);
+  return rows.map(toConflict);
+}
+
+// ---- reading surveys ----
+
+const SUMMARY_COLUMNS = [
+  's.id',
+  's.title',
+  's.vessel_name',
+  's.status',
+  's.revision',
+  's.created_at',
+  's.updated_at',
+  's.soundings_at',
+  'u.id as created_by_id',
+  'u.name as created_by_name',
+];
+
+interface SummaryRow {
+  id: string;
+  title: string;
+  vessel_name: string;
+  status: SurveyStatus;
+  revision: number;
+  created_at: Date;
+  updated_at: Date;
+  soundings_at: Date | null;
+  created_by_id: string;
+  created_by_name: string;
+  open_conflicts: number;
+}
+
+const toSummary = (r: SummaryRow): SurveySummary => ({
+  id: r.id,
+  title: r.title,
+  vesselName: r.vessel_name,
+  status: r.status,
+  revision: r.revision,
+  createdBy: { id: r.created_by_id, name: r.created_by_name },
+  createdAt: iso(r.created_at)!,
+  updatedAt: iso(r.updated_at)!,
+  soundingsAt: iso(r.soundings_at),
+  openConflicts: Number(r.open_conflicts ?? 0),
+});
+
+const summaryQuery = (db: Q) =>
+  db('surveys as s')
+    .join('users as u', 'u.id', 's.created_by')
+    .select(SUMMARY_COLUMNS)
+    .select(
+      db.raw(`(SELECT count(*) FROM survey_conflicts sc WHERE sc.survey_id = s.id AND sc.status = 'open')::int AS open_conflicts`),
+    );
+
+const SORT_COLUMNS: Record<ListSurveysQuery['sort'], string> = {
+  updated: 's.updated_at',
+  created: 's.created_at',
+  title: 'lower(s.title)',
+  vessel: 'lower(s.vessel_name)',
+  soundings: 's.soundings_at',
+  status: 's.status',
+};
+
+export async function listSurveys(db: Q, orgId: string, q: ListSurveysQuery): Promise<{ items: SurveySummary[]; total: number }> {
+  const filter = (qb: Knex.QueryBuilder) => {
+    qb.where('s.organisation_id', orgId);
+    if (q.status?.length) qb.whereIn('s.status', q.status);
+    if (q.q) {
+      const like = `%${q.q.replace(/[\\%_]/g, (m) => `\\${m}`)}%`;
+      qb.andWhere((w) => w.whereILike('s.title', like).orWhereILike('s.vessel_name', like));
+    }
+    return qb;
+  };
+  const [{ count }] = await filter(db('surveys as s')).count<{ count: number }[]>('* as count');
+  const dir = q.order === 'asc' ? 'ASC' : 'DESC';
+  const rows = await filter(summaryQuery(db))
+    .orderByRaw(`${SORT_COLUMNS[q.sort]} ${dir} NULLS LAST, s.id ${dir}`)
+    .limit(q.pageSize)
+    .offset((q.page - 1) * q.pageSize);
+  return { items: (rows as SummaryRow[]).map(toSummary), total: Number(count) };
+}
+
+export async function findSurvey(db: Q, orgId: string, id: string): Promise<(SurveySummary & { doc: Survey }) | undefined> {
+  const row = await summaryQuery(db).select('s.doc').where({ 's.id': id, 's.organisation_id': orgId }).first();
+  return row ? { ...toSummary(row as SummaryRow), doc: (row as { doc: Survey }).doc } : undefined;
+}
+
+/** As findSurvey, with the document as its stored JSON text (no parse and re-serialise for a read). */
+export async function findSurveyRaw(db: Q, orgId: string, id: string): Promise<(SurveySummary & { docJson: string }) | undefined> {
+  const row = await summaryQuery(db).select(db.raw('s.doc::text AS doc_json')).where({ 's.id': id, 's.organisation_id': orgId }).first();
+  return row ? { ...toSummary(row as SummaryRow), docJson: (row as { doc_json: string }).doc_json } : undefined;
+}
+
+// ---- results ----
+
+/** The most recent results of a survey with the results as JSON text. */
+export async function latestResultsRaw(
+  db: Q,
+  surveyId: string,
+  engineVersion: string,
+): Promise<(Omit<SurveyResults, 'results'> & { resultsJson: string }) | undefined> {
+  const row = await db('survey_results')
+    .where({ survey_id: surveyId, engine_version: engineVersion })
+    .orderBy('revision', 'desc')
+    .first('revision', 'engine_version', 'error', 'computed_at', db.raw("coalesce(results::text, 'null') AS results_json"));
+  return row
+    ? { revision: row.revision, engineVersion: row.engine_version, error: row.error, computedAt: iso(row.computed_at)!, resultsJson: row.results_json }
+    : undefined;
+}
+
+export async function findResults(db: Q, surveyId: string, revision: number, engineVersion: string): Promise<SurveyResults | undefined> {
+  const row = await db('survey_results')
+    .where({ survey_id: surveyId, revision, engine_version: engineVersion })
+    .first('revision', 'engine_version', 'results', 'error', 'computed_at');
+  return row
+    ? { revision: row.revision, engineVersion: row.engine_version, results: row.results, error: row.error, computedAt: iso(row.computed_at)! }
+    : undefined;
+}
+
+/** The most recent results stored for a survey with this engine version. */
+export async function latestResults(db: Q, surveyId: string, engineVersion: string): Promise<SurveyResults | undefined> {
+  const row = await db('survey_results')
+    .where({ survey_id: surveyId, engine_version: engineVersion })
+    .orderBy('revision', 'desc')
+    .first('revision', 'engine_version', 'results', 'error', 'computed_at');
+  return row
+    ? { revision: row.revision, engineVersion: row.engine_version, results: row.results, error: row.error, computedAt: iso(row.computed_at)! }
+    : undefined;
+}
+
+export async function currentDoc(db: Q, id: string): Promise<{ doc: Survey; revision: number } | undefined> {
+  return db('surveys').where({ id }).first('doc', 'revision');
+}
+
+export async function insertResults(
+  db: Q,
+  r: { surveyId: string; revision: number; engineVersion: string; results: unknown; error: string | null },
+): Promise<void> {
+  await db('survey_results')
+    .insert({ survey_id: r.surveyId, revision: r.revision, engine_version: r.engineVersion, results: json(r.results), error: r.error })
+    .onConflict(['survey_id', 'revision', 'engine_version'])
+    .ignore();
+}
+
+// ---- pull ----
+
+/** The oldest transaction still running: everything older is settled (committed or rolled back). */
+export async function snapshotXmin(trx: Knex.Transaction): Promise<string> {
+  const r = await trx.raw('SELECT pg_snapshot_xmin(pg_current_snapshot())::text AS xmin');
+  return r.rows[0].xmin;
+}
+
+/** Surveys of the organisation written at or after `floor` (or after the `after` position), in xid order. */
+export async function surveysChangedSince(
+  trx: Knex.Transaction,
+  orgId: string,
+  from: { floor: string } | { after: [string, string] },
+  limit: number,
+): Promise<(SyncedSurvey & { xid: string })[]> {
+  const q = trx('surveys as s')
+    .join('users as u', 'u.id', 's.created_by')
+    .where('s.organisation_id', orgId)
+    .select('s.id', 's.revision', 's.status', 's.doc', 's.updated_at', 'u.id as created_by_id', 'u.name as created_by_name')
+    .select(trx.raw('s.change_xid::text AS xid'))
+    .orderByRaw('s.change_xid, s.id')
+    .limit(limit);
+  if ('floor' in from) q.andWhereRaw('s.change_xid >= ?::xid8', [from.floor]);
+  else q.andWhereRaw('(s.change_xid, s.id) > (?::xid8, ?::uuid)', from.after);
+  const rows = await q;
+  return rows.map((r) => ({
+    id: r.id,
+    revision: r.revision,
+    status: r.status,
+    doc: r.doc,
+    createdBy: { id: r.created_by_id, name: r.created_by_name },
+    updatedAt: iso(r.updated_at)!,
+    xid: r.xid,
+  }));
+}

@@ -1,0 +1,172 @@
+/**
+ * Surveys on the server: listing, reading (with the engine results of the current revision,
+ * recomputed here with the same engine the device runs) and creating one directly.
+ */
+import { randomUUID } from 'node:crypto';
+import type { Knex } from 'knex';
+import { computeSurvey, ENGINE_VERSION } from '@shared/engine';
+import type { Survey } from '@shared/schemas/survey';
+import type { ListSurveysQuery, SurveyDetail, SurveyListResponse, SurveyResults } from '@shared/schemas/sync';
+import type { Db } from '../db/knex';
+import type { AuthContext } from '../http/auth-context';
+import { conflict, notFound } from '../http/errors';
+import * as repo from '../db/repositories/surveys';
+
+/** Time of the active condition's soundings, for lists and the brief. */
+export function soundingsAt(doc: Survey): string | null {
+  return doc.conditions.find((c) => c.id === doc.activeConditionId)?.time ?? null;
+}
+
+/** The denormalised columns kept beside a document. */
+export async function columnsOf(
+  db: Db | Knex.Transaction,
+  orgId: string,
+  doc: Survey,
+  revision: number,
+  revs: repo.SurveyColumns['revs'],
+  /** The vessel row already linked, and the name it was linked under: reused while the name is unchanged. */
+  known?: { vesselId: string | null; vesselName: string },
+): Promise<repo.SurveyColumns> {
+  const vesselId =
+    known?.vesselId && known.vesselName.toLowerCase() === doc.vessel.name.toLowerCase()
+      ? known.vesselId
+      : await repo.findOrCreateVessel(db, orgId, { name: doc.vessel.name, imo: doc.vessel.imo });
+  return { doc, revision, revs, title: doc.title, vesselName: doc.vessel.name, vesselId, soundingsAt: soundingsAt(doc) };
+}
+
+/** Runs the engine on a document; a failure is stored as the result's error, never thrown. */
+export function runEngine(doc: Survey): { results: unknown; error: string | null } {
+  try {
+    return { results: computeSurvey(doc), error: null };
+  } catch (err) {
+    return { results: null, error: err instanceof Error ? err.message : String(err) };
+  }
+}
+
+/** The stored results of a revision, computed and stored first if missing (e.g. after a crash). */
+export async function ensureResults(db: Db, surveyId: string, revision: number, doc: Survey): Promise<SurveyResults> {
+  const found = await repo.findResults(db, surveyId, revision, ENGINE_VERSION);
+  if (found) return found;
+  const { results, error } = runEngine(doc);
+  await repo.insertResults(db, { surveyId, revision, engineVersion: ENGINE_VERSION, results, error });
+  return (await repo.findResults(db, surveyId, revision, ENGINE_VERSION))!;
+}
+
+export async function listSurveys(db: Db, auth: AuthContext, q: ListSurveysQuery): Promise<SurveyListResponse> {
+  const { items, total } = await repo.listSurveys(db, auth.orgId, q);
+  return { items, total, page: q.page, pageSize: q.pageSize };
+}
+
+/**
+ * One survey with its open conflicts and engine results. The results are those of the current
+ * revision when `fresh` (computed now if needed); otherwise the latest stored ones, which may be of
+ * an earlier revision while a burst of edits is still arriving (their `revision` says which) — the
+ * recomputation of the latest revision is then already scheduled.
+ */
+export async function getSurvey(
+  db: Db,
+  auth: AuthContext,
+  id: string,
+  opts: { fresh?: boolean; scheduler?: ResultsScheduler } = {},
+): Promise<SurveyDetail> {
+  const s = await repo.findSurvey(db, auth.orgId, id);
+  if (!s) throw notFound('No survey with this id in your organisation.');
+  const latest = opts.fresh ? undefined : await repo.latestResults(db, id, ENGINE_VERSION);
+  let results: SurveyResults;
+  if (latest) {
+    results = latest;
+    if (latest.revision < s.revision) opts.scheduler?.schedule(id);
+  } else {
+    results = await ensureResults(db, id, s.revision, s.doc);
+  }
+  const conflicts = await repo.surveyConflicts(db, auth.orgId, id, 'open');
+  return { ...s, results, conflicts };
+}
+
+/**
+ * The same answer as getSurvey (latest stored results), as JSON text: the document and the results
+ * go out as PostgreSQL stored them, without being parsed and serialised again — the costly part of
+ * reading a large survey.
+ */
+export async function getSurveyJson(db: Db, auth: AuthContext, id: string, scheduler?: ResultsScheduler): Promise<string> {
+  const s = await repo.findSurveyRaw(db, auth.orgId, id);
+  if (!s) throw notFound('No survey with this id in your organisation.');
+  const results = await repo.latestResultsRaw(db, id, ENGINE_VERSION);
+  if (!results) return JSON.stringify(await getSurvey(db, auth, id, { scheduler }));
+  if (results.revision < s.revision) scheduler?.schedule(id);
+  const conflicts = await repo.surveyConflicts(db, auth.orgId, id, 'open');
+  const mark = `"@raw-${randomUUID()}-`;
+  const { docJson, ...summary } = s;
+  const { resultsJson, ...meta } = results;
+  return JSON.stringify({ ...summary, doc: `${mark.slice(1)}doc`, results: { ...meta, results: `${mark.slice(1)}results` }, conflicts })
+    .replace(`${mark}doc"`, () => docJson)
+    .replace(`${mark}results"`, () => resultsJson);
+}
+
+export interface ResultsScheduler {
+  /** Recompute this survey's latest revision soon (coalesced: one run for a burst of edits). */
+  schedule: (surveyId: string) => void;
+  /** Runs everything scheduled now (tests, shutdown). */
+  flush: () => Promise<void>;
+}
+
+/**
+ * Recomputes results after pushes without holding up the push: each survey is computed at most
+ * once per `delayMs`, always at its latest revision, one at a time, so a burst of edits costs one
+ * engine run and the API stays responsive under load.
+ */
+export function createResultsScheduler(db: Db, onError: (err: unknown) => void, delayMs = 2000): ResultsScheduler {
+  const due = new Set<string>();
+  let timer: ReturnType<typeof setTimeout> | undefined;
+  let running: Promise<void> = Promise.resolve();
+  const run = async () => {
+    timer = undefined;
+    const ids = [...due];
+    due.clear();
+    for (const id of ids) {
+      try {
+        const row = await repo.currentDoc(db, id);
+        if (row) await ensureResults(db, id, row.revision, row.doc);
+      } catch (err) {
+        onError(err);
+      }
+    }
+  };
+  return {
+    schedule(surveyId) {
+      due.add(surveyId);
+      if (!timer) {
+        timer = setTimeout(() => {
+          running = running.then(run);
+        }, delayMs);
+        timer.unref?.();
+      }
+    },
+    async flush() {
+      clearTimeout(timer);
+      running = running.then(run);
+      await running;
+    },
+  };
+}
+
+/** Creates a survey from a whole document (import, or a client that is online). */
+export async function createSurvey(db: Db, auth: AuthContext, doc: Survey, deviceId: string | null = null): Promise<SurveyDetail> {
+  await db.transaction(async (trx) => {
+    if (await repo.surveyIdTaken(trx, doc.id)) throw conflict('A survey with this id already exists.');
+    await repo.insertSurvey(trx, { id: doc.id, orgId: auth.orgId, createdBy: auth.userId, ...(await columnsOf(trx, auth.orgId, doc, 1, {})) });
+    await repo.insertRevision(trx, {
+      surveyId: doc.id,
+      revision: 1,
+      orgId: auth.orgId,
+      userId: auth.userId,
+      deviceId,
+      changeId: null,
+      changes: [{ entity: 'survey', field: null, old: null, new: 'created' }],
+    });
+  }).catch((err: { code?: string }) => {
+    if (err?.code === '23505') throw conflict('A survey with this id already exists.');
+    throw err;
+  });
+  return getSurvey(db, auth, doc.id);
+}

@@ -1,0 +1,351 @@
+/**
+ * Surveys and sync on a real PostgreSQL: list and read, exactly-once push under repeats and
+ * concurrency, merging and conflicts between devices, refused changes, size limits, and pull paging.
+ */
+import { randomUUID } from 'node:crypto';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { ENGINE_VERSION } from '@shared/engine';
+import { ErrorBodySchema } from '@shared/api/errors';
+import {
+  PullResponseSchema,
+  PushResponseSchema,
+  SurveyDetailSchema,
+  SurveyListResponseSchema,
+  type PushResponse,
+  type SurveyChange,
+} from '@shared/schemas/sync';
+import type { Survey } from '@shared/schemas/survey';
+import { startTestApp, type TestApp } from '../support/app';
+import { createOrgWithMembers, type TestOrg } from '../support/auth';
+import { change, newSurvey, storeSurvey, tokenFor } from '../support/surveys';
+import { SimDevice } from '../support/sync-device';
+
+let t: TestApp;
+let org: TestOrg;
+let other: TestOrg;
+let surveyorToken: string;
+let engineerToken: string;
+let otherToken: string;
+
+beforeAll(async () => {
+  t = await startTestApp();
+  org = await createOrgWithMembers(t.db);
+  other = await createOrgWithMembers(t.db);
+  surveyorToken = await tokenFor(t.config.JWT_SECRET, org.surveyor);
+  engineerToken = await tokenFor(t.config.JWT_SECRET, org.engineer);
+  otherToken = await tokenFor(t.config.JWT_SECRET, other.admin);
+});
+afterAll(async () => {
+  await t?.close();
+});
+
+const h = (token: string) => ({ authorization: `Bearer ${token}`, 'content-type': 'application/json' });
+
+async function pushRaw(token: string, changes: SurveyChange[]): Promise<PushResponse> {
+  const res = await fetch(`${t.url}/api/sync/push`, { method: 'POST', headers: h(token), body: JSON.stringify({ changes }) });
+  expect(res.status, await res.clone().text()).toBe(200);
+  return PushResponseSchema.parse(await res.json());
+}
+
+async function serverSurvey(id: string) {
+  const row = await t.db('surveys').where({ id }).first('doc', 'revision', 'status');
+  return row as { doc: Survey; revision: number; status: string };
+}
+
+const fluid = (id: string, densityKgM3: number, name = `Test fluid ${id}`) => ({
+  id,
+  name,
+  category: 'oil' as const,
+  densityKgM3,
+});
+
+describe('GET /api/surveys and /api/surveys/:id', () => {
+  it('lists the organisation’s surveys with filters, sort and pages, and never another firm’s', async () => {
+    const tag = randomUUID().slice(0, 8);
+    const made: Survey[] = [];
+    for (let i = 0; i < 5; i++) made.push(await storeSurvey(t.db, org.surveyor, { title: `List ${tag} ${i}` }));
+    await t.db('surveys').where({ id: made[4].id }).update({ status: 'submitted' });
+
+    const page1 = SurveyListResponseSchema.parse(
+      await (await fetch(`${t.url}/api/surveys?q=${tag}&sort=title&order=asc&pageSize=2`, { headers: h(surveyorToken) })).json(),
+    );
+    expect(page1.total).toBe(5);
+    expect(page1.items.map((s) => s.title)).toEqual([`List ${tag} 0`, `List ${tag} 1`]);
+    expect(page1.items[0].createdBy.id).toBe(org.surveyor.id);
+    expect(page1.items[0].soundingsAt).toBeTruthy();
+
+    const page3 = SurveyListResponseSchema.parse(
+      await (await fetch(`${t.url}/api/surveys?q=${tag}&sort=title&order=asc&pageSize=2&page=3`, { headers: h(surveyorToken) })).json(),
+    );
+    expect(page3.items.map((s) => s.title)).toEqual([`List ${tag} 4`]);
+
+    const submitted = SurveyListResponseSchema.parse(
+      await (await fetch(`${t.url}/api/surveys?q=${tag}&status=submitted,in_review`, { headers: h(engineerToken) })).json(),
+    );
+    expect(submitted.items.map((s) => s.id)).toEqual([made[4].id]);
+
+    const theirs = SurveyListResponseSchema.parse(await (await fetch(`${t.url}/api/surveys?q=${tag}`, { headers: h(otherToken) })).json());
+    expect(theirs.total).toBe(0);
+
+    const bad = await fetch(`${t.url}/api/surveys?status=sunk`, { headers: h(surveyorToken) });
+    expect(bad.status).toBe(400);
+    expect(ErrorBodySchema.parse(await bad.json()).error.code).toBe('validation_failed');
+  });
+
+  it('reads one survey with its server-computed results, and answers 404 to another firm', async () => {
+    const s = await storeSurvey(t.db, org.surveyor);
+    const res = await fetch(`${t.url}/api/surveys/${s.id}`, { headers: h(engineerToken) });
+    expect(res.status).toBe(200);
+    const detail = SurveyDetailSchema.parse(await res.json());
+    expect(detail.revision).toBe(1);
+    expect(detail.status).toBe('draft');
+    expect(detail.doc.title).toBe(s.title);
+    expect(detail.results).toMatchObject({ revision: 1, engineVersion: ENGINE_VERSION, error: null });
+    expect(detail.results?.results).toBeTruthy();
+    // The second read sends the stored JSON as it is: the same answer.
+    const again = SurveyDetailSchema.parse(await (await fetch(`${t.url}/api/surveys/${s.id}`, { headers: h(engineerToken) })).json());
+    expect(again).toEqual(detail);
+
+    const theirs = await fetch(`${t.url}/api/surveys/${s.id}`, { headers: h(otherToken) });
+    expect(theirs.status).toBe(404);
+    const signedOut = await fetch(`${t.url}/api/surveys/${s.id}`);
+    expect(signedOut.status).toBe(401);
+  });
+
+  it('creates with POST and refuses an id that exists, and an invalid survey with field details', async () => {
+    const survey = newSurvey();
+    const res = await fetch(`${t.url}/api/surveys`, { method: 'POST', headers: h(surveyorToken), body: JSON.stringify({ survey }) });
+    expect(res.status).toBe(201);
+    const again = await fetch(`${t.url}/api/surveys`, { method: 'POST', headers: h(surveyorToken), body: JSON.stringify({ survey }) });
+    expect(again.status).toBe(409);
+    const broken = { ...newSurvey(), activeConditionId: randomUUID() };
+    const bad = await fetch(`${t.url}/api/surveys`, { method: 'POST', headers: h(surveyorToken), body: JSON.stringify({ survey: broken }) });
+    expect(bad.status).toBe(400);
+    const body = ErrorBodySchema.parse(await bad.json());
+    expect(JSON.stringify(body.error.details)).toContain('activeConditionId');
+  });
+});
+
+describe('POST /api/sync/push', () => {
+  it('applies the same 100-change batch pushed 10 times, 5 of them at once, exactly once', async () => {
+    const device = randomUUID();
+    const survey = newSurvey();
+    const batch: SurveyChange[] = [change(device, survey.id, { kind: 'create', survey })];
+    for (let i = 0; i < 99; i++) {
+      batch.push(
+        i % 3 === 0
+          ? change(device, survey.id, { kind: 'set', path: 'title', value: `Title ${i}` })
+          : change(device, survey.id, { kind: 'upsert', collection: 'fluids', entity: fluid(`f-${i}`, 850 + i) }),
+      );
+    }
+    const concurrent = await Promise.all(Array.from({ length: 5 }, () => pushRaw(surveyorToken, batch)));
+    const sequential: PushResponse[] = [];
+    for (let i = 0; i < 5; i++) sequential.push(await pushRaw(surveyorToken, batch));
+    const all = [...concurrent, ...sequential];
+
+    // Each change is applied by exactly one of the ten pushes; the other nine call it a duplicate.
+    for (const c of batch) {
+      const statuses = all.map((r) => r.results.find((x) => x.changeId === c.id)!.status);
+      expect(statuses.filter((s) => s === 'applied')).toHaveLength(1);
+      expect(statuses.filter((s) => s === 'duplicate')).toHaveLength(9);
+    }
+    const s = await serverSurvey(survey.id);
+    expect(s.revision).toBe(100);
+    expect(s.doc.title).toBe('Title 96');
+    expect(s.doc.fluids).toHaveLength(survey.fluids.length + 66);
+    const revs = await t.db('survey_revisions').where({ survey_id: survey.id }).count<{ count: number }[]>('* as count');
+    expect(Number(revs[0].count)).toBe(100);
+    const processed = await t.db('processed_changes').where({ device_id: device }).count<{ count: number }[]>('* as count');
+    expect(Number(processed[0].count)).toBe(100);
+    const dupChanges = await t.db.raw(
+      'SELECT change_id FROM survey_revisions WHERE survey_id = ? GROUP BY change_id HAVING count(*) > 1',
+      [survey.id],
+    );
+    expect(dupChanges.rows).toHaveLength(0);
+  });
+
+  it('records every revision with who, which device and what changed (old → new), immutably', async () => {
+    const device = randomUUID();
+    const survey = newSurvey();
+    await pushRaw(surveyorToken, [
+      change(device, survey.id, { kind: 'create', survey }),
+      change(device, survey.id, { kind: 'set', path: 'title', value: 'Renamed' }),
+    ]);
+    const rev = await t.db('survey_revisions').where({ survey_id: survey.id, revision: 2 }).first();
+    expect(rev.user_id).toBe(org.surveyor.id);
+    expect(rev.device_id).toBe(device);
+    expect(rev.changes).toEqual([{ entity: 'survey', field: 'title', old: survey.title, new: 'Renamed' }]);
+    await expect(t.db('survey_revisions').where({ survey_id: survey.id, revision: 2 }).update({ changes: '[]' })).rejects.toThrow(/immutable/);
+  });
+
+  it('refuses a change that would break the survey, with a reason, and carries on with the rest', async () => {
+    const device = randomUUID();
+    const survey = newSurvey();
+    const boundary = survey.boundaries[0];
+    const res = await pushRaw(surveyorToken, [
+      change(device, survey.id, { kind: 'create', survey }),
+      change(device, survey.id, {
+        kind: 'upsert',
+        collection: 'boundaries',
+        entity: { ...boundary, id: randomUUID(), sideA: { kind: 'compartment', compartmentId: randomUUID() } },
+      }),
+      change(device, survey.id, { kind: 'set', path: 'title', value: 'Still applied' }),
+      change(device, randomUUID(), { kind: 'set', path: 'title', value: 'No such survey' }),
+      change(device, survey.id, { kind: 'set', path: 'casualtyDescription', value: 'NUL \u0000 inside' }),
+    ]);
+    expect(res.results.map((r) => r.status)).toEqual(['applied', 'rejected', 'applied', 'rejected', 'rejected']);
+    expect(res.results[4].reason).toMatch(/NUL/);
+    expect(res.results[1].reason).toMatch(/no compartment has this id/);
+    expect(res.results[3].reason).toMatch(/not on the server/);
+    expect((await serverSurvey(survey.id)).doc.title).toBe('Still applied');
+  });
+
+  it('never lets another firm touch a survey: its changes are refused and nothing changes', async () => {
+    const s = await storeSurvey(t.db, org.surveyor);
+    const res = await pushRaw(otherToken, [change(randomUUID(), s.id, { kind: 'set', path: 'title', value: 'Hijacked' })]);
+    expect(res.results[0].status).toBe('rejected');
+    expect((await serverSurvey(s.id)).doc.title).toBe(s.title);
+  });
+
+  it('answers a batch over 500 changes, or a body over 5 MB, with a readable 413', async () => {
+    const survey = newSurvey();
+    const device = randomUUID();
+    const many = Array.from({ length: 501 }, (_, i) => change(device, survey.id, { kind: 'set', path: 'title', value: `T${i}` }));
+    const res = await fetch(`${t.url}/api/sync/push`, { method: 'POST', headers: h(surveyorToken), body: JSON.stringify({ changes: many }) });
+    expect(res.status).toBe(413);
+    expect(ErrorBodySchema.parse(await res.json()).error.message).toMatch(/at most 500 changes/);
+
+    const huge = [change(device, survey.id, { kind: 'set', path: 'casualtyDescription', value: 'x'.repeat(6 * 1024 * 1024) })];
+    const big = await fetch(`${t.url}/api/sync/push`, { method: 'POST', headers: h(surveyorToken), body: JSON.stringify({ changes: huge }) });
+    expect(big.status).toBe(413);
+    expect(ErrorBodySchema.parse(await big.json()).error.code).toBe('payload_too_large');
+  });
+});
+
+describe('merging edits from two devices', () => {
+  async function twoDevices() {
+    const a = new SimDevice(t.url, surveyorToken);
+    const b = new SimDevice(t.url, engineerToken);
+    const survey = newSurvey();
+    a.create(survey);
+    await a.sync();
+    await b.pull();
+    expect(b.doc(survey.id)?.title).toBe(survey.title);
+    return { a, b, survey };
+  }
+
+  it('keeps both edits when two devices change different fields of the same boundary offline', async () => {
+    const { a, b, survey } = await twoDevices();
+    const bd = survey.boundaries[0];
+    a.edit(survey.id, { kind: 'upsert', collection: 'boundaries', entity: { ...bd, name: 'Renamed on A' } });
+    b.edit(survey.id, { kind: 'upsert', collection: 'boundaries', entity: { ...bd, notes: 'Shored on B' } });
+    await a.sync();
+    await b.sync();
+    await a.pull();
+    const merged = (await serverSurvey(survey.id)).doc.boundaries.find((x) => x.id === bd.id)!;
+    expect(merged.name).toBe('Renamed on A');
+    expect(merged.notes).toBe('Shored on B');
+    expect(a.doc(survey.id)).toEqual((await serverSurvey(survey.id)).doc);
+    expect(b.doc(survey.id)).toEqual((await serverSurvey(survey.id)).doc);
+    expect(b.conflicts.size).toBe(0);
+  });
+
+  it('keeps both values as a conflict when both change the same field, and settles it once', async () => {
+    const { a, b, survey } = await twoDevices();
+    const bd = survey.boundaries[1];
+    a.edit(survey.id, { kind: 'set', path: 'title', value: 'Title from A' });
+    a.edit(survey.id, { kind: 'upsert', collection: 'boundaries', entity: { ...bd, name: 'Name from A' } });
+    b.edit(survey.id, { kind: 'set', path: 'title', value: 'Title from B' });
+    b.edit(survey.id, { kind: 'upsert', collection: 'boundaries', entity: { ...bd, name: 'Name from B' } });
+    await a.sync();
+    const res = await b.push();
+    expect(res!.results.map((r) => r.status)).toEqual(['conflict', 'conflict']);
+    expect(res!.conflicts).toHaveLength(2);
+    const titleConflict = res!.conflicts.find((c) => c.target.kind === 'field')!;
+    expect(titleConflict).toMatchObject({ proposed: 'Title from B', kept: 'Title from A', status: 'open' });
+    expect(titleConflict.proposedBy.id).toBe(org.engineer.id);
+    expect(titleConflict.keptBy?.id).toBe(org.surveyor.id);
+    // Nothing silently overwritten: the server still has A's values…
+    expect((await serverSurvey(survey.id)).doc.title).toBe('Title from A');
+    // …and A hears of the conflict on its next pull.
+    await a.pull();
+    expect([...a.conflicts.values()].filter((c) => c.status === 'open')).toHaveLength(2);
+    const detail = SurveyDetailSchema.parse(await (await fetch(`${t.url}/api/surveys/${survey.id}`, { headers: h(surveyorToken) })).json());
+    expect(detail.conflicts).toHaveLength(2);
+    expect(detail.openConflicts).toBe(2);
+
+    // B chooses its own title; A, not yet knowing, tries to choose A's: the second choice is refused.
+    b.edit(survey.id, { kind: 'resolve-conflict', conflictId: titleConflict.id, target: titleConflict.target, value: 'Title from B' });
+    a.edit(survey.id, { kind: 'resolve-conflict', conflictId: titleConflict.id, target: titleConflict.target, value: 'Title from A' });
+    const rb = await b.push();
+    expect(rb!.results[0].status).toBe('applied');
+    const ra = await a.push();
+    expect(ra!.results[0].status).toBe('rejected');
+    expect(ra!.results[0].reason).toMatch(/already settled/);
+    await a.pull();
+    await b.pull();
+    const server = await serverSurvey(survey.id);
+    expect(server.doc.title).toBe('Title from B');
+    expect(a.doc(survey.id)).toEqual(server.doc);
+    expect(b.doc(survey.id)).toEqual(server.doc);
+    const row = await t.db('survey_conflicts').where({ id: titleConflict.id }).first();
+    expect(row.status).toBe('resolved');
+    expect(row.resolved_by).toBe(org.engineer.id);
+  });
+
+  it('records an edit on one device against a delete on the other as a conflict', async () => {
+    const { a, b, survey } = await twoDevices();
+    const bd = survey.boundaries[2];
+    a.edit(survey.id, { kind: 'upsert', collection: 'boundaries', entity: { ...bd, name: 'Edited on A' } });
+    b.edit(survey.id, { kind: 'delete', collection: 'boundaries', entityId: bd.id });
+    await a.sync();
+    const res = await b.push();
+    expect(res!.results[0].status).toBe('conflict');
+    expect(res!.conflicts[0]).toMatchObject({ target: { kind: 'entity', entityId: bd.id }, proposed: null });
+    expect((await serverSurvey(survey.id)).doc.boundaries.some((x) => x.id === bd.id)).toBe(true);
+  });
+
+  it('does not treat a device’s own earlier edits as a conflict', async () => {
+    const { a, survey } = await twoDevices();
+    a.edit(survey.id, { kind: 'set', path: 'title', value: 'One' });
+    await a.push();
+    a.edit(survey.id, { kind: 'set', path: 'title', value: 'Two' });
+    // Same base revision as the first edit, since this device has not pulled in between.
+    const res = await a.push();
+    expect(res!.results[0].status).toBe('applied');
+  });
+});
+
+describe('GET /api/sync/pull', () => {
+  it('pages through everything changed since a cursor, with an extras map, and only the caller’s firm', async () => {
+    const fresh = await createOrgWithMembers(t.db);
+    const token = await tokenFor(t.config.JWT_SECRET, fresh.surveyor);
+    const ids: string[] = [];
+    for (let i = 0; i < 5; i++) ids.push((await storeSurvey(t.db, fresh.surveyor)).id);
+    const seen: string[] = [];
+    let cursor = '0';
+    let pages = 0;
+    for (;;) {
+      const res = await fetch(`${t.url}/api/sync/pull?cursor=${cursor}&limit=2`, { headers: h(token) });
+      expect(res.status).toBe(200);
+      const body = PullResponseSchema.parse(await res.json());
+      if (pages === 0) expect(body.extras).toBeTypeOf('object');
+      seen.push(...body.surveys.map((s) => s.id));
+      cursor = body.cursor;
+      pages++;
+      if (!body.hasMore) break;
+    }
+    expect(pages).toBe(3);
+    expect(new Set(seen)).toEqual(new Set(ids));
+
+    // Nothing new since: an empty pull. One edit: only that survey comes back.
+    const empty = PullResponseSchema.parse(await (await fetch(`${t.url}/api/sync/pull?cursor=${cursor}`, { headers: h(token) })).json());
+    expect(empty.surveys).toHaveLength(0);
+    await pushRaw(token, [change(randomUUID(), ids[2], { kind: 'set', path: 'title', value: 'Edited' }, 1)]);
+    const after = PullResponseSchema.parse(await (await fetch(`${t.url}/api/sync/pull?cursor=${empty.cursor}`, { headers: h(token) })).json());
+    expect(after.surveys.map((s) => [s.id, s.revision, s.doc.title])).toEqual([[ids[2], 2, 'Edited']]);
+
+    const bad = await fetch(`${t.url}/api/sync/pull?cursor=drop%20table`, { headers: h(token) });
+    expect(bad.status).toBe(400);
+  });
+});
