@@ -1,3 +1,4 @@
+export {};
 /**
  * `npm run bench`: every benchmark in one run, each printing its own figures.
  * Targets: engine < 20 ms for 4,000 boundaries and ≥ 1,000× faster than quadrature; API ≥ 1,000 req/s

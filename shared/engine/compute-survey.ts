@@ -16,14 +16,18 @@ import {
   evalProfile,
   integratePlate,
   loadDiagram,
+  newPlateIntegration,
   plateToShip,
   polygonPlate,
-  stripMoments,
+  polygonPlateXYZ,
+  stripMomentsInto,
   type FlatPlate,
+  type PartLoad,
+  type PlateFrame,
   type PlateIntegration,
   type SignedShape,
 } from './plate';
-import { compartmentSolid, elevationRange, volumeBelow, type Polyhedron, type VolumeMoments } from './polyhedron';
+import { compartmentSolid, elevationRange, volumeBelow, type VolumeMoments } from './polyhedron';
 import { constantProfile, differenceProfile, layeredProfile, type PressureProfile } from './profile';
 import type {
   Aggregate,
@@ -60,16 +64,6 @@ interface ResolvedFluid {
   densityKgM3: number;
 }
 
-interface CompartmentState {
-  compartment: Compartment;
-  solid: Polyhedron;
-  profile: PressureProfile;
-  pGas: number;
-  permeability: number;
-  /** volume-below function (memoised per elevation) */
-  below: (eta: number) => VolumeMoments;
-}
-
 const NULL_POINT_TOL = 1e-12;
 
 export function computeSurvey(survey: Survey, options: ComputeOptions = {}): SurveyResults {
@@ -86,7 +80,8 @@ export function computeSurvey(survey: Survey, options: ComputeOptions = {}): Sur
 
   // ---- compartments: contents, profiles, volumes
   const contentsById = new Map(condition.contents.map((c) => [c.compartmentId, c]));
-  const states = new Map<string, CompartmentState>();
+  // only the pressure profiles outlive the compartment loop
+  const profiles = new Map<string, PressureProfile>();
   const compartmentResults: CompartmentResult[] = [];
   const ship = { water: acc(), oil: acc(), other: acc() };
   let totalInflow = 0;
@@ -159,7 +154,7 @@ export function computeSurvey(survey: Survey, options: ComputeOptions = {}): Sur
       prevTop = Math.max(prevTop, top);
     });
     const profile = layeredProfile(levels, pGas, g);
-    states.set(comp.id, { compartment: comp, solid, profile, pGas, permeability, below });
+    profiles.set(comp.id, profile);
 
     const inflow = compartmentInflow(comp, profile, frame, permeability, below, liquid.volume, warn);
     if (inflow) {
@@ -186,14 +181,18 @@ export function computeSurvey(survey: Survey, options: ComputeOptions = {}): Sur
   const seaProfile = layeredProfile([{ top: frame.waterlineElevation, densityKgM3: frame.seaDensityKgM3 }], 0, g);
   const airProfile = constantProfile(0);
   const sideProfile = (s: BoundarySide): PressureProfile =>
-    s.kind === 'sea' ? seaProfile : s.kind === 'air' ? airProfile : (states.get(s.compartmentId)?.profile ?? airProfile);
+    s.kind === 'sea' ? seaProfile : s.kind === 'air' ? airProfile : (profiles.get(s.compartmentId) ?? airProfile);
 
   // flat plates first, so children can be cut out of their parents
+  // (only parents and their openings are built ahead; every other plate is built, used and dropped
+  // in the main loop, so it never outlives a young-generation collection)
+  const parentIds = new Set<string>();
+  for (const b of survey.boundaries) if (b.parentBoundaryId) parentIds.add(b.parentBoundaryId);
   const plates = new Map<string, { plate: FlatPlate; pts: V3[] | null }>();
   for (const b of survey.boundaries) {
     const geom = b.geometry;
-    if (geom.kind === 'faceted') continue;
-    const built = buildFlat(geom, up);
+    if (geom.kind === 'faceted' || !(b.parentBoundaryId || parentIds.has(b.id))) continue;
+    const built = buildFlat(geom, up, !!b.parentBoundaryId);
     if (built) plates.set(b.id, built);
   }
   const openings = new Map<string, string[]>();
@@ -217,17 +216,28 @@ export function computeSurvey(survey: Survey, options: ComputeOptions = {}): Sur
     openings.set(b.parentBoundaryId, list);
   }
 
+  // boundaries between the same two spaces share one net profile
+  const netCache = new Map<PressureProfile, Map<PressureProfile, PressureProfile>>();
+  const netProfile = (pa: PressureProfile, pb: PressureProfile): PressureProfile => {
+    let byB = netCache.get(pa);
+    if (!byB) netCache.set(pa, (byB = new Map()));
+    let net = byB.get(pb);
+    if (!net) byB.set(pb, (net = differenceProfile(pa, pb)));
+    return net;
+  };
+
+  const withDiagrams = options.includeLoadDiagrams !== false;
   const boundaryResults: BoundaryResult[] = [];
   let maxU: number | null = null;
   let maxUId: string | null = null;
   const over: string[] = [];
   for (const b of survey.boundaries) {
     const pa = sideProfile(b.sideA), pb = sideProfile(b.sideB);
-    const net = differenceProfile(pa, pb);
+    const net = netProfile(pa, pb);
     const r =
       b.geometry.kind === 'faceted'
         ? facetedBoundary(b, b.geometry.facets.map((f) => f.vertices.map(fromPoint)), pa, pb, net, frame, warn)
-        : flatBoundary(b, plates.get(b.id), pa, pb, net, frame, openings.get(b.id) ?? [], options.includeLoadDiagrams !== false, warn);
+        : flatBoundary(b, plates.get(b.id) ?? buildFlat(b.geometry, up, false) ?? undefined, pa, pb, net, frame, openings.get(b.id) ?? [], withDiagrams, warn);
     if (!r) continue;
     boundaryResults.push(r);
     if (r.maxUtilisation !== null) {
@@ -394,16 +404,29 @@ function compartmentInflow(
   };
 }
 
-function buildFlat(geom: Exclude<Boundary['geometry'], { kind: 'faceted' }>, up: V3): { plate: FlatPlate; pts: V3[] | null } | null {
+const rectXYZ = new Array<number>(12);
+
+/**
+ * The flat plate of a boundary, and its 3D outline when `withOutline` (needed only to cut a child
+ * out of its parent).
+ */
+function buildFlat(geom: Exclude<Boundary['geometry'], { kind: 'faceted' }>, up: V3, withOutline: boolean): { plate: FlatPlate; pts: V3[] | null } | null {
   switch (geom.kind) {
     case 'polygon': {
       const pts = geom.vertices.map(fromPoint);
       return { plate: polygonPlate(pts, up), pts };
     }
     case 'rectangle': {
-      const o = fromPoint(geom.origin), eu = fromPoint(geom.edgeU), ev = fromPoint(geom.edgeV);
-      const pts: V3[] = [o, add(o, eu), add(add(o, eu), ev), add(o, ev)];
-      return { plate: polygonPlate(pts, up), pts };
+      const o = geom.origin, eu = geom.edgeU, ev = geom.edgeV;
+      // corners o, o + eu, (o + eu) + ev, o + ev
+      const ax = o.x + eu.x, ay = o.y + eu.y, az = o.z + eu.z;
+      const r = rectXYZ;
+      r[0] = o.x; r[1] = o.y; r[2] = o.z;
+      r[3] = ax; r[4] = ay; r[5] = az;
+      r[6] = ax + ev.x; r[7] = ay + ev.y; r[8] = az + ev.z;
+      r[9] = o.x + ev.x; r[10] = o.y + ev.y; r[11] = o.z + ev.z;
+      const pts: V3[] | null = withOutline ? [[r[0], r[1], r[2]], [r[3], r[4], r[5]], [r[6], r[7], r[8]], [r[9], r[10], r[11]]] : null;
+      return { plate: polygonPlateXYZ(r, 4, up), pts };
     }
     case 'circle':
       if (norm(fromPoint(geom.normal)) === 0) return null;
@@ -422,41 +445,72 @@ function sideResult(side: BoundarySide, profile: PressureProfile, forceN: number
   };
 }
 
+/** Plate-axes point (u, v) to a ship-axes result point (the arithmetic of plateToShip, without the tuple). */
+function platePoint(fr: PlateFrame, u: number, v: number): Point {
+  const o = fr.origin, U = fr.u, W = fr.v;
+  return { x: o[0] + u * U[0] + v * W[0], y: o[1] + u * U[1] + v * W[1], z: o[2] + u * U[2] + v * W[2] };
+}
+
+/** Direction of the earth-horizontal part of (fx, fy, fz), or null if it has none. */
+function horizontalDirection(fx: number, fy: number, fz: number, up: V3, vertical: number, hn: number): Point | null {
+  const fn = Math.sqrt(fx * fx + fy * fy + fz * fz);
+  if (!(hn > NULL_POINT_TOL * Math.max(1, fn))) return null;
+  const k = 1 / hn;
+  return { x: (fx - up[0] * vertical) * k, y: (fy - up[1] * vertical) * k, z: (fz - up[2] * vertical) * k };
+}
+
+function horizontalMagnitude(fx: number, fy: number, fz: number, up: V3, vertical: number): number {
+  const hx = fx - up[0] * vertical, hy = fy - up[1] * vertical, hz = fz - up[2] * vertical;
+  return Math.sqrt(hx * hx + hy * hy + hz * hz);
+}
+
+/** Earth split of a force vector (faceted surfaces). */
 function earthSplit(F: V3, up: V3): Pick<NetResult, 'verticalN' | 'horizontalN' | 'horizontalDirection'> {
   const vertical = dot(F, up);
-  const h = sub(F, scale(up, vertical));
-  const hn = norm(h);
-  return { verticalN: vertical, horizontalN: hn, horizontalDirection: hn > NULL_POINT_TOL * Math.max(1, norm(F)) ? toPoint(scale(h, 1 / hn)) : null };
+  const hn = horizontalMagnitude(F[0], F[1], F[2], up, vertical);
+  return { verticalN: vertical, horizontalN: hn, horizontalDirection: horizontalDirection(F[0], F[1], F[2], up, vertical, hn) };
 }
 
 function flatNet(plate: FlatPlate, it: PlateIntegration, up: V3): NetResult {
   const fr = plate.frame;
+  const n = fr.n;
   const F = it.netForceN;
-  const Fv = scale(fr.n, F);
-  const cop2 = F !== 0 ? { u: it.netMomentU / F, v: it.netMomentV / F } : null;
-  const cop = cop2 ? plateToShip(fr, cop2.u, cop2.v) : null;
-  const peakSrc = Math.abs(it.peakMin.pressurePa) > Math.abs(it.peakMax.pressurePa) ? it.peakMin : it.peakMax;
+  const fx = n[0] * F, fy = n[1] * F, fz = n[2] * F;
+  const vertical = fx * up[0] + fy * up[1] + fz * up[2];
+  const hn = horizontalMagnitude(fx, fy, fz, up, vertical);
+  const hasCop = F !== 0;
+  const cu = it.netMomentU / F, cv = it.netMomentV / F;
+  const useMin = Math.abs(it.peakMinPa) > Math.abs(it.peakMaxPa);
   return {
     forceN: F,
     resultantN: Math.abs(F),
-    forceVector: toPoint(Fv),
-    ...earthSplit(Fv, up),
-    centreOfPressure: cop ? toPoint(cop) : null,
-    centreOfPressurePlate: cop2,
-    lineOfAction: cop ? { point: toPoint(cop), direction: toPoint(F >= 0 ? fr.n : scale(fr.n, -1)) } : null,
+    forceVector: { x: fx, y: fy, z: fz },
+    verticalN: vertical,
+    horizontalN: hn,
+    horizontalDirection: horizontalDirection(fx, fy, fz, up, vertical, hn),
+    centreOfPressure: hasCop ? platePoint(fr, cu, cv) : null,
+    centreOfPressurePlate: hasCop ? { u: cu, v: cv } : null,
+    lineOfAction: hasCop
+      ? { point: platePoint(fr, cu, cv), direction: F >= 0 ? { x: n[0], y: n[1], z: n[2] } : { x: n[0] * -1, y: n[1] * -1, z: n[2] * -1 } }
+      : null,
     residualMomentNm: 0,
     positive: partResult(fr, it.positive),
     negative: partResult(fr, it.negative),
     signChange: it.positive.forceN !== 0 && it.negative.forceN !== 0,
-    peak: { pressurePa: peakSrc.pressurePa, point: toPoint(plateToShip(fr, peakSrc.u, peakSrc.v)) },
-    maxPressurePa: it.peakMax.pressurePa,
-    minPressurePa: it.peakMin.pressurePa,
+    peak: useMin
+      ? { pressurePa: it.peakMinPa, point: platePoint(fr, it.peakMinU, it.peakMinV) }
+      : { pressurePa: it.peakMaxPa, point: platePoint(fr, it.peakMaxU, it.peakMaxV) },
+    maxPressurePa: it.peakMaxPa,
+    minPressurePa: it.peakMinPa,
   };
 }
 
-function partResult(fr: FlatPlate['frame'], p: PlateIntegration['positive']): NetResult['positive'] {
-  return { forceN: p.forceN, areaM2: p.areaM2, centreOfPressure: p.cop ? toPoint(plateToShip(fr, p.cop[0], p.cop[1])) : null };
+function partResult(fr: PlateFrame, p: PartLoad): NetResult['positive'] {
+  return { forceN: p.forceN, areaM2: p.areaM2, centreOfPressure: p.forceN !== 0 ? platePoint(fr, p.copU, p.copV) : null };
 }
+
+/** Reused by every flat boundary: its numbers are copied into the results before the next one. */
+const scratchIntegration = newPlateIntegration();
 
 type Warn = (code: string, s: Severity, id: string | null, m: string) => void;
 
@@ -480,7 +534,7 @@ function flatBoundary(
   if (plate.planarityErrorM > 1e-3 * size && plate.planarityErrorM > 1e-4) {
     warn('non-planar', 'warning', b.id, `${b.name}: vertices stray up to ${(plate.planarityErrorM * 1000).toFixed(1)} mm from the mean plane; loads are for that plane (model it as faceted if it is curved)`);
   }
-  const it = integratePlate(plate, pa, pb, net);
+  const it = integratePlate(plate, pa, pb, net, scratchIntegration);
   if (it.areaM2 <= 0) {
     warn('degenerate', 'warning', b.id, `${b.name}: the plate has no area (self-intersecting or collinear vertices); not computed`);
     return null;
@@ -495,7 +549,10 @@ function flatBoundary(
   }
   const shores = b.shores && b.shores.length > 0 ? shoreLoads(b, plate, net, it.cuts, warn) : [];
   const capacity = capacityOf(b, netRes);
+  let maxU = maxOf(capacity ? capacity.utilisation : undefined, stiffeners ? stiffeners.maxUtilisation : undefined, null);
+  for (let i = 0; i < shores.length; i++) maxU = maxOf(shores[i].utilisation, undefined, maxU);
   const fr = plate.frame;
+  const n = fr.n;
   return {
     id: b.id,
     name: b.name,
@@ -503,25 +560,26 @@ function flatBoundary(
     geometryKind: b.geometry.kind,
     parentBoundaryId: b.parentBoundaryId ?? null,
     areaM2: it.areaM2,
-    normal: toPoint(fr.n),
-    centroid: toPoint(plateToShip(fr, it.centroidU, it.centroidV)),
+    normal: { x: n[0], y: n[1], z: n[2] },
+    centroid: platePoint(fr, it.centroidU, it.centroidV),
     plateAxes: { origin: toPoint(fr.origin), u: toPoint(fr.u), v: toPoint(fr.v) },
     openingsExcluded: openingIds,
-    sideA: sideResult(b.sideA, pa, it.sideForceN[0], it.sidePeakPa[0], it.sideWettedM2[0]),
-    sideB: sideResult(b.sideB, pb, it.sideForceN[1], it.sidePeakPa[1], it.sideWettedM2[1]),
+    sideA: sideResult(b.sideA, pa, it.sideForceA, it.sidePeakA, it.sideWettedA),
+    sideB: sideResult(b.sideB, pb, it.sideForceB, it.sidePeakB, it.sideWettedB),
     net: netRes,
     loadDiagram: withDiagram ? loadDiagram(plate, net, it.cuts) : [],
     facets: null,
     stiffeners,
     shores,
     capacity,
-    maxUtilisation: maxOf([capacity?.utilisation, stiffeners?.maxUtilisation, ...shores.map((s) => s.utilisation)]),
+    maxUtilisation: maxU,
   };
 }
 
-function maxOf(xs: (number | undefined)[]): number | null {
-  let m: number | null = null;
-  for (const x of xs) if (x !== undefined && Number.isFinite(x) && (m === null || x > m)) m = x;
+/** Largest finite value among x, y and m (null when none). */
+function maxOf(x: number | undefined, y: number | undefined, m: number | null): number | null {
+  if (x !== undefined && Number.isFinite(x) && (m === null || x > m)) m = x;
+  if (y !== undefined && Number.isFinite(y) && (m === null || y > m)) m = y;
   return m;
 }
 
@@ -656,7 +714,9 @@ function shoreLoads(b: Boundary, plate: FlatPlate, net: PressureProfile, cuts: r
     const d = sub(fromPoint(s.position), fr.origin);
     return [dot(d, fr.u), dot(d, fr.v)] as [number, number];
   });
-  const allCuts = [plate.vMin, ...cuts.slice(1, -1), plate.vMax];
+  // cuts run from vMin to vMax already
+  const allCuts = cuts;
+  const nStrips = allCuts.length - 1;
   return shores.map((s, i) => {
     const cell: SignedShape[] = [];
     for (const poly of polys) {
@@ -670,16 +730,16 @@ function shoreLoads(b: Boundary, plate: FlatPlate, net: PressureProfile, cuts: r
       }
       if (pts.length > 0) cell.push({ shape: { kind: 'polygon', pts }, sign: poly.sign });
     }
-    const strips = stripMoments(cell, allCuts);
+    const strips = stripMomentsInto(cell, allCuts);
     let force = 0, area = 0;
-    for (let k = 0; k < strips.length; k++) {
-      const m = strips[k];
-      if (m.a === 0) continue;
-      area += m.a;
+    for (let k = 0; k < nStrips; k++) {
+      const ma = strips[5 * k], msv = strips[5 * k + 2];
+      if (ma === 0) continue;
+      area += ma;
       const e = fr.e0 + fr.k * 0.5 * (allCuts[k] + allCuts[k + 1]);
       let jn = 0;
       while (jn < net.breaks.length && e >= net.breaks[jn]) jn++;
-      force += (net.a[jn] + net.b[jn] * fr.e0) * m.a + net.b[jn] * fr.k * m.sv;
+      force += (net.a[jn] + net.b[jn] * fr.e0) * ma + net.b[jn] * fr.k * msv;
     }
     const towards = s.side === 'B' ? force : -force;
     const cosA = Math.cos(((s.angleFromNormalDeg ?? 0) * Math.PI) / 180);
@@ -764,20 +824,22 @@ function facetedBoundary(
     Fn = add(Fn, scale(fr.n, it.negative.forceN));
     Ap += it.positive.areaM2;
     An += it.negative.areaM2;
-    for (const pk of [it.peakMax, it.peakMin]) {
-      if (Math.abs(pk.pressurePa) > Math.abs(peakVal)) {
-        peakVal = pk.pressurePa;
-        peakPt = plateToShip(fr, pk.u, pk.v);
-      }
+    if (Math.abs(it.peakMaxPa) > Math.abs(peakVal)) {
+      peakVal = it.peakMaxPa;
+      peakPt = plateToShip(fr, it.peakMaxU, it.peakMaxV);
     }
-    peakMax = Math.max(peakMax, it.peakMax.pressurePa);
-    peakMin = Math.min(peakMin, it.peakMin.pressurePa);
-    side.fa += it.sideForceN[0];
-    side.fb += it.sideForceN[1];
-    side.wa += it.sideWettedM2[0];
-    side.wb += it.sideWettedM2[1];
-    side.pa = Math.max(side.pa, it.sidePeakPa[0]);
-    side.pb = Math.max(side.pb, it.sidePeakPa[1]);
+    if (Math.abs(it.peakMinPa) > Math.abs(peakVal)) {
+      peakVal = it.peakMinPa;
+      peakPt = plateToShip(fr, it.peakMinU, it.peakMinV);
+    }
+    peakMax = Math.max(peakMax, it.peakMaxPa);
+    peakMin = Math.min(peakMin, it.peakMinPa);
+    side.fa += it.sideForceA;
+    side.fb += it.sideForceB;
+    side.wa += it.sideWettedA;
+    side.wb += it.sideWettedB;
+    side.pa = Math.max(side.pa, it.sidePeakA);
+    side.pb = Math.max(side.pb, it.sidePeakB);
     facetResults.push({ areaM2: it.areaM2, forceN: it.netForceN, centreOfPressure: cop ? toPoint(cop) : null });
   }
   const Fm = norm(F);

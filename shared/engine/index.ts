@@ -1,4 +1,11 @@
 /** Public surface of the load engine: what the app, the server and the CLI import. */
 export { computeSurvey, levelElevation, type ComputeOptions } from './compute-survey';
+export {
+  checkPumpingSequence,
+  type PumpingBoundaryChange,
+  type PumpingCheck,
+  type PumpingStep,
+  type PumpingStepResult,
+} from './pumping';
 export { ENGINE_VERSION } from './version';
 export type * from './results';

@@ -27,7 +27,17 @@ export function addMoments(acc: Moments, m: Moments, k = 1): void {
 
 /** Moments of a simple or self-touching polygon; positive when counter-clockwise. */
 export function polygonMoments(p: readonly number[]): Moments {
-  const n = p.length;
+  const out = new Float64Array(5);
+  polygonMomentsInto(p, p.length, out, 0, 1);
+  return { a: out[0], su: out[1], sv: out[2], suv: out[3], svv: out[4] };
+}
+
+/**
+ * The vertex sums of polygonMoments over the first n numbers of p (a flat u, v list), multiplied by
+ * sign and added into out[off..off+5) in the order a, su, sv, suv, svv. Allocation-free core used by
+ * the plate integration's hot loop.
+ */
+export function polygonMomentsInto(p: ArrayLike<number>, n: number, out: Float64Array, off: number, sign: number): void {
   let a = 0, su = 0, sv = 0, suv = 0, svv = 0;
   for (let i = 0; i < n; i += 2) {
     const j = i + 2 < n ? i + 2 : 0;
@@ -39,7 +49,11 @@ export function polygonMoments(p: readonly number[]): Moments {
     svv += (y0 * y0 + y0 * y1 + y1 * y1) * c;
     suv += (x0 * y1 + 2 * x0 * y0 + 2 * x1 * y1 + x1 * y0) * c;
   }
-  return { a: a / 2, su: su / 6, sv: sv / 6, suv: suv / 24, svv: svv / 12 };
+  out[off] += sign * (a / 2);
+  out[off + 1] += sign * (su / 6);
+  out[off + 2] += sign * (sv / 6);
+  out[off + 3] += sign * (suv / 24);
+  out[off + 4] += sign * (svv / 12);
 }
 
 /** Second moment ∫u² dA of a polygon (used by reference checks and plate properties). */
@@ -60,23 +74,43 @@ export function polygonSuu(p: readonly number[]): number {
  * every Green's-theorem integral, so moments stay exact.
  */
 export function splitAtV(p: readonly number[], c: number): [number[], number[]] {
-  const below: number[] = [];
-  const above: number[] = [];
   const n = p.length;
+  const lens = new Int32Array(2);
+  const below = new Float64Array(2 * n + 4), above = new Float64Array(2 * n + 4);
+  splitAtVInto(p, n, c, below, above, lens);
+  return [lens[0] >= 6 ? Array.from(below.subarray(0, lens[0])) : [], lens[1] >= 6 ? Array.from(above.subarray(0, lens[1])) : []];
+}
+
+/**
+ * splitAtV over the first n numbers of p, writing the parts into below and above (each needs room
+ * for 2n + 4 numbers) and their lengths into lens[0] and lens[1]; a part under 3 vertices has
+ * length 0.
+ */
+export function splitAtVInto(p: ArrayLike<number>, n: number, c: number, below: Float64Array, above: Float64Array, lens: Int32Array): void {
+  let nb = 0, na = 0;
   for (let i = 0; i < n; i += 2) {
     const j = i + 2 < n ? i + 2 : 0;
     const x0 = p[i], y0 = p[i + 1], x1 = p[j], y1 = p[j + 1];
     const d0 = y0 - c, d1 = y1 - c;
-    if (d0 <= 0) below.push(x0, y0);
-    if (d0 >= 0) above.push(x0, y0);
+    if (d0 <= 0) {
+      below[nb++] = x0;
+      below[nb++] = y0;
+    }
+    if (d0 >= 0) {
+      above[na++] = x0;
+      above[na++] = y0;
+    }
     if ((d0 < 0 && d1 > 0) || (d0 > 0 && d1 < 0)) {
       const t = d0 / (d0 - d1);
       const x = x0 + t * (x1 - x0);
-      below.push(x, c);
-      above.push(x, c);
+      below[nb++] = x;
+      below[nb++] = c;
+      above[na++] = x;
+      above[na++] = c;
     }
   }
-  return [below.length >= 6 ? below : [], above.length >= 6 ? above : []];
+  lens[0] = nb >= 6 ? nb : 0;
+  lens[1] = na >= 6 ? na : 0;
 }
 
 /** Keeps the part of a polygon where a·u + b·v ≤ c (Sutherland–Hodgman). */
@@ -120,29 +154,42 @@ export function polygonWidthAtV(p: readonly number[], c: number): number {
   return w;
 }
 
-/** Antiderivatives in t = v − v_c of a circle's chord integrals ∫w, ∫t·w, ∫t²·w, w(t) = 2√(r² − t²). */
-function circlePrimitive(r: number, t: number): [number, number, number] {
+/** Antiderivatives in t = v − v_c of a circle's chord integrals ∫w, ∫t·w, ∫t²·w, w(t) = 2√(r² − t²), into out[0..3). */
+function circlePrimitive(r: number, t: number, out: Float64Array): void {
   const tc = Math.max(-r, Math.min(r, t));
   const s = Math.sqrt(Math.max(0, r * r - tc * tc));
   const as = Math.asin(tc / r);
-  const f0 = tc * s + r * r * as;
-  const f1 = (-2 / 3) * s * s * s;
-  const f2 = (tc / 4) * (2 * tc * tc - r * r) * s + (r ** 4 / 4) * as;
-  return [f0, f1, f2];
+  out[0] = tc * s + r * r * as;
+  out[1] = (-2 / 3) * s * s * s;
+  out[2] = (tc / 4) * (2 * tc * tc - r * r) * s + (r ** 4 / 4) * as;
 }
+
+const prim1 = new Float64Array(3);
+const prim2 = new Float64Array(3);
 
 /**
  * Exact moments of the part of a circle (centre (uc, vc), radius r) between v = v1 and v = v2:
  * circular-segment areas and moments in closed form (integrals of the chord 2√(r² − t²)).
  */
 export function circleStripMoments(uc: number, vc: number, r: number, v1: number, v2: number): Moments {
-  const [a1, b1, c1] = circlePrimitive(r, v1 - vc);
-  const [a2, b2, c2] = circlePrimitive(r, v2 - vc);
-  const a = a2 - a1;
-  const st = b2 - b1;
-  const stt = c2 - c1;
+  const out = new Float64Array(5);
+  circleStripMomentsInto(uc, vc, r, v1, v2, out, 0, 1);
+  return { a: out[0], su: out[1], sv: out[2], suv: out[3], svv: out[4] };
+}
+
+/** circleStripMoments × sign added into out[off..off+5) (a, su, sv, suv, svv); allocation-free. */
+export function circleStripMomentsInto(uc: number, vc: number, r: number, v1: number, v2: number, out: Float64Array, off: number, sign: number): void {
+  circlePrimitive(r, v1 - vc, prim1);
+  circlePrimitive(r, v2 - vc, prim2);
+  const a = prim2[0] - prim1[0];
+  const st = prim2[1] - prim1[1];
+  const stt = prim2[2] - prim1[2];
   const sv = st + vc * a;
-  return { a, su: uc * a, sv, suv: uc * sv, svv: stt + 2 * vc * st + vc * vc * a };
+  out[off] += sign * a;
+  out[off + 1] += sign * (uc * a);
+  out[off + 2] += sign * sv;
+  out[off + 3] += sign * (uc * sv);
+  out[off + 4] += sign * (stt + 2 * vc * st + vc * vc * a);
 }
 
 /** Chord length of a circle at v = c. */

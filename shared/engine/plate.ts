@@ -6,17 +6,15 @@
  * (centre of pressure as in White, Fluid Mechanics, §2.5). No sampling anywhere.
  */
 import {
-  addMoments,
-  circleStripMoments,
+  circleStripMomentsInto,
   circleWidthAtV,
   polygonMoments,
+  polygonMomentsInto,
   polygonWidthAtV,
-  splitAtV,
-  zeroMoments,
-  type Moments,
+  splitAtVInto,
 } from './plane-integrals';
 import type { PressureProfile } from './profile';
-import { add, cross, dot, norm, scale, sub, unit, type V3 } from './vec';
+import { dot, norm, scale, sub, unit, type V3 } from './vec';
 
 export type Shape2D = { kind: 'polygon'; pts: number[] } | { kind: 'circle'; uc: number; vc: number; r: number };
 export interface SignedShape {
@@ -49,19 +47,22 @@ const EPS_LEVEL = 1e-12;
 
 /** Plate axes for a plane with unit normal n through origin, given earth-up. */
 export function plateFrame(origin: V3, n: V3, up: V3): PlateFrame {
-  const un = dot(up, n);
-  let h: V3 = sub(up, scale(n, un));
-  let k = norm(h);
+  const un = up[0] * n[0] + up[1] * n[1] + up[2] * n[2];
+  const hx = up[0] - n[0] * un, hy = up[1] - n[1] * un, hz = up[2] - n[2] * un;
+  let k = Math.sqrt(hx * hx + hy * hy + hz * hz);
+  let v: V3;
   if (k < EPS_LEVEL) {
     // Level plate: v follows the ship's x axis (or y if the plate is normal to x).
     k = 0;
     const x: V3 = [1, 0, 0];
-    h = sub(x, scale(n, dot(x, n)));
+    let h = sub(x, scale(n, dot(x, n)));
     if (norm(h) < 1e-6) h = sub([0, 1, 0], scale(n, n[1]));
+    v = unit(h);
+  } else {
+    v = [hx / k, hy / k, hz / k];
   }
-  const v = unit(h);
-  const u = cross(v, n);
-  return { origin, n, u, v, k, e0: dot(up, origin) };
+  const u: V3 = [v[1] * n[2] - v[2] * n[1], v[2] * n[0] - v[0] * n[2], v[0] * n[1] - v[1] * n[0]];
+  return { origin, n, u, v, k, e0: up[0] * origin[0] + up[1] * origin[1] + up[2] * origin[2] };
 }
 
 /** Newell's normal (unnormalised, length = 2 × area) of a 3D polygon. */
@@ -85,29 +86,52 @@ function projectPts(frame: PlateFrame, pts: readonly V3[]): number[] {
   return out;
 }
 
-function shapeVRange(s: Shape2D): [number, number] {
-  if (s.kind === 'circle') return [s.vc - s.r, s.vc + s.r];
-  let lo = Infinity, hi = -Infinity;
-  for (let i = 1; i < s.pts.length; i += 2) {
-    if (s.pts[i] < lo) lo = s.pts[i];
-    if (s.pts[i] > hi) hi = s.pts[i];
-  }
-  return [lo, hi];
-}
-
 /** A flat polygonal plate from its 3D vertices. */
 export function polygonPlate(pts: readonly V3[], up: V3): FlatPlate {
-  const nn = newellNormal(pts);
-  const n = unit(nn);
-  let c: V3 = [0, 0, 0];
-  for (const p of pts) c = add(c, p);
-  c = scale(c, 1 / pts.length);
+  const xyz = new Array<number>(3 * pts.length);
+  for (let i = 0; i < pts.length; i++) {
+    xyz[3 * i] = pts[i][0];
+    xyz[3 * i + 1] = pts[i][1];
+    xyz[3 * i + 2] = pts[i][2];
+  }
+  return polygonPlateXYZ(xyz, pts.length, up);
+}
+
+/**
+ * polygonPlate from a flat list of `count` vertices [x0, y0, z0, x1, ...] (ship axes, m): Newell's
+ * normal, the vertex mean as origin, and the outline projected on the plate axes.
+ */
+export function polygonPlateXYZ(xyz: ArrayLike<number>, count: number, up: V3): FlatPlate {
+  let nx = 0, ny = 0, nz = 0;
+  let cx = 0, cy = 0, cz = 0;
+  for (let i = 0; i < count; i++) {
+    const a = 3 * i, b = 3 * ((i + 1) % count);
+    nx += (xyz[a + 1] - xyz[b + 1]) * (xyz[a + 2] + xyz[b + 2]);
+    ny += (xyz[a + 2] - xyz[b + 2]) * (xyz[a] + xyz[b]);
+    nz += (xyz[a] - xyz[b]) * (xyz[a + 1] + xyz[b + 1]);
+    cx += xyz[a];
+    cy += xyz[a + 1];
+    cz += xyz[a + 2];
+  }
+  const len = Math.sqrt(nx * nx + ny * ny + nz * nz);
+  const n: V3 = len > 0 ? [nx / len, ny / len, nz / len] : [0, 0, 0];
+  const inv = 1 / count;
+  const c: V3 = [cx * inv, cy * inv, cz * inv];
   const frame = plateFrame(c, n, up);
+  const U = frame.u, W = frame.v;
   let planarityErrorM = 0;
-  for (const p of pts) planarityErrorM = Math.max(planarityErrorM, Math.abs(dot(sub(p, c), n)));
-  const shape: Shape2D = { kind: 'polygon', pts: projectPts(frame, pts) };
-  const [vMin, vMax] = shapeVRange(shape);
-  return { frame, region: [{ shape, sign: 1 }], vMin, vMax, planarityErrorM };
+  let vMin = Infinity, vMax = -Infinity;
+  const pts2 = new Array<number>(2 * count);
+  for (let i = 0; i < count; i++) {
+    const dx = xyz[3 * i] - c[0], dy = xyz[3 * i + 1] - c[1], dz = xyz[3 * i + 2] - c[2];
+    planarityErrorM = Math.max(planarityErrorM, Math.abs(dx * n[0] + dy * n[1] + dz * n[2]));
+    const v = dx * W[0] + dy * W[1] + dz * W[2];
+    pts2[2 * i] = dx * U[0] + dy * U[1] + dz * U[2];
+    pts2[2 * i + 1] = v;
+    if (v < vMin) vMin = v;
+    if (v > vMax) vMax = v;
+  }
+  return { frame, region: [{ shape: { kind: 'polygon', pts: pts2 }, sign: 1 }], vMin, vMax, planarityErrorM };
 }
 
 /** A flat circular plate. */
@@ -168,38 +192,73 @@ function insideShape(s: Shape2D, x: number, y: number, tol: number): boolean {
   return inside;
 }
 
-/** Moments of every strip of a region between consecutive cuts (cuts ascending, first = vMin, last = vMax). */
-export function stripMoments(region: readonly SignedShape[], cuts: readonly number[]): Moments[] {
+// Scratch space for the hot loops (the engine is synchronous and never re-entered, so module-level
+// buffers are safe); each grows on demand and is never shrunk.
+let stripBuf: Float64Array = new Float64Array(5 * 16);
+let cutBuf: Float64Array = new Float64Array(32);
+let splitBelow: Float64Array = new Float64Array(64);
+let splitAboveA: Float64Array = new Float64Array(64);
+let splitAboveB: Float64Array = new Float64Array(64);
+const splitLens = new Int32Array(2);
+
+function grown(buf: Float64Array, need: number): Float64Array {
+  if (buf.length >= need) return buf;
+  let n = buf.length;
+  while (n < need) n *= 2;
+  return new Float64Array(n);
+}
+
+/**
+ * Moments of every strip of a region between consecutive cuts (cuts ascending, first = vMin,
+ * last = vMax), written to out[5i .. 5i+5) as a, su, sv, suv, svv. Returns out, which is the
+ * shared strip buffer unless one is given; it is valid until the next call.
+ */
+export function stripMomentsInto(region: readonly SignedShape[], cuts: readonly number[], out?: Float64Array): Float64Array {
   const nStrips = cuts.length - 1;
-  const out: Moments[] = [];
-  for (let i = 0; i < nStrips; i++) out.push(zeroMoments());
-  for (const { shape, sign } of region) {
+  let acc = out;
+  if (!acc) {
+    stripBuf = grown(stripBuf, 5 * nStrips);
+    acc = stripBuf;
+  }
+  acc.fill(0, 0, 5 * nStrips);
+  for (let r = 0; r < region.length; r++) {
+    const shape = region[r].shape, sign = region[r].sign;
     if (shape.kind === 'circle') {
       for (let i = 0; i < nStrips; i++) {
         const lo = Math.max(cuts[i], shape.vc - shape.r), hi = Math.min(cuts[i + 1], shape.vc + shape.r);
-        if (hi > lo) addMoments(out[i], circleStripMoments(shape.uc, shape.vc, shape.r, lo, hi), sign);
+        if (hi > lo) circleStripMomentsInto(shape.uc, shape.vc, shape.r, lo, hi, acc, 5 * i, sign);
       }
     } else {
-      let rest: number[] = shape.pts;
-      for (let i = 0; i < nStrips && rest.length > 0; i++) {
+      let rest: ArrayLike<number> = shape.pts;
+      let restLen = shape.pts.length;
+      let useA = true;
+      for (let i = 0; i < nStrips && restLen > 0; i++) {
         if (i === nStrips - 1) {
-          addMoments(out[i], polygonMoments(rest), sign);
+          polygonMomentsInto(rest, restLen, acc, 5 * i, sign);
         } else {
-          const [below, above] = splitAtV(rest, cuts[i + 1]);
-          if (below.length > 0) addMoments(out[i], polygonMoments(below), sign);
+          const need = 2 * restLen + 4;
+          splitBelow = grown(splitBelow, need);
+          let above: Float64Array;
+          if (useA) above = splitAboveA = grown(splitAboveA, need);
+          else above = splitAboveB = grown(splitAboveB, need);
+          splitAtVInto(rest, restLen, cuts[i + 1], splitBelow, above, splitLens);
+          if (splitLens[0] > 0) polygonMomentsInto(splitBelow, splitLens[0], acc, 5 * i, sign);
           rest = above;
+          restLen = splitLens[1];
+          useA = !useA;
         }
       }
     }
   }
-  return out;
+  return acc;
 }
 
 /** Net chord width of a region at v = c. */
 export function regionWidthAtV(region: readonly SignedShape[], c: number): number {
   let w = 0;
-  for (const { shape, sign } of region) {
-    w += sign * (shape.kind === 'circle' ? circleWidthAtV(shape.vc, shape.r, c) : polygonWidthAtV(shape.pts, c));
+  for (let r = 0; r < region.length; r++) {
+    const shape = region[r].shape;
+    w += region[r].sign * (shape.kind === 'circle' ? circleWidthAtV(shape.vc, shape.r, c) : polygonWidthAtV(shape.pts, c));
   }
   return Math.max(0, w);
 }
@@ -214,8 +273,13 @@ function chordMidU(s: Shape2D, c: number): number {
     const y0 = p[i + 1], y1 = p[j + 1];
     if ((y0 <= c && y1 >= c) || (y1 <= c && y0 >= c)) {
       const x0 = p[i], x1 = p[j];
-      const xs = y1 === y0 ? [x0, x1] : [x0 + ((c - y0) / (y1 - y0)) * (x1 - x0)];
-      for (const x of xs) {
+      if (y1 === y0) {
+        if (x0 < lo) lo = x0;
+        if (x0 > hi) hi = x0;
+        if (x1 < lo) lo = x1;
+        if (x1 > hi) hi = x1;
+      } else {
+        const x = x0 + ((c - y0) / (y1 - y0)) * (x1 - x0);
         if (x < lo) lo = x;
         if (x > hi) hi = x;
       }
@@ -226,8 +290,9 @@ function chordMidU(s: Shape2D, c: number): number {
 
 /** Index of the profile interval containing elevation η. */
 function intervalAt(p: PressureProfile, eta: number): number {
+  const br = p.breaks;
   let k = 0;
-  while (k < p.breaks.length && eta >= p.breaks[k]) k++;
+  while (k < br.length && eta >= br[k]) k++;
   return k;
 }
 
@@ -235,8 +300,9 @@ export interface PartLoad {
   /** ∫p dA over the part, N (sign of the part). */
   forceN: number;
   areaM2: number;
-  /** Centre of pressure of the part in plate axes, or null if the part carries nothing. */
-  cop: [number, number] | null;
+  /** Centre of pressure of the part in plate axes (NaN when the part carries nothing). */
+  copU: number;
+  copV: number;
 }
 
 export interface PlateIntegration {
@@ -245,9 +311,12 @@ export interface PlateIntegration {
   centroidU: number;
   centroidV: number;
   /** Force of each side's own pressure, N (pushing on the plate from that side). */
-  sideForceN: [number, number];
-  sideWettedM2: [number, number];
-  sidePeakPa: [number, number];
+  sideForceA: number;
+  sideForceB: number;
+  sideWettedA: number;
+  sideWettedB: number;
+  sidePeakA: number;
+  sidePeakB: number;
   /** ∫(p_A − p_B) dA, N: positive pushes the plate towards side B. */
   netForceN: number;
   /** ∫p u dA and ∫p v dA of the net pressure, N·m. */
@@ -255,121 +324,187 @@ export interface PlateIntegration {
   netMomentV: number;
   positive: PartLoad;
   negative: PartLoad;
-  peakMax: { pressurePa: number; u: number; v: number };
-  peakMin: { pressurePa: number; u: number; v: number };
+  /** Largest and smallest net pressure and where (plate axes). */
+  peakMaxPa: number;
+  peakMaxU: number;
+  peakMaxV: number;
+  peakMinPa: number;
+  peakMinU: number;
+  peakMinV: number;
   /** Cuts in v where strips change (level planes and net zero crossings), ascending, within the plate. */
   cuts: number[];
 }
 
-/** v positions of a profile's breakpoints inside (vMin, vMax). */
-function profileCutsV(p: PressureProfile, frame: PlateFrame, vMin: number, vMax: number, into: number[]): void {
-  if (frame.k === 0) return;
-  for (const e of p.breaks) {
-    const v = (e - frame.e0) / frame.k;
-    if (v > vMin && v < vMax) into.push(v);
+/** Sorts xs[0..n) ascending in place (insertion sort: the lists are a handful of numbers). */
+function sortSmall(xs: Float64Array, n: number): void {
+  for (let i = 1; i < n; i++) {
+    const x = xs[i];
+    let j = i - 1;
+    while (j >= 0 && xs[j] > x) {
+      xs[j + 1] = xs[j];
+      j--;
+    }
+    xs[j + 1] = x;
   }
 }
 
-function sortedUnique(xs: number[], span: number): number[] {
-  xs.sort((a, b) => a - b);
-  const out: number[] = [];
+/**
+ * Sorts xs[0..n) and drops values within 1e-12 × max(1, span) of the previous kept one, in place;
+ * returns the count kept.
+ */
+function sortUniqueInPlace(xs: Float64Array, n: number, span: number): number {
+  sortSmall(xs, n);
   const tol = 1e-12 * Math.max(1, span);
-  for (const x of xs) if (out.length === 0 || x - out[out.length - 1] > tol) out.push(x);
-  return out;
+  let m = 0;
+  for (let i = 0; i < n; i++) {
+    const x = xs[i];
+    if (m === 0 || x - xs[m - 1] > tol) xs[m++] = x;
+  }
+  return m;
 }
 
-/** Exact integration of both sides' and the net pressure over a plate. */
-export function integratePlate(plate: FlatPlate, pa: PressureProfile, pb: PressureProfile, net: PressureProfile): PlateIntegration {
+/** A blank PlateIntegration, for integratePlate to fill. */
+export function newPlateIntegration(): PlateIntegration {
+  return {
+    areaM2: 0, centroidU: 0, centroidV: 0,
+    sideForceA: 0, sideForceB: 0, sideWettedA: 0, sideWettedB: 0, sidePeakA: 0, sidePeakB: 0,
+    netForceN: 0, netMomentU: 0, netMomentV: 0,
+    positive: { forceN: 0, areaM2: 0, copU: 0, copV: 0 },
+    negative: { forceN: 0, areaM2: 0, copU: 0, copV: 0 },
+    peakMaxPa: 0, peakMaxU: 0, peakMaxV: 0, peakMinPa: 0, peakMinU: 0, peakMinV: 0,
+    cuts: [],
+  };
+}
+
+/**
+ * Exact integration of both sides' and the net pressure over a plate, written into `out` (a fresh
+ * record unless one is given to be overwritten, which saves allocation in the per-boundary loop).
+ */
+export function integratePlate(
+  plate: FlatPlate,
+  pa: PressureProfile,
+  pb: PressureProfile,
+  net: PressureProfile,
+  out: PlateIntegration = newPlateIntegration(),
+): PlateIntegration {
   const { frame, vMin, vMax } = plate;
   const { k, e0 } = frame;
-  const cutList: number[] = [];
-  profileCutsV(net, frame, vMin, vMax, cutList);
-  // zero crossings of the net pressure inside each net interval
+  // cuts: the net profile's breakpoints and the zeros of the net pressure inside each net interval
+  const nb = net.breaks.length;
+  cutBuf = grown(cutBuf, 2 * nb + 2);
+  let nc = 0;
+  if (k !== 0) {
+    for (let j = 0; j < nb; j++) {
+      const v = (net.breaks[j] - e0) / k;
+      if (v > vMin && v < vMax) cutBuf[nc++] = v;
+    }
+  }
   if (k > 0) {
     for (let j = 0; j < net.a.length; j++) {
       const b = net.b[j];
       if (b === 0) continue;
       const e = -net.a[j] / b;
       const lo = j === 0 ? -Infinity : net.breaks[j - 1];
-      const hi = j === net.breaks.length ? Infinity : net.breaks[j];
+      const hi = j === nb ? Infinity : net.breaks[j];
       if (e > lo && e < hi) {
         const v = (e - e0) / k;
-        if (v > vMin && v < vMax) cutList.push(v);
+        if (v > vMin && v < vMax) cutBuf[nc++] = v;
       }
     }
   }
-  const inner = sortedUnique(cutList, vMax - vMin);
-  const cuts = [vMin, ...inner, vMax];
-  const strips = stripMoments(plate.region, cuts);
+  const nInner = sortUniqueInPlace(cutBuf, nc, vMax - vMin);
+  const cuts = new Array<number>(nInner + 2);
+  cuts[0] = vMin;
+  for (let i = 0; i < nInner; i++) cuts[i + 1] = cutBuf[i];
+  cuts[nInner + 1] = vMax;
+  const nStrips = nInner + 1;
+  const m = stripMomentsInto(plate.region, cuts);
 
   let area = 0, areaSu = 0, areaSv = 0;
-  const sideForce: [number, number] = [0, 0];
-  const wet: [number, number] = [0, 0];
+  let sideA = 0, sideB = 0, wetA = 0, wetB = 0;
   let F = 0, Mu = 0, Mv = 0;
   let Fp = 0, Mup = 0, Mvp = 0, Ap = 0;
   let Fn = 0, Mun = 0, Mvn = 0, An = 0;
-  for (let i = 0; i < strips.length; i++) {
-    const m = strips[i];
-    if (m.a === 0) continue;
-    area += m.a;
-    areaSu += m.su;
-    areaSv += m.sv;
+  for (let i = 0; i < nStrips; i++) {
+    const o = 5 * i;
+    const ma = m[o], msu = m[o + 1], msv = m[o + 2], msuv = m[o + 3], msvv = m[o + 4];
+    if (ma === 0) continue;
+    area += ma;
+    areaSu += msu;
+    areaSv += msv;
     const eMid = e0 + k * 0.5 * (cuts[i] + cuts[i + 1]);
     const ja = intervalAt(pa, eMid), jb = intervalAt(pb, eMid), jn = intervalAt(net, eMid);
     // p = a + b(e0 + k v) = α + β v
     const alphaA = pa.a[ja] + pa.b[ja] * e0, betaA = pa.b[ja] * k;
     const alphaB = pb.a[jb] + pb.b[jb] * e0, betaB = pb.b[jb] * k;
-    sideForce[0] += alphaA * m.a + betaA * m.sv;
-    sideForce[1] += alphaB * m.a + betaB * m.sv;
-    if (eMid < pa.liquidTop) wet[0] += m.a;
-    if (eMid < pb.liquidTop) wet[1] += m.a;
+    sideA += alphaA * ma + betaA * msv;
+    sideB += alphaB * ma + betaB * msv;
+    if (eMid < pa.liquidTop) wetA += ma;
+    if (eMid < pb.liquidTop) wetB += ma;
     const alpha = net.a[jn] + net.b[jn] * e0, beta = net.b[jn] * k;
-    const f = alpha * m.a + beta * m.sv;
-    const mu = alpha * m.su + beta * m.suv;
-    const mv = alpha * m.sv + beta * m.svv;
+    const f = alpha * ma + beta * msv;
+    const mu = alpha * msu + beta * msuv;
+    const mv = alpha * msv + beta * msvv;
     F += f;
     Mu += mu;
     Mv += mv;
     const pMid = alpha + beta * 0.5 * (cuts[i] + cuts[i + 1]);
     if (pMid > 0) {
-      Fp += f; Mup += mu; Mvp += mv; Ap += m.a;
+      Fp += f; Mup += mu; Mvp += mv; Ap += ma;
     } else if (pMid < 0) {
-      Fn += f; Mun += mu; Mvn += mv; An += m.a;
+      Fn += f; Mun += mu; Mvn += mv; An += ma;
     }
   }
 
   // Extremes of a piecewise-linear function of v lie at the cuts or the plate's ends.
   const outer = plate.region[0].shape;
-  const peakMax = { pressurePa: -Infinity, u: 0, v: 0 };
-  const peakMin = { pressurePa: Infinity, u: 0, v: 0 };
-  const sidePeak: [number, number] = [-Infinity, -Infinity];
-  for (const v of cuts) {
+  let maxPa = -Infinity, maxV = 0, minPa = Infinity, minV = 0;
+  let peakA = -Infinity, peakB = -Infinity;
+  for (let i = 0; i < cuts.length; i++) {
+    const v = cuts[i];
     const e = e0 + k * v;
     const p = evalProfile(net, e);
-    if (p > peakMax.pressurePa) Object.assign(peakMax, { pressurePa: p, v });
-    if (p < peakMin.pressurePa) Object.assign(peakMin, { pressurePa: p, v });
-    sidePeak[0] = Math.max(sidePeak[0], evalProfile(pa, e));
-    sidePeak[1] = Math.max(sidePeak[1], evalProfile(pb, e));
+    if (p > maxPa) {
+      maxPa = p;
+      maxV = v;
+    }
+    if (p < minPa) {
+      minPa = p;
+      minV = v;
+    }
+    peakA = Math.max(peakA, evalProfile(pa, e));
+    peakB = Math.max(peakB, evalProfile(pb, e));
   }
-  peakMax.u = chordMidU(outer, peakMax.v);
-  peakMin.u = chordMidU(outer, peakMin.v);
 
-  return {
-    areaM2: area,
-    centroidU: area > 0 ? areaSu / area : 0,
-    centroidV: area > 0 ? areaSv / area : 0,
-    sideForceN: sideForce,
-    sideWettedM2: wet,
-    sidePeakPa: sidePeak,
-    netForceN: F,
-    netMomentU: Mu,
-    netMomentV: Mv,
-    positive: { forceN: Fp, areaM2: Ap, cop: Fp !== 0 ? [Mup / Fp, Mvp / Fp] : null },
-    negative: { forceN: Fn, areaM2: An, cop: Fn !== 0 ? [Mun / Fn, Mvn / Fn] : null },
-    peakMax,
-    peakMin,
-    cuts,
-  };
+  out.areaM2 = area;
+  out.centroidU = area > 0 ? areaSu / area : 0;
+  out.centroidV = area > 0 ? areaSv / area : 0;
+  out.sideForceA = sideA;
+  out.sideForceB = sideB;
+  out.sideWettedA = wetA;
+  out.sideWettedB = wetB;
+  out.sidePeakA = peakA;
+  out.sidePeakB = peakB;
+  out.netForceN = F;
+  out.netMomentU = Mu;
+  out.netMomentV = Mv;
+  setPart(out.positive, Fp, Ap, Mup, Mvp);
+  setPart(out.negative, Fn, An, Mun, Mvn);
+  out.peakMaxPa = maxPa;
+  out.peakMaxU = chordMidU(outer, maxV);
+  out.peakMaxV = maxV;
+  out.peakMinPa = minPa;
+  out.peakMinU = chordMidU(outer, minV);
+  out.peakMinV = minV;
+  out.cuts = cuts;
+  return out;
+}
+
+function setPart(p: PartLoad, force: number, area: number, mu: number, mv: number): void {
+  p.forceN = force;
+  p.areaM2 = area;
+  p.copU = force !== 0 ? mu / force : NaN;
+  p.copV = force !== 0 ? mv / force : NaN;
 }
 
 /** Pressure of a profile at elevation η. */
@@ -396,27 +531,39 @@ export interface LoadDiagramPoint {
  * either (exact between points for polygons, where both are linear), plus even samples for circles.
  */
 export function loadDiagram(plate: FlatPlate, net: PressureProfile, cuts: readonly number[]): LoadDiagramPoint[] {
-  const { vMin, vMax, frame } = plate;
+  const { vMin, vMax, frame, region } = plate;
   const span = vMax - vMin;
-  const vs: number[] = cuts.slice();
+  let n = cuts.length;
   let hasCircle = false;
-  for (const { shape } of plate.region) {
+  for (let r = 0; r < region.length; r++) {
+    const shape = region[r].shape;
+    n += shape.kind === 'polygon' ? shape.pts.length / 2 : 2;
+    if (shape.kind === 'circle') hasCircle = true;
+  }
+  if (hasCircle) n += 31;
+  cutBuf = grown(cutBuf, n);
+  const vs = cutBuf;
+  let m = 0;
+  const keep = (v: number): void => {
+    if (v >= vMin && v <= vMax) vs[m++] = v;
+  };
+  for (let i = 0; i < cuts.length; i++) keep(cuts[i]);
+  for (let r = 0; r < region.length; r++) {
+    const shape = region[r].shape;
     if (shape.kind === 'polygon') {
-      for (let i = 1; i < shape.pts.length; i += 2) vs.push(shape.pts[i]);
+      for (let i = 1; i < shape.pts.length; i += 2) keep(shape.pts[i]);
     } else {
-      hasCircle = true;
-      vs.push(shape.vc - shape.r, shape.vc + shape.r);
+      keep(shape.vc - shape.r);
+      keep(shape.vc + shape.r);
     }
   }
-  if (hasCircle) for (let i = 1; i < 32; i++) vs.push(vMin + (span * i) / 32);
-  const inRange: number[] = [];
-  for (const v of vs) if (v >= vMin && v <= vMax) inRange.push(v);
-  const pts = sortedUnique(inRange, span);
+  if (hasCircle) for (let i = 1; i < 32; i++) keep(vMin + (span * i) / 32);
+  const count = sortUniqueInPlace(vs, m, span);
   const eps = 1e-9 * Math.max(span, 1e-9);
-  const out: LoadDiagramPoint[] = new Array(pts.length);
-  for (let i = 0; i < pts.length; i++) {
-    const v = pts[i];
-    const w = regionWidthAtV(plate.region, v >= vMax ? v - eps : v <= vMin ? v + eps : v);
+  const out: LoadDiagramPoint[] = new Array(count);
+  for (let i = 0; i < count; i++) {
+    const v = vs[i];
+    const w = regionWidthAtV(region, v >= vMax ? v - eps : v <= vMin ? v + eps : v);
     out[i] = { sM: v - vMin, pressurePa: evalProfile(net, frame.e0 + frame.k * v), widthM: w };
   }
   return out;

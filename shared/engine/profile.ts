@@ -63,22 +63,27 @@ export function pressureAt(p: PressureProfile, eta: number): number {
   return p.a[k] + p.b[k] * eta;
 }
 
-/** side A − side B as one profile. */
+/** side A − side B as one profile (a merge of the two ascending breakpoint lists). */
 export function differenceProfile(pa: PressureProfile, pb: PressureProfile): PressureProfile {
-  const breaks = [...pa.breaks, ...pb.breaks].sort((x, y) => x - y);
+  const ba = pa.breaks, bb = pb.breaks;
+  const na = ba.length, nb = bb.length;
   const uniq: number[] = [];
-  for (const e of breaks) if (uniq.length === 0 || e > uniq[uniq.length - 1]) uniq.push(e);
-  const a: number[] = [];
-  const b: number[] = [];
+  for (let i = 0, j = 0; i < na || j < nb; ) {
+    const e = j >= nb || (i < na && ba[i] <= bb[j]) ? ba[i++] : bb[j++];
+    if (uniq.length === 0 || e > uniq[uniq.length - 1]) uniq.push(e);
+  }
+  const n = uniq.length;
+  const a = new Array<number>(n + 1);
+  const b = new Array<number>(n + 1);
   let ia = 0, ib = 0;
-  for (let k = 0; k <= uniq.length; k++) {
+  for (let k = 0; k <= n; k++) {
     // interval below uniq[k]; indices ia, ib are the source intervals containing it
-    a.push(pa.a[ia] - pb.a[ib]);
-    b.push(pa.b[ia] - pb.b[ib]);
-    if (k < uniq.length) {
+    a[k] = pa.a[ia] - pb.a[ib];
+    b[k] = pa.b[ia] - pb.b[ib];
+    if (k < n) {
       const e = uniq[k];
-      while (ia < pa.breaks.length && pa.breaks[ia] <= e) ia++;
-      while (ib < pb.breaks.length && pb.breaks[ib] <= e) ib++;
+      while (ia < na && ba[ia] <= e) ia++;
+      while (ib < nb && bb[ib] <= e) ib++;
     }
   }
   return { breaks: uniq, a, b, liquidTop: Math.max(pa.liquidTop, pb.liquidTop) };

@@ -21,7 +21,15 @@ export async function setup(project: TestProject) {
   stack = await startTestStack('e2e');
   // Each run builds into its own folder, so parallel runs never overwrite each other's client.
   const clientDir = path.join(stack.workDir, 'client');
-  await build({ configFile: path.join(ROOT, 'vite.config.ts'), logLevel: 'error', build: { outDir: clientDir, emptyOutDir: true } });
+  // Build exactly what ships: vitest sets NODE_ENV=test, which would otherwise bundle React's
+  // development build into the client under test.
+  const nodeEnv = process.env.NODE_ENV;
+  process.env.NODE_ENV = 'production';
+  try {
+    await build({ configFile: path.join(ROOT, 'vite.config.ts'), logLevel: 'error', mode: 'production', build: { outDir: clientDir, emptyOutDir: true } });
+  } finally {
+    process.env.NODE_ENV = nodeEnv;
+  }
   const port = await freePort();
   const config = loadConfig({ ...stack.env, PORT: String(port), PUBLIC_URL: `http://localhost:${port}` });
   const db = createDb(config.DATABASE_URL);
