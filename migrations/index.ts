@@ -5,9 +5,17 @@
  */
 import type { Knex } from 'knex';
 import * as organisationsUsers from './20261201000000_organisations_users';
+import * as accounts from './20261201000100_accounts';
+import * as surveys from './20261201000200_surveys';
+import * as photos from './20261201000300_photos';
+import * as review from './20261201000400_review';
 
 const migrations: Record<string, Knex.Migration> = {
   '20261201000000_organisations_users': organisationsUsers,
+  '20261201000100_accounts': accounts,
+  '20261201000200_surveys': surveys,
+  '20261201000300_photos': photos,
+  '20261201000400_review': review,
 };
 
 export const migrationSource: Knex.MigrationSource<string> = {

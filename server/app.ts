@@ -16,6 +16,15 @@ import { defineRoutes, type RegisteredRoute, type RouteSpec, type AccessVerifier
 import { apiNotFound, errorHandler } from './middleware/errors';
 import { healthRoutes } from './routes/health';
 import { createAccessVerifier } from './services/access';
+import { createMailer, type Mailer } from './mail/mailer';
+import { authRoutes } from './routes/auth';
+import { memberRoutes } from './routes/members';
+import { devMailRoutes } from './routes/dev-mail';
+import { surveyRoutes } from './routes/surveys';
+import { reviewRoutes } from './routes/review';
+import { briefPageRoutes } from './routes/brief-page';
+import { photoRoutes } from './routes/photos';
+import { createS3PhotoStorage, type PhotoStorage } from './storage/photo-store';
 
 export interface AppDeps {
   db: Db;
@@ -23,18 +32,31 @@ export interface AppDeps {
   logger: Logger;
   /** Folder with the built client (index.html and assets); not served when absent. */
   clientDir?: string;
+  /** Outgoing e-mail; nodemailer over SMTP_URL when not given. */
+  mailer?: Mailer;
+  /** Photo bytes; S3-compatible storage from S3_* config when not given. */
+  storage?: PhotoStorage;
 }
+
+/** The dependencies route groups receive: AppDeps with every optional service resolved. */
+export type AppContext = AppDeps & { mailer: Mailer; storage: PhotoStorage };
 
 export interface BrinelineApp extends express.Express {
   locals: express.Express['locals'] & { routes: RegisteredRoute[] };
 }
 
 /** The API route groups, each a function of the app's dependencies. */
-function routeGroups(deps: AppDeps): RouteSpec[][] {
-  return [healthRoutes(deps)];
+function routeGroups(deps: AppContext): RouteSpec[][] {
+  return [healthRoutes(deps), authRoutes(deps), memberRoutes(deps), devMailRoutes(deps), surveyRoutes(deps), reviewRoutes(deps), photoRoutes(deps)];
 }
 
-export function createApp(deps: AppDeps): BrinelineApp {
+/** Pages served outside /api and the app shell (the master's brief); registered before the SPA fallback. */
+function pageGroups(deps: AppContext): RouteSpec[][] {
+  return [briefPageRoutes(deps)];
+}
+
+export function createApp(given: AppDeps): BrinelineApp {
+  const deps: AppContext = { ...given, mailer: given.mailer ?? createMailer(given.config), storage: given.storage ?? createS3PhotoStorage(given.config) };
   const app = express() as BrinelineApp;
   app.disable('x-powered-by');
   app.set('trust proxy', 'loopback');
@@ -50,6 +72,8 @@ export function createApp(deps: AppDeps): BrinelineApp {
         return id;
       },
       autoLogging: { ignore: (req) => (req as Request).url === '/api/health' },
+      // A brief link's token is its only key: never write it to the logs.
+      serializers: { req: (req: { url?: string }) => ({ ...req, url: req.url?.replace(/^\/brief\/[^/?#]*/, '/brief/[token]') }) },
     }),
   );
   app.use(
@@ -72,6 +96,10 @@ export function createApp(deps: AppDeps): BrinelineApp {
   api.use(apiNotFound);
   app.use('/api', api);
 
+  const pages = Router();
+  for (const group of pageGroups(deps)) defineRoutes(pages, '', group, verify, app.locals.routes);
+  app.use(pages);
+
   if (deps.clientDir && fs.existsSync(path.join(deps.clientDir, 'index.html'))) {
     const clientDir = deps.clientDir;
     app.use(
@@ -88,7 +116,8 @@ export function createApp(deps: AppDeps): BrinelineApp {
     );
     app.get(/^\/(?!api\/).*/, (_req, res) => {
       res.setHeader('Cache-Control', 'no-cache');
-      res.sendFile(path.join(clientDir, 'index.html'));
+      // `root` keeps send's dot-folder check to the part below clientDir (tests build into .tmp/…).
+      res.sendFile('index.html', { root: clientDir });
     });
   }
 

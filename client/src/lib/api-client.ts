@@ -38,6 +38,10 @@ export function setTokenSource(source: TokenSource): void {
   tokens = source;
 }
 
+/** The current access token, for requests fetch cannot make (upload progress through XMLHttpRequest). */
+export const currentAccessToken = (): string | null => tokens.get();
+export const refreshAccessToken = (): Promise<string | null> => tokens.refresh();
+
 async function send(path: string, init: RequestInit, token: string | null): Promise<Response> {
   const headers = new Headers(init.headers);
   if (token) headers.set('Authorization', `Bearer ${token}`);

@@ -1,0 +1,135 @@
+/** Sortable table of every boundary's load; tap a row to open its detail. */
+import { useMemo, useState } from 'react';
+import {
+  createColumnHelper,
+  flexRender,
+  getCoreRowModel,
+  getSortedRowModel,
+  useReactTable,
+  type SortingState,
+} from '@tanstack/react-table';
+import type { BoundaryResult, SurveyResults } from '@shared/engine/results';
+import type { UnitSystem } from '@shared/units/units';
+import { num, unitLabel } from '@client/lib/unit-system';
+import { UtilisationBadge } from './utilisation';
+import { fmtPoint, sideName } from './side-name';
+
+const col = createColumnHelper<BoundaryResult>();
+
+export function BoundaryResultsTable({
+  results,
+  system,
+  selectedId,
+  onSelect,
+}: {
+  results: SurveyResults;
+  system: UnitSystem;
+  selectedId?: string | null;
+  onSelect?: (id: string) => void;
+}) {
+  const [sorting, setSorting] = useState<SortingState>([{ id: 'utilisation', desc: true }]);
+  const columns = useMemo(
+    () => [
+      col.accessor('name', {
+        header: 'Boundary',
+        cell: (c) => (
+          <span>
+            <span className="font-bold">{c.getValue()}</span>
+            <span className="block text-xs text-ink-soft">
+              {c.row.original.kind} · {sideName(results, c.row.original.sideA)} | {sideName(results, c.row.original.sideB)}
+            </span>
+          </span>
+        ),
+      }),
+      col.accessor((b) => b.net.forceN, {
+        id: 'force',
+        header: `Net force (${unitLabel('force', system)})`,
+        cell: (c) => <span data-testid={`net-force-${c.row.original.id}`}>{num(c.getValue(), 'force', system)}</span>,
+      }),
+      col.accessor((b) => b.net.peak.pressurePa, {
+        id: 'peak',
+        header: `Peak pressure (${unitLabel('pressure', system)})`,
+        cell: (c) => num(c.getValue(), 'pressure', system),
+      }),
+      col.accessor((b) => b.net.centreOfPressure?.z ?? null, {
+        id: 'cop',
+        header: `Centre of pressure (${unitLabel('length', system)})`,
+        sortUndefined: 'last',
+        cell: (c) => (
+          <span className="text-sm">{fmtPoint(c.row.original.net.centreOfPressure, (v) => num(v, 'length', system, 3))}</span>
+        ),
+      }),
+      col.accessor((b) => b.maxUtilisation ?? -1, {
+        id: 'utilisation',
+        header: 'Utilisation',
+        cell: (c) => <UtilisationBadge value={c.row.original.maxUtilisation} compact />,
+      }),
+    ],
+    [results, system],
+  );
+  const table = useReactTable({
+    data: results.boundaries,
+    columns,
+    state: { sorting },
+    onSortingChange: setSorting,
+    getCoreRowModel: getCoreRowModel(),
+    getSortedRowModel: getSortedRowModel(),
+  });
+
+  if (results.boundaries.length === 0) {
+    return <p className="text-ink-soft">No boundaries yet. Add one under Plates to see its load.</p>;
+  }
+
+  return (
+    <div className="overflow-x-auto rounded-lg border border-line bg-card">
+      <table className="w-full min-w-[36rem] border-collapse text-left" data-testid="boundary-results">
+        <thead className="bg-sea-soft">
+          {table.getHeaderGroups().map((hg) => (
+            <tr key={hg.id}>
+              {hg.headers.map((h) => {
+                const dir = h.column.getIsSorted();
+                return (
+                  <th key={h.id} className="p-0 text-sm" aria-sort={dir === 'asc' ? 'ascending' : dir === 'desc' ? 'descending' : 'none'}>
+                    <button
+                      type="button"
+                      className="flex min-h-touch w-full items-center gap-1 px-2 text-left font-bold"
+                      onClick={h.column.getToggleSortingHandler()}
+                    >
+                      {flexRender(h.column.columnDef.header, h.getContext())}
+                      <span aria-hidden="true">{dir === 'asc' ? '↑' : dir === 'desc' ? '↓' : '↕'}</span>
+                    </button>
+                  </th>
+                );
+              })}
+            </tr>
+          ))}
+        </thead>
+        <tbody>
+          {table.getRowModel().rows.map((row) => {
+            const over = (row.original.maxUtilisation ?? 0) > 1;
+            return (
+              <tr
+                key={row.id}
+                className={`border-t border-line ${over ? 'bg-danger-soft' : ''} ${row.original.id === selectedId ? 'outline-3 outline-focus' : ''} ${onSelect ? 'cursor-pointer hover:bg-sea-soft' : ''}`}
+                onClick={onSelect ? () => onSelect(row.original.id) : undefined}
+                data-testid="boundary-row"
+              >
+                {row.getVisibleCells().map((cell, i) => (
+                  <td key={cell.id} className={`px-2 py-1.5 align-top ${i > 0 && i < 3 ? 'text-right tabular-nums' : ''}`}>
+                    {i === 0 && onSelect ? (
+                      <button type="button" className="min-h-touch text-left underline-offset-2 hover:underline" onClick={(e) => { e.stopPropagation(); onSelect(row.original.id); }}>
+                        {flexRender(cell.column.columnDef.cell, cell.getContext())}
+                      </button>
+                    ) : (
+                      flexRender(cell.column.columnDef.cell, cell.getContext())
+                    )}
+                  </td>
+                ))}
+              </tr>
+            );
+          })}
+        </tbody>
+      </table>
+    </div>
+  );
+}

@@ -1,0 +1,71 @@
+/** Liquid in every compartment: each layer's volume (permeability applied), mass and level. */
+import type { SurveyResults } from '@shared/engine/results';
+import type { UnitSystem } from '@shared/units/units';
+import { fmtPoint } from './side-name';
+import { num, percent, unitLabel } from '@client/lib/unit-system';
+
+export function CompartmentTable({ results, system, onSelect }: { results: SurveyResults; system: UnitSystem; onSelect?: (id: string) => void }) {
+  if (results.compartments.length === 0) return <p className="text-ink-soft">No compartments yet.</p>;
+  return (
+    <div className="overflow-x-auto rounded-lg border border-line bg-card">
+      <table className="w-full min-w-[34rem] border-collapse text-left text-sm" data-testid="compartment-results">
+        <thead className="bg-sea-soft">
+          <tr>
+            <th className="p-1.5">Compartment / layer</th>
+            <th className="p-1.5 text-right">Volume ({unitLabel('volume', system)})</th>
+            <th className="p-1.5 text-right">Mass ({unitLabel('mass', system)})</th>
+            <th className="p-1.5 text-right">Full</th>
+            <th className="p-1.5">Centroid ({unitLabel('length', system)})</th>
+          </tr>
+        </thead>
+        <tbody>
+          {results.compartments.map((c) => (
+            <CompartmentRows key={c.id} c={c} system={system} onSelect={onSelect} />
+          ))}
+        </tbody>
+      </table>
+    </div>
+  );
+}
+
+function CompartmentRows({ c, system, onSelect }: { c: SurveyResults['compartments'][number]; system: UnitSystem; onSelect?: (id: string) => void }) {
+  const L = (v: number) => num(v, 'length', system, 3);
+  return (
+    <>
+      <tr className="border-t-2 border-line font-bold">
+        <td className="p-1.5">
+          {onSelect ? (
+            <button type="button" className="min-h-touch text-left underline" onClick={() => onSelect(c.id)}>
+              {c.name}
+            </button>
+          ) : (
+            c.name
+          )}
+          <span className="block text-xs font-normal text-ink-soft">
+            {c.spaceType} · permeability {c.permeability.toFixed(2)}
+            {c.openToSea ? ' · open to sea' : ''}
+          </span>
+        </td>
+        <td className="p-1.5 text-right tabular-nums">{num(c.liquid.volumeM3, 'volume', system)}</td>
+        <td className="p-1.5 text-right tabular-nums">{num(c.liquid.massKg, 'mass', system)}</td>
+        <td className="p-1.5 text-right tabular-nums">{percent(c.fillFraction)}</td>
+        <td className="p-1.5">{fmtPoint(c.liquid.centroid, L)}</td>
+      </tr>
+      {c.layers.map((l) => (
+        <tr key={l.layerId} className="border-t border-line">
+          <td className="p-1.5 pl-5">
+            <span
+              aria-hidden="true"
+              className={`mr-1 inline-block size-3 rounded-sm ${l.category === 'oil' ? 'bg-oil' : l.category === 'water' ? 'bg-sea' : 'bg-ink-soft'}`}
+            />
+            {l.fluidName} <span className="text-ink-soft">({num(l.densityKgM3, 'density', system)} {unitLabel('density', system)})</span>
+          </td>
+          <td className="p-1.5 text-right tabular-nums">{num(l.volumeM3, 'volume', system)}</td>
+          <td className="p-1.5 text-right tabular-nums">{num(l.massKg, 'mass', system)}</td>
+          <td className="p-1.5" />
+          <td className="p-1.5">{fmtPoint(l.centroid, L)}</td>
+        </tr>
+      ))}
+    </>
+  );
+}

@@ -1,0 +1,71 @@
+/** The whole ship at a glance: heel, trim, flood water, oil, their centroid, the worst utilisation. */
+import type { SurveyResults } from '@shared/engine/results';
+import type { UnitSystem } from '@shared/units/units';
+import { fmt, num, unitLabel } from '@client/lib/unit-system';
+import { fmtPoint } from './side-name';
+import { UtilisationBadge } from './utilisation';
+
+function Tile({ label, value, sub, testId }: { label: string; value: string; sub?: string; testId?: string }) {
+  return (
+    <div className="rounded-lg border border-line bg-card p-2">
+      <div className="text-xs font-bold uppercase tracking-wide text-ink-soft">{label}</div>
+      <div className="text-lg font-bold tabular-nums" data-testid={testId}>
+        {value}
+      </div>
+      {sub && <div className="text-xs text-ink-soft">{sub}</div>}
+    </div>
+  );
+}
+
+export function ShipTotals({ results, system }: { results: SurveyResults; system: UnitSystem }) {
+  const { frame, ship, summary } = results;
+  const worst = results.boundaries.find((b) => b.id === summary.maxUtilisationBoundaryId);
+  const L = (v: number) => num(v, 'length', system, 3);
+  return (
+    <section aria-label="Ship totals" className="space-y-2">
+      {summary.overCapacityBoundaryIds.length > 0 && (
+        <p className="flex items-center gap-2 rounded-lg border-2 border-danger bg-danger p-2 font-bold text-paper" role="alert" data-testid="over-capacity-alert">
+          <span aria-hidden="true" className="text-xl">▲</span>
+          {summary.overCapacityBoundaryIds.length === 1 ? '1 boundary is' : `${summary.overCapacityBoundaryIds.length} boundaries are`} OVER CAPACITY:{' '}
+          {summary.overCapacityBoundaryIds.map((id) => results.boundaries.find((b) => b.id === id)?.name ?? id).join(', ')}
+        </p>
+      )}
+      <div className="grid grid-cols-2 gap-2 sm:grid-cols-4">
+        <Tile label="Heel" value={`${frame.heelDeg.toFixed(1)}° ${frame.heelDeg > 0 ? 'stbd' : frame.heelDeg < 0 ? 'port' : ''}`} sub={`from ${frame.heelSource}`} />
+        <Tile label="Trim" value={`${fmt(Math.abs(frame.trimM), 'length', system, 3)} ${frame.trimM > 0 ? 'by stern' : frame.trimM < 0 ? 'by head' : ''}`} sub={`${frame.trimDeg.toFixed(2)}°`} />
+        <Tile label="Flood water" value={fmt(ship.floodWater.massKg, 'mass', system)} sub={fmt(ship.floodWater.volumeM3, 'volume', system)} testId="total-flood-water" />
+        <Tile label="Oil" value={fmt(ship.oil.massKg, 'mass', system)} sub={fmt(ship.oil.volumeM3, 'volume', system)} />
+        <Tile
+          label={`All liquid centroid (${unitLabel('length', system)})`}
+          value={ship.allLiquids.centroid ? `x ${L(ship.allLiquids.centroid.x)}` : '—'}
+          sub={fmtPoint(ship.allLiquids.centroid, L)}
+        />
+        <Tile label="Sea density" value={fmt(frame.seaDensityKgM3, 'density', system)} />
+        <div className="col-span-2 rounded-lg border border-line bg-card p-2">
+          <div className="text-xs font-bold uppercase tracking-wide text-ink-soft">Worst utilisation</div>
+          <div className="mt-1 flex flex-wrap items-center gap-2">
+            <UtilisationBadge value={summary.maxUtilisation} />
+            {worst && <span className="font-bold">{worst.name}</span>}
+          </div>
+        </div>
+      </div>
+    </section>
+  );
+}
+
+export function EngineWarnings({ results }: { results: SurveyResults }) {
+  if (results.warnings.length === 0) return null;
+  return (
+    <details className="rounded-lg border border-caution bg-caution-soft p-2 text-sm" open={results.warnings.some((w) => w.severity === 'danger')}>
+      <summary className="min-h-touch cursor-pointer content-center font-bold">Engine notes ({results.warnings.length})</summary>
+      <ul className="mt-1 space-y-1">
+        {results.warnings.map((w, i) => (
+          <li key={i} className={w.severity === 'danger' ? 'font-bold text-danger' : ''}>
+            <span aria-hidden="true">{w.severity === 'danger' ? '▲ ' : w.severity === 'warning' ? '◆ ' : '· '}</span>
+            {w.message}
+          </li>
+        ))}
+      </ul>
+    </details>
+  );
+}

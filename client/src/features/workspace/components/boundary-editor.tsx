@@ -1,0 +1,285 @@
+/** The form for one plate: its spaces, shape on a plane, stiffening, shores and rated capacity. */
+import { useFieldArray, useForm, type UseFormReturn } from 'react-hook-form';
+import { useId } from 'react';
+import { BOUNDARY_KINDS, type Boundary, type Survey } from '@shared/schemas/survey';
+import type { UnitSystem } from '@shared/units/units';
+import { measureLabel, showField } from '../utils/form-units';
+import { NumberInput, TextInput, SelectInput, FormError, secondaryBtn, dangerBtn, inputCls, Field, errorAt } from './fields';
+import { useAutosave } from '../hooks/use-autosave';
+import { SaveIndicator } from './save-indicator';
+import type { Apply } from '../utils/types';
+import { useFrameTable } from '../utils/frames';
+import { PLANE_AXES, SIDE_WORDS } from '../utils/plane-geometry';
+import { boundaryResolver, boundaryToForm, sideOptions, type BoundaryForm } from '../utils/boundary-form';
+import { newId } from '../utils/new-entities';
+
+export const KIND_LABEL: Record<Boundary['kind'], string> = {
+  bulkhead: 'Bulkhead',
+  deck: 'Deck',
+  'tank-top': 'Tank top',
+  'hatch-cover': 'Hatch cover',
+  door: 'Door',
+  manhole: 'Manhole cover',
+  shell: 'Shell plating',
+  patch: 'Patch',
+};
+
+const PLANE_LABEL = {
+  transverse: 'Transverse (across the ship, at an x position)',
+  longitudinal: 'Longitudinal (fore and aft, at a y position)',
+  horizontal: 'Horizontal (a deck, at a height z)',
+};
+
+export function BoundaryEditor({ boundary, survey, apply, system }: { boundary: Boundary; survey: Survey; apply: Apply; system: UnitSystem }) {
+  const frames = useFrameTable(survey.id);
+  const form = useForm<BoundaryForm, unknown, Boundary>({
+    mode: 'onChange',
+    resolver: boundaryResolver(boundary, system, frames),
+    defaultValues: boundaryToForm(boundary, system),
+  });
+  const state = useAutosave(form, (v) => apply({ kind: 'upsert', collection: 'boundaries', entity: v }));
+  const { register, formState, watch } = form;
+  const e = formState.errors;
+  const lu = measureLabel('length', system);
+  const [custom, plane, shape, stiff, capKind] = watch(['custom', 'plane', 'shape', 'stiff', 'capKind']);
+  const ax = PLANE_AXES[plane];
+  const words = SIDE_WORDS[plane];
+  const sides = sideOptions(survey);
+  const parents = survey.boundaries.filter((b) => b.id !== boundary.id && !b.parentBoundaryId);
+  const pointsId = useId();
+  const stiffId = useId();
+  const axisWord = { x: 'x (forward)', y: 'y (to port)', z: 'z (up)' };
+  return (
+    <form className="space-y-3" onSubmit={(ev) => ev.preventDefault()} noValidate aria-label={`Plate ${boundary.name}`}>
+      <FormError errors={formState.errors} />
+      <div className="grid gap-3 sm:grid-cols-3">
+        <TextInput register={register} name="name" label="Name" errors={e} />
+        <SelectInput register={register} name="kind" label="Kind" errors={e} options={BOUNDARY_KINDS.map((k) => ({ value: k, label: KIND_LABEL[k] }))} />
+        <SelectInput
+          register={register}
+          name="parent"
+          label="Set in (door or hatch)"
+          errors={{ parent: errorAt(e, 'parentBoundaryId') }}
+          options={[{ value: '', label: 'Not set in another plate' }, ...parents.map((b) => ({ value: b.id, label: b.name }))]}
+        />
+      </div>
+      <div className="grid grid-cols-2 gap-3">
+        <SelectInput register={register} name="sideA" label="Side A space" errors={{}} options={sides} />
+        <SelectInput register={register} name="sideB" label="Side B space" errors={{}} options={sides} hint="positive net force pushes towards side B" />
+      </div>
+      {custom ? (
+        <p className="rounded-md border border-line bg-paper p-2 text-sm">This plate has an imported shape not on a ship-axis plane; it is kept as it is. Edit it in the survey file and import it again.</p>
+      ) : (
+        <fieldset className="space-y-3 rounded-md border border-line p-2">
+          <legend className="px-1 font-bold">Shape</legend>
+          <div className="grid gap-3 sm:grid-cols-3">
+            <SelectInput register={register} name="plane" label="Plane" errors={{}} options={Object.entries(PLANE_LABEL).map(([value, label]) => ({ value, label }))} />
+            <NumberInput register={register} name="at" label={`Plane at ${ax.n}`} unit={lu} errors={e} allowFrames={plane === 'transverse'} hint={plane === 'transverse' ? 'number or Fr 45' : undefined} />
+            <SelectInput
+              register={register}
+              name="sideAIs"
+              label="Side A lies"
+              errors={{}}
+              options={[
+                { value: 'low', label: `${words.low} of the plate` },
+                { value: 'high', label: `${words.high} of the plate` },
+              ]}
+            />
+          </div>
+          <SelectInput
+            register={register}
+            name="shape"
+            label="Outline"
+            errors={{}}
+            options={[
+              { value: 'rectangle', label: 'Rectangle' },
+              { value: 'circle', label: 'Circle' },
+              { value: 'polygon', label: 'Polygon (corners)' },
+            ]}
+          />
+          {shape === 'rectangle' && (
+            <div className="grid grid-cols-2 gap-3 sm:grid-cols-4">
+              <NumberInput register={register} name="a1" label={`From ${axisWord[ax.a]}`} unit={lu} errors={e} allowFrames={ax.a === 'x'} />
+              <NumberInput register={register} name="a2" label={`To ${axisWord[ax.a]}`} unit={lu} errors={e} allowFrames={ax.a === 'x'} />
+              <NumberInput register={register} name="b1" label={`From ${axisWord[ax.b]}`} unit={lu} errors={e} />
+              <NumberInput register={register} name="b2" label={`To ${axisWord[ax.b]}`} unit={lu} errors={e} />
+            </div>
+          )}
+          {shape === 'circle' && (
+            <div className="grid grid-cols-3 gap-3">
+              <NumberInput register={register} name="ca" label={`Centre ${ax.a}`} unit={lu} errors={e} allowFrames={ax.a === 'x'} />
+              <NumberInput register={register} name="cb" label={`Centre ${ax.b}`} unit={lu} errors={e} />
+              <NumberInput register={register} name="r" label="Radius" unit={lu} errors={e} />
+            </div>
+          )}
+          {shape === 'polygon' && (
+            <Field id={pointsId} label={`Corners: ${ax.a}, ${ax.b} on each line`} unit={lu} error={errorAt(e, 'points')?.message} hint="in order round the outline">
+              <textarea id={pointsId} rows={5} className={`${inputCls} py-2 font-mono`} {...register('points')} />
+            </Field>
+          )}
+        </fieldset>
+      )}
+      <div className="flex items-center gap-2">
+        <input id={stiffId} type="checkbox" className="size-6" {...register('stiff')} />
+        <label htmlFor={stiffId} className="font-bold">
+          Stiffened
+        </label>
+      </div>
+      {stiff && (
+        <fieldset className="grid grid-cols-2 gap-3 rounded-md border border-line p-2 sm:grid-cols-4">
+          <legend className="px-1 font-bold">Stiffeners</legend>
+          <SelectInput
+            register={register}
+            name="stDir"
+            label="Run"
+            errors={{}}
+            options={[
+              { value: 'vertical', label: 'Vertical' },
+              { value: 'longitudinal', label: 'Fore and aft' },
+              { value: 'transverse', label: 'Athwartships' },
+            ]}
+          />
+          <NumberInput register={register} name="stSpacing" label="Spacing" unit={lu} errors={{ stSpacing: errorAt(e, 'stiffening.spacingM') }} />
+          <NumberInput register={register} name="stFirst" label="First from edge" unit={lu} errors={{ stFirst: errorAt(e, 'stiffening.firstOffsetM') }} hint="empty: one spacing" />
+          <NumberInput register={register} name="stSpan" label="Span" unit={lu} errors={{ stSpan: errorAt(e, 'stiffening.spanM') }} hint="empty: across the plate" />
+          <SelectInput
+            register={register}
+            name="stFix"
+            label="Ends"
+            errors={{}}
+            options={[
+              { value: 'simply-supported', label: 'Simply supported' },
+              { value: 'fixed', label: 'Fixed (bracketed)' },
+            ]}
+          />
+          <NumberInput register={register} name="stModulus" label="Section modulus (with plate)" unit={measureLabel('sectionModulus', system)} errors={{ stModulus: errorAt(e, 'stiffening.sectionModulusM3') }} />
+          <NumberInput register={register} name="stAllow" label="Allowable stress" unit={measureLabel('stress', system)} errors={{ stAllow: errorAt(e, 'stiffening.allowableStressPa') }} />
+        </fieldset>
+      )}
+      <ShoreFields form={form} system={system} />
+      <div className="grid grid-cols-2 gap-3">
+        <SelectInput
+          register={register}
+          name="capKind"
+          label="Rated capacity"
+          errors={{}}
+          options={[
+            { value: 'none', label: 'None given' },
+            { value: 'pressure', label: 'Pressure (test head / rating)' },
+            { value: 'force', label: 'Total force' },
+          ]}
+        />
+        {capKind !== 'none' && (
+          <NumberInput
+            register={register}
+            name="capValue"
+            label={capKind === 'pressure' ? 'Rated pressure' : 'Rated force'}
+            unit={measureLabel(capKind === 'pressure' ? 'pressure' : 'force', system)}
+            errors={{ capValue: errorAt(e, 'ratedCapacity.pressurePa') ?? errorAt(e, 'ratedCapacity.forceN') }}
+          />
+        )}
+      </div>
+      <TextInput register={register} name="notes" label="Notes" errors={e} multiline />
+      <SaveIndicator state={state} />
+    </form>
+  );
+}
+
+function ShoreFields({ form, system }: { form: UseFormReturn<BoundaryForm, unknown, Boundary>; system: UnitSystem }) {
+  const { fields, append, remove } = useFieldArray({ control: form.control, name: 'shores', keyName: 'key' });
+  const { register, formState, watch } = form;
+  const e = formState.errors;
+  const lu = measureLabel('length', system);
+  const su = measureLabel('stress', system);
+  const S = (n: number) => showField(n, 'length', system);
+  const stress = (pa: number) => showField(pa, 'stress', system);
+  const v = watch();
+  const centre = () => {
+    const num = (t: string) => Number(t) || 0;
+    if (v.plane === 'transverse') return { x: v.at, y: String((num(v.a1) + num(v.a2)) / 2), z: String((num(v.b1) + num(v.b2)) / 2) };
+    if (v.plane === 'longitudinal') return { x: String((num(v.a1) + num(v.a2)) / 2), y: v.at, z: String((num(v.b1) + num(v.b2)) / 2) };
+    return { x: String((num(v.a1) + num(v.a2)) / 2), y: String((num(v.b1) + num(v.b2)) / 2), z: v.at };
+  };
+  const err = (i: number, p: string) => errorAt(e, `shores.${i}.${p}`);
+  return (
+    <fieldset className="space-y-2 rounded-md border border-line p-2">
+      <legend className="px-1 font-bold">Shores</legend>
+      {fields.map((f, i) => (
+        <div key={f.key} className="rounded-md border border-line bg-paper p-2" data-testid="shore">
+          <div className="mb-1 flex items-center justify-between">
+            <span className="font-bold">Shore {i + 1}</span>
+            <button type="button" className={dangerBtn} onClick={() => remove(i)}>
+              Remove
+            </button>
+          </div>
+          <div className="grid grid-cols-2 gap-2 sm:grid-cols-4">
+            <NumberInput register={register} name={`shores.${i}.x`} label="Head at x" unit={lu} errors={{ shores: { [i]: { x: err(i, 'position.x') } } }} allowFrames />
+            <NumberInput register={register} name={`shores.${i}.y`} label="Head at y" unit={lu} errors={{ shores: { [i]: { y: err(i, 'position.y') } } }} />
+            <NumberInput register={register} name={`shores.${i}.z`} label="Head at z" unit={lu} errors={{ shores: { [i]: { z: err(i, 'position.z') } } }} />
+            <NumberInput register={register} name={`shores.${i}.length`} label="Length" unit={lu} errors={{ shores: { [i]: { length: err(i, 'lengthM') } } }} />
+            <SelectInput
+              register={register}
+              name={`shores.${i}.secKind`}
+              label="Section"
+              errors={{}}
+              options={[
+                { value: 'rectangular', label: 'Rectangular (timber)' },
+                { value: 'tube', label: 'Tube (steel)' },
+              ]}
+            />
+            <NumberInput
+              register={register}
+              name={`shores.${i}.w`}
+              label={v.shores?.[i]?.secKind === 'tube' ? 'Outer diameter' : 'Width'}
+              unit={lu}
+              errors={{ shores: { [i]: { w: err(i, 'section.widthM') ?? err(i, 'section.outerDiameterM') } } }}
+            />
+            <NumberInput
+              register={register}
+              name={`shores.${i}.d`}
+              label={v.shores?.[i]?.secKind === 'tube' ? 'Wall thickness' : 'Depth'}
+              unit={lu}
+              errors={{ shores: { [i]: { d: err(i, 'section.depthM') ?? err(i, 'section.wallThicknessM') } } }}
+            />
+            <NumberInput register={register} name={`shores.${i}.e`} label="Elastic modulus" unit={su} errors={{ shores: { [i]: { e: err(i, 'elasticModulusPa') } } }} />
+            <NumberInput register={register} name={`shores.${i}.allow`} label="Allowable stress" unit={su} errors={{ shores: { [i]: { allow: err(i, 'allowableStressPa') } } }} />
+            <SelectInput
+              register={register}
+              name={`shores.${i}.end`}
+              label="Ends"
+              errors={{}}
+              options={[
+                { value: 'pinned-pinned', label: 'Pinned both ends' },
+                { value: 'fixed-pinned', label: 'Fixed one end, pinned other' },
+                { value: 'fixed-fixed', label: 'Fixed both ends' },
+                { value: 'fixed-free', label: 'Fixed one end, free other' },
+              ]}
+            />
+            <SelectInput
+              register={register}
+              name={`shores.${i}.side`}
+              label="Stands on side"
+              errors={{}}
+              options={[
+                { value: 'B', label: 'B' },
+                { value: 'A', label: 'A' },
+              ]}
+            />
+            <NumberInput register={register} name={`shores.${i}.angle`} label="Angle from square" unit="°" errors={{ shores: { [i]: { angle: err(i, 'angleFromNormalDeg') } } }} hint="empty: square to the plate" />
+          </div>
+        </div>
+      ))}
+      <button
+        type="button"
+        className={secondaryBtn}
+        onClick={() => {
+          const c = centre();
+          append({ id: newId(), ...c, length: S(3), secKind: 'rectangular', w: S(0.2), d: S(0.2), e: stress(11e9), allow: stress(8e6), end: 'pinned-pinned', side: 'B', angle: '' });
+        }}
+      >
+        + Add shore
+      </button>
+      {fields.length > 0 && <p className="text-xs text-ink-soft">New shores start with typical timber values (200 × 200 mm, E 11 GPa, 8 MPa allowable): enter those of the shore actually fitted.</p>}
+    </fieldset>
+  );
+}

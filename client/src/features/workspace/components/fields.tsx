@@ -1,0 +1,165 @@
+/** Form fields sized for a gloved thumb: a label, the unit beside every number, the error in plain words. */
+import type { ReactNode } from 'react';
+import type { FieldError, FieldValues, Path, UseFormRegister } from 'react-hook-form';
+import { useId } from 'react';
+
+export const inputCls =
+  'min-h-touch w-full min-w-0 rounded-md border-2 border-line bg-card px-2 text-base text-ink aria-[invalid=true]:border-danger';
+export const buttonCls = 'inline-flex min-h-touch items-center justify-center gap-1 rounded-lg px-4 font-bold';
+export const primaryBtn = `${buttonCls} bg-hull text-paper hover:bg-hull-soft`;
+export const secondaryBtn = `${buttonCls} border-2 border-hull bg-card text-hull hover:bg-sea-soft`;
+export const dangerBtn = `${buttonCls} border-2 border-danger bg-card text-danger hover:bg-danger-soft`;
+
+/** Finds an error by dotted path in RHF's nested error object. */
+export function errorAt(errors: unknown, path: string): FieldError | undefined {
+  let cur: unknown = errors;
+  for (const k of path.split('.')) {
+    if (cur === null || typeof cur !== 'object') return undefined;
+    cur = (cur as Record<string, unknown>)[k];
+  }
+  return cur && typeof cur === 'object' && 'message' in cur ? (cur as FieldError) : undefined;
+}
+
+export function Field({
+  label,
+  unit,
+  error,
+  hint,
+  children,
+  id,
+}: {
+  label: string;
+  unit?: string;
+  error?: string;
+  hint?: ReactNode;
+  children: ReactNode;
+  id: string;
+}) {
+  return (
+    <div className="min-w-0">
+      <label htmlFor={id} className="block text-sm font-bold">
+        {label}
+        {unit ? <span className="font-normal text-ink-soft"> ({unit})</span> : null}
+      </label>
+      <div className="mt-0.5 flex items-center gap-1">{children}</div>
+      {hint && !error && <p className="mt-0.5 text-xs text-ink-soft">{hint}</p>}
+      {error && (
+        <p className="mt-0.5 text-sm font-bold text-danger" id={`${id}-error`} role="alert">
+          <span aria-hidden="true">▲ </span>
+          {error}
+        </p>
+      )}
+    </div>
+  );
+}
+
+export function NumberInput<T extends FieldValues>({
+  register,
+  name,
+  label,
+  unit,
+  errors,
+  hint,
+  placeholder,
+  allowFrames = false,
+}: {
+  register: UseFormRegister<T>;
+  name: Path<T>;
+  label: string;
+  unit: string;
+  errors: unknown;
+  hint?: ReactNode;
+  placeholder?: string;
+  /** Accepts "Fr 45" as well as a number (x positions). */
+  allowFrames?: boolean;
+}) {
+  const id = useId();
+  const err = errorAt(errors, name)?.message;
+  return (
+    <Field label={label} unit={unit} error={err} hint={hint} id={id}>
+      <input
+        id={id}
+        className={inputCls}
+        inputMode={allowFrames ? 'text' : 'decimal'}
+        autoComplete="off"
+        placeholder={placeholder}
+        aria-invalid={err ? true : undefined}
+        aria-describedby={err ? `${id}-error` : undefined}
+        {...register(name)}
+      />
+      <span className="min-w-8 text-sm text-ink-soft" aria-hidden="true">
+        {unit}
+      </span>
+    </Field>
+  );
+}
+
+export function TextInput<T extends FieldValues>({
+  register,
+  name,
+  label,
+  errors,
+  hint,
+  placeholder,
+  multiline = false,
+}: {
+  register: UseFormRegister<T>;
+  name: Path<T>;
+  label: string;
+  errors: unknown;
+  hint?: ReactNode;
+  placeholder?: string;
+  multiline?: boolean;
+}) {
+  const id = useId();
+  const err = errorAt(errors, name)?.message;
+  return (
+    <Field label={label} error={err} hint={hint} id={id}>
+      {multiline ? (
+        <textarea id={id} className={`${inputCls} py-2`} rows={3} placeholder={placeholder} aria-invalid={err ? true : undefined} {...register(name)} />
+      ) : (
+        <input id={id} className={inputCls} placeholder={placeholder} aria-invalid={err ? true : undefined} {...register(name)} />
+      )}
+    </Field>
+  );
+}
+
+export function SelectInput<T extends FieldValues>({
+  register,
+  name,
+  label,
+  errors,
+  options,
+  hint,
+}: {
+  register: UseFormRegister<T>;
+  name: Path<T>;
+  label: string;
+  errors: unknown;
+  options: readonly { value: string; label: string }[];
+  hint?: ReactNode;
+}) {
+  const id = useId();
+  const err = errorAt(errors, name)?.message;
+  return (
+    <Field label={label} error={err} hint={hint} id={id}>
+      <select id={id} className={inputCls} aria-invalid={err ? true : undefined} {...register(name)}>
+        {options.map((o) => (
+          <option key={o.value} value={o.value}>
+            {o.label}
+          </option>
+        ))}
+      </select>
+    </Field>
+  );
+}
+
+export function FormError({ errors }: { errors: Record<string, unknown> }) {
+  const n = Object.keys(errors).length;
+  if (n === 0) return null;
+  return (
+    <p className="rounded-md border-2 border-danger bg-danger-soft p-2 text-sm font-bold text-ink" role="status">
+      <span aria-hidden="true">▲ </span>Not saved yet: correct the marked {n === 1 ? 'field' : 'fields'}. What you typed is kept.
+    </p>
+  );
+}

@@ -1,0 +1,42 @@
+/** "Loads": everything computed for the survey, with the cautions beside it. */
+import { Cautions } from '@client/components/layout/cautions';
+import { ShipTotals, EngineWarnings } from '@client/components/results/ship-totals';
+import { BoundaryResultsTable } from '@client/components/results/boundary-results-table';
+import { BoundaryDetail } from '@client/components/results/boundary-detail';
+import { CompartmentTable } from '@client/components/results/compartment-table';
+import type { SectionProps } from '../utils/types';
+import { secondaryBtn } from './fields';
+import { useSearchParams } from 'react-router';
+
+export function LoadsSection({ results, system, selectedId, select }: SectionProps) {
+  const [, setParams] = useSearchParams();
+  if (!results) return <p className="text-ink-soft">No loads yet.</p>;
+  const b = results.boundaries.find((x) => x.id === selectedId) ?? null;
+  return (
+    <section aria-labelledby="loads-h" className="space-y-5">
+      <h2 id="loads-h" className="text-2xl">
+        Loads
+      </h2>
+      <ShipTotals results={results} system={system} />
+      <EngineWarnings results={results} />
+      <div className="space-y-2">
+        <h3 className="text-xl">Plates</h3>
+        <BoundaryResultsTable results={results} system={system} selectedId={selectedId} onSelect={(id) => select(id === selectedId ? null : id)} />
+      </div>
+      {b && (
+        <div className="rounded-lg border-2 border-hull bg-card p-3">
+          <BoundaryDetail boundary={b} results={results} system={system} />
+          <button type="button" className={`${secondaryBtn} mt-3`} onClick={() => setParams({ s: 'plates', item: b.id }, { replace: true })}>
+            Edit {b.name}
+          </button>
+        </div>
+      )}
+      <div className="space-y-2">
+        <h3 className="text-xl">Liquids in each space</h3>
+        <CompartmentTable results={results} system={system} />
+      </div>
+      <Cautions />
+      <p className="text-xs text-ink-soft">Engine {results.engineVersion}, computed on this device.</p>
+    </section>
+  );
+}

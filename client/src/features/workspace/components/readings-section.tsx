@@ -1,0 +1,139 @@
+/** "Readings": each time-stamped condition (drafts, heel, sea density) and which one the loads use. */
+import { useForm } from 'react-hook-form';
+import { ConditionSchema, type Condition } from '@shared/schemas/survey';
+import type { UnitSystem } from '@shared/units/units';
+import { DEFAULT_SEA_DENSITY_KG_M3 } from '@shared/engine/frame';
+import { byKey, measureLabel, parseField, showField, unitResolver } from '../utils/form-units';
+import { NumberInput, TextInput, FormError, inputCls, primaryBtn, secondaryBtn, dangerBtn, Field } from './fields';
+import { useAutosave } from '../hooks/use-autosave';
+import { SaveIndicator } from './save-indicator';
+import type { Apply, SectionProps } from '../utils/types';
+import { activeCondition, newCondition } from '../utils/new-entities';
+import { formatNumber } from '@shared/units/units';
+import { display, unitLabel } from '@client/lib/unit-system';
+
+interface ConditionForm {
+  name: string;
+  time: string;
+  drafts: { forwardM: string; aftM: string; midPortM: string; midStarboardM: string };
+  heelDeg: string;
+  seaDensityKgM3: string;
+}
+
+const MEASURES = byKey({ forwardM: 'length', aftM: 'length', midPortM: 'length', midStarboardM: 'length', heelDeg: 'ratio', seaDensityKgM3: 'density' });
+
+/** ISO time → the value of a datetime-local input (the device's local time). */
+function toLocalInput(iso: string): string {
+  const d = new Date(iso);
+  if (Number.isNaN(d.getTime())) return '';
+  const off = d.getTimezoneOffset();
+  return new Date(d.getTime() - off * 60000).toISOString().slice(0, 16);
+}
+
+function toModel(v: ConditionForm, base: Condition, system: UnitSystem): unknown {
+  const L = (t: string) => parseField(t, 'length', system);
+  const t = new Date(v.time);
+  return {
+    ...base,
+    name: v.name.trim() === '' ? undefined : v.name.trim(),
+    time: Number.isNaN(t.getTime()) ? v.time : t.toISOString(),
+    drafts: { forwardM: L(v.drafts.forwardM), aftM: L(v.drafts.aftM), midPortM: L(v.drafts.midPortM), midStarboardM: L(v.drafts.midStarboardM) },
+    heelDeg: parseField(v.heelDeg, 'ratio', system),
+    seaDensityKgM3: parseField(v.seaDensityKgM3, 'density', system),
+  };
+}
+
+function ConditionEditor({ condition, apply, system }: { condition: Condition; apply: Apply; system: UnitSystem }) {
+  const S = (n: number | undefined) => showField(n, 'length', system);
+  const form = useForm<ConditionForm, unknown, Condition>({
+    mode: 'onChange',
+    resolver: unitResolver(ConditionSchema, (v: ConditionForm) => toModel(v, condition, system), system, MEASURES),
+    defaultValues: {
+      name: condition.name ?? '',
+      time: toLocalInput(condition.time),
+      drafts: { forwardM: S(condition.drafts.forwardM), aftM: S(condition.drafts.aftM), midPortM: S(condition.drafts.midPortM), midStarboardM: S(condition.drafts.midStarboardM) },
+      heelDeg: condition.heelDeg === undefined ? '' : String(condition.heelDeg),
+      seaDensityKgM3: showField(condition.seaDensityKgM3, 'density', system),
+    },
+  });
+  // contents are edited under Contents; keep the latest ones when saving this form
+  const state = useAutosave(form, (v) => apply({ kind: 'upsert', collection: 'conditions', entity: { ...v, contents: condition.contents } }));
+  const { register, formState } = form;
+  const lu = measureLabel('length', system);
+  const du = unitLabel('density', system);
+  const timeId = `time-${condition.id}`;
+  return (
+    <form className="space-y-3" onSubmit={(e) => e.preventDefault()} noValidate aria-label="Condition readings">
+      <FormError errors={formState.errors} />
+      <div className="grid gap-3 sm:grid-cols-2">
+        <TextInput register={register} name="name" label="Name" errors={formState.errors} placeholder="e.g. Morning soundings" />
+        <Field label="Time of readings" id={timeId} error={formState.errors.time?.message}>
+          <input id={timeId} type="datetime-local" className={inputCls} {...register('time')} />
+        </Field>
+      </div>
+      <fieldset className="grid grid-cols-2 gap-3 sm:grid-cols-4">
+        <legend className="mb-1 font-bold">Drafts (above the baseline)</legend>
+        <NumberInput register={register} name="drafts.aftM" label="Aft" unit={lu} errors={formState.errors} />
+        <NumberInput register={register} name="drafts.forwardM" label="Forward" unit={lu} errors={formState.errors} />
+        <NumberInput register={register} name="drafts.midPortM" label="Midship port" unit={lu} errors={formState.errors} hint="optional" />
+        <NumberInput register={register} name="drafts.midStarboardM" label="Midship stbd" unit={lu} errors={formState.errors} hint="optional" />
+      </fieldset>
+      <div className="grid grid-cols-2 gap-3 sm:grid-cols-4">
+        <NumberInput register={register} name="heelDeg" label="Heel (inclinometer)" unit="°" errors={formState.errors} hint="+ starboard down; empty: from midship drafts" />
+        <NumberInput
+          register={register}
+          name="seaDensityKgM3"
+          label="Sea water density"
+          unit={du}
+          errors={formState.errors}
+          placeholder={formatNumber(display(DEFAULT_SEA_DENSITY_KG_M3, 'density', system), 5)}
+          hint={`hydrometer reading; empty: default ${formatNumber(display(DEFAULT_SEA_DENSITY_KG_M3, 'density', system), 5)} ${du}`}
+        />
+      </div>
+      <SaveIndicator state={state} />
+    </form>
+  );
+}
+
+export function ReadingsSection({ survey, apply, system }: SectionProps) {
+  const active = activeCondition(survey);
+  const sorted = [...survey.conditions].sort((a, b) => a.time.localeCompare(b.time));
+  const addReading = async () => {
+    const c = newCondition(active);
+    await apply({ kind: 'upsert', collection: 'conditions', entity: c });
+    await apply({ kind: 'set', path: 'activeConditionId', value: c.id });
+  };
+  return (
+    <section aria-labelledby="readings-h" className="space-y-4">
+      <div className="flex flex-wrap items-center justify-between gap-2">
+        <h2 id="readings-h" className="text-2xl">
+          Readings
+        </h2>
+        <button type="button" className={primaryBtn} onClick={() => void addReading()}>
+          + New set of readings
+        </button>
+      </div>
+      <ul className="space-y-1" aria-label="Sets of readings">
+        {sorted.map((c) => (
+          <li key={c.id} className={`flex flex-wrap items-center gap-2 rounded-md border-2 p-2 ${c.id === active.id ? 'border-hull bg-sea-soft' : 'border-line bg-card'}`}>
+            <span className="font-bold">{c.name ?? 'Readings'}</span>
+            <span className="text-sm text-ink-soft">{new Date(c.time).toLocaleString()}</span>
+            {c.id === active.id ? (
+              <span className="ml-auto rounded bg-hull px-2 py-0.5 text-sm font-bold text-paper">used for loads</span>
+            ) : (
+              <span className="ml-auto flex gap-2">
+                <button type="button" className={secondaryBtn} onClick={() => void apply({ kind: 'set', path: 'activeConditionId', value: c.id })}>
+                  Use for loads
+                </button>
+                <button type="button" className={dangerBtn} onClick={() => void apply({ kind: 'delete', collection: 'conditions', entityId: c.id })}>
+                  Delete
+                </button>
+              </span>
+            )}
+          </li>
+        ))}
+      </ul>
+      <ConditionEditor key={`${active.id}-${system}`} condition={active} apply={apply} system={system} />
+    </section>
+  );
+}

@@ -1,0 +1,263 @@
+/**
+ * The surveyor's workspace for one survey: sections to enter the ship, readings, spaces, contents
+ * and plates, with the loads recomputed on this device on every change. Phone first: one section at
+ * a time under a strip that always shows the ship's state; on a wide screen the loads stay beside
+ * the form.
+ */
+import { useCallback, useMemo, useState, type ReactNode } from 'react';
+import { Link, useSearchParams } from 'react-router';
+import { computeSurvey, type SurveyResults } from '@shared/engine';
+import type { Survey } from '@shared/schemas/survey';
+import { applyLocalChange, useLocalSurvey, usePendingCount } from '@client/offline/survey-store';
+import { useSyncState } from '@client/offline/sync';
+import { setUnitSystem, useUnitSystem, fmt } from '@client/lib/unit-system';
+import { changeUnitSystem, useSession } from '@client/lib/session';
+import { paths } from '@client/config/paths';
+import { Cautions } from '@client/components/layout/cautions';
+import { BoundaryResultsTable } from '@client/components/results/boundary-results-table';
+import { UtilisationBadge } from '@client/components/results/utilisation';
+import type { EditOp, SectionProps } from '../utils/types';
+import { ShipSection } from './ship-section';
+import { ReadingsSection } from './readings-section';
+import { SpacesSection } from './spaces-section';
+import { ContentsSection } from './contents-section';
+import { PlatesSection } from './plates-section';
+import { LoadsSection } from './loads-section';
+import { PhotosSection } from './photos-section';
+import { ExportButton } from './survey-file';
+import { ModelSection } from './model-section';
+import { SurveyReviewBar } from '@client/components/review-notes/survey-review-bar';
+
+const SECTIONS = [
+  { id: 'ship', label: 'Ship' },
+  { id: 'readings', label: 'Readings' },
+  { id: 'spaces', label: 'Spaces' },
+  { id: 'contents', label: 'Contents' },
+  { id: 'plates', label: 'Plates' },
+  { id: 'loads', label: 'Loads' },
+  { id: 'model', label: '3D' },
+  { id: 'photos', label: 'Photos' },
+] as const;
+type SectionId = (typeof SECTIONS)[number]['id'];
+
+function useResults(survey: Survey | undefined): { results: SurveyResults | null; error: string | null } {
+  return useMemo(() => {
+    if (!survey) return { results: null, error: null };
+    try {
+      return { results: computeSurvey(survey), error: null };
+    } catch (err) {
+      return { results: null, error: err instanceof Error ? err.message : 'The loads could not be computed.' };
+    }
+  }, [survey]);
+}
+
+export function Workspace({ surveyId }: { surveyId: string }) {
+  const local = useLocalSurvey(surveyId);
+  const system = useUnitSystem();
+  const [params, setParams] = useSearchParams();
+  const section = (SECTIONS.find((s) => s.id === params.get('s'))?.id ?? 'ship') as SectionId;
+  const selectedId = params.get('item');
+  const [editError, setEditError] = useState<string | null>(null);
+  const survey = local?.doc;
+  const { results, error } = useResults(survey);
+
+  const go = useCallback(
+    (s: SectionId, item?: string | null) => {
+      const next = new URLSearchParams();
+      next.set('s', s);
+      if (item) next.set('item', item);
+      setParams(next, { replace: true });
+    },
+    [setParams],
+  );
+  const select = useCallback(
+    (id: string | null) => {
+      const next = new URLSearchParams(params);
+      if (id) next.set('item', id);
+      else next.delete('item');
+      setParams(next, { replace: true });
+    },
+    [params, setParams],
+  );
+  /** Opens the form of a compartment or boundary (from the model or a results row). */
+  const open = useCallback(
+    (id: string) => {
+      if (!survey) return;
+      if (survey.boundaries.some((b) => b.id === id)) go('plates', id);
+      else if (survey.compartments.some((c) => c.id === id)) go('spaces', id);
+    },
+    [survey, go],
+  );
+  const apply = useCallback(
+    async (op: EditOp) => {
+      try {
+        await applyLocalChange(surveyId, op);
+        setEditError(null);
+      } catch (err) {
+        setEditError(err instanceof Error ? err.message : 'This change could not be kept.');
+        throw err;
+      }
+    },
+    [surveyId],
+  );
+
+  if (local === undefined) return <p className="p-4 text-ink-soft">Opening the survey on this device…</p>;
+  if (local === null || !survey) {
+    return (
+      <main className="mx-auto max-w-xl p-4">
+        <h1 className="text-2xl">Survey not on this device</h1>
+        <p className="mt-2 text-ink-soft">It may not have synced here yet. Connect and sync, or open another survey.</p>
+        <Link className="mt-3 inline-block font-bold underline" to={paths.surveys}>
+          All surveys
+        </Link>
+      </main>
+    );
+  }
+
+  const props: SectionProps = { survey, results, apply, system, selectedId, select };
+  const body: Record<SectionId, ReactNode> = {
+    ship: <ShipSection key={system} {...props} />,
+    readings: <ReadingsSection {...props} />,
+    spaces: <SpacesSection {...props} />,
+    contents: <ContentsSection {...props} />,
+    plates: <PlatesSection {...props} />,
+    loads: <LoadsSection {...props} />,
+    model: <ModelSection {...props} open={open} />,
+    photos: <PhotosSection {...props} />,
+  };
+  const sideResults = section !== 'loads' && section !== 'model';
+
+  return (
+    <main className="mx-auto max-w-7xl pb-8" data-testid="workspace">
+      <div className="flex flex-wrap items-center gap-2 px-3 pt-3 sm:px-5">
+        <Link to={paths.surveys} className="min-h-touch content-center text-sm font-bold underline">
+          ← Surveys
+        </Link>
+        <h1 className="order-first min-w-0 basis-full truncate text-xl sm:order-none sm:basis-auto sm:flex-1 sm:text-2xl" title={survey.title}>
+          {survey.vessel.name} <span className="font-normal text-ink-soft">· {survey.title}</span>
+        </h1>
+        <SurveySyncChip surveyId={surveyId} />
+        <UnitToggle />
+        <ExportButton survey={survey} />
+      </div>
+      <StateStrip results={results} error={error} system={system} onOpen={() => go('loads')} />
+      <div className="mx-3 mt-2 sm:mx-5">
+        <SurveyReviewBar surveyId={surveyId} survey={survey} />
+      </div>
+      {editError && (
+        <p className="mx-3 mt-2 rounded-md border-2 border-danger bg-danger-soft p-2 font-bold sm:mx-5" role="alert">
+          <span aria-hidden="true">▲ </span>
+          {editError}
+        </p>
+      )}
+      <nav aria-label="Workspace sections" className="mt-2 overflow-x-auto border-b-2 border-line bg-paper px-1 sm:px-4">
+        <ul className="flex min-w-max gap-1">
+          {SECTIONS.map((s) => (
+            <li key={s.id}>
+              <button
+                type="button"
+                onClick={() => go(s.id)}
+                aria-current={s.id === section ? 'page' : undefined}
+                className={`min-h-touch rounded-t-md px-3 font-bold ${s.id === section ? 'bg-hull text-paper' : 'text-hull hover:bg-sea-soft'}`}
+              >
+                {s.label}
+              </button>
+            </li>
+          ))}
+        </ul>
+      </nav>
+      <div className={`gap-6 px-3 pt-4 sm:px-5 ${sideResults ? 'lg:grid lg:grid-cols-[minmax(0,1fr)_minmax(0,26rem)]' : ''}`}>
+        <div className="min-w-0">{body[section]}</div>
+        {sideResults && results && (
+          <aside className="mt-6 hidden space-y-3 lg:mt-0 lg:block" aria-label="Loads at a glance">
+            <h2 className="text-lg">Loads now</h2>
+            <BoundaryResultsTable results={results} system={system} onSelect={(id) => go('loads', id)} />
+            <Cautions compact />
+          </aside>
+        )}
+      </div>
+    </main>
+  );
+}
+
+/** Always on screen: heel, trim, flood water and the worst plate, big enough to read in sunlight. */
+function StateStrip({ results, error, system, onOpen }: { results: SurveyResults | null; error: string | null; system: ReturnType<typeof useUnitSystem>; onOpen: () => void }) {
+  if (error) {
+    return (
+      <p className="mx-3 mt-2 rounded-md border-2 border-danger bg-danger-soft p-2 font-bold sm:mx-5" role="alert">
+        Loads not computed: {error}
+      </p>
+    );
+  }
+  if (!results) return null;
+  const worst = results.boundaries.find((b) => b.id === results.summary.maxUtilisationBoundaryId);
+  const over = results.summary.overCapacityBoundaryIds.length;
+  return (
+    <button
+      type="button"
+      onClick={onOpen}
+      className={`mx-3 mt-2 flex w-[calc(100%-1.5rem)] flex-wrap items-center gap-x-4 gap-y-1 rounded-lg border-2 px-3 py-2 text-left sm:mx-5 sm:w-[calc(100%-2.5rem)] ${over ? 'border-danger bg-danger-soft' : 'border-hull bg-card'}`}
+      data-testid="state-strip"
+      aria-label="Ship state: open the loads"
+    >
+      <span>
+        <span className="text-xs font-bold uppercase text-ink-soft">Heel </span>
+        <b className="tabular-nums">
+          {Math.abs(results.frame.heelDeg).toFixed(1)}° {results.frame.heelDeg > 0.05 ? 'stbd' : results.frame.heelDeg < -0.05 ? 'port' : ''}
+        </b>
+      </span>
+      <span>
+        <span className="text-xs font-bold uppercase text-ink-soft">Trim </span>
+        <b className="tabular-nums">
+          {fmt(Math.abs(results.frame.trimM), 'length', system, 3)} {results.frame.trimM > 0.005 ? 'stern' : results.frame.trimM < -0.005 ? 'head' : ''}
+        </b>
+      </span>
+      <span>
+        <span className="text-xs font-bold uppercase text-ink-soft">Flood water </span>
+        <b className="tabular-nums">{fmt(results.ship.floodWater.massKg, 'mass', system, 4)}</b>
+      </span>
+      <span>
+        <span className="text-xs font-bold uppercase text-ink-soft">Oil </span>
+        <b className="tabular-nums">{fmt(results.ship.oil.massKg, 'mass', system, 4)}</b>
+      </span>
+      <span className="flex items-center gap-1">
+        <UtilisationBadge value={results.summary.maxUtilisation} compact />
+        {worst && <span className="text-sm font-bold">{worst.name}</span>}
+      </span>
+    </button>
+  );
+}
+
+function UnitToggle() {
+  const system = useUnitSystem();
+  const { user } = useSession();
+  // a signed-in person's choice goes to their profile; otherwise it stays on this device
+  const choose = (s: 'si' | 'us') => (user ? changeUnitSystem(s) : setUnitSystem(s));
+  return (
+    <div role="group" aria-label="Units" className="flex overflow-hidden rounded-lg border-2 border-hull">
+      {(['si', 'us'] as const).map((s) => (
+        <button
+          key={s}
+          type="button"
+          aria-pressed={system === s}
+          onClick={() => choose(s)}
+          className={`min-h-touch px-3 text-sm font-bold ${system === s ? 'bg-hull text-paper' : 'bg-card text-hull'}`}
+        >
+          {s === 'si' ? 'SI' : 'US'}
+        </button>
+      ))}
+    </div>
+  );
+}
+
+function SurveySyncChip({ surveyId }: { surveyId: string }) {
+  const pending = usePendingCount(surveyId) ?? 0;
+  const sync = useSyncState();
+  const text = pending > 0 ? (sync.state === 'offline' ? `${pending} to sync (offline)` : `${pending} to sync`) : sync.state === 'offline' ? 'On this device' : 'Synced';
+  return (
+    <span className={`rounded-md border-2 px-2 py-1 text-sm font-bold ${pending > 0 ? 'border-caution bg-caution-soft' : 'border-ok bg-ok-soft'}`} data-testid="survey-sync">
+      {text}
+    </span>
+  );
+}
+
