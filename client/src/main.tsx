@@ -4,16 +4,8 @@ import { RouterProvider } from 'react-router';
 import { AppProvider } from './app/provider';
 import { router } from './app/router';
 import { registerPwa } from './offline/pwa';
-import { startSync } from './offline/sync';
 import { requestPersistentStorage } from './offline/storage';
 import './styles.css';
-
-// The device store is the source of truth on deck: ask the browser not to evict it, keep the
-// outbox draining, and offer (never force) new versions of the app.
-void requestPersistentStorage();
-startSync();
-// By mode, not PROD: a build made under NODE_ENV=test (the browser tests) must still register it.
-if (import.meta.env.MODE !== 'development') registerPwa();
 
 createRoot(document.getElementById('root')!).render(
   <StrictMode>
@@ -22,3 +14,15 @@ createRoot(document.getElementById('root')!).render(
     </AppProvider>
   </StrictMode>,
 );
+
+// The device store is the source of truth on deck: ask the browser not to evict it, keep the
+// outbox draining, and offer (never force) new versions of the app. The sync engine (Dexie, zod)
+// is loaded right after the first render, so it does not delay the first screen.
+void requestPersistentStorage();
+const afterFirstRender = (fn: () => void) =>
+  typeof requestIdleCallback === 'function' ? requestIdleCallback(fn, { timeout: 1000 }) : setTimeout(fn, 0);
+afterFirstRender(() => {
+  void import('./offline/sync').then(({ startSync }) => startSync());
+  // By mode, not PROD: a build made under NODE_ENV=test (the browser tests) must still register it.
+  if (import.meta.env.MODE !== 'development') registerPwa();
+});

@@ -44,7 +44,10 @@ export async function startMailCatcher(opts: { port: number; dir: string }): Pro
             html: typeof parsed.html === 'string' ? parsed.html : '',
           };
           const name = `${Date.now()}-${mail.id}.json`;
-          fs.writeFileSync(path.join(opts.dir, name), JSON.stringify(mail, null, 2));
+          // Write then rename, so a reader never sees a half-written message.
+          const tmp = path.join(opts.dir, `.${name}.partial`);
+          fs.writeFileSync(tmp, JSON.stringify(mail, null, 2));
+          fs.renameSync(tmp, path.join(opts.dir, name));
           callback();
         })
         .catch((err: Error) => callback(err));
@@ -64,7 +67,7 @@ export function readCaughtMail(dir: string): CaughtMail[] {
   if (!fs.existsSync(dir)) return [];
   return fs
     .readdirSync(dir)
-    .filter((f) => f.endsWith('.json'))
+    .filter((f) => f.endsWith('.json') && !f.startsWith('.'))
     .sort()
     .reverse()
     .map((f) => JSON.parse(fs.readFileSync(path.join(dir, f), 'utf8')) as CaughtMail);

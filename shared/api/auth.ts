@@ -117,8 +117,4 @@ export type InviteMemberRequest = z.infer<typeof InviteMemberRequestSchema>;
 export const ChangeRoleRequestSchema = z.object({ role: RoleSchema });
 export type ChangeRoleRequest = z.infer<typeof ChangeRoleRequestSchema>;
 
-export const ROLE_LABELS: Record<z.infer<typeof RoleSchema>, string> = {
-  admin: 'Admin',
-  engineer: 'Engineer',
-  surveyor: 'Surveyor',
-};
+export { ROLE_LABELS } from './role-labels';

@@ -60,18 +60,16 @@ async function localDoc(page: Page, id: string): Promise<Survey> {
   return SurveySchema.parse(doc);
 }
 
-/**
- * Waits until the service worker holds the app (every chunk precached) and controls the page, as
- * after a first visit. If the app has not registered it within a few seconds, registers the same
- * /sw.js itself (see the report: the app's own registration did not happen in headless Chromium).
- */
+/** Waits until the service worker holds the app (every chunk precached) and controls the page, as after a first visit. */
 async function offlineReady(page: Page) {
-  await page.evaluate(async () => {
-    const deadline = Date.now() + 5000;
-    while (!(await navigator.serviceWorker.getRegistration()) && Date.now() < deadline) await new Promise((r) => setTimeout(r, 200));
-    if (!(await navigator.serviceWorker.getRegistration())) await navigator.serviceWorker.register('/sw.js');
-    await navigator.serviceWorker.ready;
-  });
+  // The app registers its own service worker at start-up; wait for it to be installed and active.
+  const ready = await page.evaluate(() =>
+    Promise.race([
+      navigator.serviceWorker.ready.then(() => 'ready'),
+      new Promise<string>((r) => setTimeout(() => r('the app did not register its service worker within 30 s'), 30_000)),
+    ]),
+  );
+  expect(ready).toBe('ready');
   await page.reload();
   await expect.poll(() => page.evaluate(() => navigator.serviceWorker.controller !== null), { timeout: 30_000 }).toBe(true);
 }

@@ -12,10 +12,13 @@
  * Shared by every feature (it lives in lib/, not in features/auth, for that reason).
  */
 import { useEffect, useSyncExternalStore, type ReactNode } from 'react';
-import { MeSchema, SessionResponseSchema, type Me, type SessionResponse, type UnitSystem } from '@shared/api/auth';
+import type { Me, SessionResponse, UnitSystem } from '@shared/api/auth';
 import { api, jsonBody, setTokenSource } from './api-client';
 import { setProfileUnitSystem } from './unit-system';
-import { syncNow } from '@client/offline/sync';
+import { parseMe, parseSessionResponse } from './session-body';
+
+/** Syncs now (the engine is loaded on demand: it is not part of the first screen's JavaScript). */
+const syncNow = () => import('@client/offline/sync').then((m) => m.syncNow());
 
 export type SessionStatus =
   /** Checking the refresh cookie (a remembered profile, if any, is already usable). */
@@ -59,8 +62,7 @@ function readIdentity(): Me | null {
   const raw = storage.get(IDENTITY_KEY);
   if (!raw) return null;
   try {
-    const parsed = MeSchema.safeParse(JSON.parse(raw));
-    return parsed.success ? parsed.data : null;
+    return parseMe(JSON.parse(raw));
   } catch {
     return null;
   }
@@ -123,10 +125,10 @@ async function doRefresh(): Promise<string | null> {
     return null;
   }
   if (res.ok) {
-    const parsed = SessionResponseSchema.safeParse(await res.json().catch(() => null));
-    if (parsed.success) {
-      acceptSession(parsed.data);
-      return parsed.data.accessToken;
+    const parsed = parseSessionResponse(await res.json().catch(() => null));
+    if (parsed) {
+      acceptSession(parsed);
+      return parsed.accessToken;
     }
   }
   accessToken = null;

@@ -5,8 +5,11 @@
  * outbox (it lives in IndexedDB) but would throw away a half-typed form and interrupt a sync.
  */
 import { useSyncExternalStore } from 'react';
-import { registerSW } from 'virtual:pwa-register';
-import { pendingChangeCount, syncNow } from './sync';
+
+// The outbox count, the sync engine and the service-worker helper are loaded when first needed, so
+// the update banner adds neither Dexie nor zod to the first screen's JavaScript.
+const pendingChangeCount = async () => (await import('./sync-counts')).pendingChangeCount();
+const syncNow = async () => (await import('./sync')).syncNow();
 
 const UPDATE_CHECK_MS = 60 * 60_000;
 
@@ -59,14 +62,16 @@ async function refreshBlock(): Promise<void> {
 /** Registers the service worker (production builds). Safe to call once at start-up. */
 export function registerPwa(): void {
   if (typeof navigator === 'undefined' || !('serviceWorker' in navigator)) return;
-  updateSW = registerSW({
-    immediate: true,
-    onNeedRefresh: () => set({ updateReady: true, dismissed: false }),
-    onOfflineReady: () => set({ offlineReady: true }),
-    onRegisteredSW: (_url, reg) => {
-      registration = reg;
-      if (reg) setInterval(() => void reg.update().catch(() => undefined), UPDATE_CHECK_MS);
-    },
+  void import('virtual:pwa-register').then(({ registerSW }) => {
+    updateSW = registerSW({
+      immediate: true,
+      onNeedRefresh: () => set({ updateReady: true, dismissed: false }),
+      onOfflineReady: () => set({ offlineReady: true }),
+      onRegisteredSW: (_url, reg) => {
+        registration = reg;
+        if (reg) setInterval(() => void reg.update().catch(() => undefined), UPDATE_CHECK_MS);
+      },
+    });
   });
 }
 

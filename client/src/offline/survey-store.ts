@@ -1,10 +1,10 @@
 /**
- * Reads and writes of surveys on the device. Reads are reactive (`useLiveQuery`); every write goes
- * through `createLocalSurvey` / `applyLocalChange`, which change the document and append the edit
- * to the outbox in ONE Dexie transaction — no network inside, so an edit is either fully kept or
+ * Reads and writes of surveys on the device. Reads are reactive (`useLiveQuery`) and live in
+ * ./local-surveys.ts (Dexie only: a screen that only lists surveys loads no validation); they are
+ * re-exported here. Every write goes through `createLocalSurvey` / `applyLocalChange`, which change
+ * the document and append the edit to the outbox in ONE Dexie transaction — no network inside, so an edit is either fully kept or
  * not made at all, even if the phone dies mid-write. Sync (./sync.ts) does the rest.
  */
-import { useLiveQuery } from 'dexie-react-hooks';
 import { SurveySchema, type Survey } from '@shared/schemas/survey';
 import {
   SurveyOpSchema,
@@ -16,7 +16,18 @@ import {
 import { applyOp, changedFields, findEntity, replay } from '@shared/sync/apply';
 import { formatZodIssues } from '@shared/api/format-issues';
 import { reportStorageError } from './storage';
-import { db, getDeviceId, type LocalConflict, type LocalSurvey, type OutboxEntry } from './db';
+import { db, getDeviceId } from './db';
+
+export {
+  dismissRejectedChange,
+  getLocalSurvey,
+  useAllOpenConflicts,
+  useConflicts,
+  useLocalSurvey,
+  useLocalSurveys,
+  usePendingCount,
+  useRejectedChanges,
+} from './local-surveys';
 
 /** An edit that would leave the survey invalid; nothing was written. */
 export class LocalChangeError extends Error {
@@ -58,20 +69,6 @@ async function write<T>(fn: () => Promise<T>): Promise<T> {
     if (!(err instanceof LocalChangeError)) reportStorageError(err);
     throw err;
   }
-}
-
-/** Lists every survey on this device, most recently changed first. Undefined while loading. */
-export function useLocalSurveys(): LocalSurvey[] | undefined {
-  return useLiveQuery(() => db.surveys.orderBy('updatedAt').reverse().toArray(), []);
-}
-
-/** One survey on this device: undefined while loading, null when this device does not have it. */
-export function useLocalSurvey(id: string | undefined): LocalSurvey | null | undefined {
-  return useLiveQuery(async () => (id ? ((await db.surveys.get(id)) ?? null) : null), [id]);
-}
-
-export function getLocalSurvey(id: string): Promise<LocalSurvey | undefined> {
-  return db.surveys.get(id);
 }
 
 /** Puts a new survey on this device and queues its creation on the server. */
@@ -164,22 +161,6 @@ export async function applyLocalChange(surveyId: string, op: SurveyOp): Promise<
   return id ?? null;
 }
 
-/** Open conflicts of a survey, oldest first. */
-export function useConflicts(surveyId: string | undefined): LocalConflict[] | undefined {
-  return useLiveQuery(
-    async () =>
-      surveyId
-        ? (await db.conflicts.where({ surveyId, status: 'open' }).toArray()).sort((a, b) => a.createdAt.localeCompare(b.createdAt))
-        : [],
-    [surveyId],
-  );
-}
-
-/** Every open conflict on this device. */
-export function useAllOpenConflicts(): LocalConflict[] | undefined {
-  return useLiveQuery(() => db.conflicts.where('status').equals('open').toArray(), []);
-}
-
 /**
  * Settles a conflict with the chosen value (`conflict.kept`, `conflict.proposed`, or anything else
  * valid for its target): the survey on this device takes it at once, and the choice is queued for
@@ -192,30 +173,6 @@ export async function resolveConflict(conflictId: string, value: unknown): Promi
   await db.transaction('rw', [db.surveys, db.outbox, db.conflicts, db.meta], async () => {
     await applyLocalChanges(conflict.surveyId, [{ kind: 'resolve-conflict', conflictId, target, value: value ?? null }]);
     await db.conflicts.update(conflictId, { status: 'resolved', resolving: 1, resolvedAt: new Date().toISOString() });
-  });
-}
-
-/** Changes waiting for the server. */
-export function usePendingCount(surveyId?: string): number | undefined {
-  return useLiveQuery(
-    () =>
-      surveyId
-        ? db.outbox.where({ surveyId, state: 'pending' }).count()
-        : db.outbox.where('state').equals('pending').count(),
-    [surveyId],
-  );
-}
-
-/** Changes the server refused, with its reason. */
-export function useRejectedChanges(): OutboxEntry[] | undefined {
-  return useLiveQuery(() => db.outbox.where('state').equals('rejected').toArray(), []);
-}
-
-/** Removes a refused change from the list once the user has read it. */
-export async function dismissRejectedChange(seq: number): Promise<void> {
-  await db.transaction('rw', db.outbox, async () => {
-    const e = await db.outbox.get(seq);
-    if (e?.state === 'rejected') await db.outbox.delete(seq);
   });
 }
 

@@ -4,8 +4,6 @@
  * exponentially; a 401 that the token refresh cannot fix pauses sync with "sign in to sync" and
  * keeps the outbox; a change the server refuses for good is marked and shown while the rest go on.
  */
-import { useSyncExternalStore } from 'react';
-import { useLiveQuery } from 'dexie-react-hooks';
 import {
   MAX_PUSH_CHANGES,
   PullResponseSchema,
@@ -18,34 +16,10 @@ import { ApiError, OfflineError, api, jsonBody } from '@client/lib/api-client';
 import { db, getMeta, META, setMeta, type OutboxEntry } from './db';
 import { mergeServerSurveys, rebaseLocalSurvey, subscribeLocalChanges } from './survey-store';
 import { storeReviewNotes } from './review-notes';
+import { getEngineStatus, setEngineStatus } from './sync-state';
 
-export type SyncStateName = 'offline' | 'waiting' | 'syncing' | 'synced' | 'attention';
-
-export interface SyncState {
-  state: SyncStateName;
-  /** Changes on this device the server has not confirmed yet. */
-  pending: number;
-  lastSyncedAt?: string;
-  /** Changes the server refused for good, with its reason. */
-  rejected: OutboxEntry[];
-  openConflicts: number;
-  /** The session ended and could not be renewed: sign in again to sync (nothing is dropped). */
-  needsSignIn: boolean;
-  /** The last failure, when sync is retrying. */
-  error?: string;
-  /** When the next automatic attempt is due after a failure. */
-  retryAt?: string;
-}
-
-interface EngineStatus {
-  running: boolean;
-  /** navigator.onLine, or false after the server could not be reached. */
-  online: boolean;
-  needsSignIn: boolean;
-  lastSyncedAt?: string;
-  error?: string;
-  retryAt?: string;
-}
+export { useSyncState, type SyncState, type SyncStateName } from './sync-state';
+export { pendingChangeCount } from './sync-counts';
 
 const PUSH_BATCH = Math.min(200, MAX_PUSH_CHANGES);
 const INTERVAL_MS = 30_000;
@@ -53,12 +27,7 @@ const LOCAL_CHANGE_DELAY_MS = 1_500;
 const BACKOFF_MIN_MS = 2_000;
 const BACKOFF_MAX_MS = 5 * 60_000;
 
-let status: EngineStatus = { running: false, online: typeof navigator === 'undefined' ? true : navigator.onLine, needsSignIn: false };
-const subscribers = new Set<() => void>();
-function setStatus(patch: Partial<EngineStatus>) {
-  status = { ...status, ...patch };
-  subscribers.forEach((fn) => fn());
-}
+const setStatus = setEngineStatus;
 
 let inFlight: Promise<void> | null = null;
 let again = false;
@@ -196,7 +165,7 @@ export function syncNow(): Promise<void> {
     do {
       again = false;
       await runOnce();
-    } while (again && !status.needsSignIn);
+    } while (again && !getEngineStatus().needsSignIn);
   })().finally(() => {
     inFlight = null;
   });
@@ -226,7 +195,7 @@ export function startSync(opts: { intervalMs?: number } = {}): () => void {
     localTimer = setTimeout(() => void syncNow(), LOCAL_CHANGE_DELAY_MS);
   });
   void getMeta<string>(META.lastSyncedAt).then((t) => {
-    if (t && !status.lastSyncedAt) setStatus({ lastSyncedAt: t });
+    if (t && !getEngineStatus().lastSyncedAt) setStatus({ lastSyncedAt: t });
   });
   void syncNow();
   stopper = () => {
@@ -240,50 +209,4 @@ export function startSync(opts: { intervalMs?: number } = {}): () => void {
     stopper = null;
   };
   return stopper;
-}
-
-function subscribe(fn: () => void): () => void {
-  subscribers.add(fn);
-  return () => subscribers.delete(fn);
-}
-const getSnapshot = () => status;
-
-/** The sync state for the header and anything else that shows it. */
-export function useSyncState(): SyncState {
-  const s = useSyncExternalStore(subscribe, getSnapshot, getSnapshot);
-  const counts = useLiveQuery(
-    async () => ({
-      pending: await db.outbox.where('state').equals('pending').count(),
-      rejected: await db.outbox.where('state').equals('rejected').toArray(),
-      openConflicts: await db.conflicts.where('status').equals('open').count(),
-    }),
-    [],
-  );
-  const pending = counts?.pending ?? 0;
-  const rejected = counts?.rejected ?? [];
-  const openConflicts = counts?.openConflicts ?? 0;
-  const state: SyncStateName = s.running
-    ? 'syncing'
-    : !s.online
-      ? 'offline'
-      : s.needsSignIn || rejected.length > 0 || openConflicts > 0
-        ? 'attention'
-        : pending > 0 || s.error
-          ? 'waiting'
-          : 'synced';
-  return {
-    state,
-    pending,
-    lastSyncedAt: s.lastSyncedAt,
-    rejected,
-    openConflicts,
-    needsSignIn: s.needsSignIn,
-    error: s.error,
-    retryAt: s.retryAt,
-  };
-}
-
-/** How many changes wait in the outbox (for code outside React, e.g. the update prompt). */
-export function pendingChangeCount(): Promise<number> {
-  return db.outbox.where('state').equals('pending').count();
 }

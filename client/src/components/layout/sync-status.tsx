@@ -3,13 +3,18 @@
  * at HH:MM / needs attention. Opening it shows what needs attention (refused changes, conflicts,
  * sign-in), lets the user sync now, and shows the device storage.
  */
+import { lazy, Suspense } from 'react';
 import { Link } from 'react-router';
 import { paths } from '@client/config/paths';
-import { syncNow, useSyncState, type SyncState } from '@client/offline/sync';
-import { dismissRejectedChange } from '@client/offline/survey-store';
+import { useSyncState, type SyncState } from '@client/offline/sync-state';
 import { describeOp } from '@client/offline/describe';
-import { ConflictList } from '@client/components/sync/conflict-list';
 import { StorageStatus } from './storage-status';
+
+// The header is on every screen: what needs the device store or the sync engine (Dexie, zod) is
+// loaded when used, not with the first screen.
+const ConflictList = lazy(() => import('@client/components/sync/conflict-list').then((m) => ({ default: m.ConflictList })));
+const syncNow = () => import('@client/offline/sync').then((m) => m.syncNow());
+const dismissRejectedChange = (seq: number) => import('@client/offline/local-surveys').then((m) => m.dismissRejectedChange(seq));
 
 const hhmm = (iso?: string) =>
   iso ? new Date(iso).toLocaleTimeString([], { hour: '2-digit', minute: '2-digit', hour12: false }) : undefined;
@@ -65,7 +70,9 @@ export function SyncStatus() {
         )}
         {s.openConflicts > 0 && (
           <div className="max-h-[60vh] overflow-y-auto" data-testid="sync-conflicts">
-            <ConflictList />
+            <Suspense fallback={null}>
+              <ConflictList />
+            </Suspense>
           </div>
         )}
         {s.rejected.length > 0 && (

@@ -1,8 +1,10 @@
-import { useState } from 'react';
+import { lazy, Suspense, useState } from 'react';
 import { useSession } from '@client/lib/session';
 import { Button } from '@client/components/ui/button';
 import { Modal } from './modal';
-import { SignInForm } from './sign-in-form';
+
+// The form (react-hook-form, zod) is loaded when the dialog opens, not with every screen.
+const SignInForm = lazy(() => import('./sign-in-form').then((m) => ({ default: m.SignInForm })));
 
 /**
  * When the network is back but the sign-in has ended, say so without blocking the work: a banner,
@@ -21,7 +23,9 @@ export function SessionPrompt() {
         <Button onClick={() => setOpen(true)}>Sign in again</Button>
       </div>
       <Modal open={open} title="Sign in again" onClose={() => setOpen(false)}>
-        <SignInForm defaultEmail={user.email} onSignedIn={() => setOpen(false)} />
+        <Suspense fallback={<p className="text-ink-soft">Loading…</p>}>
+          <SignInForm defaultEmail={user.email} onSignedIn={() => setOpen(false)} />
+        </Suspense>
       </Modal>
     </div>
   );

@@ -5,9 +5,14 @@ import { paths } from '@client/config/paths';
 import { signOut } from '@client/lib/session';
 import { Button } from '@client/components/ui/button';
 import { FormAlert } from '@client/components/ui/form-field';
-import { db } from '@client/offline/db';
-import { pendingChangeCount } from '@client/offline/sync';
 import { Modal } from './modal';
+
+// The device store (Dexie) is loaded when the dialog needs it, not with every screen.
+const pendingChangeCount = async () => (await import('@client/offline/sync-counts')).pendingChangeCount();
+const clearDevice = async () => {
+  const { db } = await import('@client/offline/db');
+  await Promise.all(db.tables.map((t) => t.clear()));
+};
 
 /**
  * Asks before signing out. By default the device store is kept (it opens again at the next
@@ -30,7 +35,7 @@ export function SignOutDialog({ open, onClose }: { open: boolean; onClose: () =>
 
   const confirm = async () => {
     setBusy(true);
-    if (removeData) await Promise.all(db.tables.map((t) => t.clear()));
+    if (removeData) await clearDevice();
     await signOut();
     queryClient.clear();
     setBusy(false);

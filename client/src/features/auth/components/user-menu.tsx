@@ -1,6 +1,7 @@
 import { useState } from 'react';
 import { Link, useLocation } from 'react-router';
-import { ROLE_LABELS, type Me, type UnitSystem } from '@shared/api/auth';
+import type { Me, UnitSystem } from '@shared/api/auth';
+import { ROLE_LABELS } from '@shared/api/role-labels';
 import { paths } from '@client/config/paths';
 import { changeUnitSystem, useSession } from '@client/lib/session';
 import { SignOutDialog } from './sign-out-dialog';

@@ -2,10 +2,8 @@
 import { useRef } from 'react';
 import { useNavigate } from 'react-router';
 import type { Survey } from '@shared/schemas/survey';
-import { createLocalSurvey, getLocalSurvey } from '@client/offline/survey-store';
 import { paths } from '@client/config/paths';
 import { secondaryBtn } from './fields';
-import { parseSurveyFile, withFreshIds } from '../utils/survey-file';
 
 export function ExportButton({ survey }: { survey: Survey }) {
   const exportFile = () => {
@@ -29,6 +27,12 @@ export function ImportButton({ onError }: { onError: (message: string | null) =>
   const navigate = useNavigate();
   const onFile = async (file: File) => {
     onError(null);
+    // Loaded when a file is chosen: reading and storing one needs the survey schema (zod), which the
+    // survey list does not otherwise load.
+    const [{ parseSurveyFile, withFreshIds }, { createLocalSurvey, getLocalSurvey }] = await Promise.all([
+      import('../utils/survey-file'),
+      import('@client/offline/survey-store'),
+    ]);
     const parsed = parseSurveyFile(await file.text());
     if (!parsed.ok) {
       onError(`${file.name} is not a survey file Brineline can read:\n${parsed.errors.slice(0, 12).join('\n')}`);

@@ -11,12 +11,11 @@ import {
   useReactTable,
   type SortingState,
 } from '@tanstack/react-table';
-import { createLocalSurvey, useLocalSurveys } from '@client/offline/survey-store';
+import { useLocalSurveys } from '@client/offline/local-surveys';
 import { db, type LocalSurvey } from '@client/offline/db';
 import { paths } from '@client/config/paths';
 import type { SurveyStatus } from '@shared/schemas/sync';
 import { inputCls, primaryBtn } from './fields';
-import { newSurvey } from '../utils/new-entities';
 import { ImportButton } from './survey-file';
 
 const STATUS_LABEL: Record<SurveyStatus, string> = {
@@ -112,6 +111,8 @@ export function SurveyList() {
 
   const start = async () => {
     try {
+      // Loaded on click: the survey schema and the write path (zod) are not needed to show the list.
+      const [{ newSurvey }, { createLocalSurvey }] = await Promise.all([import('../utils/new-entities'), import('@client/offline/survey-store')]);
       const s = newSurvey();
       await createLocalSurvey(s);
       navigate(`${paths.survey(s.id)}?s=ship`);

@@ -1,0 +1,19 @@
+/** The outbox and conflict counts behind the sync state, read live from the device store. */
+import { liveQuery } from 'dexie';
+import { db } from './db';
+import type { SyncCounts } from './sync-state';
+
+/** Calls `onChange` with the counts now and after every change to them; returns a function that stops. */
+export function watchSyncCounts(onChange: (counts: SyncCounts) => void): () => void {
+  const subscription = liveQuery(async () => ({
+    pending: await db.outbox.where('state').equals('pending').count(),
+    rejected: await db.outbox.where('state').equals('rejected').toArray(),
+    openConflicts: await db.conflicts.where('status').equals('open').count(),
+  })).subscribe({ next: onChange, error: () => undefined });
+  return () => subscription.unsubscribe();
+}
+
+/** How many changes wait in the outbox (for code outside React, e.g. the update prompt). */
+export function pendingChangeCount(): Promise<number> {
+  return db.outbox.where('state').equals('pending').count();
+}
