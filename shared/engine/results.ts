@@ -3,6 +3,7 @@
  * m, m², m³, kg, N, N·m, Pa, s. Points are ship axes.
  */
 import type { LoadDiagramPoint } from './plate';
+import type { BeamResult } from './beam';
 
 export interface Point {
   x: number;
@@ -130,17 +131,10 @@ export interface NetResult {
   minPressurePa: number;
 }
 
-export interface StiffenerItem {
+/** One stiffener: its beam result under its strip of the plate load, and its check. */
+export interface StiffenerItem extends BeamResult {
   /** Distance across the plate from its edge, m. */
   offsetM: number;
-  spanM: number;
-  totalLoadN: number;
-  reactionStartN: number;
-  reactionEndN: number;
-  maxMomentNm: number;
-  maxMomentAtM: number;
-  endMomentStartNm: number;
-  endMomentEndNm: number;
   requiredModulusM3: number;
   utilisation: number;
 }
