@@ -199,10 +199,16 @@ const GRIDS: { n: number; stride: number }[] = [
   { n: 1024, stride: 113 },
 ];
 
-export function main(): void {
+/** V8's young-generation setting of this process, for the record beside the timings. */
+function youngGeneration(): string {
+  const flag = process.execArgv.find((a) => a.startsWith('--max-semi-space-size'));
+  return flag ? `young generation ${flag}` : "Node's default young generation";
+}
+
+export function main(opts: { timingOnly?: boolean } = {}): void {
   const survey = generateVessel();
   const [load1] = loadavg();
-  console.log(`Vessel: ${survey.compartments.length} compartments, ${survey.boundaries.length} boundaries (heel 3.5°, trim 1.6 m by the stern)`);
+  console.log(`Vessel: ${survey.compartments.length} compartments, ${survey.boundaries.length} boundaries (heel 3.5°, trim 1.6 m by the stern); ${youngGeneration()}`);
   let r = computeSurvey(survey);
   for (let i = 0; i < 10; i++) r = computeSurvey(survey);
   const times: number[] = [];
@@ -223,6 +229,7 @@ export function main(): void {
       `(fastest ${Math.min(...times).toFixed(2)} ms, 10th percentile ${p10.toFixed(2)} ms); process CPU time median ${median(cpuTimes).toFixed(2)} ms (includes the collector's helper threads)`,
   );
   console.log(`  machine load average ${load1.toFixed(2)} on this run: on a shared machine the fastest run is the better guide to an idle one`);
+  if (opts.timingOnly) return;
   const exact = r.boundaries.map((b) => b.net.forceN);
   console.log('');
   console.log('Engine error: exact in closed form (rounding only, ~1e-15 relative; tests hold it to 1e-9 on closed-form cases).');
@@ -265,4 +272,4 @@ export function main(): void {
   console.log(`Engine target < 20 ms median: ${engineMs < 20 ? 'met' : 'not met'} on this run (wall clock, load average ${load1.toFixed(2)}).`);
 }
 
-if (process.argv[1] && resolve(process.argv[1]) === fileURLToPath(import.meta.url)) main();
+if (process.argv[1] && resolve(process.argv[1]) === fileURLToPath(import.meta.url)) main({ timingOnly: process.argv.includes('--timing-only') });
