@@ -9,6 +9,7 @@ import * as accounts from './20261201000100_accounts';
 import * as surveys from './20261201000200_surveys';
 import * as photos from './20261201000300_photos';
 import * as review from './20261201000400_review';
+import * as resultsAsJson from './20261201000500_results_as_json';
 
 const migrations: Record<string, Knex.Migration> = {
   '20261201000000_organisations_users': organisationsUsers,
@@ -16,6 +17,7 @@ const migrations: Record<string, Knex.Migration> = {
   '20261201000200_surveys': surveys,
   '20261201000300_photos': photos,
   '20261201000400_review': review,
+  '20261201000500_results_as_json': resultsAsJson,
 };
 
 export const migrationSource: Knex.MigrationSource<string> = {
