@@ -170,6 +170,10 @@ describe('review desk and master’s brief', () => {
     await expect(notes.textContent()).resolves.toContain('Sound once shored');
     expect(await noSideScroll(surveyor)).toBeLessThanOrEqual(0);
     await surveyor.screenshot({ path: screenshotPath('review-notes-surveyor-360'), fullPage: true });
+    // The survey list names the engineer who reviewed it.
+    await surveyor.goto(`${baseUrl}/surveys`);
+    const row = surveyor.getByRole('row').filter({ hasText: 'MV Corran Tide' });
+    await expect.poll(() => row.first().textContent(), { timeout: 30_000 }).toContain('Tomas Varga');
   });
 
   it('the review desk reads on a phone', async () => {

@@ -12,6 +12,7 @@ import {
   type SortingState,
 } from '@tanstack/react-table';
 import { useLocalSurveys } from '@client/offline/local-surveys';
+import { useReviewers } from '@client/offline/reviewers';
 import { db, type LocalSurvey } from '@client/offline/db';
 import { paths } from '@client/config/paths';
 import type { SurveyStatus } from '@shared/schemas/sync';
@@ -29,6 +30,7 @@ const STATUS_LABEL: Record<SurveyStatus, string> = {
 interface Row {
   survey: LocalSurvey;
   pending: number;
+  reviewer: string | null;
 }
 
 const col = createColumnHelper<Row>();
@@ -46,6 +48,7 @@ function usePendingBySurvey(): Map<string, number> {
 export function SurveyList() {
   const surveys = useLocalSurveys();
   const pending = usePendingBySurvey();
+  const reviewers = useReviewers();
   const navigate = useNavigate();
   const [query, setQuery] = useState('');
   const [status, setStatus] = useState<SurveyStatus | ''>('');
@@ -53,8 +56,8 @@ export function SurveyList() {
   const [error, setError] = useState<string | null>(null);
 
   const rows = useMemo(
-    () => (surveys ?? []).filter((s) => !status || s.status === status).map((s) => ({ survey: s, pending: pending.get(s.id) ?? 0 })),
-    [surveys, pending, status],
+    () => (surveys ?? []).filter((s) => !status || s.status === status).map((s) => ({ survey: s, pending: pending.get(s.id) ?? 0, reviewer: reviewers.get(s.id) ?? null })),
+    [surveys, pending, reviewers, status],
   );
   const columns = useMemo(
     () => [
@@ -81,13 +84,14 @@ export function SurveyList() {
             <span className="rounded border-2 border-ok bg-ok-soft px-1.5 text-sm font-bold">Synced</span>
           ),
       }),
-      col.accessor((r) => r.survey.createdBy?.name ?? '', {
-        id: 'people',
-        header: 'Surveyor / reviewer',
+      col.accessor((r) => r.survey.createdBy?.name ?? '', { id: 'surveyor', header: 'Surveyor', cell: (c) => <span className="text-sm">{c.getValue() || '—'}</span> }),
+      col.accessor((r) => r.reviewer ?? '', {
+        id: 'reviewer',
+        header: 'Reviewer',
         cell: (c) => (
           <span className="text-sm">
-            {c.getValue() || '—'}
-            <span className="block text-xs text-ink-soft">{c.row.original.survey.status === 'draft' ? 'not yet submitted' : 'shore review'}</span>
+            {c.getValue() ||
+              (c.row.original.survey.status === 'draft' ? 'not sent yet' : c.row.original.survey.status === 'submitted' ? 'waiting for a reviewer' : '—')}
           </span>
         ),
       }),
