@@ -71,7 +71,8 @@ export function createApp(given: AppDeps): BrinelineApp {
         res.setHeader('x-request-id', id);
         return id;
       },
-      autoLogging: { ignore: (req) => (req as Request).url === '/api/health' },
+      // Nothing to write when the level is above info (LOG_LEVEL=warn, silent): skip the per-request work.
+      autoLogging: deps.logger.isLevelEnabled('info') ? { ignore: (req) => (req as Request).url === '/api/health' } : false,
       // A brief link's token is its only key: never write it to the logs.
       serializers: { req: (req: { url?: string }) => ({ ...req, url: req.url?.replace(/^\/brief\/[^/?#]*/, '/brief/[token]') }) },
     }),

@@ -9,7 +9,8 @@ import {
   type PushResponse,
 } from '@shared/schemas/sync';
 import type { AppDeps } from '../app';
-import { ANY_MEMBER, authOf, type RouteSpec } from '../http/route';
+import type { Role } from '@shared/api/roles';
+import { ANY_MEMBER, authOf, confirmMembership, ensureMembership, unconfirmedAuthOf, type RouteSpec } from '../http/route';
 import { HttpError } from '../http/errors';
 import { createResultsScheduler, createSurvey, getSurvey, getSurveyJson, listSurveys } from '../services/surveys';
 import { pull, push } from '../services/sync';
@@ -24,19 +25,26 @@ export function surveyRoutes(deps: AppDeps): RouteSpec[] {
       method: 'get',
       path: '/surveys',
       policy: ANY_MEMBER,
+      checksMembership: true,
       handler: async (req, res) => {
-        res.json(await listSurveys(deps.db, authOf(req), ListSurveysQuerySchema.parse(req.query)));
+        const q = ListSurveysQuerySchema.parse(req.query);
+        res.json(await listSurveys(deps.db, unconfirmedAuthOf(req), q, (role) => confirmMembership(req, role)));
       },
     },
     {
       method: 'get',
       path: '/surveys/:id',
       policy: ANY_MEMBER,
+      checksMembership: true,
       handler: async (req, res) => {
         const { id } = IdParam.parse(req.params);
         const q = DetailQuery.parse(req.query);
-        if (q.results === 'current') res.json(await getSurvey(deps.db, authOf(req), id, { fresh: true, scheduler }));
-        else res.type('application/json').send(await getSurveyJson(deps.db, authOf(req), id, scheduler));
+        if (q.results === 'current') {
+          res.json(await getSurvey(deps.db, await ensureMembership(req), id, { fresh: true, scheduler }));
+        } else {
+          const confirm = (role: Role | null) => confirmMembership(req, role);
+          res.type('application/json').send(await getSurveyJson(deps.db, unconfirmedAuthOf(req), id, { scheduler, confirm }));
+        }
       },
     },
     {

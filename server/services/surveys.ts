@@ -2,9 +2,9 @@
  * Surveys on the server: listing, reading (with the engine results of the current revision,
  * recomputed here with the same engine the device runs) and creating one directly.
  */
-import { randomUUID } from 'node:crypto';
 import type { Knex } from 'knex';
 import { computeSurvey, ENGINE_VERSION } from '@shared/engine';
+import type { Role } from '@shared/api/roles';
 import type { Survey } from '@shared/schemas/survey';
 import type { ListSurveysQuery, SurveyDetail, SurveyListResponse, SurveyResults } from '@shared/schemas/sync';
 import type { Db } from '../db/knex';
@@ -52,8 +52,18 @@ export async function ensureResults(db: Db, surveyId: string, revision: number, 
   return (await repo.findResults(db, surveyId, revision, ENGINE_VERSION))!;
 }
 
-export async function listSurveys(db: Db, auth: AuthContext, q: ListSurveysQuery): Promise<SurveyListResponse> {
-  const { items, total } = await repo.listSurveys(db, auth.orgId, q);
+/**
+ * A page of surveys. With `confirm`, the same query checks the caller's membership and hands the
+ * role it found to `confirm` (which throws when there is none) before anything is returned.
+ */
+export async function listSurveys(
+  db: Db,
+  auth: AuthContext,
+  q: ListSurveysQuery,
+  confirm?: (role: Role | null) => unknown,
+): Promise<SurveyListResponse> {
+  const { items, total, memberRole } = await repo.listSurveys(db, auth.orgId, q, confirm ? auth : undefined);
+  confirm?.(memberRole);
   return { items, total, page: q.page, pageSize: q.pageSize };
 }
 
@@ -83,24 +93,51 @@ export async function getSurvey(
   return { ...s, results, conflicts };
 }
 
+const utf8 = (text: string) => Buffer.from(text, 'utf8');
+const DOC_KEY = utf8(',"doc":');
+const RESULTS_KEY = utf8(',"results":');
+const CONFLICTS_KEY = utf8('},"conflicts":');
+
+/** `{"a":1}` → `{"a":1` (to continue the object). */
+const open = (obj: object) => {
+  const text = JSON.stringify(obj);
+  return utf8(text.slice(0, -1));
+};
+
 /**
- * The same answer as getSurvey (latest stored results), as JSON text: the document and the results
- * go out as PostgreSQL stored them, without being parsed and serialised again — the costly part of
- * reading a large survey.
+ * The same answer as getSurvey (latest stored results), as UTF-8 JSON bytes: the document and the
+ * results go out as PostgreSQL stored them, never parsed and serialised again — the costly part of
+ * reading a large survey — and the survey, its results and its conflicts come from one query. With
+ * `confirm`, that query also checks the caller's membership (see listSurveys).
  */
-export async function getSurveyJson(db: Db, auth: AuthContext, id: string, scheduler?: ResultsScheduler): Promise<string> {
-  const s = await repo.findSurveyRaw(db, auth.orgId, id);
+export async function getSurveyJson(
+  db: Db,
+  auth: AuthContext,
+  id: string,
+  opts: { scheduler?: ResultsScheduler; confirm?: (role: Role | null) => unknown } = {},
+): Promise<Buffer> {
+  const read = await repo.readSurveyRaw(db, auth.orgId, id, ENGINE_VERSION, opts.confirm ? auth : undefined);
+  opts.confirm?.(read.memberRole);
+  const s = read.survey;
   if (!s) throw notFound('No survey with this id in your organisation.');
-  const results = await repo.latestResultsRaw(db, id, ENGINE_VERSION);
-  if (!results) return JSON.stringify(await getSurvey(db, auth, id, { scheduler }));
-  if (results.revision < s.revision) scheduler?.schedule(id);
-  const conflicts = await repo.surveyConflicts(db, auth.orgId, id, 'open');
-  const mark = `"@raw-${randomUUID()}-`;
+  const results = read.results;
+  if (!results) return utf8(JSON.stringify(await getSurvey(db, auth, id, { scheduler: opts.scheduler })));
+  if (results.revision < s.revision) opts.scheduler?.schedule(id);
   const { docJson, ...summary } = s;
   const { resultsJson, ...meta } = results;
-  return JSON.stringify({ ...summary, doc: `${mark.slice(1)}doc`, results: { ...meta, results: `${mark.slice(1)}results` }, conflicts })
-    .replace(`${mark}doc"`, () => docJson)
-    .replace(`${mark}results"`, () => resultsJson);
+  // {...summary, doc, results: {...meta, results}, conflicts}, in that order, as getSurvey answers.
+  return Buffer.concat([
+    open(summary),
+    DOC_KEY,
+    utf8(docJson),
+    RESULTS_KEY,
+    open(meta),
+    RESULTS_KEY,
+    utf8(resultsJson),
+    CONFLICTS_KEY,
+    utf8(JSON.stringify(read.conflicts)),
+    utf8('}'),
+  ]);
 }
 
 export interface ResultsScheduler {

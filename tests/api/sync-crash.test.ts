@@ -56,6 +56,11 @@ async function kill(child: Child): Promise<void> {
   await exited;
 }
 
+async function processedCount(deviceId: string): Promise<number> {
+  const row = (await t.db('processed_changes').where({ device_id: deviceId }).count('* as n').first()) as { n: number };
+  return Number(row.n);
+}
+
 describe('the server killed mid-push', () => {
   it('converges after restarts with no partial revision', { timeout: 300_000 }, async () => {
     const org = await createOrgWithMembers(t.db);
@@ -75,11 +80,17 @@ describe('the server killed mid-push', () => {
     try {
       for (let round = 0; round < 5 && device.outbox.length > 0; round++) {
         const before = device.outbox.length;
-        const pushing = device.sync(150).then(
+        const committed = await processedCount(device.deviceId);
+        // Small batches, so the outbox takes many pushes to drain and a kill lands mid-stream.
+        const pushing = device.sync(10).then(
           () => 'done',
           () => 'failed',
         );
-        await new Promise((r) => setTimeout(r, 80 + Math.random() * 500));
+        // Kill once the server has committed at least one more batch of this round, at a random
+        // moment after that: between batches, inside a transaction, or while answering.
+        const deadline = Date.now() + 30_000;
+        while ((await processedCount(device.deviceId)) <= committed && Date.now() < deadline) await new Promise((r) => setTimeout(r, 5));
+        await new Promise((r) => setTimeout(r, Math.random() * 40));
         await kill(child);
         if ((await pushing) === 'failed') killedMidPush++;
         expect(device.outbox.length).toBeLessThanOrEqual(before);

@@ -12,6 +12,7 @@ import type {
   SyncedSurvey,
 } from '@shared/schemas/sync';
 import type { FieldChange, FieldRevisions } from '@shared/sync/merge';
+import type { Role } from '@shared/api/roles';
 
 type Q = Knex | Knex.Transaction;
 
@@ -404,13 +405,10 @@ const toSummary = (r: SummaryRow): SurveySummary => ({
   openConflicts: Number(r.open_conflicts ?? 0),
 });
 
-const summaryQuery = (db: Q) =>
-  db('surveys as s')
-    .join('users as u', 'u.id', 's.created_by')
-    .select(SUMMARY_COLUMNS)
-    .select(
-      db.raw(`(SELECT count(*) FROM survey_conflicts sc WHERE sc.survey_id = s.id AND sc.status = 'open')::int AS open_conflicts`),
-    );
+const OPEN_CONFLICTS = (db: Q) =>
+  db.raw(`(SELECT count(*) FROM survey_conflicts sc WHERE sc.survey_id = s.id AND sc.status = 'open')::int AS open_conflicts`);
+
+const summaryQuery = (db: Q) => db('surveys as s').join('users as u', 'u.id', 's.created_by').select(SUMMARY_COLUMNS).select(OPEN_CONFLICTS(db));
 
 const SORT_COLUMNS: Record<ListSurveysQuery['sort'], string> = {
   updated: 's.updated_at',
@@ -421,7 +419,28 @@ const SORT_COLUMNS: Record<ListSurveysQuery['sort'], string> = {
   status: 's.status',
 };
 
-export async function listSurveys(db: Q, orgId: string, q: ListSurveysQuery): Promise<{ items: SurveySummary[]; total: number }> {
+/** Whose membership a read checks in its own query (see `checksMembership` in server/http/route.ts). */
+export interface MemberCheck {
+  userId: string;
+  orgId: string;
+}
+
+/** A column with the caller's role while their membership is active (else null), for a read that checks it itself. */
+const memberRoleColumn = (db: Q, m: MemberCheck | undefined) =>
+  m
+    ? db.raw(`(SELECT role FROM memberships WHERE user_id = ? AND organisation_id = ? AND status = 'active') AS member_role`, [m.userId, m.orgId])
+    : db.raw('NULL::text AS member_role');
+
+/**
+ * A page of the organisation's surveys and how many match, in one round trip; with `member`, the
+ * caller's active role too (null: not an active member, and then nothing else counts).
+ */
+export async function listSurveys(
+  db: Q,
+  orgId: string,
+  q: ListSurveysQuery,
+  member?: MemberCheck,
+): Promise<{ items: SurveySummary[]; total: number; memberRole: Role | null }> {
   const filter = (qb: Knex.QueryBuilder) => {
     qb.where('s.organisation_id', orgId);
     if (q.status?.length) qb.whereIn('s.status', q.status);
@@ -431,13 +450,27 @@ export async function listSurveys(db: Q, orgId: string, q: ListSurveysQuery): Pr
     }
     return qb;
   };
-  const [{ count }] = await filter(db('surveys as s')).count<{ count: number }[]>('* as count');
   const dir = q.order === 'asc' ? 'ASC' : 'DESC';
-  const rows = await filter(summaryQuery(db))
-    .orderByRaw(`${SORT_COLUMNS[q.sort]} ${dir} NULLS LAST, s.id ${dir}`)
+  const order = `${SORT_COLUMNS[q.sort]} ${dir} NULLS LAST, s.id ${dir}`;
+  const count = filter(db('surveys as s')).count('*');
+  const page = filter(summaryQuery(db))
+    .select(db.raw(`row_number() OVER (ORDER BY ${order}) AS page_row`))
+    .orderByRaw(order)
     .limit(q.pageSize)
     .offset((q.page - 1) * q.pageSize);
-  return { items: (rows as SummaryRow[]).map(toSummary), total: Number(count) };
+  // One row even for an empty page (p.id null), so the count and the membership always come back.
+  const { rows } = await db
+    .select(memberRoleColumn(db, member), db.raw('(?)::int AS total', [count]), 'p.*')
+    .from(db.raw('(SELECT 1) AS one'))
+    .joinRaw('LEFT JOIN LATERAL ? AS p ON true', [db.raw('?', [page])])
+    .orderBy('p.page_row')
+    .then((r: (SummaryRow & { member_role: Role | null; total: number; page_row: number })[]) => ({ rows: r }));
+  const first = rows[0];
+  return {
+    items: rows.filter((r) => r.id != null).map(toSummary),
+    total: Number(first?.total ?? 0),
+    memberRole: first?.member_role ?? null,
+  };
 }
 
 export async function findSurvey(db: Q, orgId: string, id: string): Promise<(SurveySummary & { doc: Survey }) | undefined> {
@@ -445,28 +478,72 @@ export async function findSurvey(db: Q, orgId: string, id: string): Promise<(Sur
   return row ? { ...toSummary(row as SummaryRow), doc: (row as { doc: Survey }).doc } : undefined;
 }
 
-/** As findSurvey, with the document as its stored JSON text (no parse and re-serialise for a read). */
-export async function findSurveyRaw(db: Q, orgId: string, id: string): Promise<(SurveySummary & { docJson: string }) | undefined> {
-  const row = await summaryQuery(db).select(db.raw('s.doc::text AS doc_json')).where({ 's.id': id, 's.organisation_id': orgId }).first();
-  return row ? { ...toSummary(row as SummaryRow), docJson: (row as { doc_json: string }).doc_json } : undefined;
+/** Latest results' metadata, with the results themselves as their stored JSON text. */
+export type RawResults = Omit<SurveyResults, 'results'> & { resultsJson: string };
+
+/** What a survey read needs, from one round trip: see readSurveyRaw. */
+export interface RawSurveyRead {
+  /** The caller's active role when a member was checked (null: not an active member). */
+  memberRole: Role | null;
+  survey?: SurveySummary & { docJson: string };
+  /** The most recent results with this engine version (of any revision). */
+  results?: RawResults;
+  /** The survey's open conflicts, oldest first. */
+  conflicts: Conflict[];
+}
+
+/** A timestamp as JSON text in the form `iso()` gives (milliseconds, truncated like node-postgres does). */
+const isoSql = (col: string) => `to_char(${col} AT TIME ZONE 'UTC', 'YYYY-MM-DD"T"HH24:MI:SS.MS"Z"')`;
+
+/**
+ * A survey of the organisation as stored JSON text, its latest results (JSON text) and its open
+ * conflicts, in one query; with `member`, the caller's active role too.
+ */
+export async function readSurveyRaw(db: Q, orgId: string, id: string, engineVersion: string, member?: MemberCheck): Promise<RawSurveyRead> {
+  const conflicts = db.raw(
+    `(SELECT json_agg(json_build_object(
+        'id', c.id, 'survey_id', c.survey_id, 'target', c.target, 'proposed', c.proposed, 'kept', c.kept,
+        'base_revision', c.base_revision, 'kept_revision', c.kept_revision, 'proposed_device_id', c.proposed_device_id,
+        'change_id', c.change_id, 'status', c.status, 'created_at', ${isoSql('c.created_at')}, 'resolved_at', ${isoSql('c.resolved_at')},
+        'proposed_by_id', pu.id, 'proposed_by_name', pu.name, 'kept_by_id', ku.id, 'kept_by_name', ku.name,
+        'resolved_by_id', ru.id, 'resolved_by_name', ru.name) ORDER BY c.created_at)::text
+      FROM survey_conflicts c
+      JOIN users pu ON pu.id = c.proposed_by
+      LEFT JOIN users ku ON ku.id = c.kept_by
+      LEFT JOIN users ru ON ru.id = c.resolved_by
+      WHERE c.organisation_id = s.organisation_id AND c.survey_id = s.id AND c.status = 'open') AS conflicts_json`,
+  );
+  const latest = db('survey_results')
+    .whereRaw('survey_id = s.id')
+    .andWhere({ engine_version: engineVersion })
+    .orderBy('revision', 'desc')
+    .limit(1)
+    .select('revision', 'engine_version', 'error', 'computed_at', db.raw("coalesce(results::text, 'null') AS results_json"));
+  const row = await db
+    .select(memberRoleColumn(db, member), ...SUMMARY_COLUMNS, OPEN_CONFLICTS(db), db.raw('s.doc::text AS doc_json'))
+    .select('r.revision AS results_revision', 'r.engine_version', 'r.error', 'r.computed_at', 'r.results_json', conflicts)
+    .from(db.raw('(SELECT 1) AS one'))
+    .leftJoin('surveys as s', (j) => j.on('s.id', db.raw('?', [id])).andOn('s.organisation_id', db.raw('?', [orgId])))
+    .leftJoin('users as u', 'u.id', 's.created_by')
+    .joinRaw('LEFT JOIN LATERAL ? AS r ON true', [db.raw('?', [latest])])
+    .first();
+  const out: RawSurveyRead = { memberRole: row?.member_role ?? null, conflicts: [] };
+  if (!row?.id) return out;
+  out.survey = { ...toSummary(row as SummaryRow), docJson: row.doc_json };
+  if (row.results_revision != null) {
+    out.results = {
+      revision: row.results_revision,
+      engineVersion: row.engine_version,
+      error: row.error,
+      computedAt: iso(row.computed_at)!,
+      resultsJson: row.results_json,
+    };
+  }
+  if (row.conflicts_json) out.conflicts = (JSON.parse(row.conflicts_json) as ConflictRow[]).map(toConflict);
+  return out;
 }
 
 // ---- results ----
-
-/** The most recent results of a survey with the results as JSON text. */
-export async function latestResultsRaw(
-  db: Q,
-  surveyId: string,
-  engineVersion: string,
-): Promise<(Omit<SurveyResults, 'results'> & { resultsJson: string }) | undefined> {
-  const row = await db('survey_results')
-    .where({ survey_id: surveyId, engine_version: engineVersion })
-    .orderBy('revision', 'desc')
-    .first('revision', 'engine_version', 'error', 'computed_at', db.raw("coalesce(results::text, 'null') AS results_json"));
-  return row
-    ? { revision: row.revision, engineVersion: row.engine_version, error: row.error, computedAt: iso(row.computed_at)!, resultsJson: row.results_json }
-    : undefined;
-}
 
 export async function findResults(db: Q, surveyId: string, revision: number, engineVersion: string): Promise<SurveyResults | undefined> {
   const row = await db('survey_results')
