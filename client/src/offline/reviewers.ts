@@ -2,6 +2,7 @@
  * Who is reviewing each survey, from the reviewers' notes the sync pull keeps on the device
  * (offline/review-notes.ts). Type-only imports, so the survey list does not load zod for it.
  */
+import { useMemo } from 'react';
 import { useLiveQuery } from 'dexie-react-hooks';
 import type { ReviewNotes } from '@shared/api/review';
 import { db } from './db';
@@ -19,11 +20,15 @@ export function reviewerOf(notes: ReviewNotes | undefined): string | null {
 /** Reviewer name by survey id, for every survey with notes on this device (reactive). */
 export function useReviewers(): Map<string, string> {
   const rows = useLiveQuery(() => db.meta.where('key').startsWith('review:').toArray(), []);
-  return new Map(
-    (rows ?? []).flatMap((row) => {
-      const notes = row.value as ReviewNotes;
-      const name = reviewerOf(notes);
-      return name ? [[notes.surveyId, name] as const] : [];
-    }),
+  return useMemo(
+    () =>
+      new Map(
+        (rows ?? []).flatMap((row) => {
+          const notes = row.value as ReviewNotes;
+          const name = reviewerOf(notes);
+          return name ? [[notes.surveyId, name] as const] : [];
+        }),
+      ),
+    [rows],
   );
 }

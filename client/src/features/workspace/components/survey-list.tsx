@@ -165,9 +165,30 @@ export function SurveyList() {
       ) : surveys.length === 0 ? (
         <p className="rounded-lg border border-line bg-card p-4 text-ink-soft">No surveys on this device yet. Start a new one, import a survey file, or connect to fetch your firm’s surveys.</p>
       ) : (
-        <div className="overflow-x-auto rounded-lg border border-line bg-card">
-          <table className="w-full min-w-[40rem] border-collapse text-left" data-testid="survey-list">
-            <thead className="bg-sea-soft">
+        <div className="rounded-lg border border-line bg-card sm:overflow-x-auto">
+          {/* On a phone each survey is a card (headers hidden, each cell labelled); sorting moves to this select. */}
+          <label className="flex items-center gap-2 border-b border-line p-2 text-sm font-bold sm:hidden">
+            Sort by
+            <select
+              className={`${inputCls} flex-1`}
+              value={sorting[0] ? `${sorting[0].id}:${sorting[0].desc ? 'desc' : 'asc'}` : ''}
+              onChange={(e) => {
+                const [id, dir] = e.target.value.split(':');
+                setSorting(id ? [{ id, desc: dir === 'desc' }] : []);
+              }}
+            >
+              {table.getAllLeafColumns().flatMap((c) =>
+                typeof c.columnDef.header === 'string'
+                  ? [
+                      <option key={`${c.id}:asc`} value={`${c.id}:asc`}>{`${c.columnDef.header} ↑`}</option>,
+                      <option key={`${c.id}:desc`} value={`${c.id}:desc`}>{`${c.columnDef.header} ↓`}</option>,
+                    ]
+                  : [],
+              )}
+            </select>
+          </label>
+          <table className="w-full border-collapse text-left sm:min-w-[40rem]" data-testid="survey-list">
+            <thead className="bg-sea-soft max-sm:sr-only">
               {table.getHeaderGroups().map((hg) => (
                 <tr key={hg.id}>
                   {hg.headers.map((h) => {
@@ -186,9 +207,17 @@ export function SurveyList() {
             </thead>
             <tbody>
               {table.getRowModel().rows.map((row) => (
-                <tr key={row.id} className="cursor-pointer border-t border-line hover:bg-sea-soft" onClick={() => navigate(paths.survey(row.original.survey.id))}>
+                <tr
+                  key={row.id}
+                  className="cursor-pointer border-t border-line hover:bg-sea-soft max-sm:block max-sm:px-1 max-sm:py-2"
+                  onClick={() => navigate(paths.survey(row.original.survey.id))}
+                >
                   {row.getVisibleCells().map((cell, i) => (
-                    <td key={cell.id} className="px-2 py-1.5 align-top">
+                    <td
+                      key={cell.id}
+                      data-label={typeof cell.column.columnDef.header === 'string' ? cell.column.columnDef.header : ''}
+                      className={`px-2 py-1.5 align-top max-sm:flex max-sm:gap-2 max-sm:py-0.5 ${i === 0 ? 'max-sm:text-lg max-sm:font-bold' : "max-sm:before:w-24 max-sm:before:shrink-0 max-sm:before:text-sm max-sm:before:text-ink-soft max-sm:before:content-[attr(data-label)]"}`}
+                    >
                       {i === 0 ? (
                         <a
                           href={paths.survey(row.original.survey.id)}
