@@ -13,6 +13,7 @@ import { resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { computeSurvey, type SurveyResults } from '@shared/engine';
 import type { Boundary, Compartment, Contents, Survey } from '@shared/schemas/survey';
+import { pascalPressure } from '../tests/support/pascal';
 
 const uuid = (n: number) => `be9c0000-0000-4000-8000-${n.toString(16).padStart(12, '0')}`;
 
@@ -122,20 +123,12 @@ type V = [number, number, number];
 function bruteForces(s: Survey, r: SurveyResults, N: number, indices: readonly number[]): number[] {
   const up: V = [r.frame.up.x, r.frame.up.y, r.frame.up.z];
   const g = r.frame.gravityMS2;
-  const layersOf = new Map(r.compartments.map((c) => [c.id, c]));
+  const layerTops = new Map(r.compartments.map((c) => [c.id, c.layers.map((l) => ({ top: l.levelElevationM, rho: l.densityKgM3 }))]));
   const gasOf = new Map(s.conditions[0].contents.map((c) => [c.compartmentId, c.gas?.kind === 'pressurised' ? c.gas.gaugePressurePa : 0]));
   const sideP = (side: Boundary['sideA'], e: number): number => {
     if (side.kind === 'air') return 0;
     if (side.kind === 'sea') return e < r.frame.waterlineElevationM ? r.frame.seaDensityKgM3 * g * (r.frame.waterlineElevationM - e) : 0;
-    const c = layersOf.get(side.compartmentId)!;
-    let p = gasOf.get(side.compartmentId) ?? 0;
-    let below = -Infinity;
-    for (const l of c.layers) {
-      const lo = Math.max(e, below);
-      if (l.levelElevationM > lo) p += l.densityKgM3 * g * (l.levelElevationM - lo);
-      below = Math.max(below, l.levelElevationM);
-    }
-    return p;
+    return pascalPressure(layerTops.get(side.compartmentId) ?? [], gasOf.get(side.compartmentId) ?? 0, e, g);
   };
   return indices.map((bi) => {
     const b = s.boundaries[bi];

@@ -9,6 +9,7 @@ import { describe, expect, it } from 'vitest';
 import { computeSurvey } from '@shared/engine';
 import type { Boundary } from '@shared/schemas/survey';
 import { baseSurvey, boxCompartment, contents } from '../unit/engine/fixtures';
+import { pascalPressure } from '../support/pascal';
 
 type P3 = [number, number, number];
 
@@ -30,16 +31,7 @@ interface Side {
 }
 
 /** Pascal's law directly: gas pressure plus every liquid above the point. */
-function pressure(side: Side, e: number, g: number): number {
-  let p = side.gas;
-  let below = -Infinity;
-  for (const l of side.layers) {
-    const lo = Math.max(e, below);
-    if (l.top > lo) p += l.rho * g * (l.top - lo);
-    below = Math.max(below, l.top);
-  }
-  return p;
-}
+const pressure = (side: Side, e: number, g: number): number => pascalPressure(side.layers, side.gas, e, g);
 
 const G = 9.80665;
 
