@@ -1,4 +1,5 @@
 /** Sortable table of every boundary's load; tap a row to open its detail. */
+import { SortableHeaderRows } from '@client/components/ui/sortable-header';
 import { useMemo, useState } from 'react';
 import {
   createColumnHelper,
@@ -84,25 +85,7 @@ export function BoundaryResultsTable({
     <div className="overflow-x-auto rounded-lg border border-line bg-card">
       <table className="w-full min-w-[36rem] border-collapse text-left" data-testid="boundary-results">
         <thead className="bg-sea-soft">
-          {table.getHeaderGroups().map((hg) => (
-            <tr key={hg.id}>
-              {hg.headers.map((h) => {
-                const dir = h.column.getIsSorted();
-                return (
-                  <th key={h.id} className="p-0 text-sm" aria-sort={dir === 'asc' ? 'ascending' : dir === 'desc' ? 'descending' : 'none'}>
-                    <button
-                      type="button"
-                      className="flex min-h-touch w-full items-center gap-1 px-2 text-left font-bold"
-                      onClick={h.column.getToggleSortingHandler()}
-                    >
-                      {flexRender(h.column.columnDef.header, h.getContext())}
-                      <span aria-hidden="true">{dir === 'asc' ? '↑' : dir === 'desc' ? '↓' : '↕'}</span>
-                    </button>
-                  </th>
-                );
-              })}
-            </tr>
-          ))}
+          <SortableHeaderRows table={table} />
         </thead>
         <tbody>
           {table.getRowModel().rows.map((row) => {

@@ -1,3 +1,4 @@
+import { SortableHeaderRows } from '@client/components/ui/sortable-header';
 import { useMemo, useState } from 'react';
 import {
   createColumnHelper,
@@ -144,22 +145,7 @@ export function MembersTable({
       {/* Wide screens: a table. */}
       <table className="hidden w-full border-collapse overflow-hidden rounded-xl border border-line bg-card text-left lg:table" aria-label="Members">
         <thead className="bg-paper">
-          {table.getHeaderGroups().map((hg) => (
-            <tr key={hg.id}>
-              {hg.headers.map((h) => (
-                <th key={h.id} scope="col" className="border-b border-line px-3 py-2" aria-sort={h.column.getIsSorted() === 'asc' ? 'ascending' : h.column.getIsSorted() === 'desc' ? 'descending' : undefined}>
-                  {h.column.getCanSort() ? (
-                    <button type="button" className="min-h-touch font-bold" onClick={h.column.getToggleSortingHandler()}>
-                      {flexRender(h.column.columnDef.header, h.getContext())}
-                      {{ asc: ' ▲', desc: ' ▼' }[h.column.getIsSorted() as string] ?? ''}
-                    </button>
-                  ) : (
-                    flexRender(h.column.columnDef.header, h.getContext())
-                  )}
-                </th>
-              ))}
-            </tr>
-          ))}
+          <SortableHeaderRows table={table} cellClassName="border-b border-line p-0" />
         </thead>
         <tbody>
           {rows.map((r) => (

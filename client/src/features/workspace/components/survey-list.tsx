@@ -1,4 +1,5 @@
 /** The organisation's surveys on this device: search, filter by status, open, start a new one, import a file. Works offline. */
+import { SortableHeaderRows } from '@client/components/ui/sortable-header';
 import { useMemo, useState } from 'react';
 import { useNavigate } from 'react-router';
 import { useLiveQuery } from 'dexie-react-hooks';
@@ -189,21 +190,7 @@ export function SurveyList() {
           </label>
           <table className="w-full border-collapse text-left sm:min-w-[40rem]" data-testid="survey-list">
             <thead className="bg-sea-soft max-sm:sr-only">
-              {table.getHeaderGroups().map((hg) => (
-                <tr key={hg.id}>
-                  {hg.headers.map((h) => {
-                    const dir = h.column.getIsSorted();
-                    return (
-                      <th key={h.id} className="p-0 text-sm" aria-sort={dir === 'asc' ? 'ascending' : dir === 'desc' ? 'descending' : 'none'}>
-                        <button type="button" className="flex min-h-touch w-full items-center gap-1 px-2 font-bold" onClick={h.column.getToggleSortingHandler()}>
-                          {flexRender(h.column.columnDef.header, h.getContext())}
-                          <span aria-hidden="true">{dir === 'asc' ? '↑' : dir === 'desc' ? '↓' : '↕'}</span>
-                        </button>
-                      </th>
-                    );
-                  })}
-                </tr>
-              ))}
+              <SortableHeaderRows table={table} />
             </thead>
             <tbody>
               {table.getRowModel().rows.map((row) => (
