@@ -10,6 +10,7 @@ import * as surveys from './20261201000200_surveys';
 import * as photos from './20261201000300_photos';
 import * as review from './20261201000400_review';
 import * as resultsAsJson from './20261201000500_results_as_json';
+import * as lz4Toast from './20261202000600_lz4_toast';
 
 const migrations: Record<string, Knex.Migration> = {
   '20261201000000_organisations_users': organisationsUsers,
@@ -18,6 +19,7 @@ const migrations: Record<string, Knex.Migration> = {
   '20261201000300_photos': photos,
   '20261201000400_review': review,
   '20261201000500_results_as_json': resultsAsJson,
+  '20261202000600_lz4_toast': lz4Toast,
 };
 
 export const migrationSource: Knex.MigrationSource<string> = {

@@ -2,18 +2,17 @@
  * Builds the Express app from its dependencies. No `listen` here: server/index.ts listens, and the
  * tests start the same app on a random port.
  */
-import express, { Router, type Request } from 'express';
+import express, { Router } from 'express';
 import helmet from 'helmet';
 import cookieParser from 'cookie-parser';
-import { pinoHttp } from 'pino-http';
 import type { Logger } from 'pino';
-import { randomUUID } from 'node:crypto';
 import fs from 'node:fs';
 import path from 'node:path';
 import type { Db } from './db/knex';
 import type { Config } from './config';
 import { defineRoutes, type RegisteredRoute, type RouteSpec, type AccessVerifier } from './http/route';
 import { apiNotFound, errorHandler } from './middleware/errors';
+import { requestLogging } from './http/request-log';
 import { healthRoutes } from './routes/health';
 import { createAccessVerifier } from './services/access';
 import { createMailer, type Mailer } from './mail/mailer';
@@ -62,21 +61,7 @@ export function createApp(given: AppDeps): BrinelineApp {
   app.set('trust proxy', 'loopback');
   app.locals.routes = [];
 
-  app.use(
-    pinoHttp({
-      logger: deps.logger,
-      genReqId: (req, res) => {
-        const given = req.headers['x-request-id'];
-        const id = typeof given === 'string' && /^[\w-]{8,64}$/.test(given) ? given : randomUUID();
-        res.setHeader('x-request-id', id);
-        return id;
-      },
-      // Nothing to write when the level is above info (LOG_LEVEL=warn, silent): skip the per-request work.
-      autoLogging: deps.logger.isLevelEnabled('info') ? { ignore: (req) => (req as Request).url === '/api/health' } : false,
-      // A brief link's token is its only key: never write it to the logs.
-      serializers: { req: (req: { url?: string }) => ({ ...req, url: req.url?.replace(/^\/brief\/[^/?#]*/, '/brief/[token]') }) },
-    }),
-  );
+  app.use(requestLogging(deps.logger));
   app.use(
     helmet({
       contentSecurityPolicy: {

@@ -12,7 +12,7 @@ import type { AppDeps } from '../app';
 import type { Role } from '@shared/api/roles';
 import { ANY_MEMBER, authOf, confirmMembership, ensureMembership, unconfirmedAuthOf, type RouteSpec } from '../http/route';
 import { HttpError } from '../http/errors';
-import { createResultsScheduler, createSurvey, getSurvey, getSurveyJson, listSurveys } from '../services/surveys';
+import { createResultsScheduler, createSurvey, getSurvey, getSurveyJson, listSurveys, SurveyTextCache } from '../services/surveys';
 import { pull, push } from '../services/sync';
 
 const IdParam = z.object({ id: z.uuid() });
@@ -20,6 +20,7 @@ const DetailQuery = z.object({ results: z.enum(['latest', 'current']).default('l
 
 export function surveyRoutes(deps: AppDeps): RouteSpec[] {
   const scheduler = createResultsScheduler(deps.db, (err) => deps.logger.warn({ err }, 'results recomputation failed'));
+  const textCache = new SurveyTextCache();
   return [
     {
       method: 'get',
@@ -43,7 +44,7 @@ export function surveyRoutes(deps: AppDeps): RouteSpec[] {
           res.json(await getSurvey(deps.db, await ensureMembership(req), id, { fresh: true, scheduler }));
         } else {
           const confirm = (role: Role | null) => confirmMembership(req, role);
-          res.type('application/json').send(await getSurveyJson(deps.db, unconfirmedAuthOf(req), id, { scheduler, confirm }));
+          res.type('application/json').send(await getSurveyJson(deps.db, unconfirmedAuthOf(req), id, { scheduler, confirm, cache: textCache }));
         }
       },
     },
@@ -60,6 +61,7 @@ export function surveyRoutes(deps: AppDeps): RouteSpec[] {
       method: 'post',
       path: '/sync/push',
       policy: ANY_MEMBER,
+      checksMembership: true,
       handler: async (req, res) => {
         const changes = (req.body as { changes?: unknown } | undefined)?.changes;
         if (Array.isArray(changes) && changes.length > MAX_PUSH_CHANGES) {
@@ -70,7 +72,9 @@ export function surveyRoutes(deps: AppDeps): RouteSpec[] {
           );
         }
         const body = PushRequestSchema.parse(req.body);
-        const out = await push(deps.db, authOf(req), body.changes, { scheduler, logger: req.log });
+        if (body.changes.length === 0) await ensureMembership(req);
+        const confirm = (role: Role | null) => confirmMembership(req, role);
+        const out = await push(deps.db, unconfirmedAuthOf(req), body.changes, { scheduler, logger: req.log, confirm });
         res.json({ ...out, serverTime: new Date().toISOString() } satisfies PushResponse);
       },
     },

@@ -5,6 +5,7 @@ import type { AppDeps } from '../app';
 import type { AuthContext } from '../http/auth-context';
 import type { AccessVerifier } from '../http/route';
 import { verifyAccessToken } from './tokens';
+import { prepared } from '../db/knex';
 
 export function createAccessVerifier(deps: Pick<AppDeps, 'db' | 'config'>): AccessVerifier {
   const token = async (req: Request): Promise<AuthContext | null> => {
@@ -13,9 +14,9 @@ export function createAccessVerifier(deps: Pick<AppDeps, 'db' | 'config'>): Acce
     return verifyAccessToken(deps.config.JWT_SECRET, header.slice(7).trim());
   };
   const activeRole = async (ctx: AuthContext): Promise<Role | null> => {
-    const membership = await deps.db('memberships')
-      .where({ user_id: ctx.userId, organisation_id: ctx.orgId, status: 'active' })
-      .first('role');
+    const membership = await prepared(
+      deps.db('memberships').where({ user_id: ctx.userId, organisation_id: ctx.orgId, status: 'active' }).first('role'),
+    );
     return membership?.role ?? null;
   };
   const verify = async (req: Request): Promise<AuthContext | null> => {

@@ -3,6 +3,7 @@
  * recomputed here with the same engine the device runs) and creating one directly.
  */
 import type { Knex } from 'knex';
+import { LRUCache } from 'lru-cache';
 import { computeSurvey, ENGINE_VERSION } from '@shared/engine';
 import type { Role } from '@shared/api/roles';
 import type { Survey } from '@shared/schemas/survey';
@@ -105,35 +106,81 @@ const open = (obj: object) => {
 };
 
 /**
+ * The UTF-8 JSON text of each survey's current document and latest results, by survey id, with the
+ * revision each belongs to. Both are immutable for their revision (see repo.readSurveyRaw), so a
+ * read that finds the same revisions in the database skips reading, sending and converting them:
+ * most of a survey read's work. Bounded in bytes; one per app, never shared between databases.
+ */
+interface HeldText {
+  docRevision?: number;
+  doc?: Buffer;
+  resultsRevision?: number;
+  results?: Buffer;
+}
+
+export class SurveyTextCache {
+  private readonly entries: LRUCache<string, HeldText>;
+
+  constructor(maxBytes = 64 * 1024 * 1024) {
+    this.entries = new LRUCache({ maxSize: maxBytes, sizeCalculation: (e) => 64 + (e.doc?.length ?? 0) + (e.results?.length ?? 0) });
+  }
+
+  /** What is held for a survey now; the caller keeps this object, so a later replacement cannot take it away mid-read. */
+  hold(id: string): HeldText {
+    return this.entries.get(id) ?? {};
+  }
+
+  /** Keeps what a read found, unless a newer revision is already held. */
+  keep(id: string, found: Required<HeldText>): void {
+    const now = this.entries.get(id);
+    if (now && ((now.docRevision ?? 0) > found.docRevision || (now.resultsRevision ?? 0) > found.resultsRevision)) return;
+    this.entries.set(id, found);
+  }
+}
+
+/** The held bytes when the read skipped the text (null), else the text just read. */
+function textOf(text: string | null, held: Buffer | undefined, what: string): Buffer {
+  if (text != null) return utf8(text);
+  if (!held) throw new Error(`The ${what} was skipped as held, but nothing is held.`);
+  return held;
+}
+
+/**
  * The same answer as getSurvey (latest stored results), as UTF-8 JSON bytes: the document and the
  * results go out as PostgreSQL stored them, never parsed and serialised again — the costly part of
  * reading a large survey — and the survey, its results and its conflicts come from one query. With
- * `confirm`, that query also checks the caller's membership (see listSurveys).
+ * `cache`, text already held for the same revisions is not read again. With `confirm`, that query
+ * also checks the caller's membership (see listSurveys).
  */
 export async function getSurveyJson(
   db: Db,
   auth: AuthContext,
   id: string,
-  opts: { scheduler?: ResultsScheduler; confirm?: (role: Role | null) => unknown } = {},
+  opts: { scheduler?: ResultsScheduler; confirm?: (role: Role | null) => unknown; cache?: SurveyTextCache } = {},
 ): Promise<Buffer> {
-  const read = await repo.readSurveyRaw(db, auth.orgId, id, ENGINE_VERSION, opts.confirm ? auth : undefined);
+  const held = opts.cache?.hold(id) ?? {};
+  const known = { docRevision: held.doc && held.docRevision, resultsRevision: held.results && held.resultsRevision };
+  const read = await repo.readSurveyRaw(db, auth.orgId, id, ENGINE_VERSION, opts.confirm ? auth : undefined, known);
   opts.confirm?.(read.memberRole);
   const s = read.survey;
   if (!s) throw notFound('No survey with this id in your organisation.');
   const results = read.results;
   if (!results) return utf8(JSON.stringify(await getSurvey(db, auth, id, { scheduler: opts.scheduler })));
   if (results.revision < s.revision) opts.scheduler?.schedule(id);
-  const { docJson, ...summary } = s;
-  const { resultsJson, ...meta } = results;
+  const { docJson: docText, ...summary } = s;
+  const { resultsJson: resultsText, ...meta } = results;
+  const docJson = textOf(docText, held.doc, 'document');
+  const resultsJson = textOf(resultsText, held.results, 'results');
+  opts.cache?.keep(id, { docRevision: s.revision, doc: docJson, resultsRevision: results.revision, results: resultsJson });
   // {...summary, doc, results: {...meta, results}, conflicts}, in that order, as getSurvey answers.
   return Buffer.concat([
     open(summary),
     DOC_KEY,
-    utf8(docJson),
+    docJson,
     RESULTS_KEY,
     open(meta),
     RESULTS_KEY,
-    utf8(resultsJson),
+    resultsJson,
     CONFLICTS_KEY,
     utf8(JSON.stringify(read.conflicts)),
     utf8('}'),
@@ -162,8 +209,8 @@ export function createResultsScheduler(db: Db, onError: (err: unknown) => void, 
     due.clear();
     for (const id of ids) {
       try {
-        const row = await repo.currentDoc(db, id);
-        if (row) await ensureResults(db, id, row.revision, row.doc);
+        const row = await repo.docNeedingResults(db, id, ENGINE_VERSION);
+        if (row) await repo.insertResults(db, { surveyId: id, revision: row.revision, engineVersion: ENGINE_VERSION, ...runEngine(row.doc) });
       } catch (err) {
         onError(err);
       }

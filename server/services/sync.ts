@@ -15,6 +15,7 @@ import { randomUUID } from 'node:crypto';
 import type { Knex } from 'knex';
 import type { Logger } from 'pino';
 import { SurveySchema, type Survey } from '@shared/schemas/survey';
+import type { Role } from '@shared/api/roles';
 import type { Conflict, PullQuery, PullResponse, PushResult, SurveyChange } from '@shared/schemas/sync';
 import { deepEqual } from '@shared/sync/apply';
 import { mergeChange, type FieldRevisions } from '@shared/sync/merge';
@@ -74,16 +75,24 @@ function validationReason(doc: unknown): string | null {
  * costly part, so the fast path validates the run's final document only; when that fails, the run
  * is redone with `checkEach`, which refuses exactly the changes that break the survey.
  */
-async function processRun(trx: Knex.Transaction, auth: AuthContext, run: SurveyChange[], checkEach: boolean): Promise<RunOutcome> {
+async function processRun(
+  trx: Knex.Transaction,
+  auth: AuthContext,
+  run: SurveyChange[],
+  checkEach: boolean,
+  confirm?: (role: Role | null) => unknown,
+): Promise<RunOutcome> {
   const surveyId = run[0].surveyId;
   const results: PushResult[] = [];
   const conflictIds: string[] = [];
-  const locked = await repo.lockSurvey(trx, auth.orgId, surveyId);
+  const start = await repo.lockForRun(trx, auth.orgId, surveyId, run, confirm ? auth : undefined);
+  confirm?.(start.memberRole);
+  const locked = start.survey;
   let state: RunState | null = locked ? { doc: locked.doc, revision: locked.revision, revs: locked.revs, dirty: false } : null;
   let known = locked ? { vesselId: locked.vesselId, vesselName: locked.doc.vessel.name } : undefined;
   let touched = false;
 
-  const seen = await repo.findProcessedMany(trx, run);
+  const seen = start.seen;
   const processed: repo.ProcessedRow[] = [];
   const thisRun = new Map<string, repo.ProcessedRow>();
   const revisions: repo.RevisionRow[] = [];
@@ -246,15 +255,14 @@ async function processRun(trx: Knex.Transaction, auth: AuthContext, run: SurveyC
 
   if (state?.dirty && !checkEach && validationReason(state.doc)) throw new CheckEachChange();
 
-  await repo.insertRevisions(trx, revisions);
   for (const c of conflictRows) await repo.insertConflict(trx, c);
   for (const r of resolutions) await repo.markConflictResolved(trx, r.conflictId, auth.userId, r.changeId);
+  const survey = state?.dirty
+    ? { id: surveyId, columns: await columnsOf(trx, auth.orgId, state.doc, state.revision, state.revs, known) }
+    : undefined;
   // Another transaction recorded one of these changes since our look-up: redo the run to answer 'duplicate'.
-  if ((await repo.insertProcessedMany(trx, processed)) < processed.length) {
+  if ((await repo.insertRunWrites(trx, { revisions, processed, survey })) < processed.length) {
     throw Object.assign(new Error('change recorded concurrently'), { code: '23505' });
-  }
-  if (state?.dirty) {
-    await repo.updateSurvey(trx, surveyId, await columnsOf(trx, auth.orgId, state.doc, state.revision, state.revs, known));
   }
   return { results, conflictIds, touched: touched || conflictIds.length > 0 };
 }
@@ -268,15 +276,22 @@ export async function push(
   db: Db,
   auth: AuthContext,
   changes: SurveyChange[],
-  opts: { scheduler?: ResultsScheduler; logger?: Logger } = {},
+  opts: {
+    scheduler?: ResultsScheduler;
+    logger?: Logger;
+    /** Check the caller's membership in the first run's opening query and hand the role found to this (see listSurveys). */
+    confirm?: (role: Role | null) => unknown;
+  } = {},
 ): Promise<PushOutcome> {
   const results: PushResult[] = [];
   const conflictIds: string[] = [];
+  let confirm = opts.confirm;
   for (const run of runsOf(changes)) {
     let checkEach = false;
     for (let attempt = 1; ; attempt++) {
       try {
-        const out = await db.transaction((trx) => processRun(trx, auth, run, checkEach));
+        const out = await db.transaction((trx) => processRun(trx, auth, run, checkEach, confirm));
+        confirm = undefined;
         results.push(...out.results);
         conflictIds.push(...out.conflictIds);
         if (out.touched) opts.scheduler?.schedule(run[0].surveyId);

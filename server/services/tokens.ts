@@ -4,6 +4,7 @@
  * an access token are all refused.
  */
 import { SignJWT, jwtVerify } from 'jose';
+import { LRUCache } from 'lru-cache';
 import { RoleSchema } from '@shared/api/roles';
 import type { AuthContext } from '../http/auth-context';
 
@@ -24,18 +25,50 @@ export async function signAccessToken(secret: string, ctx: AuthContext, ttlSecon
     .sign(key(secret));
 }
 
+/**
+ * Tokens already verified, per signing secret, until they expire. A device sends the same token on
+ * every request for its 15 minutes, and the HMAC check through WebCrypto was the largest single cost
+ * of a small request. Only tokens that passed every check are kept, keyed by their exact text, so a
+ * changed byte misses the cache and is verified (and refused) in full; an expired one is dropped on
+ * its next use. Membership is still checked in the database on every request (services/access.ts).
+ */
+interface Verifier {
+  key: Uint8Array;
+  verified: LRUCache<string, { ctx: AuthContext; expiresAtMs: number }>;
+}
+const verifiers = new Map<string, Verifier>();
+const VERIFIED_TOKENS_KEPT = 10_000;
+
+function verifierFor(secret: string): Verifier {
+  let v = verifiers.get(secret);
+  if (!v) {
+    v = { key: key(secret), verified: new LRUCache({ max: VERIFIED_TOKENS_KEPT }) };
+    verifiers.set(secret, v);
+  }
+  return v;
+}
+
 /** Returns the caller, or null for any token that is missing, malformed, tampered, expired or of another kind. */
 export async function verifyAccessToken(secret: string, token: string): Promise<AuthContext | null> {
+  const v = verifierFor(secret);
+  const known = v.verified.get(token);
+  if (known) {
+    if (Date.now() < known.expiresAtMs) return { ...known.ctx };
+    v.verified.delete(token);
+    return null;
+  }
   try {
-    const { payload } = await jwtVerify(token, key(secret), {
+    const { payload } = await jwtVerify(token, v.key, {
       algorithms: ['HS256'],
       issuer: ISSUER,
       audience: ACCESS_AUDIENCE,
     });
-    if (payload.typ !== 'access' || typeof payload.sub !== 'string') return null;
+    if (payload.typ !== 'access' || typeof payload.sub !== 'string' || typeof payload.exp !== 'number') return null;
     const role = RoleSchema.safeParse(payload.role);
     if (!role.success || typeof payload.org !== 'string' || typeof payload.email !== 'string') return null;
-    return { userId: payload.sub, orgId: payload.org, role: role.data, email: payload.email };
+    const ctx: AuthContext = { userId: payload.sub, orgId: payload.org, role: role.data, email: payload.email };
+    v.verified.set(token, { ctx, expiresAtMs: payload.exp * 1000 });
+    return { ...ctx };
   } catch {
     return null;
   }

@@ -209,6 +209,23 @@ describe('access tokens', () => {
     }
   });
 
+  it('refuses a token it accepted before once it expires, and any altered copy of it', async () => {
+    // Verified tokens are remembered until they expire (server/services/tokens.ts): the memory must
+    // neither outlive the token nor cover a token that differs from it by one character.
+    const ctx = { userId: org.admin.id, orgId: org.id, role: 'admin' as const, email: org.admin.email };
+    const shortLived = await signAccessToken(secret(), ctx, 2);
+    expect((await me(shortLived)).status).toBe(200);
+    expect((await me(shortLived)).status).toBe(200);
+    const [h, p, s] = shortLived.split('.');
+    const altered = `${h}.${p}.${s.slice(0, -2)}${s.endsWith('AA') ? 'BB' : 'AA'}`;
+    expect((await me(altered)).status).toBe(401);
+    const exp = JSON.parse(Buffer.from(p, 'base64url').toString()).exp as number;
+    await new Promise((r) => setTimeout(r, Math.max(0, exp * 1000 - Date.now()) + 50));
+    const late = await me(shortLived);
+    expect(late.status).toBe(401);
+    expect(ErrorBodySchema.parse(await late.json()).error.code).toBe('unauthorized');
+  });
+
   it('takes the role from the database, not from the token', async () => {
     const m = await addMember(t.db, org.id, 'admin');
     const s = await signIn(t.url, m.email);

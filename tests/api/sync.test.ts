@@ -4,7 +4,7 @@
  */
 import { randomUUID } from 'node:crypto';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { ENGINE_VERSION } from '@shared/engine';
+import { computeSurvey, ENGINE_VERSION } from '@shared/engine';
 import { ErrorBodySchema } from '@shared/api/errors';
 import {
   PullResponseSchema,
@@ -110,6 +110,36 @@ describe('GET /api/surveys and /api/surveys/:id', () => {
     expect(theirs.status).toBe(404);
     const signedOut = await fetch(`${t.url}/api/surveys/${s.id}`);
     expect(signedOut.status).toBe(401);
+  });
+
+  it('shows a pushed edit on the next read, and the recomputed results once they are stored', async () => {
+    // The server keeps each survey's document and results text for the revision it last read
+    // (SurveyTextCache): a read after a push must never answer with the older text.
+    const s = await storeSurvey(t.db, org.surveyor);
+    const read = async () => SurveyDetailSchema.parse(await (await fetch(`${t.url}/api/surveys/${s.id}`, { headers: h(surveyorToken) })).json());
+    const before = await read();
+    expect(before.revision).toBe(1);
+    const plate = before.doc.boundaries[0];
+    const device = randomUUID();
+    const out = await pushRaw(surveyorToken, [
+      change(device, s.id, { kind: 'set', path: 'title', value: 'Renamed after the first read' }, 1),
+      change(device, s.id, { kind: 'upsert', collection: 'boundaries', entity: { ...plate, name: `${plate.name} (moved)` }, fields: ['name'] }, 2),
+    ]);
+    expect(out.results.map((r) => r.status)).toEqual(['applied', 'applied']);
+    const after = await read();
+    expect(after.revision).toBe(3);
+    expect(after.doc.title).toBe('Renamed after the first read');
+    expect(after.doc.boundaries[0].name).toBe(`${plate.name} (moved)`);
+
+    // Results of revision 3 arrive from the server's recomputation; the read then carries them, equal
+    // to what the shared engine computes for the new document.
+    let latest = after;
+    for (let i = 0; i < 60 && latest.results?.revision !== 3; i++) {
+      await new Promise((r) => setTimeout(r, 100));
+      latest = await read();
+    }
+    expect(latest.results?.revision).toBe(3);
+    expect(latest.results?.results).toEqual(JSON.parse(JSON.stringify(computeSurvey(latest.doc))));
   });
 
   it('creates with POST and refuses an id that exists, and an invalid survey with field details', async () => {

@@ -13,6 +13,7 @@ import type {
 } from '@shared/schemas/sync';
 import type { FieldChange, FieldRevisions } from '@shared/sync/merge';
 import type { Role } from '@shared/api/roles';
+import { prepared } from '../knex';
 
 type Q = Knex | Knex.Transaction;
 
@@ -52,11 +53,54 @@ const toState = (r: SurveyRow): SurveyState => ({
 
 /** Locks the survey row for this transaction (SELECT … FOR UPDATE); undefined when the org has no such survey. */
 export async function lockSurvey(trx: Knex.Transaction, orgId: string, id: string): Promise<SurveyState | undefined> {
-  const row = await trx<SurveyRow>('surveys')
-    .where({ id, organisation_id: orgId })
-    .forUpdate()
-    .first('id', 'organisation_id', 'doc', 'revision', 'field_revisions', 'status', 'vessel_id');
+  const row = await prepared(
+    trx<SurveyRow>('surveys')
+      .where({ id, organisation_id: orgId })
+      .forUpdate()
+      .first('id', 'organisation_id', 'doc', 'revision', 'field_revisions', 'status', 'vessel_id'),
+  );
   return row ? toState(row) : undefined;
+}
+
+/** What a push run starts from, read in one round trip: see lockForRun. */
+export interface RunStart {
+  /** The caller's active role when a member was checked (null: not an active member). */
+  memberRole: Role | null;
+  survey?: SurveyState;
+  seen: Map<string, ProcessedChange>;
+}
+
+/**
+ * One round trip at the start of a push run: locks the survey row for this transaction
+ * (SELECT … FOR UPDATE, undefined when the organisation has no such survey), looks up which of the
+ * changes were already processed, and with `member` the caller's active role. The look-up reads as
+ * of the statement's start, so a change recorded by a transaction that held the lock while we waited
+ * is not seen here; recording it again then inserts fewer rows than expected (insertRunWrites), and
+ * the run is redone, when it is seen.
+ */
+export async function lockForRun(
+  trx: Knex.Transaction,
+  orgId: string,
+  id: string,
+  changes: { id: string; deviceId: string; seq: number }[],
+  member?: MemberCheck,
+): Promise<RunStart> {
+  const seen = trx('processed_changes as pc')
+    .whereIn(['pc.device_id', 'pc.seq'], changes.map((c) => [c.deviceId, c.seq]))
+    .orWhereIn('pc.change_id', changes.map((c) => c.id))
+    .select(
+      trx.raw(
+        `json_agg(json_build_object('device_id', pc.device_id, 'seq', pc.seq, 'change_id', pc.change_id, 'organisation_id', pc.organisation_id,
+          'status', pc.status, 'revision', pc.revision, 'reason', pc.reason, 'conflict_ids', pc.conflict_ids))`,
+      ),
+    );
+  const row = await trx
+    .with('s', (q) =>
+      q.from('surveys').where({ id, organisation_id: orgId }).forUpdate().select('id', 'organisation_id', 'doc', 'revision', 'field_revisions', 'status', 'vessel_id'),
+    )
+    .select(memberRoleColumn(trx, member), trx.raw('(SELECT row_to_json(s) FROM s) AS survey'), trx.raw('(?) AS seen', [seen]))
+    .first<{ member_role: Role | null; survey: SurveyRow | null; seen: ProcessedJsonRow[] | null }>();
+  return { memberRole: row?.member_role ?? null, survey: row?.survey ? toState(row.survey) : undefined, seen: processedOf(changes, row?.seen ?? []) };
 }
 
 export async function surveyIdTaken(db: Q, id: string): Promise<boolean> {
@@ -104,18 +148,7 @@ export async function insertSurvey(
 }
 
 export async function updateSurvey(db: Q, id: string, s: SurveyColumns): Promise<void> {
-  await db('surveys')
-    .where({ id })
-    .update({
-      doc: json(s.doc),
-      revision: s.revision,
-      field_revisions: json(s.revs),
-      title: s.title,
-      vessel_name: s.vesselName,
-      vessel_id: s.vesselId,
-      soundings_at: s.soundingsAt,
-      updated_at: db.fn.now(),
-    });
+  await db('surveys').where({ id }).update(surveyUpdate(db, s));
 }
 
 export interface RevisionRow {
@@ -130,17 +163,7 @@ export interface RevisionRow {
 
 export async function insertRevisions(db: Q, rows: RevisionRow[]): Promise<void> {
   if (rows.length === 0) return;
-  await db('survey_revisions').insert(
-    rows.map((r) => ({
-      survey_id: r.surveyId,
-      revision: r.revision,
-      organisation_id: r.orgId,
-      user_id: r.userId,
-      device_id: r.deviceId,
-      change_id: r.changeId,
-      changes: json(r.changes),
-    })),
-  );
+  await db('survey_revisions').insert(rows.map(revisionRow));
 }
 
 export const insertRevision = (db: Q, r: RevisionRow) => insertRevisions(db, [r]);
@@ -158,19 +181,22 @@ export interface ProcessedChange {
   conflictIds: string[];
 }
 
-/** The recorded outcomes of changes already processed, by change id (matched by (device, seq) or by id). */
-export async function findProcessedMany(
-  db: Q,
-  changes: { id: string; deviceId: string; seq: number }[],
-): Promise<Map<string, ProcessedChange>> {
+interface ProcessedJsonRow {
+  device_id: string;
+  seq: number;
+  change_id: string;
+  organisation_id: string;
+  status: Exclude<PushStatus, 'duplicate'>;
+  revision: number | null;
+  reason: string | null;
+  conflict_ids: string[] | null;
+}
+
+/** Which of `changes` the recorded rows cover (matched by id, or by device and sequence number). */
+function processedOf(changes: { id: string; deviceId: string; seq: number }[], rows: ProcessedJsonRow[]): Map<string, ProcessedChange> {
   const out = new Map<string, ProcessedChange>();
-  if (changes.length === 0) return out;
-  const rows = await db('processed_changes')
-    .whereIn(['device_id', 'seq'], changes.map((c) => [c.deviceId, c.seq]))
-    .orWhereIn('change_id', changes.map((c) => c.id))
-    .select('device_id', 'seq', 'change_id', 'organisation_id', 'status', 'revision', 'reason', 'conflict_ids');
   for (const c of changes) {
-    const row = rows.find((r) => r.change_id === c.id || (r.device_id === c.deviceId && r.seq === c.seq));
+    const row = rows.find((r) => r.change_id === c.id || (r.device_id === c.deviceId && Number(r.seq) === c.seq));
     if (row) {
       out.set(c.id, {
         orgId: row.organisation_id,
@@ -182,6 +208,19 @@ export async function findProcessedMany(
     }
   }
   return out;
+}
+
+/** The recorded outcomes of changes already processed, by change id (matched by (device, seq) or by id). */
+export async function findProcessedMany(
+  db: Q,
+  changes: { id: string; deviceId: string; seq: number }[],
+): Promise<Map<string, ProcessedChange>> {
+  if (changes.length === 0) return new Map();
+  const rows = await db('processed_changes')
+    .whereIn(['device_id', 'seq'], changes.map((c) => [c.deviceId, c.seq]))
+    .orWhereIn('change_id', changes.map((c) => c.id))
+    .select('device_id', 'seq', 'change_id', 'organisation_id', 'status', 'revision', 'reason', 'conflict_ids');
+  return processedOf(changes, rows);
 }
 
 export interface ProcessedRow {
@@ -200,25 +239,62 @@ export interface ProcessedRow {
 /** Records outcomes; returns how many were new (fewer than given when another transaction got there first). */
 export async function insertProcessedMany(db: Q, rows: ProcessedRow[]): Promise<number> {
   if (rows.length === 0) return 0;
-  const inserted = await db('processed_changes')
-    .insert(
-      rows.map((p) => ({
-        device_id: p.deviceId,
-        seq: p.seq,
-        change_id: p.changeId,
-        organisation_id: p.orgId,
-        survey_id: p.surveyId,
-        user_id: p.userId,
-        status: p.status,
-        revision: p.revision,
-        reason: p.reason,
-        conflict_ids: json(p.conflictIds),
-      })),
-    )
-    .onConflict()
-    .ignore()
-    .returning('seq');
+  const inserted = await db('processed_changes').insert(rows.map(processedRow)).onConflict().ignore().returning('seq');
   return inserted.length;
+}
+
+const revisionRow = (r: RevisionRow) => ({
+  survey_id: r.surveyId,
+  revision: r.revision,
+  organisation_id: r.orgId,
+  user_id: r.userId,
+  device_id: r.deviceId,
+  change_id: r.changeId,
+  changes: json(r.changes),
+});
+
+const processedRow = (p: ProcessedRow) => ({
+  device_id: p.deviceId,
+  seq: p.seq,
+  change_id: p.changeId,
+  organisation_id: p.orgId,
+  survey_id: p.surveyId,
+  user_id: p.userId,
+  status: p.status,
+  revision: p.revision,
+  reason: p.reason,
+  conflict_ids: json(p.conflictIds),
+});
+
+const surveyUpdate = (db: Q, s: SurveyColumns) => ({
+  doc: json(s.doc),
+  revision: s.revision,
+  field_revisions: json(s.revs),
+  title: s.title,
+  vessel_name: s.vesselName,
+  vessel_id: s.vesselId,
+  soundings_at: s.soundingsAt,
+  updated_at: db.fn.now(),
+});
+
+/**
+ * What a push run writes, in one statement: its revisions, its change records and the survey's new
+ * state. Returns how many change records were new (fewer than given when another transaction
+ * recorded one of them first; the caller then redoes the run).
+ */
+export async function insertRunWrites(
+  trx: Knex.Transaction,
+  w: { revisions: RevisionRow[]; processed: ProcessedRow[]; survey?: { id: string; columns: SurveyColumns } },
+): Promise<number> {
+  if (!w.processed.length && !w.revisions.length && !w.survey) return 0;
+  let q = trx.queryBuilder();
+  if (w.revisions.length) q = q.with('r', trx('survey_revisions').insert(w.revisions.map(revisionRow)));
+  if (w.survey) q = q.with('u', trx('surveys').where({ id: w.survey.id }).update(surveyUpdate(trx, w.survey.columns)));
+  if (w.processed.length) {
+    q = q.with('p', trx('processed_changes').insert(w.processed.map(processedRow)).onConflict().ignore().returning('seq'));
+  }
+  const row = await q.select(trx.raw(w.processed.length ? '(SELECT count(*) FROM p)::int AS n' : '0 AS n')).first<{ n: number }>();
+  return Number(row?.n ?? 0);
 }
 
 // ---- conflicts ----
@@ -459,12 +535,13 @@ export async function listSurveys(
     .limit(q.pageSize)
     .offset((q.page - 1) * q.pageSize);
   // One row even for an empty page (p.id null), so the count and the membership always come back.
-  const { rows } = await db
-    .select(memberRoleColumn(db, member), db.raw('(?)::int AS total', [count]), 'p.*')
-    .from(db.raw('(SELECT 1) AS one'))
-    .joinRaw('LEFT JOIN LATERAL ? AS p ON true', [db.raw('?', [page])])
-    .orderBy('p.page_row')
-    .then((r: (SummaryRow & { member_role: Role | null; total: number; page_row: number })[]) => ({ rows: r }));
+  const { rows } = await prepared(
+    db
+      .select(memberRoleColumn(db, member), db.raw('(?)::int AS total', [count]), 'p.*')
+      .from(db.raw('(SELECT 1) AS one'))
+      .joinRaw('LEFT JOIN LATERAL ? AS p ON true', [db.raw('?', [page])])
+      .orderBy('p.page_row'),
+  ).then((r: (SummaryRow & { member_role: Role | null; total: number; page_row: number })[]) => ({ rows: r }));
   const first = rows[0];
   return {
     items: rows.filter((r) => r.id != null).map(toSummary),
@@ -485,9 +562,10 @@ export type RawResults = Omit<SurveyResults, 'results'> & { resultsJson: string 
 export interface RawSurveyRead {
   /** The caller's active role when a member was checked (null: not an active member). */
   memberRole: Role | null;
-  survey?: SurveySummary & { docJson: string };
-  /** The most recent results with this engine version (of any revision). */
-  results?: RawResults;
+  /** `docJson` is null when the caller already holds the document of this revision (`known.docRevision`). */
+  survey?: SurveySummary & { docJson: string | null };
+  /** The most recent results with this engine version (of any revision); `resultsJson` null as for the document. */
+  results?: Omit<RawResults, 'resultsJson'> & { resultsJson: string | null };
   /** The survey's open conflicts, oldest first. */
   conflicts: Conflict[];
 }
@@ -495,11 +573,26 @@ export interface RawSurveyRead {
 /** A timestamp as JSON text in the form `iso()` gives (milliseconds, truncated like node-postgres does). */
 const isoSql = (col: string) => `to_char(${col} AT TIME ZONE 'UTC', 'YYYY-MM-DD"T"HH24:MI:SS.MS"Z"')`;
 
+/** Revisions whose document and results text the caller already holds: those come back as null, unread. */
+export interface KnownText {
+  docRevision?: number;
+  resultsRevision?: number;
+}
+
 /**
  * A survey of the organisation as stored JSON text, its latest results (JSON text) and its open
- * conflicts, in one query; with `member`, the caller's active role too.
+ * conflicts, in one query; with `member`, the caller's active role too. A document is never changed
+ * without a new revision and results are stored once per (revision, engine version), so text the
+ * caller holds for the same revision is still current: it is neither read from storage nor sent.
  */
-export async function readSurveyRaw(db: Q, orgId: string, id: string, engineVersion: string, member?: MemberCheck): Promise<RawSurveyRead> {
+export async function readSurveyRaw(
+  db: Q,
+  orgId: string,
+  id: string,
+  engineVersion: string,
+  member?: MemberCheck,
+  known: KnownText = {},
+): Promise<RawSurveyRead> {
   const conflicts = db.raw(
     `(SELECT json_agg(json_build_object(
         'id', c.id, 'survey_id', c.survey_id, 'target', c.target, 'proposed', c.proposed, 'kept', c.kept,
@@ -518,15 +611,28 @@ export async function readSurveyRaw(db: Q, orgId: string, id: string, engineVers
     .andWhere({ engine_version: engineVersion })
     .orderBy('revision', 'desc')
     .limit(1)
-    .select('revision', 'engine_version', 'error', 'computed_at', db.raw("coalesce(results::text, 'null') AS results_json"));
-  const row = await db
-    .select(memberRoleColumn(db, member), ...SUMMARY_COLUMNS, OPEN_CONFLICTS(db), db.raw('s.doc::text AS doc_json'))
+    .select(
+      'revision',
+      'engine_version',
+      'error',
+      'computed_at',
+      db.raw("CASE WHEN revision = ? THEN NULL ELSE coalesce(results::text, 'null') END AS results_json", [known.resultsRevision ?? -1]),
+    );
+  const row = await prepared(
+    db
+    .select(
+      memberRoleColumn(db, member),
+      ...SUMMARY_COLUMNS,
+      OPEN_CONFLICTS(db),
+      db.raw('CASE WHEN s.revision = ? THEN NULL ELSE s.doc::text END AS doc_json', [known.docRevision ?? -1]),
+    )
     .select('r.revision AS results_revision', 'r.engine_version', 'r.error', 'r.computed_at', 'r.results_json', conflicts)
     .from(db.raw('(SELECT 1) AS one'))
     .leftJoin('surveys as s', (j) => j.on('s.id', db.raw('?', [id])).andOn('s.organisation_id', db.raw('?', [orgId])))
     .leftJoin('users as u', 'u.id', 's.created_by')
     .joinRaw('LEFT JOIN LATERAL ? AS r ON true', [db.raw('?', [latest])])
-    .first();
+    .first(),
+  );
   const out: RawSurveyRead = { memberRole: row?.member_role ?? null, conflicts: [] };
   if (!row?.id) return out;
   out.survey = { ...toSummary(row as SummaryRow), docJson: row.doc_json };
@@ -567,6 +673,16 @@ export async function latestResults(db: Q, surveyId: string, engineVersion: stri
 
 export async function currentDoc(db: Q, id: string): Promise<{ doc: Survey; revision: number } | undefined> {
   return db('surveys').where({ id }).first('doc', 'revision');
+}
+
+/** The current document when its revision has no results of this engine version yet; undefined otherwise. */
+export async function docNeedingResults(db: Q, id: string, engineVersion: string): Promise<{ doc: Survey; revision: number } | undefined> {
+  return prepared(
+    db('surveys as s')
+      .where('s.id', id)
+      .whereNotExists((q) => q.from('survey_results as r').whereRaw('r.survey_id = s.id AND r.revision = s.revision').andWhere('r.engine_version', engineVersion))
+      .first('s.doc', 's.revision'),
+  );
 }
 
 export async function insertResults(
