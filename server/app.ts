@@ -59,6 +59,9 @@ export function createApp(given: AppDeps): BrinelineApp {
   const app = express() as BrinelineApp;
   app.disable('x-powered-by');
   app.set('trust proxy', 'loopback');
+  // No ETag hashing of every API body (a survey read is ~65 KB): clients never revalidate /api
+  // answers, and the service worker leaves /api alone. Static files keep their own ETags.
+  app.set('etag', false);
   app.locals.routes = [];
 
   app.use(requestLogging(deps.logger));

@@ -51,17 +51,6 @@ const toState = (r: SurveyRow): SurveyState => ({
   vesselId: r.vessel_id,
 });
 
-/** Locks the survey row for this transaction (SELECT … FOR UPDATE); undefined when the org has no such survey. */
-export async function lockSurvey(trx: Knex.Transaction, orgId: string, id: string): Promise<SurveyState | undefined> {
-  const row = await prepared(
-    trx<SurveyRow>('surveys')
-      .where({ id, organisation_id: orgId })
-      .forUpdate()
-      .first('id', 'organisation_id', 'doc', 'revision', 'field_revisions', 'status', 'vessel_id'),
-  );
-  return row ? toState(row) : undefined;
-}
-
 /** What a push run starts from, read in one round trip: see lockForRun. */
 export interface RunStart {
   /** The caller's active role when a member was checked (null: not an active member). */
@@ -85,22 +74,38 @@ export async function lockForRun(
   changes: { id: string; deviceId: string; seq: number }[],
   member?: MemberCheck,
 ): Promise<RunStart> {
-  const seen = trx('processed_changes as pc')
-    .whereIn(['pc.device_id', 'pc.seq'], changes.map((c) => [c.deviceId, c.seq]))
-    .orWhereIn('pc.change_id', changes.map((c) => c.id))
-    .select(
-      trx.raw(
-        `json_agg(json_build_object('device_id', pc.device_id, 'seq', pc.seq, 'change_id', pc.change_id, 'organisation_id', pc.organisation_id,
-          'status', pc.status, 'revision', pc.revision, 'reason', pc.reason, 'conflict_ids', pc.conflict_ids))`,
-      ),
-    );
-  const row = await trx
-    .with('s', (q) =>
-      q.from('surveys').where({ id, organisation_id: orgId }).forUpdate().select('id', 'organisation_id', 'doc', 'revision', 'field_revisions', 'status', 'vessel_id'),
+  // Fixed text whatever the number of changes (arrays as parameters), so it stays one prepared statement.
+  const { rows } = await trx
+    .raw(
+      `WITH s AS (
+         SELECT id, organisation_id, doc, revision, field_revisions, status, vessel_id
+         FROM surveys WHERE id = ? AND organisation_id = ? FOR UPDATE
+       )
+       SELECT (SELECT role FROM memberships WHERE user_id = ? AND organisation_id = ? AND status = 'active') AS member_role,
+              (SELECT row_to_json(s) FROM s) AS survey,
+              (SELECT json_agg(json_build_object('device_id', pc.device_id, 'seq', pc.seq, 'change_id', pc.change_id,
+                        'organisation_id', pc.organisation_id, 'status', pc.status, 'revision', pc.revision,
+                        'reason', pc.reason, 'conflict_ids', pc.conflict_ids))
+                 FROM processed_changes pc
+                WHERE (pc.device_id, pc.seq) IN (SELECT * FROM unnest(?::uuid[], ?::int[]))
+                   OR pc.change_id = ANY(?::uuid[])) AS seen`,
+      [
+        id,
+        orgId,
+        member?.userId ?? null,
+        member?.orgId ?? null,
+        changes.map((c) => c.deviceId),
+        changes.map((c) => c.seq),
+        changes.map((c) => c.id),
+      ],
     )
-    .select(memberRoleColumn(trx, member), trx.raw('(SELECT row_to_json(s) FROM s) AS survey'), trx.raw('(?) AS seen', [seen]))
-    .first<{ member_role: Role | null; survey: SurveyRow | null; seen: ProcessedJsonRow[] | null }>();
-  return { memberRole: row?.member_role ?? null, survey: row?.survey ? toState(row.survey) : undefined, seen: processedOf(changes, row?.seen ?? []) };
+    .options({ name: 'bl_lock_for_run' });
+  const row = rows[0] as { member_role: Role | null; survey: SurveyRow | null; seen: ProcessedJsonRow[] | null };
+  return {
+    memberRole: member ? row.member_role : null,
+    survey: row.survey ? toState(row.survey) : undefined,
+    seen: processedOf(changes, row.seen ?? []),
+  };
 }
 
 export async function surveyIdTaken(db: Q, id: string): Promise<boolean> {
@@ -145,10 +150,6 @@ export async function insertSurvey(
     field_revisions: json(s.revs),
     soundings_at: s.soundingsAt,
   });
-}
-
-export async function updateSurvey(db: Q, id: string, s: SurveyColumns): Promise<void> {
-  await db('surveys').where({ id }).update(surveyUpdate(db, s));
 }
 
 export interface RevisionRow {
@@ -210,19 +211,6 @@ function processedOf(changes: { id: string; deviceId: string; seq: number }[], r
   return out;
 }
 
-/** The recorded outcomes of changes already processed, by change id (matched by (device, seq) or by id). */
-export async function findProcessedMany(
-  db: Q,
-  changes: { id: string; deviceId: string; seq: number }[],
-): Promise<Map<string, ProcessedChange>> {
-  if (changes.length === 0) return new Map();
-  const rows = await db('processed_changes')
-    .whereIn(['device_id', 'seq'], changes.map((c) => [c.deviceId, c.seq]))
-    .orWhereIn('change_id', changes.map((c) => c.id))
-    .select('device_id', 'seq', 'change_id', 'organisation_id', 'status', 'revision', 'reason', 'conflict_ids');
-  return processedOf(changes, rows);
-}
-
 export interface ProcessedRow {
   deviceId: string;
   seq: number;
@@ -234,13 +222,6 @@ export interface ProcessedRow {
   revision: number | null;
   reason: string | null;
   conflictIds: string[];
-}
-
-/** Records outcomes; returns how many were new (fewer than given when another transaction got there first). */
-export async function insertProcessedMany(db: Q, rows: ProcessedRow[]): Promise<number> {
-  if (rows.length === 0) return 0;
-  const inserted = await db('processed_changes').insert(rows.map(processedRow)).onConflict().ignore().returning('seq');
-  return inserted.length;
 }
 
 const revisionRow = (r: RevisionRow) => ({
@@ -266,17 +247,6 @@ const processedRow = (p: ProcessedRow) => ({
   conflict_ids: json(p.conflictIds),
 });
 
-const surveyUpdate = (db: Q, s: SurveyColumns) => ({
-  doc: json(s.doc),
-  revision: s.revision,
-  field_revisions: json(s.revs),
-  title: s.title,
-  vessel_name: s.vesselName,
-  vessel_id: s.vesselId,
-  soundings_at: s.soundingsAt,
-  updated_at: db.fn.now(),
-});
-
 /**
  * What a push run writes, in one statement: its revisions, its change records and the survey's new
  * state. Returns how many change records were new (fewer than given when another transaction
@@ -287,14 +257,45 @@ export async function insertRunWrites(
   w: { revisions: RevisionRow[]; processed: ProcessedRow[]; survey?: { id: string; columns: SurveyColumns } },
 ): Promise<number> {
   if (!w.processed.length && !w.revisions.length && !w.survey) return 0;
-  let q = trx.queryBuilder();
-  if (w.revisions.length) q = q.with('r', trx('survey_revisions').insert(w.revisions.map(revisionRow)));
-  if (w.survey) q = q.with('u', trx('surveys').where({ id: w.survey.id }).update(surveyUpdate(trx, w.survey.columns)));
-  if (w.processed.length) {
-    q = q.with('p', trx('processed_changes').insert(w.processed.map(processedRow)).onConflict().ignore().returning('seq'));
-  }
-  const row = await q.select(trx.raw(w.processed.length ? '(SELECT count(*) FROM p)::int AS n' : '0 AS n')).first<{ n: number }>();
-  return Number(row?.n ?? 0);
+  // Rows go as one JSON array per table and the survey update is switched by a flag, so the text is
+  // the same for every run: one prepared statement, parsed and planned once per connection.
+  const c = w.survey?.columns;
+  const { rows } = await trx
+    .raw(
+      `WITH r AS (
+         INSERT INTO survey_revisions (survey_id, revision, organisation_id, user_id, device_id, change_id, changes)
+         SELECT survey_id, revision, organisation_id, user_id, device_id, change_id, changes
+           FROM jsonb_populate_recordset(NULL::survey_revisions, ?::jsonb)
+       ),
+       u AS (
+         UPDATE surveys SET doc = ?::jsonb, revision = ?, field_revisions = ?::jsonb, title = ?, vessel_name = ?,
+                vessel_id = ?, soundings_at = ?, updated_at = now()
+          WHERE id = ? AND ?::boolean
+       ),
+       p AS (
+         INSERT INTO processed_changes (device_id, seq, change_id, organisation_id, survey_id, user_id, status, revision, reason, conflict_ids)
+         SELECT device_id, seq, change_id, organisation_id, survey_id, user_id, status, revision, reason, conflict_ids
+           FROM jsonb_populate_recordset(NULL::processed_changes, ?::jsonb)
+         ON CONFLICT DO NOTHING
+         RETURNING 1
+       )
+       SELECT (SELECT count(*) FROM p)::int AS n`,
+      [
+        JSON.stringify(w.revisions.map((r) => ({ ...revisionRow(r), changes: r.changes }))),
+        c ? json(c.doc) : null,
+        c?.revision ?? null,
+        c ? json(c.revs) : null,
+        c?.title ?? null,
+        c?.vesselName ?? null,
+        c?.vesselId ?? null,
+        c?.soundingsAt ?? null,
+        w.survey?.id ?? null,
+        Boolean(w.survey),
+        JSON.stringify(w.processed.map((p) => ({ ...processedRow(p), conflict_ids: p.conflictIds }))),
+      ],
+    )
+    .options({ name: 'bl_run_writes' });
+  return Number((rows[0] as { n: number }).n);
 }
 
 // ---- conflicts ----
@@ -468,6 +469,14 @@ interface SummaryRow {
   open_conflicts: number;
 }
 
+/** SUMMARY_COLUMNS and the open-conflict count as SQL text, for the fixed-text (prepared) reads. */
+const SUMMARY_SQL = `s.id, s.title, s.vessel_name, s.status, s.revision, s.created_at, s.updated_at, s.soundings_at,
+  u.id AS created_by_id, u.name AS created_by_name,
+  (SELECT count(*) FROM survey_conflicts sc WHERE sc.survey_id = s.id AND sc.status = 'open')::int AS open_conflicts`;
+
+/** The caller's active role, from the two parameters (user id, organisation id); NULL parameters: no check. */
+const MEMBER_ROLE_SQL = `(SELECT role FROM memberships WHERE user_id = ? AND organisation_id = ? AND status = 'active')`;
+
 const toSummary = (r: SummaryRow): SurveySummary => ({
   id: r.id,
   title: r.title,
@@ -501,12 +510,6 @@ export interface MemberCheck {
   orgId: string;
 }
 
-/** A column with the caller's role while their membership is active (else null), for a read that checks it itself. */
-const memberRoleColumn = (db: Q, m: MemberCheck | undefined) =>
-  m
-    ? db.raw(`(SELECT role FROM memberships WHERE user_id = ? AND organisation_id = ? AND status = 'active') AS member_role`, [m.userId, m.orgId])
-    : db.raw('NULL::text AS member_role');
-
 /**
  * A page of the organisation's surveys and how many match, in one round trip; with `member`, the
  * caller's active role too (null: not an active member, and then nothing else counts).
@@ -517,36 +520,38 @@ export async function listSurveys(
   q: ListSurveysQuery,
   member?: MemberCheck,
 ): Promise<{ items: SurveySummary[]; total: number; memberRole: Role | null }> {
-  const filter = (qb: Knex.QueryBuilder) => {
-    qb.where('s.organisation_id', orgId);
-    if (q.status?.length) qb.whereIn('s.status', q.status);
-    if (q.q) {
-      const like = `%${q.q.replace(/[\\%_]/g, (m) => `\\${m}`)}%`;
-      qb.andWhere((w) => w.whereILike('s.title', like).orWhereILike('s.vessel_name', like));
-    }
-    return qb;
-  };
   const dir = q.order === 'asc' ? 'ASC' : 'DESC';
   const order = `${SORT_COLUMNS[q.sort]} ${dir} NULLS LAST, s.id ${dir}`;
-  const count = filter(db('surveys as s')).count('*');
-  const page = filter(summaryQuery(db))
-    .select(db.raw(`row_number() OVER (ORDER BY ${order}) AS page_row`))
-    .orderByRaw(order)
-    .limit(q.pageSize)
-    .offset((q.page - 1) * q.pageSize);
+  const statuses = q.status?.length ? q.status : null;
+  const like = q.q ? `%${q.q.replace(/[\\%_]/g, (m) => `\\${m}`)}%` : null;
+  // Filters are switched by their parameters (NULL: no filter), so the text depends on the sort
+  // alone: one prepared statement per sort and direction.
+  const where = `s.organisation_id = ? AND (?::text[] IS NULL OR s.status = ANY(?::text[])) AND (?::text IS NULL OR s.title ILIKE ? OR s.vessel_name ILIKE ?)`;
+  const filter = [orgId, statuses, statuses, like, like, like];
   // One row even for an empty page (p.id null), so the count and the membership always come back.
-  const { rows } = await prepared(
-    db
-      .select(memberRoleColumn(db, member), db.raw('(?)::int AS total', [count]), 'p.*')
-      .from(db.raw('(SELECT 1) AS one'))
-      .joinRaw('LEFT JOIN LATERAL ? AS p ON true', [db.raw('?', [page])])
-      .orderBy('p.page_row'),
-  ).then((r: (SummaryRow & { member_role: Role | null; total: number; page_row: number })[]) => ({ rows: r }));
-  const first = rows[0];
+  const { rows } = await db
+    .raw(
+      `SELECT ${MEMBER_ROLE_SQL} AS member_role,
+              (SELECT count(*) FROM surveys s WHERE ${where})::int AS total,
+              p.*
+         FROM (SELECT 1) AS one
+         LEFT JOIN LATERAL (
+           SELECT ${SUMMARY_SQL}, row_number() OVER (ORDER BY ${order}) AS page_row
+             FROM surveys s JOIN users u ON u.id = s.created_by
+            WHERE ${where}
+            ORDER BY ${order}
+            LIMIT ? OFFSET ?
+         ) AS p ON true
+        ORDER BY p.page_row`,
+      [member?.userId ?? null, member?.orgId ?? null, ...filter, ...filter, q.pageSize, (q.page - 1) * q.pageSize],
+    )
+    .options({ name: `bl_list_${q.sort}_${dir}` });
+  const page = rows as (SummaryRow & { member_role: Role | null; total: number; page_row: number })[];
+  const first = page[0];
   return {
-    items: rows.filter((r) => r.id != null).map(toSummary),
+    items: page.filter((r) => r.id != null).map(toSummary),
     total: Number(first?.total ?? 0),
-    memberRole: first?.member_role ?? null,
+    memberRole: member ? (first?.member_role ?? null) : null,
   };
 }
 
@@ -593,59 +598,50 @@ export async function readSurveyRaw(
   member?: MemberCheck,
   known: KnownText = {},
 ): Promise<RawSurveyRead> {
-  const conflicts = db.raw(
-    `(SELECT json_agg(json_build_object(
-        'id', c.id, 'survey_id', c.survey_id, 'target', c.target, 'proposed', c.proposed, 'kept', c.kept,
-        'base_revision', c.base_revision, 'kept_revision', c.kept_revision, 'proposed_device_id', c.proposed_device_id,
-        'change_id', c.change_id, 'status', c.status, 'created_at', ${isoSql('c.created_at')}, 'resolved_at', ${isoSql('c.resolved_at')},
-        'proposed_by_id', pu.id, 'proposed_by_name', pu.name, 'kept_by_id', ku.id, 'kept_by_name', ku.name,
-        'resolved_by_id', ru.id, 'resolved_by_name', ru.name) ORDER BY c.created_at)::text
-      FROM survey_conflicts c
-      JOIN users pu ON pu.id = c.proposed_by
-      LEFT JOIN users ku ON ku.id = c.kept_by
-      LEFT JOIN users ru ON ru.id = c.resolved_by
-      WHERE c.organisation_id = s.organisation_id AND c.survey_id = s.id AND c.status = 'open') AS conflicts_json`,
-  );
-  const latest = db('survey_results')
-    .whereRaw('survey_id = s.id')
-    .andWhere({ engine_version: engineVersion })
-    .orderBy('revision', 'desc')
-    .limit(1)
-    .select(
-      'revision',
-      'engine_version',
-      'error',
-      'computed_at',
-      db.raw("CASE WHEN revision = ? THEN NULL ELSE coalesce(results::text, 'null') END AS results_json", [known.resultsRevision ?? -1]),
-    );
-  const row = await prepared(
-    db
-    .select(
-      memberRoleColumn(db, member),
-      ...SUMMARY_COLUMNS,
-      OPEN_CONFLICTS(db),
-      db.raw('CASE WHEN s.revision = ? THEN NULL ELSE s.doc::text END AS doc_json', [known.docRevision ?? -1]),
+  const { rows } = await db
+    .raw(
+      `SELECT ${MEMBER_ROLE_SQL} AS member_role, ${SUMMARY_SQL},
+              CASE WHEN s.revision = ? THEN NULL ELSE s.doc::text END AS doc_json,
+              r.revision AS results_revision, r.engine_version, r.error, r.computed_at, r.results_json,
+              (SELECT json_agg(json_build_object(
+                  'id', c.id, 'survey_id', c.survey_id, 'target', c.target, 'proposed', c.proposed, 'kept', c.kept,
+                  'base_revision', c.base_revision, 'kept_revision', c.kept_revision, 'proposed_device_id', c.proposed_device_id,
+                  'change_id', c.change_id, 'status', c.status, 'created_at', ${isoSql('c.created_at')}, 'resolved_at', ${isoSql('c.resolved_at')},
+                  'proposed_by_id', pu.id, 'proposed_by_name', pu.name, 'kept_by_id', ku.id, 'kept_by_name', ku.name,
+                  'resolved_by_id', ru.id, 'resolved_by_name', ru.name) ORDER BY c.created_at)::text
+                 FROM survey_conflicts c
+                 JOIN users pu ON pu.id = c.proposed_by
+                 LEFT JOIN users ku ON ku.id = c.kept_by
+                 LEFT JOIN users ru ON ru.id = c.resolved_by
+                WHERE c.organisation_id = s.organisation_id AND c.survey_id = s.id AND c.status = 'open') AS conflicts_json
+         FROM (SELECT 1) AS one
+         LEFT JOIN surveys s ON s.id = ? AND s.organisation_id = ?
+         LEFT JOIN users u ON u.id = s.created_by
+         LEFT JOIN LATERAL (
+           SELECT revision, engine_version, error, computed_at,
+                  CASE WHEN revision = ? THEN NULL ELSE coalesce(results::text, 'null') END AS results_json
+             FROM survey_results
+            WHERE survey_id = s.id AND engine_version = ?
+            ORDER BY revision DESC
+            LIMIT 1
+         ) AS r ON true`,
+      [member?.userId ?? null, member?.orgId ?? null, known.docRevision ?? -1, id, orgId, known.resultsRevision ?? -1, engineVersion],
     )
-    .select('r.revision AS results_revision', 'r.engine_version', 'r.error', 'r.computed_at', 'r.results_json', conflicts)
-    .from(db.raw('(SELECT 1) AS one'))
-    .leftJoin('surveys as s', (j) => j.on('s.id', db.raw('?', [id])).andOn('s.organisation_id', db.raw('?', [orgId])))
-    .leftJoin('users as u', 'u.id', 's.created_by')
-    .joinRaw('LEFT JOIN LATERAL ? AS r ON true', [db.raw('?', [latest])])
-    .first(),
-  );
-  const out: RawSurveyRead = { memberRole: row?.member_role ?? null, conflicts: [] };
+    .options({ name: 'bl_survey_read' });
+  const row = rows[0] as (SummaryRow & Record<string, unknown>) | undefined;
+  const out: RawSurveyRead = { memberRole: member ? ((row?.member_role as Role | null) ?? null) : null, conflicts: [] };
   if (!row?.id) return out;
-  out.survey = { ...toSummary(row as SummaryRow), docJson: row.doc_json };
+  out.survey = { ...toSummary(row), docJson: row.doc_json as string | null };
   if (row.results_revision != null) {
     out.results = {
-      revision: row.results_revision,
-      engineVersion: row.engine_version,
-      error: row.error,
-      computedAt: iso(row.computed_at)!,
-      resultsJson: row.results_json,
+      revision: row.results_revision as number,
+      engineVersion: row.engine_version as string,
+      error: row.error as string | null,
+      computedAt: iso(row.computed_at as Date)!,
+      resultsJson: row.results_json as string | null,
     };
   }
-  if (row.conflicts_json) out.conflicts = (JSON.parse(row.conflicts_json) as ConflictRow[]).map(toConflict);
+  if (row.conflicts_json) out.conflicts = (JSON.parse(row.conflicts_json as string) as ConflictRow[]).map(toConflict);
   return out;
 }
 
