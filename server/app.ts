@@ -3,7 +3,6 @@
  * tests start the same app on a random port.
  */
 import express, { Router } from 'express';
-import helmet from 'helmet';
 import cookieParser from 'cookie-parser';
 import type { Logger } from 'pino';
 import fs from 'node:fs';
@@ -13,6 +12,7 @@ import type { Config } from './config';
 import { defineRoutes, type RegisteredRoute, type RouteSpec, type AccessVerifier } from './http/route';
 import { apiNotFound, errorHandler } from './middleware/errors';
 import { requestLogging } from './http/request-log';
+import { securityHeaders } from './http/security-headers';
 import { healthRoutes } from './routes/health';
 import { createAccessVerifier } from './services/access';
 import { createMailer, type Mailer } from './mail/mailer';
@@ -65,17 +65,7 @@ export function createApp(given: AppDeps): BrinelineApp {
   app.locals.routes = [];
 
   app.use(requestLogging(deps.logger));
-  app.use(
-    helmet({
-      contentSecurityPolicy: {
-        directives: {
-          'img-src': ["'self'", 'data:', 'blob:'],
-          'worker-src': ["'self'", 'blob:'],
-          'script-src': ["'self'", "'wasm-unsafe-eval'"],
-        },
-      },
-    }),
-  );
+  app.use(securityHeaders());
   app.use(cookieParser());
 
   const verify: AccessVerifier = createAccessVerifier(deps);

@@ -61,6 +61,18 @@ interface RunOutcome {
 /** Thrown when a run's final document is invalid: the run is redone checking every change on its own. */
 class CheckEachChange extends Error {}
 
+/**
+ * How a run holds the survey. `locked`: in a transaction that locks the survey row first (BEGIN,
+ * SELECT … FOR UPDATE, writes, COMMIT). `optimistic`: the usual run of plain edits, in two round
+ * trips and no transaction: a read, then one statement that writes everything only if the survey is
+ * still at the revision read (else nothing). Anything the optimistic path does not handle — a new
+ * survey, a conflict, settling one, a change of vessel, a lost race — throws NeedsLock before
+ * anything is written, and the run is done again locked.
+ */
+type RunMode = { kind: 'locked'; q: Knex.Transaction } | { kind: 'optimistic'; q: Db };
+
+class NeedsLock extends Error {}
+
 function validationReason(doc: unknown): string | null {
   const parsed = SurveySchema.safeParse(doc);
   if (parsed.success) return null;
@@ -76,18 +88,21 @@ function validationReason(doc: unknown): string | null {
  * is redone with `checkEach`, which refuses exactly the changes that break the survey.
  */
 async function processRun(
-  trx: Knex.Transaction,
+  mode: RunMode,
   auth: AuthContext,
   run: SurveyChange[],
   checkEach: boolean,
   confirm?: (role: Role | null) => unknown,
 ): Promise<RunOutcome> {
+  const trx = mode.q;
+  const optimistic = mode.kind === 'optimistic';
   const surveyId = run[0].surveyId;
   const results: PushResult[] = [];
   const conflictIds: string[] = [];
-  const start = await repo.lockForRun(trx, auth.orgId, surveyId, run, confirm ? auth : undefined);
+  const start = await repo.lockForRun(trx, auth.orgId, surveyId, run, confirm ? auth : undefined, { lock: !optimistic });
   confirm?.(start.memberRole);
   const locked = start.survey;
+  if (optimistic && !locked) throw new NeedsLock();
   let state: RunState | null = locked ? { doc: locked.doc, revision: locked.revision, revs: locked.revs, dirty: false } : null;
   let known = locked ? { vesselId: locked.vesselId, vesselName: locked.doc.vessel.name } : undefined;
   let touched = false;
@@ -148,6 +163,7 @@ async function processRun(
     }
 
     const op = change.op;
+    if (optimistic && (op.kind === 'create' || op.kind === 'resolve-conflict')) throw new NeedsLock();
     if (op.kind === 'create') {
       if (state) {
         reject('This survey already exists on the server.');
@@ -182,7 +198,8 @@ async function processRun(
     }
 
     if (op.kind === 'resolve-conflict') {
-      const c = await repo.lockConflict(trx, auth.orgId, op.conflictId);
+      if (mode.kind !== 'locked') throw new NeedsLock();
+      const c = await repo.lockConflict(mode.q, auth.orgId, op.conflictId);
       if (!c || c.surveyId !== surveyId) {
         reject('This conflict is not on the server.');
         continue;
@@ -223,6 +240,7 @@ async function processRun(
         changes: outcome.changes,
       });
     }
+    if (optimistic && outcome.conflicts.length) throw new NeedsLock();
     const ids: string[] = [];
     for (const d of outcome.conflicts) {
       const id = randomUUID();
@@ -255,13 +273,25 @@ async function processRun(
 
   if (state?.dirty && !checkEach && validationReason(state.doc)) throw new CheckEachChange();
 
+  if (optimistic) {
+    // Linking another vessel may insert one: that is for the locked path.
+    if (state?.dirty && known?.vesselName.toLowerCase() !== state.doc.vessel.name.toLowerCase()) throw new NeedsLock();
+    // Only changes already recorded: their answers stand whatever happened since.
+    if (!processed.length && !revisions.length) return { results, conflictIds, touched };
+    const survey = state?.dirty ? { id: surveyId, columns: await columnsOf(trx, auth.orgId, state.doc, state.revision, state.revs, known) } : undefined;
+    // Written only while the survey is still at the revision read; otherwise nothing is written at all.
+    const written = await repo.insertRunWrites(trx, { revisions, processed, survey, onlyAtRevision: locked!.revision });
+    if (!written.guardHeld) throw new NeedsLock();
+    return { results, conflictIds, touched };
+  }
+
   for (const c of conflictRows) await repo.insertConflict(trx, c);
   for (const r of resolutions) await repo.markConflictResolved(trx, r.conflictId, auth.userId, r.changeId);
   const survey = state?.dirty
     ? { id: surveyId, columns: await columnsOf(trx, auth.orgId, state.doc, state.revision, state.revs, known) }
     : undefined;
   // Another transaction recorded one of these changes since our look-up: redo the run to answer 'duplicate'.
-  if ((await repo.insertRunWrites(trx, { revisions, processed, survey })) < processed.length) {
+  if ((await repo.insertRunWrites(trx, { revisions, processed, survey })).inserted < processed.length) {
     throw Object.assign(new Error('change recorded concurrently'), { code: '23505' });
   }
   return { results, conflictIds, touched: touched || conflictIds.length > 0 };
@@ -288,9 +318,12 @@ export async function push(
   let confirm = opts.confirm;
   for (const run of runsOf(changes)) {
     let checkEach = false;
+    let optimistic = true;
     for (let attempt = 1; ; attempt++) {
       try {
-        const out = await db.transaction((trx) => processRun(trx, auth, run, checkEach, confirm));
+        const out = optimistic
+          ? await processRun({ kind: 'optimistic', q: db }, auth, run, checkEach, confirm)
+          : await db.transaction((trx) => processRun({ kind: 'locked', q: trx }, auth, run, checkEach, confirm));
         confirm = undefined;
         results.push(...out.results);
         conflictIds.push(...out.conflictIds);
@@ -302,6 +335,12 @@ export async function push(
           continue;
         }
         const code = (err as PgError).code;
+        if (optimistic && (err instanceof NeedsLock || (code && RETRYABLE.has(code)))) {
+          // Nothing was written: do the run again, locked.
+          optimistic = false;
+          attempt--;
+          continue;
+        }
         if (!code || !RETRYABLE.has(code) || attempt >= MAX_RUN_ATTEMPTS) throw err;
         opts.logger?.debug({ code, attempt }, 'push run retried');
         await new Promise((r) => setTimeout(r, 5 * attempt + Math.random() * 20));

@@ -6,6 +6,9 @@ import { createApp } from '../../server/app';
 import { createDb } from '../../server/db/knex';
 import { pino } from 'pino';
 import http from 'node:http';
+import express from 'express';
+import helmet from 'helmet';
+import { HELMET_OPTIONS, securityHeaders } from '../../server/http/security-headers';
 
 let t: TestApp;
 beforeAll(async () => {
@@ -59,5 +62,35 @@ describe('error bodies', () => {
     });
     expect(res.status).toBeLessThan(500);
     expect(ErrorBodySchema.safeParse(await res.json()).success).toBe(true);
+  });
+});
+
+describe('security headers', () => {
+  it('are exactly the ones helmet sets when it runs on every request', async () => {
+    // The app records helmet's headers once (server/http/security-headers.ts); helmet itself is the reference.
+    const headersOf = async (middleware: express.RequestHandler) => {
+      const app = express();
+      app.use(middleware);
+      app.get('/x', (_req, res) => void res.send('ok'));
+      const server = http.createServer(app).listen(0, '127.0.0.1');
+      await new Promise((r) => server.once('listening', r));
+      try {
+        const { port } = server.address() as { port: number };
+        const res = await fetch(`http://127.0.0.1:${port}/x`);
+        await res.text();
+        return Object.fromEntries([...res.headers].filter(([name]) => !['date', 'etag', 'keep-alive', 'connection'].includes(name)));
+      } finally {
+        server.close();
+      }
+    };
+    const reference = await headersOf(helmet(HELMET_OPTIONS) as unknown as express.RequestHandler);
+    expect(reference['content-security-policy']).toContain("script-src 'self' 'wasm-unsafe-eval'");
+    expect(reference['x-powered-by']).toBeUndefined();
+    expect(await headersOf(securityHeaders())).toEqual(reference);
+    const app = await fetch(`${t.url}/api/health`);
+    for (const [name, value] of Object.entries(reference)) {
+      if (name.startsWith('content-') && name !== 'content-security-policy') continue;
+      expect([name, app.headers.get(name)]).toEqual([name, value]);
+    }
   });
 });

@@ -194,6 +194,24 @@ describe('POST /api/sync/push', () => {
     expect(dupChanges.rows).toHaveLength(0);
   });
 
+  it('applies 20 devices’ edits pushed to one survey at the same moment, each once, none lost', async () => {
+    // Plain edits first try the two-round-trip path that writes only if the survey is still at the
+    // revision read; the ones that lose that race must be redone under the row lock, not dropped.
+    const s = await storeSurvey(t.db, org.surveyor);
+    const devices = Array.from({ length: 20 }, () => randomUUID());
+    const outs = await Promise.all(
+      devices.map((d, i) => pushRaw(surveyorToken, [change(d, s.id, { kind: 'upsert', collection: 'fluids', entity: fluid(`race-${i}`, 800 + i) }, 1)])),
+    );
+    expect(outs.flatMap((o) => o.results.map((r) => r.status))).toEqual(Array(20).fill('applied'));
+    const revisions = outs.map((o) => o.results[0].revision).sort((a, b) => a! - b!);
+    expect(revisions).toEqual(Array.from({ length: 20 }, (_, i) => i + 2));
+    const stored = await serverSurvey(s.id);
+    expect(stored.revision).toBe(21);
+    for (let i = 0; i < 20; i++) expect(stored.doc.fluids.find((f) => f.id === `race-${i}`)?.densityKgM3).toBe(800 + i);
+    const recorded = await t.db('processed_changes').whereIn('device_id', devices).count<{ count: number }[]>('* as count');
+    expect(Number(recorded[0].count)).toBe(20);
+  });
+
   it('records every revision with who, which device and what changed (old → new), immutably', async () => {
     const device = randomUUID();
     const survey = newSurvey();

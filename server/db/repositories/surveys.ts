@@ -61,34 +61,40 @@ export interface RunStart {
 
 /**
  * One round trip at the start of a push run: locks the survey row for this transaction
- * (SELECT … FOR UPDATE, undefined when the organisation has no such survey), looks up which of the
+ * (SELECT … FOR UPDATE, undefined when the organisation has no such survey; with `lock: false` only
+ * reads it, for an optimistic run), looks up which of the
  * changes were already processed, and with `member` the caller's active role. The look-up reads as
  * of the statement's start, so a change recorded by a transaction that held the lock while we waited
  * is not seen here; recording it again then inserts fewer rows than expected (insertRunWrites), and
  * the run is redone, when it is seen.
  */
 export async function lockForRun(
-  trx: Knex.Transaction,
+  trx: Q,
   orgId: string,
   id: string,
   changes: { id: string; deviceId: string; seq: number }[],
   member?: MemberCheck,
+  opts: { lock: boolean } = { lock: true },
 ): Promise<RunStart> {
   // Fixed text whatever the number of changes (arrays as parameters), so it stays one prepared statement.
   const { rows } = await trx
     .raw(
       `WITH s AS (
          SELECT id, organisation_id, doc, revision, field_revisions, status, vessel_id
-         FROM surveys WHERE id = ? AND organisation_id = ? FOR UPDATE
+         FROM surveys WHERE id = ? AND organisation_id = ? ${opts.lock ? 'FOR UPDATE' : ''}
        )
        SELECT (SELECT role FROM memberships WHERE user_id = ? AND organisation_id = ? AND status = 'active') AS member_role,
               (SELECT row_to_json(s) FROM s) AS survey,
               (SELECT json_agg(json_build_object('device_id', pc.device_id, 'seq', pc.seq, 'change_id', pc.change_id,
                         'organisation_id', pc.organisation_id, 'status', pc.status, 'revision', pc.revision,
                         'reason', pc.reason, 'conflict_ids', pc.conflict_ids))
-                 FROM processed_changes pc
-                WHERE (pc.device_id, pc.seq) IN (SELECT * FROM unnest(?::uuid[], ?::int[]))
-                   OR pc.change_id = ANY(?::uuid[])) AS seen`,
+                 -- Two index look-ups (by device and sequence, and by change id), never a scan of the history.
+                 FROM (SELECT pc.device_id, pc.seq, pc.change_id, pc.organisation_id, pc.status, pc.revision, pc.reason, pc.conflict_ids
+                         FROM processed_changes pc JOIN unnest(?::uuid[], ?::int[]) AS k(device_id, seq)
+                           ON pc.device_id = k.device_id AND pc.seq = k.seq
+                       UNION
+                       SELECT pc.device_id, pc.seq, pc.change_id, pc.organisation_id, pc.status, pc.revision, pc.reason, pc.conflict_ids
+                         FROM processed_changes pc WHERE pc.change_id = ANY(?::uuid[])) AS pc) AS seen`,
       [
         id,
         orgId,
@@ -99,7 +105,7 @@ export async function lockForRun(
         changes.map((c) => c.id),
       ],
     )
-    .options({ name: 'bl_lock_for_run' });
+    .options({ name: opts.lock ? 'bl_lock_for_run' : 'bl_read_for_run' });
   const row = rows[0] as { member_role: Role | null; survey: SurveyRow | null; seen: ProcessedJsonRow[] | null };
   return {
     memberRole: member ? row.member_role : null,
@@ -249,38 +255,56 @@ const processedRow = (p: ProcessedRow) => ({
 
 /**
  * What a push run writes, in one statement: its revisions, its change records and the survey's new
- * state. Returns how many change records were new (fewer than given when another transaction
+ * state. `inserted`: how many change records were new (fewer than given when another transaction
  * recorded one of them first; the caller then redoes the run).
+ *
+ * With `onlyAtRevision` (an optimistic run, outside any transaction) the statement first locks the
+ * survey row if it is still at that revision, and writes nothing at all otherwise (`guardHeld`
+ * false). A change recorded meanwhile then fails the statement with a unique violation, which also
+ * writes nothing.
  */
 export async function insertRunWrites(
-  trx: Knex.Transaction,
-  w: { revisions: RevisionRow[]; processed: ProcessedRow[]; survey?: { id: string; columns: SurveyColumns } },
-): Promise<number> {
-  if (!w.processed.length && !w.revisions.length && !w.survey) return 0;
+  q: Q,
+  w: {
+    revisions: RevisionRow[];
+    processed: ProcessedRow[];
+    survey?: { id: string; columns: SurveyColumns };
+    onlyAtRevision?: number;
+  },
+): Promise<{ inserted: number; guardHeld: boolean }> {
+  const guarded = w.onlyAtRevision !== undefined;
+  if (!guarded && !w.processed.length && !w.revisions.length && !w.survey) return { inserted: 0, guardHeld: true };
+  const surveyId = w.survey?.id ?? w.processed[0]?.surveyId ?? w.revisions[0]?.surveyId ?? null;
   // Rows go as one JSON array per table and the survey update is switched by a flag, so the text is
   // the same for every run: one prepared statement, parsed and planned once per connection.
+  const when = guarded ? ' AND EXISTS (SELECT 1 FROM g)' : '';
   const c = w.survey?.columns;
-  const { rows } = await trx
+  const { rows } = await q
     .raw(
-      `WITH r AS (
+      `WITH g AS (SELECT id FROM surveys WHERE id = ? AND revision = ? FOR UPDATE),
+       r AS (
          INSERT INTO survey_revisions (survey_id, revision, organisation_id, user_id, device_id, change_id, changes)
          SELECT survey_id, revision, organisation_id, user_id, device_id, change_id, changes
            FROM jsonb_populate_recordset(NULL::survey_revisions, ?::jsonb)
+          WHERE true${when}
        ),
        u AS (
          UPDATE surveys SET doc = ?::jsonb, revision = ?, field_revisions = ?::jsonb, title = ?, vessel_name = ?,
                 vessel_id = ?, soundings_at = ?, updated_at = now()
-          WHERE id = ? AND ?::boolean
+          WHERE id = ? AND ?::boolean${when}
        ),
        p AS (
          INSERT INTO processed_changes (device_id, seq, change_id, organisation_id, survey_id, user_id, status, revision, reason, conflict_ids)
          SELECT device_id, seq, change_id, organisation_id, survey_id, user_id, status, revision, reason, conflict_ids
            FROM jsonb_populate_recordset(NULL::processed_changes, ?::jsonb)
-         ON CONFLICT DO NOTHING
+          WHERE true${when}
+         ${guarded ? '' : 'ON CONFLICT DO NOTHING'}
          RETURNING 1
        )
-       SELECT (SELECT count(*) FROM p)::int AS n`,
+       SELECT (SELECT count(*) FROM p)::int AS n, (SELECT count(*) FROM g)::int AS guard`,
       [
+        guarded ? surveyId : null,
+        w.onlyAtRevision ?? null,
         JSON.stringify(w.revisions.map((r) => ({ ...revisionRow(r), changes: r.changes }))),
         c ? json(c.doc) : null,
         c?.revision ?? null,
@@ -294,8 +318,9 @@ export async function insertRunWrites(
         JSON.stringify(w.processed.map((p) => ({ ...processedRow(p), conflict_ids: p.conflictIds }))),
       ],
     )
-    .options({ name: 'bl_run_writes' });
-  return Number((rows[0] as { n: number }).n);
+    .options({ name: guarded ? 'bl_run_writes_at_revision' : 'bl_run_writes' });
+  const row = rows[0] as { n: number; guard: number };
+  return { inserted: Number(row.n), guardHeld: !guarded || Number(row.guard) > 0 };
 }
 
 // ---- conflicts ----
