@@ -12,7 +12,7 @@ import type { AppDeps } from '../app';
 import type { Role } from '@shared/api/roles';
 import { ANY_MEMBER, authOf, confirmMembership, ensureMembership, unconfirmedAuthOf, type RouteSpec } from '../http/route';
 import { HttpError } from '../http/errors';
-import { createResultsScheduler, createSurvey, getSurvey, getSurveyJson, listSurveys, SurveyTextCache } from '../services/surveys';
+import { createResultsScheduler, createSurvey, getSurvey, getSurveyJson, listSurveysJson, SurveyTextCache } from '../services/surveys';
 import { pull, push } from '../services/sync';
 
 const IdParam = z.object({ id: z.uuid() });
@@ -29,7 +29,8 @@ export function surveyRoutes(deps: AppDeps): RouteSpec[] {
       checksMembership: true,
       handler: async (req, res) => {
         const q = ListSurveysQuerySchema.parse(req.query);
-        res.json(await listSurveys(deps.db, unconfirmedAuthOf(req), q, (role) => confirmMembership(req, role)));
+        const body = await listSurveysJson(deps.db, unconfirmedAuthOf(req), q, (role) => confirmMembership(req, role));
+        res.type('application/json').send(body);
       },
     },
     {

@@ -7,7 +7,7 @@ import { LRUCache } from 'lru-cache';
 import { computeSurvey, ENGINE_VERSION } from '@shared/engine';
 import type { Role } from '@shared/api/roles';
 import type { Survey } from '@shared/schemas/survey';
-import type { ListSurveysQuery, SurveyDetail, SurveyListResponse, SurveyResults } from '@shared/schemas/sync';
+import type { ListSurveysQuery, SurveyDetail, SurveyResults } from '@shared/schemas/sync';
 import type { Db } from '../db/knex';
 import type { AuthContext } from '../http/auth-context';
 import { conflict, notFound } from '../http/errors';
@@ -54,18 +54,19 @@ export async function ensureResults(db: Db, surveyId: string, revision: number, 
 }
 
 /**
- * A page of surveys. With `confirm`, the same query checks the caller's membership and hands the
- * role it found to `confirm` (which throws when there is none) before anything is returned.
+ * A page of surveys, as the UTF-8 JSON of a SurveyListResponse. With `confirm`, the same query checks
+ * the caller's membership and hands the role it found to `confirm` (which throws when there is none)
+ * before anything is returned.
  */
-export async function listSurveys(
+export async function listSurveysJson(
   db: Db,
   auth: AuthContext,
   q: ListSurveysQuery,
   confirm?: (role: Role | null) => unknown,
-): Promise<SurveyListResponse> {
-  const { items, total, memberRole } = await repo.listSurveys(db, auth.orgId, q, confirm ? auth : undefined);
+): Promise<Buffer> {
+  const { itemsJson, total, memberRole } = await repo.listSurveysJson(db, auth.orgId, q, confirm ? auth : undefined);
   confirm?.(memberRole);
-  return { items, total, page: q.page, pageSize: q.pageSize };
+  return utf8(`{"items":${itemsJson},"total":${total},"page":${q.page},"pageSize":${q.pageSize}}`);
 }
 
 /**

@@ -79,6 +79,12 @@ describe('GET /api/surveys and /api/surveys/:id', () => {
     );
     expect(page3.items.map((s) => s.title)).toEqual([`List ${tag} 4`]);
 
+    // The list's items (JSON built by PostgreSQL) say exactly what the survey read says of the same survey.
+    const detail = SurveyDetailSchema.parse(await (await fetch(`${t.url}/api/surveys/${made[0].id}`, { headers: h(surveyorToken) })).json());
+    const { doc: _doc, results: _results, conflicts: _conflicts, ...summary } = detail;
+    expect(page1.items[0]).toEqual(summary);
+    expect(page1.items[0].createdAt).toMatch(/^\d{4}-\d\d-\d\dT\d\d:\d\d:\d\d\.\d{3}Z$/);
+
     const submitted = SurveyListResponseSchema.parse(
       await (await fetch(`${t.url}/api/surveys?q=${tag}&status=submitted,in_review`, { headers: h(engineerToken) })).json(),
     );

@@ -537,14 +537,16 @@ export interface MemberCheck {
 
 /**
  * A page of the organisation's surveys and how many match, in one round trip; with `member`, the
- * caller's active role too (null: not an active member, and then nothing else counts).
+ * caller's active role too (null: not an active member, and then nothing else counts). The page
+ * comes as the JSON text of its SurveySummary items, built by PostgreSQL, so the rows are neither
+ * parsed into objects nor serialised again on their way out.
  */
-export async function listSurveys(
+export async function listSurveysJson(
   db: Q,
   orgId: string,
   q: ListSurveysQuery,
   member?: MemberCheck,
-): Promise<{ items: SurveySummary[]; total: number; memberRole: Role | null }> {
+): Promise<{ itemsJson: string; total: number; memberRole: Role | null }> {
   const dir = q.order === 'asc' ? 'ASC' : 'DESC';
   const order = `${SORT_COLUMNS[q.sort]} ${dir} NULLS LAST, s.id ${dir}`;
   const statuses = q.status?.length ? q.status : null;
@@ -553,31 +555,25 @@ export async function listSurveys(
   // alone: one prepared statement per sort and direction.
   const where = `s.organisation_id = ? AND (?::text[] IS NULL OR s.status = ANY(?::text[])) AND (?::text IS NULL OR s.title ILIKE ? OR s.vessel_name ILIKE ?)`;
   const filter = [orgId, statuses, statuses, like, like, like];
-  // One row even for an empty page (p.id null), so the count and the membership always come back.
   const { rows } = await db
     .raw(
       `SELECT ${MEMBER_ROLE_SQL} AS member_role,
               (SELECT count(*) FROM surveys s WHERE ${where})::int AS total,
-              p.*
-         FROM (SELECT 1) AS one
-         LEFT JOIN LATERAL (
-           SELECT ${SUMMARY_SQL}, row_number() OVER (ORDER BY ${order}) AS page_row
-             FROM surveys s JOIN users u ON u.id = s.created_by
-            WHERE ${where}
-            ORDER BY ${order}
-            LIMIT ? OFFSET ?
-         ) AS p ON true
-        ORDER BY p.page_row`,
+              (SELECT coalesce(json_agg(json_build_object(
+                        'id', p.id, 'title', p.title, 'vesselName', p.vessel_name, 'status', p.status, 'revision', p.revision,
+                        'createdBy', json_build_object('id', p.created_by_id, 'name', p.created_by_name),
+                        'createdAt', ${isoSql('p.created_at')}, 'updatedAt', ${isoSql('p.updated_at')},
+                        'soundingsAt', ${isoSql('p.soundings_at')}, 'openConflicts', p.open_conflicts) ORDER BY p.page_row), '[]')::text
+                 FROM (SELECT ${SUMMARY_SQL}, row_number() OVER (ORDER BY ${order}) AS page_row
+                         FROM surveys s JOIN users u ON u.id = s.created_by
+                        WHERE ${where}
+                        ORDER BY ${order}
+                        LIMIT ? OFFSET ?) AS p) AS items_json`,
       [member?.userId ?? null, member?.orgId ?? null, ...filter, ...filter, q.pageSize, (q.page - 1) * q.pageSize],
     )
     .options({ name: `bl_list_${q.sort}_${dir}` });
-  const page = rows as (SummaryRow & { member_role: Role | null; total: number; page_row: number })[];
-  const first = page[0];
-  return {
-    items: page.filter((r) => r.id != null).map(toSummary),
-    total: Number(first?.total ?? 0),
-    memberRole: member ? (first?.member_role ?? null) : null,
-  };
+  const row = rows[0] as { member_role: Role | null; total: number; items_json: string };
+  return { itemsJson: row.items_json, total: Number(row.total), memberRole: member ? row.member_role : null };
 }
 
 export async function findSurvey(db: Q, orgId: string, id: string): Promise<(SurveySummary & { doc: Survey }) | undefined> {
