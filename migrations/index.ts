@@ -11,6 +11,7 @@ import * as photos from './20261201000300_photos';
 import * as review from './20261201000400_review';
 import * as resultsAsJson from './20261201000500_results_as_json';
 import * as lz4Toast from './20261202000600_lz4_toast';
+import * as docsAsJson from './20261202000700_docs_as_json';
 
 const migrations: Record<string, Knex.Migration> = {
   '20261201000000_organisations_users': organisationsUsers,
@@ -20,6 +21,7 @@ const migrations: Record<string, Knex.Migration> = {
   '20261201000400_review': review,
   '20261201000500_results_as_json': resultsAsJson,
   '20261202000600_lz4_toast': lz4Toast,
+  '20261202000700_docs_as_json': docsAsJson,
 };
 
 export const migrationSource: Knex.MigrationSource<string> = {

@@ -158,7 +158,7 @@ export async function listQueue(db: Q, orgId: string, statuses: readonly SurveyS
       's.title',
       's.vessel_name',
       's.soundings_at',
-      db.raw("coalesce((select jsonb_agg(jsonb_build_object('id', b->>'id', 'name', b->>'name')) from jsonb_array_elements(s.doc->'boundaries') b), '[]'::jsonb) as boundaries"),
+      db.raw("coalesce((select jsonb_agg(jsonb_build_object('id', b->>'id', 'name', b->>'name')) from json_array_elements(s.doc->'boundaries') b), '[]'::jsonb) as boundaries"),
       'u.name as surveyor_name',
       'e.at as submitted_at',
       'r.engine_version',

@@ -289,7 +289,7 @@ export async function insertRunWrites(
           WHERE true${when}
        ),
        u AS (
-         UPDATE surveys SET doc = ?::jsonb, revision = ?, field_revisions = ?::jsonb, title = ?, vessel_name = ?,
+         UPDATE surveys SET doc = ?::json, revision = ?, field_revisions = ?::json, title = ?, vessel_name = ?,
                 vessel_id = ?, soundings_at = ?, updated_at = now()
           WHERE id = ? AND ?::boolean${when}
        ),
