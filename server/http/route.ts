@@ -14,7 +14,7 @@ export type Policy =
   | { access: 'member'; roles: readonly Role[] };
 
 export const PUBLIC: Policy = { access: 'public' };
-export const ANY_MEMBER: Policy = { access: 'member', roles: ['admin', 'engineer', 'surveyor'] };
+export const ANY_MEMBER = { access: 'member', roles: ['admin', 'engineer', 'surveyor'] } as const satisfies Policy;
 export const roles = (...r: Role[]): Policy => ({ access: 'member', roles: r });
 
 export type Method = 'get' | 'post' | 'put' | 'patch' | 'delete';

@@ -13,14 +13,16 @@ import type { Role } from '@shared/api/roles';
 import { ANY_MEMBER, authOf, confirmMembership, ensureMembership, unconfirmedAuthOf, type RouteSpec } from '../http/route';
 import { HttpError } from '../http/errors';
 import { createResultsScheduler, createSurvey, getSurvey, getSurveyJson, listSurveysJson, SurveyTextCache } from '../services/surveys';
-import { pull, push } from '../services/sync';
+import { pull, push, SurveyStateCache } from '../services/sync';
 
 const IdParam = z.object({ id: z.uuid() });
+const PUSH_POLICY = ANY_MEMBER;
 const DetailQuery = z.object({ results: z.enum(['latest', 'current']).default('latest') });
 
 export function surveyRoutes(deps: AppDeps): RouteSpec[] {
   const scheduler = createResultsScheduler(deps.db, (err) => deps.logger.warn({ err }, 'results recomputation failed'));
   const textCache = new SurveyTextCache();
+  const stateCache = new SurveyStateCache();
   return [
     {
       method: 'get',
@@ -61,7 +63,7 @@ export function surveyRoutes(deps: AppDeps): RouteSpec[] {
     {
       method: 'post',
       path: '/sync/push',
-      policy: ANY_MEMBER,
+      policy: PUSH_POLICY,
       checksMembership: true,
       handler: async (req, res) => {
         const changes = (req.body as { changes?: unknown } | undefined)?.changes;
@@ -75,7 +77,13 @@ export function surveyRoutes(deps: AppDeps): RouteSpec[] {
         const body = PushRequestSchema.parse(req.body);
         if (body.changes.length === 0) await ensureMembership(req);
         const confirm = (role: Role | null) => confirmMembership(req, role);
-        const out = await push(deps.db, unconfirmedAuthOf(req), body.changes, { scheduler, logger: req.log, confirm });
+        const out = await push(deps.db, unconfirmedAuthOf(req), body.changes, {
+          scheduler,
+          logger: req.log,
+          confirm,
+          roles: PUSH_POLICY.roles,
+          known: stateCache,
+        });
         res.json({ ...out, serverTime: new Date().toISOString() } satisfies PushResponse);
       },
     },

@@ -13,10 +13,11 @@
  */
 import { randomUUID } from 'node:crypto';
 import type { Knex } from 'knex';
+import { LRUCache } from 'lru-cache';
 import type { Logger } from 'pino';
 import { SurveySchema, type Survey } from '@shared/schemas/survey';
 import type { Role } from '@shared/api/roles';
-import type { Conflict, PullQuery, PullResponse, PushResult, SurveyChange } from '@shared/schemas/sync';
+import type { Conflict, PullQuery, PullResponse, PushResult, SurveyChange, SurveyStatus } from '@shared/schemas/sync';
 import { deepEqual } from '@shared/sync/apply';
 import { mergeChange, type FieldRevisions } from '@shared/sync/merge';
 import { formatZodIssues } from '@shared/api/format-issues';
@@ -56,6 +57,8 @@ interface RunOutcome {
   results: PushResult[];
   conflictIds: string[];
   touched: boolean;
+  /** The survey as the run left it in the database, when the run wrote it. */
+  written?: KnownSurveyState;
 }
 
 /** Thrown when a run's final document is invalid: the run is redone checking every change on its own. */
@@ -69,7 +72,47 @@ class CheckEachChange extends Error {}
  * survey, a conflict, settling one, a change of vessel, a lost race — throws NeedsLock before
  * anything is written, and the run is done again locked.
  */
-type RunMode = { kind: 'locked'; q: Knex.Transaction } | { kind: 'optimistic'; q: Db };
+type RunMode =
+  | { kind: 'locked'; q: Knex.Transaction }
+  | {
+      kind: 'optimistic';
+      q: Db;
+      /** The survey as this server last wrote it: the opening read is skipped (see SurveyStateCache). */
+      known?: KnownSurveyState;
+      /** With `known`: the roles that may push; the write checks the membership itself. */
+      roles?: readonly Role[];
+    };
+
+/** A survey as stored at a revision: what a run starts from. */
+export interface KnownSurveyState {
+  orgId: string;
+  revision: number;
+  doc: Survey;
+  revs: FieldRevisions;
+  vesselId: string | null;
+  status: SurveyStatus;
+}
+
+/**
+ * The state of each survey as this server last wrote it in a push. A push of plain edits to a survey
+ * found here skips its opening read and goes out as one statement that writes only if the survey is
+ * still at that revision, the caller is still an active member and none of its changes was recorded
+ * before (the change records' unique keys); otherwise nothing is written, the entry is dropped and
+ * the run is done again from a fresh read. The documents are kept as parsed back from the JSON text
+ * written, so they are exactly what a read would give.
+ */
+export class SurveyStateCache {
+  private readonly entries = new LRUCache<string, KnownSurveyState>({ max: 2000 });
+  get(id: string): KnownSurveyState | undefined {
+    return this.entries.get(id);
+  }
+  set(id: string, state: KnownSurveyState): void {
+    this.entries.set(id, state);
+  }
+  delete(id: string): void {
+    this.entries.delete(id);
+  }
+}
 
 class NeedsLock extends Error {}
 
@@ -99,12 +142,15 @@ async function processRun(
   const surveyId = run[0].surveyId;
   const results: PushResult[] = [];
   const conflictIds: string[] = [];
-  const start = await repo.lockForRun(trx, auth.orgId, surveyId, run, confirm ? auth : undefined, { lock: !optimistic });
-  confirm?.(start.memberRole);
+  const known = mode.kind === 'optimistic' ? mode.known : undefined;
+  const start: repo.RunStart = known
+    ? { memberRole: null, survey: { id: surveyId, ...known }, seen: new Map() }
+    : await repo.lockForRun(trx, auth.orgId, surveyId, run, confirm ? auth : undefined, { lock: !optimistic });
+  if (!known) confirm?.(start.memberRole);
   const locked = start.survey;
   if (optimistic && !locked) throw new NeedsLock();
   let state: RunState | null = locked ? { doc: locked.doc, revision: locked.revision, revs: locked.revs, dirty: false } : null;
-  let known = locked ? { vesselId: locked.vesselId, vesselName: locked.doc.vessel.name } : undefined;
+  let linked = locked ? { vesselId: locked.vesselId, vesselName: locked.doc.vessel.name } : undefined;
   let touched = false;
 
   const seen = start.seen;
@@ -175,7 +221,7 @@ async function processRun(
       }
       const columns = await columnsOf(trx, auth.orgId, op.survey, 1, {});
       await repo.insertSurvey(trx, { id: surveyId, orgId: auth.orgId, createdBy: auth.userId, ...columns });
-      known = { vesselId: columns.vesselId, vesselName: op.survey.vessel.name };
+      linked = { vesselId: columns.vesselId, vesselName: op.survey.vessel.name };
       revisions.push({
         surveyId,
         revision: 1,
@@ -275,26 +321,57 @@ async function processRun(
 
   if (optimistic) {
     // Linking another vessel may insert one: that is for the locked path.
-    if (state?.dirty && known?.vesselName.toLowerCase() !== state.doc.vessel.name.toLowerCase()) throw new NeedsLock();
+    if (state?.dirty && linked?.vesselName.toLowerCase() !== state.doc.vessel.name.toLowerCase()) throw new NeedsLock();
     // Only changes already recorded: their answers stand whatever happened since.
     if (!processed.length && !revisions.length) return { results, conflictIds, touched };
-    const survey = state?.dirty ? { id: surveyId, columns: await columnsOf(trx, auth.orgId, state.doc, state.revision, state.revs, known) } : undefined;
+    const columns = state?.dirty ? await columnsOf(trx, auth.orgId, state.doc, state.revision, state.revs, linked) : undefined;
+    const docJson = columns ? JSON.stringify(columns.doc) : undefined;
+    const member = known && confirm ? (mode.kind === 'optimistic' && mode.roles ? { userId: auth.userId, orgId: auth.orgId, roles: mode.roles } : undefined) : undefined;
+    if (known && confirm && !member) throw new NeedsLock();
     // Written only while the survey is still at the revision read; otherwise nothing is written at all.
-    const written = await repo.insertRunWrites(trx, { revisions, processed, survey, onlyAtRevision: locked!.revision });
+    const written = await repo.insertRunWrites(trx, {
+      revisions,
+      processed,
+      survey: columns ? { id: surveyId, columns, docJson } : undefined,
+      onlyAtRevision: locked!.revision,
+      orgId: auth.orgId,
+      member,
+    });
     if (!written.guardHeld) throw new NeedsLock();
-    return { results, conflictIds, touched };
+    if (member) confirm?.(written.memberRole);
+    return { results, conflictIds, touched, written: stateAfter(auth, locked!, state!, columns, docJson) };
   }
 
   for (const c of conflictRows) await repo.insertConflict(trx, c);
   for (const r of resolutions) await repo.markConflictResolved(trx, r.conflictId, auth.userId, r.changeId);
-  const survey = state?.dirty
-    ? { id: surveyId, columns: await columnsOf(trx, auth.orgId, state.doc, state.revision, state.revs, known) }
-    : undefined;
+  const columns = state?.dirty ? await columnsOf(trx, auth.orgId, state.doc, state.revision, state.revs, linked) : undefined;
+  const docJson = columns ? JSON.stringify(columns.doc) : undefined;
+  const survey = columns ? { id: surveyId, columns, docJson } : undefined;
   // Another transaction recorded one of these changes since our look-up: redo the run to answer 'duplicate'.
   if ((await repo.insertRunWrites(trx, { revisions, processed, survey })).inserted < processed.length) {
     throw Object.assign(new Error('change recorded concurrently'), { code: '23505' });
   }
-  return { results, conflictIds, touched: touched || conflictIds.length > 0 };
+  const written = locked && state ? stateAfter(auth, locked, state, columns, docJson) : undefined;
+  return { results, conflictIds, touched: touched || conflictIds.length > 0, written };
+}
+
+/** The survey as a run left it: the document as parsed back from the text written, so equal to a fresh read. */
+function stateAfter(
+  auth: AuthContext,
+  before: repo.SurveyState,
+  state: RunState,
+  columns: repo.SurveyColumns | undefined,
+  docJson: string | undefined,
+): KnownSurveyState | undefined {
+  if (!columns || !docJson) return undefined;
+  return {
+    orgId: auth.orgId,
+    revision: state.revision,
+    doc: JSON.parse(docJson) as Survey,
+    revs: JSON.parse(JSON.stringify(state.revs)) as FieldRevisions,
+    vesselId: columns.vesselId,
+    status: before.status,
+  };
 }
 
 export interface PushOutcome {
@@ -311,33 +388,50 @@ export async function push(
     logger?: Logger;
     /** Check the caller's membership in the first run's opening query and hand the role found to this (see listSurveys). */
     confirm?: (role: Role | null) => unknown;
+    /** The roles that may push (with `confirm`): lets a run skip its opening read, checking the membership as it writes. */
+    roles?: readonly Role[];
+    /** Surveys as this server last wrote them (see SurveyStateCache). */
+    known?: SurveyStateCache;
   } = {},
 ): Promise<PushOutcome> {
   const results: PushResult[] = [];
   const conflictIds: string[] = [];
   let confirm = opts.confirm;
   for (const run of runsOf(changes)) {
+    const surveyId = run[0].surveyId;
     let checkEach = false;
-    let optimistic = true;
+    // From the survey as last written, else from a fresh read, else locked: each step writes nothing when it gives up.
+    const cached = opts.known?.get(surveyId);
+    let how: 'known' | 'read' | 'locked' = cached?.orgId === auth.orgId ? 'known' : 'read';
     for (let attempt = 1; ; attempt++) {
       try {
-        const out = optimistic
-          ? await processRun({ kind: 'optimistic', q: db }, auth, run, checkEach, confirm)
-          : await db.transaction((trx) => processRun({ kind: 'locked', q: trx }, auth, run, checkEach, confirm));
+        const out =
+          how === 'locked'
+            ? await db.transaction((trx) => processRun({ kind: 'locked', q: trx }, auth, run, checkEach, confirm))
+            : await processRun(
+                { kind: 'optimistic', q: db, known: how === 'known' ? cached : undefined, roles: opts.roles },
+                auth,
+                run,
+                checkEach,
+                confirm,
+              );
         confirm = undefined;
+        if (out.written) opts.known?.set(surveyId, out.written);
         results.push(...out.results);
         conflictIds.push(...out.conflictIds);
-        if (out.touched) opts.scheduler?.schedule(run[0].surveyId);
+        if (out.touched) opts.scheduler?.schedule(surveyId);
         break;
       } catch (err) {
+        opts.known?.delete(surveyId);
         if (err instanceof CheckEachChange && !checkEach) {
           checkEach = true;
+          if (how === 'known') how = 'read';
           continue;
         }
         const code = (err as PgError).code;
-        if (optimistic && (err instanceof NeedsLock || (code && RETRYABLE.has(code)))) {
-          // Nothing was written: do the run again, locked.
-          optimistic = false;
+        if (how !== 'locked' && (err instanceof NeedsLock || (code && RETRYABLE.has(code)))) {
+          // Nothing was written: do the run again from a fresh read, then locked.
+          how = how === 'known' ? 'read' : 'locked';
           attempt--;
           continue;
         }

@@ -16,7 +16,8 @@ import {
 } from '@shared/schemas/sync';
 import type { Survey } from '@shared/schemas/survey';
 import { startTestApp, type TestApp } from '../support/app';
-import { createOrgWithMembers, type TestOrg } from '../support/auth';
+import { addMember, createOrgWithMembers, type TestOrg } from '../support/auth';
+import { push } from '../../server/services/sync';
 import { change, newSurvey, storeSurvey, tokenFor } from '../support/surveys';
 import { SimDevice } from '../support/sync-device';
 
@@ -216,6 +217,54 @@ describe('POST /api/sync/push', () => {
     for (let i = 0; i < 20; i++) expect(stored.doc.fluids.find((f) => f.id === `race-${i}`)?.densityKgM3).toBe(800 + i);
     const recorded = await t.db('processed_changes').whereIn('device_id', devices).count<{ count: number }[]>('* as count');
     expect(Number(recorded[0].count)).toBe(20);
+  });
+
+  describe('after a push, the next push of plain edits starts from the survey as this server wrote it', () => {
+    // server/services/sync.ts SurveyStateCache: a shortcut that must never change an answer.
+    it('keeps every edit when the survey was written elsewhere in between (another server)', async () => {
+      const s = await storeSurvey(t.db, org.surveyor);
+      const d = randomUUID();
+      await pushRaw(surveyorToken, [change(d, s.id, { kind: 'upsert', collection: 'fluids', entity: fluid('here-1', 801) }, 1)]);
+      // Another server instance: the service on the same database, without this app's memory.
+      const elsewhere = await push(t.db, { userId: org.surveyor.id, orgId: org.id, role: 'surveyor', email: org.surveyor.email }, [
+        change(randomUUID(), s.id, { kind: 'set', path: 'title', value: 'Renamed on another server' }, 2),
+      ]);
+      expect(elsewhere.results[0]).toMatchObject({ status: 'applied', revision: 3 });
+      const out = await pushRaw(surveyorToken, [change(d, s.id, { kind: 'upsert', collection: 'fluids', entity: fluid('here-2', 802) }, 2)]);
+      expect(out.results[0]).toMatchObject({ status: 'applied', revision: 4 });
+      const stored = await serverSurvey(s.id);
+      expect(stored.revision).toBe(4);
+      expect(stored.doc.title).toBe('Renamed on another server');
+      expect(stored.doc.fluids.map((f) => f.id)).toEqual(expect.arrayContaining(['here-1', 'here-2']));
+    });
+
+    it('answers a repeated change as a duplicate and applies it once', async () => {
+      const s = await storeSurvey(t.db, org.surveyor);
+      const d = randomUUID();
+      const c1 = change(d, s.id, { kind: 'upsert', collection: 'fluids', entity: fluid('once', 810) }, 1);
+      expect((await pushRaw(surveyorToken, [c1])).results[0].status).toBe('applied');
+      const again = await pushRaw(surveyorToken, [c1]);
+      expect(again.results[0]).toMatchObject({ status: 'duplicate', firstStatus: 'applied', revision: 2 });
+      expect((await serverSurvey(s.id)).revision).toBe(2);
+    });
+
+    it('refuses a member deactivated since their last push, and writes nothing', async () => {
+      const m = await addMember(t.db, org.id, 'surveyor');
+      const token = await tokenFor(t.config.JWT_SECRET, m);
+      const s = await storeSurvey(t.db, org.surveyor);
+      const d = randomUUID();
+      await pushRaw(token, [change(d, s.id, { kind: 'upsert', collection: 'fluids', entity: fluid('before', 820) }, 1)]);
+      await t.db('memberships').where({ user_id: m.id, organisation_id: org.id }).update({ status: 'deactivated' });
+      const res = await fetch(`${t.url}/api/sync/push`, {
+        method: 'POST',
+        headers: h(token),
+        body: JSON.stringify({ changes: [change(d, s.id, { kind: 'upsert', collection: 'fluids', entity: fluid('after', 821) }, 2)] }),
+      });
+      expect(res.status).toBe(401);
+      const stored = await serverSurvey(s.id);
+      expect(stored.revision).toBe(2);
+      expect(stored.doc.fluids.some((f) => f.id === 'after')).toBe(false);
+    });
   });
 
   it('records every revision with who, which device and what changed (old → new), immutably', async () => {

@@ -268,12 +268,16 @@ export async function insertRunWrites(
   w: {
     revisions: RevisionRow[];
     processed: ProcessedRow[];
-    survey?: { id: string; columns: SurveyColumns };
+    survey?: { id: string; columns: SurveyColumns; docJson?: string };
     onlyAtRevision?: number;
+    /** With `onlyAtRevision`: the organisation the survey must belong to. */
+    orgId?: string;
+    /** With `onlyAtRevision`: write only while this caller is an active member with one of these roles. */
+    member?: MemberCheck & { roles: readonly Role[] };
   },
-): Promise<{ inserted: number; guardHeld: boolean }> {
+): Promise<{ inserted: number; guardHeld: boolean; memberRole: Role | null }> {
   const guarded = w.onlyAtRevision !== undefined;
-  if (!guarded && !w.processed.length && !w.revisions.length && !w.survey) return { inserted: 0, guardHeld: true };
+  if (!guarded && !w.processed.length && !w.revisions.length && !w.survey) return { inserted: 0, guardHeld: true, memberRole: null };
   const surveyId = w.survey?.id ?? w.processed[0]?.surveyId ?? w.revisions[0]?.surveyId ?? null;
   // Rows go as one JSON array per table and the survey update is switched by a flag, so the text is
   // the same for every run: one prepared statement, parsed and planned once per connection.
@@ -281,7 +285,13 @@ export async function insertRunWrites(
   const c = w.survey?.columns;
   const { rows } = await q
     .raw(
-      `WITH g AS (SELECT id FROM surveys WHERE id = ? AND revision = ? FOR UPDATE),
+      `WITH g AS (
+         SELECT id FROM surveys
+          WHERE id = ? AND organisation_id = ? AND revision = ?
+            AND (?::uuid IS NULL OR EXISTS (SELECT 1 FROM memberships m WHERE m.user_id = ? AND m.organisation_id = ?
+                                              AND m.status = 'active' AND m.role = ANY(?::text[])))
+          FOR UPDATE
+       ),
        r AS (
          INSERT INTO survey_revisions (survey_id, revision, organisation_id, user_id, device_id, change_id, changes)
          SELECT survey_id, revision, organisation_id, user_id, device_id, change_id, changes
@@ -301,12 +311,17 @@ export async function insertRunWrites(
          ${guarded ? '' : 'ON CONFLICT DO NOTHING'}
          RETURNING 1
        )
-       SELECT (SELECT count(*) FROM p)::int AS n, (SELECT count(*) FROM g)::int AS guard`,
+       SELECT (SELECT count(*) FROM p)::int AS n, (SELECT count(*) FROM g)::int AS guard, ${MEMBER_ROLE_SQL} AS member_role`,
       [
         guarded ? surveyId : null,
+        guarded ? (w.orgId ?? null) : null,
         w.onlyAtRevision ?? null,
+        w.member?.userId ?? null,
+        w.member?.userId ?? null,
+        w.member?.orgId ?? null,
+        w.member ? [...w.member.roles] : null,
         JSON.stringify(w.revisions.map((r) => ({ ...revisionRow(r), changes: r.changes }))),
-        c ? json(c.doc) : null,
+        c ? (w.survey?.docJson ?? json(c.doc)) : null,
         c?.revision ?? null,
         c ? json(c.revs) : null,
         c?.title ?? null,
@@ -316,11 +331,13 @@ export async function insertRunWrites(
         w.survey?.id ?? null,
         Boolean(w.survey),
         JSON.stringify(w.processed.map((p) => ({ ...processedRow(p), conflict_ids: p.conflictIds }))),
+        w.member?.userId ?? null,
+        w.member?.orgId ?? null,
       ],
     )
     .options({ name: guarded ? 'bl_run_writes_at_revision' : 'bl_run_writes' });
-  const row = rows[0] as { n: number; guard: number };
-  return { inserted: Number(row.n), guardHeld: !guarded || Number(row.guard) > 0 };
+  const row = rows[0] as { n: number; guard: number; member_role: Role | null };
+  return { inserted: Number(row.n), guardHeld: !guarded || Number(row.guard) > 0, memberRole: w.member ? row.member_role : null };
 }
 
 // ---- conflicts ----
