@@ -57,8 +57,8 @@ interface RunOutcome {
   results: PushResult[];
   conflictIds: string[];
   touched: boolean;
-  /** The survey as the run left it in the database, when the run wrote it. */
-  written?: KnownSurveyState;
+  /** The survey as the run left it in the database, when the run wrote it, and the size of its JSON. */
+  written?: { state: KnownSurveyState; jsonBytes: number };
 }
 
 /** Thrown when a run's final document is invalid: the run is redone checking every change on its own. */
@@ -102,12 +102,17 @@ export interface KnownSurveyState {
  * written, so they are exactly what a read would give.
  */
 export class SurveyStateCache {
-  private readonly entries = new LRUCache<string, KnownSurveyState>({ max: 2000 });
+  private readonly entries: LRUCache<string, KnownSurveyState>;
+
+  /** `maxBytes`: a bound on the documents kept, reckoned as four bytes of memory per byte of their JSON. */
+  constructor(maxBytes = 128 * 1024 * 1024) {
+    this.entries = new LRUCache({ maxSize: maxBytes });
+  }
   get(id: string): KnownSurveyState | undefined {
     return this.entries.get(id);
   }
-  set(id: string, state: KnownSurveyState): void {
-    this.entries.set(id, state);
+  set(id: string, state: KnownSurveyState, jsonBytes: number): void {
+    this.entries.set(id, state, { size: 1024 + 4 * jsonBytes });
   }
   delete(id: string): void {
     this.entries.delete(id);
@@ -362,15 +367,19 @@ function stateAfter(
   state: RunState,
   columns: repo.SurveyColumns | undefined,
   docJson: string | undefined,
-): KnownSurveyState | undefined {
+): RunOutcome['written'] {
   if (!columns || !docJson) return undefined;
+  const revsJson = JSON.stringify(state.revs);
   return {
-    orgId: auth.orgId,
-    revision: state.revision,
-    doc: JSON.parse(docJson) as Survey,
-    revs: JSON.parse(JSON.stringify(state.revs)) as FieldRevisions,
-    vesselId: columns.vesselId,
-    status: before.status,
+    state: {
+      orgId: auth.orgId,
+      revision: state.revision,
+      doc: JSON.parse(docJson) as Survey,
+      revs: JSON.parse(revsJson) as FieldRevisions,
+      vesselId: columns.vesselId,
+      status: before.status,
+    },
+    jsonBytes: docJson.length + revsJson.length,
   };
 }
 
@@ -416,7 +425,7 @@ export async function push(
                 confirm,
               );
         confirm = undefined;
-        if (out.written) opts.known?.set(surveyId, out.written);
+        if (out.written) opts.known?.set(surveyId, out.written.state, out.written.jsonBytes);
         results.push(...out.results);
         conflictIds.push(...out.conflictIds);
         if (out.touched) opts.scheduler?.schedule(surveyId);
@@ -429,7 +438,8 @@ export async function push(
           continue;
         }
         const code = (err as PgError).code;
-        if (how !== 'locked' && (err instanceof NeedsLock || (code && RETRYABLE.has(code)))) {
+        // (23503: a vessel the remembered state links to is gone.)
+        if (how !== 'locked' && (err instanceof NeedsLock || (code && (RETRYABLE.has(code) || code === '23503')))) {
           // Nothing was written: do the run again from a fresh read, then locked.
           how = how === 'known' ? 'read' : 'locked';
           attempt--;
