@@ -3,11 +3,13 @@
  *  1. push and pull of a 200-boundary survey, timed in the server's own services (no HTTP), and
  *     the same over HTTP;
  *  2. API throughput at 50 connections on loopback with autocannon, 80% reads (survey list and a
- *     survey) and 20% pushes (one change each), measured for 10 s after a 10 s warm-up.
+ *     survey) and 20% pushes (one change each): three 10 s windows after a 10 s warm-up, judged by
+ *     the median window, each with the app's and PostgreSQL's CPU time per request.
  *     Goal: ≥ 1,000 requests/s and p99 < 150 ms.
  * The app runs in its own process (server/index.ts), so the load generator does not share its CPU.
  */
-import { spawn, type ChildProcess } from 'node:child_process';
+import { spawn, spawnSync, type ChildProcess } from 'node:child_process';
+import fs from 'node:fs';
 import { randomUUID } from 'node:crypto';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
@@ -53,6 +55,27 @@ async function startApp(env: Record<string, string>, port: number): Promise<Chil
   }
   proc.kill('SIGKILL');
   throw new Error('the app did not start');
+}
+
+/** CPU seconds (user + system) used so far by these processes, from /proc; undefined where /proc cannot tell. */
+function cpuSeconds(pids: number[]): number | undefined {
+  if (!pids.length) return undefined;
+  try {
+    let ticks = 0;
+    for (const pid of pids) {
+      const fields = fs.readFileSync(`/proc/${pid}/stat`, 'utf8').split(') ')[1].split(' ');
+      ticks += Number(fields[11]) + Number(fields[12]);
+    }
+    return ticks / 100;
+  } catch {
+    return undefined;
+  }
+}
+
+/** The PostgreSQL server processes on this machine (the bench's cluster is the only one it starts). */
+function postgresPids(): number[] {
+  const res = spawnSync('pgrep', ['-x', 'postgres'], { encoding: 'utf8' });
+  return res.status === 0 ? res.stdout.trim().split('\n').filter(Boolean).map(Number) : [];
 }
 
 export async function main(): Promise<void> {
@@ -138,14 +161,34 @@ export async function main(): Promise<void> {
     // A warm-up run, not counted: the JIT has compiled the hot paths and every pooled connection has
     // its prepared statements, as in a server that has been up for a while.
     await autocannon({ ...mix(), duration: 10 });
-    const result = await autocannon({ ...mix(), duration: 10 });
-    const ok = result.requests.total - result.non2xx;
-    console.log(
-      `autocannon, 50 connections, 10 s, 80% reads / 20% pushes: ${result.requests.average.toFixed(0)} requests/s, ` +
-        `latency p50 ${result.latency.p50} ms, p99 ${result.latency.p99} ms, max ${result.latency.max} ms; ` +
-        `${ok} ok, ${result.non2xx} non-2xx, ${result.errors} errors`,
-    );
-    const pass = result.requests.average >= 1000 && result.latency.p99 < 150 && result.non2xx === 0;
+    // Three measured windows; the verdict goes by the median window. With each, the CPU time the app and
+    // PostgreSQL spent per request (from /proc): on a shared host the same code costs more CPU when
+    // the host is busy, and this tells a slow host from slow code.
+    const windows: { rps: number; p99: number; non2xx: number; appMs?: number; pgMs?: number }[] = [];
+    for (let w = 1; w <= 3; w++) {
+      const before = { app: cpuSeconds([app.pid!]), pg: cpuSeconds(postgresPids()) };
+      const result = await autocannon({ ...mix(), duration: 10 });
+      const after = { app: cpuSeconds([app.pid!]), pg: cpuSeconds(postgresPids()) };
+      const perRequest = (a?: number, b?: number) => (a !== undefined && b !== undefined ? ((b - a) * 1000) / result.requests.total : undefined);
+      const win = {
+        rps: result.requests.average,
+        p99: result.latency.p99,
+        non2xx: result.non2xx,
+        appMs: perRequest(before.app, after.app),
+        pgMs: perRequest(before.pg, after.pg),
+      };
+      windows.push(win);
+      const ok = result.requests.total - result.non2xx;
+      const cpu = win.appMs !== undefined ? `; CPU per request: app ${win.appMs.toFixed(2)} ms, PostgreSQL ${win.pgMs?.toFixed(2) ?? '?'} ms` : '';
+      console.log(
+        `autocannon window ${w}, 50 connections, 10 s, 80% reads / 20% pushes: ${result.requests.average.toFixed(0)} requests/s, ` +
+          `latency p50 ${result.latency.p50} ms, p99 ${result.latency.p99} ms, max ${result.latency.max} ms; ` +
+          `${ok} ok, ${result.non2xx} non-2xx, ${result.errors} errors${cpu}`,
+      );
+    }
+    const median = [...windows].sort((a, b) => a.rps - b.rps)[1];
+    const pass = median.rps >= 1000 && median.p99 < 150 && windows.every((w) => w.non2xx === 0);
+    console.log(`median window: ${median.rps.toFixed(0)} requests/s, p99 ${median.p99} ms`);
     console.log(`goal ≥ 1,000 requests/s and p99 < 150 ms: ${pass ? 'met' : 'NOT met'}`);
   } finally {
     app?.kill('SIGTERM');
