@@ -66,7 +66,15 @@ const syncState = (page: Page) => page.getByTestId('sync-status').getAttribute('
 const pending = async (page: Page) => Number(await page.getByTestId('sync-status').getAttribute('data-pending'));
 
 async function waitSynced(page: Page) {
-  await expect.poll(() => syncState(page), { timeout: 30_000 }).toBe('synced');
+  try {
+    await expect.poll(() => syncState(page), { timeout: 30_000 }).toBe('synced');
+  } catch (err) {
+    // Say why the device is not synced: what its panel shows, and what the server holds open.
+    const panel = await page.getByTestId('sync-status').innerText().catch(() => '(no sync panel)');
+    const open = await db('survey_conflicts').where({ status: 'open' }).select('survey_id', 'target', 'created_at');
+    const rejected = await db('processed_changes').where({ status: 'rejected' }).select('survey_id', 'reason');
+    throw new Error(`Not synced. Panel: ${panel}. Open conflicts: ${JSON.stringify(open)}. Rejected changes: ${JSON.stringify(rejected)}.`, { cause: err });
+  }
 }
 
 async function serverTitle(id: string): Promise<string> {
