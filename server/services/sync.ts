@@ -15,7 +15,7 @@ import { randomUUID } from 'node:crypto';
 import type { Knex } from 'knex';
 import { LRUCache } from 'lru-cache';
 import type { Logger } from 'pino';
-import { SurveySchema, type Survey } from '@shared/schemas/survey';
+import { isValidEdit, SurveySchema, type Survey } from '@shared/schemas/survey';
 import type { Role } from '@shared/api/roles';
 import type { Conflict, PullQuery, PullResponse, PushResult, SurveyChange, SurveyStatus } from '@shared/schemas/sync';
 import { deepEqual } from '@shared/sync/apply';
@@ -121,7 +121,13 @@ export class SurveyStateCache {
 
 class NeedsLock extends Error {}
 
-function validationReason(doc: unknown): string | null {
+/**
+ * Why the survey would not be valid, or null. With `from`, the valid survey the run started from,
+ * only what the run changed is checked (isValidEdit, exact); the full check runs when that refuses,
+ * to word the reason.
+ */
+function validationReason(doc: Survey, from?: Survey): string | null {
+  if (from && isValidEdit(from, doc)) return null;
   const parsed = SurveySchema.safeParse(doc);
   if (parsed.success) return null;
   const issues = formatZodIssues(parsed.error).slice(0, 3);
@@ -322,7 +328,7 @@ async function processRun(
     }
   }
 
-  if (state?.dirty && !checkEach && validationReason(state.doc)) throw new CheckEachChange();
+  if (state?.dirty && !checkEach && validationReason(state.doc, locked?.doc)) throw new CheckEachChange();
 
   if (optimistic) {
     // Linking another vessel may insert one: that is for the locked path.

@@ -266,6 +266,25 @@ export const PhotoRefSchema = z.object({
 });
 export type PhotoRef = z.infer<typeof PhotoRefSchema>;
 
+/**
+ * The survey's collections of entities, element schema and least length. The survey schema is built
+ * from this table and `isValidEdit` checks against it, so the two cannot drift apart.
+ */
+const COLLECTIONS = {
+  conditions: { element: ConditionSchema, min: 1 },
+  fluids: { element: FluidOverrideSchema, min: 0 },
+  compartments: { element: CompartmentSchema, min: 0 },
+  boundaries: { element: BoundarySchema, min: 0 },
+  photos: { element: PhotoRefSchema, min: 0 },
+} as const;
+type CollectionKey = keyof typeof COLLECTIONS;
+
+function arrayOf<K extends CollectionKey>(key: K) {
+  const { element, min } = COLLECTIONS[key];
+  const array = z.array(element as (typeof COLLECTIONS)[K]['element']);
+  return min > 0 ? array.min(min) : array;
+}
+
 const SurveyObjectSchema = z.object({
   schemaVersion: z.literal(SURVEY_SCHEMA_VERSION),
   id: Id,
@@ -273,20 +292,21 @@ const SurveyObjectSchema = z.object({
   title: z.string().trim().min(1),
   casualtyDescription: z.string(),
   vessel: VesselSchema,
-  conditions: z.array(ConditionSchema).min(1),
+  conditions: arrayOf('conditions'),
   activeConditionId: Id,
-  fluids: z.array(FluidOverrideSchema),
-  compartments: z.array(CompartmentSchema),
-  boundaries: z.array(BoundarySchema),
-  photos: z.array(PhotoRefSchema).optional(),
+  fluids: arrayOf('fluids'),
+  compartments: arrayOf('compartments'),
+  boundaries: arrayOf('boundaries'),
+  photos: arrayOf('photos').optional(),
 });
+type SurveyObject = z.infer<typeof SurveyObjectSchema>;
 
 /** Cross-references: every id that is pointed at must exist, and ids must be unique. */
-export const SurveySchema = SurveyObjectSchema.superRefine((s, ctx) => {
+function referenceIssues(s: SurveyObject, add: (issue: { path: (string | number)[]; message: string }) => void): void {
   const seen = new Map<string, string>();
   const unique = (id: string, path: (string | number)[]) => {
     const first = seen.get(id);
-    if (first !== undefined) ctx.addIssue({ code: 'custom', path, message: `duplicate id ${id} (first used at ${first})` });
+    if (first !== undefined) add({ path, message: `duplicate id ${id} (first used at ${first})` });
     else seen.set(id, path.join('.'));
   };
   s.conditions.forEach((c, i) => unique(c.id, ['conditions', i, 'id']));
@@ -297,21 +317,21 @@ export const SurveySchema = SurveyObjectSchema.superRefine((s, ctx) => {
   const boundaryIds = new Set(s.boundaries.map((b) => b.id));
   const fluidIds = new Set(s.fluids.map((f) => f.id));
   if (!s.conditions.some((c) => c.id === s.activeConditionId)) {
-    ctx.addIssue({ code: 'custom', path: ['activeConditionId'], message: 'no condition has this id' });
+    add({ path: ['activeConditionId'], message: 'no condition has this id' });
   }
   s.conditions.forEach((c, i) => {
     const inCondition = new Set<string>();
     c.contents.forEach((k, j) => {
       if (!compartmentIds.has(k.compartmentId)) {
-        ctx.addIssue({ code: 'custom', path: ['conditions', i, 'contents', j, 'compartmentId'], message: 'no compartment has this id' });
+        add({ path: ['conditions', i, 'contents', j, 'compartmentId'], message: 'no compartment has this id' });
       }
       if (inCondition.has(k.compartmentId)) {
-        ctx.addIssue({ code: 'custom', path: ['conditions', i, 'contents', j, 'compartmentId'], message: 'compartment already has contents in this condition' });
+        add({ path: ['conditions', i, 'contents', j, 'compartmentId'], message: 'compartment already has contents in this condition' });
       }
       inCondition.add(k.compartmentId);
       k.layers.forEach((l, m) => {
         if (!fluidIds.has(l.fluidId) && !catalogueFluid(l.fluidId)) {
-          ctx.addIssue({ code: 'custom', path: ['conditions', i, 'contents', j, 'layers', m, 'fluidId'], message: `unknown fluid "${l.fluidId}"` });
+          add({ path: ['conditions', i, 'contents', j, 'layers', m, 'fluidId'], message: `unknown fluid "${l.fluidId}"` });
         }
       });
     });
@@ -320,12 +340,44 @@ export const SurveySchema = SurveyObjectSchema.superRefine((s, ctx) => {
     for (const side of ['sideA', 'sideB'] as const) {
       const sd = b[side];
       if (sd.kind === 'compartment' && !compartmentIds.has(sd.compartmentId)) {
-        ctx.addIssue({ code: 'custom', path: ['boundaries', i, side, 'compartmentId'], message: 'no compartment has this id' });
+        add({ path: ['boundaries', i, side, 'compartmentId'], message: 'no compartment has this id' });
       }
     }
     if (b.parentBoundaryId !== undefined && (!boundaryIds.has(b.parentBoundaryId) || b.parentBoundaryId === b.id)) {
-      ctx.addIssue({ code: 'custom', path: ['boundaries', i, 'parentBoundaryId'], message: 'no other boundary has this id' });
+      add({ path: ['boundaries', i, 'parentBoundaryId'], message: 'no other boundary has this id' });
     }
   });
-});
+}
+
+export const SurveySchema = SurveyObjectSchema.superRefine((s, ctx) => referenceIssues(s, (issue) => ctx.addIssue({ code: 'custom', ...issue })));
 export type Survey = z.infer<typeof SurveySchema>;
+
+/**
+ * Whether SurveySchema accepts `next`, given that it accepts `prev` and that `next` was made from
+ * `prev` without changing any object in place (as shared/sync/apply.ts does: it copies what it
+ * changes and shares the rest). Only what is not the very same object as in `prev` is checked against
+ * its schema — a changed field, a new or edited entity, a collection's length — and then the
+ * cross-references over the whole survey. A push to a large survey so checks the one entity it
+ * changed instead of every boundary. Exact, not a heuristic: false means SurveySchema refuses `next`.
+ */
+export function isValidEdit(prev: Survey, next: Survey): boolean {
+  const shape = SurveyObjectSchema.shape;
+  for (const key of Object.keys(shape) as (keyof typeof shape)[]) {
+    const before: unknown = prev[key];
+    const after: unknown = next[key];
+    if (before === after) continue;
+    if (key in COLLECTIONS && Array.isArray(before) && Array.isArray(after)) {
+      const { element, min } = COLLECTIONS[key as CollectionKey];
+      if (after.length < min) return false;
+      const unchanged = new Set<unknown>(before);
+      for (const entity of after) if (!unchanged.has(entity) && !element.safeParse(entity).success) return false;
+      continue;
+    }
+    if (!shape[key].safeParse(after).success) return false;
+  }
+  let clean = true;
+  referenceIssues(next as SurveyObject, () => {
+    clean = false;
+  });
+  return clean;
+}
