@@ -11,6 +11,7 @@ import { startTestApp, type TestApp } from '../support/app';
 import { addMember, createOrgWithMembers } from '../support/auth';
 import { newSurvey, tokenFor } from '../support/surveys';
 import { SimDevice } from '../support/sync-device';
+import { prng } from '../support/prng';
 
 let t: TestApp;
 beforeAll(async () => {
@@ -19,18 +20,6 @@ beforeAll(async () => {
 afterAll(async () => {
   await t?.close();
 });
-
-/** A deterministic random source, so a failure can be replayed. */
-function rng(seed: number) {
-  let s = seed >>> 0;
-  return () => {
-    s = (s + 0x6d2b79f5) >>> 0;
-    let x = s;
-    x = Math.imul(x ^ (x >>> 15), x | 1);
-    x ^= x + Math.imul(x ^ (x >>> 7), x | 61);
-    return ((x ^ (x >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 interface LossyProxy {
   url: string;
@@ -94,7 +83,7 @@ async function startLossyProxy(target: string, random: () => number): Promise<Lo
 
 describe('five devices syncing through a link that loses and repeats 30% of sync responses', () => {
   it('ends with identical documents, nothing lost and nothing applied twice', { timeout: 300_000 }, async () => {
-    const random = rng(20261201);
+    const random = prng(20261201);
     const org = await createOrgWithMembers(t.db);
     const proxy = await startLossyProxy(t.url, random);
     try {

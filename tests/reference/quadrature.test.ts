@@ -10,20 +10,9 @@ import { computeSurvey } from '@shared/engine';
 import type { Boundary } from '@shared/schemas/survey';
 import { baseSurvey, boxCompartment, contents } from '../unit/engine/fixtures';
 import { pascalPressure } from '../support/pascal';
+import { prng } from '../support/prng';
 
 type P3 = [number, number, number];
-
-/** mulberry32: small seeded PRNG. */
-function prng(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 interface Side {
   layers: { top: number; rho: number }[]; // tops as elevations, bottom-up

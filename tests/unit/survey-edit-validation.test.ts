@@ -9,23 +9,12 @@ import { isValidEdit, SurveySchema, type Survey } from '@shared/schemas/survey';
 import { SURVEY_COLLECTIONS, type SurveyCollection } from '@shared/schemas/sync';
 import { entitiesOf, withEntity, withEntityField, withoutEntity, type Entity } from '@shared/sync/apply';
 import demo from '../../seeds/demo-survey.json';
-
-/** A small seeded generator (mulberry32), so a failure can be replayed. */
-function random(seed: number) {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
+import { prng } from '../support/prng';
 
 describe('isValidEdit', () => {
   it('agrees with the full survey schema on 3,000 random edits of the demo survey', () => {
     const start = SurveySchema.parse(demo) as Survey;
-    const rnd = random(20261202);
+    const rnd = prng(20261202);
     const pick = <T,>(xs: readonly T[]): T => xs[Math.floor(rnd() * xs.length)];
     const ids = (s: Survey) => SURVEY_COLLECTIONS.flatMap((c) => entitiesOf(s, c).map((e) => e.id));
     const oddValues = (s: Survey): unknown[] => [undefined, null, -1, 0, 0.5, 1e9, '', 'x', true, {}, [], pick(ids(s)), crypto.randomUUID()];
