@@ -162,10 +162,13 @@ export function syncNow(): Promise<void> {
     return inFlight;
   }
   inFlight = (async () => {
+    // A request made while a round runs gets a round of its own, even when this one ended in "sign in
+    // again": that request may be the sign-in itself, which landed while a round without a session was
+    // waiting for its 401 (the app starts syncing on the sign-in page).
     do {
       again = false;
       await runOnce();
-    } while (again && !getEngineStatus().needsSignIn);
+    } while (again);
   })().finally(() => {
     inFlight = null;
   });
