@@ -67,7 +67,7 @@ const pending = async (page: Page) => Number(await page.getByTestId('sync-status
 
 async function waitSynced(page: Page) {
   try {
-    await expect.poll(() => syncState(page), { timeout: 30_000 }).toBe('synced');
+    await expect.poll(() => syncState(page), { timeout: 45_000 }).toBe('synced');
   } catch (err) {
     // Say why the device is not synced: what its panel shows, and what the server holds open.
     const panel = await page.getByTestId('sync-status').innerText().catch(() => '(no sync panel)');
@@ -266,7 +266,8 @@ describe('a new version deployed during work', () => {
 
       // The link is back: the change syncs, and now the update goes ahead when asked.
       proxy.flags.holdPushes = false;
-      const reloaded = page.waitForEvent('load', { timeout: 30_000 });
+      // The reload waits for the held change to sync (the engine may be backing off after the 503s).
+      const reloaded = page.waitForEvent('load', { timeout: 60_000 });
       await banner.getByRole('button', { name: 'Update' }).click();
       await reloaded;
       expect(await page.evaluate(() => (window as unknown as { __sameDocument?: boolean }).__sameDocument)).toBeUndefined();
@@ -277,5 +278,5 @@ describe('a new version deployed during work', () => {
       await context?.close();
       await proxy.close();
     }
-  });
+  }, 240_000);
 });
