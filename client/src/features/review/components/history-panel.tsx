@@ -23,6 +23,22 @@ function ChangeRow({ c, names }: { c: FieldChange; names: Map<string, string> })
   );
 }
 
+/** One end of the revision comparison. */
+function RevisionSelect(props: { label: string; revisions: { revision: number }[]; value: number | null | undefined; onChange: (revision: number) => void }) {
+  return (
+    <label className="flex flex-col text-sm font-bold">
+      {props.label}
+      <select className="min-h-touch rounded border border-line bg-paper px-2" value={props.value ?? ''} onChange={(e) => props.onChange(Number(e.target.value))}>
+        {props.revisions.map((r) => (
+          <option key={r.revision} value={r.revision}>
+            Revision {r.revision}
+          </option>
+        ))}
+      </select>
+    </label>
+  );
+}
+
 export function HistoryPanel({ surveyId, names, system }: { surveyId: string; names: Map<string, string>; system: UnitSystem }) {
   const revisions = useRevisions(surveyId);
   const list = revisions.data?.revisions ?? [];
@@ -43,26 +59,8 @@ export function HistoryPanel({ surveyId, names, system }: { surveyId: string; na
         <div className="rounded-lg border border-line bg-card p-3">
           <h3 className="font-bold">Compare the results of two revisions</h3>
           <div className="mt-2 flex flex-wrap items-end gap-2">
-            <label className="flex flex-col text-sm font-bold">
-              From
-              <select className="min-h-touch rounded border border-line bg-paper px-2" value={ra ?? ''} onChange={(e) => setA(Number(e.target.value))}>
-                {list.map((r) => (
-                  <option key={r.revision} value={r.revision}>
-                    Revision {r.revision}
-                  </option>
-                ))}
-              </select>
-            </label>
-            <label className="flex flex-col text-sm font-bold">
-              To
-              <select className="min-h-touch rounded border border-line bg-paper px-2" value={rb ?? ''} onChange={(e) => setB(Number(e.target.value))}>
-                {list.map((r) => (
-                  <option key={r.revision} value={r.revision}>
-                    Revision {r.revision}
-                  </option>
-                ))}
-              </select>
-            </label>
+            <RevisionSelect label="From" revisions={list} value={ra} onChange={setA} />
+            <RevisionSelect label="To" revisions={list} value={rb} onChange={setB} />
           </div>
           {compare.isError && <p role="alert">{compare.error.message}</p>}
           {compare.data && (
