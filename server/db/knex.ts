@@ -31,6 +31,45 @@ export async function pingDb(db: Db, timeoutMs = 1500): Promise<boolean> {
  * values), so queries of the same shape share one statement and a different shape gets its own. For
  * the hot, fixed-shape queries only: each shape stays prepared on every pooled connection.
  */
+/** A fixed SQL text (`?` placeholders) under its prepared-statement name, with the text node-postgres sends. */
+interface NamedStatement {
+  sql: string;
+  text: string;
+}
+const namedStatements = new Map<string, NamedStatement>();
+
+/**
+ * Runs fixed SQL text with `?` placeholders as the named prepared statement `name`: parsed once per
+ * connection, and after a few runs no longer planned. Outside a transaction the query goes straight
+ * to a pooled connection's node-postgres client: the text never changes, so it is put into
+ * PostgreSQL's `$n` form once per name (by knex's own rule), not on every run, and knex's per-query
+ * work (formatting, bindings checks, its query runner) is skipped; the pool is still knex's. Inside a
+ * transaction it goes through the transaction as any query. A name must always mean the same text:
+ * a different text under a known name throws.
+ */
+export async function runNamed<R extends object = Record<string, unknown>>(
+  q: Knex | Knex.Transaction,
+  name: string,
+  sql: string,
+  values: readonly Knex.RawBinding[],
+): Promise<pg.QueryResult<R>> {
+  let st = namedStatements.get(name);
+  if (!st) {
+    st = { sql, text: (q.client as { positionBindings: (sql: string) => string }).positionBindings(sql) };
+    namedStatements.set(name, st);
+  } else if (st.sql !== sql) {
+    throw new Error(`The prepared statement "${name}" was given a different SQL text.`);
+  }
+  if ((q as Knex.Transaction).isTransaction) return (await q.raw(sql, values).options({ name })) as pg.QueryResult<R>;
+  const client = q.client as { acquireConnection: () => Promise<pg.Client>; releaseConnection: (c: pg.Client) => Promise<void> };
+  const conn = await client.acquireConnection();
+  try {
+    return await conn.query<R>({ name, text: st.text, values: values as unknown[] });
+  } finally {
+    await client.releaseConnection(conn);
+  }
+}
+
 export function prepared<T extends { toSQL: () => { sql: string }; options: (o: Record<string, unknown>) => T }>(query: T): T {
   const { sql } = query.toSQL();
   return query.options({ name: `bl_${createHash('sha1').update(sql).digest('base64url').slice(0, 20)}` });

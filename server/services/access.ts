@@ -5,7 +5,7 @@ import type { AppDeps } from '../app';
 import type { AuthContext } from '../http/auth-context';
 import type { AccessVerifier } from '../http/route';
 import { verifyAccessToken } from './tokens';
-import { prepared } from '../db/knex';
+import { runNamed } from '../db/knex';
 
 export function createAccessVerifier(deps: Pick<AppDeps, 'db' | 'config'>): AccessVerifier {
   const token = async (req: Request): Promise<AuthContext | null> => {
@@ -14,10 +14,13 @@ export function createAccessVerifier(deps: Pick<AppDeps, 'db' | 'config'>): Acce
     return verifyAccessToken(deps.config.JWT_SECRET, header.slice(7).trim());
   };
   const activeRole = async (ctx: AuthContext): Promise<Role | null> => {
-    const membership = await prepared(
-      deps.db('memberships').where({ user_id: ctx.userId, organisation_id: ctx.orgId, status: 'active' }).first('role'),
+    const { rows } = await runNamed<{ role: Role }>(
+      deps.db,
+      'bl_member_role',
+      `SELECT role FROM memberships WHERE user_id = ? AND organisation_id = ? AND status = 'active'`,
+      [ctx.userId, ctx.orgId],
     );
-    return membership?.role ?? null;
+    return rows[0]?.role ?? null;
   };
   const verify = async (req: Request): Promise<AuthContext | null> => {
     const ctx = await token(req);

@@ -13,7 +13,7 @@ import type {
 } from '@shared/schemas/sync';
 import type { FieldChange, FieldRevisions } from '@shared/sync/merge';
 import type { Role } from '@shared/api/roles';
-import { prepared } from '../knex';
+import { prepared, runNamed } from '../knex';
 
 type Q = Knex | Knex.Transaction;
 
@@ -77,8 +77,9 @@ export async function lockForRun(
   opts: { lock: boolean } = { lock: true },
 ): Promise<RunStart> {
   // Fixed text whatever the number of changes (arrays as parameters), so it stays one prepared statement.
-  const { rows } = await trx
-    .raw(
+  const { rows } = await runNamed(
+    trx,
+    opts.lock ? 'bl_lock_for_run' : 'bl_read_for_run',
       `WITH s AS (
          SELECT id, organisation_id, doc, revision, field_revisions, status, vessel_id
          FROM surveys WHERE id = ? AND organisation_id = ? ${opts.lock ? 'FOR UPDATE' : ''}
@@ -104,8 +105,7 @@ export async function lockForRun(
         changes.map((c) => c.seq),
         changes.map((c) => c.id),
       ],
-    )
-    .options({ name: opts.lock ? 'bl_lock_for_run' : 'bl_read_for_run' });
+  );
   const row = rows[0] as { member_role: Role | null; survey: SurveyRow | null; seen: ProcessedJsonRow[] | null };
   return {
     memberRole: member ? row.member_role : null,
@@ -283,8 +283,9 @@ export async function insertRunWrites(
   // the same for every run: one prepared statement, parsed and planned once per connection.
   const when = guarded ? ' AND EXISTS (SELECT 1 FROM g)' : '';
   const c = w.survey?.columns;
-  const { rows } = await q
-    .raw(
+  const { rows } = await runNamed(
+    q,
+    guarded ? 'bl_run_writes_at_revision' : 'bl_run_writes',
       `WITH g AS (
          SELECT id FROM surveys
           WHERE id = ? AND organisation_id = ? AND revision = ?
@@ -334,8 +335,7 @@ export async function insertRunWrites(
         w.member?.userId ?? null,
         w.member?.orgId ?? null,
       ],
-    )
-    .options({ name: guarded ? 'bl_run_writes_at_revision' : 'bl_run_writes' });
+  );
   const row = rows[0] as { n: number; guard: number; member_role: Role | null };
   return { inserted: Number(row.n), guardHeld: !guarded || Number(row.guard) > 0, memberRole: w.member ? row.member_role : null };
 }
@@ -572,8 +572,9 @@ export async function listSurveysJson(
   // alone: one prepared statement per sort and direction.
   const where = `s.organisation_id = ? AND (?::text[] IS NULL OR s.status = ANY(?::text[])) AND (?::text IS NULL OR s.title ILIKE ? OR s.vessel_name ILIKE ?)`;
   const filter = [orgId, statuses, statuses, like, like, like];
-  const { rows } = await db
-    .raw(
+  const { rows } = await runNamed(
+    db,
+    `bl_list_${q.sort}_${dir}`,
       `SELECT ${MEMBER_ROLE_SQL} AS member_role,
               (SELECT count(*) FROM surveys s WHERE ${where})::int AS total,
               (SELECT coalesce(json_agg(json_build_object(
@@ -587,8 +588,7 @@ export async function listSurveysJson(
                         ORDER BY ${order}
                         LIMIT ? OFFSET ?) AS p) AS items_json`,
       [member?.userId ?? null, member?.orgId ?? null, ...filter, ...filter, q.pageSize, (q.page - 1) * q.pageSize],
-    )
-    .options({ name: `bl_list_${q.sort}_${dir}` });
+  );
   const row = rows[0] as { member_role: Role | null; total: number; items_json: string };
   return { itemsJson: row.items_json, total: Number(row.total), memberRole: member ? row.member_role : null };
 }
@@ -636,8 +636,9 @@ export async function readSurveyRaw(
   member?: MemberCheck,
   known: KnownText = {},
 ): Promise<RawSurveyRead> {
-  const { rows } = await db
-    .raw(
+  const { rows } = await runNamed(
+    db,
+    'bl_survey_read',
       `SELECT ${MEMBER_ROLE_SQL} AS member_role, ${SUMMARY_SQL},
               CASE WHEN s.revision = ? THEN NULL ELSE s.doc::text END AS doc_json,
               r.revision AS results_revision, r.engine_version, r.error, r.computed_at, r.results_json,
@@ -664,8 +665,7 @@ export async function readSurveyRaw(
             LIMIT 1
          ) AS r ON true`,
       [member?.userId ?? null, member?.orgId ?? null, known.docRevision ?? -1, id, orgId, known.resultsRevision ?? -1, engineVersion],
-    )
-    .options({ name: 'bl_survey_read' });
+  );
   const row = rows[0] as (SummaryRow & Record<string, unknown>) | undefined;
   const out: RawSurveyRead = { memberRole: member ? ((row?.member_role as Role | null) ?? null) : null, conflicts: [] };
   if (!row?.id) return out;
