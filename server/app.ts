@@ -16,7 +16,7 @@ import { securityHeaders } from './http/security-headers';
 import { healthRoutes } from './routes/health';
 import { createAccessVerifier } from './services/access';
 import { createMailer, type Mailer } from './mail/mailer';
-import { authRoutes } from './routes/auth';
+import { authRoutes, REFRESH_COOKIE_PATH } from './routes/auth';
 import { memberRoutes } from './routes/members';
 import { devMailRoutes } from './routes/dev-mail';
 import { surveyRoutes } from './routes/surveys';
@@ -66,7 +66,8 @@ export function createApp(given: AppDeps): BrinelineApp {
 
   app.use(requestLogging(deps.logger));
   app.use(securityHeaders());
-  app.use(cookieParser());
+  // Only the refresh cookie is read, and browsers send it to /api/auth alone (REFRESH_COOKIE_PATH).
+  app.use(REFRESH_COOKIE_PATH, cookieParser());
 
   const verify: AccessVerifier = createAccessVerifier(deps);
   const api = Router();
