@@ -269,7 +269,21 @@ describe('a new version deployed during work', () => {
       // The reload waits for the held change to sync (the engine may be backing off after the 503s).
       const reloaded = page.waitForEvent('load', { timeout: 60_000 });
       await banner.getByRole('button', { name: 'Update' }).click();
-      await reloaded;
+      await reloaded.catch(async (err: unknown) => {
+        // Say where it stopped: the banner, the outbox, the sync panel and the service workers.
+        const seen = {
+          banner: await banner.innerText({ timeout: 1000 }).catch(() => '(no banner)'),
+          pending: await pending(page).catch(() => '(unknown)'),
+          panel: await page.getByTestId('sync-status').innerText({ timeout: 1000 }).catch(() => '(no sync panel)'),
+          workers: await page
+            .evaluate(async () => {
+              const reg = await navigator.serviceWorker.getRegistration();
+              return { installing: reg?.installing?.state, waiting: reg?.waiting?.state, active: reg?.active?.state, controlled: Boolean(navigator.serviceWorker.controller) };
+            })
+            .catch(() => '(unknown)'),
+        };
+        throw new Error(`The page did not reload after Update: ${JSON.stringify(seen)}`, { cause: err });
+      });
       expect(await page.evaluate(() => (window as unknown as { __sameDocument?: boolean }).__sameDocument)).toBeUndefined();
       expect(await serverTitle(survey.id)).toBe('Edited while a deploy lands');
       const waiting = await page.evaluate(async () => Boolean((await navigator.serviceWorker.getRegistration())?.waiting));
