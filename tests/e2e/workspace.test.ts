@@ -244,10 +244,20 @@ describe('the workspace, offline from the start', () => {
     it(`shows every screen of the demo casualty at ${width} px without sideways scrolling`, async () => {
       const context = await browser.newContext({ viewport: { width, height: 900 } });
       const page = await context.newPage();
+      const calls: string[] = [];
+      page.on('response', (r) => {
+        const u = new URL(r.url());
+        if (u.pathname.startsWith('/api/')) calls.push(`${r.request().method()} ${u.pathname} ${r.status()}`);
+      });
       await signIn(page);
       await page.goto(`${baseUrl}/surveys`);
       const list = page.getByTestId('survey-list');
-      await list.waitFor({ timeout: 60_000 });
+      await list.waitFor({ timeout: 60_000 }).catch(async (err: unknown) => {
+        // Say what the page showed instead, and what the app asked the API.
+        await page.screenshot({ path: screenshotPath(`workspace-list-failed-${width}`), fullPage: true }).catch(() => undefined);
+        const body = await page.locator('body').innerText({ timeout: 1000 }).catch(() => '(no body)');
+        throw new Error(`No survey list. The page shows: ${body.slice(0, 600)}\nAPI calls: ${calls.join('; ')}`, { cause: err });
+      });
       await page.screenshot({ path: screenshotPath(`workspace-list-${width}`), fullPage: true });
       const demo = await db('surveys').where({ id: demoSurvey().id }).first('id');
       expect(demo, 'the demo survey is seeded').toBeTruthy();
