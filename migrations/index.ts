@@ -12,6 +12,7 @@ import * as review from './20261201000400_review';
 import * as resultsAsJson from './20261201000500_results_as_json';
 import * as lz4Toast from './20261202000600_lz4_toast';
 import * as docsAsJson from './20261202000700_docs_as_json';
+import * as refreshSuccessors from './20261202000800_refresh_successors';
 
 const migrations: Record<string, Knex.Migration> = {
   '20261201000000_organisations_users': organisationsUsers,
@@ -22,6 +23,7 @@ const migrations: Record<string, Knex.Migration> = {
   '20261201000500_results_as_json': resultsAsJson,
   '20261202000600_lz4_toast': lz4Toast,
   '20261202000700_docs_as_json': docsAsJson,
+  '20261202000800_refresh_successors': refreshSuccessors,
 };
 
 export const migrationSource: Knex.MigrationSource<string> = {

@@ -1,5 +1,5 @@
 /**
- * The audit log of security events: sign-ins (and failed ones), refresh-token reuse, role changes,
+ * The audit log of security events: sign-ins (and failed ones), refresh-token reuse and answers taken as lost, role changes,
  * invitations, password resets, deactivations. Writing it never breaks the request it records.
  */
 import type { Request } from 'express';
@@ -12,6 +12,7 @@ export type AuditEvent =
   | 'sign_in_failed'
   | 'sign_out'
   | 'refresh_token_reused'
+  | 'refresh_answer_lost'
   | 'invitation_sent'
   | 'invitation_accepted'
   | 'role_changed'

@@ -3,7 +3,10 @@
  *
  * A session is a family of refresh tokens: each refresh spends the presented token and issues the
  * next one in the same family. Presenting a spent token again means it was copied, so the whole
- * family is revoked and the event is audited. Only SHA-256 hashes of tokens are stored.
+ * family is revoked and the event is audited — unless the token issued for it was never used: then
+ * the answer that carried it is taken to be lost (a dropped link, a page closed mid-request), that
+ * unused token is set aside and a new one issued. If the set-aside token turns up later, two
+ * holders exist after all, and the family is revoked then. Only SHA-256 hashes of tokens are stored.
  */
 import { randomUUID } from 'node:crypto';
 import bcrypt from 'bcryptjs';
@@ -48,17 +51,21 @@ export function createAuthService(deps: AuthDeps) {
   let dummyHash: Promise<string> | undefined;
   const getDummyHash = () => (dummyHash ??= bcrypt.hash('brineline-no-such-person', config.BCRYPT_COST));
 
-  /** Issues an access token and a new refresh token (in `familyId`, or a new family). */
-  async function issueSession(me: Me, familyId: string = randomUUID()): Promise<IssuedSession> {
+  /**
+   * Issues an access token and a new refresh token (in `familyId`, or a new family); with `replaces`,
+   * the new token is recorded as the one issued for that token.
+   */
+  async function issueSession(me: Me, familyId: string = randomUUID(), replaces?: string): Promise<IssuedSession> {
     const refreshToken = newSecret();
     const refreshExpiresAt = new Date(Date.now() + config.REFRESH_TTL_DAYS * 86_400_000);
-    await secrets.insertRefreshToken(db, {
+    const id = await secrets.insertRefreshToken(db, {
       userId: me.id,
       orgId: me.organisation.id,
       familyId,
       tokenHash: hashSecret(refreshToken),
       expiresAt: refreshExpiresAt,
     });
+    if (replaces) await secrets.linkSuccessor(db, replaces, id);
     const accessToken = await signAccessToken(config.JWT_SECRET, {
       userId: me.id,
       orgId: me.organisation.id,
@@ -96,15 +103,28 @@ export function createAuthService(deps: AuthDeps) {
     if (!token) throw expired();
     const row = await secrets.findRefreshToken(db, hashSecret(token));
     if (!row || row.revokedAt) throw expired();
-    const spent = row.rotatedAt !== null || !(await secrets.markRotated(db, row.id));
-    if (spent) {
+    const reused = async () => {
       const revoked = await secrets.revokeFamily(db, row.familyId);
       await audit('refresh_token_reused', meta, {
         orgId: row.orgId,
         subjectId: row.userId,
         details: { familyId: row.familyId, tokensRevoked: revoked },
       });
-      throw expired();
+      return expired();
+    };
+    // A token set aside as lost, presented after all: two holders of one session.
+    if (row.supersededAt) throw await reused();
+    if (row.rotatedAt === null) {
+      if (!(await secrets.markRotated(db, row.id))) throw await reused();
+    } else {
+      // Spent. If the token issued for it was never used, its answer never arrived: set it aside and
+      // answer again. Otherwise the one issued for it is in use elsewhere: this is a copy.
+      if (!row.replacedBy || !(await secrets.supersedeUnused(db, row.replacedBy))) throw await reused();
+      await audit('refresh_answer_lost', meta, {
+        orgId: row.orgId,
+        subjectId: row.userId,
+        details: { familyId: row.familyId },
+      });
     }
     if (row.expiresAt.getTime() <= Date.now()) throw expired();
     const me = await accounts.findActiveMe(db, row.userId, row.orgId);
@@ -112,7 +132,7 @@ export function createAuthService(deps: AuthDeps) {
       await secrets.revokeFamily(db, row.familyId);
       throw expired();
     }
-    return issueSession(me, row.familyId);
+    return issueSession(me, row.familyId, row.id);
   }
 
   async function signOut(token: string | undefined, meta: RequestMeta): Promise<void> {

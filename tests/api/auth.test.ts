@@ -129,7 +129,10 @@ describe('refresh tokens', () => {
   it('revokes the whole family when a spent token comes back, and logs it', async () => {
     const s = await signIn(t.url, org.engineer.email);
     const r1 = await refresh(s.cookie);
-    const current = refreshCookieOf(r1);
+    // The real holder goes on refreshing: the token issued for the first one is used.
+    const r2 = await refresh(refreshCookieOf(r1));
+    expect(r2.status).toBe(200);
+    const current = refreshCookieOf(r2);
     const replay = await refresh(s.cookie);
     expect(replay.status).toBe(401);
     // The thief's replay also ends the real holder's session.
@@ -139,6 +142,39 @@ describe('refresh tokens', () => {
     // Other sessions of the same person (another device) are not touched.
     const other = await signIn(t.url, org.engineer.email);
     expect((await refresh(other.cookie)).status).toBe(200);
+  });
+
+  it('answers again when the answer to a refresh was lost, once the token it carried turns out unused', async () => {
+    const m = await addMember(t.db, org.id, 'surveyor');
+    const s = await signIn(t.url, m.email);
+    // The device sends its token; the server rotates it, but the answer never reaches the device.
+    const lost = await refresh(s.cookie);
+    expect(lost.status).toBe(200);
+    // The device still holds the old token and sends it again: it gets a working session.
+    const again = await refresh(s.cookie);
+    expect(again.status).toBe(200);
+    expect((await me(SessionResponseSchema.parse(await again.json()).accessToken)).status).toBe(200);
+    const next = refreshCookieOf(again);
+    expect(next).not.toBe(refreshCookieOf(lost));
+    expect(await auditEvents('refresh_answer_lost', m.id)).toHaveLength(1);
+    // The session goes on from the new token.
+    const later = await refresh(next);
+    expect(later.status).toBe(200);
+    // The old token now has a used successor: presenting it once more is a copy, and ends the session.
+    expect((await refresh(s.cookie)).status).toBe(401);
+    expect((await refresh(refreshCookieOf(later))).status).toBe(401);
+    expect(await auditEvents('refresh_token_reused', m.id)).toHaveLength(1);
+  });
+
+  it('ends the session when the token set aside as lost turns up after all (two holders)', async () => {
+    const m = await addMember(t.db, org.id, 'surveyor');
+    const s = await signIn(t.url, m.email);
+    const first = await refresh(s.cookie); // its answer reached a copy-holder, say
+    const second = await refresh(s.cookie); // the device, whose answer was "lost"
+    expect(second.status).toBe(200);
+    expect((await refresh(refreshCookieOf(first))).status).toBe(401);
+    expect((await refresh(refreshCookieOf(second))).status).toBe(401);
+    expect(await auditEvents('refresh_token_reused', m.id)).toHaveLength(1);
   });
 
   it('refuses a missing, unknown or expired refresh token', async () => {

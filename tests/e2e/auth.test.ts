@@ -86,6 +86,27 @@ describe('sign-in', () => {
     await ctx.close();
   });
 
+  it('stays signed in when the answer to a refresh is lost after the server rotated the token', async () => {
+    const ctx = await browser.newContext({ viewport: { width: 1280, height: 800 } });
+    const page = await ctx.newPage();
+    await signInThroughForm(page, org.engineer.email, TEST_PASSWORD);
+    await page.waitForURL(`${baseUrl}/surveys`);
+    // The device's refresh reaches the server, which rotates the token, but the answer (with the new
+    // cookie) never reaches the device: sent here from outside the browser, which keeps its cookie.
+    const held = (await ctx.cookies()).find((c) => c.name === 'brineline_refresh');
+    expect(held).toBeTruthy();
+    const rotated = await fetch(`${baseUrl}/api/auth/refresh`, { method: 'POST', headers: { cookie: `${held!.name}=${held!.value}` } });
+    expect(rotated.status).toBe(200);
+    // On the next load the device presents the token it still holds, and is let in.
+    const answer = page.waitForResponse((r) => r.url().endsWith('/api/auth/refresh'));
+    await page.reload();
+    expect((await answer).status()).toBe(200);
+    await expectCurrentUser(page, org.engineer.name);
+    await page.waitForTimeout(1000);
+    expect(await page.getByTestId('session-expired').count()).toBe(0);
+    await ctx.close();
+  });
+
   it('works offline under the remembered identity, and asks to sign in again when the sign-in has ended', async () => {
     const ctx = await browser.newContext({ viewport: { width: 360, height: 800 } });
     const page = await ctx.newPage();

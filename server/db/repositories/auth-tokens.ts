@@ -14,19 +14,45 @@ export interface RefreshTokenRow {
   expiresAt: Date;
   rotatedAt: Date | null;
   revokedAt: Date | null;
+  /** The token issued in exchange for this one (the latest, when it was exchanged again). */
+  replacedBy: string | null;
+  /** Set when this token was set aside, unused, because the token before it was presented again. */
+  supersededAt: Date | null;
 }
 
 export async function insertRefreshToken(
   db: Q,
   t: { userId: string; orgId: string; familyId: string; tokenHash: string; expiresAt: Date },
-): Promise<void> {
-  await db('refresh_tokens').insert({
-    user_id: t.userId,
-    organisation_id: t.orgId,
-    family_id: t.familyId,
-    token_hash: t.tokenHash,
-    expires_at: t.expiresAt,
-  });
+): Promise<string> {
+  const [row] = await db('refresh_tokens')
+    .insert({
+      user_id: t.userId,
+      organisation_id: t.orgId,
+      family_id: t.familyId,
+      token_hash: t.tokenHash,
+      expires_at: t.expiresAt,
+    })
+    .returning('id');
+  return (row as { id: string }).id;
+}
+
+/** Records the token issued in exchange for `id`. */
+export async function linkSuccessor(db: Q, id: string, successorId: string): Promise<void> {
+  await db('refresh_tokens').where({ id }).update({ replaced_by: successorId });
+}
+
+/**
+ * Sets a token aside when it was never used (its answer is taken to be lost); false when it was
+ * used, revoked or set aside already, which means someone else holds the token before it.
+ */
+export async function supersedeUnused(db: Q, id: string): Promise<boolean> {
+  const n = await db('refresh_tokens')
+    .where({ id })
+    .whereNull('rotated_at')
+    .whereNull('revoked_at')
+    .whereNull('superseded_at')
+    .update({ superseded_at: db.fn.now() });
+  return n === 1;
 }
 
 export async function findRefreshToken(db: Q, tokenHash: string): Promise<RefreshTokenRow | undefined> {
@@ -40,13 +66,20 @@ export async function findRefreshToken(db: Q, tokenHash: string): Promise<Refres
         expiresAt: r.expires_at,
         rotatedAt: r.rotated_at,
         revokedAt: r.revoked_at,
+        replacedBy: r.replaced_by,
+        supersededAt: r.superseded_at,
       }
     : undefined;
 }
 
 /** Marks a token as exchanged; false when another request already did (a race or a replay). */
 export async function markRotated(db: Q, id: string): Promise<boolean> {
-  const n = await db('refresh_tokens').where({ id }).whereNull('rotated_at').whereNull('revoked_at').update({ rotated_at: db.fn.now() });
+  const n = await db('refresh_tokens')
+    .where({ id })
+    .whereNull('rotated_at')
+    .whereNull('revoked_at')
+    .whereNull('superseded_at')
+    .update({ rotated_at: db.fn.now() });
   return n === 1;
 }
 
