@@ -237,6 +237,19 @@ describe('the workspace, offline from the start', () => {
     expect(photo).toMatchObject({ survey_id: surveyId, entity_kind: 'boundary', entity_id: bulkhead.id, content_type: 'image/png' });
     await page.getByTestId('photo-state').filter({ hasText: 'Uploaded' }).waitFor({ timeout: 30_000 });
     await page.screenshot({ path: screenshotPath('workspace-new-photos-360'), fullPage: true });
+
+    // A photo taken by mistake is removed: asked first, then gone from the survey on the server too
+    step('Remove the photo');
+    await page.getByRole('button', { name: 'Remove photo: Bulkhead seen from No. 1 hold' }).click();
+    const ask = page.getByRole('group', { name: 'Remove this photo?' });
+    await expect(ask.innerText()).resolves.toContain('stays on the server');
+    await page.screenshot({ path: screenshotPath('workspace-photo-remove-360'), fullPage: true });
+    await ask.getByRole('button', { name: 'Remove photo' }).click();
+    await page.getByText('No photos yet.').waitFor();
+    await pollUntil(async () => {
+      const r = await db('surveys').where({ id: surveyId }).first();
+      return (SurveySchema.parse(r.doc).photos?.length ?? 0) === 0 ? true : undefined;
+    });
     await context.close();
   }, 300_000);
 

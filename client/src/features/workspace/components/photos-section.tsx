@@ -5,7 +5,7 @@ import { db, type LocalPhoto } from '@client/offline/db';
 import { apiFetch } from '@client/lib/api-client';
 import type { PhotoRef } from '@shared/schemas/survey';
 import type { SectionProps } from '../utils/types';
-import { inputCls, primaryBtn } from './fields';
+import { dangerBtn, inputCls, primaryBtn, secondaryBtn } from './fields';
 import { newId } from '../utils/new-entities';
 import { startPhotoUploads, uploadPhotosNow, usePhotoUploadStatus } from '../api/upload-photos';
 
@@ -53,6 +53,7 @@ export function PhotosSection({ survey, apply, selectedId }: SectionProps) {
   const [target, setTarget] = useState(initial);
   const [caption, setCaption] = useState('');
   const [error, setError] = useState<string | null>(null);
+  const [confirming, setConfirming] = useState<string | null>(null);
   const fileRef = useRef<HTMLInputElement>(null);
   const ids = { target: useId(), caption: useId(), file: useId() };
   useEffect(() => startPhotoUploads(), []);
@@ -81,6 +82,22 @@ export function PhotosSection({ survey, apply, selectedId }: SectionProps) {
       void uploadPhotosNow();
     } catch (err) {
       setError(err instanceof Error ? err.message : 'The photo could not be kept on this device.');
+    }
+  };
+
+  /**
+   * Takes the photo out of the survey (a delete that syncs like any edit). The copy on this device
+   * goes too, so a photo not yet uploaded never is; one already uploaded stays on the server with
+   * the survey's history.
+   */
+  const remove = async (id: string) => {
+    setError(null);
+    try {
+      await apply({ kind: 'delete', collection: 'photos', entityId: id });
+      await db.photos.delete(id);
+      setConfirming(null);
+    } catch (err) {
+      setError(err instanceof Error ? err.message : 'The photo could not be removed.');
     }
   };
 
@@ -168,6 +185,30 @@ export function PhotosSection({ survey, apply, selectedId }: SectionProps) {
                   </p>
                   {st?.progress !== undefined && (
                     <progress className="w-full" max={1} value={st.progress} aria-label="Upload progress" />
+                  )}
+                  {confirming === r.id ? (
+                    <div className="mt-2 space-y-2" role="group" aria-label="Remove this photo?">
+                      <p className="font-bold">
+                        Remove this photo from the survey?{' '}
+                        <span className="font-normal">
+                          {lp && !lp.uploaded
+                            ? 'It has not been uploaded yet and will be deleted from this device.'
+                            : 'The uploaded file stays on the server with the survey’s history.'}
+                        </span>
+                      </p>
+                      <div className="flex flex-wrap gap-2">
+                        <button type="button" className={dangerBtn} onClick={() => void remove(r.id)}>
+                          Remove photo
+                        </button>
+                        <button type="button" className={secondaryBtn} onClick={() => setConfirming(null)}>
+                          Keep it
+                        </button>
+                      </div>
+                    </div>
+                  ) : (
+                    <button type="button" className={`${secondaryBtn} mt-2`} onClick={() => setConfirming(r.id)} aria-label={`Remove photo: ${alt}`}>
+                      Remove…
+                    </button>
                   )}
                 </div>
               </li>
