@@ -1,5 +1,4 @@
 import knexFactory, { type Knex } from 'knex';
-import { createHash } from 'node:crypto';
 import pg from 'pg';
 
 // Return NUMERIC and BIGINT (count(*)) as JS numbers; our values stay well inside 2^53.
@@ -25,12 +24,6 @@ export async function pingDb(db: Db, timeoutMs = 1500): Promise<boolean> {
   }
 }
 
-/**
- * Runs a query as a named prepared statement, so PostgreSQL parses it once per connection and, after
- * a few runs, stops planning it again. The name is a hash of the query's SQL text (placeholders, not
- * values), so queries of the same shape share one statement and a different shape gets its own. For
- * the hot, fixed-shape queries only: each shape stays prepared on every pooled connection.
- */
 /** A fixed SQL text (`?` placeholders) under its prepared-statement name, with the text node-postgres sends. */
 interface NamedStatement {
   sql: string;
@@ -68,9 +61,4 @@ export async function runNamed<R extends object = Record<string, unknown>>(
   } finally {
     await client.releaseConnection(conn);
   }
-}
-
-export function prepared<T extends { toSQL: () => { sql: string }; options: (o: Record<string, unknown>) => T }>(query: T): T {
-  const { sql } = query.toSQL();
-  return query.options({ name: `bl_${createHash('sha1').update(sql).digest('base64url').slice(0, 20)}` });
 }

@@ -13,7 +13,7 @@ import type {
 } from '@shared/schemas/sync';
 import type { FieldChange, FieldRevisions } from '@shared/sync/merge';
 import type { Role } from '@shared/api/roles';
-import { prepared, runNamed } from '../knex';
+import { runNamed } from '../knex';
 
 type Q = Knex | Knex.Transaction;
 
@@ -711,12 +711,15 @@ export async function currentDoc(db: Q, id: string): Promise<{ doc: Survey; revi
 
 /** The current document when its revision has no results of this engine version yet; undefined otherwise. */
 export async function docNeedingResults(db: Q, id: string, engineVersion: string): Promise<{ doc: Survey; revision: number } | undefined> {
-  return prepared(
-    db('surveys as s')
-      .where('s.id', id)
-      .whereNotExists((q) => q.from('survey_results as r').whereRaw('r.survey_id = s.id AND r.revision = s.revision').andWhere('r.engine_version', engineVersion))
-      .first('s.doc', 's.revision'),
+  const { rows } = await runNamed<{ doc: Survey; revision: number }>(
+    db,
+    'bl_doc_needing_results',
+    `SELECT s.doc, s.revision FROM surveys s
+      WHERE s.id = ?
+        AND NOT EXISTS (SELECT 1 FROM survey_results r WHERE r.survey_id = s.id AND r.revision = s.revision AND r.engine_version = ?)`,
+    [id, engineVersion],
   );
+  return rows[0];
 }
 
 export async function insertResults(
