@@ -36,6 +36,9 @@ export async function insertRefreshToken(
   return (row as { id: string }).id;
 }
 
+/** The token `id` while it is neither exchanged, revoked nor set aside. */
+const unspent = (db: Q, id: string) => db('refresh_tokens').where({ id }).whereNull('rotated_at').whereNull('revoked_at').whereNull('superseded_at');
+
 /** Records the token issued in exchange for `id`. */
 export async function linkSuccessor(db: Q, id: string, successorId: string): Promise<void> {
   await db('refresh_tokens').where({ id }).update({ replaced_by: successorId });
@@ -46,13 +49,7 @@ export async function linkSuccessor(db: Q, id: string, successorId: string): Pro
  * used, revoked or set aside already, which means someone else holds the token before it.
  */
 export async function supersedeUnused(db: Q, id: string): Promise<boolean> {
-  const n = await db('refresh_tokens')
-    .where({ id })
-    .whereNull('rotated_at')
-    .whereNull('revoked_at')
-    .whereNull('superseded_at')
-    .update({ superseded_at: db.fn.now() });
-  return n === 1;
+  return (await unspent(db, id).update({ superseded_at: db.fn.now() })) === 1;
 }
 
 export async function findRefreshToken(db: Q, tokenHash: string): Promise<RefreshTokenRow | undefined> {
@@ -74,13 +71,7 @@ export async function findRefreshToken(db: Q, tokenHash: string): Promise<Refres
 
 /** Marks a token as exchanged; false when another request already did (a race or a replay). */
 export async function markRotated(db: Q, id: string): Promise<boolean> {
-  const n = await db('refresh_tokens')
-    .where({ id })
-    .whereNull('rotated_at')
-    .whereNull('revoked_at')
-    .whereNull('superseded_at')
-    .update({ rotated_at: db.fn.now() });
-  return n === 1;
+  return (await unspent(db, id).update({ rotated_at: db.fn.now() })) === 1;
 }
 
 export async function revokeFamily(db: Q, familyId: string): Promise<number> {
