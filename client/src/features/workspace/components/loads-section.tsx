@@ -5,7 +5,7 @@ import { BoundaryResultsTable } from '@client/features/results/components/bounda
 import { BoundaryDetail } from '@client/features/results/components/boundary-detail';
 import { CompartmentTable } from '@client/features/results/components/compartment-table';
 import type { SectionProps } from '../utils/types';
-import { secondaryBtn } from './fields';
+import { secondaryBtn } from '@client/components/ui/fields';
 import { useSearchParams } from 'react-router';
 
 export function LoadsSection({ results, system, selectedId, select }: SectionProps) {
