@@ -7,6 +7,7 @@
 import { z } from 'zod';
 import { catalogueFluid } from '../fluids/catalogue';
 import { SpaceTypeSchema } from './space-types';
+import { DirectionalRatingSchema, PlatingSchema, ShoreDesignSchema } from './structure';
 
 export const SURVEY_SCHEMA_VERSION = 1;
 
@@ -211,6 +212,8 @@ export const ShoreSchema = z.object({
   side: z.enum(['A', 'B']),
   /** Angle between the shore's axis and the plate normal, degrees (default 0). */
   angleFromNormalDeg: z.number().min(0).max(75).optional(),
+  /** The column design check (AISC 360 steel, NDS timber, or a design factor); see structure.ts. */
+  design: ShoreDesignSchema.optional(),
 });
 export type Shore = z.infer<typeof ShoreSchema>;
 
@@ -236,7 +239,10 @@ export const BoundarySchema = z.object({
   parentBoundaryId: Id.optional(),
   stiffening: StiffeningSchema.optional(),
   shores: z.array(ShoreSchema).optional(),
+  /** A rating that holds whichever way the net pressure pushes (see directionalCapacity for one per direction). */
   ratedCapacity: RatedCapacitySchema.optional(),
+  directionalCapacity: DirectionalRatingSchema.optional(),
+  plating: PlatingSchema.optional(),
   notes: z.string().optional(),
 });
 export type Boundary = z.infer<typeof BoundarySchema>;
