@@ -6,7 +6,8 @@
 import { catalogueFluid, crudeDensityFromApi, type FluidCategory } from '../fluids/catalogue';
 import { DEFAULT_PERMEABILITY } from '../schemas/space-types';
 import type { Boundary, BoundarySide, Compartment, LevelSource, Survey } from '../schemas/survey';
-import { earthFrame, type EarthFrame } from './frame';
+import { earthFrame, HEEL_AGREEMENT_TOLERANCE_DEG, type EarthFrame } from './frame';
+import { missingShipReadings, withheldItems, withheldSentence } from './readings';
 import { DEFAULT_DISCHARGE_COEFFICIENT, leastSquares, orificeFlow, timeToPumpOut } from './inflow';
 import { clipHalfPlane } from './plane-integrals';
 import {
@@ -77,6 +78,16 @@ export function computeSurvey(survey: Survey, options: ComputeOptions = {}): Sur
   const frame = earthFrame(survey.vessel, condition);
   const { up, g } = frame;
   const fluids = fluidResolver(survey);
+  const withheld = withheldItems(survey, condition);
+  for (const w of [...withheld.compartments.values(), ...withheld.boundaries.values()]) warn('reading-missing', 'warning', w.entityId, withheldSentence(w));
+  if (condition.heelDeg !== undefined && frame.heelFromDraftsDeg !== null && Math.abs(condition.heelDeg - frame.heelFromDraftsDeg) > HEEL_AGREEMENT_TOLERANCE_DEG) {
+    warn(
+      'heel-disagrees',
+      'warning',
+      condition.id,
+      `The inclinometer reads ${condition.heelDeg.toFixed(1)}° but the midship drafts give ${frame.heelFromDraftsDeg.toFixed(1)}°, more than ${HEEL_AGREEMENT_TOLERANCE_DEG}° apart: check both (the loads use the inclinometer)`,
+    );
+  }
 
   // ---- compartments: contents, profiles, volumes
   const contentsById = new Map(condition.contents.map((c) => [c.compartmentId, c]));
@@ -88,6 +99,7 @@ export function computeSurvey(survey: Survey, options: ComputeOptions = {}): Sur
   let totalPumps = 0;
 
   for (const comp of survey.compartments) {
+    if (withheld.compartments.has(comp.id)) continue;
     const solid = compartmentSolid(comp.geometry);
     const [eBottom, eTop] = elevationRange(solid, up);
     const memo = new Map<number, VolumeMoments>();
@@ -232,6 +244,7 @@ export function computeSurvey(survey: Survey, options: ComputeOptions = {}): Sur
   let maxUId: string | null = null;
   const over: string[] = [];
   for (const b of survey.boundaries) {
+    if (withheld.boundaries.has(b.id)) continue;
     const pa = sideProfile(b.sideA), pb = sideProfile(b.sideB);
     const net = netProfile(pa, pb);
     const r =
@@ -270,6 +283,7 @@ export function computeSurvey(survey: Survey, options: ComputeOptions = {}): Sur
       waterlineElevationM: frame.waterlineElevation,
       seaDensityKgM3: frame.seaDensityKgM3,
       gravityMS2: g,
+      missingReadings: missingShipReadings(condition),
     },
     compartments: compartmentResults,
     boundaries: boundaryResults,
@@ -281,6 +295,7 @@ export function computeSurvey(survey: Survey, options: ComputeOptions = {}): Sur
       totalInflowM3S: totalInflow,
       totalPumpCapacityM3S: totalPumps,
     },
+    withheld: [...withheld.compartments.values(), ...withheld.boundaries.values()],
     warnings,
   };
 }
@@ -309,9 +324,10 @@ export function levelElevation(level: LevelSource, frame: EarthFrame): number {
   switch (level.kind) {
     case 'sounding':
     case 'interfaceSounding':
-      return dot(up, [level.pipe.x, level.pipe.y, level.pipe.bottomZM + level.soundingM]);
+      // a missing reading withholds the compartment before this is reached; NaN if called on one
+      return dot(up, [level.pipe.x, level.pipe.y, level.pipe.bottomZM + (level.soundingM ?? Number.NaN)]);
     case 'ullage':
-      return dot(up, [level.reference.x, level.reference.y, level.reference.z - level.ullageM]);
+      return dot(up, [level.reference.x, level.reference.y, level.reference.z - (level.ullageM ?? Number.NaN)]);
     case 'openToSea':
       return frame.waterlineElevation;
     case 'point':

@@ -4,6 +4,7 @@
  */
 import type { LoadDiagramPoint } from './plate';
 import type { BeamResult } from './beam';
+import type { Withheld } from './readings';
 
 export interface Point {
   x: number;
@@ -34,6 +35,8 @@ export interface FrameResult {
   waterlineElevationM: number;
   seaDensityKgM3: number;
   gravityMS2: number;
+  /** Ship readings not entered yet ("draft forward", "heel …"): while any is missing, heel and trim are not real. Absent in older results. */
+  missingReadings?: string[];
 }
 
 export interface Aggregate {
@@ -296,7 +299,9 @@ export interface SurveyResults {
     totalInflowM3S: number;
     totalPumpCapacityM3S: number;
   };
+  /** Compartments and boundaries left out because a reading they rest on is missing (absent in older results). */
+  withheld?: Withheld[];
   warnings: EngineWarning[];
 }
 
-export type { LoadDiagramPoint };
+export type { LoadDiagramPoint, Withheld };

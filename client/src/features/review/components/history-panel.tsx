@@ -3,7 +3,7 @@ import { useState } from 'react';
 import type { FieldChange } from '@shared/api/review';
 import type { UnitSystem } from '@shared/units/units';
 import { fmt } from '@client/lib/unit-system';
-import { UtilisationBadge } from '@client/components/results/utilisation';
+import { UtilisationBadge } from '@client/features/results/components/utilisation';
 import { useCompare, useRevisions } from '../api/history';
 
 const when = (iso: string) => new Date(iso).toLocaleString('en-GB', { dateStyle: 'medium', timeStyle: 'short', timeZone: 'UTC' }) + ' UTC';
