@@ -8,6 +8,7 @@ import { z } from 'zod';
 import { catalogueFluid } from '../fluids/catalogue';
 import { SpaceTypeSchema } from './space-types';
 import { MarksSchema } from './marks';
+import { DirectionalRatingSchema, PlatingSchema, ShoreDesignSchema } from './structure';
 
 export const SURVEY_SCHEMA_VERSION = 1;
 
@@ -219,6 +220,8 @@ export const ShoreSchema = z.object({
   side: z.enum(['A', 'B']),
   /** Angle between the shore's axis and the plate normal, degrees (default 0). */
   angleFromNormalDeg: z.number().min(0).max(75).optional(),
+  /** The column design check (AISC 360 steel, NDS timber, or a design factor); see structure.ts. */
+  design: ShoreDesignSchema.optional(),
 });
 export type Shore = z.infer<typeof ShoreSchema>;
 
@@ -244,7 +247,10 @@ export const BoundarySchema = z.object({
   parentBoundaryId: Id.optional(),
   stiffening: StiffeningSchema.optional(),
   shores: z.array(ShoreSchema).optional(),
+  /** A rating that holds whichever way the net pressure pushes (see directionalCapacity for one per direction). */
   ratedCapacity: RatedCapacitySchema.optional(),
+  directionalCapacity: DirectionalRatingSchema.optional(),
+  plating: PlatingSchema.optional(),
   notes: z.string().optional(),
   marks: MarksSchema.optional(),
 });
