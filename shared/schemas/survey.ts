@@ -9,8 +9,9 @@ import { catalogueFluid } from '../fluids/catalogue';
 import { SpaceTypeSchema } from './space-types';
 import { MarksSchema } from './marks';
 import { DirectionalRatingSchema, PlatingSchema, ShoreDesignSchema } from './structure';
+import { SURVEY_SCHEMA_VERSION, upgradeSurvey } from './upgrade';
 
-export const SURVEY_SCHEMA_VERSION = 1;
+export { SURVEY_SCHEMA_VERSION };
 
 const Id = z.uuid();
 const Length = z.number();
@@ -301,7 +302,9 @@ function arrayOf<K extends CollectionKey>(key: K) {
 }
 
 const SurveyObjectSchema = z.object({
-  schemaVersion: z.literal(SURVEY_SCHEMA_VERSION),
+  schemaVersion: z.literal(SURVEY_SCHEMA_VERSION, {
+    error: `this app reads survey format version ${SURVEY_SCHEMA_VERSION} and older; a newer version needs an updated app`,
+  }),
   id: Id,
   vesselId: Id.optional(),
   title: z.string().trim().min(1),
@@ -366,6 +369,12 @@ function referenceIssues(s: SurveyObject, add: (issue: { path: (string | number)
 
 export const SurveySchema = SurveyObjectSchema.superRefine((s, ctx) => referenceIssues(s, (issue) => ctx.addIssue({ code: 'custom', ...issue })));
 export type Survey = z.infer<typeof SurveySchema>;
+
+/**
+ * SurveySchema for a document that may be of an older format version (a file, a push from a device
+ * running older code, a stored copy): upgraded first (./upgrade.ts), then validated.
+ */
+export const UpgradingSurveySchema = z.preprocess(upgradeSurvey, SurveySchema);
 
 /**
  * Whether SurveySchema accepts `next`, given that it accepts `prev` and that `next` was made from
