@@ -13,6 +13,7 @@ import { defineRoutes, type RegisteredRoute, type RouteSpec, type AccessVerifier
 import { apiNotFound, errorHandler } from './middleware/errors';
 import { requestLogging } from './http/request-log';
 import { securityHeaders } from './http/security-headers';
+import { jsonBody } from './http/json-body';
 import { healthRoutes } from './routes/health';
 import { createAccessVerifier } from './services/access';
 import { createMailer, type Mailer } from './mail/mailer';
@@ -71,7 +72,7 @@ export function createApp(given: AppDeps): BrinelineApp {
 
   const verify: AccessVerifier = createAccessVerifier(deps);
   const api = Router();
-  api.use(express.json({ limit: '5mb' }));
+  api.use(jsonBody({ limit: '5mb' }));
   for (const group of routeGroups(deps)) defineRoutes(api, '/api', group, verify, app.locals.routes);
   api.use(apiNotFound);
   app.use('/api', api);
