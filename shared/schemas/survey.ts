@@ -8,8 +8,11 @@ import { z } from 'zod';
 import { catalogueFluid } from '../fluids/catalogue';
 import { SpaceTypeSchema } from './space-types';
 import { SURVEY_LIMITS as L, TEXT_LIMITS, boundedText, capMessage, cappedArray } from './limits';
+import { MarksSchema } from './marks';
+import { DirectionalRatingSchema, PlatingSchema, ShoreDesignSchema } from './structure';
+import { SURVEY_SCHEMA_VERSION, upgradeSurvey } from './upgrade';
 
-export const SURVEY_SCHEMA_VERSION = 1;
+export { SURVEY_SCHEMA_VERSION };
 
 const Id = z.uuid();
 const Length = z.number();
@@ -48,9 +51,10 @@ export const SoundingPipeSchema = z.object({ x: z.number(), y: z.number(), botto
  * level on the outside waterline; "point" gives any ship point the surface passes through.
  */
 export const LevelSourceSchema = z.discriminatedUnion('kind', [
-  z.object({ kind: z.literal('sounding'), pipe: SoundingPipeSchema, soundingM: NonNegative }),
-  z.object({ kind: z.literal('interfaceSounding'), pipe: SoundingPipeSchema, soundingM: NonNegative }),
-  z.object({ kind: z.literal('ullage'), reference: Point3Schema, ullageM: NonNegative }),
+  // a reading absent until taken: the engine shows no loads that rest on it (shared/engine/readings.ts)
+  z.object({ kind: z.literal('sounding'), pipe: SoundingPipeSchema, soundingM: NonNegative.optional() }),
+  z.object({ kind: z.literal('interfaceSounding'), pipe: SoundingPipeSchema, soundingM: NonNegative.optional() }),
+  z.object({ kind: z.literal('ullage'), reference: Point3Schema, ullageM: NonNegative.optional() }),
   z.object({ kind: z.literal('openToSea') }),
   z.object({ kind: z.literal('point'), point: Point3Schema }),
 ]);
@@ -64,6 +68,7 @@ export const LayerSchema = z.object({
   densityKgM3: z.number().positive().max(2000).optional(),
   /** The top surface of this layer. */
   level: LevelSourceSchema,
+  marks: MarksSchema.optional(),
 });
 export type Layer = z.infer<typeof LayerSchema>;
 
@@ -86,20 +91,24 @@ export const ConditionSchema = z.object({
   id: Id,
   name: boundedText(TEXT_LIMITS.name).optional(),
   time: z.iso.datetime({ offset: true }),
-  /** Drafts at the marks, m above baseline. Forward and aft are centreline (mean of both sides) values. */
+  /**
+   * Drafts at the marks, m above baseline. Forward and aft are centreline (mean of both sides) values,
+   * absent until read (no loads are shown without them).
+   */
   drafts: z.object({
-    forwardM: z.number(),
-    aftM: z.number(),
+    forwardM: z.number().optional(),
+    aftM: z.number().optional(),
     midPortM: z.number().optional(),
     midStarboardM: z.number().optional(),
   }),
-  /** Inclinometer heel, degrees, positive with starboard down. If absent, taken from the midship drafts, else 0. */
+  /** Inclinometer heel, degrees, positive with starboard down. If absent, taken from the midship drafts; with neither, no loads. */
   heelDeg: z.number().gt(-60).lt(60).optional(),
   /** Sea water density, kg/m³ (default 1025). */
   seaDensityKgM3: z.number().min(990).max(1050).optional(),
   /** Acceleration of gravity, m/s² (default standard gravity 9.80665). */
   gravityMS2: z.number().min(9.7).max(9.9).optional(),
   contents: cappedArray(ContentsSchema, L.compartments, 'compartments with contents'),
+  marks: MarksSchema.optional(),
 });
 export type Condition = z.infer<typeof ConditionSchema>;
 
@@ -147,6 +156,7 @@ export const CompartmentSchema = z.object({
   breaches: cappedArray(BreachSchema, L.breaches, 'breaches in one compartment').optional(),
   pumps: cappedArray(PumpSchema, L.pumps, 'pumps in one compartment').optional(),
   soundingLog: SoundingLogSchema.optional(),
+  marks: MarksSchema.optional(),
 });
 export type Compartment = z.infer<typeof CompartmentSchema>;
 
@@ -212,6 +222,8 @@ export const ShoreSchema = z.object({
   side: z.enum(['A', 'B']),
   /** Angle between the shore's axis and the plate normal, degrees (default 0). */
   angleFromNormalDeg: z.number().min(0).max(75).optional(),
+  /** The column design check (AISC 360 steel, NDS timber, or a design factor); see structure.ts. */
+  design: ShoreDesignSchema.optional(),
 });
 export type Shore = z.infer<typeof ShoreSchema>;
 
@@ -237,8 +249,12 @@ export const BoundarySchema = z.object({
   parentBoundaryId: Id.optional(),
   stiffening: StiffeningSchema.optional(),
   shores: cappedArray(ShoreSchema, L.shores, 'shores on one boundary').optional(),
+  /** A rating that holds whichever way the net pressure pushes (see directionalCapacity for one per direction). */
   ratedCapacity: RatedCapacitySchema.optional(),
+  directionalCapacity: DirectionalRatingSchema.optional(),
+  plating: PlatingSchema.optional(),
   notes: boundedText(TEXT_LIMITS.notes).optional(),
+  marks: MarksSchema.optional(),
 });
 export type Boundary = z.infer<typeof BoundarySchema>;
 
@@ -287,7 +303,9 @@ function arrayOf<K extends CollectionKey>(key: K) {
 }
 
 const SurveyObjectSchema = z.object({
-  schemaVersion: z.literal(SURVEY_SCHEMA_VERSION),
+  schemaVersion: z.literal(SURVEY_SCHEMA_VERSION, {
+    error: `this app reads survey format version ${SURVEY_SCHEMA_VERSION} and older; a newer version needs an updated app`,
+  }),
   id: Id,
   vesselId: Id.optional(),
   title: boundedText(TEXT_LIMITS.name).trim().min(1),
@@ -385,6 +403,12 @@ export const SurveySchema = SurveyObjectSchema.superRefine((s, ctx) => {
   sizeIssues(s, add);
 });
 export type Survey = z.infer<typeof SurveySchema>;
+
+/**
+ * SurveySchema for a document that may be of an older format version (a file, a push from a device
+ * running older code, a stored copy): upgraded first (./upgrade.ts), then validated.
+ */
+export const UpgradingSurveySchema = z.preprocess(upgradeSurvey, SurveySchema);
 
 /**
  * Whether SurveySchema accepts `next`, given that it accepts `prev` and that `next` was made from
