@@ -6,7 +6,7 @@
  */
 import { z } from 'zod';
 import { catalogueFluid } from '../fluids/catalogue';
-import { SpaceTypeSchema } from './space-types';
+import { CargoStateSchema, SpaceTypeSchema } from './space-types';
 import { SURVEY_LIMITS as L, TEXT_LIMITS, boundedText, capMessage, cappedArray } from './limits';
 import { MarksSchema } from './marks';
 import { DirectionalRatingSchema, PlatingSchema, ShoreDesignSchema } from './structure';
@@ -54,7 +54,13 @@ export const LevelSourceSchema = z.discriminatedUnion('kind', [
   // a reading absent until taken: the engine shows no loads that rest on it (shared/engine/readings.ts)
   z.object({ kind: z.literal('sounding'), pipe: SoundingPipeSchema, soundingM: NonNegative.optional() }),
   z.object({ kind: z.literal('interfaceSounding'), pipe: SoundingPipeSchema, soundingM: NonNegative.optional() }),
-  z.object({ kind: z.literal('ullage'), reference: Point3Schema, ullageM: NonNegative.optional() }),
+  z.object({
+    kind: z.literal('ullage'),
+    reference: Point3Schema,
+    ullageM: NonNegative.optional(),
+    /** How the tape ran: along the pipe (ship's z axis, the default) or hanging plumb (earth-vertical). */
+    tape: z.enum(['along-pipe', 'plumb']).optional(),
+  }),
   z.object({ kind: z.literal('openToSea') }),
   z.object({ kind: z.literal('point'), point: Point3Schema }),
 ]);
@@ -151,6 +157,8 @@ export const CompartmentSchema = z.object({
   geometry: CompartmentGeometrySchema,
   /** Overrides the default permeability of the space type. */
   permeability: z.number().min(0).max(1).optional(),
+  /** Cargo spaces: how loaded the space is, which sets its default permeability. */
+  cargoState: CargoStateSchema.optional(),
   /** Open to the sea through a breach: unless the condition gives contents, it floods to the outside waterline. */
   openToSea: z.boolean().optional(),
   breaches: cappedArray(BreachSchema, L.breaches, 'breaches in one compartment').optional(),
