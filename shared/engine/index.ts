@@ -9,3 +9,15 @@ export {
 } from './pumping';
 export { ENGINE_VERSION } from './version';
 export type * from './results';
+export {
+  conditionAtAttitude,
+  floodWeightsFromResults,
+  responseFromWeights,
+  LARGE_TRIM_FRACTION,
+  SMALL_ANGLE_LIMIT_DEG,
+  type FloodWeight,
+  type ShipAttitude,
+  type ShipResponse,
+  type StabilityWarning,
+} from './stability';
+export { boxBmL, boxBmT, boxKb, intactShip, type IntactShip } from './hydrostatics';

@@ -7,6 +7,7 @@
 import { z } from 'zod';
 import { catalogueFluid } from '../fluids/catalogue';
 import { SpaceTypeSchema } from './space-types';
+import { ConditionStabilitySchema, DownfloodingPointSchema } from './stability';
 import { SURVEY_SCHEMA_VERSION, upgradeSurvey } from './upgrade';
 
 export { SURVEY_SCHEMA_VERSION };
@@ -33,6 +34,8 @@ export const VesselSchema = z.object({
     /** Position of the midship marks read on each side for heel, if any. */
     midshipXM: Length.optional(),
   }),
+  /** Openings that would let more water in once under water (the ship's response reports their freeboard). */
+  downfloodingPoints: z.array(DownfloodingPointSchema).optional(),
 });
 export type Vessel = z.infer<typeof VesselSchema>;
 
@@ -100,6 +103,8 @@ export const ConditionSchema = z.object({
   /** Acceleration of gravity, m/s² (default standard gravity 9.80665). */
   gravityMS2: z.number().min(9.7).max(9.9).optional(),
   contents: z.array(ContentsSchema),
+  /** Hydrostatic particulars for the ship's response (./stability.ts). */
+  stability: ConditionStabilitySchema.optional(),
 });
 export type Condition = z.infer<typeof ConditionSchema>;
 
