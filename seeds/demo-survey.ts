@@ -79,7 +79,7 @@ export function demoSurvey(): Survey {
       'I. Mackinnon (salvage surveyor); model checked ashore by R. Fennick (naval architect).',
     vessel: {
       name: 'MV Corran Tide',
-      imo: '9000017',
+      imo: '9000015',
       lbpM: 118,
       breadthM: 18,
       depthM: 11,

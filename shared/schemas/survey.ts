@@ -8,6 +8,8 @@ import { z } from 'zod';
 import { catalogueFluid } from '../fluids/catalogue';
 import { SpaceTypeSchema } from './space-types';
 import { ConditionStabilitySchema, DownfloodingPointSchema } from './stability';
+import { MarksSchema } from './marks';
+import { DirectionalRatingSchema, PlatingSchema, ShoreDesignSchema } from './structure';
 import { SURVEY_SCHEMA_VERSION, upgradeSurvey } from './upgrade';
 
 export { SURVEY_SCHEMA_VERSION };
@@ -51,9 +53,10 @@ export const SoundingPipeSchema = z.object({ x: z.number(), y: z.number(), botto
  * level on the outside waterline; "point" gives any ship point the surface passes through.
  */
 export const LevelSourceSchema = z.discriminatedUnion('kind', [
-  z.object({ kind: z.literal('sounding'), pipe: SoundingPipeSchema, soundingM: NonNegative }),
-  z.object({ kind: z.literal('interfaceSounding'), pipe: SoundingPipeSchema, soundingM: NonNegative }),
-  z.object({ kind: z.literal('ullage'), reference: Point3Schema, ullageM: NonNegative }),
+  // a reading absent until taken: the engine shows no loads that rest on it (shared/engine/readings.ts)
+  z.object({ kind: z.literal('sounding'), pipe: SoundingPipeSchema, soundingM: NonNegative.optional() }),
+  z.object({ kind: z.literal('interfaceSounding'), pipe: SoundingPipeSchema, soundingM: NonNegative.optional() }),
+  z.object({ kind: z.literal('ullage'), reference: Point3Schema, ullageM: NonNegative.optional() }),
   z.object({ kind: z.literal('openToSea') }),
   z.object({ kind: z.literal('point'), point: Point3Schema }),
 ]);
@@ -67,6 +70,7 @@ export const LayerSchema = z.object({
   densityKgM3: z.number().positive().max(2000).optional(),
   /** The top surface of this layer. */
   level: LevelSourceSchema,
+  marks: MarksSchema.optional(),
 });
 export type Layer = z.infer<typeof LayerSchema>;
 
@@ -89,14 +93,17 @@ export const ConditionSchema = z.object({
   id: Id,
   name: z.string().optional(),
   time: z.iso.datetime({ offset: true }),
-  /** Drafts at the marks, m above baseline. Forward and aft are centreline (mean of both sides) values. */
+  /**
+   * Drafts at the marks, m above baseline. Forward and aft are centreline (mean of both sides) values,
+   * absent until read (no loads are shown without them).
+   */
   drafts: z.object({
-    forwardM: z.number(),
-    aftM: z.number(),
+    forwardM: z.number().optional(),
+    aftM: z.number().optional(),
     midPortM: z.number().optional(),
     midStarboardM: z.number().optional(),
   }),
-  /** Inclinometer heel, degrees, positive with starboard down. If absent, taken from the midship drafts, else 0. */
+  /** Inclinometer heel, degrees, positive with starboard down. If absent, taken from the midship drafts; with neither, no loads. */
   heelDeg: z.number().gt(-60).lt(60).optional(),
   /** Sea water density, kg/m³ (default 1025). */
   seaDensityKgM3: z.number().min(990).max(1050).optional(),
@@ -105,6 +112,7 @@ export const ConditionSchema = z.object({
   contents: z.array(ContentsSchema),
   /** Hydrostatic particulars for the ship's response (./stability.ts). */
   stability: ConditionStabilitySchema.optional(),
+  marks: MarksSchema.optional(),
 });
 export type Condition = z.infer<typeof ConditionSchema>;
 
@@ -152,6 +160,7 @@ export const CompartmentSchema = z.object({
   breaches: z.array(BreachSchema).optional(),
   pumps: z.array(PumpSchema).optional(),
   soundingLog: SoundingLogSchema.optional(),
+  marks: MarksSchema.optional(),
 });
 export type Compartment = z.infer<typeof CompartmentSchema>;
 
@@ -217,6 +226,8 @@ export const ShoreSchema = z.object({
   side: z.enum(['A', 'B']),
   /** Angle between the shore's axis and the plate normal, degrees (default 0). */
   angleFromNormalDeg: z.number().min(0).max(75).optional(),
+  /** The column design check (AISC 360 steel, NDS timber, or a design factor); see structure.ts. */
+  design: ShoreDesignSchema.optional(),
 });
 export type Shore = z.infer<typeof ShoreSchema>;
 
@@ -242,8 +253,12 @@ export const BoundarySchema = z.object({
   parentBoundaryId: Id.optional(),
   stiffening: StiffeningSchema.optional(),
   shores: z.array(ShoreSchema).optional(),
+  /** A rating that holds whichever way the net pressure pushes (see directionalCapacity for one per direction). */
   ratedCapacity: RatedCapacitySchema.optional(),
+  directionalCapacity: DirectionalRatingSchema.optional(),
+  plating: PlatingSchema.optional(),
   notes: z.string().optional(),
+  marks: MarksSchema.optional(),
 });
 export type Boundary = z.infer<typeof BoundarySchema>;
 
