@@ -15,6 +15,7 @@ export {
   conditionAtAttitude,
   floodWeightsFromResults,
   responseFromWeights,
+  shipResponseOf,
   LARGE_TRIM_FRACTION,
   SMALL_ANGLE_LIMIT_DEG,
   type FloodWeight,
@@ -23,3 +24,11 @@ export {
   type StabilityWarning,
 } from './stability';
 export { boxBmL, boxBmT, boxKb, intactShip, type IntactShip } from './hydrostatics';
+export {
+  downfloodingFreeboards,
+  measuredAttitude,
+  readingsVersusModel,
+  READING_TOLERANCE,
+  type DownfloodingFreeboard,
+  type ReadingsCheck,
+} from './stability-check';

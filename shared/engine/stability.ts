@@ -400,6 +400,12 @@ export function floodWeightsFromResults(survey: Survey, results: SurveyResults):
   return out;
 }
 
+/** The response of the ship to the contents of the computed condition (null without particulars). */
+export function shipResponseOf(survey: Survey, results: SurveyResults): ShipResponse | null {
+  const condition = survey.conditions.find((c) => c.id === results.conditionId);
+  return condition ? responseFromWeights(survey, condition, floodWeightsFromResults(survey, results)) : null;
+}
+
 /** The condition with the drafts and heel of `attitude` (to compute levels and loads at it). */
 export function conditionAtAttitude(condition: Condition, attitude: ShipAttitude): Condition {
   return {

@@ -5,7 +5,7 @@
  * for a bilged box barge, and a heel from an off-centre weight worked by hand.
  */
 import { describe, expect, it } from 'vitest';
-import { computeSurvey, floodWeightsFromResults, responseFromWeights, type FloodWeight } from '@shared/engine';
+import { computeSurvey, downfloodingFreeboards, floodWeightsFromResults, readingsVersusModel, responseFromWeights, type FloodWeight } from '@shared/engine';
 import type { Compartment, Condition, Survey } from '@shared/schemas/survey';
 import type { BookletParticulars, BoxParticulars } from '@shared/schemas/stability';
 import { baseSurvey, boxCompartment, contents } from '../unit/engine/fixtures';
@@ -192,5 +192,38 @@ describe('heel from an off-centre weight, worked by hand', () => {
     expect(r.gmFluidM).toBeCloseTo(3.12517, 4);
     expect(r.attitude.heelDeg).toBeCloseTo(-2.873, 3);
     expect(r.heelBy).toBe('small-angle');
+  });
+});
+
+describe('readings against the model, and freeboard to downflooding points (box barge, worked by hand)', () => {
+  it('drafts 5.2 m aft and 5.0 m forward on an empty model: about 205 t more, aft of midships', () => {
+    // δT at the LCF (amidships) = 5.1 − 5.0 = 0.1 m → 0.1 m × 100 × 20 m² × 1.025 t/m³ = 205 t (the TPC rule).
+    // Trim 0.2 m by the stern × MCT 1 cm 167.246 t·m/cm × 100 = 3,344.9 t·m → 3,344.9 / 205 = 16.3 m aft of the LCF: x ≈ 33.7 m.
+    const { survey, condition } = barge(100, 20, 5, 6);
+    const read: Condition = { ...condition, drafts: { aftM: 5.2, forwardM: 5.0 }, heelDeg: 0 };
+    const r = responseFromWeights(survey, read, [])!;
+    const check = readingsVersusModel(survey, read, r)!;
+    expect(check.agrees).toBe(false);
+    expect(check.differenceKg / 1000).toBeCloseTo(205, 6);
+    expect(check.x!).toBeCloseTo(50 - (0.2 * 16724.6) / 205, 1);
+    expect(check.message).toBe('The readings suggest about 205 t more water than the spaces modelled, aft of midships.');
+  });
+
+  it('readings that match the model say so', () => {
+    const { survey, condition } = barge(100, 20, 5, 6);
+    const r = responseFromWeights(survey, condition, [])!;
+    expect(readingsVersusModel(survey, condition, r)!.message).toBe('The readings agree with the model within reading accuracy.');
+  });
+
+  it('an air pipe at the starboard after corner, 6 m above base: 1.00 m freeboard now, 0.398 m after 205 t goes 8 m to starboard', () => {
+    // Predicted: mean draft 5.1 m, heel 2.873° to starboard (tan φ = 0.050194, as above but to starboard).
+    // The pipe is 0.9 m above the level waterline at the centreline and 10 m to starboard:
+    // height above the heeled waterplane = (0.9 − 10 × 0.050194) × cos φ = 0.39806 × 0.998742 = 0.39756 m.
+    const { survey, condition } = barge(100, 20, 5, 6);
+    survey.vessel.downfloodingPoints = [{ id: crypto.randomUUID(), name: 'Air pipe, after peak', kind: 'air-pipe', position: { x: 0, y: -10, z: 6 } }];
+    const r = responseFromWeights(survey, condition, [weight(205_000, 50, -8, 4)])!;
+    const [fb] = downfloodingFreeboards(survey, condition, r);
+    expect(fb.presentM).toBeCloseTo(1.0, 9);
+    expect(fb.predictedM!).toBeCloseTo(0.39756, 4);
   });
 });
