@@ -8,6 +8,7 @@ import { z } from 'zod';
 import { catalogueFluid } from '../fluids/catalogue';
 import { CargoStateSchema, SpaceTypeSchema } from './space-types';
 import { SURVEY_LIMITS as L, TEXT_LIMITS, boundedText, capMessage, cappedArray } from './limits';
+import { ConditionStabilitySchema, DownfloodingPointSchema } from './stability';
 import { MarksSchema } from './marks';
 import { DirectionalRatingSchema, PlatingSchema, ShoreDesignSchema } from './structure';
 import { SURVEY_SCHEMA_VERSION, upgradeSurvey } from './upgrade';
@@ -36,6 +37,8 @@ export const VesselSchema = z.object({
     /** Position of the midship marks read on each side for heel, if any. */
     midshipXM: Length.optional(),
   }),
+  /** Openings that would let more water in once under water (the ship's response reports their freeboard). */
+  downfloodingPoints: cappedArray(DownfloodingPointSchema, L.breaches, 'downflooding points').optional(),
 });
 export type Vessel = z.infer<typeof VesselSchema>;
 
@@ -114,6 +117,8 @@ export const ConditionSchema = z.object({
   /** Acceleration of gravity, m/s² (default standard gravity 9.80665). */
   gravityMS2: z.number().min(9.7).max(9.9).optional(),
   contents: cappedArray(ContentsSchema, L.compartments, 'compartments with contents'),
+  /** Hydrostatic particulars for the ship's response (./stability.ts). */
+  stability: ConditionStabilitySchema.optional(),
   marks: MarksSchema.optional(),
 });
 export type Condition = z.infer<typeof ConditionSchema>;
