@@ -27,6 +27,7 @@ export function Field({
   hint,
   children,
   id,
+  extra,
 }: {
   label: string;
   unit?: string;
@@ -34,6 +35,8 @@ export function Field({
   hint?: ReactNode;
   children: ReactNode;
   id: string;
+  /** Shown under the field whatever its state (the figure's "assumed" / "estimated" mark). */
+  extra?: ReactNode;
 }) {
   return (
     <div className="min-w-0">
@@ -49,6 +52,7 @@ export function Field({
           {error}
         </p>
       )}
+      {extra}
     </div>
   );
 }
@@ -62,6 +66,7 @@ export function NumberInput<T extends FieldValues>({
   hint,
   placeholder,
   allowFrames = false,
+  extra,
 }: {
   register: UseFormRegister<T>;
   name: Path<T>;
@@ -72,11 +77,12 @@ export function NumberInput<T extends FieldValues>({
   placeholder?: string;
   /** Accepts "Fr 45" as well as a number (x positions). */
   allowFrames?: boolean;
+  extra?: ReactNode;
 }) {
   const id = useId();
   const err = errorAt(errors, name)?.message;
   return (
-    <Field label={label} unit={unit} error={err} hint={hint} id={id}>
+    <Field label={label} unit={unit} error={err} hint={hint} id={id} extra={extra}>
       <input
         id={id}
         className={inputCls}

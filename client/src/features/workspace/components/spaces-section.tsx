@@ -1,4 +1,5 @@
 /** "Spaces": the compartments, as a box or a prism between two frames, with permeability and openness to the sea. */
+import { MarkChip } from './mark-chip';
 import { useForm } from 'react-hook-form';
 import { useId } from 'react';
 import { CompartmentSchema, type Compartment } from '@shared/schemas/survey';
@@ -105,9 +106,10 @@ function CompartmentEditor({ compartment, surveyId, apply, system }: { compartme
     defaultValues: defaults(compartment, system),
   });
   const state = useAutosave(form, (v) => apply({ kind: 'upsert', collection: 'compartments', entity: v }));
-  const { register, formState, watch } = form;
+  const { register, formState, watch, setValue } = form;
   const kind = watch('kind');
   const spaceType = watch('spaceType');
+  const permeability = watch('permeability');
   const xAft = watch('xAft');
   const xFore = watch('xFore');
   const lu = measureLabel('length', system);
@@ -132,7 +134,16 @@ function CompartmentEditor({ compartment, surveyId, apply, system }: { compartme
           unit=""
           errors={e}
           placeholder={DEFAULT_PERMEABILITY[spaceType]?.toFixed(2)}
-          hint={`empty: published default ${DEFAULT_PERMEABILITY[spaceType]?.toFixed(2)} for this space type`}
+          extra={
+            permeability.trim() === '' ? (
+              <MarkChip
+                mark="assumed"
+                assumedValue={`${DEFAULT_PERMEABILITY[spaceType]?.toFixed(2)}, usual for this space type`}
+                onChange={() => undefined}
+                onConfirm={() => setValue('permeability', DEFAULT_PERMEABILITY[spaceType].toFixed(2), { shouldDirty: true })}
+              />
+            ) : undefined
+          }
         />
       </div>
       <div className="flex items-center gap-2">
