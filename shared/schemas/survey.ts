@@ -8,8 +8,10 @@ import { z } from 'zod';
 import { catalogueFluid } from '../fluids/catalogue';
 import { SpaceTypeSchema } from './space-types';
 import { MarksSchema } from './marks';
+import { DirectionalRatingSchema, PlatingSchema, ShoreDesignSchema } from './structure';
+import { SURVEY_SCHEMA_VERSION, upgradeSurvey } from './upgrade';
 
-export const SURVEY_SCHEMA_VERSION = 1;
+export { SURVEY_SCHEMA_VERSION };
 
 const Id = z.uuid();
 const Length = z.number();
@@ -219,6 +221,8 @@ export const ShoreSchema = z.object({
   side: z.enum(['A', 'B']),
   /** Angle between the shore's axis and the plate normal, degrees (default 0). */
   angleFromNormalDeg: z.number().min(0).max(75).optional(),
+  /** The column design check (AISC 360 steel, NDS timber, or a design factor); see structure.ts. */
+  design: ShoreDesignSchema.optional(),
 });
 export type Shore = z.infer<typeof ShoreSchema>;
 
@@ -244,7 +248,10 @@ export const BoundarySchema = z.object({
   parentBoundaryId: Id.optional(),
   stiffening: StiffeningSchema.optional(),
   shores: z.array(ShoreSchema).optional(),
+  /** A rating that holds whichever way the net pressure pushes (see directionalCapacity for one per direction). */
   ratedCapacity: RatedCapacitySchema.optional(),
+  directionalCapacity: DirectionalRatingSchema.optional(),
+  plating: PlatingSchema.optional(),
   notes: z.string().optional(),
   marks: MarksSchema.optional(),
 });
@@ -295,7 +302,9 @@ function arrayOf<K extends CollectionKey>(key: K) {
 }
 
 const SurveyObjectSchema = z.object({
-  schemaVersion: z.literal(SURVEY_SCHEMA_VERSION),
+  schemaVersion: z.literal(SURVEY_SCHEMA_VERSION, {
+    error: `this app reads survey format version ${SURVEY_SCHEMA_VERSION} and older; a newer version needs an updated app`,
+  }),
   id: Id,
   vesselId: Id.optional(),
   title: z.string().trim().min(1),
@@ -360,6 +369,12 @@ function referenceIssues(s: SurveyObject, add: (issue: { path: (string | number)
 
 export const SurveySchema = SurveyObjectSchema.superRefine((s, ctx) => referenceIssues(s, (issue) => ctx.addIssue({ code: 'custom', ...issue })));
 export type Survey = z.infer<typeof SurveySchema>;
+
+/**
+ * SurveySchema for a document that may be of an older format version (a file, a push from a device
+ * running older code, a stored copy): upgraded first (./upgrade.ts), then validated.
+ */
+export const UpgradingSurveySchema = z.preprocess(upgradeSurvey, SurveySchema);
 
 /**
  * Whether SurveySchema accepts `next`, given that it accepts `prev` and that `next` was made from

@@ -1,6 +1,7 @@
 /** SQL for surveys, their revisions, results, processed changes and conflicts. snake_case stops here. */
 import type { Knex } from 'knex';
 import type { Survey } from '@shared/schemas/survey';
+import { upgradeSurvey } from '@shared/schemas/upgrade';
 import type {
   Conflict,
   ConflictTarget,
@@ -20,6 +21,11 @@ type Q = Knex | Knex.Transaction;
 /** jsonb parameters go as JSON text: node-postgres would turn a JS array into a PostgreSQL array. */
 const json = (v: unknown) => JSON.stringify(v ?? null);
 const iso = (d: Date | string | null | undefined) => (d == null ? null : new Date(d).toISOString());
+/**
+ * A stored document in the current format. The migration of 2026-12-03 upgraded every stored
+ * document; this covers one written meanwhile by an older server. The same object when current.
+ */
+const current = (doc: Survey): Survey => upgradeSurvey(doc) as Survey;
 
 export interface SurveyState {
   id: string;
@@ -44,7 +50,7 @@ interface SurveyRow {
 const toState = (r: SurveyRow): SurveyState => ({
   id: r.id,
   orgId: r.organisation_id,
-  doc: r.doc,
+  doc: current(r.doc),
   revision: r.revision,
   revs: r.field_revisions ?? {},
   status: r.status,
@@ -595,7 +601,7 @@ export async function listSurveysJson(
 
 export async function findSurvey(db: Q, orgId: string, id: string): Promise<(SurveySummary & { doc: Survey }) | undefined> {
   const row = await summaryQuery(db).select('s.doc').where({ 's.id': id, 's.organisation_id': orgId }).first();
-  return row ? { ...toSummary(row as SummaryRow), doc: (row as { doc: Survey }).doc } : undefined;
+  return row ? { ...toSummary(row as SummaryRow), doc: current((row as { doc: Survey }).doc) } : undefined;
 }
 
 /** Latest results' metadata, with the results themselves as their stored JSON text. */
@@ -706,7 +712,8 @@ export async function latestResults(db: Q, surveyId: string, engineVersion: stri
 }
 
 export async function currentDoc(db: Q, id: string): Promise<{ doc: Survey; revision: number } | undefined> {
-  return db('surveys').where({ id }).first('doc', 'revision');
+  const row = (await db('surveys').where({ id }).first('doc', 'revision')) as { doc: Survey; revision: number } | undefined;
+  return row && { doc: current(row.doc), revision: row.revision };
 }
 
 /** The current document when its revision has no results of this engine version yet; undefined otherwise. */
@@ -719,7 +726,7 @@ export async function docNeedingResults(db: Q, id: string, engineVersion: string
         AND NOT EXISTS (SELECT 1 FROM survey_results r WHERE r.survey_id = s.id AND r.revision = s.revision AND r.engine_version = ?)`,
     [id, engineVersion],
   );
-  return rows[0];
+  return rows[0] && { doc: current(rows[0].doc), revision: rows[0].revision };
 }
 
 export async function insertResults(
@@ -761,7 +768,7 @@ export async function surveysChangedSince(
     id: r.id,
     revision: r.revision,
     status: r.status,
-    doc: r.doc,
+    doc: current(r.doc),
     createdBy: { id: r.created_by_id, name: r.created_by_name },
     updatedAt: iso(r.updated_at)!,
     xid: r.xid,

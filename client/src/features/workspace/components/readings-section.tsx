@@ -6,7 +6,7 @@ import { DEFAULT_SEA_DENSITY_KG_M3, HEEL_AGREEMENT_TOLERANCE_DEG } from '@shared
 import { settleMarks, withMark, type FigureMark, type Marks } from '@shared/schemas/marks';
 import { MarkChip } from './mark-chip';
 import { byKey, measureLabel, parseField, showField, unitResolver } from '../utils/form-units';
-import { NumberInput, TextInput, FormError, inputCls, primaryBtn, secondaryBtn, dangerBtn, Field } from './fields';
+import { NumberInput, TextInput, FormError, inputCls, primaryBtn, secondaryBtn, dangerBtn, Field } from '@client/components/ui/fields';
 import { useAutosave } from '../hooks/use-autosave';
 import { SaveIndicator } from './save-indicator';
 import type { Apply, SectionProps } from '../utils/types';
