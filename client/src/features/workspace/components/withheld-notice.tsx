@@ -4,7 +4,7 @@
  */
 import { useSearchParams } from 'react-router';
 import { joinWords, withheldSentence, type SurveyResults } from '@shared/engine';
-import { secondaryBtn } from './fields';
+import { secondaryBtn } from '@client/components/ui/fields';
 
 export function WithheldNotice({ results }: { results: SurveyResults }) {
   const [, setParams] = useSearchParams();
