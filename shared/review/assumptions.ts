@@ -81,7 +81,7 @@ export function figureNotes(survey: Survey, conditionId = survey.activeCondition
   if (condition) conditionNotes(survey, condition, out);
   for (const c of survey.compartments) {
     if (c.permeability === undefined) {
-      out.push({ entityId: c.id, field: 'permeability', mark: 'assumed', what: `Permeability of ${c.name}`, value: `${num(DEFAULT_PERMEABILITY[c.spaceType], 2)} (usual for a ${c.spaceType.replace('-', ' ')} space)` });
+      out.push({ entityId: c.id, field: 'permeability', mark: 'assumed', what: `Permeability of ${c.name}`, value: `${DEFAULT_PERMEABILITY[c.spaceType].toFixed(2)} (usual for a ${c.spaceType.replace('-', ' ')} space)` });
     }
     marked(c.marks, (field, mark) => out.push({ entityId: c.id, field, mark, what: field === 'permeability' ? `Permeability of ${c.name}` : `${field} of ${c.name}`, value: null }));
   }
