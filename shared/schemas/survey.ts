@@ -27,6 +27,8 @@ export type Point3 = z.infer<typeof Point3Schema>;
 export const VesselSchema = z.object({
   name: boundedText(TEXT_LIMITS.name).trim().min(1),
   imo: z.string().regex(/^\d{7}$/, 'IMO number must be 7 digits').optional(),
+  /** The ship's clock: minutes ahead of UTC (negative west), for times said in ship's time. */
+  shipTimeOffsetMin: z.number().int().min(-14 * 60).max(14 * 60).optional(),
   lbpM: PositiveLength,
   breadthM: PositiveLength,
   depthM: PositiveLength,
