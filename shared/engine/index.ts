@@ -1,11 +1,17 @@
 /** Public surface of the load engine: what the app, the server and the CLI import. */
 export { computeSurvey, levelElevation, type ComputeOptions } from './compute-survey';
-export {
-  checkPumpingSequence,
-  type PumpingBoundaryChange,
-  type PumpingCheck,
-  type PumpingStep,
-  type PumpingStepResult,
-} from './pumping';
 export { ENGINE_VERSION } from './version';
 export type * from './results';
+export {
+  applyFloodVariant,
+  forecastFlooding,
+  DEFAULT_HORIZON_H,
+  type BoundaryForecast,
+  type FloodForecast,
+  type FloodVariant,
+  type ForecastOptions,
+  type Governs,
+  type PlanStepForecast,
+  type SpaceForecast,
+} from './flooding';
+export { soundingEvidence, type SoundingEvidence } from './flooding-soundings';

@@ -6,6 +6,7 @@
  */
 import { z } from 'zod';
 import { catalogueFluid } from '../fluids/catalogue';
+import { FloodingSettingsSchema, InternalOpeningSchema, OpeningFaceSchema, OpeningSizeSchema, PumpsRunningSchema } from './flooding';
 import { SpaceTypeSchema } from './space-types';
 
 export const SURVEY_SCHEMA_VERSION = 1;
@@ -99,6 +100,8 @@ export const ConditionSchema = z.object({
   /** Acceleration of gravity, m/s² (default standard gravity 9.80665). */
   gravityMS2: z.number().min(9.7).max(9.9).optional(),
   contents: z.array(ContentsSchema),
+  /** Forecast settings and the pumping plan (shared/schemas/flooding.ts). */
+  flooding: FloodingSettingsSchema.optional(),
 });
 export type Condition = z.infer<typeof ConditionSchema>;
 
@@ -109,17 +112,24 @@ export const BreachSchema = z.object({
   areaM2: z.number().positive(),
   /** Discharge coefficient (default 0.6, sharp-edged orifice). */
   dischargeCoefficient: z.number().gt(0).max(1).optional(),
+  face: OpeningFaceSchema.optional(),
+  size: OpeningSizeSchema.optional(),
 });
 
 export const PumpSchema = z.object({
   id: Id,
   name: z.string(),
   capacityM3S: z.number().nonnegative(),
+  /** Height of the suction above the space's lowest point, m (default 0: the bottom). */
+  suctionHeightM: NonNegative.optional(),
+  /** Whether the pump is running now (default true). */
+  running: z.boolean().optional(),
 });
 
 export const SoundingLogSchema = z.object({
   pipe: SoundingPipeSchema,
-  readings: z.array(z.object({ time: z.iso.datetime({ offset: true }), soundingM: NonNegative })).min(2),
+  /** `pumpIds`: the pumps that ran between the reading before and this one. */
+  readings: z.array(z.object({ time: z.iso.datetime({ offset: true }), soundingM: NonNegative, pumpIds: PumpsRunningSchema.optional() })).min(2),
 });
 
 export const CompartmentGeometrySchema = z.discriminatedUnion('kind', [
@@ -146,6 +156,10 @@ export const CompartmentSchema = z.object({
   breaches: z.array(BreachSchema).optional(),
   pumps: z.array(PumpSchema).optional(),
   soundingLog: SoundingLogSchema.optional(),
+  /** Openings into other compartments (shared/schemas/flooding.ts). */
+  openings: z.array(InternalOpeningSchema).optional(),
+  /** Air-tight, not vented: air trapped above the liquid is compressed as it rises (Boyle's law). */
+  airTight: z.boolean().optional(),
 });
 export type Compartment = z.infer<typeof CompartmentSchema>;
 
