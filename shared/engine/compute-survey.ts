@@ -8,7 +8,9 @@ import { CARGO_PERMEABILITY, defaultPermeability, PERMEABILITY_SOURCE } from '..
 import type { Boundary, BoundarySide, Compartment, LevelSource, Survey } from '../schemas/survey';
 import { earthFrame, HEEL_AGREEMENT_TOLERANCE_DEG, type EarthFrame } from './frame';
 import { missingShipReadings, withheldItems, withheldSentence } from './readings';
-import { DEFAULT_DISCHARGE_COEFFICIENT, leastSquares, orificeFlow, timeToPumpOut } from './inflow';
+import { balanceOpenToSea, spaceInflow } from './flooding-space';
+import { soundingEvidence } from './flooding-soundings';
+import { timeToPumpOut } from './inflow';
 import { clipHalfPlane } from './plane-integrals';
 import {
   childAsHole,
@@ -58,6 +60,8 @@ export interface ComputeOptions {
   conditionId?: string;
   /** Leave out load diagrams (smaller results for batch checks). Default true. */
   includeLoadDiagrams?: boolean;
+  /** Leave out the per-compartment inflow and pump-out figures (the forecast has its own). Default true. */
+  includeInflow?: boolean;
 }
 
 interface ResolvedFluid {
@@ -133,10 +137,24 @@ export function computeSurvey(survey: Survey, options: ComputeOptions = {}): Sur
     let prevTop = -Infinity;
     const liquid = acc();
     const centroidXY: V3 = gross.volume > 0 ? [gross.mx / gross.volume, gross.my / gross.volume, gross.mz / gross.volume] : [0, 0, 0];
+    const densityOf = (layer: (typeof layersIn)[number]) =>
+      layer.densityKgM3 ?? (layer.fluidId === 'sea-water' && !survey.fluids.some((f) => f.id === 'sea-water') ? frame.seaDensityKgM3 : fluids(layer.fluidId).densityKgM3);
+    let tops = layersIn.map((layer) => levelElevation(layer.level, frame));
+    const open = layersIn.findIndex((l) => l.level.kind === 'openToSea');
+    if (open >= 0) {
+      // in balance with the sea at the opening, any oil or gas on top included
+      const openings = (comp.breaches ?? []).map((b) => dot(up, fromPoint(b.position)));
+      tops = balanceOpenToSea(tops, layersIn.map(densityOf), open, pGas, openings.length > 0 ? Math.min(...openings) : eBottom, [eBottom, eTop], (eta) => below(eta).volume, {
+        up,
+        waterlineElevationM: frame.waterlineElevation,
+        seaDensityKgM3: frame.seaDensityKgM3,
+        g,
+      });
+    }
     layersIn.forEach((layer, i) => {
       const fluid = fluids(layer.fluidId);
-      const density = layer.densityKgM3 ?? (layer.fluidId === 'sea-water' && !survey.fluids.some((f) => f.id === 'sea-water') ? frame.seaDensityKgM3 : fluid.densityKgM3);
-      let top = levelElevation(layer.level, frame);
+      const density = densityOf(layer);
+      let top = tops[i];
       if (top < prevTop) {
         warn('level-order', 'warning', layer.id, `${comp.name}: layer ${i + 1} (${fluid.name}) has its surface below the layer beneath it; taken as empty`);
         top = prevTop;
@@ -182,7 +200,7 @@ export function computeSurvey(survey: Survey, options: ComputeOptions = {}): Sur
     const profile = layeredProfile(levels, pGas, g);
     profiles.set(comp.id, profile);
 
-    const inflow = compartmentInflow(comp, profile, frame, permeability, below, liquid.volume, warn);
+    const inflow = options.includeInflow === false ? null : compartmentInflow(comp, layerResults, pGas, frame, permeability, below, liquid.volume, warn);
     if (inflow) {
       totalInflow += inflow.inflowUsedM3S;
       totalPumps += inflow.pumpCapacityM3S;
@@ -385,7 +403,8 @@ function finishAcc(a: Acc): Aggregate {
 
 function compartmentInflow(
   comp: Compartment,
-  profile: PressureProfile,
+  layers: readonly LayerResult[],
+  pGas: number,
   frame: EarthFrame,
   permeability: number,
   below: (eta: number) => VolumeMoments,
@@ -393,40 +412,47 @@ function compartmentInflow(
   warn: (code: string, s: Severity, id: string | null, m: string) => void,
 ): InflowResult | null {
   const breaches = comp.breaches ?? [];
-  const pumps = comp.pumps ?? [];
+  const pumps = (comp.pumps ?? []).filter((p) => p.running !== false);
   if (breaches.length === 0 && pumps.length === 0 && !comp.soundingLog) return null;
   const rhoSea = frame.seaDensityKgM3;
-  const out: InflowResult['breaches'] = [];
-  let orifice = 0;
-  for (const br of breaches) {
+  const profile = layeredProfile(layers.map((l) => ({ top: l.levelElevationM, densityKgM3: l.densityKgM3 })), pGas, frame.g);
+  // the flooding model's orifice law: the fluid present upstream flows, over the opening's height
+  const now = spaceInflow(
+    comp,
+    { up: frame.up, waterlineElevationM: frame.waterlineElevation, seaDensityKgM3: rhoSea, g: frame.g },
+    permeability,
+    layers.map((l) => ({ fluidId: l.fluidId, name: l.fluidName, category: l.category, densityKgM3: l.densityKgM3, volumeM3: l.volumeM3 })),
+    pGas,
+  );
+  const out: InflowResult['breaches'] = breaches.map((br, i) => {
     const e = dot(frame.up, fromPoint(br.position));
     const pOut = rhoSea * frame.g * Math.max(0, frame.waterlineElevation - e);
-    const pIn = evalProfile(profile, e);
-    const q = orificeFlow(br.areaM2, br.dischargeCoefficient ?? DEFAULT_DISCHARGE_COEFFICIENT, pOut, pIn, rhoSea);
-    out.push({ id: br.id, headM: (pOut - pIn) / (rhoSea * frame.g), flowM3S: q });
-    orifice += q;
-  }
-  let measured: InflowResult['measured'] = null;
-  if (comp.soundingLog) {
-    const log = comp.soundingLog;
-    const t0 = Date.parse(log.readings[0].time);
-    const ts: number[] = [];
-    const vs: number[] = [];
-    const readings = log.readings.map((r) => {
-      const eta = dot(frame.up, [log.pipe.x, log.pipe.y, log.pipe.bottomZM + r.soundingM]);
-      const v = below(eta).volume * permeability;
-      ts.push((Date.parse(r.time) - t0) / 1000);
-      vs.push(v);
-      return { time: r.time, volumeM3: v };
-    });
-    const fit = leastSquares(ts, vs);
-    measured = { inflowM3S: fit.slope, r2: fit.r2, readings };
-  }
+    return { id: br.id, headM: (pOut - evalProfile(profile, e)) / (rhoSea * frame.g), flowM3S: now.breaches[i].flowM3S };
+  });
+  const orifice = now.orificeInflowM3S;
+  const evidence = soundingEvidence(comp, (soundingM) => {
+    const log = comp.soundingLog!;
+    return below(dot(frame.up, [log.pipe.x, log.pipe.y, log.pipe.bottomZM + soundingM])).volume * permeability;
+  }, orifice);
+  const measured: InflowResult['measured'] = evidence
+    ? {
+        inflowM3S: evidence.grossInflowM3S,
+        netRiseM3S: evidence.netRiseM3S,
+        r2: evidence.r2,
+        readings: evidence.readings,
+        ratio: evidence.ratio,
+        disagree: evidence.disagree,
+      }
+    : null;
   const pumpCapacity = pumps.reduce((s, p) => s + p.capacityM3S, 0);
   const inflowUsed = measured ? measured.inflowM3S : orifice;
-  const t = timeToPumpOut(liquidVolume, pumpCapacity, inflowUsed);
+  // with breaches the inflow grows as the level falls: the model's run; with only a measured rate, that rate held
+  const t = breaches.length > 0 ? now.timeToPumpOutS : timeToPumpOut(liquidVolume, pumpCapacity, inflowUsed);
   if (pumpCapacity > 0 && t === null) {
-    warn('pumps-behind', 'danger', comp.id, `${comp.name}: pumps (${(pumpCapacity * 3600).toFixed(0)} m³/h) cannot keep up with the inflow (${(inflowUsed * 3600).toFixed(0)} m³/h)`);
+    warn('pumps-behind', 'danger', comp.id, `${comp.name}: pumps (${(pumpCapacity * 3600).toFixed(0)} m³/h) do not pump the space out against the inflow (${(inflowUsed * 3600).toFixed(0)} m³/h now)`);
+  }
+  if (evidence?.disagree) {
+    warn('inflow-disagrees', 'warning', comp.id, `${comp.name}: the soundings show ${(evidence.grossInflowM3S * 3600).toFixed(0)} m³/h coming in, the breaches entered explain ${(orifice * 3600).toFixed(0)} m³/h: an unknown breach, or a wrong area`);
   }
   return {
     breaches: out,

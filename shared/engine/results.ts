@@ -70,14 +70,29 @@ export interface InflowResult {
   breaches: { id: string; headM: number; flowM3S: number }[];
   /** Sum of orifice flows, m³/s (positive = into the compartment). */
   orificeInflowM3S: number;
-  /** From the sounding log: least-squares slope of liquid volume against time. */
-  measured: { inflowM3S: number; r2: number; readings: { time: string; volumeM3: number }[] } | null;
+  /**
+   * From the sounding log: the least-squares slope of liquid volume against time with the pumps that
+   * ran added back (inflowM3S), the net rise as read, the fit's r² and residuals, and whether it
+   * disagrees with the orifice inflow (ratio measured / orifice) by more than a factor of 2.
+   */
+  measured: {
+    inflowM3S: number;
+    netRiseM3S: number;
+    r2: number;
+    readings: { time: string; volumeM3: number; pumpedSinceM3: number; residualM3: number }[];
+    ratio: number | null;
+    disagree: boolean;
+  } | null;
   pumpCapacityM3S: number;
   /** Inflow used for the pumping estimate: the measured one if there is a log, else the orifice estimate. */
   inflowUsedM3S: number;
   /** pumps − inflow, m³/s. */
   netRemovalM3S: number;
-  /** Seconds to pump the present liquid out, or null if the pumps cannot gain on the inflow. */
+  /**
+   * Seconds until the running pumps uncover their suction, the inflow growing as the level falls
+   * (the flooding model, other spaces held); with no breach entered, against the measured rate held.
+   * Null if they do not within 48 h.
+   */
   timeToPumpOutS: number | null;
 }
 
