@@ -29,10 +29,10 @@ const GX = [-Math.sqrt(3 / 5), 0, Math.sqrt(3 / 5)];
 const GW = [5 / 9, 8 / 9, 5 / 9];
 
 /**
- * Solves the beam. s: ascending stations from 0 to L; q: load at each station (linear between).
+ * Solves the beam. s: ascending stations from 0 to L; q: load at each station (linear between);
+ * n: how many stations of s and q to use (all by default).
  */
-export function solveBeam(s: readonly number[], q: readonly number[], fixity: EndFixity): BeamResult {
-  const n = s.length;
+export function solveBeam(s: ArrayLike<number>, q: ArrayLike<number>, fixity: EndFixity, n = s.length): BeamResult {
   const L = s[n - 1] - s[0];
   let W = 0, Ms = 0, fa = 0, fb = 0;
   for (let i = 0; i + 1 < n; i++) {
@@ -82,7 +82,8 @@ export function solveBeam(s: readonly number[], q: readonly number[], fixity: En
     } else if (qa !== 0) {
       r1 = V / qa;
     }
-    for (const r of [r1, r2]) {
+    for (let j = 0; j < 2; j++) {
+      const r = j === 0 ? r1 : r2;
       if (r > 0 && r < h) {
         const mr = M + V * r - (qa * r * r) / 2 - (m * r * r * r) / 6;
         if (Math.abs(mr) > Math.abs(best)) {

@@ -19,7 +19,9 @@ import {
   newPlateIntegration,
   plateToShip,
   polygonPlate,
+  newScratchPlate,
   polygonPlateXYZ,
+  sortSmall,
   stripMomentsInto,
   type FlatPlate,
   type PartLoad,
@@ -32,6 +34,7 @@ import { constantProfile, differenceProfile, layeredProfile, type PressureProfil
 import type {
   Aggregate,
   BoundaryResult,
+  BoundarySummary,
   CapacityResult,
   CompartmentResult,
   EngineWarning,
@@ -46,7 +49,10 @@ import type {
   StiffenerItem,
   StiffenerResult,
   SurveyResults,
+  SurveySummary,
+  BoundaryTable,
 } from './results';
+import { newBoundaryTable, setBoundaryRow } from './boundary-table';
 import { EFFECTIVE_LENGTH_FACTOR, eulerLoad, sectionProperties, SHORE_SLENDERNESS_LIMIT } from './shore';
 import { add, cross, dot, fromPoint, norm, scale, sub, toPoint, unit, type V3 } from './vec';
 import { ENGINE_VERSION } from './version';
@@ -54,7 +60,10 @@ import { ENGINE_VERSION } from './version';
 export interface ComputeOptions {
   /** Condition to compute (default: survey.activeConditionId). */
   conditionId?: string;
-  /** Leave out load diagrams (smaller results for batch checks). Default true. */
+  /**
+   * Include each flat boundary's load diagram. Default false: a diagram is bulky (about a third of
+   * a large vessel's results) and only the boundary being viewed needs one (computeBoundaryDetail).
+   */
   includeLoadDiagrams?: boolean;
 }
 
@@ -66,8 +75,13 @@ interface ResolvedFluid {
 
 const NULL_POINT_TOL = 1e-12;
 
-export function computeSurvey(survey: Survey, options: ComputeOptions = {}): SurveyResults {
-  const conditionId = options.conditionId ?? survey.activeConditionId;
+/**
+ * Everything of one condition that the boundaries need: the earth frame, each compartment's
+ * results and pressure profile, the flat plates of parents and their openings, and the warnings so
+ * far. Built once per computation, whichever of the three entry points asked.
+ */
+function prepareCondition(survey: Survey, conditionIdIn: string | undefined) {
+  const conditionId = conditionIdIn ?? survey.activeConditionId;
   const condition = survey.conditions.find((c) => c.id === conditionId);
   if (!condition) throw new Error(`computeSurvey: no condition with id ${conditionId}`);
   const warnings: EngineWarning[] = [];
@@ -226,35 +240,47 @@ export function computeSurvey(survey: Survey, options: ComputeOptions = {}): Sur
     return net;
   };
 
-  const withDiagrams = options.includeLoadDiagrams !== false;
-  const boundaryResults: BoundaryResult[] = [];
-  let maxU: number | null = null;
-  let maxUId: string | null = null;
-  const over: string[] = [];
-  for (const b of survey.boundaries) {
-    const pa = sideProfile(b.sideA), pb = sideProfile(b.sideB);
-    const net = netProfile(pa, pb);
-    const r =
-      b.geometry.kind === 'faceted'
-        ? facetedBoundary(b, b.geometry.facets.map((f) => f.vertices.map(fromPoint)), pa, pb, net, frame, warn)
-        : flatBoundary(b, plates.get(b.id) ?? buildFlat(b.geometry, up, false) ?? undefined, pa, pb, net, frame, openings.get(b.id) ?? [], withDiagrams, warn);
-    if (!r) continue;
-    boundaryResults.push(r);
-    if (r.maxUtilisation !== null) {
-      if (maxU === null || r.maxUtilisation > maxU) {
-        maxU = r.maxUtilisation;
-        maxUId = b.id;
-      }
-      if (r.maxUtilisation > 1) {
-        over.push(b.id);
-        warn('over-capacity', 'danger', b.id, `${b.name}: utilisation ${(100 * r.maxUtilisation).toFixed(0)} % exceeds capacity`);
-      }
-    }
-  }
 
+  return { survey, condition, frame, up, g, warnings, warn, compartmentResults, ship, totalInflow, totalPumps, sideProfile, netProfile, plates, openings };
+}
+
+type Prepared = ReturnType<typeof prepareCondition>;
+
+/** The full result of one boundary (load diagram when asked), or null when it has no area. */
+function boundaryResultOf(p: Prepared, b: Boundary, withDiagram: boolean, warn: Warn): BoundaryResult | null {
+  const pa = p.sideProfile(b.sideA), pb = p.sideProfile(b.sideB);
+  const net = p.netProfile(pa, pb);
+  return b.geometry.kind === 'faceted'
+    ? facetedBoundary(b, b.geometry.facets.map((f) => f.vertices.map(fromPoint)), pa, pb, net, p.frame, warn)
+    : flatBoundary(b, p.plates.get(b.id)?.plate ?? scratchFlat(b.geometry, p.up) ?? undefined, pa, pb, net, p.frame, p.openings.get(b.id) ?? [], withDiagram, warn);
+}
+
+/** Survey-level maximum utilisation and the over-capacity list and warnings, as boundaries are added. */
+function utilisationTally(warn: Warn) {
+  const t = {
+    maxU: null as number | null,
+    maxUId: null as string | null,
+    over: [] as string[],
+    add(id: string, name: string, u: number | null): void {
+      if (u === null) return;
+      if (t.maxU === null || u > t.maxU) {
+        t.maxU = u;
+        t.maxUId = id;
+      }
+      if (u > 1) {
+        t.over.push(id);
+        warn('over-capacity', 'danger', id, `${name}: utilisation ${(100 * u).toFixed(0)} % exceeds capacity`);
+      }
+    },
+  };
+  return t;
+}
+
+/** The survey-level parts shared by the full and the summary results. */
+function surveyLevel(p: Prepared, tally: ReturnType<typeof utilisationTally>) {
+  const { ship, frame, condition, survey } = p;
   const all = acc();
   for (const a of [ship.water, ship.oil, ship.other]) if (a.mass > 0) addAcc(all, a.volume, a.mass, { x: a.mx / a.mass, y: a.my / a.mass, z: a.mz / a.mass });
-
   return {
     engineVersion: ENGINE_VERSION,
     surveyId: survey.id,
@@ -265,25 +291,131 @@ export function computeSurvey(survey: Survey, options: ComputeOptions = {}): Sur
       trimDeg: frame.trimDeg,
       trimM: frame.trimM,
       heelSource: frame.heelSource,
-      up: toPoint(up),
+      up: toPoint(frame.up),
       waterlinePoint: toPoint(frame.waterlinePoint),
       waterlineElevationM: frame.waterlineElevation,
       seaDensityKgM3: frame.seaDensityKgM3,
-      gravityMS2: g,
+      gravityMS2: frame.g,
     },
-    compartments: compartmentResults,
-    boundaries: boundaryResults,
+    compartments: p.compartmentResults,
     ship: { floodWater: finishAcc(ship.water), oil: finishAcc(ship.oil), other: finishAcc(ship.other), allLiquids: finishAcc(all) },
     summary: {
-      maxUtilisation: maxU,
-      maxUtilisationBoundaryId: maxUId,
-      overCapacityBoundaryIds: over,
-      totalInflowM3S: totalInflow,
-      totalPumpCapacityM3S: totalPumps,
+      maxUtilisation: tally.maxU,
+      maxUtilisationBoundaryId: tally.maxUId,
+      overCapacityBoundaryIds: tally.over,
+      totalInflowM3S: p.totalInflow,
+      totalPumpCapacityM3S: p.totalPumps,
     },
-    warnings,
+    warnings: p.warnings,
   };
 }
+
+/**
+ * Full results of one condition: every compartment and every boundary with all its detail
+ * (sides, net resultant and its parts, stiffeners, shores; load diagrams only when asked).
+ * What the server stores and the desk compares. Units SI throughout (see results.ts).
+ */
+export function computeSurvey(survey: Survey, options: ComputeOptions = {}): SurveyResults {
+  const p = prepareCondition(survey, options.conditionId);
+  const withDiagrams = options.includeLoadDiagrams === true;
+  const tally = utilisationTally(p.warn);
+  const boundaryResults: BoundaryResult[] = [];
+  for (const b of survey.boundaries) {
+    const r = boundaryResultOf(p, b, withDiagrams, p.warn);
+    if (!r) continue;
+    boundaryResults.push(r);
+    tally.add(b.id, b.name, r.maxUtilisation);
+  }
+  const level = surveyLevel(p, tally);
+  return { ...level, boundaries: boundaryResults };
+}
+
+/**
+ * The lean results a screen needs on every edit: the same survey-level figures, compartments,
+ * totals, utilisations and warnings as computeSurvey, but each boundary as one flat row of
+ * headline numbers (BoundarySummary) instead of its full detail, so a large vessel's results stay
+ * small (no per-boundary points, parts, stiffener items or diagrams). Every number in it equals
+ * the corresponding number of computeSurvey (summariseBoundary). For repeated computation
+ * (forecasts, pumping plans) and the device's per-edit path; open one boundary's detail with
+ * computeBoundaryDetail.
+ */
+export function computeSurveySummary(survey: Survey, options: Pick<ComputeOptions, 'conditionId'> = {}): SurveySummary {
+  const p = prepareCondition(survey, options.conditionId);
+  const tally = utilisationTally(p.warn);
+  const table = newBoundaryTable(survey.boundaries.length);
+  let k = 0;
+  for (const b of survey.boundaries) {
+    let written: boolean;
+    if (b.geometry.kind === 'faceted') {
+      const r = boundaryResultOf(p, b, false, p.warn);
+      if (r) setBoundaryRow(table, k, summariseBoundary(r, b));
+      written = r !== null;
+    } else {
+      const pa = p.sideProfile(b.sideA), pb = p.sideProfile(b.sideB);
+      written = flatSummary(b, p.plates.get(b.id)?.plate ?? scratchFlat(b.geometry, p.up) ?? undefined, pa, pb, p.netProfile(pa, pb), p.warn, table, k);
+    }
+    if (!written) continue;
+    const u = table.maxUtilisation[k];
+    tally.add(b.id, b.name, Number.isNaN(u) ? null : u);
+    k++;
+  }
+  table.length = k;
+  return { ...surveyLevel(p, tally), boundaries: table };
+}
+
+/**
+ * One boundary in full, load diagram included, for the boundary being viewed: equal to its entry
+ * in computeSurvey(survey, { includeLoadDiagrams: true }). Null when the boundary is unknown or
+ * has no area.
+ */
+export function computeBoundaryDetail(survey: Survey, boundaryId: string, options: Pick<ComputeOptions, 'conditionId'> = {}): BoundaryResult | null {
+  const b = survey.boundaries.find((x) => x.id === boundaryId);
+  if (!b) return null;
+  const p = prepareCondition(survey, options.conditionId);
+  return boundaryResultOf(p, b, true, () => {});
+}
+
+/**
+ * A full boundary result reduced to its summary row (the desk shows stored full results in the
+ * same table as the device's summaries). `b` gives the sides as the survey states them.
+ */
+export function summariseBoundary(r: BoundaryResult, b: Pick<Boundary, 'sideA' | 'sideB'>): BoundarySummary {
+  const n = r.net, cop = n.centreOfPressure;
+  return {
+    id: r.id,
+    name: r.name,
+    kind: r.kind,
+    geometryKind: r.geometryKind,
+    parentBoundaryId: r.parentBoundaryId,
+    sideA: b.sideA,
+    sideB: b.sideB,
+    areaM2: r.areaM2,
+    forceN: n.forceN,
+    resultantN: n.resultantN,
+    forceX: n.forceVector.x,
+    forceY: n.forceVector.y,
+    forceZ: n.forceVector.z,
+    copX: cop ? cop.x : null,
+    copY: cop ? cop.y : null,
+    copZ: cop ? cop.z : null,
+    normalX: r.normal ? r.normal.x : null,
+    normalY: r.normal ? r.normal.y : null,
+    normalZ: r.normal ? r.normal.z : null,
+    peakPressurePa: n.peak.pressurePa,
+    signChange: n.signChange,
+    capacityUtilisation: r.capacity ? r.capacity.utilisation : null,
+    stiffenerUtilisation: r.stiffeners ? r.stiffeners.maxUtilisation : null,
+    shoreUtilisation: maxShoreUtilisation(r.shores),
+    maxUtilisation: r.maxUtilisation,
+  };
+}
+
+function maxShoreUtilisation(shores: readonly ShoreResult[]): number | null {
+  let m: number | null = null;
+  for (let i = 0; i < shores.length; i++) m = maxOf(shores[i].utilisation, undefined, m);
+  return m;
+}
+
 
 // ---------------------------------------------------------------- helpers
 
@@ -404,7 +536,19 @@ function compartmentInflow(
   };
 }
 
-const rectXYZ = new Array<number>(12);
+const rectXYZ = new Float64Array(12);
+
+/** A rectangle's corners o, o + eu, (o + eu) + ev, o + ev as x, y, z triples (scratch). */
+function rectangleXYZ(geom: Extract<Boundary['geometry'], { kind: 'rectangle' }>): Float64Array {
+  const o = geom.origin, eu = geom.edgeU, ev = geom.edgeV;
+  const ax = o.x + eu.x, ay = o.y + eu.y, az = o.z + eu.z;
+  const r = rectXYZ;
+  r[0] = o.x; r[1] = o.y; r[2] = o.z;
+  r[3] = ax; r[4] = ay; r[5] = az;
+  r[6] = ax + ev.x; r[7] = ay + ev.y; r[8] = az + ev.z;
+  r[9] = o.x + ev.x; r[10] = o.y + ev.y; r[11] = o.z + ev.z;
+  return r;
+}
 
 /**
  * The flat plate of a boundary, and its 3D outline when `withOutline` (needed only to cut a child
@@ -417,14 +561,7 @@ function buildFlat(geom: Exclude<Boundary['geometry'], { kind: 'faceted' }>, up:
       return { plate: polygonPlate(pts, up), pts };
     }
     case 'rectangle': {
-      const o = geom.origin, eu = geom.edgeU, ev = geom.edgeV;
-      // corners o, o + eu, (o + eu) + ev, o + ev
-      const ax = o.x + eu.x, ay = o.y + eu.y, az = o.z + eu.z;
-      const r = rectXYZ;
-      r[0] = o.x; r[1] = o.y; r[2] = o.z;
-      r[3] = ax; r[4] = ay; r[5] = az;
-      r[6] = ax + ev.x; r[7] = ay + ev.y; r[8] = az + ev.z;
-      r[9] = o.x + ev.x; r[10] = o.y + ev.y; r[11] = o.z + ev.z;
+      const r = rectangleXYZ(geom);
       const pts: V3[] | null = withOutline ? [[r[0], r[1], r[2]], [r[3], r[4], r[5]], [r[6], r[7], r[8]], [r[9], r[10], r[11]]] : null;
       return { plate: polygonPlateXYZ(r, 4, up), pts };
     }
@@ -432,6 +569,45 @@ function buildFlat(geom: Exclude<Boundary['geometry'], { kind: 'faceted' }>, up:
       if (norm(fromPoint(geom.normal)) === 0) return null;
       return { plate: circlePlate(fromPoint(geom.centre), fromPoint(geom.normal), geom.radiusM, up), pts: null };
   }
+}
+
+const scratchPolygon = newScratchPlate('polygon');
+const scratchCircle = newScratchPlate('circle');
+
+/**
+ * The flat plate of a boundary built into scratch space (valid until the next call): for the
+ * plates the main loop builds, uses and drops. Null for a circle with no normal.
+ */
+function scratchFlat(geom: Exclude<Boundary['geometry'], { kind: 'faceted' }>, up: V3): FlatPlate | null {
+  switch (geom.kind) {
+    case 'polygon': {
+      const v = geom.vertices;
+      if (polyXYZ.length < 3 * v.length) polyXYZ = new Float64Array(6 * v.length);
+      for (let i = 0; i < v.length; i++) {
+        polyXYZ[3 * i] = v[i].x;
+        polyXYZ[3 * i + 1] = v[i].y;
+        polyXYZ[3 * i + 2] = v[i].z;
+      }
+      return polygonPlateXYZ(polyXYZ, v.length, up, scratchPolygon);
+    }
+    case 'rectangle':
+      return polygonPlateXYZ(rectangleXYZ(geom), 4, up, scratchPolygon);
+    case 'circle': {
+      const nm = geom.normal;
+      if (Math.sqrt(nm.x * nm.x + nm.y * nm.y + nm.z * nm.z) === 0) return null;
+      setV3(circleC, geom.centre.x, geom.centre.y, geom.centre.z);
+      setV3(circleN, nm.x, nm.y, nm.z);
+      return circlePlate(circleC, circleN, geom.radiusM, up, scratchCircle);
+    }
+  }
+}
+let polyXYZ = new Float64Array(48);
+const circleC: V3 = [0, 0, 0];
+const circleN: V3 = [0, 0, 0];
+function setV3(a: V3, x: number, y: number, z: number): void {
+  a[0] = x;
+  a[1] = y;
+  a[2] = z;
 }
 
 function sideResult(side: BoundarySide, profile: PressureProfile, forceN: number, peak: number, wetted: number): SideResult {
@@ -514,22 +690,22 @@ const scratchIntegration = newPlateIntegration();
 
 type Warn = (code: string, s: Severity, id: string | null, m: string) => void;
 
-function flatBoundary(
+/**
+ * Integrates a flat boundary into the shared scratch integration, with the plate's warnings.
+ * Null when the plate has no area.
+ */
+function flatIntegration(
   b: Boundary,
-  built: { plate: FlatPlate; pts: V3[] | null } | undefined,
+  plate: FlatPlate | undefined,
   pa: PressureProfile,
   pb: PressureProfile,
   net: PressureProfile,
-  frame: EarthFrame,
-  openingIds: string[],
-  withDiagram: boolean,
   warn: Warn,
-): BoundaryResult | null {
-  if (!built) {
+): { plate: FlatPlate; it: PlateIntegration } | null {
+  if (!plate) {
     warn('degenerate', 'warning', b.id, `${b.name}: the plate has no area (zero normal); not computed`);
     return null;
   }
-  const { plate } = built;
   const size = Math.max(plate.vMax - plate.vMin, 1e-9);
   if (plate.planarityErrorM > 1e-3 * size && plate.planarityErrorM > 1e-4) {
     warn('non-planar', 'warning', b.id, `${b.name}: vertices stray up to ${(plate.planarityErrorM * 1000).toFixed(1)} mm from the mean plane; loads are for that plane (model it as faceted if it is curved)`);
@@ -539,18 +715,44 @@ function flatBoundary(
     warn('degenerate', 'warning', b.id, `${b.name}: the plate has no area (self-intersecting or collinear vertices); not computed`);
     return null;
   }
-  const netRes = flatNet(plate, it, frame.up);
-  if (netRes.signChange) {
-    warn('sign-change', 'info', b.id, `${b.name}: net pressure reverses across the plate (${(netRes.positive.forceN / 1000).toFixed(1)} kN towards side B, ${(-netRes.negative.forceN / 1000).toFixed(1)} kN towards side A)`);
+  if (it.positive.forceN !== 0 && it.negative.forceN !== 0) {
+    warn('sign-change', 'info', b.id, `${b.name}: net pressure reverses across the plate (${(it.positive.forceN / 1000).toFixed(1)} kN towards side B, ${(-it.negative.forceN / 1000).toFixed(1)} kN towards side A)`);
   }
-  const stiffeners = b.stiffening ? stiffenerLoads(b, plate, net, it.cuts) : null;
+  return { plate, it };
+}
+
+/** The structural checks of a flat boundary: rated capacity, stiffeners, shores, and the largest utilisation. */
+function flatChecks(b: Boundary, plate: FlatPlate, it: PlateIntegration, net: PressureProfile, warn: Warn) {
+  const stiffeners = b.stiffening ? stiffenerLoads(b, plate, net, it.cuts, it.nCuts) : null;
   if (stiffeners && stiffeners.maxUtilisation > 1) {
     warn('stiffener-overstressed', 'danger', b.id, `${b.name}: stiffener bending at ${(100 * stiffeners.maxUtilisation).toFixed(0)} % of allowable`);
   }
-  const shores = b.shores && b.shores.length > 0 ? shoreLoads(b, plate, net, it.cuts, warn) : [];
-  const capacity = capacityOf(b, netRes);
+  const shores = b.shores && b.shores.length > 0 ? shoreLoads(b, plate, net, it.cuts, it.nCuts, warn) : [];
+  const capacity = capacityOf(b, peakOf(it), Math.abs(it.netForceN));
   let maxU = maxOf(capacity ? capacity.utilisation : undefined, stiffeners ? stiffeners.maxUtilisation : undefined, null);
-  for (let i = 0; i < shores.length; i++) maxU = maxOf(shores[i].utilisation, undefined, maxU);
+  maxU = maxOf(maxShoreUtilisation(shores) ?? undefined, undefined, maxU);
+  return { stiffeners, shores, capacity, maxU };
+}
+
+/** Net pressure of largest magnitude on a flat plate (the minimum when it is larger in magnitude). */
+const peakOf = (it: PlateIntegration): number => (Math.abs(it.peakMinPa) > Math.abs(it.peakMaxPa) ? it.peakMinPa : it.peakMaxPa);
+
+function flatBoundary(
+  b: Boundary,
+  plateIn: FlatPlate | undefined,
+  pa: PressureProfile,
+  pb: PressureProfile,
+  net: PressureProfile,
+  frame: EarthFrame,
+  openingIds: string[],
+  withDiagram: boolean,
+  warn: Warn,
+): BoundaryResult | null {
+  const flat = flatIntegration(b, plateIn, pa, pb, net, warn);
+  if (!flat) return null;
+  const { plate, it } = flat;
+  const netRes = flatNet(plate, it, frame.up);
+  const { stiffeners, shores, capacity, maxU } = flatChecks(b, plate, it, net, warn);
   const fr = plate.frame;
   const n = fr.n;
   return {
@@ -567,13 +769,64 @@ function flatBoundary(
     sideA: sideResult(b.sideA, pa, it.sideForceA, it.sidePeakA, it.sideWettedA),
     sideB: sideResult(b.sideB, pb, it.sideForceB, it.sidePeakB, it.sideWettedB),
     net: netRes,
-    loadDiagram: withDiagram ? loadDiagram(plate, net, it.cuts) : [],
+    loadDiagram: withDiagram ? loadDiagram(plate, net, it.cuts, it.nCuts) : [],
     facets: null,
     stiffeners,
     shores,
     capacity,
     maxUtilisation: maxU,
   };
+}
+
+/**
+ * A flat boundary's summary written into row k of the table straight from its integration (the
+ * same arithmetic as flatNet and platePoint, without building the full result's objects). False
+ * when the plate has no area.
+ */
+function flatSummary(
+  b: Boundary,
+  plateIn: FlatPlate | undefined,
+  pa: PressureProfile,
+  pb: PressureProfile,
+  net: PressureProfile,
+  warn: Warn,
+  t: BoundaryTable,
+  k: number,
+): boolean {
+  const flat = flatIntegration(b, plateIn, pa, pb, net, warn);
+  if (!flat) return false;
+  const { plate, it } = flat;
+  const { stiffeners, shores, capacity, maxU } = flatChecks(b, plate, it, net, warn);
+  const fr = plate.frame, n = fr.n, o = fr.origin, U = fr.u, W = fr.v;
+  const F = it.netForceN;
+  const hasCop = F !== 0;
+  const cu = it.netMomentU / F, cv = it.netMomentV / F;
+  t.id[k] = b.id;
+  t.name[k] = b.name;
+  t.kind[k] = b.kind;
+  t.geometryKind[k] = b.geometry.kind;
+  t.parentBoundaryId[k] = b.parentBoundaryId ?? null;
+  t.sideA[k] = b.sideA;
+  t.sideB[k] = b.sideB;
+  t.areaM2[k] = it.areaM2;
+  t.forceN[k] = F;
+  t.resultantN[k] = Math.abs(F);
+  t.forceX[k] = n[0] * F;
+  t.forceY[k] = n[1] * F;
+  t.forceZ[k] = n[2] * F;
+  t.copX[k] = hasCop ? o[0] + cu * U[0] + cv * W[0] : NaN;
+  t.copY[k] = hasCop ? o[1] + cu * U[1] + cv * W[1] : NaN;
+  t.copZ[k] = hasCop ? o[2] + cu * U[2] + cv * W[2] : NaN;
+  t.normalX[k] = n[0];
+  t.normalY[k] = n[1];
+  t.normalZ[k] = n[2];
+  t.peakPressurePa[k] = peakOf(it);
+  t.signChange[k] = it.positive.forceN !== 0 && it.negative.forceN !== 0 ? 1 : 0;
+  t.capacityUtilisation[k] = capacity ? capacity.utilisation : NaN;
+  t.stiffenerUtilisation[k] = stiffeners ? stiffeners.maxUtilisation : NaN;
+  t.shoreUtilisation[k] = maxShoreUtilisation(shores) ?? NaN;
+  t.maxUtilisation[k] = maxU ?? NaN;
+  return true;
 }
 
 /** Largest finite value among x, y and m (null when none). */
@@ -583,14 +836,14 @@ function maxOf(x: number | undefined, y: number | undefined, m: number | null): 
   return m;
 }
 
-function capacityOf(b: Boundary, net: NetResult): CapacityResult | null {
+function capacityOf(b: Boundary, peakPressurePa: number, resultantN: number): CapacityResult | null {
   const rc = b.ratedCapacity;
   if (!rc) return null;
   if (rc.kind === 'pressure') {
-    const actual = Math.abs(net.peak.pressurePa);
+    const actual = Math.abs(peakPressurePa);
     return { kind: 'pressure', rated: rc.pressurePa, actual, utilisation: actual / rc.pressurePa };
   }
-  const actual = net.resultantN;
+  const actual = resultantN;
   return { kind: 'force', rated: rc.forceN, actual, utilisation: actual / rc.forceN };
 }
 
@@ -599,7 +852,7 @@ function capacityOf(b: Boundary, net: NetResult): CapacityResult | null {
  * line (q = spacing × p along the span; the conventional tributary-strip rule, which ignores the
  * narrower strips at the plate's edges and any opening it crosses).
  */
-function stiffenerLoads(b: Boundary, plate: FlatPlate, net: PressureProfile, cuts: readonly number[]): StiffenerResult {
+function stiffenerLoads(b: Boundary, plate: FlatPlate, net: PressureProfile, cuts: ArrayLike<number>, nCuts: number): StiffenerResult {
   const st = b.stiffening!;
   const fr = plate.frame;
   const dShip = fromPoint(st.direction);
@@ -657,16 +910,23 @@ function stiffenerLoads(b: Boundary, plate: FlatPlate, net: PressureProfile, cut
     if (st.spanM !== undefined) s1 = s0 + st.spanM;
     // stations: ends plus where v(s) crosses a cut
     const v0 = t * pv; // v at s = 0 along the line point t·p + s·d
-    const stations: number[] = [s0, s1];
+    if (stationBuf.length < nCuts + 2) {
+      stationBuf = new Float64Array(2 * (nCuts + 2));
+      loadBuf = new Float64Array(2 * (nCuts + 2));
+    }
+    const stations = stationBuf, q = loadBuf;
+    let ns = 0;
+    stations[ns++] = s0;
+    stations[ns++] = s1;
     if (dv !== 0) {
-      for (const c of cuts) {
-        const s = (c - v0) / dv;
-        if (s > s0 && s < s1) stations.push(s);
+      for (let c = 0; c < nCuts; c++) {
+        const s = (cuts[c] - v0) / dv;
+        if (s > s0 && s < s1) stations[ns++] = s;
       }
     }
-    stations.sort((x, y) => x - y);
-    const q = stations.map((s) => st.spacingM * evalProfile(net, fr.e0 + fr.k * (v0 + s * dv)));
-    const r = solveBeam(stations, q, st.endFixity);
+    sortSmall(stations, ns); // a handful of stations; Array.prototype.sort would allocate a copy
+    for (let i = 0; i < ns; i++) q[i] = st.spacingM * evalProfile(net, fr.e0 + fr.k * (v0 + stations[i] * dv));
+    const r = solveBeam(stations, q, st.endFixity, ns);
     const required = Math.abs(r.maxMomentNm) / st.allowableStressPa;
     const u = required / st.sectionModulusM3;
     items.push({
@@ -690,6 +950,10 @@ function stiffenerLoads(b: Boundary, plate: FlatPlate, net: PressureProfile, cut
   return { endFixity: st.endFixity, spacingM: st.spacingM, items, governingIndex: best >= 0 ? best : null, maxUtilisation: bestU };
 }
 
+/** Stations and loads of one stiffener (scratch, reused stiffener to stiffener). */
+let stationBuf = new Float64Array(16);
+let loadBuf = new Float64Array(16);
+
 const CIRCLE_AS_POLYGON_SIDES = 512;
 
 /**
@@ -698,7 +962,7 @@ const CIRCLE_AS_POLYGON_SIDES = 512;
  * and the plate's edges are assumed to carry nothing, which errs on the safe side for the shores.
  * Circles are taken as inscribed 512-gons for this partition only (area error < 2.6e-5).
  */
-function shoreLoads(b: Boundary, plate: FlatPlate, net: PressureProfile, cuts: readonly number[], warn: Warn): ShoreResult[] {
+function shoreLoads(b: Boundary, plate: FlatPlate, net: PressureProfile, cuts: ArrayLike<number>, nCuts: number, warn: Warn): ShoreResult[] {
   const shores = b.shores!;
   const fr = plate.frame;
   const polys: { pts: number[]; sign: 1 | -1 }[] = plate.region.map(({ shape, sign }) => {
@@ -716,7 +980,7 @@ function shoreLoads(b: Boundary, plate: FlatPlate, net: PressureProfile, cuts: r
   });
   // cuts run from vMin to vMax already
   const allCuts = cuts;
-  const nStrips = allCuts.length - 1;
+  const nStrips = nCuts - 1;
   return shores.map((s, i) => {
     const cell: SignedShape[] = [];
     for (const poly of polys) {
@@ -730,7 +994,7 @@ function shoreLoads(b: Boundary, plate: FlatPlate, net: PressureProfile, cuts: r
       }
       if (pts.length > 0) cell.push({ shape: { kind: 'polygon', pts }, sign: poly.sign });
     }
-    const strips = stripMomentsInto(cell, allCuts);
+    const strips = stripMomentsInto(cell, allCuts, nCuts);
     let force = 0, area = 0;
     for (let k = 0; k < nStrips; k++) {
       const ma = strips[5 * k], msv = strips[5 * k + 2];
@@ -865,7 +1129,7 @@ function facetedBoundary(
     maxPressurePa: peakMax,
     minPressurePa: peakMin,
   };
-  const capacity = capacityOf(b, netRes);
+  const capacity = capacityOf(b, netRes.peak.pressurePa, netRes.resultantN);
   return {
     id: b.id,
     name: b.name,

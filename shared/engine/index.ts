@@ -1,5 +1,12 @@
 /** Public surface of the load engine: what the app, the server and the CLI import. */
-export { computeSurvey, levelElevation, type ComputeOptions } from './compute-survey';
+export {
+  computeBoundaryDetail,
+  computeSurvey,
+  computeSurveySummary,
+  levelElevation,
+  summariseBoundary,
+  type ComputeOptions,
+} from './compute-survey';
 export {
   checkPumpingSequence,
   type PumpingBoundaryChange,
@@ -7,5 +14,6 @@ export {
   type PumpingStep,
   type PumpingStepResult,
 } from './pumping';
+export { boundaryIndex, boundaryRow, boundaryRows, tableOfRows } from './boundary-table';
 export { ENGINE_VERSION } from './version';
 export type * from './results';
