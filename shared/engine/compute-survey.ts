@@ -6,8 +6,8 @@
 import { catalogueFluid, crudeDensityFromApi, type FluidCategory } from '../fluids/catalogue';
 import { DEFAULT_PERMEABILITY } from '../schemas/space-types';
 import type { Boundary, BoundarySide, Compartment, LevelSource, Survey } from '../schemas/survey';
-import { solveBeam } from './beam';
-import { earthFrame, type EarthFrame } from './frame';
+import { earthFrame, HEEL_AGREEMENT_TOLERANCE_DEG, type EarthFrame } from './frame';
+import { missingShipReadings, withheldItems, withheldSentence } from './readings';
 import { DEFAULT_DISCHARGE_COEFFICIENT, leastSquares, orificeFlow, timeToPumpOut } from './inflow';
 import { clipHalfPlane } from './plane-integrals';
 import {
@@ -21,8 +21,8 @@ import {
   polygonPlate,
   newScratchPlate,
   polygonPlateXYZ,
-  sortSmall,
-  stripMomentsInto,
+  regionAsPolygons,
+  regionNetForce,
   type FlatPlate,
   type PartLoad,
   type PlateFrame,
@@ -34,8 +34,6 @@ import { constantProfile, differenceProfile, layeredProfile, type PressureProfil
 import type {
   Aggregate,
   BoundaryResult,
-  BoundarySummary,
-  CapacityResult,
   CompartmentResult,
   EngineWarning,
   FacetResult,
@@ -46,14 +44,17 @@ import type {
   Severity,
   ShoreResult,
   SideResult,
-  StiffenerItem,
-  StiffenerResult,
   SurveyResults,
   SurveySummary,
   BoundaryTable,
+  BoundarySummary,
+  SurveyLevelResults,
 } from './results';
 import { newBoundaryTable, setBoundaryRow } from './boundary-table';
-import { EFFECTIVE_LENGTH_FACTOR, eulerLoad, sectionProperties, SHORE_SLENDERNESS_LIMIT } from './shore';
+import { platingCheck } from './plating';
+import { capacitiesOf, governingCapacity } from './ratings';
+import { shoreResult } from './shore-check';
+import { plainLayout, platingPanels, stiffenedPlateLoads } from './shore-stiffener';
 import { add, cross, dot, fromPoint, norm, scale, sub, toPoint, unit, type V3 } from './vec';
 import { ENGINE_VERSION } from './version';
 
@@ -91,6 +92,16 @@ function prepareCondition(survey: Survey, conditionIdIn: string | undefined) {
   const frame = earthFrame(survey.vessel, condition);
   const { up, g } = frame;
   const fluids = fluidResolver(survey);
+  const withheld = withheldItems(survey, condition);
+  for (const w of [...withheld.compartments.values(), ...withheld.boundaries.values()]) warn('reading-missing', 'warning', w.entityId, withheldSentence(w));
+  if (condition.heelDeg !== undefined && frame.heelFromDraftsDeg !== null && Math.abs(condition.heelDeg - frame.heelFromDraftsDeg) > HEEL_AGREEMENT_TOLERANCE_DEG) {
+    warn(
+      'heel-disagrees',
+      'warning',
+      condition.id,
+      `The inclinometer reads ${condition.heelDeg.toFixed(1)}° but the midship drafts give ${frame.heelFromDraftsDeg.toFixed(1)}°, more than ${HEEL_AGREEMENT_TOLERANCE_DEG}° apart: check both (the loads use the inclinometer)`,
+    );
+  }
 
   // ---- compartments: contents, profiles, volumes
   const contentsById = new Map(condition.contents.map((c) => [c.compartmentId, c]));
@@ -102,6 +113,7 @@ function prepareCondition(survey: Survey, conditionIdIn: string | undefined) {
   let totalPumps = 0;
 
   for (const comp of survey.compartments) {
+    if (withheld.compartments.has(comp.id)) continue;
     const solid = compartmentSolid(comp.geometry);
     const [eBottom, eTop] = elevationRange(solid, up);
     const memo = new Map<number, VolumeMoments>();
@@ -241,7 +253,7 @@ function prepareCondition(survey: Survey, conditionIdIn: string | undefined) {
   };
 
 
-  return { survey, condition, frame, up, g, warnings, warn, compartmentResults, ship, totalInflow, totalPumps, sideProfile, netProfile, plates, openings };
+  return { survey, condition, frame, up, g, warnings, warn, withheld, compartmentResults, ship, totalInflow, totalPumps, sideProfile, netProfile, plates, openings };
 }
 
 type Prepared = ReturnType<typeof prepareCondition>;
@@ -277,7 +289,7 @@ function utilisationTally(warn: Warn) {
 }
 
 /** The survey-level parts shared by the full and the summary results. */
-function surveyLevel(p: Prepared, tally: ReturnType<typeof utilisationTally>) {
+function surveyLevel(p: Prepared, tally: ReturnType<typeof utilisationTally>): SurveyLevelResults {
   const { ship, frame, condition, survey } = p;
   const all = acc();
   for (const a of [ship.water, ship.oil, ship.other]) if (a.mass > 0) addAcc(all, a.volume, a.mass, { x: a.mx / a.mass, y: a.my / a.mass, z: a.mz / a.mass });
@@ -296,6 +308,7 @@ function surveyLevel(p: Prepared, tally: ReturnType<typeof utilisationTally>) {
       waterlineElevationM: frame.waterlineElevation,
       seaDensityKgM3: frame.seaDensityKgM3,
       gravityMS2: frame.g,
+      missingReadings: missingShipReadings(condition),
     },
     compartments: p.compartmentResults,
     ship: { floodWater: finishAcc(ship.water), oil: finishAcc(ship.oil), other: finishAcc(ship.other), allLiquids: finishAcc(all) },
@@ -306,6 +319,7 @@ function surveyLevel(p: Prepared, tally: ReturnType<typeof utilisationTally>) {
       totalInflowM3S: p.totalInflow,
       totalPumpCapacityM3S: p.totalPumps,
     },
+    withheld: [...p.withheld.compartments.values(), ...p.withheld.boundaries.values()],
     warnings: p.warnings,
   };
 }
@@ -321,6 +335,7 @@ export function computeSurvey(survey: Survey, options: ComputeOptions = {}): Sur
   const tally = utilisationTally(p.warn);
   const boundaryResults: BoundaryResult[] = [];
   for (const b of survey.boundaries) {
+    if (p.withheld.boundaries.has(b.id)) continue;
     const r = boundaryResultOf(p, b, withDiagrams, p.warn);
     if (!r) continue;
     boundaryResults.push(r);
@@ -345,6 +360,7 @@ export function computeSurveySummary(survey: Survey, options: Pick<ComputeOption
   const table = newBoundaryTable(survey.boundaries.length);
   let k = 0;
   for (const b of survey.boundaries) {
+    if (p.withheld.boundaries.has(b.id)) continue;
     let written: boolean;
     if (b.geometry.kind === 'faceted') {
       const r = boundaryResultOf(p, b, false, p.warn);
@@ -372,6 +388,7 @@ export function computeBoundaryDetail(survey: Survey, boundaryId: string, option
   const b = survey.boundaries.find((x) => x.id === boundaryId);
   if (!b) return null;
   const p = prepareCondition(survey, options.conditionId);
+  if (p.withheld.boundaries.has(b.id)) return null;
   return boundaryResultOf(p, b, true, () => {});
 }
 
@@ -405,6 +422,7 @@ export function summariseBoundary(r: BoundaryResult, b: Pick<Boundary, 'sideA' |
     signChange: n.signChange,
     capacityUtilisation: r.capacity ? r.capacity.utilisation : null,
     stiffenerUtilisation: r.stiffeners ? r.stiffeners.maxUtilisation : null,
+    platingUtilisation: r.plating ? r.plating.maxUtilisation : null,
     shoreUtilisation: maxShoreUtilisation(r.shores),
     maxUtilisation: r.maxUtilisation,
   };
@@ -441,9 +459,10 @@ export function levelElevation(level: LevelSource, frame: EarthFrame): number {
   switch (level.kind) {
     case 'sounding':
     case 'interfaceSounding':
-      return dot(up, [level.pipe.x, level.pipe.y, level.pipe.bottomZM + level.soundingM]);
+      // a missing reading withholds the compartment before this is reached; NaN if called on one
+      return dot(up, [level.pipe.x, level.pipe.y, level.pipe.bottomZM + (level.soundingM ?? Number.NaN)]);
     case 'ullage':
-      return dot(up, [level.reference.x, level.reference.y, level.reference.z - level.ullageM]);
+      return dot(up, [level.reference.x, level.reference.y, level.reference.z - (level.ullageM ?? Number.NaN)]);
     case 'openToSea':
       return frame.waterlineElevation;
     case 'point':
@@ -721,21 +740,30 @@ function flatIntegration(
   return { plate, it };
 }
 
-/** The structural checks of a flat boundary: rated capacity, stiffeners, shores, and the largest utilisation. */
-function flatChecks(b: Boundary, plate: FlatPlate, it: PlateIntegration, net: PressureProfile, warn: Warn) {
-  const stiffeners = b.stiffening ? stiffenerLoads(b, plate, net, it.cuts, it.nCuts) : null;
-  if (stiffeners && stiffeners.maxUtilisation > 1) {
-    warn('stiffener-overstressed', 'danger', b.id, `${b.name}: stiffener bending at ${(100 * stiffeners.maxUtilisation).toFixed(0)} % of allowable`);
-  }
-  const shores = b.shores && b.shores.length > 0 ? shoreLoads(b, plate, net, it.cuts, it.nCuts, warn) : [];
-  const capacity = capacityOf(b, peakOf(it), Math.abs(it.netForceN));
-  let maxU = maxOf(capacity ? capacity.utilisation : undefined, stiffeners ? stiffeners.maxUtilisation : undefined, null);
-  maxU = maxOf(maxShoreUtilisation(shores) ?? undefined, undefined, maxU);
-  return { stiffeners, shores, capacity, maxU };
-}
-
 /** Net pressure of largest magnitude on a flat plate (the minimum when it is larger in magnitude). */
 const peakOf = (it: PlateIntegration): number => (Math.abs(it.peakMinPa) > Math.abs(it.peakMaxPa) ? it.peakMinPa : it.peakMaxPa);
+
+/**
+ * The structural checks of a flat boundary: ratings, stiffeners, plating, shores, and the largest
+ * utilisation. `net` needs only the figures the ratings read.
+ */
+function flatChecks(b: Boundary, plate: FlatPlate, it: PlateIntegration, net: PressureProfile, netRes: Parameters<typeof capacitiesOf>[1], warn: Warn) {
+  const stiffened = b.stiffening ? stiffenedPlateLoads(b, plate, net, it.cuts, warn) : null;
+  const stiffeners = stiffened ? stiffened.stiffeners : null;
+  const hasShores = !!b.shores && b.shores.length > 0;
+  const shores = stiffened?.shores ?? (hasShores ? shoreLoads(b, plate, net, it.cuts, warn) : []);
+  const structureModel = stiffened?.shores ? stiffeners!.model : hasShores ? SHORES_ONLY_MODEL_WORDS : stiffeners ? stiffeners.model : null;
+  const plating = b.plating ? platingCheck(b.plating, platingPanels(plate, net, it.cuts, stiffened?.layout ?? plainLayout(plate))) : null;
+  if (plating && plating.maxUtilisation !== null && plating.maxUtilisation > 1) {
+    warn('plating-overstressed', 'danger', b.id, `${b.name}: plating between stiffeners bent to ${(100 * plating.maxUtilisation).toFixed(0)} % of allowable`);
+  }
+  const capacities = capacitiesOf(b, netRes);
+  const capacity = governingCapacity(capacities);
+  let maxU = maxOf(capacity ? capacity.utilisation : undefined, stiffeners?.maxUtilisation ?? undefined, null);
+  maxU = maxOf(plating?.maxUtilisation ?? undefined, undefined, maxU);
+  for (let i = 0; i < shores.length; i++) maxU = maxOf(shores[i].utilisation, undefined, maxU);
+  return { stiffeners, plating, shores, structureModel, capacities, capacity, maxU };
+}
 
 function flatBoundary(
   b: Boundary,
@@ -752,7 +780,7 @@ function flatBoundary(
   if (!flat) return null;
   const { plate, it } = flat;
   const netRes = flatNet(plate, it, frame.up);
-  const { stiffeners, shores, capacity, maxU } = flatChecks(b, plate, it, net, warn);
+  const { stiffeners, plating, shores, structureModel, capacities, capacity, maxU } = flatChecks(b, plate, it, net, netRes, warn);
   const fr = plate.frame;
   const n = fr.n;
   return {
@@ -769,11 +797,14 @@ function flatBoundary(
     sideA: sideResult(b.sideA, pa, it.sideForceA, it.sidePeakA, it.sideWettedA),
     sideB: sideResult(b.sideB, pb, it.sideForceB, it.sidePeakB, it.sideWettedB),
     net: netRes,
-    loadDiagram: withDiagram ? loadDiagram(plate, net, it.cuts, it.nCuts) : [],
+    loadDiagram: withDiagram ? loadDiagram(plate, net, it.cuts) : [],
     facets: null,
     stiffeners,
+    plating,
     shores,
+    structureModel,
     capacity,
+    capacities,
     maxUtilisation: maxU,
   };
 }
@@ -796,9 +827,11 @@ function flatSummary(
   const flat = flatIntegration(b, plateIn, pa, pb, net, warn);
   if (!flat) return false;
   const { plate, it } = flat;
-  const { stiffeners, shores, capacity, maxU } = flatChecks(b, plate, it, net, warn);
-  const fr = plate.frame, n = fr.n, o = fr.origin, U = fr.u, W = fr.v;
   const F = it.netForceN;
+  const peak = peakOf(it);
+  const ratingInput = { forceN: F, resultantN: Math.abs(F), maxPressurePa: it.peakMaxPa, minPressurePa: it.peakMinPa, peak: { pressurePa: peak } };
+  const { stiffeners, plating, shores, capacity, maxU } = flatChecks(b, plate, it, net, ratingInput, warn);
+  const fr = plate.frame, n = fr.n, o = fr.origin, U = fr.u, W = fr.v;
   const hasCop = F !== 0;
   const cu = it.netMomentU / F, cv = it.netMomentV / F;
   t.id[k] = b.id;
@@ -820,10 +853,11 @@ function flatSummary(
   t.normalX[k] = n[0];
   t.normalY[k] = n[1];
   t.normalZ[k] = n[2];
-  t.peakPressurePa[k] = peakOf(it);
+  t.peakPressurePa[k] = peak;
   t.signChange[k] = it.positive.forceN !== 0 && it.negative.forceN !== 0 ? 1 : 0;
   t.capacityUtilisation[k] = capacity ? capacity.utilisation : NaN;
-  t.stiffenerUtilisation[k] = stiffeners ? stiffeners.maxUtilisation : NaN;
+  t.stiffenerUtilisation[k] = stiffeners?.maxUtilisation ?? NaN;
+  t.platingUtilisation[k] = plating?.maxUtilisation ?? NaN;
   t.shoreUtilisation[k] = maxShoreUtilisation(shores) ?? NaN;
   t.maxUtilisation[k] = maxU ?? NaN;
   return true;
@@ -836,151 +870,23 @@ function maxOf(x: number | undefined, y: number | undefined, m: number | null): 
   return m;
 }
 
-function capacityOf(b: Boundary, peakPressurePa: number, resultantN: number): CapacityResult | null {
-  const rc = b.ratedCapacity;
-  if (!rc) return null;
-  if (rc.kind === 'pressure') {
-    const actual = Math.abs(peakPressurePa);
-    return { kind: 'pressure', rated: rc.pressurePa, actual, utilisation: actual / rc.pressurePa };
-  }
-  const actual = resultantN;
-  return { kind: 'force', rated: rc.forceN, actual, utilisation: actual / rc.forceN };
-}
-
 /**
- * Stiffener loads: each stiffener carries the net pressure on a strip one spacing wide along its
- * line (q = spacing × p along the span; the conventional tributary-strip rule, which ignores the
- * narrower strips at the plate's edges and any opening it crosses).
+ * Shore loads on a plate without stiffeners. Rule: each shore carries the net pressure on the part
+ * of the plate nearer to it than to any other shore (nearest-shore, i.e. Voronoi, tributary areas,
+ * cut exactly with half-planes), and the plate's edges are assumed to carry nothing, which errs on
+ * the safe side for the shores. Circles are taken as inscribed 512-gons for this partition only.
  */
-function stiffenerLoads(b: Boundary, plate: FlatPlate, net: PressureProfile, cuts: ArrayLike<number>, nCuts: number): StiffenerResult {
-  const st = b.stiffening!;
-  const fr = plate.frame;
-  const dShip = fromPoint(st.direction);
-  let du = dot(dShip, fr.u), dv = dot(dShip, fr.v);
-  const dl = Math.hypot(du, dv);
-  const items: StiffenerItem[] = [];
-  if (dl === 0) return { endFixity: st.endFixity, spacingM: st.spacingM, items, governingIndex: null, maxUtilisation: 0 };
-  du /= dl;
-  dv /= dl;
-  const pu = -dv, pv = du; // across the stiffeners
-  const outer = plate.region[0].shape;
-  let tMin: number, tMax: number;
-  if (outer.kind === 'circle') {
-    const tc = outer.uc * pu + outer.vc * pv;
-    tMin = tc - outer.r;
-    tMax = tc + outer.r;
-  } else {
-    tMin = Infinity;
-    tMax = -Infinity;
-    for (let i = 0; i < outer.pts.length; i += 2) {
-      const t = outer.pts[i] * pu + outer.pts[i + 1] * pv;
-      tMin = Math.min(tMin, t);
-      tMax = Math.max(tMax, t);
-    }
-  }
-  const first = st.firstOffsetM ?? st.spacingM;
-  const tol = 1e-9 * Math.max(1, tMax - tMin);
-  let best = -1, bestU = 0;
-  for (let k = 0; k < 1000; k++) {
-    const t = tMin + first + k * st.spacingM;
-    if (t >= tMax - tol) break;
-    // chord of the outer outline along the line {t}
-    let s0 = Infinity, s1 = -Infinity;
-    if (outer.kind === 'circle') {
-      const dc = t - (outer.uc * pu + outer.vc * pv);
-      const h = Math.sqrt(Math.max(0, outer.r * outer.r - dc * dc));
-      const sc = outer.uc * du + outer.vc * dv;
-      s0 = sc - h;
-      s1 = sc + h;
-    } else {
-      const p = outer.pts;
-      for (let i = 0; i < p.length; i += 2) {
-        const j = i + 2 < p.length ? i + 2 : 0;
-        const fa = p[i] * pu + p[i + 1] * pv - t, fb = p[j] * pu + p[j + 1] * pv - t;
-        if ((fa <= 0 && fb >= 0) || (fa >= 0 && fb <= 0)) {
-          const w = fa === fb ? 0 : fa / (fa - fb);
-          const x = p[i] + w * (p[j] - p[i]), y = p[i + 1] + w * (p[j + 1] - p[i + 1]);
-          const s = x * du + y * dv;
-          s0 = Math.min(s0, s);
-          s1 = Math.max(s1, s);
-        }
-      }
-    }
-    if (!(s1 > s0)) continue;
-    if (st.spanM !== undefined) s1 = s0 + st.spanM;
-    // stations: ends plus where v(s) crosses a cut
-    const v0 = t * pv; // v at s = 0 along the line point t·p + s·d
-    if (stationBuf.length < nCuts + 2) {
-      stationBuf = new Float64Array(2 * (nCuts + 2));
-      loadBuf = new Float64Array(2 * (nCuts + 2));
-    }
-    const stations = stationBuf, q = loadBuf;
-    let ns = 0;
-    stations[ns++] = s0;
-    stations[ns++] = s1;
-    if (dv !== 0) {
-      for (let c = 0; c < nCuts; c++) {
-        const s = (cuts[c] - v0) / dv;
-        if (s > s0 && s < s1) stations[ns++] = s;
-      }
-    }
-    sortSmall(stations, ns); // a handful of stations; Array.prototype.sort would allocate a copy
-    for (let i = 0; i < ns; i++) q[i] = st.spacingM * evalProfile(net, fr.e0 + fr.k * (v0 + stations[i] * dv));
-    const r = solveBeam(stations, q, st.endFixity, ns);
-    const required = Math.abs(r.maxMomentNm) / st.allowableStressPa;
-    const u = required / st.sectionModulusM3;
-    items.push({
-      offsetM: t - tMin,
-      spanM: r.spanM,
-      totalLoadN: r.totalLoadN,
-      reactionStartN: r.reactionStartN,
-      reactionEndN: r.reactionEndN,
-      maxMomentNm: r.maxMomentNm,
-      maxMomentAtM: r.maxMomentAtM,
-      endMomentStartNm: r.endMomentStartNm,
-      endMomentEndNm: r.endMomentEndNm,
-      requiredModulusM3: required,
-      utilisation: u,
-    });
-    if (u > bestU || best < 0) {
-      best = items.length - 1;
-      bestU = u;
-    }
-  }
-  return { endFixity: st.endFixity, spacingM: st.spacingM, items, governingIndex: best >= 0 ? best : null, maxUtilisation: bestU };
-}
+export const SHORES_ONLY_MODEL_WORDS =
+  'Each shore carries the net pressure on the part of the plate nearer to it than to any other shore; the plate\'s edges are taken to carry nothing (on the safe side for the shores).';
 
-/** Stations and loads of one stiffener (scratch, reused stiffener to stiffener). */
-let stationBuf = new Float64Array(16);
-let loadBuf = new Float64Array(16);
-
-const CIRCLE_AS_POLYGON_SIDES = 512;
-
-/**
- * Shore loads. Rule: each shore carries the net pressure on the part of the plate nearer to it than
- * to any other shore (nearest-shore, i.e. Voronoi, tributary areas, cut exactly with half-planes),
- * and the plate's edges are assumed to carry nothing, which errs on the safe side for the shores.
- * Circles are taken as inscribed 512-gons for this partition only (area error < 2.6e-5).
- */
-function shoreLoads(b: Boundary, plate: FlatPlate, net: PressureProfile, cuts: ArrayLike<number>, nCuts: number, warn: Warn): ShoreResult[] {
+function shoreLoads(b: Boundary, plate: FlatPlate, net: PressureProfile, cuts: readonly number[], warn: Warn): ShoreResult[] {
   const shores = b.shores!;
   const fr = plate.frame;
-  const polys: { pts: number[]; sign: 1 | -1 }[] = plate.region.map(({ shape, sign }) => {
-    if (shape.kind === 'polygon') return { pts: shape.pts, sign };
-    const pts: number[] = [];
-    for (let i = 0; i < CIRCLE_AS_POLYGON_SIDES; i++) {
-      const a = (2 * Math.PI * i) / CIRCLE_AS_POLYGON_SIDES;
-      pts.push(shape.uc + shape.r * Math.cos(a), shape.vc + shape.r * Math.sin(a));
-    }
-    return { pts, sign };
-  });
+  const polys = regionAsPolygons(plate.region);
   const pos = shores.map((s) => {
     const d = sub(fromPoint(s.position), fr.origin);
     return [dot(d, fr.u), dot(d, fr.v)] as [number, number];
   });
-  // cuts run from vMin to vMax already
-  const allCuts = cuts;
-  const nStrips = nCuts - 1;
   return shores.map((s, i) => {
     const cell: SignedShape[] = [];
     for (const poly of polys) {
@@ -994,44 +900,8 @@ function shoreLoads(b: Boundary, plate: FlatPlate, net: PressureProfile, cuts: A
       }
       if (pts.length > 0) cell.push({ shape: { kind: 'polygon', pts }, sign: poly.sign });
     }
-    const strips = stripMomentsInto(cell, allCuts, nCuts);
-    let force = 0, area = 0;
-    for (let k = 0; k < nStrips; k++) {
-      const ma = strips[5 * k], msv = strips[5 * k + 2];
-      if (ma === 0) continue;
-      area += ma;
-      const e = fr.e0 + fr.k * 0.5 * (allCuts[k] + allCuts[k + 1]);
-      let jn = 0;
-      while (jn < net.breaks.length && e >= net.breaks[jn]) jn++;
-      force += (net.a[jn] + net.b[jn] * fr.e0) * ma + net.b[jn] * fr.k * msv;
-    }
-    const towards = s.side === 'B' ? force : -force;
-    const cosA = Math.cos(((s.angleFromNormalDeg ?? 0) * Math.PI) / 180);
-    const axial = Math.max(0, towards) / cosA;
-    const sec = sectionProperties(s.section);
-    const K = EFFECTIVE_LENGTH_FACTOR[s.endCondition];
-    const pcr = eulerLoad(s.elasticModulusPa, sec.iMinM4, K, s.lengthM);
-    const stress = axial / sec.areaM2;
-    const bu = axial / pcr, su = stress / s.allowableStressPa;
-    const ratio = s.lengthM / sec.leastDimensionM;
-    if (towards <= 0) warn('shore-unloaded', 'warning', s.id, `${b.name}: a shore carries nothing, the net pressure pushes the plate away from it`);
-    if (ratio > SHORE_SLENDERNESS_LIMIT) warn('shore-slender', 'warning', s.id, `${b.name}: a shore is ${ratio.toFixed(0)} times its least thickness (over ${SHORE_SLENDERNESS_LIMIT})`);
-    if (Math.max(bu, su) > 1) warn('shore-overloaded', 'danger', s.id, `${b.name}: a shore is loaded to ${(100 * Math.max(bu, su)).toFixed(0)} % of its capacity`);
-    return {
-      id: s.id,
-      tributaryAreaM2: area,
-      tributaryForceN: towards,
-      axialLoadN: axial,
-      loaded: towards > 0,
-      effectiveLengthFactor: K,
-      eulerLoadN: pcr,
-      stressPa: stress,
-      bucklingUtilisation: bu,
-      stressUtilisation: su,
-      utilisation: Math.max(bu, su),
-      lengthToLeastDimension: ratio,
-      slender: ratio > SHORE_SLENDERNESS_LIMIT,
-    };
+    const { forceN, areaM2 } = regionNetForce(plate, cell, net, cuts);
+    return shoreResult(b, s, s.side === 'B' ? forceN : -forceN, 'plate', areaM2, warn);
   });
 }
 
@@ -1129,7 +999,8 @@ function facetedBoundary(
     maxPressurePa: peakMax,
     minPressurePa: peakMin,
   };
-  const capacity = capacityOf(b, netRes.peak.pressurePa, netRes.resultantN);
+  const capacities = capacitiesOf(b, netRes);
+  const capacity = governingCapacity(capacities);
   return {
     id: b.id,
     name: b.name,
@@ -1147,8 +1018,11 @@ function facetedBoundary(
     loadDiagram: [],
     facets: facetResults,
     stiffeners: null,
+    plating: null,
     shores: [],
+    structureModel: null,
     capacity,
+    capacities,
     maxUtilisation: capacity ? capacity.utilisation : null,
   };
 }

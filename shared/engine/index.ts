@@ -16,4 +16,6 @@ export {
 } from './pumping';
 export { boundaryIndex, boundaryRow, boundaryRows, tableOfRows } from './boundary-table';
 export { ENGINE_VERSION } from './version';
+export { HEEL_AGREEMENT_TOLERANCE_DEG } from './frame';
+export { joinWords, levelReadingMissing, missingShipReadings, withheldSentence } from './readings';
 export type * from './results';

@@ -267,8 +267,8 @@ function grown(buf: Float64Array, need: number): Float64Array {
  * last = vMax), written to out[5i .. 5i+5) as a, su, sv, suv, svv. Returns out, which is the
  * shared strip buffer unless one is given; it is valid until the next call.
  */
-export function stripMomentsInto(region: readonly SignedShape[], cuts: ArrayLike<number>, nCuts = cuts.length, out?: Float64Array): Float64Array {
-  const nStrips = nCuts - 1;
+export function stripMomentsInto(region: readonly SignedShape[], cuts: readonly number[], out?: Float64Array): Float64Array {
+  const nStrips = cuts.length - 1;
   let acc = out;
   if (!acc) {
     stripBuf = grown(stripBuf, 5 * nStrips);
@@ -385,12 +385,8 @@ export interface PlateIntegration {
   peakMinPa: number;
   peakMinU: number;
   peakMinV: number;
-  /**
-   * Cuts in v where strips change (level planes and net zero crossings), ascending, from vMin to
-   * vMax: the first nCuts entries (the buffer is reused from plate to plate).
-   */
-  cuts: Float64Array;
-  nCuts: number;
+  /** Cuts in v where strips change (level planes and net zero crossings), ascending, within the plate. */
+  cuts: number[];
 }
 
 /** Sorts xs[0..n) ascending in place (insertion sort: the lists are a handful of numbers). */
@@ -430,8 +426,7 @@ export function newPlateIntegration(): PlateIntegration {
     positive: { forceN: 0, areaM2: 0, copU: 0, copV: 0 },
     negative: { forceN: 0, areaM2: 0, copU: 0, copV: 0 },
     peakMaxPa: 0, peakMaxU: 0, peakMaxV: 0, peakMinPa: 0, peakMinU: 0, peakMinV: 0,
-    cuts: new Float64Array(16),
-    nCuts: 0,
+    cuts: [],
   };
 }
 
@@ -473,15 +468,15 @@ export function integratePlate(
   }
   const nInner = sortUniqueInPlace(cutBuf, nc, vMax - vMin);
   // the cuts live in `out` (a scratch integration reuses its array: no allocation per plate)
+  // one small array per plate: the stiffener, shore and plating checks read the cuts after this returns
   const nCuts = nInner + 2;
-  if (out.cuts.length < nCuts) out.cuts = new Float64Array(2 * nCuts);
-  const cuts = out.cuts;
+  const cuts = new Array<number>(nCuts);
   cuts[0] = vMin;
   for (let i = 0; i < nInner; i++) cuts[i + 1] = cutBuf[i];
   cuts[nCuts - 1] = vMax;
-  out.nCuts = nCuts;
+  out.cuts = cuts;
   const nStrips = nInner + 1;
-  const m = stripMomentsInto(plate.region, cuts, nCuts);
+  const m = stripMomentsInto(plate.region, cuts);
 
   let area = 0, areaSu = 0, areaSv = 0;
   let sideA = 0, sideB = 0, wetA = 0, wetB = 0;
@@ -592,10 +587,10 @@ export interface LoadDiagramPoint {
  * Load diagram along the plate's v axis: the net pressure and the plate's width at each kink of
  * either (exact between points for polygons, where both are linear), plus even samples for circles.
  */
-export function loadDiagram(plate: FlatPlate, net: PressureProfile, cuts: ArrayLike<number>, nCuts = cuts.length): LoadDiagramPoint[] {
+export function loadDiagram(plate: FlatPlate, net: PressureProfile, cuts: readonly number[]): LoadDiagramPoint[] {
   const { vMin, vMax, frame, region } = plate;
   const span = vMax - vMin;
-  let n = nCuts;
+  let n = cuts.length;
   let hasCircle = false;
   for (let r = 0; r < region.length; r++) {
     const shape = region[r].shape;
@@ -609,7 +604,7 @@ export function loadDiagram(plate: FlatPlate, net: PressureProfile, cuts: ArrayL
   const keep = (v: number): void => {
     if (v >= vMin && v <= vMax) vs[m++] = v;
   };
-  for (let i = 0; i < nCuts; i++) keep(cuts[i]);
+  for (let i = 0; i < cuts.length; i++) keep(cuts[i]);
   for (let r = 0; r < region.length; r++) {
     const shape = region[r].shape;
     if (shape.kind === 'polygon') {
@@ -629,4 +624,38 @@ export function loadDiagram(plate: FlatPlate, net: PressureProfile, cuts: ArrayL
     out[i] = { sM: v - vMin, pressurePa: evalProfile(net, frame.e0 + frame.k * v), widthM: w };
   }
   return out;
+}
+
+/**
+ * ∫p dA and the area over `region` (a part of the plate, in its axes), exact: the net pressure is
+ * linear in v between consecutive cuts (the plate's cuts from integratePlate).
+ */
+export function regionNetForce(plate: FlatPlate, region: readonly SignedShape[], net: PressureProfile, cuts: readonly number[]): { forceN: number; areaM2: number } {
+  const fr = plate.frame;
+  const strips = stripMomentsInto(region, cuts);
+  let force = 0, area = 0;
+  for (let k = 0; k + 1 < cuts.length; k++) {
+    const ma = strips[5 * k], msv = strips[5 * k + 2];
+    if (ma === 0) continue;
+    area += ma;
+    const jn = intervalAt(net, fr.e0 + fr.k * 0.5 * (cuts[k] + cuts[k + 1]));
+    force += (net.a[jn] + net.b[jn] * fr.e0) * ma + net.b[jn] * fr.k * msv;
+  }
+  return { forceN: force, areaM2: area };
+}
+
+/** Sides of the inscribed polygon that stands for a circle where a region must be clipped (area error < 2.6e-5). */
+export const CIRCLE_AS_POLYGON_SIDES = 512;
+
+/** The plate's region as polygons (circles as inscribed 512-gons), for clipping with half-planes. */
+export function regionAsPolygons(region: readonly SignedShape[]): { pts: number[]; sign: 1 | -1 }[] {
+  return region.map(({ shape, sign }) => {
+    if (shape.kind === 'polygon') return { pts: shape.pts, sign };
+    const pts: number[] = [];
+    for (let i = 0; i < CIRCLE_AS_POLYGON_SIDES; i++) {
+      const a = (2 * Math.PI * i) / CIRCLE_AS_POLYGON_SIDES;
+      pts.push(shape.uc + shape.r * Math.cos(a), shape.vc + shape.r * Math.sin(a));
+    }
+    return { pts, sign };
+  });
 }
