@@ -1,5 +1,13 @@
 /** Public surface of the load engine: what the app, the server and the CLI import. */
-export { computeSurvey, levelElevation, type ComputeOptions } from './compute-survey';
+export {
+  computeBoundaryDetail,
+  computeSurvey,
+  computeSurveySummary,
+  levelElevation,
+  summariseBoundary,
+  type ComputeOptions,
+} from './compute-survey';
+export { boundaryIndex, boundaryRow, boundaryRows, tableOfRows } from './boundary-table';
 export { ENGINE_VERSION } from './version';
 export { HEEL_AGREEMENT_TOLERANCE_DEG } from './frame';
 export { joinWords, levelReadingMissing, missingShipReadings, withheldSentence } from './readings';
