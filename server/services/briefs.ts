@@ -6,7 +6,7 @@
 import type { Knex } from 'knex';
 import type { BriefLink, IssueBrief } from '@shared/api/review';
 import type { SurveyResults } from '@shared/engine/results';
-import { SurveySchema } from '@shared/schemas/survey';
+import { UpgradingSurveySchema } from '@shared/schemas/survey';
 import { BRIEFABLE_STATUSES, STATUS_LABELS } from '@shared/review/status';
 import type { Config } from '../config';
 import type { AuthContext } from '../http/auth-context';
@@ -40,7 +40,7 @@ export function createBriefService(deps: { db: Knex; config: Pick<Config, 'publi
       createdBy: auth.userId,
     });
     const url = new URL(briefPath(token), config.publicUrl).toString();
-    const parsed = SurveySchema.safeParse(s.doc);
+    const parsed = UpgradingSurveySchema.safeParse(s.doc);
     const [engineerName, organisationName] = await Promise.all([repo.userName(db, auth.userId), repo.organisationName(db, auth.orgId)]);
     await mailer.send({
       to: body.recipientEmail,
@@ -70,7 +70,7 @@ export function createBriefService(deps: { db: Knex; config: Pick<Config, 'publi
     const link = await repo.findLiveBrief(db, hashBriefToken(token));
     if (!link) return null;
     const s = await repo.findSurvey(db, link.orgId, link.surveyId);
-    const parsed = s ? SurveySchema.safeParse(s.doc) : null;
+    const parsed = s ? UpgradingSurveySchema.safeParse(s.doc) : null;
     if (!s || !parsed?.success) return null;
     const [results, verdicts, limits, reviewed, organisationName] = await Promise.all([
       ensureResults(db, s.id, s.revision, parsed.data),

@@ -8,4 +8,6 @@ export {
   type PumpingStepResult,
 } from './pumping';
 export { ENGINE_VERSION } from './version';
+export { HEEL_AGREEMENT_TOLERANCE_DEG } from './frame';
+export { joinWords, levelReadingMissing, missingShipReadings, withheldSentence } from './readings';
 export type * from './results';

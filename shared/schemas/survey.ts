@@ -7,8 +7,11 @@
 import { z } from 'zod';
 import { catalogueFluid } from '../fluids/catalogue';
 import { SpaceTypeSchema } from './space-types';
+import { MarksSchema } from './marks';
+import { DirectionalRatingSchema, PlatingSchema, ShoreDesignSchema } from './structure';
+import { SURVEY_SCHEMA_VERSION, upgradeSurvey } from './upgrade';
 
-export const SURVEY_SCHEMA_VERSION = 1;
+export { SURVEY_SCHEMA_VERSION };
 
 const Id = z.uuid();
 const Length = z.number();
@@ -47,9 +50,10 @@ export const SoundingPipeSchema = z.object({ x: z.number(), y: z.number(), botto
  * level on the outside waterline; "point" gives any ship point the surface passes through.
  */
 export const LevelSourceSchema = z.discriminatedUnion('kind', [
-  z.object({ kind: z.literal('sounding'), pipe: SoundingPipeSchema, soundingM: NonNegative }),
-  z.object({ kind: z.literal('interfaceSounding'), pipe: SoundingPipeSchema, soundingM: NonNegative }),
-  z.object({ kind: z.literal('ullage'), reference: Point3Schema, ullageM: NonNegative }),
+  // a reading absent until taken: the engine shows no loads that rest on it (shared/engine/readings.ts)
+  z.object({ kind: z.literal('sounding'), pipe: SoundingPipeSchema, soundingM: NonNegative.optional() }),
+  z.object({ kind: z.literal('interfaceSounding'), pipe: SoundingPipeSchema, soundingM: NonNegative.optional() }),
+  z.object({ kind: z.literal('ullage'), reference: Point3Schema, ullageM: NonNegative.optional() }),
   z.object({ kind: z.literal('openToSea') }),
   z.object({ kind: z.literal('point'), point: Point3Schema }),
 ]);
@@ -63,6 +67,7 @@ export const LayerSchema = z.object({
   densityKgM3: z.number().positive().max(2000).optional(),
   /** The top surface of this layer. */
   level: LevelSourceSchema,
+  marks: MarksSchema.optional(),
 });
 export type Layer = z.infer<typeof LayerSchema>;
 
@@ -85,20 +90,24 @@ export const ConditionSchema = z.object({
   id: Id,
   name: z.string().optional(),
   time: z.iso.datetime({ offset: true }),
-  /** Drafts at the marks, m above baseline. Forward and aft are centreline (mean of both sides) values. */
+  /**
+   * Drafts at the marks, m above baseline. Forward and aft are centreline (mean of both sides) values,
+   * absent until read (no loads are shown without them).
+   */
   drafts: z.object({
-    forwardM: z.number(),
-    aftM: z.number(),
+    forwardM: z.number().optional(),
+    aftM: z.number().optional(),
     midPortM: z.number().optional(),
     midStarboardM: z.number().optional(),
   }),
-  /** Inclinometer heel, degrees, positive with starboard down. If absent, taken from the midship drafts, else 0. */
+  /** Inclinometer heel, degrees, positive with starboard down. If absent, taken from the midship drafts; with neither, no loads. */
   heelDeg: z.number().gt(-60).lt(60).optional(),
   /** Sea water density, kg/m³ (default 1025). */
   seaDensityKgM3: z.number().min(990).max(1050).optional(),
   /** Acceleration of gravity, m/s² (default standard gravity 9.80665). */
   gravityMS2: z.number().min(9.7).max(9.9).optional(),
   contents: z.array(ContentsSchema),
+  marks: MarksSchema.optional(),
 });
 export type Condition = z.infer<typeof ConditionSchema>;
 
@@ -146,6 +155,7 @@ export const CompartmentSchema = z.object({
   breaches: z.array(BreachSchema).optional(),
   pumps: z.array(PumpSchema).optional(),
   soundingLog: SoundingLogSchema.optional(),
+  marks: MarksSchema.optional(),
 });
 export type Compartment = z.infer<typeof CompartmentSchema>;
 
@@ -211,6 +221,8 @@ export const ShoreSchema = z.object({
   side: z.enum(['A', 'B']),
   /** Angle between the shore's axis and the plate normal, degrees (default 0). */
   angleFromNormalDeg: z.number().min(0).max(75).optional(),
+  /** The column design check (AISC 360 steel, NDS timber, or a design factor); see structure.ts. */
+  design: ShoreDesignSchema.optional(),
 });
 export type Shore = z.infer<typeof ShoreSchema>;
 
@@ -236,8 +248,12 @@ export const BoundarySchema = z.object({
   parentBoundaryId: Id.optional(),
   stiffening: StiffeningSchema.optional(),
   shores: z.array(ShoreSchema).optional(),
+  /** A rating that holds whichever way the net pressure pushes (see directionalCapacity for one per direction). */
   ratedCapacity: RatedCapacitySchema.optional(),
+  directionalCapacity: DirectionalRatingSchema.optional(),
+  plating: PlatingSchema.optional(),
   notes: z.string().optional(),
+  marks: MarksSchema.optional(),
 });
 export type Boundary = z.infer<typeof BoundarySchema>;
 
@@ -286,7 +302,9 @@ function arrayOf<K extends CollectionKey>(key: K) {
 }
 
 const SurveyObjectSchema = z.object({
-  schemaVersion: z.literal(SURVEY_SCHEMA_VERSION),
+  schemaVersion: z.literal(SURVEY_SCHEMA_VERSION, {
+    error: `this app reads survey format version ${SURVEY_SCHEMA_VERSION} and older; a newer version needs an updated app`,
+  }),
   id: Id,
   vesselId: Id.optional(),
   title: z.string().trim().min(1),
@@ -351,6 +369,12 @@ function referenceIssues(s: SurveyObject, add: (issue: { path: (string | number)
 
 export const SurveySchema = SurveyObjectSchema.superRefine((s, ctx) => referenceIssues(s, (issue) => ctx.addIssue({ code: 'custom', ...issue })));
 export type Survey = z.infer<typeof SurveySchema>;
+
+/**
+ * SurveySchema for a document that may be of an older format version (a file, a push from a device
+ * running older code, a stored copy): upgraded first (./upgrade.ts), then validated.
+ */
+export const UpgradingSurveySchema = z.preprocess(upgradeSurvey, SurveySchema);
 
 /**
  * Whether SurveySchema accepts `next`, given that it accepts `prev` and that `next` was made from

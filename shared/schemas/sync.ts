@@ -13,6 +13,7 @@ import {
   FluidOverrideSchema,
   PhotoRefSchema,
   SurveySchema,
+  UpgradingSurveySchema,
 } from './survey';
 
 const shape = SurveySchema.shape;
@@ -112,7 +113,7 @@ export const ResolveConflictOpSchema = z.object({
   value: z.unknown(),
 });
 
-export const CreateOpSchema = z.object({ kind: z.literal('create'), survey: SurveySchema });
+export const CreateOpSchema = z.object({ kind: z.literal('create'), survey: UpgradingSurveySchema });
 
 export const SurveyOpSchema = z.discriminatedUnion('kind', [
   CreateOpSchema,
@@ -233,7 +234,7 @@ export const SurveySummarySchema = z.object({
 export type SurveySummary = z.infer<typeof SurveySummarySchema>;
 
 export const SurveyDetailSchema = SurveySummarySchema.extend({
-  doc: SurveySchema,
+  doc: UpgradingSurveySchema,
   results: StoredResultsSchema.nullable(),
   conflicts: z.array(ConflictSchema),
 });
@@ -267,7 +268,7 @@ export const SurveyListResponseSchema = z.object({
 });
 export type SurveyListResponse = z.infer<typeof SurveyListResponseSchema>;
 
-export const CreateSurveyRequestSchema = z.object({ survey: SurveySchema });
+export const CreateSurveyRequestSchema = z.object({ survey: UpgradingSurveySchema });
 export type CreateSurveyRequest = z.infer<typeof CreateSurveyRequestSchema>;
 
 /** A survey as the server holds it, for a device's store. */
@@ -275,7 +276,7 @@ export const SyncedSurveySchema = z.object({
   id: z.uuid(),
   revision: z.number().int(),
   status: SurveyStatusSchema,
-  doc: SurveySchema,
+  doc: UpgradingSurveySchema,
   createdBy: UserRefSchema,
   updatedAt: z.string(),
 });

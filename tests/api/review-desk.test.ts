@@ -121,7 +121,7 @@ describe('history', () => {
     const device = randomUUID();
     const cond = s.conditions[0]!;
     const push = await call('POST', '/api/sync/push', tok.surveyor!, {
-      changes: [change(device, s.id, { kind: 'upsert', collection: 'conditions', entity: { ...cond, drafts: { ...cond.drafts, forwardM: cond.drafts.forwardM + 0.4 } }, fields: ['drafts'] }, 1)],
+      changes: [change(device, s.id, { kind: 'upsert', collection: 'conditions', entity: { ...cond, drafts: { ...cond.drafts, forwardM: (cond.drafts.forwardM ?? 0) + 0.4 } }, fields: ['drafts'] }, 1)],
     });
     expect(push.status).toBe(200);
     expect(push.body.results[0].status).toBe('applied');

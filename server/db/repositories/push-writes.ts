@@ -7,7 +7,7 @@ import type { Survey } from '@shared/schemas/survey';
 import type { PushStatus, SurveyStatus } from '@shared/schemas/sync';
 import type { FieldRevisions } from '@shared/sync/merge';
 import { runNamed } from '../knex';
-import { json, MEMBER_ROLE_SQL, type MemberCheck, type Q } from './survey-sql';
+import { current, json, MEMBER_ROLE_SQL, type MemberCheck, type Q } from './survey-sql';
 import { revisionRow, type RevisionRow, type SurveyColumns } from './surveys';
 
 export interface SurveyState {
@@ -33,7 +33,7 @@ interface SurveyRow {
 const toState = (r: SurveyRow): SurveyState => ({
   id: r.id,
   orgId: r.organisation_id,
-  doc: r.doc,
+  doc: current(r.doc),
   revision: r.revision,
   revs: r.field_revisions ?? {},
   status: r.status,

@@ -5,7 +5,7 @@ import { CompartmentSchema, type Compartment } from '@shared/schemas/survey';
 import { DEFAULT_PERMEABILITY, SPACE_TYPES, type SpaceType } from '@shared/schemas/space-types';
 import type { UnitSystem } from '@shared/units/units';
 import { byKey, measureLabel, parseField, showField, unitResolver } from '../utils/form-units';
-import { NumberInput, TextInput, SelectInput, FormError, primaryBtn, dangerBtn, secondaryBtn, inputCls, Field, errorAt } from './fields';
+import { NumberInput, TextInput, SelectInput, FormError, primaryBtn, dangerBtn, secondaryBtn, inputCls, Field, errorAt } from '@client/components/ui/fields';
 import { useAutosave } from '../hooks/use-autosave';
 import { SaveIndicator } from './save-indicator';
 import type { Apply, SectionProps } from '../utils/types';
