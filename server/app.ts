@@ -17,6 +17,7 @@ import { authRateLimits } from './http/rate-limit';
 import { createMailer } from './mail/mailer';
 import { createS3PhotoStorage } from './storage/photo-store';
 import { createServices, type AppServices } from './services';
+import { jsonBody } from './http/json-body';
 import { healthRoutes } from './routes/health';
 import { authRoutes, REFRESH_COOKIE_PATH } from './routes/auth';
 import { memberRoutes } from './routes/members';
@@ -75,7 +76,7 @@ export function createApp(given: AppDeps): BrinelineApp {
 
   const verify = services.access;
   const api = Router();
-  api.use(express.json({ limit: '5mb' }));
+  api.use(jsonBody({ limit: '5mb' }));
   for (const group of routeGroups(services, deps.config)) defineRoutes(api, '/api', group, verify, app.locals.routes);
   api.use(apiNotFound);
   app.use('/api', api);

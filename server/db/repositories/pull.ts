@@ -1,7 +1,7 @@
 /** SQL of a pull: the snapshot's oldest running transaction and the surveys written since a cursor. */
 import type { Knex } from 'knex';
 import type { SyncedSurvey } from '@shared/schemas/sync';
-import { current, iso } from './survey-sql';
+import { iso, currentFormat } from './survey-sql';
 
 /** The oldest transaction still running: everything older is settled (committed or rolled back). */
 export async function snapshotXmin(trx: Knex.Transaction): Promise<string> {
@@ -30,7 +30,7 @@ export async function surveysChangedSince(
     id: r.id,
     revision: r.revision,
     status: r.status,
-    doc: current(r.doc),
+    doc: currentFormat(r.doc),
     createdBy: { id: r.created_by_id, name: r.created_by_name },
     updatedAt: iso(r.updated_at)!,
     xid: r.xid,

@@ -8,7 +8,7 @@ import type { Survey } from '@shared/schemas/survey';
 import type { PushStatus, SurveyStatus } from '@shared/schemas/sync';
 import type { FieldRevisions } from '@shared/sync/merge';
 import { runNamed } from '../knex';
-import { current, json, MEMBER_ROLE_SQL, type MemberCheck, type Q } from './survey-sql';
+import { json, MEMBER_ROLE_SQL, type MemberCheck, type Q, currentFormat } from './survey-sql';
 import { revisionRow, type RevisionRow, type SurveyColumns } from './surveys';
 
 export interface SurveyState {
@@ -34,7 +34,7 @@ interface SurveyRow {
 const toState = (r: SurveyRow): SurveyState => ({
   id: r.id,
   orgId: r.organisation_id,
-  doc: current(r.doc),
+  doc: currentFormat(r.doc),
   revision: r.revision,
   revs: r.field_revisions ?? {},
   status: r.status,

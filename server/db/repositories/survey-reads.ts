@@ -3,7 +3,7 @@ import type { Survey } from '@shared/schemas/survey';
 import type { Conflict, ListSurveysQuery, StoredResults, SurveyStatus, SurveySummary } from '@shared/schemas/sync';
 import type { Role } from '@shared/api/roles';
 import { runNamed } from '../knex';
-import { current, iso, isoSql, MEMBER_ROLE_SQL, type MemberCheck, type Q } from './survey-sql';
+import { iso, isoSql, MEMBER_ROLE_SQL, type MemberCheck, type Q, currentFormat } from './survey-sql';
 import { toConflict, type ConflictRow } from './conflicts';
 
 const SUMMARY_COLUMNS = [
@@ -108,7 +108,7 @@ export async function listSurveysJson(
 
 export async function findSurvey(db: Q, orgId: string, id: string): Promise<(SurveySummary & { doc: Survey }) | undefined> {
   const row = await summaryQuery(db).select('s.doc').where({ 's.id': id, 's.organisation_id': orgId }).first();
-  return row ? { ...toSummary(row as SummaryRow), doc: current((row as { doc: Survey }).doc) } : undefined;
+  return row ? { ...toSummary(row as SummaryRow), doc: currentFormat((row as { doc: Survey }).doc) } : undefined;
 }
 
 /** Latest results' metadata, with the results themselves as their stored JSON text. */

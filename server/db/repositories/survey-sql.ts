@@ -7,13 +7,13 @@ export type Q = Knex | Knex.Transaction;
 
 /** jsonb parameters go as JSON text: node-postgres would turn a JS array into a PostgreSQL array. */
 export const json = (v: unknown) => JSON.stringify(v ?? null);
-export const iso = (d: Date | string | null | undefined) => (d == null ? null : new Date(d).toISOString());
 
 /**
  * A stored document in the current format. The migration of 2026-12-03 upgraded every stored
  * document; this covers one written meanwhile by an older server. The same object when current.
  */
-export const current = (doc: Survey): Survey => upgradeSurvey(doc) as Survey;
+export const currentFormat = (doc: Survey): Survey => upgradeSurvey(doc) as Survey;
+export const iso = (d: Date | string | null | undefined) => (d == null ? null : new Date(d).toISOString());
 
 /** A timestamp as JSON text in the form `iso()` gives (milliseconds, truncated like node-postgres does). */
 export const isoSql = (col: string) => `to_char(${col} AT TIME ZONE 'UTC', 'YYYY-MM-DD"T"HH24:MI:SS.MS"Z"')`;

@@ -3,7 +3,7 @@ import type { Survey } from '@shared/schemas/survey';
 import type { StoredResults } from '@shared/schemas/sync';
 import type { FieldChange, FieldRevisions } from '@shared/sync/merge';
 import { runNamed } from '../knex';
-import { current, iso, json, type Q } from './survey-sql';
+import { iso, json, type Q, currentFormat } from './survey-sql';
 
 export async function surveyIdTaken(db: Q, id: string): Promise<boolean> {
   return Boolean(await db('surveys').where({ id }).first('id'));
@@ -108,7 +108,7 @@ export async function docNeedingResults(db: Q, id: string, engineVersion: string
         AND NOT EXISTS (SELECT 1 FROM survey_results r WHERE r.survey_id = s.id AND r.revision = s.revision AND r.engine_version = ?)`,
     [id, engineVersion],
   );
-  return rows[0] && { doc: current(rows[0].doc), revision: rows[0].revision };
+  return rows[0] && { doc: currentFormat(rows[0].doc), revision: rows[0].revision };
 }
 
 export async function insertResults(
