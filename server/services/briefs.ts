@@ -5,7 +5,7 @@
  */
 import type { Knex } from 'knex';
 import type { BriefLink, IssueBrief } from '@shared/api/review';
-import type { SurveyResults } from '@shared/engine/results';
+import type { SurveyResults } from '@shared/engine';
 import { UpgradingSurveySchema } from '@shared/schemas/survey';
 import { BRIEFABLE_STATUSES, STATUS_LABELS } from '@shared/review/status';
 import type { Config } from '../config';
