@@ -6,7 +6,6 @@
 import { catalogueFluid, crudeDensityFromApi, type FluidCategory } from '../fluids/catalogue';
 import { DEFAULT_PERMEABILITY } from '../schemas/space-types';
 import type { Boundary, BoundarySide, Compartment, LevelSource, Survey } from '../schemas/survey';
-import { solveBeam } from './beam';
 import { earthFrame, HEEL_AGREEMENT_TOLERANCE_DEG, type EarthFrame } from './frame';
 import { missingShipReadings, withheldItems, withheldSentence } from './readings';
 import { DEFAULT_DISCHARGE_COEFFICIENT, leastSquares, orificeFlow, timeToPumpOut } from './inflow';
@@ -21,7 +20,8 @@ import {
   plateToShip,
   polygonPlate,
   polygonPlateXYZ,
-  stripMomentsInto,
+  regionAsPolygons,
+  regionNetForce,
   type FlatPlate,
   type PartLoad,
   type PlateFrame,
@@ -33,7 +33,6 @@ import { constantProfile, differenceProfile, layeredProfile, type PressureProfil
 import type {
   Aggregate,
   BoundaryResult,
-  CapacityResult,
   CompartmentResult,
   EngineWarning,
   FacetResult,
@@ -44,11 +43,12 @@ import type {
   Severity,
   ShoreResult,
   SideResult,
-  StiffenerItem,
-  StiffenerResult,
   SurveyResults,
 } from './results';
-import { EFFECTIVE_LENGTH_FACTOR, eulerLoad, sectionProperties, SHORE_SLENDERNESS_LIMIT } from './shore';
+import { platingCheck } from './plating';
+import { capacitiesOf, governingCapacity } from './ratings';
+import { shoreResult } from './shore-check';
+import { plainLayout, platingPanels, stiffenedPlateLoads } from './shore-stiffener';
 import { add, cross, dot, fromPoint, norm, scale, sub, toPoint, unit, type V3 } from './vec';
 import { ENGINE_VERSION } from './version';
 
@@ -559,13 +559,19 @@ function flatBoundary(
   if (netRes.signChange) {
     warn('sign-change', 'info', b.id, `${b.name}: net pressure reverses across the plate (${(netRes.positive.forceN / 1000).toFixed(1)} kN towards side B, ${(-netRes.negative.forceN / 1000).toFixed(1)} kN towards side A)`);
   }
-  const stiffeners = b.stiffening ? stiffenerLoads(b, plate, net, it.cuts) : null;
-  if (stiffeners && stiffeners.maxUtilisation > 1) {
-    warn('stiffener-overstressed', 'danger', b.id, `${b.name}: stiffener bending at ${(100 * stiffeners.maxUtilisation).toFixed(0)} % of allowable`);
+  const stiffened = b.stiffening ? stiffenedPlateLoads(b, plate, net, it.cuts, warn) : null;
+  const stiffeners = stiffened ? stiffened.stiffeners : null;
+  const hasShores = !!b.shores && b.shores.length > 0;
+  const shores = stiffened?.shores ?? (hasShores ? shoreLoads(b, plate, net, it.cuts, warn) : []);
+  const structureModel = stiffened?.shores ? stiffeners!.model : hasShores ? SHORES_ONLY_MODEL_WORDS : stiffeners ? stiffeners.model : null;
+  const plating = b.plating ? platingCheck(b.plating, platingPanels(plate, net, it.cuts, stiffened?.layout ?? plainLayout(plate))) : null;
+  if (plating && plating.maxUtilisation !== null && plating.maxUtilisation > 1) {
+    warn('plating-overstressed', 'danger', b.id, `${b.name}: plating between stiffeners bent to ${(100 * plating.maxUtilisation).toFixed(0)} % of allowable`);
   }
-  const shores = b.shores && b.shores.length > 0 ? shoreLoads(b, plate, net, it.cuts, warn) : [];
-  const capacity = capacityOf(b, netRes);
-  let maxU = maxOf(capacity ? capacity.utilisation : undefined, stiffeners ? stiffeners.maxUtilisation : undefined, null);
+  const capacities = capacitiesOf(b, netRes);
+  const capacity = governingCapacity(capacities);
+  let maxU = maxOf(capacity ? capacity.utilisation : undefined, stiffeners?.maxUtilisation ?? undefined, null);
+  maxU = maxOf(plating?.maxUtilisation ?? undefined, undefined, maxU);
   for (let i = 0; i < shores.length; i++) maxU = maxOf(shores[i].utilisation, undefined, maxU);
   const fr = plate.frame;
   const n = fr.n;
@@ -586,8 +592,11 @@ function flatBoundary(
     loadDiagram: withDiagram ? loadDiagram(plate, net, it.cuts) : [],
     facets: null,
     stiffeners,
+    plating,
     shores,
+    structureModel,
     capacity,
+    capacities,
     maxUtilisation: maxU,
   };
 }
@@ -599,140 +608,23 @@ function maxOf(x: number | undefined, y: number | undefined, m: number | null): 
   return m;
 }
 
-function capacityOf(b: Boundary, net: NetResult): CapacityResult | null {
-  const rc = b.ratedCapacity;
-  if (!rc) return null;
-  if (rc.kind === 'pressure') {
-    const actual = Math.abs(net.peak.pressurePa);
-    return { kind: 'pressure', rated: rc.pressurePa, actual, utilisation: actual / rc.pressurePa };
-  }
-  const actual = net.resultantN;
-  return { kind: 'force', rated: rc.forceN, actual, utilisation: actual / rc.forceN };
-}
-
 /**
- * Stiffener loads: each stiffener carries the net pressure on a strip one spacing wide along its
- * line (q = spacing × p along the span; the conventional tributary-strip rule, which ignores the
- * narrower strips at the plate's edges and any opening it crosses).
+ * Shore loads on a plate without stiffeners. Rule: each shore carries the net pressure on the part
+ * of the plate nearer to it than to any other shore (nearest-shore, i.e. Voronoi, tributary areas,
+ * cut exactly with half-planes), and the plate's edges are assumed to carry nothing, which errs on
+ * the safe side for the shores. Circles are taken as inscribed 512-gons for this partition only.
  */
-function stiffenerLoads(b: Boundary, plate: FlatPlate, net: PressureProfile, cuts: readonly number[]): StiffenerResult {
-  const st = b.stiffening!;
-  const fr = plate.frame;
-  const dShip = fromPoint(st.direction);
-  let du = dot(dShip, fr.u), dv = dot(dShip, fr.v);
-  const dl = Math.hypot(du, dv);
-  const items: StiffenerItem[] = [];
-  if (dl === 0) return { endFixity: st.endFixity, spacingM: st.spacingM, items, governingIndex: null, maxUtilisation: 0 };
-  du /= dl;
-  dv /= dl;
-  const pu = -dv, pv = du; // across the stiffeners
-  const outer = plate.region[0].shape;
-  let tMin: number, tMax: number;
-  if (outer.kind === 'circle') {
-    const tc = outer.uc * pu + outer.vc * pv;
-    tMin = tc - outer.r;
-    tMax = tc + outer.r;
-  } else {
-    tMin = Infinity;
-    tMax = -Infinity;
-    for (let i = 0; i < outer.pts.length; i += 2) {
-      const t = outer.pts[i] * pu + outer.pts[i + 1] * pv;
-      tMin = Math.min(tMin, t);
-      tMax = Math.max(tMax, t);
-    }
-  }
-  const first = st.firstOffsetM ?? st.spacingM;
-  const tol = 1e-9 * Math.max(1, tMax - tMin);
-  let best = -1, bestU = 0;
-  for (let k = 0; k < 1000; k++) {
-    const t = tMin + first + k * st.spacingM;
-    if (t >= tMax - tol) break;
-    // chord of the outer outline along the line {t}
-    let s0 = Infinity, s1 = -Infinity;
-    if (outer.kind === 'circle') {
-      const dc = t - (outer.uc * pu + outer.vc * pv);
-      const h = Math.sqrt(Math.max(0, outer.r * outer.r - dc * dc));
-      const sc = outer.uc * du + outer.vc * dv;
-      s0 = sc - h;
-      s1 = sc + h;
-    } else {
-      const p = outer.pts;
-      for (let i = 0; i < p.length; i += 2) {
-        const j = i + 2 < p.length ? i + 2 : 0;
-        const fa = p[i] * pu + p[i + 1] * pv - t, fb = p[j] * pu + p[j + 1] * pv - t;
-        if ((fa <= 0 && fb >= 0) || (fa >= 0 && fb <= 0)) {
-          const w = fa === fb ? 0 : fa / (fa - fb);
-          const x = p[i] + w * (p[j] - p[i]), y = p[i + 1] + w * (p[j + 1] - p[i + 1]);
-          const s = x * du + y * dv;
-          s0 = Math.min(s0, s);
-          s1 = Math.max(s1, s);
-        }
-      }
-    }
-    if (!(s1 > s0)) continue;
-    if (st.spanM !== undefined) s1 = s0 + st.spanM;
-    // stations: ends plus where v(s) crosses a cut
-    const v0 = t * pv; // v at s = 0 along the line point t·p + s·d
-    const stations: number[] = [s0, s1];
-    if (dv !== 0) {
-      for (const c of cuts) {
-        const s = (c - v0) / dv;
-        if (s > s0 && s < s1) stations.push(s);
-      }
-    }
-    stations.sort((x, y) => x - y);
-    const q = stations.map((s) => st.spacingM * evalProfile(net, fr.e0 + fr.k * (v0 + s * dv)));
-    const r = solveBeam(stations, q, st.endFixity);
-    const required = Math.abs(r.maxMomentNm) / st.allowableStressPa;
-    const u = required / st.sectionModulusM3;
-    items.push({
-      offsetM: t - tMin,
-      spanM: r.spanM,
-      totalLoadN: r.totalLoadN,
-      reactionStartN: r.reactionStartN,
-      reactionEndN: r.reactionEndN,
-      maxMomentNm: r.maxMomentNm,
-      maxMomentAtM: r.maxMomentAtM,
-      endMomentStartNm: r.endMomentStartNm,
-      endMomentEndNm: r.endMomentEndNm,
-      requiredModulusM3: required,
-      utilisation: u,
-    });
-    if (u > bestU || best < 0) {
-      best = items.length - 1;
-      bestU = u;
-    }
-  }
-  return { endFixity: st.endFixity, spacingM: st.spacingM, items, governingIndex: best >= 0 ? best : null, maxUtilisation: bestU };
-}
+export const SHORES_ONLY_MODEL_WORDS =
+  'Each shore carries the net pressure on the part of the plate nearer to it than to any other shore; the plate\'s edges are taken to carry nothing (on the safe side for the shores).';
 
-const CIRCLE_AS_POLYGON_SIDES = 512;
-
-/**
- * Shore loads. Rule: each shore carries the net pressure on the part of the plate nearer to it than
- * to any other shore (nearest-shore, i.e. Voronoi, tributary areas, cut exactly with half-planes),
- * and the plate's edges are assumed to carry nothing, which errs on the safe side for the shores.
- * Circles are taken as inscribed 512-gons for this partition only (area error < 2.6e-5).
- */
 function shoreLoads(b: Boundary, plate: FlatPlate, net: PressureProfile, cuts: readonly number[], warn: Warn): ShoreResult[] {
   const shores = b.shores!;
   const fr = plate.frame;
-  const polys: { pts: number[]; sign: 1 | -1 }[] = plate.region.map(({ shape, sign }) => {
-    if (shape.kind === 'polygon') return { pts: shape.pts, sign };
-    const pts: number[] = [];
-    for (let i = 0; i < CIRCLE_AS_POLYGON_SIDES; i++) {
-      const a = (2 * Math.PI * i) / CIRCLE_AS_POLYGON_SIDES;
-      pts.push(shape.uc + shape.r * Math.cos(a), shape.vc + shape.r * Math.sin(a));
-    }
-    return { pts, sign };
-  });
+  const polys = regionAsPolygons(plate.region);
   const pos = shores.map((s) => {
     const d = sub(fromPoint(s.position), fr.origin);
     return [dot(d, fr.u), dot(d, fr.v)] as [number, number];
   });
-  // cuts run from vMin to vMax already
-  const allCuts = cuts;
-  const nStrips = allCuts.length - 1;
   return shores.map((s, i) => {
     const cell: SignedShape[] = [];
     for (const poly of polys) {
@@ -746,44 +638,8 @@ function shoreLoads(b: Boundary, plate: FlatPlate, net: PressureProfile, cuts: r
       }
       if (pts.length > 0) cell.push({ shape: { kind: 'polygon', pts }, sign: poly.sign });
     }
-    const strips = stripMomentsInto(cell, allCuts);
-    let force = 0, area = 0;
-    for (let k = 0; k < nStrips; k++) {
-      const ma = strips[5 * k], msv = strips[5 * k + 2];
-      if (ma === 0) continue;
-      area += ma;
-      const e = fr.e0 + fr.k * 0.5 * (allCuts[k] + allCuts[k + 1]);
-      let jn = 0;
-      while (jn < net.breaks.length && e >= net.breaks[jn]) jn++;
-      force += (net.a[jn] + net.b[jn] * fr.e0) * ma + net.b[jn] * fr.k * msv;
-    }
-    const towards = s.side === 'B' ? force : -force;
-    const cosA = Math.cos(((s.angleFromNormalDeg ?? 0) * Math.PI) / 180);
-    const axial = Math.max(0, towards) / cosA;
-    const sec = sectionProperties(s.section);
-    const K = EFFECTIVE_LENGTH_FACTOR[s.endCondition];
-    const pcr = eulerLoad(s.elasticModulusPa, sec.iMinM4, K, s.lengthM);
-    const stress = axial / sec.areaM2;
-    const bu = axial / pcr, su = stress / s.allowableStressPa;
-    const ratio = s.lengthM / sec.leastDimensionM;
-    if (towards <= 0) warn('shore-unloaded', 'warning', s.id, `${b.name}: a shore carries nothing, the net pressure pushes the plate away from it`);
-    if (ratio > SHORE_SLENDERNESS_LIMIT) warn('shore-slender', 'warning', s.id, `${b.name}: a shore is ${ratio.toFixed(0)} times its least thickness (over ${SHORE_SLENDERNESS_LIMIT})`);
-    if (Math.max(bu, su) > 1) warn('shore-overloaded', 'danger', s.id, `${b.name}: a shore is loaded to ${(100 * Math.max(bu, su)).toFixed(0)} % of its capacity`);
-    return {
-      id: s.id,
-      tributaryAreaM2: area,
-      tributaryForceN: towards,
-      axialLoadN: axial,
-      loaded: towards > 0,
-      effectiveLengthFactor: K,
-      eulerLoadN: pcr,
-      stressPa: stress,
-      bucklingUtilisation: bu,
-      stressUtilisation: su,
-      utilisation: Math.max(bu, su),
-      lengthToLeastDimension: ratio,
-      slender: ratio > SHORE_SLENDERNESS_LIMIT,
-    };
+    const { forceN, areaM2 } = regionNetForce(plate, cell, net, cuts);
+    return shoreResult(b, s, s.side === 'B' ? forceN : -forceN, 'plate', areaM2, warn);
   });
 }
 
@@ -881,7 +737,8 @@ function facetedBoundary(
     maxPressurePa: peakMax,
     minPressurePa: peakMin,
   };
-  const capacity = capacityOf(b, netRes);
+  const capacities = capacitiesOf(b, netRes);
+  const capacity = governingCapacity(capacities);
   return {
     id: b.id,
     name: b.name,
@@ -899,8 +756,11 @@ function facetedBoundary(
     loadDiagram: [],
     facets: facetResults,
     stiffeners: null,
+    plating: null,
     shores: [],
+    structureModel: null,
     capacity,
+    capacities,
     maxUtilisation: capacity ? capacity.utilisation : null,
   };
 }

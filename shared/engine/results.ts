@@ -134,10 +134,14 @@ export interface NetResult {
   minPressurePa: number;
 }
 
-/** One stiffener: its beam result under its strip of the plate load, and its check. */
+/** One stiffener: its beam result under its strip of the plate load (and any shores on it), and its check. */
 export interface StiffenerItem extends BeamResult {
-  /** Distance across the plate from its edge, m. */
+  /** Distance across the plate from the plate's edge where the stiffeners start (the first line is firstOffsetM from it), m. */
   offsetM: number;
+  /** Width of plate the stiffener carries (half way to each neighbour or to the edge), m. */
+  tributaryWidthM: number;
+  /** Sum of the forces the shores put on this stiffener (against the load), N. */
+  shoreForcesN: number;
   requiredModulusM3: number;
   utilisation: number;
 }
@@ -147,31 +151,90 @@ export interface StiffenerResult {
   spacingM: number;
   items: StiffenerItem[];
   governingIndex: number | null;
-  maxUtilisation: number;
+  /** Largest stiffener utilisation, or null when no stiffener could be checked (never 0 % for "none"). */
+  maxUtilisation: number | null;
+  status: 'ok' | 'normal-to-plate' | 'none-inside';
+  /** Why there is no check, when status is not ok. */
+  note: string | null;
+  /** Load the plate's edges take directly (outer strips, less what shores between stiffeners pass to an edge), N. */
+  edgeLoadN: number | null;
+  /** More than the largest number of stiffeners built; the rest are not checked. */
+  truncated: boolean;
+  /** What the model assumes, in words. */
+  model: string;
+}
+
+/** The plating between stiffeners, panel by panel (Roark's rectangular-plate coefficients). */
+export interface PlatingPanelResult {
+  /** Distance across the plate from the edge where the stiffeners start, to the panel's middle, m. */
+  offsetM: number;
+  /** Long and short sides, m. */
+  longSideM: number;
+  shortSideM: number;
+  /** Net pressure at the panel's corners: least and greatest magnitude, Pa (signed). */
+  pressureMinPa: number;
+  pressureMaxPa: number;
+  /** Greatest bending stress, Pa. */
+  stressPa: number;
+  utilisation: number;
+}
+
+export interface PlatingResult {
+  netThicknessM: number;
+  edges: 'simply-supported' | 'fixed';
+  source: string;
+  panels: PlatingPanelResult[];
+  governingIndex: number | null;
+  maxUtilisation: number | null;
+  notes: string[];
 }
 
 export interface ShoreResult {
   id: string;
-  /** Plate area nearer this shore than any other, m². */
-  tributaryAreaM2: number;
-  /** Net force on that area towards the shore, N. */
+  /** What the shore's head bears on: the plate (no stiffeners), a stiffener, or the plating between two. */
+  bearsOn: 'plate' | 'stiffener' | 'panel' | 'edge';
+  /** Plate area nearer this shore than any other (plates without stiffeners), m²; null when the load comes through stiffeners. */
+  tributaryAreaM2: number | null;
+  /** Load the shore takes from the plate, along the plate normal towards its side (negative: pulled away), N. */
   tributaryForceN: number;
+  /** Load along the shore's axis (tributary force / cos angle), N. */
   axialLoadN: number;
   loaded: boolean;
   effectiveLengthFactor: number;
+  /** The column design method and its factor, in words. */
+  designMethod: 'aisc-360-e3' | 'nds-3.7.1' | 'generic' | 'legacy';
+  designMethodLabel: string;
+  /** Allowable axial load by the design method, N. */
+  designCapacityN: number;
+  /** Stress the design capacity rests on (Fcr/Ωc, Fc', …), Pa. */
+  designStressPa: number;
+  /** Euler (elastic) buckling load, N: a secondary figure, never the capacity. */
   eulerLoadN: number;
+  /** Axial load over the Euler load. */
+  eulerRatio: number;
+  /** Axial stress P / A, Pa. */
   stressPa: number;
-  bucklingUtilisation: number;
-  stressUtilisation: number;
+  /** Slenderness as the method measures it, its name and limit. */
+  slenderness: number;
+  slendernessName: 'KL/r' | 'le/d';
+  slendernessLimit: number | null;
+  slendernessExceeded: boolean;
+  /** NDS column stability factor Cp, or null. */
+  columnStabilityFactor: number | null;
+  /** Axial load over the design capacity. */
   utilisation: number;
-  /** Length over least lateral dimension. */
-  lengthToLeastDimension: number;
+  /** Length over least thickness (solid sections only; null for a tube, whose diameter is no thickness). */
+  lengthToLeastDimension: number | null;
+  /** Common-practice flag: longer than 30 × least thickness (no source). */
   slender: boolean;
 }
 
 export interface CapacityResult {
   kind: 'pressure' | 'force';
+  /** Which way the rating holds: 'either' for a rating without direction. */
+  direction: 'towards-A' | 'towards-B' | 'either';
   rated: number;
+  /** Peak net pressure (Pa) or net force (N) pushing that way. */
   actual: number;
   utilisation: number;
 }
@@ -201,8 +264,13 @@ export interface BoundaryResult {
   loadDiagram: LoadDiagramPoint[];
   facets: FacetResult[] | null;
   stiffeners: StiffenerResult | null;
+  plating: PlatingResult | null;
   shores: ShoreResult[];
+  /** What the shore and stiffener model assumes, in words (null when the plate has neither). */
+  structureModel: string | null;
   capacity: CapacityResult | null;
+  /** Ratings with a direction: one entry per direction rated. */
+  capacities: CapacityResult[];
   /** Largest of capacity, stiffener and shore utilisations, or null if nothing is rated. */
   maxUtilisation: number | null;
 }
