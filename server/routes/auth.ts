@@ -16,8 +16,8 @@ import {
 import type { AppContext } from '../app';
 import { ANY_MEMBER, PUBLIC, authOf, type RouteSpec } from '../http/route';
 import { sameOrigin } from '../http/same-origin';
-import { authRateLimits } from '../http/rate-limit';
-import { notFound } from '../http/errors';
+import { createSignInGuard, resetRequestLimits } from '../http/rate-limit';
+import { HttpError, notFound } from '../http/errors';
 import { createAuthService, type IssuedSession } from '../services/auth';
 import { createInvitationService } from '../services/invitations';
 import { createMemberService } from '../services/members';
@@ -32,8 +32,8 @@ export function authRoutes(deps: AppContext): RouteSpec[] {
   const members = createMemberService(deps);
   const secure = deps.config.publicUrl.startsWith('https:');
   const origin = sameOrigin(deps.config);
-  const signInLimits = authRateLimits(deps.config, { onlyFailures: true });
-  const resetLimits = authRateLimits(deps.config, { onlyFailures: false });
+  const signInGuard = createSignInGuard(deps.db, deps.config);
+  const resetLimits = resetRequestLimits(deps.db, deps.config);
 
   const cookieOptions = { httpOnly: true, secure, sameSite: 'strict' as const, path: REFRESH_COOKIE_PATH };
   const sendSession = (res: Response, session: IssuedSession) => {
@@ -56,10 +56,20 @@ export function authRoutes(deps: AppContext): RouteSpec[] {
       method: 'post',
       path: '/auth/sign-in',
       policy: PUBLIC,
-      before: [origin, ...signInLimits],
+      before: [origin, signInGuard.check],
       handler: async (req, res) => {
         const body = SignInRequestSchema.parse(req.body);
-        sendSession(res, await auth.signIn(body.email, body.password, requestMeta(req)));
+        const email = body.email.trim().toLowerCase();
+        let session: IssuedSession;
+        try {
+          session = await auth.signIn(body.email, body.password, requestMeta(req));
+        } catch (err) {
+          // Only wrong credentials count against the limits; a server fault (503) does not.
+          if (err instanceof HttpError && err.status === 401) await signInGuard.failed(req, email);
+          throw err;
+        }
+        await signInGuard.succeeded(req, res, email, { secure, path: REFRESH_COOKIE_PATH });
+        sendSession(res, session);
       },
     },
     {
@@ -91,7 +101,7 @@ export function authRoutes(deps: AppContext): RouteSpec[] {
       method: 'post',
       path: '/auth/forgot-password',
       policy: PUBLIC,
-      before: [origin, ...resetLimits],
+      before: [origin, resetLimits],
       handler: async (req, res) => {
         const { email } = ForgotPasswordRequestSchema.parse(req.body);
         const body: MessageResponse = {
