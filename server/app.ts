@@ -72,6 +72,12 @@ export function createApp(given: AppDeps): BrinelineApp {
 
   const verify: AccessVerifier = createAccessVerifier(deps);
   const api = Router();
+  // API answers are for one caller at one moment: no cache (a shared proxy, the browser's disk) may
+  // keep them. Routes that serve bytes meant to be cached (photos) set their own header.
+  api.use((_req, res, next) => {
+    res.setHeader('Cache-Control', 'no-store');
+    next();
+  });
   api.use(jsonBody({ limit: '5mb' }));
   for (const group of routeGroups(deps)) defineRoutes(api, '/api', group, verify, app.locals.routes);
   api.use(apiNotFound);

@@ -1,14 +1,15 @@
 /**
  * Development only: the messages the local mail catcher received, for admins, so invitations and
  * resets can be followed without a real mailbox. Registered only when NODE_ENV is not production
- * and DEV_MAIL_DIR is set. An admin sees only messages addressed to people of their organisation.
+ * and DEV_MAIL_DIR is set. An admin sees only the messages their organisation sent (invitations,
+ * resets of its members, its briefs): an address another firm also wrote to, even one invited here,
+ * never shows the other firm's mail.
  */
 import type { DevMailList } from '@shared/api/dev-mail';
 import type { AppContext } from '../app';
 import { authOf, roles, type RouteSpec } from '../http/route';
 import { notFound } from '../http/errors';
 import { readMailbox } from '../mail/dev-mailbox';
-import { listMemberEmails } from '../db/repositories/accounts';
 
 export function devMailRoutes(deps: AppContext): RouteSpec[] {
   const mailDir = deps.config.DEV_MAIL_DIR;
@@ -16,8 +17,7 @@ export function devMailRoutes(deps: AppContext): RouteSpec[] {
   const dir: string = mailDir;
 
   async function visibleMail(orgId: string) {
-    const ours = new Set((await listMemberEmails(deps.db, orgId)).map((e) => e.toLowerCase()));
-    return (await readMailbox(dir)).filter((m) => m.to.some((to) => ours.has(to.toLowerCase())));
+    return (await readMailbox(dir)).filter((m) => m.organisationId === orgId);
   }
 
   return [
