@@ -27,6 +27,10 @@ const sections: Record<string, () => Promise<unknown> | unknown> = {
     console.log('-- with the server\'s setting (--max-semi-space-size=128):');
     node(['--max-semi-space-size=128', '--import', 'tsx', 'scripts/bench-engine.ts']);
   },
+  flooding: () => {
+    console.log('-- with Node defaults:');
+    node(['--import', 'tsx', 'scripts/bench-flooding.ts']);
+  },
   sync: async () => (await import('./bench-sync')).main(),
   bundle: async () => (await import('./bench-bundle')).main(),
 };

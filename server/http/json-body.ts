@@ -6,7 +6,7 @@
  * Only when the scan saw an escaped NUL is the parsed body walked to name the fields that hold one.
  */
 import express, { type RequestHandler } from 'express';
-import { HttpError } from './errors';
+import { badRequest, validationFailed } from '../errors';
 
 /** Deepest nesting a request body may have. A survey change nests about a dozen levels. */
 export const MAX_JSON_DEPTH = 64;
@@ -67,14 +67,14 @@ export function jsonBody(opts: { limit: string }): RequestHandler[] {
     const scan = scans.get(req);
     if (!scan) return next();
     if (scan.tooDeep) {
-      return next(new HttpError(400, 'bad_request', `The request body nests more than ${MAX_JSON_DEPTH} levels deep.`));
+      return next(badRequest(`The request body nests more than ${MAX_JSON_DEPTH} levels deep.`));
     }
     if (scan.hasNul) {
       const paths = nulPaths(req.body);
       if (paths.length) {
         const message = 'must not contain the NUL character (U+0000)';
         return next(
-          new HttpError(400, 'validation_failed', `Some fields hold the NUL character (U+0000): ${paths.join(', ')}.`, paths.map((p) => ({ path: p, message }))),
+          validationFailed(`Some fields hold the NUL character (U+0000): ${paths.join(', ')}.`, paths.map((p) => ({ path: p, message }))),
         );
       }
     }

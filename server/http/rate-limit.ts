@@ -18,7 +18,7 @@ import { ipKeyGenerator } from 'express-rate-limit';
 import { RateLimiterPostgres, RateLimiterRes } from 'rate-limiter-flexible';
 import type { Config } from '../config';
 import type { Db } from '../db/knex';
-import { HttpError, rateLimited } from './errors';
+import { rateLimited, type DomainError } from '../errors';
 
 export const DEVICE_COOKIE = 'brineline_device';
 const DEVICE_COOKIE_DAYS = 365;
@@ -48,7 +48,7 @@ function limiter(db: Db, keyPrefix: string, points: number, durationSeconds: num
 }
 
 /** A store error (the database down) is the server's problem: rethrown as is; a refusal becomes 429. */
-function tooMany(res: Response, msBeforeNext: number, message: string): HttpError {
+function tooMany(res: Response, msBeforeNext: number, message: string): DomainError {
   res.setHeader('Retry-After', String(Math.max(1, Math.ceil(msBeforeNext / 1000))));
   return rateLimited(message);
 }

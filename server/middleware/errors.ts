@@ -1,9 +1,27 @@
-/** The one place that turns any error into `{ error: { code, message, details, requestId } }`. */
+/**
+ * The one place that turns any error into `{ error: { code, message, details, requestId } }`, and
+ * the one place that knows which HTTP status each domain error code answers with.
+ */
 import type { ErrorRequestHandler, RequestHandler } from 'express';
 import { ZodError } from 'zod';
-import type { ErrorBody } from '@shared/api/errors';
+import type { ErrorBody, ErrorCode } from '@shared/api/errors';
 import { formatZodIssues } from '@shared/api/format-issues';
-import { HttpError, notFound } from '../http/errors';
+import { DomainError, notFound } from '../errors';
+
+export const STATUS_OF: Record<ErrorCode, number> = {
+  bad_request: 400,
+  validation_failed: 400,
+  unauthorized: 401,
+  forbidden: 403,
+  not_found: 404,
+  conflict: 409,
+  payload_too_large: 413,
+  unsupported_media_type: 415,
+  rate_limited: 429,
+  internal: 500,
+  service_unavailable: 503,
+  db_unavailable: 503,
+};
 
 export const apiNotFound: RequestHandler = (req, _res, next) => {
   next(notFound(`No API route ${req.method} ${req.path}.`));
@@ -41,8 +59,8 @@ export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
   const requestId = String(req.id ?? '');
   let status = 500;
   let body: ErrorBody['error'];
-  if (err instanceof HttpError) {
-    status = err.status;
+  if (err instanceof DomainError) {
+    status = STATUS_OF[err.code];
     body = { code: err.code, message: err.message, details: err.details, requestId };
   } else if (err instanceof ZodError) {
     status = 400;

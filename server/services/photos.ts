@@ -8,15 +8,15 @@ import { createHash, randomUUID } from 'node:crypto';
 import { fileTypeFromBuffer } from 'file-type';
 import type { Db } from '../db/knex';
 import type { AuthContext } from '../http/auth-context';
-import { HttpError, notFound, conflict } from '../http/errors';
+import { conflict, notFound, unsupportedMediaType } from '../errors';
 import { PHOTO_TYPES, type Photo, type PhotoUploadFields } from '@shared/api/photos';
 import type { PhotoStorage, StoredObject } from '../storage/photo-store';
 import { findPhoto, findPhotoAnyOrg, insertPhoto, listPhotos as listRows, publicPhoto, surveyInOrg } from '../db/repositories/photos';
 
-export const unsupportedType = () =>
-  new HttpError(415, 'unsupported_media_type', 'This file is not a photo Brineline accepts. Send a JPEG, PNG, WebP or HEIC image.');
+const unsupportedType = () =>
+  unsupportedMediaType('This file is not a photo Brineline accepts. Send a JPEG, PNG, WebP or HEIC image.');
 
-export async function uploadPhoto(
+async function uploadPhoto(
   db: Db,
   storage: PhotoStorage,
   auth: AuthContext,
@@ -65,7 +65,7 @@ export async function uploadPhoto(
   return { photo: publicPhoto(stored!), created: true };
 }
 
-export async function readPhoto(db: Db, storage: PhotoStorage, auth: AuthContext, id: string): Promise<{ photo: Photo; object: StoredObject }> {
+async function readPhoto(db: Db, storage: PhotoStorage, auth: AuthContext, id: string): Promise<{ photo: Photo; object: StoredObject }> {
   const p = await findPhoto(db, auth.orgId, id);
   if (!p) throw notFound('No such photo.');
   const object = await storage.get(p.storageKey);
@@ -73,7 +73,18 @@ export async function readPhoto(db: Db, storage: PhotoStorage, auth: AuthContext
   return { photo: publicPhoto(p), object };
 }
 
-export async function listPhotos(db: Db, auth: AuthContext, surveyId: string): Promise<Photo[]> {
+async function listPhotos(db: Db, auth: AuthContext, surveyId: string): Promise<Photo[]> {
   if (!(await surveyInOrg(db, auth.orgId, surveyId))) throw notFound('No such survey.');
   return (await listRows(db, auth.orgId, surveyId)).map(publicPhoto);
 }
+
+export function createPhotoService(deps: { db: Db; storage: PhotoStorage }) {
+  const { db, storage } = deps;
+  return {
+    upload: (auth: AuthContext, id: string, fields: PhotoUploadFields, bytes: Buffer) => uploadPhoto(db, storage, auth, id, fields, bytes),
+    read: (auth: AuthContext, id: string) => readPhoto(db, storage, auth, id),
+    list: (auth: AuthContext, surveyId: string) => listPhotos(db, auth, surveyId),
+  };
+}
+
+export type PhotoService = ReturnType<typeof createPhotoService>;

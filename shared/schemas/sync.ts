@@ -210,8 +210,8 @@ export const PushResponseSchema = z.object({
 });
 export type PushResponse = z.infer<typeof PushResponseSchema>;
 
-/** Engine results stored for one revision. */
-export const SurveyResultsSchema = z.object({
+/** Engine results stored for one revision (the engine's own output type is `SurveyResults` in shared/engine). */
+export const StoredResultsSchema = z.object({
   revision: z.number().int(),
   engineVersion: z.string(),
   computedAt: z.string(),
@@ -219,7 +219,7 @@ export const SurveyResultsSchema = z.object({
   results: z.unknown(),
   error: z.string().nullable(),
 });
-export type SurveyResults = z.infer<typeof SurveyResultsSchema>;
+export type StoredResults = z.infer<typeof StoredResultsSchema>;
 
 export const SurveySummarySchema = z.object({
   id: z.uuid(),
@@ -238,7 +238,7 @@ export type SurveySummary = z.infer<typeof SurveySummarySchema>;
 
 export const SurveyDetailSchema = SurveySummarySchema.extend({
   doc: UpgradingSurveySchema,
-  results: SurveyResultsSchema.nullable(),
+  results: StoredResultsSchema.nullable(),
   conflicts: z.array(ConflictSchema),
 });
 export type SurveyDetail = z.infer<typeof SurveyDetailSchema>;
