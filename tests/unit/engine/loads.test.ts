@@ -1,6 +1,5 @@
 import { describe, expect, it } from 'vitest';
 import { computeSurvey } from '@shared/engine';
-import { leastSquares, orificeFlow, timeToPumpOut } from '@shared/engine/inflow';
 import { baseSurvey, boxCompartment, contents, polygonBoundary, tid } from './fixtures';
 
 const G = 9.80665;
@@ -124,20 +123,5 @@ describe('flat plate loads', () => {
     expect(total).toBeCloseTo(r.net.forceN, 4);
     expect(r.shores[0].tributaryAreaM2).toBeCloseTo(40, 9);
     expect(r.shores[0].tributaryForceN).toBeCloseTo(1000 * G * 10 * (36 - 4) / 2, 4);
-  });
-});
-
-describe('inflow', () => {
-  it('orifice: Q = Cd A √(2 g h)', () => {
-    const h = 3;
-    expect(orificeFlow(0.1, 0.6, 1025 * G * h, 0, 1025)).toBeCloseTo(0.6 * 0.1 * Math.sqrt(2 * G * h), 12);
-    expect(orificeFlow(0.1, 0.6, 1000, 1000, 1025)).toBe(0);
-  });
-  it('least squares and time to pump out', () => {
-    const f = leastSquares([0, 1, 2, 3], [10, 12, 14, 16]);
-    expect(f.slope).toBeCloseTo(2, 12);
-    expect(f.r2).toBeCloseTo(1, 12);
-    expect(timeToPumpOut(100, 0.05, 0.03)).toBeCloseTo(5000, 9);
-    expect(timeToPumpOut(100, 0.02, 0.03)).toBeNull();
   });
 });

@@ -13,7 +13,8 @@ import type { BoundaryResult, SurveyResults } from '@shared/engine/results';
 import type { UnitSystem } from '@shared/units/units';
 import { num, unitLabel } from '@client/lib/unit-system';
 import { UtilisationBadge } from './utilisation';
-import { fmtPoint, sideName } from './side-name';
+import { pointWords } from '@shared/units/point-words';
+import { sideName } from './side-name';
 
 const col = createColumnHelper<BoundaryResult>();
 
@@ -57,7 +58,7 @@ export function BoundaryResultsTable({
         header: `Centre of pressure (${unitLabel('length', system)})`,
         sortUndefined: 'last',
         cell: (c) => (
-          <span className="text-sm">{fmtPoint(c.row.original.net.centreOfPressure, (v) => num(v, 'length', system, 3))}</span>
+          <span className="text-sm">{pointWords(c.row.original.net.centreOfPressure, system)}</span>
         ),
       }),
       col.accessor((b) => b.maxUtilisation ?? -1, {
