@@ -3,7 +3,7 @@
  * Skerrow Marine Salvage after grounding. Used by the seed, the UI's demo and the CLI example
  * (seeds/demo-survey.json is generated from it by scripts/gen-schema.ts).
  */
-import type { Boundary, Point3, Survey } from '@shared/schemas/survey';
+import { SURVEY_SCHEMA_VERSION, type Boundary, type Point3, type Survey } from '@shared/schemas/survey';
 
 /** Fixed ids so the demo is the same everywhere. */
 const id = (n: number): string => `5eed0000-0000-4000-8000-${n.toString(16).padStart(12, '0')}`;
@@ -71,7 +71,7 @@ const timberShore = (n: number, y: number, z: number, lengthM: number, sideM: nu
 
 export function demoSurvey(): Survey {
   return {
-    schemaVersion: 1,
+    schemaVersion: SURVEY_SCHEMA_VERSION,
     id: ID.survey,
     vesselId: ID.vessel,
     title: 'MV Corran Tide — grounding, Sound of Skerrow',
@@ -79,10 +79,11 @@ export function demoSurvey(): Survey {
       'Grounded on a falling tide; shell set in and holed at No. 1 starboard, No. 1 \'tween deck open to the sea, ' +
       'No. 2 hold making water through a cracked shell plate, engine room flooded from a failed sea chest with diesel ' +
       'floating on the flood water. Listing to starboard, trimmed by the stern. Surveyed for Skerrow Marine Salvage by ' +
-      'I. Mackinnon (salvage surveyor); model checked ashore by R. Fennick (naval architect).',
+      'Ines Achterberg (salvage surveyor), for review ashore by Tomas Varga (naval architect).',
     vessel: {
       name: 'MV Corran Tide',
       imo: '9000015',
+      shipTimeOffsetMin: 60,
       lbpM: 118,
       breadthM: 18,
       depthM: 11,
@@ -309,5 +310,26 @@ export function demoSurvey(): Survey {
         contentType: 'image/jpeg',
       },
     ],
+  };
+}
+
+/**
+ * A second invented casualty, already sent for review by the demo surveyor, so the engineer's queue
+ * is not empty on first sign-in. The same model as the first under another ship's name and id.
+ */
+export const DEMO_SUBMITTED_SURVEY_ID = '3c9e1a20-7b4d-4e61-9f0a-5d2c8b7e4a11';
+
+export function demoSubmittedSurvey(): Survey {
+  const base = demoSurvey();
+  return {
+    ...base,
+    id: DEMO_SUBMITTED_SURVEY_ID,
+    vesselId: undefined,
+    title: 'MV Lunga Sound: collision damage, Firth of Skerrow',
+    casualtyDescription:
+      'Struck on the starboard side forward in fog; No. 1 \'tween deck open to the sea and No. 2 hold making water. ' +
+      'Surveyed for Skerrow Marine Salvage by Ines Achterberg (salvage surveyor), for review ashore by Tomas Varga (naval architect).',
+    // 9×7 + 1×6 + 2×5 + 3×4 + 4×3 + 5×2 = 113: check digit 3
+    vessel: { ...base.vessel, name: 'MV Lunga Sound', imo: '9123453' },
   };
 }

@@ -11,3 +11,24 @@ export { ENGINE_VERSION } from './version';
 export { HEEL_AGREEMENT_TOLERANCE_DEG } from './frame';
 export { joinWords, levelReadingMissing, missingShipReadings, withheldSentence } from './readings';
 export type * from './results';
+export {
+  conditionAtAttitude,
+  floodWeightsFromResults,
+  responseFromWeights,
+  shipResponseOf,
+  LARGE_TRIM_FRACTION,
+  SMALL_ANGLE_LIMIT_DEG,
+  type FloodWeight,
+  type ShipAttitude,
+  type ShipResponse,
+  type StabilityWarning,
+} from './stability';
+export { boxBmL, boxBmT, boxKb, intactShip, type IntactShip } from './hydrostatics';
+export {
+  downfloodingFreeboards,
+  measuredAttitude,
+  readingsVersusModel,
+  READING_TOLERANCE,
+  type DownfloodingFreeboard,
+  type ReadingsCheck,
+} from './stability-check';

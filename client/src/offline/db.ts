@@ -5,9 +5,10 @@
  * Schema versions are append-only: never edit a version that has shipped; add `version(n + 1)`
  * with the new stores (and an `upgrade` when existing rows must change).
  */
-import { Dexie, type EntityTable } from 'dexie';
+import { Dexie, type EntityTable, type Transaction } from 'dexie';
 import type { Survey } from '@shared/schemas/survey';
 import type { CommentTarget, ReviewNotes } from '@shared/api/review';
+import { needsUpgrade, upgradeSurvey } from '@shared/schemas/upgrade';
 import type { Conflict, SurveyChange, SurveyStatus, UserRef } from '@shared/schemas/sync';
 
 export interface LocalSurvey {
@@ -122,7 +123,26 @@ export function openDb(name = DB_NAME): BrinelineDb {
       await tx.table<LocalReviewNotes, string>('reviewNotes').bulkPut(notes);
       await meta.bulkDelete(legacy.map((row) => row.key));
     });
+  // Survey format v2 (shared/schemas/upgrade.ts): same stores, documents upgraded.
+  db.version(3).upgrade(upgradeStoredSurveys);
   return db;
+}
+
+/**
+ * Brings every survey document on the device up to the current format: the working copy, the
+ * server's copy and a survey waiting in the outbox to be created. Runs inside Dexie's version
+ * upgrade, before anything else can read the store.
+ */
+export async function upgradeStoredSurveys(tx: Transaction): Promise<void> {
+  await tx.table<LocalSurvey>('surveys').toCollection().modify((row) => {
+    row.doc = upgradeSurvey(row.doc) as Survey;
+    if (row.serverDoc) row.serverDoc = upgradeSurvey(row.serverDoc) as Survey;
+  });
+  await tx.table<OutboxEntry>('outbox').toCollection().modify((entry) => {
+    if (entry.op.kind === 'create' && needsUpgrade(entry.op.survey)) {
+      entry.op = { ...entry.op, survey: upgradeSurvey(entry.op.survey) as Survey };
+    }
+  });
 }
 
 export const db: BrinelineDb = openDb();

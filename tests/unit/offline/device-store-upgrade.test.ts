@@ -57,7 +57,7 @@ describe('device store upgrade to version 2', () => {
     opened.push(db);
     await db.open();
 
-    expect(db.verno).toBe(2);
+    expect(db.verno).toBe(3);
     const moved = await db.reviewNotes.toArray();
     expect(moved.map((n) => n.surveyId).sort()).toEqual([SURVEY_A, SURVEY_B]);
     expect((await db.reviewNotes.get(SURVEY_A))?.lastEvent?.note).toBe('Re-sound No. 2 hold');
@@ -80,7 +80,7 @@ describe('device store upgrade to version 2', () => {
     const db = openDb(`fresh-${crypto.randomUUID()}`);
     opened.push(db);
     await db.open();
-    expect(db.verno).toBe(2);
+    expect(db.verno).toBe(3);
     expect(db.tables.map((t) => t.name).sort()).toEqual(['conflicts', 'meta', 'outbox', 'photos', 'replies', 'reviewNotes', 'surveys']);
   });
 });

@@ -7,7 +7,7 @@ import { useMemo, useState } from 'react';
 import { Link } from 'react-router';
 import { computeSurvey } from '@shared/engine';
 import type { SurveyResults } from '@shared/engine/results';
-import { SurveySchema, type Survey } from '@shared/schemas/survey';
+import { UpgradingSurveySchema, type Survey } from '@shared/schemas/survey';
 import { compareResults } from '@shared/review/compare';
 import { REVIEWABLE_STATUSES } from '@shared/review/status';
 import { Cautions } from '@client/components/layout/cautions';
@@ -45,7 +45,7 @@ export function ReviewDesk({ surveyId }: { surveyId: string }) {
   const system = useUnitSystem();
   const [tab, setTab] = useState<Tab>('results');
   const [selected, setSelected] = useState<string | null>(null);
-  const parsed = useMemo(() => (review.data ? SurveySchema.safeParse(review.data.doc) : null), [review.data]);
+  const parsed = useMemo(() => (review.data ? UpgradingSurveySchema.safeParse(review.data.doc) : null), [review.data]);
   const doc = parsed?.success ? parsed.data : null;
   const device = useDeviceNumbers(doc);
   const server = (review.data?.serverResults ?? null) as SurveyResults | null;
