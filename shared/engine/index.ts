@@ -8,6 +8,10 @@ export {
   type PumpingStepResult,
 } from './pumping';
 export { ENGINE_VERSION } from './version';
+export { facetOrientation, reverseFacets, type FacetOrientation } from './facets';
+export { aiscE3, columnCheck, ndsColumnStability, AISC_OMEGA_C, NDS_LE_D_LIMIT } from './column-design';
+export { ROARK_SOURCE } from './plating';
+export { governingCheck, type GoverningCheck } from './governing';
 export { HEEL_AGREEMENT_TOLERANCE_DEG } from './frame';
 export { joinWords, levelReadingMissing, missingShipReadings, withheldSentence } from './readings';
 export type * from './results';
