@@ -751,6 +751,7 @@ function flatNet(b: Boundary, plate: FlatPlate, it: PlateIntegration, up: V3, wa
     horizontalDirection: horizontalDirection(fx, fy, fz, up, vertical, hn),
     centreOfPressure: hasCop ? platePoint(fr, cu, cv) : null,
     centreOfPressurePlate: hasCop ? { u: cu, v: cv } : null,
+    centreOfPressureAboveLowestM: hasCop ? fr.k * (cv - plate.vMin) : null,
     lineOfAction: hasCop
       ? { point: platePoint(fr, cu, cv), direction: F >= 0 ? { x: n[0], y: n[1], z: n[2] } : { x: n[0] * -1, y: n[1] * -1, z: n[2] * -1 } }
       : null,
@@ -1063,6 +1064,8 @@ function facetedBoundary(
     warn('facets-closed', 'info', b.id, `${b.name}: the facets' normals cancel (a closed surface?); the net force is given along its own direction`);
   }
   const cancels = nearlyCancels(Fm, side.fa, side.fb);
+  let lowest = Infinity;
+  for (const pts of facets) for (const q of pts) lowest = Math.min(lowest, dot(q, up));
   let point: V3 | null = null;
   let residual = 0;
   if (Fm > 0 && !cancels) {
@@ -1080,6 +1083,7 @@ function facetedBoundary(
     ...earthSplit(F, up),
     centreOfPressure: point ? toPoint(point) : null,
     centreOfPressurePlate: null,
+    centreOfPressureAboveLowestM: point ? dot(point, up) - lowest : null,
     lineOfAction: point ? { point: toPoint(point), direction: toPoint(unit(F)) } : null,
     residualMomentNm: residual,
     positive: { forceN: norm(Fp), areaM2: Ap, centreOfPressure: null },

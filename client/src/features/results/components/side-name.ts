@@ -6,6 +6,3 @@ export function sideName(results: SurveyResults, side: { kind: 'compartment' | '
   if (side.kind === 'air') return 'Open air';
   return results.compartments.find((c) => c.id === side.compartmentId)?.name ?? 'Unknown space';
 }
-
-export const fmtPoint = (p: { x: number; y: number; z: number } | null, f: (v: number) => string): string =>
-  p ? `x ${f(p.x)}, y ${f(p.y)}, z ${f(p.z)}` : '—';
