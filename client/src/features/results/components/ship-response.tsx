@@ -55,9 +55,9 @@ export function ShipResponsePanel({ survey, results, system }: { survey: Survey;
   const nearest = downfloodingFreeboards(survey, condition, response)[0];
   const L = (v: number | null | undefined, d = 3) => fmt(v, 'length', system, d);
   const rows: { label: string; get: (a: ShipAttitude) => string }[] = [
-    { label: 'Draft aft', get: (a) => num(a.draftAftM, 'length', system, 3) },
-    { label: 'Draft fwd', get: (a) => num(a.draftForeM, 'length', system, 3) },
-    { label: 'Mean draft', get: (a) => num(a.meanDraftM, 'length', system, 3) },
+    { label: 'Draft aft', get: (a) => num(a.draftAftM, 'length', system, 4) },
+    { label: 'Draft fwd', get: (a) => num(a.draftForeM, 'length', system, 4) },
+    { label: 'Mean draft', get: (a) => num(a.meanDraftM, 'length', system, 4) },
     { label: 'Trim', get: (a) => `${num(Math.abs(a.trimM), 'length', system, 2)} ${a.trimM > 0.005 ? 'stern' : a.trimM < -0.005 ? 'head' : ''}` },
     { label: 'Heel', get: (a) => heelText(a.heelDeg) },
   ];
@@ -97,13 +97,13 @@ export function ShipResponsePanel({ survey, results, system }: { survey: Survey;
         <div>
           <dt className="text-xs font-bold uppercase text-ink-soft">GM fluid</dt>
           <dd className="text-lg font-bold tabular-nums" data-testid="gm-fluid">
-            {L(response.gmFluidM)}
+            {L(response.gmFluidM, 4)}
           </dd>
         </div>
         <div>
           <dt className="text-xs font-bold uppercase text-ink-soft">GM solid</dt>
           <dd className="tabular-nums" data-testid="gm-solid">
-            {L(response.gmSolidM)}
+            {L(response.gmSolidM, 4)}
           </dd>
         </div>
         <div>
