@@ -26,7 +26,7 @@ afterAll(async () => {
 // The wing tank: x 20–30 m, 4 m wide from the starboard side (y −6 to −2 m), full depth, permeability 1.
 const L = 60, B = 12, T0 = 2, KG0 = 3, RHO = 1025;
 const tank = { xa: 20, xf: 30, ya: -6, yb: -2 };
-const SOUNDING = 2.5; // m above the tank bottom, upright: the water stands 2.5 m deep
+const SOUNDING = 3; // m above the tank bottom, upright: the water stands 3 m deep (the form starts at half height, 2.5 m)
 
 function bargeFile(): string {
   const id = crypto.randomUUID(), cond = crypto.randomUUID(), comp = crypto.randomUUID();
