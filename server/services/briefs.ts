@@ -10,13 +10,13 @@ import { UpgradingSurveySchema } from '@shared/schemas/survey';
 import { BRIEFABLE_STATUSES, STATUS_LABELS } from '@shared/review/status';
 import type { Config } from '../config';
 import type { AuthContext } from '../http/auth-context';
-import { conflict, notFound } from '../http/errors';
+import { conflict, notFound } from '../errors';
 import type { Mailer } from '../mail/mailer';
 import { briefMail } from '../mail/brief-mail';
 import { briefPath, hashBriefToken, looksLikeBriefToken, newBriefToken } from '../brief/brief-token';
 import type { BriefPageData } from '../brief/render-brief';
 import * as repo from '../db/repositories/review';
-import { ensureResults } from './surveys';
+import { ensureResults } from './engine-results';
 
 export function createBriefService(deps: { db: Knex; config: Pick<Config, 'publicUrl'>; mailer: Mailer }) {
   const { db, config, mailer } = deps;
@@ -98,3 +98,5 @@ export function createBriefService(deps: { db: Knex; config: Pick<Config, 'publi
 
   return { issue, revoke, open };
 }
+
+export type BriefService = ReturnType<typeof createBriefService>;

@@ -135,7 +135,7 @@ describe('history', () => {
 
     // Revision 1's results were stored when it was current (the desk asked for them).
     await t.db('survey_results').where({ survey_id: s.id }).delete();
-    const { ensureResults } = await import('../../server/services/surveys');
+    const { ensureResults } = await import('../../server/services/engine-results');
     await ensureResults(t.db, s.id, 1, s);
     const cmp = await call('GET', `/api/surveys/${s.id}/compare?a=1&b=2`, tok.engineer!);
     expect(cmp.status).toBe(200);

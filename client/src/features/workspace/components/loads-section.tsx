@@ -8,6 +8,7 @@ import { AttitudeInUse } from '@client/features/results/components/ship-response
 import type { SectionProps } from '../utils/types';
 import { secondaryBtn } from '@client/components/ui/fields';
 import { useSearchParams } from 'react-router';
+import { WithheldNotice } from './withheld-notice';
 
 export function LoadsSection({ survey, results, system, selectedId, select }: SectionProps) {
   const [, setParams] = useSearchParams();
@@ -18,6 +19,7 @@ export function LoadsSection({ survey, results, system, selectedId, select }: Se
       <h2 id="loads-h" className="text-2xl">
         Loads
       </h2>
+      <WithheldNotice results={results} />
       <ShipTotals results={results} system={system} />
       <AttitudeInUse survey={survey} results={results} system={system} />
       <EngineWarnings results={results} />
