@@ -9,7 +9,10 @@ export {
 } from './compute-survey';
 export { boundaryIndex, boundaryRow, boundaryRows, tableOfRows } from './boundary-table';
 export { ENGINE_VERSION } from './version';
-export { HEEL_AGREEMENT_TOLERANCE_DEG } from './frame';
+export { DEFAULT_SEA_DENSITY_KG_M3, HEEL_AGREEMENT_TOLERANCE_DEG } from './frame';
+/** Solids and outlines for drawing (the 3D model), cut by the same geometry the loads use. */
+export { boundaryPolygons, compartmentSolid, liquidBody } from './mesh';
+export type { V3 } from './vec';
 export { joinWords, levelReadingMissing, missingShipReadings, withheldSentence } from './readings';
 export type * from './results';
 export {
