@@ -5,20 +5,47 @@ import tseslint from 'typescript-eslint';
 import reactHooks from 'eslint-plugin-react-hooks';
 import globals from 'globals';
 
-/** A tiny local rule: a file in client/src/features/<a>/ may not import client/src/features/<b>/. */
+/**
+ * Building-block features: domain views and state that several screens show (results tables, the 3D model,
+ * the reviewer's notes on the device, the sync status). Screen features (workspace, review, auth, members,
+ * dev-mail, status) may import them; a building block imports no feature at all, and screens never import
+ * each other. So the graph stays two layers deep and has no circles. See DEVELOPERS.md, "Client rooms".
+ */
+const BUILDING_BLOCKS = new Set(['results', 'model3d', 'review-notes', 'sync']);
+
+/**
+ * A tiny local rule for client/src/:
+ * - a file in features/<a>/ may import features/<b>/ only when <a> is a screen and <b> a building block;
+ * - components/, lib/, offline/ and config/ (shared by every feature) import no feature.
+ */
 const boundaries = {
   rules: {
     'no-cross-feature': {
-      meta: { type: 'problem', messages: { cross: 'Feature "{{from}}" must not import feature "{{to}}": move the shared part to components/ or lib/.' } },
+      meta: {
+        type: 'problem',
+        messages: {
+          cross: 'Feature "{{from}}" must not import feature "{{to}}": only screen features import building blocks ({{blocks}}); move the shared part to components/ or lib/.',
+          shared: 'Shared client code ({{from}}/) must not import feature "{{to}}": move it into that feature, or the shared part down here.',
+        },
+      },
       create(context) {
         const file = context.filename.replaceAll('\\', '/');
         const own = /client\/src\/features\/([^/]+)\//.exec(file)?.[1];
-        if (!own) return {};
+        const sharedDir = /client\/src\/(components|lib|offline|config)\//.exec(file)?.[1];
+        if (!own && !sharedDir) return {};
         const check = (node) => {
           const src = node.source?.value;
           if (typeof src !== 'string') return;
           const m = /(?:@client\/features\/|\.\.\/(?:\.\.\/)*features\/)([^/]+)/.exec(src);
-          if (m && m[1] !== own) context.report({ node, messageId: 'cross', data: { from: own, to: m[1] } });
+          if (!m) return;
+          const to = m[1];
+          if (sharedDir) {
+            context.report({ node, messageId: 'shared', data: { from: sharedDir, to } });
+            return;
+          }
+          if (to === own) return;
+          if (!BUILDING_BLOCKS.has(own) && BUILDING_BLOCKS.has(to)) return;
+          context.report({ node, messageId: 'cross', data: { from: own, to, blocks: [...BUILDING_BLOCKS].join(', ') } });
         };
         return { ImportDeclaration: check, ImportExpression: check, ExportNamedDeclaration: check, ExportAllDeclaration: check };
       },

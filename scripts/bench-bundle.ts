@@ -59,7 +59,7 @@ export async function main(): Promise<{ routes: Record<string, number>; model3dK
     for (const r of results) {
       console.log(`  ${r.route.padEnd(12)} ${kb(r.bytes).padStart(9)}  (${r.files} files)  ${r.bytes / 1024 <= GOAL_KB ? 'OK' : 'OVER GOAL'}`);
     }
-    const sceneKey = Object.keys(manifest).find((k) => k.includes('components/model3d/survey-scene'));
+    const sceneKey = Object.keys(manifest).find((k) => k.includes('features/model3d/components/survey-scene'));
     let model3dKb = 0;
     if (sceneKey) {
       const own = closure(manifest, sceneKey);

@@ -12,7 +12,7 @@ import { loadavg } from 'node:os';
 import { resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { computeSurvey, type SurveyResults } from '@shared/engine';
-import type { Boundary, Compartment, Contents, Survey } from '@shared/schemas/survey';
+import { SURVEY_SCHEMA_VERSION, type Boundary, type Compartment, type Contents, type Survey } from '@shared/schemas/survey';
 import { pascalPressure } from '../tests/support/pascal';
 
 const uuid = (n: number) => `be9c0000-0000-4000-8000-${n.toString(16).padStart(12, '0')}`;
@@ -100,7 +100,7 @@ export function generateVessel(): Survey {
     }
   }
   return {
-    schemaVersion: 1,
+    schemaVersion: SURVEY_SCHEMA_VERSION,
     id: uuid(n++),
     title: 'Benchmark vessel',
     casualtyDescription: 'generated',

@@ -23,7 +23,8 @@ import { createOrgWithMembers } from '../tests/support/auth';
 import { newSurvey, tokenFor } from '../tests/support/surveys';
 import { createDb } from '../server/db/knex';
 import { loadConfig } from '../server/config';
-import { push, pull } from '../server/services/sync';
+import { push } from '../server/services/sync/push';
+import { pull } from '../server/services/sync/pull';
 import type { AuthContext } from '../server/http/auth-context';
 import { computeSurvey } from '@shared/engine';
 

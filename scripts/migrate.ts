@@ -1,6 +1,6 @@
 /** `npm run migrate`: applies pending migrations to DATABASE_URL (for a deployment's own database). */
 import { createDb } from '../server/db/knex';
-import { migrateLatest } from './lib/migrate';
+import { migrateLatest } from '../server/db/migrate';
 
 const url = process.env.DATABASE_URL;
 if (!url) {

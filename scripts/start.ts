@@ -7,7 +7,7 @@
 import path from 'node:path';
 import { build, createServer } from 'vite';
 import { startPostgres } from './lib/postgres';
-import { migrateLatest } from './lib/migrate';
+import { migrateLatest } from '../server/db/migrate';
 import { startMailCatcher } from './lib/mail-catcher';
 import { startS3Fake } from './lib/s3-fake';
 import { loadConfig } from '../server/config';

@@ -3,7 +3,7 @@
  * Skerrow Marine Salvage after grounding. Used by the seed, the UI's demo and the CLI example
  * (seeds/demo-survey.json is generated from it by scripts/gen-schema.ts).
  */
-import type { Boundary, Point3, Survey } from '@shared/schemas/survey';
+import { SURVEY_SCHEMA_VERSION, type Boundary, type Point3, type Survey } from '@shared/schemas/survey';
 
 /** Fixed ids so the demo is the same everywhere. */
 const id = (n: number): string => `5eed0000-0000-4000-8000-${n.toString(16).padStart(12, '0')}`;
@@ -68,7 +68,7 @@ const timberShore = (n: number, y: number, z: number, lengthM: number, sideM: nu
 
 export function demoSurvey(): Survey {
   return {
-    schemaVersion: 1,
+    schemaVersion: SURVEY_SCHEMA_VERSION,
     id: ID.survey,
     vesselId: ID.vessel,
     title: 'MV Corran Tide — grounding, Sound of Skerrow',
@@ -79,7 +79,7 @@ export function demoSurvey(): Survey {
       'I. Mackinnon (salvage surveyor); model checked ashore by R. Fennick (naval architect).',
     vessel: {
       name: 'MV Corran Tide',
-      imo: '9000017',
+      imo: '9000015',
       lbpM: 118,
       breadthM: 18,
       depthM: 11,

@@ -4,18 +4,21 @@
  */
 import express, { Router } from 'express';
 import cookieParser from 'cookie-parser';
-import type { Logger } from 'pino';
 import fs from 'node:fs';
 import path from 'node:path';
-import type { Db } from './db/knex';
 import type { Config } from './config';
-import { defineRoutes, type RegisteredRoute, type RouteSpec, type AccessVerifier } from './http/route';
+import type { AppContext, AppDeps } from './context';
+import { defineRoutes, type RegisteredRoute, type RouteSpec } from './http/route';
 import { apiNotFound, errorHandler } from './middleware/errors';
 import { requestLogging } from './http/request-log';
 import { securityHeaders } from './http/security-headers';
+import { sameOrigin } from './http/same-origin';
+import { authRateLimits } from './http/rate-limit';
+import { createMailer } from './mail/mailer';
+import { createS3PhotoStorage } from './storage/photo-store';
+import { createServices, type AppServices } from './services';
+import { jsonBody } from './http/json-body';
 import { healthRoutes } from './routes/health';
-import { createAccessVerifier } from './services/access';
-import { createMailer, type Mailer } from './mail/mailer';
 import { authRoutes, REFRESH_COOKIE_PATH } from './routes/auth';
 import { memberRoutes } from './routes/members';
 import { devMailRoutes } from './routes/dev-mail';
@@ -23,39 +26,41 @@ import { surveyRoutes } from './routes/surveys';
 import { reviewRoutes } from './routes/review';
 import { briefPageRoutes } from './routes/brief-page';
 import { photoRoutes } from './routes/photos';
-import { createS3PhotoStorage, type PhotoStorage } from './storage/photo-store';
 
-export interface AppDeps {
-  db: Db;
-  config: Config;
-  logger: Logger;
-  /** Folder with the built client (index.html and assets); not served when absent. */
-  clientDir?: string;
-  /** Outgoing e-mail; nodemailer over SMTP_URL when not given. */
-  mailer?: Mailer;
-  /** Photo bytes; S3-compatible storage from S3_* config when not given. */
-  storage?: PhotoStorage;
-}
-
-/** The dependencies route groups receive: AppDeps with every optional service resolved. */
-export type AppContext = AppDeps & { mailer: Mailer; storage: PhotoStorage };
+export type { AppDeps } from './context';
 
 export interface BrinelineApp extends express.Express {
   locals: express.Express['locals'] & { routes: RegisteredRoute[] };
 }
 
-/** The API route groups, each a function of the app's dependencies. */
-function routeGroups(deps: AppContext): RouteSpec[][] {
-  return [healthRoutes(deps), authRoutes(deps), memberRoutes(deps), devMailRoutes(deps), surveyRoutes(deps), reviewRoutes(deps), photoRoutes(deps)];
+/** The API route groups, each a function of the services it uses. */
+function routeGroups(s: AppServices, config: Config): RouteSpec[][] {
+  const authEdge = {
+    secure: config.publicUrl.startsWith('https:'),
+    origin: sameOrigin(config),
+    signInLimits: authRateLimits(config, { onlyFailures: true }),
+    resetLimits: authRateLimits(config, { onlyFailures: false }),
+  };
+  return [
+    healthRoutes(s.health),
+    authRoutes(s, authEdge),
+    memberRoutes(s),
+    devMailRoutes(s.devMail),
+    surveyRoutes(s),
+    reviewRoutes(s),
+    photoRoutes(s.photos),
+  ];
 }
 
 /** Pages served outside /api and the app shell (the master's brief); registered before the SPA fallback. */
-function pageGroups(deps: AppContext): RouteSpec[][] {
-  return [briefPageRoutes(deps)];
+function pageGroups(s: AppServices): RouteSpec[][] {
+  return [briefPageRoutes(s.briefs)];
 }
 
+/** The composition root: resolves the optional dependencies, builds every service once, registers the routes. */
 export function createApp(given: AppDeps): BrinelineApp {
   const deps: AppContext = { ...given, mailer: given.mailer ?? createMailer(given.config), storage: given.storage ?? createS3PhotoStorage(given.config) };
+  const services = createServices(deps);
   const app = express() as BrinelineApp;
   app.disable('x-powered-by');
   app.set('trust proxy', 'loopback');
@@ -69,15 +74,15 @@ export function createApp(given: AppDeps): BrinelineApp {
   // Only the refresh cookie is read, and browsers send it to /api/auth alone (REFRESH_COOKIE_PATH).
   app.use(REFRESH_COOKIE_PATH, cookieParser());
 
-  const verify: AccessVerifier = createAccessVerifier(deps);
+  const verify = services.access;
   const api = Router();
-  api.use(express.json({ limit: '5mb' }));
-  for (const group of routeGroups(deps)) defineRoutes(api, '/api', group, verify, app.locals.routes);
+  api.use(jsonBody({ limit: '5mb' }));
+  for (const group of routeGroups(services, deps.config)) defineRoutes(api, '/api', group, verify, app.locals.routes);
   api.use(apiNotFound);
   app.use('/api', api);
 
   const pages = Router();
-  for (const group of pageGroups(deps)) defineRoutes(pages, '', group, verify, app.locals.routes);
+  for (const group of pageGroups(services)) defineRoutes(pages, '', group, verify, app.locals.routes);
   app.use(pages);
 
   if (deps.clientDir && fs.existsSync(path.join(deps.clientDir, 'index.html'))) {

@@ -9,6 +9,7 @@ import { pino } from 'pino';
 import { createApp } from './app';
 import { loadConfig, type Config } from './config';
 import { createDb, type Db } from './db/knex';
+import { migrateLatest } from './db/migrate';
 
 export const ROOT_DIR = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..');
 
@@ -45,7 +46,6 @@ export async function startServer(config: Config, opts: { clientDir?: string; db
 const invokedDirectly = process.argv[1] && path.resolve(process.argv[1]) === fileURLToPath(import.meta.url);
 if (invokedDirectly) {
   const config = loadConfig();
-  const { migrateLatest } = await import('../scripts/lib/migrate');
   const db = createDb(config.DATABASE_URL);
   await migrateLatest(db);
   const running = await startServer(config, { db });

@@ -12,7 +12,7 @@ import { resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { computeSurvey, type SurveyResults } from '@shared/engine';
 import { formatIssues } from '@shared/schemas/format-issues';
-import { SurveySchema } from '@shared/schemas/survey';
+import { UpgradingSurveySchema } from '@shared/schemas/survey';
 import { formatNumber, formatQuantity, fromSi, type Dimension, type UnitId, type UnitSystem } from '@shared/units/units';
 
 interface Args {
@@ -68,7 +68,8 @@ export function runLoads(args: Args): SurveyResults {
   } catch (e) {
     throw new CliError(`${args.file}: not valid JSON (${(e as Error).message})`, 1);
   }
-  const parsed = SurveySchema.safeParse(doc);
+  // An older file is brought up to the current format first (shared/schemas/upgrade.ts).
+  const parsed = UpgradingSurveySchema.safeParse(doc);
   if (!parsed.success) {
     throw new CliError(`${args.file}: invalid survey\n${formatIssues(parsed.error).map((l) => `  ${l}`).join('\n')}`, 1);
   }

@@ -7,7 +7,7 @@
 import type { RequestHandler } from 'express';
 import { ipKeyGenerator, rateLimit } from 'express-rate-limit';
 import type { Config } from '../config';
-import { rateLimited } from './errors';
+import { rateLimited } from '../errors';
 
 const emailOf = (body: unknown): string => {
   const e = (body as { email?: unknown } | undefined)?.email;

@@ -14,8 +14,30 @@ function requestId(req: Request): string {
   return typeof given === 'string' && /^[\w-]{8,64}$/.test(given) ? given : randomUUID();
 }
 
-/** A brief link's token is its only key: never write it to the logs. */
-const redactUrl = (url: string | undefined) => url?.replace(/^\/brief\/[^/?#]*/, '/brief/[token]');
+/**
+ * Secrets that travel in a URL are their holder's only key (a brief link, an invitation, anything a
+ * client puts in a token-like query parameter): never write them to the logs.
+ */
+export const redactUrl = (url: string | undefined) =>
+  url
+    ?.replace(/^\/brief\/[^/?#]*/, '/brief/[token]')
+    .replace(/^\/api\/invitations\/[^/?#]*/, '/api/invitations/[token]')
+    .replace(/([?&](?:[\w-]*token|code|key|secret|password|sig|signature)=)[^&#]*/gi, '$1[redacted]');
+
+/** Headers that carry credentials: the access token, the refresh cookie, and whatever sets one. */
+const SECRET_HEADERS = new Set(['authorization', 'cookie', 'set-cookie', 'proxy-authorization', 'x-api-key']);
+
+export function redactHeaders(headers: Record<string, unknown> | undefined): Record<string, unknown> | undefined {
+  if (!headers) return headers;
+  const out: Record<string, unknown> = {};
+  for (const [name, value] of Object.entries(headers)) out[name] = SECRET_HEADERS.has(name.toLowerCase()) ? '[redacted]' : value;
+  return out;
+}
+
+interface LoggedMessage {
+  url?: string;
+  headers?: Record<string, unknown>;
+}
 
 export function requestLogging(logger: Logger): RequestHandler {
   if (logger.isLevelEnabled('info')) {
@@ -27,7 +49,15 @@ export function requestLogging(logger: Logger): RequestHandler {
         return id;
       },
       autoLogging: { ignore: (req) => (req as Request).url === '/api/health' },
-      serializers: { req: (req: { url?: string }) => ({ ...req, url: redactUrl(req.url) }) },
+      serializers: {
+        // The URL says what `query` and `params` would (redacted); those copies would not be.
+        req: ({ query: _query, params: _params, ...req }: LoggedMessage & { query?: unknown; params?: unknown }) => ({
+          ...req,
+          url: redactUrl(req.url),
+          headers: redactHeaders(req.headers),
+        }),
+        res: (res: LoggedMessage) => ({ ...res, headers: redactHeaders(res.headers) }),
+      },
     });
   }
   return (req, res, next) => {

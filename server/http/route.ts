@@ -4,7 +4,7 @@
  */
 import type { NextFunction, Request, Response, Router, RequestHandler } from 'express';
 import type { Role } from '@shared/api/roles';
-import { forbidden, unauthorized } from './errors';
+import { forbidden, unauthorized } from '../errors';
 import type { AuthContext } from './auth-context';
 
 export type Policy =

@@ -5,7 +5,7 @@
  */
 import type { RequestHandler } from 'express';
 import type { Config } from '../config';
-import { forbidden } from './errors';
+import { forbidden } from '../errors';
 
 export function sameOrigin(config: Pick<Config, 'publicUrl'>): RequestHandler {
   const publicOrigin = new URL(config.publicUrl).origin;

@@ -3,7 +3,7 @@
  * of invitations. The refresh token travels only in an httpOnly, SameSite=Strict cookie scoped to
  * /api/auth; the access token only in the response body (the client keeps it in memory).
  */
-import type { Request, Response } from 'express';
+import type { Request, RequestHandler, Response } from 'express';
 import {
   AcceptInvitationRequestSchema,
   EmailTokenSchema,
@@ -13,27 +13,28 @@ import {
   UpdateMeRequestSchema,
   type MessageResponse,
 } from '@shared/api/auth';
-import type { AppContext } from '../app';
 import { ANY_MEMBER, PUBLIC, authOf, type RouteSpec } from '../http/route';
-import { sameOrigin } from '../http/same-origin';
-import { authRateLimits } from '../http/rate-limit';
-import { notFound } from '../http/errors';
-import { createAuthService, type IssuedSession } from '../services/auth';
-import { createInvitationService } from '../services/invitations';
-import { createMemberService } from '../services/members';
+import { notFound } from '../errors';
+import type { AppServices } from '../services';
+import type { IssuedSession } from '../services/auth';
 import { requestMeta } from '../services/audit';
 
 export const REFRESH_COOKIE = 'brineline_refresh';
 export const REFRESH_COOKIE_PATH = '/api/auth';
 
-export function authRoutes(deps: AppContext): RouteSpec[] {
-  const auth = createAuthService(deps);
-  const invitations = createInvitationService({ ...deps, auth });
-  const members = createMemberService(deps);
-  const secure = deps.config.publicUrl.startsWith('https:');
-  const origin = sameOrigin(deps.config);
-  const signInLimits = authRateLimits(deps.config, { onlyFailures: true });
-  const resetLimits = authRateLimits(deps.config, { onlyFailures: false });
+/** The HTTP side of signing in, made by createApp from the config. */
+export interface AuthEdge {
+  /** The refresh cookie is `Secure` (the app is served over https). */
+  secure: boolean;
+  /** Refuses a foreign Origin on the cookie routes. */
+  origin: RequestHandler;
+  signInLimits: RequestHandler[];
+  resetLimits: RequestHandler[];
+}
+
+export function authRoutes(services: Pick<AppServices, 'auth' | 'invitations' | 'members'>, edge: AuthEdge): RouteSpec[] {
+  const { auth, invitations, members } = services;
+  const { secure, origin, signInLimits, resetLimits } = edge;
 
   const cookieOptions = { httpOnly: true, secure, sameSite: 'strict' as const, path: REFRESH_COOKIE_PATH };
   const sendSession = (res: Response, session: IssuedSession) => {

@@ -3,9 +3,8 @@
  * sign-in, no script. Unknown, expired, revoked and malformed tokens all get the same 404 page.
  */
 import type { Response } from 'express';
-import type { AppContext } from '../app';
 import { PUBLIC, type RouteSpec } from '../http/route';
-import { createBriefService } from '../services/briefs';
+import type { BriefService } from '../services/briefs';
 import { renderBriefNotFound, renderBriefPage } from '../brief/render-brief';
 
 function privateHeaders(res: Response): void {
@@ -16,9 +15,7 @@ function privateHeaders(res: Response): void {
   res.setHeader('Content-Type', 'text/html; charset=utf-8');
 }
 
-export function briefPageRoutes(deps: AppContext): RouteSpec[] {
-  const briefs = createBriefService(deps);
-  return [
+export function briefPageRoutes(briefs: BriefService): RouteSpec[] {  return [
     {
       method: 'get',
       path: '/brief/:token',

@@ -1,32 +1,22 @@
 /**
  * Development only: the messages the local mail catcher received, for admins, so invitations and
- * resets can be followed without a real mailbox. Registered only when NODE_ENV is not production
- * and DEV_MAIL_DIR is set. An admin sees only messages addressed to people of their organisation.
+ * resets can be followed without a real mailbox. Registered only when the dev-mail service exists
+ * (NODE_ENV is not production and DEV_MAIL_DIR is set).
  */
 import type { DevMailList } from '@shared/api/dev-mail';
-import type { AppContext } from '../app';
 import { authOf, roles, type RouteSpec } from '../http/route';
-import { notFound } from '../http/errors';
-import { readMailbox } from '../mail/dev-mailbox';
-import { listMemberEmails } from '../db/repositories/accounts';
+import { notFound } from '../errors';
+import type { DevMailService } from '../services/dev-mail';
 
-export function devMailRoutes(deps: AppContext): RouteSpec[] {
-  const mailDir = deps.config.DEV_MAIL_DIR;
-  if (deps.config.NODE_ENV === 'production' || !mailDir) return [];
-  const dir: string = mailDir;
-
-  async function visibleMail(orgId: string) {
-    const ours = new Set((await listMemberEmails(deps.db, orgId)).map((e) => e.toLowerCase()));
-    return (await readMailbox(dir)).filter((m) => m.to.some((to) => ours.has(to.toLowerCase())));
-  }
-
+export function devMailRoutes(devMail: DevMailService): RouteSpec[] {
+  if (!devMail) return [];
   return [
     {
       method: 'get',
       path: '/dev/mail',
       policy: roles('admin'),
       handler: async (req, res) => {
-        const mail = await visibleMail(authOf(req).orgId);
+        const mail = await devMail.list(authOf(req).orgId);
         const body: DevMailList = { messages: mail.map(({ id, receivedAt, to, subject }) => ({ id, receivedAt, to, subject })) };
         res.setHeader('Cache-Control', 'no-store');
         res.json(body);
@@ -37,7 +27,7 @@ export function devMailRoutes(deps: AppContext): RouteSpec[] {
       path: '/dev/mail/:id',
       policy: roles('admin'),
       handler: async (req, res) => {
-        const found = (await visibleMail(authOf(req).orgId)).find((m) => m.id === req.params.id);
+        const found = await devMail.find(authOf(req).orgId, req.params.id as string);
         if (!found) throw notFound('No such message.');
         res.setHeader('Cache-Control', 'no-store');
         res.json(found);

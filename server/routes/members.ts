@@ -2,12 +2,9 @@
 import type { Request } from 'express';
 import { z } from 'zod';
 import { ChangeRoleRequestSchema, InviteMemberRequestSchema, type MembersResponse } from '@shared/api/auth';
-import type { AppContext } from '../app';
 import { authOf, roles, type RouteSpec } from '../http/route';
-import { notFound } from '../http/errors';
-import { createAuthService } from '../services/auth';
-import { createInvitationService } from '../services/invitations';
-import { createMemberService } from '../services/members';
+import { notFound } from '../errors';
+import type { AppServices } from '../services';
 import { requestMeta } from '../services/audit';
 
 const ADMIN = roles('admin');
@@ -19,10 +16,7 @@ const userIdOf = (req: Request): string => {
   return parsed.data;
 };
 
-export function memberRoutes(deps: AppContext): RouteSpec[] {
-  const members = createMemberService(deps);
-  const invitations = createInvitationService({ ...deps, auth: createAuthService(deps) });
-
+export function memberRoutes({ members, invitations }: Pick<AppServices, 'members' | 'invitations'>): RouteSpec[] {
   return [
     {
       method: 'get',

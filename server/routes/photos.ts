@@ -3,10 +3,9 @@ import type { RequestHandler } from 'express';
 import multer from 'multer';
 import { z } from 'zod';
 import { PHOTO_MAX_BYTES, PhotoUploadFieldsSchema } from '@shared/api/photos';
-import type { AppContext } from '../app';
 import { ANY_MEMBER, authOf, type RouteSpec } from '../http/route';
-import { HttpError, badRequest } from '../http/errors';
-import { listPhotos, readPhoto, uploadPhoto } from '../services/photos';
+import { badRequest, tooLarge } from '../errors';
+import type { PhotoService } from '../services/photos';
 
 const IdParam = z.object({ id: z.uuid() });
 
@@ -18,15 +17,17 @@ function fileUpload(): RequestHandler {
       if (!err) return next();
       if (err instanceof multer.MulterError) {
         if (err.code === 'LIMIT_FILE_SIZE') {
-          return next(new HttpError(413, 'payload_too_large', `The photo is larger than ${PHOTO_MAX_BYTES / 1024 / 1024} MB. Send a smaller image.`));
+          return next(tooLarge(`The photo is larger than ${PHOTO_MAX_BYTES / 1024 / 1024} MB. Send a smaller image.`));
         }
         return next(badRequest(`The upload is not valid: ${err.message}.`));
       }
-      next(err);
+      // Anything else the multipart parser throws is about the body it was sent (cut short, no
+      // boundary, a malformed part header): the client's to fix, never a server fault.
+      next(badRequest(`The upload is not a complete multipart form: ${err instanceof Error ? err.message : String(err)}. Send the photo again.`));
     });
 }
 
-export function photoRoutes(deps: AppContext): RouteSpec[] {
+export function photoRoutes(photos: PhotoService): RouteSpec[] {
   return [
     {
       method: 'put',
@@ -37,7 +38,7 @@ export function photoRoutes(deps: AppContext): RouteSpec[] {
         const { id } = IdParam.parse(req.params);
         if (!req.file) throw badRequest('Send the photo as the multipart field "file".');
         const fields = PhotoUploadFieldsSchema.parse(req.body ?? {});
-        const { photo, created } = await uploadPhoto(deps.db, deps.storage, authOf(req), id, fields, req.file.buffer);
+        const { photo, created } = await photos.upload(authOf(req), id, fields, req.file.buffer);
         res.status(created ? 201 : 200).json(photo);
       },
     },
@@ -47,7 +48,7 @@ export function photoRoutes(deps: AppContext): RouteSpec[] {
       policy: ANY_MEMBER,
       handler: async (req, res) => {
         const { id } = IdParam.parse(req.params);
-        const { photo, object } = await readPhoto(deps.db, deps.storage, authOf(req), id);
+        const { photo, object } = await photos.read(authOf(req), id);
         res.setHeader('Content-Type', photo.contentType);
         res.setHeader('Cache-Control', 'private, max-age=86400');
         res.setHeader('Content-Length', String(object.contentLength ?? photo.sizeBytes));
@@ -60,7 +61,7 @@ export function photoRoutes(deps: AppContext): RouteSpec[] {
       policy: ANY_MEMBER,
       handler: async (req, res) => {
         const { id } = IdParam.parse(req.params);
-        res.json({ items: await listPhotos(deps.db, authOf(req), id) });
+        res.json({ items: await photos.list(authOf(req), id) });
       },
     },
   ];

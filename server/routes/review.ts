@@ -9,11 +9,9 @@ import {
   SetVerdictSchema,
   StatusChangeRequestSchema,
 } from '@shared/api/review';
-import type { AppContext } from '../app';
 import { ANY_MEMBER, authOf, roles, type RouteSpec } from '../http/route';
-import { notFound } from '../http/errors';
-import { createReviewService } from '../services/review';
-import { createBriefService } from '../services/briefs';
+import { notFound } from '../errors';
+import type { AppServices } from '../services';
 
 /** Engineers review; admins may look (and withdraw a brief link), but do not judge structure. */
 const REVIEW_READERS = roles('engineer', 'admin');
@@ -27,10 +25,7 @@ const idParam = (req: Request, name: string, what: string): string => {
 };
 const surveyIdOf = (req: Request) => idParam(req, 'id', 'survey');
 
-export function reviewRoutes(deps: AppContext): RouteSpec[] {
-  const review = createReviewService(deps);
-  const briefs = createBriefService(deps);
-
+export function reviewRoutes({ review, briefs }: Pick<AppServices, 'review' | 'briefs'>): RouteSpec[] {
   return [
     {
       method: 'post',

@@ -8,21 +8,20 @@ import {
   PushRequestSchema,
   type PushResponse,
 } from '@shared/schemas/sync';
-import type { AppDeps } from '../app';
+import type { Request } from 'express';
 import type { Role } from '@shared/api/roles';
 import { ANY_MEMBER, authOf, confirmMembership, ensureMembership, unconfirmedAuthOf, type RouteSpec } from '../http/route';
-import { HttpError } from '../http/errors';
-import { createResultsScheduler, createSurvey, getSurvey, getSurveyJson, listSurveysJson, SurveyTextCache } from '../services/surveys';
-import { pull, push, SurveyStateCache } from '../services/sync';
+import { tooLarge } from '../errors';
+import type { AppServices } from '../services';
 
 const IdParam = z.object({ id: z.uuid() });
 const PUSH_POLICY = ANY_MEMBER;
 const DetailQuery = z.object({ results: z.enum(['latest', 'current']).default('latest') });
 
-export function surveyRoutes(deps: AppDeps): RouteSpec[] {
-  const scheduler = createResultsScheduler(deps.db, (err) => deps.logger.warn({ err }, 'results recomputation failed'));
-  const textCache = new SurveyTextCache();
-  const stateCache = new SurveyStateCache();
+/** Reports the role a handler's own query found (see `checksMembership`). */
+const confirmer = (req: Request) => (role: Role | null) => confirmMembership(req, role);
+
+export function surveyRoutes({ surveys, sync }: Pick<AppServices, 'surveys' | 'sync'>): RouteSpec[] {
   return [
     {
       method: 'get',
@@ -31,7 +30,7 @@ export function surveyRoutes(deps: AppDeps): RouteSpec[] {
       checksMembership: true,
       handler: async (req, res) => {
         const q = ListSurveysQuerySchema.parse(req.query);
-        const body = await listSurveysJson(deps.db, unconfirmedAuthOf(req), q, (role) => confirmMembership(req, role));
+        const body = await surveys.listJson(unconfirmedAuthOf(req), q, confirmer(req));
         res.type('application/json').send(body);
       },
     },
@@ -44,10 +43,9 @@ export function surveyRoutes(deps: AppDeps): RouteSpec[] {
         const { id } = IdParam.parse(req.params);
         const q = DetailQuery.parse(req.query);
         if (q.results === 'current') {
-          res.json(await getSurvey(deps.db, await ensureMembership(req), id, { fresh: true, scheduler }));
+          res.json(await surveys.get(await ensureMembership(req), id, { fresh: true }));
         } else {
-          const confirm = (role: Role | null) => confirmMembership(req, role);
-          res.type('application/json').send(await getSurveyJson(deps.db, unconfirmedAuthOf(req), id, { scheduler, confirm, cache: textCache }));
+          res.type('application/json').send(await surveys.getJson(unconfirmedAuthOf(req), id, confirmer(req)));
         }
       },
     },
@@ -57,7 +55,7 @@ export function surveyRoutes(deps: AppDeps): RouteSpec[] {
       policy: ANY_MEMBER,
       handler: async (req, res) => {
         const { survey } = CreateSurveyRequestSchema.parse(req.body);
-        res.status(201).json(await createSurvey(deps.db, authOf(req), survey));
+        res.status(201).json(await surveys.create(authOf(req), survey));
       },
     },
     {
@@ -68,22 +66,11 @@ export function surveyRoutes(deps: AppDeps): RouteSpec[] {
       handler: async (req, res) => {
         const changes = (req.body as { changes?: unknown } | undefined)?.changes;
         if (Array.isArray(changes) && changes.length > MAX_PUSH_CHANGES) {
-          throw new HttpError(
-            413,
-            'payload_too_large',
-            `A push may carry at most ${MAX_PUSH_CHANGES} changes; this one has ${changes.length}. Send the rest in another push.`,
-          );
+          throw tooLarge(`A push may carry at most ${MAX_PUSH_CHANGES} changes; this one has ${changes.length}. Send the rest in another push.`);
         }
         const body = PushRequestSchema.parse(req.body);
         if (body.changes.length === 0) await ensureMembership(req);
-        const confirm = (role: Role | null) => confirmMembership(req, role);
-        const out = await push(deps.db, unconfirmedAuthOf(req), body.changes, {
-          scheduler,
-          logger: req.log,
-          confirm,
-          roles: PUSH_POLICY.roles,
-          known: stateCache,
-        });
+        const out = await sync.push(unconfirmedAuthOf(req), body.changes, { logger: req.log, confirm: confirmer(req), roles: PUSH_POLICY.roles });
         res.json({ ...out, serverTime: new Date().toISOString() } satisfies PushResponse);
       },
     },
@@ -93,7 +80,7 @@ export function surveyRoutes(deps: AppDeps): RouteSpec[] {
       policy: ANY_MEMBER,
       handler: async (req, res) => {
         res.setHeader('Cache-Control', 'no-store');
-        res.json(await pull(deps.db, authOf(req), PullQuerySchema.parse(req.query)));
+        res.json(await sync.pull(authOf(req), PullQuerySchema.parse(req.query)));
       },
     },
   ];

@@ -1,7 +1,7 @@
 /** Resolves the caller of a request from its Bearer access token, and checks the membership is still active. */
 import type { Request } from 'express';
 import type { Role } from '@shared/api/roles';
-import type { AppDeps } from '../app';
+import type { AppDeps } from '../context';
 import type { AuthContext } from '../http/auth-context';
 import type { AccessVerifier } from '../http/route';
 import { verifyAccessToken } from './tokens';

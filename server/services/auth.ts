@@ -16,7 +16,7 @@ import type { Config } from '../config';
 import type { Db } from '../db/knex';
 import type { Mailer } from '../mail/mailer';
 import { passwordResetMail } from '../mail/templates';
-import { HttpError, badRequest, unauthorized } from '../http/errors';
+import { badRequest, unauthorized, unavailable } from '../errors';
 import * as accounts from '../db/repositories/accounts';
 import * as secrets from '../db/repositories/auth-tokens';
 import { createAudit, type RequestMeta } from './audit';
@@ -188,4 +188,4 @@ export type AuthService = ReturnType<typeof createAuthService>;
 
 /** 503 for an e-mail that could not be handed to the mail server. */
 export const mailFailed = (what: string) =>
-  new HttpError(503, 'service_unavailable', `${what} The e-mail could not be sent just now; try again in a minute.`);
+  unavailable(`${what} The e-mail could not be sent just now; try again in a minute.`);

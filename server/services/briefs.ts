@@ -6,17 +6,17 @@
 import type { Knex } from 'knex';
 import type { BriefLink, IssueBrief } from '@shared/api/review';
 import type { SurveyResults } from '@shared/engine/results';
-import { SurveySchema } from '@shared/schemas/survey';
+import { UpgradingSurveySchema } from '@shared/schemas/survey';
 import { BRIEFABLE_STATUSES, STATUS_LABELS } from '@shared/review/status';
 import type { Config } from '../config';
 import type { AuthContext } from '../http/auth-context';
-import { conflict, notFound } from '../http/errors';
+import { conflict, notFound } from '../errors';
 import type { Mailer } from '../mail/mailer';
 import { briefMail } from '../mail/brief-mail';
 import { briefPath, hashBriefToken, looksLikeBriefToken, newBriefToken } from '../brief/brief-token';
 import type { BriefPageData } from '../brief/render-brief';
 import * as repo from '../db/repositories/review';
-import { ensureResults } from './surveys';
+import { ensureResults } from './engine-results';
 
 export function createBriefService(deps: { db: Knex; config: Pick<Config, 'publicUrl'>; mailer: Mailer }) {
   const { db, config, mailer } = deps;
@@ -40,7 +40,7 @@ export function createBriefService(deps: { db: Knex; config: Pick<Config, 'publi
       createdBy: auth.userId,
     });
     const url = new URL(briefPath(token), config.publicUrl).toString();
-    const parsed = SurveySchema.safeParse(s.doc);
+    const parsed = UpgradingSurveySchema.safeParse(s.doc);
     const [engineerName, organisationName] = await Promise.all([repo.userName(db, auth.userId), repo.organisationName(db, auth.orgId)]);
     await mailer.send({
       to: body.recipientEmail,
@@ -70,7 +70,7 @@ export function createBriefService(deps: { db: Knex; config: Pick<Config, 'publi
     const link = await repo.findLiveBrief(db, hashBriefToken(token));
     if (!link) return null;
     const s = await repo.findSurvey(db, link.orgId, link.surveyId);
-    const parsed = s ? SurveySchema.safeParse(s.doc) : null;
+    const parsed = s ? UpgradingSurveySchema.safeParse(s.doc) : null;
     if (!s || !parsed?.success) return null;
     const [results, verdicts, limits, reviewed, organisationName] = await Promise.all([
       ensureResults(db, s.id, s.revision, parsed.data),
@@ -98,3 +98,5 @@ export function createBriefService(deps: { db: Knex; config: Pick<Config, 'publi
 
   return { issue, revoke, open };
 }
+
+export type BriefService = ReturnType<typeof createBriefService>;

@@ -11,7 +11,7 @@ import type { Db } from '../db/knex';
 import type { AuthContext } from '../http/auth-context';
 import type { Mailer } from '../mail/mailer';
 import { invitationMail } from '../mail/templates';
-import { conflict, notFound } from '../http/errors';
+import { conflict, notFound } from '../errors';
 import * as accounts from '../db/repositories/accounts';
 import * as secrets from '../db/repositories/auth-tokens';
 import { createAudit, type RequestMeta } from './audit';
@@ -114,3 +114,5 @@ export function createInvitationService(deps: { db: Db; config: Config; logger: 
 
   return { invite, resend, describe, accept };
 }
+
+export type InvitationService = ReturnType<typeof createInvitationService>;

@@ -8,7 +8,7 @@ import type { Role } from '@shared/api/roles';
 import type { Me, Member, UpdateMeRequest } from '@shared/api/auth';
 import type { Db } from '../db/knex';
 import type { AuthContext } from '../http/auth-context';
-import { conflict, notFound, unauthorized } from '../http/errors';
+import { conflict, notFound, unauthorized } from '../errors';
 import * as accounts from '../db/repositories/accounts';
 import * as secrets from '../db/repositories/auth-tokens';
 import { createAudit, type RequestMeta } from './audit';
@@ -80,3 +80,5 @@ export function createMemberService(deps: { db: Db; logger: Logger }) {
 
   return { list, changeRole, deactivate, reactivate, me, updateMe };
 }
+
+export type MemberService = ReturnType<typeof createMemberService>;

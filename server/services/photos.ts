@@ -8,15 +8,15 @@ import { createHash, randomUUID } from 'node:crypto';
 import { fileTypeFromBuffer } from 'file-type';
 import type { Db } from '../db/knex';
 import type { AuthContext } from '../http/auth-context';
-import { HttpError, notFound, conflict } from '../http/errors';
+import { conflict, notFound, unsupportedMediaType } from '../errors';
 import { PHOTO_TYPES, type Photo, type PhotoUploadFields } from '@shared/api/photos';
 import type { PhotoStorage, StoredObject } from '../storage/photo-store';
 import { findPhoto, findPhotoAnyOrg, insertPhoto, listPhotos as listRows, publicPhoto, surveyInOrg } from '../db/repositories/photos';
 
-export const unsupportedType = () =>
-  new HttpError(415, 'unsupported_media_type', 'This file is not a photo Brineline accepts. Send a JPEG, PNG, WebP or HEIC image.');
+const unsupportedType = () =>
+  unsupportedMediaType('This file is not a photo Brineline accepts. Send a JPEG, PNG, WebP or HEIC image.');
 
-export async function uploadPhoto(
+async function uploadPhoto(
   db: Db,
   storage: PhotoStorage,
   auth: AuthContext,
@@ -36,6 +36,7 @@ export async function uploadPhoto(
   const storageKey = `${auth.orgId}/${fields.surveyId}/${randomUUID()}.${ext}`;
   await storage.put(storageKey, bytes, type.mime);
   const sha256 = createHash('sha256').update(bytes).digest('hex');
+  // The bytes go first so a row never points at nothing; if the row is not written, they go too.
   const inserted = await insertPhoto(db, {
     id,
     orgId: auth.orgId,
@@ -48,6 +49,9 @@ export async function uploadPhoto(
     sha256,
     storageKey,
     uploadedBy: auth.userId,
+  }).catch(async (err: unknown) => {
+    await storage.delete(storageKey).catch(() => undefined);
+    throw err;
   });
   if (!inserted) {
     // a concurrent retry of the same upload stored it first: keep theirs
@@ -60,7 +64,7 @@ export async function uploadPhoto(
   return { photo: publicPhoto(stored!), created: true };
 }
 
-export async function readPhoto(db: Db, storage: PhotoStorage, auth: AuthContext, id: string): Promise<{ photo: Photo; object: StoredObject }> {
+async function readPhoto(db: Db, storage: PhotoStorage, auth: AuthContext, id: string): Promise<{ photo: Photo; object: StoredObject }> {
   const p = await findPhoto(db, auth.orgId, id);
   if (!p) throw notFound('No such photo.');
   const object = await storage.get(p.storageKey);
@@ -68,7 +72,18 @@ export async function readPhoto(db: Db, storage: PhotoStorage, auth: AuthContext
   return { photo: publicPhoto(p), object };
 }
 
-export async function listPhotos(db: Db, auth: AuthContext, surveyId: string): Promise<Photo[]> {
+async function listPhotos(db: Db, auth: AuthContext, surveyId: string): Promise<Photo[]> {
   if (!(await surveyInOrg(db, auth.orgId, surveyId))) throw notFound('No such survey.');
   return (await listRows(db, auth.orgId, surveyId)).map(publicPhoto);
 }
+
+export function createPhotoService(deps: { db: Db; storage: PhotoStorage }) {
+  const { db, storage } = deps;
+  return {
+    upload: (auth: AuthContext, id: string, fields: PhotoUploadFields, bytes: Buffer) => uploadPhoto(db, storage, auth, id, fields, bytes),
+    read: (auth: AuthContext, id: string) => readPhoto(db, storage, auth, id),
+    list: (auth: AuthContext, surveyId: string) => listPhotos(db, auth, surveyId),
+  };
+}
+
+export type PhotoService = ReturnType<typeof createPhotoService>;

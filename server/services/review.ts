@@ -23,9 +23,9 @@ import { ENGINE_VERSION } from '@shared/engine';
 import { compareNumbers } from '@shared/review/compare';
 import { QUEUE_STATUSES, REVIEWABLE_STATUSES, STATUS_LABELS, checkTransition, type SurveyStatus } from '@shared/review/status';
 import type { AuthContext } from '../http/auth-context';
-import { conflict, forbidden, notFound, validationFailed } from '../http/errors';
+import { conflict, forbidden, notFound, validationFailed } from '../errors';
 import * as repo from '../db/repositories/review';
-import { ensureResults } from './surveys';
+import { ensureResults } from './engine-results';
 
 const NO_SURVEY = 'No such survey in your organisation.';
 

@@ -6,6 +6,10 @@
  * standard influence-line results, e.g. AISC Steel Construction Manual, Table 3-23), integrated
  * exactly with 3-point Gauss–Legendre (exact for the quartic integrand on each linear segment).
  * Bending moment sign: sagging (tension on the side away from the load) positive.
+ * Point forces (e.g. the reactions of intermediate supports, entered as negative loads) add by
+ * superposition: simple-support reactions P b / L and P a / L; fixed-end moments P a b² / L² and
+ * P a² b / L² with reactions P b² (3a + b) / L³ and P a² (a + 3b) / L³ (AISC Manual Table 3-23,
+ * cases 7 and 16).
  */
 
 export type EndFixity = 'simply-supported' | 'fixed';
@@ -28,10 +32,41 @@ export interface BeamResult {
 const GX = [-Math.sqrt(3 / 5), 0, Math.sqrt(3 / 5)];
 const GW = [5 / 9, 8 / 9, 5 / 9];
 
+export interface PointForce {
+  /** Distance from the first station, m. */
+  atM: number;
+  /** Force in the direction of positive q, N (an intermediate support's reaction is negative). */
+  forceN: number;
+}
+
 /**
- * Solves the beam. s: ascending stations from 0 to L; q: load at each station (linear between).
+ * Solves the beam. s: ascending stations from s[0] to s[0] + L; q: load at each station (linear
+ * between); points: concentrated forces along the span.
  */
-export function solveBeam(s: readonly number[], q: readonly number[], fixity: EndFixity): BeamResult {
+export function solveBeam(s0: readonly number[], q0: readonly number[], fixity: EndFixity, points: readonly PointForce[] = []): BeamResult {
+  let s = s0, q = q0;
+  const pAt: number[] = [];
+  if (points.length > 0) {
+    // stations at the point forces, so the march applies each jump in shear at its station
+    const S = [...s0], Q = [...q0], P = s0.map(() => 0);
+    for (const p of points) {
+      const x = s0[0] + p.atM;
+      let i = 0;
+      while (i < S.length && S[i] < x) i++;
+      if (i < S.length && S[i] === x) {
+        P[i] += p.forceN;
+        continue;
+      }
+      if (i === 0 || i === S.length) continue;
+      const t = (x - S[i - 1]) / (S[i] - S[i - 1]);
+      S.splice(i, 0, x);
+      Q.splice(i, 0, Q[i - 1] + t * (Q[i] - Q[i - 1]));
+      P.splice(i, 0, p.forceN);
+    }
+    s = S;
+    q = Q;
+    pAt.push(...P);
+  }
   const n = s.length;
   const L = s[n - 1] - s[0];
   let W = 0, Ms = 0, fa = 0, fb = 0;
@@ -52,8 +87,19 @@ export function solveBeam(s: readonly number[], q: readonly number[], fixity: En
       }
     }
   }
+  let Wp = 0;
+  for (let i = 1; i + 1 < pAt.length; i++) {
+    if (pAt[i] === 0) continue;
+    const a = s[i] - s[0], b = L - a, P = pAt[i];
+    Wp += P;
+    Ms += P * a;
+    if (fixity === 'fixed') {
+      fa += P * a * b * b;
+      fb += P * a * a * b;
+    }
+  }
   const rbSs = L > 0 ? Ms / L : 0;
-  const raSs = W - rbSs;
+  const raSs = W + Wp - rbSs;
   let M0 = 0, ML = 0, V0 = raSs;
   if (fixity === 'fixed' && L > 0) {
     const MA = fa / (L * L), MB = fb / (L * L);
@@ -65,6 +111,7 @@ export function solveBeam(s: readonly number[], q: readonly number[], fixity: En
   let V = V0, M = M0;
   let best = M0, bestAt = 0;
   for (let i = 0; i + 1 < n; i++) {
+    if (i > 0 && pAt.length > 0) V -= pAt[i];
     const a = s[i] - s[0], h = s[i + 1] - s[i];
     if (h <= 0) continue;
     const qa = q[i], m = (q[i + 1] - qa) / h;

@@ -4,13 +4,13 @@
  * options.conditionId is given). Pure and deterministic: no clock, no randomness, no I/O.
  */
 import { catalogueFluid, crudeDensityFromApi, type FluidCategory } from '../fluids/catalogue';
-import { DEFAULT_PERMEABILITY } from '../schemas/space-types';
+import { CARGO_PERMEABILITY, defaultPermeability, PERMEABILITY_SOURCE } from '../schemas/space-types';
 import type { Boundary, BoundarySide, Compartment, LevelSource, Survey } from '../schemas/survey';
-import { solveBeam } from './beam';
-import { earthFrame, type EarthFrame } from './frame';
+import { earthFrame, HEEL_AGREEMENT_TOLERANCE_DEG, type EarthFrame } from './frame';
 import { balanceOpenToSea, spaceInflow } from './flooding-space';
 import { soundingEvidence } from './flooding-soundings';
 import { timeToPumpOut } from './inflow';
+import { missingShipReadings, withheldItems, withheldSentence } from './readings';
 import { clipHalfPlane } from './plane-integrals';
 import {
   childAsHole,
@@ -22,7 +22,8 @@ import {
   plateToShip,
   polygonPlate,
   polygonPlateXYZ,
-  stripMomentsInto,
+  regionAsPolygons,
+  regionNetForce,
   type FlatPlate,
   type PartLoad,
   type PlateFrame,
@@ -34,7 +35,6 @@ import { constantProfile, differenceProfile, layeredProfile, type PressureProfil
 import type {
   Aggregate,
   BoundaryResult,
-  CapacityResult,
   CompartmentResult,
   EngineWarning,
   FacetResult,
@@ -45,11 +45,13 @@ import type {
   Severity,
   ShoreResult,
   SideResult,
-  StiffenerItem,
-  StiffenerResult,
   SurveyResults,
 } from './results';
-import { EFFECTIVE_LENGTH_FACTOR, eulerLoad, sectionProperties, SHORE_SLENDERNESS_LIMIT } from './shore';
+import { facetOrientation } from './facets';
+import { platingCheck } from './plating';
+import { capacitiesOf, governingCapacity } from './ratings';
+import { shoreResult } from './shore-check';
+import { plainLayout, platingPanels, stiffenedPlateLoads } from './shore-stiffener';
 import { add, cross, dot, fromPoint, norm, scale, sub, toPoint, unit, type V3 } from './vec';
 import { ENGINE_VERSION } from './version';
 
@@ -81,6 +83,16 @@ export function computeSurvey(survey: Survey, options: ComputeOptions = {}): Sur
   const frame = earthFrame(survey.vessel, condition);
   const { up, g } = frame;
   const fluids = fluidResolver(survey);
+  const withheld = withheldItems(survey, condition);
+  for (const w of [...withheld.compartments.values(), ...withheld.boundaries.values()]) warn('reading-missing', 'warning', w.entityId, withheldSentence(w));
+  if (condition.heelDeg !== undefined && frame.heelFromDraftsDeg !== null && Math.abs(condition.heelDeg - frame.heelFromDraftsDeg) > HEEL_AGREEMENT_TOLERANCE_DEG) {
+    warn(
+      'heel-disagrees',
+      'warning',
+      condition.id,
+      `The inclinometer reads ${condition.heelDeg.toFixed(1)}° but the midship drafts give ${frame.heelFromDraftsDeg.toFixed(1)}°, more than ${HEEL_AGREEMENT_TOLERANCE_DEG}° apart: check both (the loads use the inclinometer)`,
+    );
+  }
 
   // ---- compartments: contents, profiles, volumes
   const contentsById = new Map(condition.contents.map((c) => [c.compartmentId, c]));
@@ -92,6 +104,7 @@ export function computeSurvey(survey: Survey, options: ComputeOptions = {}): Sur
   let totalPumps = 0;
 
   for (const comp of survey.compartments) {
+    if (withheld.compartments.has(comp.id)) continue;
     const solid = compartmentSolid(comp.geometry);
     const [eBottom, eTop] = elevationRange(solid, up);
     const memo = new Map<number, VolumeMoments>();
@@ -105,7 +118,12 @@ export function computeSurvey(survey: Survey, options: ComputeOptions = {}): Sur
       return r;
     };
     const gross = below(Infinity);
-    const permeability = comp.permeability ?? DEFAULT_PERMEABILITY[comp.spaceType];
+    const defaultPerm = defaultPermeability(comp.spaceType, comp.cargoState);
+    const permeability = comp.permeability ?? defaultPerm.value;
+    const permeabilitySource = comp.permeability !== undefined ? 'given by the surveyor' : defaultPerm.source;
+    if (comp.permeability === undefined && CARGO_PERMEABILITY[comp.spaceType] && !comp.cargoState) {
+      warn('cargo-state-unknown', 'info', comp.id, `${comp.name}: how loaded the space is was not given, so the loaded-space permeability ${defaultPerm.value.toFixed(2)} is used; empty it would be ${CARGO_PERMEABILITY[comp.spaceType]!.empty.toFixed(2)} (${PERMEABILITY_SOURCE})`);
+    }
     const contents = contentsById.get(comp.id);
     const layersIn = contents
       ? contents.layers
@@ -147,6 +165,13 @@ export function computeSurvey(survey: Survey, options: ComputeOptions = {}): Sur
       if (top < eBottom - 1e-9 && layer.level.kind !== 'openToSea') {
         warn('level-below-bottom', 'info', layer.id, `${comp.name}: layer ${i + 1} (${fluid.name}) surface is below the compartment bottom`);
       }
+      const lv = layer.level;
+      let levelRange: LayerResult['levelRange'] = null;
+      if ((lv.kind === 'sounding' || lv.kind === 'interfaceSounding') && lv.soundingM === 0 && top > eBottom + 1e-9) {
+        // a dry tape says only that the surface is at or below the pipe's bottom
+        levelRange = { lowElevationM: Math.max(eBottom, prevTop), highElevationM: top };
+        warn('sounding-zero', 'warning', layer.id, `${comp.name}: a zero sounding puts the ${fluid.name.toLowerCase()} surface at or below the pipe bottom, anywhere in the lowest ${(top - levelRange.lowElevationM).toFixed(2)} m of the space here; loads take it at the pipe bottom (the most liquid it can be)`);
+      }
       levels.push({ top, densityKgM3: density });
       const hi = below(top), lo = i === 0 ? below(-Infinity) : below(prevTop);
       const vGeom = hi.volume - lo.volume;
@@ -161,6 +186,7 @@ export function computeSurvey(survey: Survey, options: ComputeOptions = {}): Sur
         densityKgM3: density,
         levelElevationM: top,
         levelPoint: toPoint(pointOnLevel(up, top, centroidXY[0], centroidXY[1])),
+        levelRange,
         volumeM3: vol,
         massKg: mass,
         centroid: c,
@@ -185,6 +211,7 @@ export function computeSurvey(survey: Survey, options: ComputeOptions = {}): Sur
       name: comp.name,
       spaceType: comp.spaceType,
       permeability,
+      permeabilitySource,
       grossVolumeM3: gross.volume,
       openToSea: comp.openToSea ?? false,
       gasGaugePressurePa: pGas,
@@ -250,6 +277,7 @@ export function computeSurvey(survey: Survey, options: ComputeOptions = {}): Sur
   let maxUId: string | null = null;
   const over: string[] = [];
   for (const b of survey.boundaries) {
+    if (withheld.boundaries.has(b.id)) continue;
     const pa = sideProfile(b.sideA), pb = sideProfile(b.sideB);
     const net = netProfile(pa, pb);
     const r =
@@ -288,6 +316,7 @@ export function computeSurvey(survey: Survey, options: ComputeOptions = {}): Sur
       waterlineElevationM: frame.waterlineElevation,
       seaDensityKgM3: frame.seaDensityKgM3,
       gravityMS2: g,
+      missingReadings: missingShipReadings(condition),
     },
     compartments: compartmentResults,
     boundaries: boundaryResults,
@@ -299,6 +328,7 @@ export function computeSurvey(survey: Survey, options: ComputeOptions = {}): Sur
       totalInflowM3S: totalInflow,
       totalPumpCapacityM3S: totalPumps,
     },
+    withheld: [...withheld.compartments.values(), ...withheld.boundaries.values()],
     warnings,
   };
 }
@@ -327,9 +357,14 @@ export function levelElevation(level: LevelSource, frame: EarthFrame): number {
   switch (level.kind) {
     case 'sounding':
     case 'interfaceSounding':
-      return dot(up, [level.pipe.x, level.pipe.y, level.pipe.bottomZM + level.soundingM]);
+      // a missing reading withholds the compartment before this is reached; NaN if called on one
+      return dot(up, [level.pipe.x, level.pipe.y, level.pipe.bottomZM + (level.soundingM ?? Number.NaN)]);
     case 'ullage':
-      return dot(up, [level.reference.x, level.reference.y, level.reference.z - level.ullageM]);
+      // a plumb tape hangs along earth-vertical; a tape along a pipe runs along the ship's z axis
+      // and so reads long by 1 / cos of the inclination
+      return level.tape === 'plumb'
+        ? dot(up, fromPoint(level.reference)) - (level.ullageM ?? Number.NaN)
+        : dot(up, [level.reference.x, level.reference.y, level.reference.z - (level.ullageM ?? Number.NaN)]);
     case 'openToSea':
       return frame.waterlineElevation;
     case 'point':
@@ -497,18 +532,39 @@ function earthSplit(F: V3, up: V3): Pick<NetResult, 'verticalN' | 'horizontalN' 
   return { verticalN: vertical, horizontalN: hn, horizontalDirection: horizontalDirection(F[0], F[1], F[2], up, vertical, hn) };
 }
 
-function flatNet(plate: FlatPlate, it: PlateIntegration, up: V3): NetResult {
+/**
+ * The two sides nearly cancel when the net force is under 2 % of the larger side's own force
+ * (common practice, no source): the centre of pressure then lies far off the plate and means
+ * nothing, so the load is given as the net force and a couple.
+ */
+export const CANCEL_FRACTION = 0.02;
+function nearlyCancels(net: number, sideA: number, sideB: number): boolean {
+  const larger = Math.max(Math.abs(sideA), Math.abs(sideB));
+  return larger > 0 && Math.abs(net) < CANCEL_FRACTION * larger;
+}
+function warnCancels(b: Boundary, f: number, couple: number, warn: Warn): void {
+  warn('net-cancels', 'warning', b.id, `${b.name}: the two sides nearly cancel (net ${(f / 1000).toFixed(1)} kN); the load is a couple of ${(couple / 1000).toFixed(1)} kN·m about the plate's centroid, not a force at a point`);
+}
+
+function flatNet(b: Boundary, plate: FlatPlate, it: PlateIntegration, up: V3, warn: Warn): NetResult {
   const fr = plate.frame;
   const n = fr.n;
   const F = it.netForceN;
+  const cancels = nearlyCancels(F, it.sideForceA, it.sideForceB);
+  // moment about the centroid: −(Mu − F cu) v + (Mv − F cv) u (u × n = −v, v × n = u)
+  const couple = Math.hypot(it.netMomentU - F * it.centroidU, it.netMomentV - F * it.centroidV);
+  if (cancels) warnCancels(b, F, couple, warn);
   const fx = n[0] * F, fy = n[1] * F, fz = n[2] * F;
   const vertical = fx * up[0] + fy * up[1] + fz * up[2];
   const hn = horizontalMagnitude(fx, fy, fz, up, vertical);
-  const hasCop = F !== 0;
+  const hasCop = F !== 0 && !cancels;
   const cu = it.netMomentU / F, cv = it.netMomentV / F;
   const useMin = Math.abs(it.peakMinPa) > Math.abs(it.peakMaxPa);
   return {
     forceN: F,
+    referenceDirection: { x: n[0], y: n[1], z: n[2] },
+    nearlyCancels: cancels,
+    coupleNm: cancels ? couple : null,
     resultantN: Math.abs(F),
     forceVector: { x: fx, y: fy, z: fz },
     verticalN: vertical,
@@ -565,17 +621,23 @@ function flatBoundary(
     warn('degenerate', 'warning', b.id, `${b.name}: the plate has no area (self-intersecting or collinear vertices); not computed`);
     return null;
   }
-  const netRes = flatNet(plate, it, frame.up);
+  const netRes = flatNet(b, plate, it, frame.up, warn);
   if (netRes.signChange) {
     warn('sign-change', 'info', b.id, `${b.name}: net pressure reverses across the plate (${(netRes.positive.forceN / 1000).toFixed(1)} kN towards side B, ${(-netRes.negative.forceN / 1000).toFixed(1)} kN towards side A)`);
   }
-  const stiffeners = b.stiffening ? stiffenerLoads(b, plate, net, it.cuts) : null;
-  if (stiffeners && stiffeners.maxUtilisation > 1) {
-    warn('stiffener-overstressed', 'danger', b.id, `${b.name}: stiffener bending at ${(100 * stiffeners.maxUtilisation).toFixed(0)} % of allowable`);
+  const stiffened = b.stiffening ? stiffenedPlateLoads(b, plate, net, it.cuts, warn) : null;
+  const stiffeners = stiffened ? stiffened.stiffeners : null;
+  const hasShores = !!b.shores && b.shores.length > 0;
+  const shores = stiffened?.shores ?? (hasShores ? shoreLoads(b, plate, net, it.cuts, warn) : []);
+  const structureModel = stiffened?.shores ? stiffeners!.model : hasShores ? SHORES_ONLY_MODEL_WORDS : stiffeners ? stiffeners.model : null;
+  const plating = b.plating ? platingCheck(b.plating, platingPanels(plate, net, it.cuts, stiffened?.layout ?? plainLayout(plate))) : null;
+  if (plating && plating.maxUtilisation !== null && plating.maxUtilisation > 1) {
+    warn('plating-overstressed', 'danger', b.id, `${b.name}: plating between stiffeners bent to ${(100 * plating.maxUtilisation).toFixed(0)} % of allowable`);
   }
-  const shores = b.shores && b.shores.length > 0 ? shoreLoads(b, plate, net, it.cuts, warn) : [];
-  const capacity = capacityOf(b, netRes);
-  let maxU = maxOf(capacity ? capacity.utilisation : undefined, stiffeners ? stiffeners.maxUtilisation : undefined, null);
+  const capacities = capacitiesOf(b, netRes);
+  const capacity = governingCapacity(capacities);
+  let maxU = maxOf(capacity ? capacity.utilisation : undefined, stiffeners?.maxUtilisation ?? undefined, null);
+  maxU = maxOf(plating?.maxUtilisation ?? undefined, undefined, maxU);
   for (let i = 0; i < shores.length; i++) maxU = maxOf(shores[i].utilisation, undefined, maxU);
   const fr = plate.frame;
   const n = fr.n;
@@ -595,9 +657,13 @@ function flatBoundary(
     net: netRes,
     loadDiagram: withDiagram ? loadDiagram(plate, net, it.cuts) : [],
     facets: null,
+    reversedFacets: [],
     stiffeners,
+    plating,
     shores,
+    structureModel,
     capacity,
+    capacities,
     maxUtilisation: maxU,
   };
 }
@@ -609,140 +675,23 @@ function maxOf(x: number | undefined, y: number | undefined, m: number | null): 
   return m;
 }
 
-function capacityOf(b: Boundary, net: NetResult): CapacityResult | null {
-  const rc = b.ratedCapacity;
-  if (!rc) return null;
-  if (rc.kind === 'pressure') {
-    const actual = Math.abs(net.peak.pressurePa);
-    return { kind: 'pressure', rated: rc.pressurePa, actual, utilisation: actual / rc.pressurePa };
-  }
-  const actual = net.resultantN;
-  return { kind: 'force', rated: rc.forceN, actual, utilisation: actual / rc.forceN };
-}
-
 /**
- * Stiffener loads: each stiffener carries the net pressure on a strip one spacing wide along its
- * line (q = spacing × p along the span; the conventional tributary-strip rule, which ignores the
- * narrower strips at the plate's edges and any opening it crosses).
+ * Shore loads on a plate without stiffeners. Rule: each shore carries the net pressure on the part
+ * of the plate nearer to it than to any other shore (nearest-shore, i.e. Voronoi, tributary areas,
+ * cut exactly with half-planes), and the plate's edges are assumed to carry nothing, which errs on
+ * the safe side for the shores. Circles are taken as inscribed 512-gons for this partition only.
  */
-function stiffenerLoads(b: Boundary, plate: FlatPlate, net: PressureProfile, cuts: readonly number[]): StiffenerResult {
-  const st = b.stiffening!;
-  const fr = plate.frame;
-  const dShip = fromPoint(st.direction);
-  let du = dot(dShip, fr.u), dv = dot(dShip, fr.v);
-  const dl = Math.hypot(du, dv);
-  const items: StiffenerItem[] = [];
-  if (dl === 0) return { endFixity: st.endFixity, spacingM: st.spacingM, items, governingIndex: null, maxUtilisation: 0 };
-  du /= dl;
-  dv /= dl;
-  const pu = -dv, pv = du; // across the stiffeners
-  const outer = plate.region[0].shape;
-  let tMin: number, tMax: number;
-  if (outer.kind === 'circle') {
-    const tc = outer.uc * pu + outer.vc * pv;
-    tMin = tc - outer.r;
-    tMax = tc + outer.r;
-  } else {
-    tMin = Infinity;
-    tMax = -Infinity;
-    for (let i = 0; i < outer.pts.length; i += 2) {
-      const t = outer.pts[i] * pu + outer.pts[i + 1] * pv;
-      tMin = Math.min(tMin, t);
-      tMax = Math.max(tMax, t);
-    }
-  }
-  const first = st.firstOffsetM ?? st.spacingM;
-  const tol = 1e-9 * Math.max(1, tMax - tMin);
-  let best = -1, bestU = 0;
-  for (let k = 0; k < 1000; k++) {
-    const t = tMin + first + k * st.spacingM;
-    if (t >= tMax - tol) break;
-    // chord of the outer outline along the line {t}
-    let s0 = Infinity, s1 = -Infinity;
-    if (outer.kind === 'circle') {
-      const dc = t - (outer.uc * pu + outer.vc * pv);
-      const h = Math.sqrt(Math.max(0, outer.r * outer.r - dc * dc));
-      const sc = outer.uc * du + outer.vc * dv;
-      s0 = sc - h;
-      s1 = sc + h;
-    } else {
-      const p = outer.pts;
-      for (let i = 0; i < p.length; i += 2) {
-        const j = i + 2 < p.length ? i + 2 : 0;
-        const fa = p[i] * pu + p[i + 1] * pv - t, fb = p[j] * pu + p[j + 1] * pv - t;
-        if ((fa <= 0 && fb >= 0) || (fa >= 0 && fb <= 0)) {
-          const w = fa === fb ? 0 : fa / (fa - fb);
-          const x = p[i] + w * (p[j] - p[i]), y = p[i + 1] + w * (p[j + 1] - p[i + 1]);
-          const s = x * du + y * dv;
-          s0 = Math.min(s0, s);
-          s1 = Math.max(s1, s);
-        }
-      }
-    }
-    if (!(s1 > s0)) continue;
-    if (st.spanM !== undefined) s1 = s0 + st.spanM;
-    // stations: ends plus where v(s) crosses a cut
-    const v0 = t * pv; // v at s = 0 along the line point t·p + s·d
-    const stations: number[] = [s0, s1];
-    if (dv !== 0) {
-      for (const c of cuts) {
-        const s = (c - v0) / dv;
-        if (s > s0 && s < s1) stations.push(s);
-      }
-    }
-    stations.sort((x, y) => x - y);
-    const q = stations.map((s) => st.spacingM * evalProfile(net, fr.e0 + fr.k * (v0 + s * dv)));
-    const r = solveBeam(stations, q, st.endFixity);
-    const required = Math.abs(r.maxMomentNm) / st.allowableStressPa;
-    const u = required / st.sectionModulusM3;
-    items.push({
-      offsetM: t - tMin,
-      spanM: r.spanM,
-      totalLoadN: r.totalLoadN,
-      reactionStartN: r.reactionStartN,
-      reactionEndN: r.reactionEndN,
-      maxMomentNm: r.maxMomentNm,
-      maxMomentAtM: r.maxMomentAtM,
-      endMomentStartNm: r.endMomentStartNm,
-      endMomentEndNm: r.endMomentEndNm,
-      requiredModulusM3: required,
-      utilisation: u,
-    });
-    if (u > bestU || best < 0) {
-      best = items.length - 1;
-      bestU = u;
-    }
-  }
-  return { endFixity: st.endFixity, spacingM: st.spacingM, items, governingIndex: best >= 0 ? best : null, maxUtilisation: bestU };
-}
+export const SHORES_ONLY_MODEL_WORDS =
+  'Each shore carries the net pressure on the part of the plate nearer to it than to any other shore; the plate\'s edges are taken to carry nothing (on the safe side for the shores).';
 
-const CIRCLE_AS_POLYGON_SIDES = 512;
-
-/**
- * Shore loads. Rule: each shore carries the net pressure on the part of the plate nearer to it than
- * to any other shore (nearest-shore, i.e. Voronoi, tributary areas, cut exactly with half-planes),
- * and the plate's edges are assumed to carry nothing, which errs on the safe side for the shores.
- * Circles are taken as inscribed 512-gons for this partition only (area error < 2.6e-5).
- */
 function shoreLoads(b: Boundary, plate: FlatPlate, net: PressureProfile, cuts: readonly number[], warn: Warn): ShoreResult[] {
   const shores = b.shores!;
   const fr = plate.frame;
-  const polys: { pts: number[]; sign: 1 | -1 }[] = plate.region.map(({ shape, sign }) => {
-    if (shape.kind === 'polygon') return { pts: shape.pts, sign };
-    const pts: number[] = [];
-    for (let i = 0; i < CIRCLE_AS_POLYGON_SIDES; i++) {
-      const a = (2 * Math.PI * i) / CIRCLE_AS_POLYGON_SIDES;
-      pts.push(shape.uc + shape.r * Math.cos(a), shape.vc + shape.r * Math.sin(a));
-    }
-    return { pts, sign };
-  });
+  const polys = regionAsPolygons(plate.region);
   const pos = shores.map((s) => {
     const d = sub(fromPoint(s.position), fr.origin);
     return [dot(d, fr.u), dot(d, fr.v)] as [number, number];
   });
-  // cuts run from vMin to vMax already
-  const allCuts = cuts;
-  const nStrips = allCuts.length - 1;
   return shores.map((s, i) => {
     const cell: SignedShape[] = [];
     for (const poly of polys) {
@@ -756,44 +705,8 @@ function shoreLoads(b: Boundary, plate: FlatPlate, net: PressureProfile, cuts: r
       }
       if (pts.length > 0) cell.push({ shape: { kind: 'polygon', pts }, sign: poly.sign });
     }
-    const strips = stripMomentsInto(cell, allCuts);
-    let force = 0, area = 0;
-    for (let k = 0; k < nStrips; k++) {
-      const ma = strips[5 * k], msv = strips[5 * k + 2];
-      if (ma === 0) continue;
-      area += ma;
-      const e = fr.e0 + fr.k * 0.5 * (allCuts[k] + allCuts[k + 1]);
-      let jn = 0;
-      while (jn < net.breaks.length && e >= net.breaks[jn]) jn++;
-      force += (net.a[jn] + net.b[jn] * fr.e0) * ma + net.b[jn] * fr.k * msv;
-    }
-    const towards = s.side === 'B' ? force : -force;
-    const cosA = Math.cos(((s.angleFromNormalDeg ?? 0) * Math.PI) / 180);
-    const axial = Math.max(0, towards) / cosA;
-    const sec = sectionProperties(s.section);
-    const K = EFFECTIVE_LENGTH_FACTOR[s.endCondition];
-    const pcr = eulerLoad(s.elasticModulusPa, sec.iMinM4, K, s.lengthM);
-    const stress = axial / sec.areaM2;
-    const bu = axial / pcr, su = stress / s.allowableStressPa;
-    const ratio = s.lengthM / sec.leastDimensionM;
-    if (towards <= 0) warn('shore-unloaded', 'warning', s.id, `${b.name}: a shore carries nothing, the net pressure pushes the plate away from it`);
-    if (ratio > SHORE_SLENDERNESS_LIMIT) warn('shore-slender', 'warning', s.id, `${b.name}: a shore is ${ratio.toFixed(0)} times its least thickness (over ${SHORE_SLENDERNESS_LIMIT})`);
-    if (Math.max(bu, su) > 1) warn('shore-overloaded', 'danger', s.id, `${b.name}: a shore is loaded to ${(100 * Math.max(bu, su)).toFixed(0)} % of its capacity`);
-    return {
-      id: s.id,
-      tributaryAreaM2: area,
-      tributaryForceN: towards,
-      axialLoadN: axial,
-      loaded: towards > 0,
-      effectiveLengthFactor: K,
-      eulerLoadN: pcr,
-      stressPa: stress,
-      bucklingUtilisation: bu,
-      stressUtilisation: su,
-      utilisation: Math.max(bu, su),
-      lengthToLeastDimension: ratio,
-      slender: ratio > SHORE_SLENDERNESS_LIMIT,
-    };
+    const { forceN, areaM2 } = regionNetForce(plate, cell, net, cuts);
+    return shoreResult(b, s, s.side === 'B' ? forceN : -forceN, 'plate', areaM2, warn);
   });
 }
 
@@ -813,8 +726,16 @@ function facetedBoundary(
   warn: Warn,
 ): BoundaryResult | null {
   const up = frame.up;
+  let reversedFacets: number[] = [];
   if (b.stiffening || (b.shores && b.shores.length > 0)) {
     warn('curved-structure', 'info', b.id, `${b.name}: stiffeners and shores are assessed on flat plates only; model the shored part as a flat boundary`);
+  }
+  if (b.geometry.kind === 'faceted') {
+    const o = facetOrientation(b.geometry.facets);
+    reversedFacets = o.reversed;
+    if (o.reversed.length > 0) {
+      warn('facets-reversed', 'danger', b.id, `${b.name}: facet${o.reversed.length > 1 ? 's' : ''} ${o.reversed.map((i) => i + 1).join(', ')} run${o.reversed.length > 1 ? '' : 's'} the other way round from ${o.reversed.length > 1 ? 'their' : 'its'} neighbours, so ${o.reversed.length > 1 ? 'their' : 'its'} load is counted the wrong way; turn ${o.reversed.length > 1 ? 'them' : 'it'} over in the plate's form`);
+    }
   }
   const parts = facets.map((pts) => {
     const plate = polygonPlate(pts, up);
@@ -822,8 +743,10 @@ function facetedBoundary(
   });
   let area = 0;
   let O: V3 = [0, 0, 0];
+  let meanN: V3 = [0, 0, 0];
   for (const { plate, it } of parts) {
     area += it.areaM2;
+    meanN = add(meanN, scale(plate.frame.n, it.areaM2));
     O = add(O, scale(plateToShip(plate.frame, it.centroidU, it.centroidV), it.areaM2));
   }
   if (area <= 0) {
@@ -869,14 +792,24 @@ function facetedBoundary(
     facetResults.push({ areaM2: it.areaM2, forceN: it.netForceN, centreOfPressure: cop ? toPoint(cop) : null });
   }
   const Fm = norm(F);
+  let ref = unit(meanN);
+  if (norm(meanN) < 1e-9 * area) {
+    ref = unit(F);
+    warn('facets-closed', 'info', b.id, `${b.name}: the facets' normals cancel (a closed surface?); the net force is given along its own direction`);
+  }
+  const cancels = nearlyCancels(Fm, side.fa, side.fb);
   let point: V3 | null = null;
   let residual = 0;
-  if (Fm > 0) {
+  if (Fm > 0 && !cancels) {
     point = add(O, scale(cross(F, M), 1 / (Fm * Fm)));
     residual = dot(M, F) / Fm;
   }
+  if (cancels) warnCancels(b, Fm, norm(M), warn);
   const netRes: NetResult = {
-    forceN: Fm,
+    forceN: dot(F, ref),
+    referenceDirection: toPoint(ref),
+    nearlyCancels: cancels,
+    coupleNm: cancels ? norm(M) : null,
     resultantN: Fm,
     forceVector: toPoint(F),
     ...earthSplit(F, up),
@@ -891,7 +824,8 @@ function facetedBoundary(
     maxPressurePa: peakMax,
     minPressurePa: peakMin,
   };
-  const capacity = capacityOf(b, netRes);
+  const capacities = capacitiesOf(b, netRes);
+  const capacity = governingCapacity(capacities);
   return {
     id: b.id,
     name: b.name,
@@ -908,9 +842,13 @@ function facetedBoundary(
     net: netRes,
     loadDiagram: [],
     facets: facetResults,
+    reversedFacets,
     stiffeners: null,
+    plating: null,
     shores: [],
+    structureModel: null,
     capacity,
+    capacities,
     maxUtilisation: capacity ? capacity.utilisation : null,
   };
 }

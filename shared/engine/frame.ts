@@ -26,27 +26,43 @@ export interface EarthFrame {
   seaDensityKgM3: number;
   g: number;
   heelSource: 'inclinometer' | 'midship drafts' | 'none';
+  /** Heel the midship drafts show, degrees, when both are read (a check on the inclinometer). */
+  heelFromDraftsDeg: number | null;
 }
+
+/**
+ * How far the inclinometer and the midship drafts may disagree before the engine warns, degrees.
+ * A pendulum or bubble inclinometer reads to about half a degree and midship drafts on a lively
+ * ship to a few centimetres; one degree between them means one of the two is wrong
+ * (common practice, no source).
+ */
+export const HEEL_AGREEMENT_TOLERANCE_DEG = 1;
 
 export const DEFAULT_SEA_DENSITY_KG_M3 = 1025;
 
 export function earthFrame(vessel: Vessel, condition: Condition): EarthFrame {
   const { forwardXM, aftXM } = vessel.draughtMarks;
-  const d = condition.drafts;
+  // a draft not yet read is taken equal to the other (or 0): whatever rests on it is withheld
+  // (./readings.ts), so these stand-ins reach no result
+  const aftM = condition.drafts.aftM ?? condition.drafts.forwardM ?? 0;
+  const forwardM = condition.drafts.forwardM ?? aftM;
+  const d = { ...condition.drafts, aftM, forwardM };
   const markSpan = forwardXM - aftXM;
   const tanTrim = markSpan !== 0 ? (d.aftM - d.forwardM) / markSpan : 0;
   let tanHeel = 0;
   let heelSource: EarthFrame['heelSource'] = 'none';
+  const tanHeelDrafts = d.midPortM !== undefined && d.midStarboardM !== undefined ? (d.midStarboardM - d.midPortM) / vessel.breadthM : null;
   if (condition.heelDeg !== undefined) {
     tanHeel = Math.tan((condition.heelDeg * Math.PI) / 180);
     heelSource = 'inclinometer';
-  } else if (d.midPortM !== undefined && d.midStarboardM !== undefined) {
-    tanHeel = (d.midStarboardM - d.midPortM) / vessel.breadthM;
+  } else if (tanHeelDrafts !== null) {
+    tanHeel = tanHeelDrafts;
     heelSource = 'midship drafts';
   }
   const up = unit([tanTrim, tanHeel, 1]);
   const waterlinePoint: V3 = [aftXM, 0, d.aftM];
   return {
+    heelFromDraftsDeg: tanHeelDrafts === null ? null : (Math.atan(tanHeelDrafts) * 180) / Math.PI,
     up,
     heelDeg: (Math.atan(tanHeel) * 180) / Math.PI,
     trimDeg: (Math.atan(tanTrim) * 180) / Math.PI,

@@ -4,6 +4,7 @@
  */
 import type { LoadDiagramPoint } from './plate';
 import type { BeamResult } from './beam';
+import type { Withheld } from './readings';
 
 export interface Point {
   x: number;
@@ -34,6 +35,8 @@ export interface FrameResult {
   waterlineElevationM: number;
   seaDensityKgM3: number;
   gravityMS2: number;
+  /** Ship readings not entered yet ("draft forward", "heel …"): while any is missing, heel and trim are not real. Absent in older results. */
+  missingReadings?: string[];
 }
 
 export interface Aggregate {
@@ -52,6 +55,11 @@ export interface LayerResult {
   levelElevationM: number;
   /** Where the top surface cuts the vertical (ship z) line through the compartment's centroid. */
   levelPoint: Point;
+  /**
+   * When the reading gives only a range (a zero sounding: at or below the pipe bottom), the lowest
+   * and highest elevations the surface may have, m along earth-up; the loads use the highest.
+   */
+  levelRange: { lowElevationM: number; highElevationM: number } | null;
   /** Liquid volume with permeability applied, m³. */
   volumeM3: number;
   massKg: number;
@@ -93,6 +101,8 @@ export interface CompartmentResult {
   name: string;
   spaceType: string;
   permeability: number;
+  /** Where the permeability comes from (a named default, or the surveyor). */
+  permeabilitySource: string;
   grossVolumeM3: number;
   openToSea: boolean;
   gasGaugePressurePa: number;
@@ -121,8 +131,22 @@ export interface PartResult {
 }
 
 export interface NetResult {
-  /** Flat plates: ∫(p_A − p_B) dA along the normal (positive pushes towards side B), N. Faceted: |F|. */
+  /**
+   * Net force along referenceDirection, N, positive towards side B. Flat plates: ∫(p_A − p_B) dA
+   * along the plate normal. Faceted surfaces: the resultant's component along the facets'
+   * area-weighted mean normal.
+   */
   forceN: number;
+  /** The direction forceN is measured along (ship axes, unit, pointing from side A to side B). */
+  referenceDirection: Point | null;
+  /**
+   * The two sides nearly cancel (net force under 2 % of the larger side's force): the load is
+   * reported as the net force and a couple, and no centre of pressure is given (it would lie far
+   * off the plate).
+   */
+  nearlyCancels: boolean;
+  /** Moment of the net pressure about the plate's (or surface's) centroid, N·m: given when nearlyCancels. */
+  coupleNm: number | null;
   resultantN: number;
   /** Resultant force vector, ship axes, N. */
   forceVector: Point;
@@ -146,10 +170,14 @@ export interface NetResult {
   minPressurePa: number;
 }
 
-/** One stiffener: its beam result under its strip of the plate load, and its check. */
+/** One stiffener: its beam result under its strip of the plate load (and any shores on it), and its check. */
 export interface StiffenerItem extends BeamResult {
-  /** Distance across the plate from its edge, m. */
+  /** Distance across the plate from the plate's edge where the stiffeners start (the first line is firstOffsetM from it), m. */
   offsetM: number;
+  /** Width of plate the stiffener carries (half way to each neighbour or to the edge), m. */
+  tributaryWidthM: number;
+  /** Sum of the forces the shores put on this stiffener (against the load), N. */
+  shoreForcesN: number;
   requiredModulusM3: number;
   utilisation: number;
 }
@@ -159,31 +187,90 @@ export interface StiffenerResult {
   spacingM: number;
   items: StiffenerItem[];
   governingIndex: number | null;
-  maxUtilisation: number;
+  /** Largest stiffener utilisation, or null when no stiffener could be checked (never 0 % for "none"). */
+  maxUtilisation: number | null;
+  status: 'ok' | 'normal-to-plate' | 'none-inside';
+  /** Why there is no check, when status is not ok. */
+  note: string | null;
+  /** Load the plate's edges take directly (outer strips, less what shores between stiffeners pass to an edge), N. */
+  edgeLoadN: number | null;
+  /** More than the largest number of stiffeners built; the rest are not checked. */
+  truncated: boolean;
+  /** What the model assumes, in words. */
+  model: string;
+}
+
+/** The plating between stiffeners, panel by panel (Roark's rectangular-plate coefficients). */
+export interface PlatingPanelResult {
+  /** Distance across the plate from the edge where the stiffeners start, to the panel's middle, m. */
+  offsetM: number;
+  /** Long and short sides, m. */
+  longSideM: number;
+  shortSideM: number;
+  /** Net pressure at the panel's corners: least and greatest magnitude, Pa (signed). */
+  pressureMinPa: number;
+  pressureMaxPa: number;
+  /** Greatest bending stress, Pa. */
+  stressPa: number;
+  utilisation: number;
+}
+
+export interface PlatingResult {
+  netThicknessM: number;
+  edges: 'simply-supported' | 'fixed';
+  source: string;
+  panels: PlatingPanelResult[];
+  governingIndex: number | null;
+  maxUtilisation: number | null;
+  notes: string[];
 }
 
 export interface ShoreResult {
   id: string;
-  /** Plate area nearer this shore than any other, m². */
-  tributaryAreaM2: number;
-  /** Net force on that area towards the shore, N. */
+  /** What the shore's head bears on: the plate (no stiffeners), a stiffener, or the plating between two. */
+  bearsOn: 'plate' | 'stiffener' | 'panel' | 'edge';
+  /** Plate area nearer this shore than any other (plates without stiffeners), m²; null when the load comes through stiffeners. */
+  tributaryAreaM2: number | null;
+  /** Load the shore takes from the plate, along the plate normal towards its side (negative: pulled away), N. */
   tributaryForceN: number;
+  /** Load along the shore's axis (tributary force / cos angle), N. */
   axialLoadN: number;
   loaded: boolean;
   effectiveLengthFactor: number;
+  /** The column design method and its factor, in words. */
+  designMethod: 'aisc-360-e3' | 'nds-3.7.1' | 'generic' | 'legacy';
+  designMethodLabel: string;
+  /** Allowable axial load by the design method, N. */
+  designCapacityN: number;
+  /** Stress the design capacity rests on (Fcr/Ωc, Fc', …), Pa. */
+  designStressPa: number;
+  /** Euler (elastic) buckling load, N: a secondary figure, never the capacity. */
   eulerLoadN: number;
+  /** Axial load over the Euler load. */
+  eulerRatio: number;
+  /** Axial stress P / A, Pa. */
   stressPa: number;
-  bucklingUtilisation: number;
-  stressUtilisation: number;
+  /** Slenderness as the method measures it, its name and limit. */
+  slenderness: number;
+  slendernessName: 'KL/r' | 'le/d';
+  slendernessLimit: number | null;
+  slendernessExceeded: boolean;
+  /** NDS column stability factor Cp, or null. */
+  columnStabilityFactor: number | null;
+  /** Axial load over the design capacity. */
   utilisation: number;
-  /** Length over least lateral dimension. */
-  lengthToLeastDimension: number;
+  /** Length over least thickness (solid sections only; null for a tube, whose diameter is no thickness). */
+  lengthToLeastDimension: number | null;
+  /** Common-practice flag: longer than 30 × least thickness (no source). */
   slender: boolean;
 }
 
 export interface CapacityResult {
   kind: 'pressure' | 'force';
+  /** Which way the rating holds: 'either' for a rating without direction. */
+  direction: 'towards-A' | 'towards-B' | 'either';
   rated: number;
+  /** Peak net pressure (Pa) or net force (N) pushing that way. */
   actual: number;
   utilisation: number;
 }
@@ -212,9 +299,16 @@ export interface BoundaryResult {
   net: NetResult;
   loadDiagram: LoadDiagramPoint[];
   facets: FacetResult[] | null;
+  /** Faceted surfaces: facets walked the other way round from their neighbours (indices). */
+  reversedFacets: number[];
   stiffeners: StiffenerResult | null;
+  plating: PlatingResult | null;
   shores: ShoreResult[];
+  /** What the shore and stiffener model assumes, in words (null when the plate has neither). */
+  structureModel: string | null;
   capacity: CapacityResult | null;
+  /** Ratings with a direction: one entry per direction rated. */
+  capacities: CapacityResult[];
   /** Largest of capacity, stiffener and shore utilisations, or null if nothing is rated. */
   maxUtilisation: number | null;
 }
@@ -243,7 +337,9 @@ export interface SurveyResults {
     totalInflowM3S: number;
     totalPumpCapacityM3S: number;
   };
+  /** Compartments and boundaries left out because a reading they rest on is missing (absent in older results). */
+  withheld?: Withheld[];
   warnings: EngineWarning[];
 }
 
-export type { LoadDiagramPoint };
+export type { LoadDiagramPoint, Withheld };

@@ -13,6 +13,7 @@ import {
   FluidOverrideSchema,
   PhotoRefSchema,
   SurveySchema,
+  UpgradingSurveySchema,
 } from './survey';
 
 const shape = SurveySchema.shape;
@@ -27,6 +28,9 @@ export type SurveySetPath = (typeof SURVEY_SET_PATHS)[number];
 export const SurveySetPathSchema = z.enum(SURVEY_SET_PATHS);
 
 /** The arrays of entities (each with an `id`) inside a survey. */
+/** The largest value of a PostgreSQL integer column (sequence numbers and revisions are stored as one). */
+export const PG_INT_MAX = 2 ** 31 - 1;
+
 export const SURVEY_COLLECTIONS = ['conditions', 'compartments', 'boundaries', 'fluids', 'photos'] as const;
 export type SurveyCollection = (typeof SURVEY_COLLECTIONS)[number];
 export const SurveyCollectionSchema = z.enum(SURVEY_COLLECTIONS);
@@ -112,7 +116,7 @@ export const ResolveConflictOpSchema = z.object({
   value: z.unknown(),
 });
 
-export const CreateOpSchema = z.object({ kind: z.literal('create'), survey: SurveySchema });
+export const CreateOpSchema = z.object({ kind: z.literal('create'), survey: UpgradingSurveySchema });
 
 export const SurveyOpSchema = z.discriminatedUnion('kind', [
   CreateOpSchema,
@@ -132,10 +136,10 @@ export const SurveyChangeSchema = z
   .object({
     id: z.uuid(),
     deviceId: z.uuid(),
-    seq: z.number().int().min(1),
+    seq: z.number().int().min(1).max(PG_INT_MAX),
     surveyId: z.uuid(),
     /** The server revision of the survey the device had when the edit was made (0: never synced). */
-    baseRevision: z.number().int().min(0),
+    baseRevision: z.number().int().min(0).max(PG_INT_MAX),
     createdAt: z.iso.datetime({ offset: true }),
     op: SurveyOpSchema,
   })
@@ -206,8 +210,8 @@ export const PushResponseSchema = z.object({
 });
 export type PushResponse = z.infer<typeof PushResponseSchema>;
 
-/** Engine results stored for one revision. */
-export const SurveyResultsSchema = z.object({
+/** Engine results stored for one revision (the engine's own output type is `SurveyResults` in shared/engine). */
+export const StoredResultsSchema = z.object({
   revision: z.number().int(),
   engineVersion: z.string(),
   computedAt: z.string(),
@@ -215,7 +219,7 @@ export const SurveyResultsSchema = z.object({
   results: z.unknown(),
   error: z.string().nullable(),
 });
-export type SurveyResults = z.infer<typeof SurveyResultsSchema>;
+export type StoredResults = z.infer<typeof StoredResultsSchema>;
 
 export const SurveySummarySchema = z.object({
   id: z.uuid(),
@@ -233,8 +237,8 @@ export const SurveySummarySchema = z.object({
 export type SurveySummary = z.infer<typeof SurveySummarySchema>;
 
 export const SurveyDetailSchema = SurveySummarySchema.extend({
-  doc: SurveySchema,
-  results: SurveyResultsSchema.nullable(),
+  doc: UpgradingSurveySchema,
+  results: StoredResultsSchema.nullable(),
   conflicts: z.array(ConflictSchema),
 });
 export type SurveyDetail = z.infer<typeof SurveyDetailSchema>;
@@ -267,7 +271,7 @@ export const SurveyListResponseSchema = z.object({
 });
 export type SurveyListResponse = z.infer<typeof SurveyListResponseSchema>;
 
-export const CreateSurveyRequestSchema = z.object({ survey: SurveySchema });
+export const CreateSurveyRequestSchema = z.object({ survey: UpgradingSurveySchema });
 export type CreateSurveyRequest = z.infer<typeof CreateSurveyRequestSchema>;
 
 /** A survey as the server holds it, for a device's store. */
@@ -275,16 +279,19 @@ export const SyncedSurveySchema = z.object({
   id: z.uuid(),
   revision: z.number().int(),
   status: SurveyStatusSchema,
-  doc: SurveySchema,
+  doc: UpgradingSurveySchema,
   createdBy: UserRefSchema,
   updatedAt: z.string(),
 });
 export type SyncedSurvey = z.infer<typeof SyncedSurveySchema>;
 
+const XID8_MAX = 2n ** 64n - 1n;
 export const PullQuerySchema = z.object({
+  // Transaction ids are PostgreSQL xid8 (unsigned 64-bit); the id is a survey's UUID.
   cursor: z
     .string()
-    .regex(/^\d+(:\d+:[0-9a-f-]{36})?$/, 'cursor is not one this server gave out')
+    .regex(/^\d{1,20}(:\d{1,20}:[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12})?$/i, 'cursor is not one this server gave out')
+    .refine((c) => c.split(':').every((part, i) => i === 2 || BigInt(part) <= XID8_MAX), 'cursor is not one this server gave out')
     .default('0'),
   limit: z.coerce.number().int().min(1).max(200).default(50),
 });

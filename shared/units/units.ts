@@ -5,19 +5,6 @@
  * 9.80665 m/s², 1 US gallon = 231 in³, 1 petroleum barrel = 42 US gallons).
  */
 
-declare const unitBrand: unique symbol;
-/** A number carrying its unit in the type, so metres and feet (or degrees and radians) cannot be mixed. */
-export type Quantity<U extends string> = number & { readonly [unitBrand]: U };
-export type Metres = Quantity<'m'>;
-export type SquareMetres = Quantity<'m2'>;
-export type CubicMetres = Quantity<'m3'>;
-export type Kilograms = Quantity<'kg'>;
-export type Newtons = Quantity<'N'>;
-export type Pascals = Quantity<'Pa'>;
-export type Radians = Quantity<'rad'>;
-export type Degrees = Quantity<'deg'>;
-export type Seconds = Quantity<'s'>;
-
 /** Standard acceleration of gravity, m/s² (3rd CGPM, 1901). */
 export const STANDARD_GRAVITY_M_S2 = 9.80665;
 
@@ -34,9 +21,6 @@ export const LONG_TON_FORCE_N = 2240 * POUND_FORCE_N;
 export const CUBIC_FOOT_M3 = FOOT_M * FOOT_M * FOOT_M;
 export const US_GALLON_M3 = 231 * INCH_M * INCH_M * INCH_M;
 export const BARREL_M3 = 42 * US_GALLON_M3;
-
-export const degToRad = (deg: number): Radians => ((deg * Math.PI) / 180) as Radians;
-export const radToDeg = (rad: number): Degrees => ((rad * 180) / Math.PI) as Degrees;
 
 /** Every unit the app displays, with its size in the SI unit of its dimension. */
 export const UNITS = {

@@ -1,7 +1,7 @@
 import { describe, expect, it, inject } from 'vitest';
 import { randomBytes } from 'node:crypto';
 import { createDb } from '../../server/db/knex';
-import { migrateDownAll, migrateLatest } from '../../scripts/lib/migrate';
+import { migrateDownAll, migrateLatest } from '../../server/db/migrate';
 
 // Every migration must go up and come back down cleanly. This runs on a database of its own in the
 // test cluster, so the other test files keep their schema while it rolls back.

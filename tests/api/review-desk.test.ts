@@ -121,7 +121,7 @@ describe('history', () => {
     const device = randomUUID();
     const cond = s.conditions[0]!;
     const push = await call('POST', '/api/sync/push', tok.surveyor!, {
-      changes: [change(device, s.id, { kind: 'upsert', collection: 'conditions', entity: { ...cond, drafts: { ...cond.drafts, forwardM: cond.drafts.forwardM + 0.4 } }, fields: ['drafts'] }, 1)],
+      changes: [change(device, s.id, { kind: 'upsert', collection: 'conditions', entity: { ...cond, drafts: { ...cond.drafts, forwardM: (cond.drafts.forwardM ?? 0) + 0.4 } }, fields: ['drafts'] }, 1)],
     });
     expect(push.status).toBe(200);
     expect(push.body.results[0].status).toBe('applied');
@@ -135,7 +135,7 @@ describe('history', () => {
 
     // Revision 1's results were stored when it was current (the desk asked for them).
     await t.db('survey_results').where({ survey_id: s.id }).delete();
-    const { ensureResults } = await import('../../server/services/surveys');
+    const { ensureResults } = await import('../../server/services/engine-results');
     await ensureResults(t.db, s.id, 1, s);
     const cmp = await call('GET', `/api/surveys/${s.id}/compare?a=1&b=2`, tok.engineer!);
     expect(cmp.status).toBe(200);

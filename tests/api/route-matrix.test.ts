@@ -8,7 +8,8 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Router } from 'express';
 import { startTestApp, type TestApp } from '../support/app';
-import { authHeader, createOrgWithMembers, signIn, type TestOrg } from '../support/auth';
+import { createOrgWithMembers, signIn, type TestOrg } from '../support/auth';
+import { callRoute } from '../support/route-call';
 import { CALLERS, routeCases, type Caller } from './route-cases';
 
 let t: TestApp;
@@ -77,25 +78,10 @@ describe('route × caller matrix', () => {
     it(key, async () => {
       const c = routeCases[key];
       if (!t.app.locals.routes.some((r) => `${r.method.toUpperCase()} ${r.path}` === key)) return;
-      const [method, pattern] = key.split(' ');
       const got: Record<string, number> = {};
       for (const caller of CALLERS) {
         const prepared = (await c.setup?.({ t, org, other, caller })) ?? {};
-        const url = pattern.replace(/:(\w+)/g, (_, name: string) => {
-          const v = prepared.params?.[name];
-          if (v === undefined) throw new Error(`${key}: setup gave no value for :${name}`);
-          return encodeURIComponent(v);
-        });
-        const token = tokens[caller];
-        const res = await fetch(`${t.url}${url}`, {
-          method,
-          headers: {
-            ...(token ? authHeader(token) : {}),
-            ...(prepared.body !== undefined ? { 'content-type': 'application/json' } : {}),
-            ...prepared.headers,
-          },
-          body: prepared.body !== undefined ? JSON.stringify(prepared.body) : undefined,
-        });
+        const res = await callRoute(t.url, key, prepared, tokens[caller]);
         const text = await res.text();
         expect(text, `${key} as ${caller} leaked a password hash`).not.toMatch(/\$2[aby]\$\d\d\$|password_?hash/i);
         got[caller] = res.status;

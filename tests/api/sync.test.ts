@@ -17,7 +17,7 @@ import {
 import type { Survey } from '@shared/schemas/survey';
 import { startTestApp, type TestApp } from '../support/app';
 import { addMember, createOrgWithMembers, type TestOrg } from '../support/auth';
-import { push } from '../../server/services/sync';
+import { createSyncService } from '../../server/services/sync/service';
 import { change, newSurvey, storeSurvey, tokenFor } from '../support/surveys';
 import { SimDevice } from '../support/sync-device';
 
@@ -220,13 +220,13 @@ describe('POST /api/sync/push', () => {
   });
 
   describe('after a push, the next push of plain edits starts from the survey as this server wrote it', () => {
-    // server/services/sync.ts SurveyStateCache: a shortcut that must never change an answer.
+    // server/services/sync/state-cache.ts SurveyStateCache: a shortcut that must never change an answer.
     it('keeps every edit when the survey was written elsewhere in between (another server)', async () => {
       const s = await storeSurvey(t.db, org.surveyor);
       const d = randomUUID();
       await pushRaw(surveyorToken, [change(d, s.id, { kind: 'upsert', collection: 'fluids', entity: fluid('here-1', 801) }, 1)]);
       // Another server instance: the service on the same database, without this app's memory.
-      const elsewhere = await push(t.db, { userId: org.surveyor.id, orgId: org.id, role: 'surveyor', email: org.surveyor.email }, [
+      const elsewhere = await createSyncService({ db: t.db }).push({ userId: org.surveyor.id, orgId: org.id, role: 'surveyor', email: org.surveyor.email }, [
         change(randomUUID(), s.id, { kind: 'set', path: 'title', value: 'Renamed on another server' }, 2),
       ]);
       expect(elsewhere.results[0]).toMatchObject({ status: 'applied', revision: 3 });

@@ -4,7 +4,7 @@ import { deflateSync } from 'node:zlib';
 import type { TestApp } from './app';
 import type { TestOrg } from './auth';
 import { storeSurvey } from './surveys';
-import { uploadPhoto } from '../../server/services/photos';
+import { createPhotoService } from '../../server/services/photos';
 import { createS3PhotoStorage } from '../../server/storage/photo-store';
 
 function crc32(buf: Buffer): number {
@@ -55,9 +55,7 @@ export async function storedPhoto(t: TestApp, org: TestOrg): Promise<string> {
   const survey = await storeSurvey(t.db, org.surveyor);
   const id = randomUUID();
   const m = org.surveyor;
-  await uploadPhoto(
-    t.db,
-    createS3PhotoStorage(t.config),
+  await createPhotoService({ db: t.db, storage: createS3PhotoStorage(t.config) }).upload(
     { userId: m.id, orgId: m.orgId, role: m.role, email: m.email },
     id,
     { surveyId: survey.id, entityKind: 'survey', entityId: survey.id, caption: 'matrix' },

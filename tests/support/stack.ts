@@ -5,7 +5,7 @@
 import fs from 'node:fs';
 import path from 'node:path';
 import { startPostgres, type PgCluster } from '../../scripts/lib/postgres';
-import { migrateLatest } from '../../scripts/lib/migrate';
+import { migrateLatest } from '../../server/db/migrate';
 import { startMailCatcher, type MailCatcher } from '../../scripts/lib/mail-catcher';
 import { startS3Fake, type S3Fake } from '../../scripts/lib/s3-fake';
 import { createDb } from '../../server/db/knex';

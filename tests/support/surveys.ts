@@ -5,7 +5,8 @@ import type { Survey } from '@shared/schemas/survey';
 import type { SurveyChange, SurveyOp } from '@shared/schemas/sync';
 import type { Role } from '@shared/api/roles';
 import { demoSurvey } from '../../seeds/demo-survey';
-import { createSurvey } from '../../server/services/surveys';
+import { pino } from 'pino';
+import { createSurveyService } from '../../server/services/surveys';
 import { signAccessToken } from '../../server/services/tokens';
 
 /** The demo casualty as a new survey (fresh survey id, same entity ids). */
@@ -29,7 +30,8 @@ export function tokenFor(secret: string, m: Caller): Promise<string> {
 /** Stores a new survey in the member's organisation and returns it. */
 export async function storeSurvey(db: Knex, m: Caller, patch: Partial<Survey> = {}): Promise<Survey> {
   const survey = newSurvey(patch);
-  await createSurvey(db, { userId: m.id, orgId: m.orgId, role: m.role, email: m.email }, survey);
+  const surveys = createSurveyService({ db, logger: pino({ level: 'silent' }) });
+  await surveys.create({ userId: m.id, orgId: m.orgId, role: m.role, email: m.email }, survey);
   return survey;
 }
 

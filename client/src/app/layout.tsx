@@ -1,6 +1,6 @@
 import { Outlet } from 'react-router';
 import { AppHeader } from '@client/components/layout/app-header';
-import { SyncStatus } from '@client/components/layout/sync-status';
+import { SyncStatus } from '@client/features/sync/components/sync-status';
 import { UpdateBanner } from '@client/components/layout/update-banner';
 import { UserMenu } from '@client/features/auth/components/user-menu';
 import { SessionPrompt } from '@client/features/auth/components/session-prompt';

@@ -173,12 +173,6 @@ export function changeUnitSystem(unitSystem: UnitSystem): void {
   void sendUnitSystem(unitSystem);
 }
 
-/** Replaces the remembered profile after the person changed it. */
-export function updateProfile(user: Me): void {
-  remember(user);
-  publish({ ...session, user });
-}
-
 let started = false;
 async function start(): Promise<void> {
   if (started) return;

@@ -81,12 +81,5 @@ export function num(valueSi: number | null | undefined, dimension: Dimension, sy
   return formatNumber(display(valueSi, dimension, system), digits);
 }
 
-/** A value rounded for an input field (no exponent, at most 6 decimals, trailing zeros dropped). */
-export function forInput(valueSi: number | undefined, dimension: Dimension, system: UnitSystem): string {
-  if (valueSi === undefined || !Number.isFinite(valueSi)) return '';
-  const v = display(valueSi, dimension, system);
-  return String(Number(v.toFixed(6)));
-}
-
 export const percent = (fraction: number | null | undefined, digits = 0): string =>
   fraction === null || fraction === undefined || !Number.isFinite(fraction) ? '—' : `${(fraction * 100).toFixed(digits)} %`;

@@ -5,8 +5,10 @@
  * Schema versions are append-only: never edit a version that has shipped; add `version(n + 1)`
  * with the new stores (and an `upgrade` when existing rows must change).
  */
-import { Dexie, type EntityTable } from 'dexie';
+import { Dexie, type EntityTable, type Transaction } from 'dexie';
 import type { Survey } from '@shared/schemas/survey';
+import type { CommentTarget, ReviewNotes } from '@shared/api/review';
+import { needsUpgrade, upgradeSurvey } from '@shared/schemas/upgrade';
 import type { Conflict, SurveyChange, SurveyStatus, UserRef } from '@shared/schemas/sync';
 
 export interface LocalSurvey {
@@ -56,6 +58,27 @@ export interface LocalPhoto {
   key?: string;
 }
 
+/** The reviewers' notes on one survey, as the last pull brought them (replaced whole by each pull). */
+export type LocalReviewNotes = ReviewNotes;
+
+/**
+ * A reply to a reviewer's comment written on this device, waiting for the server. The id is made on
+ * the device, so sending it twice (a lost answer) still makes one comment.
+ */
+export interface LocalReply {
+  id: string;
+  surveyId: string;
+  /** The thread's first comment. */
+  parentId: string;
+  target: CommentTarget;
+  body: string;
+  authorName: string;
+  createdAt: string;
+  state: OutboxState;
+  /** Why the server refused it, for the user. */
+  reason?: string;
+}
+
 export interface MetaRow {
   key: string;
   value: unknown;
@@ -67,7 +90,12 @@ export type BrinelineDb = Dexie & {
   conflicts: EntityTable<LocalConflict, 'id'>;
   photos: EntityTable<LocalPhoto, 'id'>;
   meta: EntityTable<MetaRow, 'key'>;
+  reviewNotes: EntityTable<LocalReviewNotes, 'surveyId'>;
+  replies: EntityTable<LocalReply, 'id'>;
 };
+
+/** Before version 2 the reviewers' notes were `meta` rows under this key prefix. */
+export const LEGACY_REVIEW_KEY_PREFIX = 'review:';
 
 export const DB_NAME = 'brineline';
 
@@ -80,7 +108,41 @@ export function openDb(name = DB_NAME): BrinelineDb {
     photos: 'id, surveyId, uploaded, [entity.kind+entity.id]',
     meta: 'key',
   });
+  // A table per kind: the reviewers' notes leave `meta`, and replies written offline wait in their own outbox.
+  db.version(2)
+    .stores({ reviewNotes: 'surveyId', replies: 'id, surveyId, state, [surveyId+state]' })
+    .upgrade(async (tx) => {
+      const meta = tx.table<MetaRow, string>('meta');
+      const legacy = await meta.where('key').startsWith(LEGACY_REVIEW_KEY_PREFIX).toArray();
+      const notes = legacy.flatMap((row) => {
+        const value = row.value as Partial<LocalReviewNotes> | null;
+        // Keyed by the survey id in the value; the key's own suffix is the fallback for a partial record.
+        const surveyId = value?.surveyId ?? row.key.slice(LEGACY_REVIEW_KEY_PREFIX.length);
+        return value && typeof value === 'object' ? [{ ...value, surveyId } as LocalReviewNotes] : [];
+      });
+      await tx.table<LocalReviewNotes, string>('reviewNotes').bulkPut(notes);
+      await meta.bulkDelete(legacy.map((row) => row.key));
+    });
+  // Survey format v2 (shared/schemas/upgrade.ts): same stores, documents upgraded.
+  db.version(3).upgrade(upgradeStoredSurveys);
   return db;
+}
+
+/**
+ * Brings every survey document on the device up to the current format: the working copy, the
+ * server's copy and a survey waiting in the outbox to be created. Runs inside Dexie's version
+ * upgrade, before anything else can read the store.
+ */
+export async function upgradeStoredSurveys(tx: Transaction): Promise<void> {
+  await tx.table<LocalSurvey>('surveys').toCollection().modify((row) => {
+    row.doc = upgradeSurvey(row.doc) as Survey;
+    if (row.serverDoc) row.serverDoc = upgradeSurvey(row.serverDoc) as Survey;
+  });
+  await tx.table<OutboxEntry>('outbox').toCollection().modify((entry) => {
+    if (entry.op.kind === 'create' && needsUpgrade(entry.op.survey)) {
+      entry.op = { ...entry.op, survey: upgradeSurvey(entry.op.survey) as Survey };
+    }
+  });
 }
 
 export const db: BrinelineDb = openDb();

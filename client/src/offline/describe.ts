@@ -1,13 +1,6 @@
 /** Plain words for an edit or a conflict target, for lists the user reads. */
-import type { ConflictTarget, SurveyCollection, SurveyOp } from '@shared/schemas/sync';
-
-const NOUN: Record<SurveyCollection, string> = {
-  conditions: 'condition',
-  compartments: 'compartment',
-  boundaries: 'boundary',
-  fluids: 'fluid',
-  photos: 'photo',
-};
+import type { ConflictTarget, SurveyOp } from '@shared/schemas/sync';
+import { ENTITY_NOUNS as NOUN } from '@shared/api/entity-nouns';
 
 const FIELD: Record<string, string> = {
   title: 'title',

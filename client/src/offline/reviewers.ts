@@ -19,12 +19,11 @@ export function reviewerOf(notes: ReviewNotes | undefined): string | null {
 
 /** Reviewer name by survey id, for every survey with notes on this device (reactive). */
 export function useReviewers(): Map<string, string> {
-  const rows = useLiveQuery(() => db.meta.where('key').startsWith('review:').toArray(), []);
+  const rows = useLiveQuery(() => db.reviewNotes.toArray(), []);
   return useMemo(
     () =>
       new Map(
-        (rows ?? []).flatMap((row) => {
-          const notes = row.value as ReviewNotes;
+        (rows ?? []).flatMap((notes) => {
           const name = reviewerOf(notes);
           return name ? [[notes.surveyId, name] as const] : [];
         }),

@@ -1,7 +1,13 @@
 /** The outbox and conflict counts behind the sync state, read live from the device store. */
 import { liveQuery } from 'dexie';
-import { db } from './db';
-import type { SyncCounts } from './sync-state';
+import { db, type OutboxEntry } from './db';
+
+/** What the device store holds for the sync state (the header shows nothing from it until first read). */
+export interface SyncCounts {
+  pending: number;
+  rejected: OutboxEntry[];
+  openConflicts: number;
+}
 
 /** Calls `onChange` with the counts now and after every change to them; returns a function that stops. */
 export function watchSyncCounts(onChange: (counts: SyncCounts) => void): () => void {

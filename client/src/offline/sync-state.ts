@@ -6,6 +6,7 @@
  */
 import { useSyncExternalStore } from 'react';
 import type { OutboxEntry } from './db';
+import type { SyncCounts } from './sync-counts';
 
 export type SyncStateName = 'offline' | 'waiting' | 'syncing' | 'synced' | 'attention';
 
@@ -33,13 +34,6 @@ export interface EngineStatus {
   lastSyncedAt?: string;
   error?: string;
   retryAt?: string;
-}
-
-/** What the device store holds for the sync state (undefined until first read). */
-export interface SyncCounts {
-  pending: number;
-  rejected: OutboxEntry[];
-  openConflicts: number;
 }
 
 let status: EngineStatus = { running: false, online: typeof navigator === 'undefined' ? true : navigator.onLine, needsSignIn: false };

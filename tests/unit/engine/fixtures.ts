@@ -1,5 +1,5 @@
 /** Small builders for test surveys. Ids are deterministic UUIDs so results are reproducible. */
-import type { Boundary, Compartment, Contents, Survey } from '@shared/schemas/survey';
+import { SURVEY_SCHEMA_VERSION, type Boundary, type Compartment, type Contents, type Survey } from '@shared/schemas/survey';
 
 let counter = 0;
 export function tid(): string {
@@ -10,7 +10,7 @@ export function tid(): string {
 export function baseSurvey(opts: { aft?: number; fwd?: number; heelDeg?: number } = {}): Survey {
   const condId = tid();
   return {
-    schemaVersion: 1,
+    schemaVersion: SURVEY_SCHEMA_VERSION,
     id: tid(),
     title: 'test',
     casualtyDescription: '',

@@ -99,13 +99,32 @@ describe('flat plate loads', () => {
     const st = r.stiffeners!;
     expect(st.items.length).toBe(9);
     expect(st.items[0].totalLoadN).toBeCloseTo((1000 * G * 36) / 2, 6);
-    // shores: Voronoi split at z = 4; totals equal the plate's net force
+    // both shores stand on the middle stiffener (y = 0): they are its intermediate supports, and
+    // every other stiffener bears only at its ends (statics: each load goes to exactly one place)
+    expect(r.shores.map((x) => x.bearsOn)).toEqual(['stiffener', 'stiffener']);
+    const ends = st.items.reduce((a, x) => a + x.reactionStartN + x.reactionEndN, 0);
+    const onShores = r.shores.reduce((a, x) => a + x.tributaryForceN, 0);
+    expect(ends + onShores + st.edgeLoadN!).toBeCloseTo(r.net.forceN, 4);
+    const middle = st.items[4];
+    expect(middle.shoreForcesN).toBeCloseTo(onShores, 6);
+    expect(middle.reactionStartN + middle.reactionEndN + onShores).toBeCloseTo(middle.totalLoadN, 6);
+    expect(r.shores[1].effectiveLengthFactor).toBe(0.65);
+    expect(r.shores[0].slender).toBe(false);
+    // a tube is never judged by length over "thickness"
+    expect(r.shores[1].lengthToLeastDimension).toBeNull();
+  });
+
+  it('shores on an unstiffened plate share it by nearest-shore areas that add up to the plate', () => {
+    const s = twoTanks(6, 0);
+    s.boundaries[0].shores = [
+      { id: tid(), position: { x: 10, y: 0, z: 2 }, lengthM: 5, section: { kind: 'rectangular', widthM: 0.2, depthM: 0.3 }, elasticModulusPa: 11e9, allowableStressPa: 8e6, endCondition: 'pinned-pinned', side: 'B' },
+      { id: tid(), position: { x: 10, y: 0, z: 6 }, lengthM: 8, section: { kind: 'tube', outerDiameterM: 0.2, wallThicknessM: 0.01 }, elasticModulusPa: 200e9, allowableStressPa: 150e6, endCondition: 'fixed-fixed', side: 'B' },
+    ];
+    const r = computeSurvey(s).boundaries[0];
     const total = r.shores.reduce((a, x) => a + x.tributaryForceN, 0);
     expect(total).toBeCloseTo(r.net.forceN, 4);
     expect(r.shores[0].tributaryAreaM2).toBeCloseTo(40, 9);
     expect(r.shores[0].tributaryForceN).toBeCloseTo(1000 * G * 10 * (36 - 4) / 2, 4);
-    expect(r.shores[1].effectiveLengthFactor).toBe(0.65);
-    expect(r.shores[0].slender).toBe(false);
   });
 });
 

@@ -3,6 +3,8 @@ import { useState, type FormEvent } from 'react';
 import type { BriefLink } from '@shared/api/review';
 import { BRIEFABLE_STATUSES, type SurveyStatus } from '@shared/review/status';
 import { useIssueBrief, useRevokeBrief } from '../api/briefs';
+import { buttonClass } from '@client/components/ui/button';
+import { inputCls } from '@client/components/ui/fields';
 
 const when = (iso: string) => new Date(iso).toLocaleString('en-GB', { dateStyle: 'medium', timeStyle: 'short', timeZone: 'UTC' }) + ' UTC';
 
@@ -39,11 +41,11 @@ export function BriefPanel({ surveyId, status, briefs, canIssue, canRevoke }: { 
           <label className="text-sm font-bold" htmlFor="brief-email">
             Master’s e-mail
           </label>
-          <input id="brief-email" type="email" className="min-h-touch rounded border border-line px-2" value={email} onChange={(e) => setEmail(e.target.value)} required autoComplete="off" />
+          <input id="brief-email" type="email" className={inputCls} value={email} onChange={(e) => setEmail(e.target.value)} required autoComplete="off" />
           <label className="text-sm font-bold" htmlFor="brief-expiry">
             Link works for
           </label>
-          <select id="brief-expiry" className="min-h-touch rounded border border-line bg-paper px-2" value={hours} onChange={(e) => setHours(Number(e.target.value))}>
+          <select id="brief-expiry" className={inputCls} value={hours} onChange={(e) => setHours(Number(e.target.value))}>
             {EXPIRY_CHOICES.map((c) => (
               <option key={c.hours} value={c.hours}>
                 {c.label}
@@ -59,7 +61,7 @@ export function BriefPanel({ surveyId, status, briefs, canIssue, canRevoke }: { 
               <input type="radio" name="brief-units" checked={units === 'us'} onChange={() => setUnits('us')} /> US (ft, psi, kip, LT)
             </label>
           </fieldset>
-          <button type="submit" className="min-h-touch self-start rounded-lg bg-hull px-4 font-bold text-paper" disabled={issue.isPending}>
+          <button type="submit" className={buttonClass('primary', 'self-start')} disabled={issue.isPending}>
             Send brief link
           </button>
           {issue.isSuccess && (
@@ -87,7 +89,7 @@ export function BriefPanel({ surveyId, status, briefs, canIssue, canRevoke }: { 
                   {b.lastOpenedAt ? ` (last ${when(b.lastOpenedAt)})` : ''}
                 </p>
                 {state === 'active' && canRevoke && (
-                  <button type="button" className="mt-1 min-h-touch rounded-lg border-2 border-danger px-3 font-bold text-danger" onClick={() => revoke.mutate(b.id)} disabled={revoke.isPending}>
+                  <button type="button" className={buttonClass('danger-outline', 'mt-1')} onClick={() => revoke.mutate(b.id)} disabled={revoke.isPending}>
                     Withdraw link
                   </button>
                 )}

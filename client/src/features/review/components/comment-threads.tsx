@@ -4,6 +4,8 @@ import type { ReviewComment } from '@shared/api/review';
 import type { Survey } from '@shared/schemas/survey';
 import { useAddComment } from '../api/add-comment';
 import { targetKey, targetLabel, targetOptions } from './review-targets';
+import { buttonClass } from '@client/components/ui/button';
+import { inputCls } from '@client/components/ui/fields';
 
 const when = (iso: string) => new Date(iso).toLocaleString('en-GB', { dateStyle: 'medium', timeStyle: 'short', timeZone: 'UTC' }) + ' UTC';
 
@@ -13,7 +15,7 @@ function Reply({ surveyId, parent }: { surveyId: string; parent: ReviewComment }
   const add = useAddComment(surveyId);
   if (!open)
     return (
-      <button type="button" className="mt-1 min-h-touch text-sm font-bold text-sea underline" onClick={() => setOpen(true)}>
+      <button type="button" className={buttonClass('link', 'mt-1')} onClick={() => setOpen(true)}>
         Reply
       </button>
     );
@@ -26,12 +28,12 @@ function Reply({ surveyId, parent }: { surveyId: string; parent: ReviewComment }
       <label className="text-sm font-bold" htmlFor={`reply-${parent.id}`}>
         Reply
       </label>
-      <textarea id={`reply-${parent.id}`} className="rounded border border-line p-2" rows={2} value={body} onChange={(e) => setBody(e.target.value)} required />
+      <textarea id={`reply-${parent.id}`} className={`${inputCls} py-2`} rows={2} value={body} onChange={(e) => setBody(e.target.value)} required />
       <div className="flex gap-2">
-        <button type="submit" className="min-h-touch rounded-lg bg-hull px-4 font-bold text-paper" disabled={add.isPending}>
+        <button type="submit" className={buttonClass('primary')} disabled={add.isPending}>
           Send reply
         </button>
-        <button type="button" className="min-h-touch rounded-lg border border-line px-4" onClick={() => setOpen(false)}>
+        <button type="button" className={buttonClass('secondary')} onClick={() => setOpen(false)}>
           Cancel
         </button>
       </div>
@@ -74,7 +76,7 @@ export function CommentThreads({
         <label className="text-sm font-bold" htmlFor="comment-target">
           On
         </label>
-        <select id="comment-target" className="min-h-touch rounded border border-line bg-paper px-2" value={target} onChange={(e) => setTarget(e.target.value)}>
+        <select id="comment-target" className={inputCls} value={target} onChange={(e) => setTarget(e.target.value)}>
           {options.map((o) => (
             <option key={o.key} value={o.key}>
               {o.label}
@@ -84,8 +86,8 @@ export function CommentThreads({
         <label className="text-sm font-bold" htmlFor="comment-body">
           Comment
         </label>
-        <textarea id="comment-body" className="rounded border border-line p-2" rows={3} value={body} onChange={(e) => setBody(e.target.value)} required />
-        <button type="submit" className="min-h-touch self-start rounded-lg bg-hull px-4 font-bold text-paper" disabled={add.isPending}>
+        <textarea id="comment-body" className={`${inputCls} py-2`} rows={3} value={body} onChange={(e) => setBody(e.target.value)} required />
+        <button type="submit" className={buttonClass('primary', 'self-start')} disabled={add.isPending}>
           Add comment
         </button>
         {add.isError && <p role="alert" className="text-danger">{add.error.message}</p>}
@@ -95,7 +97,7 @@ export function CommentThreads({
       ) : (
         <ul className="mt-3 space-y-3" data-testid="comment-list">
           {roots.map((c) => (
-            <li key={c.id} className="rounded border border-line p-2" data-target={targetKey(c.target)}>
+            <li key={c.id} className={`${inputCls} py-2`} data-target={targetKey(c.target)}>
               <p className="text-xs font-bold uppercase tracking-wide text-ink-soft">{targetLabel(doc, c.target)}</p>
               <p className="mt-1 whitespace-pre-wrap">{c.body}</p>
               <p className="text-xs text-ink-soft">

@@ -3,8 +3,9 @@ import { useState } from 'react';
 import type { FieldChange } from '@shared/api/review';
 import type { UnitSystem } from '@shared/units/units';
 import { fmt } from '@client/lib/unit-system';
-import { UtilisationBadge } from '@client/components/results/utilisation';
+import { UtilisationBadge } from '@client/features/results/components/utilisation';
 import { useCompare, useRevisions } from '../api/history';
+import { inputCls } from '@client/components/ui/fields';
 
 const when = (iso: string) => new Date(iso).toLocaleString('en-GB', { dateStyle: 'medium', timeStyle: 'short', timeZone: 'UTC' }) + ' UTC';
 
@@ -28,7 +29,7 @@ function RevisionSelect(props: { label: string; revisions: { revision: number }[
   return (
     <label className="flex flex-col text-sm font-bold">
       {props.label}
-      <select className="min-h-touch rounded border border-line bg-paper px-2" value={props.value ?? ''} onChange={(e) => props.onChange(Number(e.target.value))}>
+      <select className={inputCls} value={props.value ?? ''} onChange={(e) => props.onChange(Number(e.target.value))}>
         {props.revisions.map((r) => (
           <option key={r.revision} value={r.revision}>
             Revision {r.revision}

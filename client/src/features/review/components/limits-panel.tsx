@@ -6,6 +6,8 @@ import type { UnitSystem } from '@shared/units/units';
 import { describeLimit, namesFromSurvey } from '@shared/review/words';
 import { fromDisplay, unitLabel } from '@client/lib/unit-system';
 import { useAddLimit, useRemoveLimit } from '../api/limits';
+import { buttonClass } from '@client/components/ui/button';
+import { inputCls } from '@client/components/ui/fields';
 
 type Kind = LimitRule['kind'];
 const KINDS = Object.keys(LIMIT_KIND_LABELS) as Kind[];
@@ -58,7 +60,7 @@ export function LimitsPanel({ surveyId, doc, limits, editable, system }: { surve
               <span className="font-bold">{describeLimit(l, names, system)}</span>
               <span className="block text-xs text-ink-soft">set by {l.createdByName}</span>
               {editable && (
-                <button type="button" className="min-h-touch text-sm text-danger underline" onClick={() => remove.mutate(l.id)} disabled={remove.isPending}>
+                <button type="button" className={buttonClass('danger-link')} onClick={() => remove.mutate(l.id)} disabled={remove.isPending}>
                   Remove
                 </button>
               )}
@@ -71,7 +73,7 @@ export function LimitsPanel({ surveyId, doc, limits, editable, system }: { surve
           <label className="text-sm font-bold" htmlFor="limit-kind">
             New limit
           </label>
-          <select id="limit-kind" className="min-h-touch rounded border border-line bg-paper px-2" value={kind} onChange={(e) => setKind(e.target.value as Kind)}>
+          <select id="limit-kind" className={inputCls} value={kind} onChange={(e) => setKind(e.target.value as Kind)}>
             {KINDS.map((k) => (
               <option key={k} value={k}>
                 {LIMIT_KIND_LABELS[k]}
@@ -83,7 +85,7 @@ export function LimitsPanel({ surveyId, doc, limits, editable, system }: { surve
               <label className="text-sm font-bold" htmlFor="limit-compartment">
                 Compartment
               </label>
-              <select id="limit-compartment" className="min-h-touch rounded border border-line bg-paper px-2" value={compartmentId} onChange={(e) => setCompartmentId(e.target.value)}>
+              <select id="limit-compartment" className={inputCls} value={compartmentId} onChange={(e) => setCompartmentId(e.target.value)}>
                 {doc.compartments.map((c) => (
                   <option key={c.id} value={c.id}>
                     {c.name}
@@ -97,7 +99,7 @@ export function LimitsPanel({ surveyId, doc, limits, editable, system }: { surve
               <label className="text-sm font-bold" htmlFor="limit-boundary">
                 Boundary
               </label>
-              <select id="limit-boundary" className="min-h-touch rounded border border-line bg-paper px-2" value={boundaryId} onChange={(e) => setBoundaryId(e.target.value)}>
+              <select id="limit-boundary" className={inputCls} value={boundaryId} onChange={(e) => setBoundaryId(e.target.value)}>
                 {doc.boundaries.map((b) => (
                   <option key={b.id} value={b.id}>
                     {b.name}
@@ -111,14 +113,14 @@ export function LimitsPanel({ surveyId, doc, limits, editable, system }: { surve
               <label className="text-sm font-bold" htmlFor="limit-value">
                 {kind === 'max_net_pressure' ? `Pressure (${unitLabel('pressure', system)})` : `Level over the baseline (${unitLabel('length', system)})`}
               </label>
-              <input id="limit-value" className="min-h-touch rounded border border-line px-2" inputMode="decimal" value={value} onChange={(e) => setValue(e.target.value)} required pattern="-?[0-9]+([.,][0-9]+)?" />
+              <input id="limit-value" className={inputCls} inputMode="decimal" value={value} onChange={(e) => setValue(e.target.value)} required pattern="-?[0-9]+([.,][0-9]+)?" />
             </>
           )}
           <label className="text-sm font-bold" htmlFor="limit-text">
             {kind === 'text' ? 'The limit, in words' : 'More words (optional)'}
           </label>
-          <textarea id="limit-text" className="rounded border border-line p-2" rows={2} value={text} onChange={(e) => setText(e.target.value)} required={kind === 'text'} />
-          <button type="submit" className="min-h-touch self-start rounded-lg bg-hull px-4 font-bold text-paper" disabled={add.isPending}>
+          <textarea id="limit-text" className={`${inputCls} py-2`} rows={2} value={text} onChange={(e) => setText(e.target.value)} required={kind === 'text'} />
+          <button type="submit" className={buttonClass('primary', 'self-start')} disabled={add.isPending}>
             Add limit
           </button>
           {add.isError && <p role="alert" className="text-danger">{add.error.message}</p>}

@@ -3,9 +3,9 @@ import { lazy, Suspense } from 'react';
 import type { SurveyResults } from '@shared/engine/results';
 import type { Survey } from '@shared/schemas/survey';
 import type { UnitSystem } from '@shared/units/units';
-import { ModelBoundary } from '@client/components/model3d/model-boundary';
+import { ModelBoundary } from '@client/features/model3d/components/model-boundary';
 
-const SurveyScene = lazy(() => import('@client/components/model3d/survey-scene'));
+const SurveyScene = lazy(() => import('@client/features/model3d/components/survey-scene'));
 
 export function ReviewModel3d({
   survey,

@@ -1,6 +1,6 @@
 /** The engineer's queue: surveys sent for review or under review, oldest first. */
 import { Link } from 'react-router';
-import { UtilisationBadge } from '@client/components/results/utilisation';
+import { UtilisationBadge } from '@client/features/results/components/utilisation';
 import { paths } from '@client/config/paths';
 import { useQueue } from '../api/get-queue';
 import { StatusChip } from './status-chip';

@@ -5,6 +5,8 @@ import type { StatusEvent } from '@shared/api/review';
 import { STATUS_LABELS, transitionsFor, type SurveyStatus } from '@shared/review/status';
 import { useChangeStatus } from '../api/change-status';
 import { StatusChip } from './status-chip';
+import { buttonClass } from '@client/components/ui/button';
+import { inputCls } from '@client/components/ui/fields';
 
 const when = (iso: string) => new Date(iso).toLocaleString('en-GB', { dateStyle: 'medium', timeStyle: 'short', timeZone: 'UTC' }) + ' UTC';
 
@@ -22,13 +24,13 @@ export function StatusActions({ surveyId, status, role, events, isSubmitter }: {
           <label className="text-sm font-bold" htmlFor="status-note">
             Note to the surveyor {moves.some((m) => m.noteRequired) ? '(needed to return or reopen)' : '(optional)'}
           </label>
-          <textarea id="status-note" className="rounded border border-line p-2" rows={2} value={note} onChange={(e) => setNote(e.target.value)} />
+          <textarea id="status-note" className={`${inputCls} py-2`} rows={2} value={note} onChange={(e) => setNote(e.target.value)} />
           <div className="flex flex-wrap gap-2">
             {moves.map((t) => (
               <button
                 key={t.action + t.to}
                 type="button"
-                className={`min-h-touch rounded-lg px-4 font-bold ${t.action === 'return' ? 'border-2 border-danger text-danger' : 'bg-hull text-paper'}`}
+                className={buttonClass(t.action === 'return' ? 'danger-outline' : 'primary')}
                 disabled={change.isPending}
                 onClick={() => change.mutate({ to: t.to, note: note || undefined }, { onSuccess: () => setNote('') })}
               >

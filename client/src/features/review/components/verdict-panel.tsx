@@ -12,6 +12,8 @@ import {
 import type { Survey } from '@shared/schemas/survey';
 import { verdictSeverity } from '@shared/review/words';
 import { useSetVerdict } from '../api/set-verdict';
+import { buttonClass } from '@client/components/ui/button';
+import { inputCls } from '@client/components/ui/fields';
 
 const SEVERITY_CLS = ['border-ok bg-ok-soft', 'border-caution bg-caution-soft', 'border-danger bg-danger-soft', 'border-danger bg-danger-soft'];
 
@@ -31,7 +33,7 @@ function BoundaryVerdictRow({ surveyId, boundary, current, editable }: { surveyI
       <div className="mt-1 flex flex-wrap gap-2">
         <select
           id={`bv-${boundary.id}`}
-          className="min-h-touch flex-1 rounded border border-line bg-paper px-2"
+          className={`${inputCls} flex-1`}
           value={value}
           disabled={!editable || set.isPending}
           onChange={(e) => choose(e.target.value)}
@@ -46,7 +48,7 @@ function BoundaryVerdictRow({ surveyId, boundary, current, editable }: { surveyI
       </div>
       <input
         aria-label={`Note on ${boundary.name}`}
-        className="mt-1 min-h-touch w-full rounded border border-line px-2 text-sm"
+        className={`${inputCls} mt-1 text-sm`}
         placeholder="Note (optional, saved with the verdict)"
         value={note}
         disabled={!editable}
@@ -81,7 +83,7 @@ export function VerdictPanel({ surveyId, doc, verdicts, editable }: { surveyId: 
         </label>
         <select
           id="survey-verdict"
-          className="min-h-touch rounded border border-line bg-paper px-2"
+          className={inputCls}
           value={choice}
           disabled={!editable}
           onChange={(e) => setChoice(e.target.value as SurveyVerdictValue)}
@@ -93,8 +95,8 @@ export function VerdictPanel({ surveyId, doc, verdicts, editable }: { surveyId: 
             </option>
           ))}
         </select>
-        <textarea aria-label="Note on the survey verdict" className="rounded border border-line p-2" rows={2} placeholder="Note (optional)" value={note} disabled={!editable} onChange={(e) => setNote(e.target.value)} />
-        <button type="submit" className="min-h-touch self-start rounded-lg bg-hull px-4 font-bold text-paper disabled:opacity-50" disabled={!editable || !choice || set.isPending}>
+        <textarea aria-label="Note on the survey verdict" className={`${inputCls} py-2`} rows={2} placeholder="Note (optional)" value={note} disabled={!editable} onChange={(e) => setNote(e.target.value)} />
+        <button type="submit" className={buttonClass('primary', 'self-start')} disabled={!editable || !choice || set.isPending}>
           Save survey verdict
         </button>
         {surveyVerdict && (

@@ -4,7 +4,7 @@ import { useId } from 'react';
 import { BOUNDARY_KINDS, type Boundary, type Survey } from '@shared/schemas/survey';
 import type { UnitSystem } from '@shared/units/units';
 import { measureLabel, showField } from '../utils/form-units';
-import { NumberInput, TextInput, SelectInput, FormError, secondaryBtn, dangerBtn, inputCls, Field, errorAt } from './fields';
+import { NumberInput, TextInput, SelectInput, FormError, secondaryBtn, dangerBtn, inputCls, Field, errorAt } from '@client/components/ui/fields';
 import { useAutosave } from '../hooks/use-autosave';
 import { SaveIndicator } from './save-indicator';
 import type { Apply } from '../utils/types';

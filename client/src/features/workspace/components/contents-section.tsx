@@ -5,7 +5,7 @@ import { FLUID_CATALOGUE, catalogueFluid } from '@shared/fluids/catalogue';
 import type { UnitSystem } from '@shared/units/units';
 import { formatNumber } from '@shared/units/units';
 import { byKey, measureLabel, parseField, showField, unitResolver } from '../utils/form-units';
-import { NumberInput, SelectInput, FormError, primaryBtn, secondaryBtn, dangerBtn, errorAt } from './fields';
+import { NumberInput, SelectInput, FormError, primaryBtn, secondaryBtn, dangerBtn, errorAt } from '@client/components/ui/fields';
 import { useAutosave } from '../hooks/use-autosave';
 import { SaveIndicator } from './save-indicator';
 import type { Apply, SectionProps } from '../utils/types';

@@ -1,11 +1,11 @@
 /** "Loads": everything computed for the survey, with the cautions beside it. */
 import { Cautions } from '@client/components/layout/cautions';
-import { ShipTotals, EngineWarnings } from '@client/components/results/ship-totals';
-import { BoundaryResultsTable } from '@client/components/results/boundary-results-table';
-import { BoundaryDetail } from '@client/components/results/boundary-detail';
-import { CompartmentTable } from '@client/components/results/compartment-table';
+import { ShipTotals, EngineWarnings } from '@client/features/results/components/ship-totals';
+import { BoundaryResultsTable } from '@client/features/results/components/boundary-results-table';
+import { BoundaryDetail } from '@client/features/results/components/boundary-detail';
+import { CompartmentTable } from '@client/features/results/components/compartment-table';
 import type { SectionProps } from '../utils/types';
-import { secondaryBtn } from './fields';
+import { secondaryBtn } from '@client/components/ui/fields';
 import { useSearchParams } from 'react-router';
 
 export function LoadsSection({ results, system, selectedId, select }: SectionProps) {

@@ -1,9 +1,9 @@
 /** "3D": the model, loaded only when this section opens (its own chunk). */
 import { lazy, Suspense } from 'react';
 import type { SectionProps } from '../utils/types';
-import { ModelBoundary } from '@client/components/model3d/model-boundary';
+import { ModelBoundary } from '@client/features/model3d/components/model-boundary';
 
-const SurveyScene = lazy(() => import('@client/components/model3d/survey-scene'));
+const SurveyScene = lazy(() => import('@client/features/model3d/components/survey-scene'));
 
 export function ModelSection({ survey, results, system, selectedId, open }: SectionProps & { open: (id: string) => void }) {
   return (

@@ -5,7 +5,7 @@ import { db, type LocalPhoto } from '@client/offline/db';
 import { apiFetch } from '@client/lib/api-client';
 import type { PhotoRef } from '@shared/schemas/survey';
 import type { SectionProps } from '../utils/types';
-import { dangerBtn, inputCls, primaryBtn, secondaryBtn } from './fields';
+import { dangerBtn, inputCls, primaryBtn, secondaryBtn } from '@client/components/ui/fields';
 import { newId } from '../utils/new-entities';
 import { startPhotoUploads, uploadPhotosNow, usePhotoUploadStatus } from '../api/upload-photos';
 

@@ -2,11 +2,11 @@
 import { useState } from 'react';
 import type { Boundary } from '@shared/schemas/survey';
 import type { SectionProps } from '../utils/types';
-import { primaryBtn, secondaryBtn, dangerBtn, inputCls } from './fields';
+import { primaryBtn, secondaryBtn, dangerBtn, inputCls } from '@client/components/ui/fields';
 import { BoundaryEditor, KIND_LABEL } from './boundary-editor';
 import { FACES, faceBoundary, geometryToPlaneShape, planeShapeToGeometry, type Face } from '../utils/plane-geometry';
 import { newBoundary, newId } from '../utils/new-entities';
-import { UtilisationBadge } from '@client/components/results/utilisation';
+import { UtilisationBadge } from '@client/features/results/components/utilisation';
 import { fmt } from '@client/lib/unit-system';
 
 const FACE_LABEL: Record<Face, string> = {

@@ -4,7 +4,7 @@ import { ConditionSchema, type Condition } from '@shared/schemas/survey';
 import type { UnitSystem } from '@shared/units/units';
 import { DEFAULT_SEA_DENSITY_KG_M3 } from '@shared/engine/frame';
 import { byKey, measureLabel, parseField, showField, unitResolver } from '../utils/form-units';
-import { NumberInput, TextInput, FormError, inputCls, primaryBtn, secondaryBtn, dangerBtn, Field } from './fields';
+import { NumberInput, TextInput, FormError, inputCls, primaryBtn, secondaryBtn, dangerBtn, Field } from '@client/components/ui/fields';
 import { useAutosave } from '../hooks/use-autosave';
 import { SaveIndicator } from './save-indicator';
 import type { Apply, SectionProps } from '../utils/types';

@@ -4,7 +4,7 @@ import { z } from 'zod';
 import { VesselSchema } from '@shared/schemas/survey';
 import type { UnitSystem } from '@shared/units/units';
 import { byKey, measureLabel, parseField, showField, unitResolver } from '../utils/form-units';
-import { NumberInput, TextInput, FormError, inputCls, secondaryBtn } from './fields';
+import { NumberInput, TextInput, FormError, inputCls, secondaryBtn } from '@client/components/ui/fields';
 import { useAutosave } from '../hooks/use-autosave';
 import { SaveIndicator } from './save-indicator';
 import type { SectionProps } from '../utils/types';

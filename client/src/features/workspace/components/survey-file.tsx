@@ -3,7 +3,7 @@ import { useRef } from 'react';
 import { useNavigate } from 'react-router';
 import type { Survey } from '@shared/schemas/survey';
 import { paths } from '@client/config/paths';
-import { secondaryBtn } from './fields';
+import { secondaryBtn } from '@client/components/ui/fields';
 
 export function ExportButton({ survey }: { survey: Survey }) {
   const exportFile = () => {

@@ -17,7 +17,7 @@ import { useReviewers } from '@client/offline/reviewers';
 import { db, type LocalSurvey } from '@client/offline/db';
 import { paths } from '@client/config/paths';
 import type { SurveyStatus } from '@shared/schemas/sync';
-import { inputCls, primaryBtn } from './fields';
+import { inputCls, primaryBtn } from '@client/components/ui/fields';
 import { ImportButton } from './survey-file';
 
 const STATUS_LABEL: Record<SurveyStatus, string> = {

@@ -14,8 +14,8 @@ import { setUnitSystem, useUnitSystem, fmt } from '@client/lib/unit-system';
 import { changeUnitSystem, useSession } from '@client/lib/session';
 import { paths } from '@client/config/paths';
 import { Cautions } from '@client/components/layout/cautions';
-import { BoundaryResultsTable } from '@client/components/results/boundary-results-table';
-import { UtilisationBadge } from '@client/components/results/utilisation';
+import { BoundaryResultsTable } from '@client/features/results/components/boundary-results-table';
+import { UtilisationBadge } from '@client/features/results/components/utilisation';
 import type { EditOp, SectionProps } from '../utils/types';
 import { ShipSection } from './ship-section';
 import { ReadingsSection } from './readings-section';
@@ -26,7 +26,7 @@ import { LoadsSection } from './loads-section';
 import { PhotosSection } from './photos-section';
 import { ExportButton } from './survey-file';
 import { ModelSection } from './model-section';
-import { SurveyReviewBar } from '@client/components/review-notes/survey-review-bar';
+import { SurveyReviewBar } from '@client/features/review-notes/components/survey-review-bar';
 
 const SECTIONS = [
   { id: 'ship', label: 'Ship' },

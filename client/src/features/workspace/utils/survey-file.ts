@@ -1,5 +1,8 @@
-/** Reading a survey file: JSON, then the survey format's schema, with one "path: problem" line per error. */
-import { SurveySchema, type Survey } from '@shared/schemas/survey';
+/**
+ * Reading a survey file: JSON, brought up to the current format version (an older file is upgraded,
+ * shared/schemas/upgrade.ts), then the survey format's schema, with one "path: problem" line per error.
+ */
+import { UpgradingSurveySchema, type Survey } from '@shared/schemas/survey';
 import { formatIssues } from '@shared/schemas/format-issues';
 
 export type ParsedFile = { ok: true; survey: Survey } | { ok: false; errors: string[] };
@@ -11,7 +14,7 @@ export function parseSurveyFile(text: string): ParsedFile {
   } catch (err) {
     return { ok: false, errors: [`(file): not JSON — ${err instanceof Error ? err.message : 'unreadable'}`] };
   }
-  const r = SurveySchema.safeParse(json);
+  const r = UpgradingSurveySchema.safeParse(json);
   return r.success ? { ok: true, survey: r.data } : { ok: false, errors: formatIssues(r.error) };
 }
 

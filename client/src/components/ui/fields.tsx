@@ -1,14 +1,24 @@
-/** Form fields sized for a gloved thumb: a label, the unit beside every number, the error in plain words. */
+/**
+ * Form fields sized for a gloved thumb: a label, the unit beside every number, the error in plain words
+ * tied to its input (aria-describedby). The input kit of the workspace and the review desk alike; plain
+ * forms without react-hook-form use `TextField` (./form-field.tsx).
+ */
 import type { ReactNode } from 'react';
 import type { FieldError, FieldValues, Path, UseFormRegister } from 'react-hook-form';
 import { useId } from 'react';
+import { buttonClass } from './button';
 
+/** The look of every text input, select and textarea in a form. */
 export const inputCls =
   'min-h-touch w-full min-w-0 rounded-md border-2 border-line bg-card px-2 text-base text-ink aria-[invalid=true]:border-danger';
-export const buttonCls = 'inline-flex min-h-touch items-center justify-center gap-1 rounded-lg px-4 font-bold';
-export const primaryBtn = `${buttonCls} bg-hull text-paper hover:bg-hull-soft`;
-export const secondaryBtn = `${buttonCls} border-2 border-hull bg-card text-hull hover:bg-sea-soft`;
-export const dangerBtn = `${buttonCls} border-2 border-danger bg-card text-danger hover:bg-danger-soft`;
+/** Class names of the kit's buttons (./button.tsx), for a `<button>` or a link that looks like one. */
+export const primaryBtn = buttonClass('primary');
+export const secondaryBtn = buttonClass('secondary');
+export const dangerBtn = buttonClass('danger-outline');
+
+/** The ids an input names in aria-describedby: its hint and its error, when shown. */
+export const describedBy = (id: string, hint: unknown, error: unknown): string | undefined =>
+  [hint && !error ? `${id}-hint` : '', error ? `${id}-error` : ''].filter(Boolean).join(' ') || undefined;
 
 /** Finds an error by dotted path in RHF's nested error object. */
 export function errorAt(errors: unknown, path: string): FieldError | undefined {
@@ -42,7 +52,11 @@ export function Field({
         {unit ? <span className="font-normal text-ink-soft"> ({unit})</span> : null}
       </label>
       <div className="mt-0.5 flex items-center gap-1">{children}</div>
-      {hint && !error && <p className="mt-0.5 text-xs text-ink-soft">{hint}</p>}
+      {hint && !error && (
+        <p className="mt-0.5 text-xs text-ink-soft" id={`${id}-hint`}>
+          {hint}
+        </p>
+      )}
       {error && (
         <p className="mt-0.5 text-sm font-bold text-danger" id={`${id}-error`} role="alert">
           <span aria-hidden="true">▲ </span>
@@ -84,7 +98,7 @@ export function NumberInput<T extends FieldValues>({
         autoComplete="off"
         placeholder={placeholder}
         aria-invalid={err ? true : undefined}
-        aria-describedby={err ? `${id}-error` : undefined}
+        aria-describedby={describedBy(id, hint, err)}
         {...register(name)}
       />
       <span className="min-w-8 text-sm text-ink-soft" aria-hidden="true">
@@ -116,9 +130,17 @@ export function TextInput<T extends FieldValues>({
   return (
     <Field label={label} error={err} hint={hint} id={id}>
       {multiline ? (
-        <textarea id={id} className={`${inputCls} py-2`} rows={3} placeholder={placeholder} aria-invalid={err ? true : undefined} {...register(name)} />
+        <textarea
+          id={id}
+          className={`${inputCls} py-2`}
+          rows={3}
+          placeholder={placeholder}
+          aria-invalid={err ? true : undefined}
+          aria-describedby={describedBy(id, hint, err)}
+          {...register(name)}
+        />
       ) : (
-        <input id={id} className={inputCls} placeholder={placeholder} aria-invalid={err ? true : undefined} {...register(name)} />
+        <input id={id} className={inputCls} placeholder={placeholder} aria-invalid={err ? true : undefined} aria-describedby={describedBy(id, hint, err)} {...register(name)} />
       )}
     </Field>
   );
@@ -143,7 +165,7 @@ export function SelectInput<T extends FieldValues>({
   const err = errorAt(errors, name)?.message;
   return (
     <Field label={label} error={err} hint={hint} id={id}>
-      <select id={id} className={inputCls} aria-invalid={err ? true : undefined} {...register(name)}>
+      <select id={id} className={inputCls} aria-invalid={err ? true : undefined} aria-describedby={describedBy(id, hint, err)} {...register(name)}>
         {options.map((o) => (
           <option key={o.value} value={o.value}>
             {o.label}

@@ -12,7 +12,7 @@ import { StorageStatus } from './storage-status';
 
 // The header is on every screen: what needs the device store or the sync engine (Dexie, zod) is
 // loaded when used, not with the first screen.
-const ConflictList = lazy(() => import('@client/components/sync/conflict-list').then((m) => ({ default: m.ConflictList })));
+const ConflictList = lazy(() => import('./conflict-list').then((m) => ({ default: m.ConflictList })));
 const syncNow = () => import('@client/offline/sync').then((m) => m.syncNow());
 const dismissRejectedChange = (seq: number) => import('@client/offline/local-surveys').then((m) => m.dismissRejectedChange(seq));
 

@@ -12,6 +12,7 @@ import { useLocalSurvey, usePendingCount } from '@client/offline/survey-store';
 import { syncNow } from '@client/offline/sync';
 import { useReviewNotes } from '@client/offline/review-notes';
 import { ReviewNotes } from './review-notes';
+import { buttonClass } from '@client/components/ui/button';
 
 export function SurveyReviewBar({ surveyId, survey }: { surveyId: string; survey?: Survey }) {
   const local = useLocalSurvey(surveyId);
@@ -47,7 +48,7 @@ export function SurveyReviewBar({ surveyId, survey }: { surveyId: string; survey
         {submit && (
           <button
             type="button"
-            className="ml-auto min-h-touch rounded-lg bg-hull px-4 font-bold text-paper disabled:opacity-50"
+            className={buttonClass('primary', 'ml-auto')}
             onClick={send}
             disabled={busy}
           >

@@ -1,0 +1,19 @@
+/** The sync service: push and pull, with this server's memory of the surveys it last wrote. */
+import type { PullQuery, SurveyChange } from '@shared/schemas/sync';
+import type { Db } from '../../db/knex';
+import type { AuthContext } from '../../http/auth-context';
+import type { ResultsScheduler } from '../results-scheduler';
+import { push, type PushOptions } from './push';
+import { pull } from './pull';
+import { SurveyStateCache } from './state-cache';
+
+export function createSyncService(deps: { db: Db; scheduler?: ResultsScheduler }) {
+  const known = new SurveyStateCache();
+  return {
+    push: (auth: AuthContext, changes: SurveyChange[], opts: Pick<PushOptions, 'logger' | 'confirm' | 'roles'> = {}) =>
+      push(deps.db, auth, changes, { ...opts, scheduler: deps.scheduler, known }),
+    pull: (auth: AuthContext, q: PullQuery) => pull(deps.db, auth, q),
+  };
+}
+
+export type SyncService = ReturnType<typeof createSyncService>;
