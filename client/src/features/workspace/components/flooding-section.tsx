@@ -10,7 +10,7 @@ import type { Compartment, Condition } from '@shared/schemas/survey';
 import { OPENING_FACES, type OpeningFace, type PlanStep } from '@shared/schemas/flooding';
 import type { UnitSystem } from '@shared/units/units';
 import { hmm } from '@shared/api/cautions';
-import { inputCls, primaryBtn, dangerBtn } from '@client/components/ui/fields';
+import { describedBy, Field, inputCls, primaryBtn, dangerBtn } from '@client/components/ui/fields';
 import { fmt } from '@client/lib/unit-system';
 import { ForecastView } from '@client/features/flooding/components/forecast-view';
 import { measureLabel, parseField } from '../utils/form-units';
@@ -22,36 +22,19 @@ type Errors = Record<string, string>;
 
 function Input({ id, label, unit, value, onChange, error, type = 'text', inputMode = 'decimal' }: { id: string; label: string; unit?: string; value: string; onChange: (v: string) => void; error?: string; type?: string; inputMode?: 'decimal' | 'text' }) {
   return (
-    <div className="min-w-0">
-      <label htmlFor={id} className="block text-sm font-bold">
-        {label}
-        {unit ? <span className="font-normal text-ink-soft"> ({unit})</span> : null}
-      </label>
-      <input id={id} type={type} inputMode={type === 'text' ? inputMode : undefined} className={inputCls} value={value} onChange={(e) => onChange(e.target.value)} aria-invalid={!!error} aria-describedby={error ? `${id}-error` : undefined} />
-      {error && (
-        <p id={`${id}-error`} className="mt-0.5 text-sm font-bold text-danger" role="alert">
-          {error}
-        </p>
-      )}
-    </div>
+    <Field id={id} label={label} unit={unit} error={error}>
+      <input id={id} type={type} inputMode={type === 'text' ? inputMode : undefined} className={inputCls} value={value} onChange={(e) => onChange(e.target.value)} aria-invalid={!!error} aria-describedby={describedBy(id, undefined, error)} />
+    </Field>
   );
 }
 
 function Select({ id, label, value, onChange, children, error }: { id: string; label: string; value: string; onChange: (v: string) => void; children: ReactNode; error?: string }) {
   return (
-    <div className="min-w-0">
-      <label htmlFor={id} className="block text-sm font-bold">
-        {label}
-      </label>
-      <select id={id} className={inputCls} value={value} onChange={(e) => onChange(e.target.value)} aria-invalid={!!error}>
+    <Field id={id} label={label} error={error}>
+      <select id={id} className={inputCls} value={value} onChange={(e) => onChange(e.target.value)} aria-invalid={!!error} aria-describedby={describedBy(id, undefined, error)}>
         {children}
       </select>
-      {error && (
-        <p className="mt-0.5 text-sm font-bold text-danger" role="alert">
-          {error}
-        </p>
-      )}
-    </div>
+    </Field>
   );
 }
 
