@@ -14,6 +14,8 @@ import { ANY_MEMBER, authOf, roles, type RouteSpec } from '../http/route';
 import { notFound } from '../http/errors';
 import { createReviewService } from '../services/review';
 import { createBriefService } from '../services/briefs';
+import { createReportService } from '../services/report';
+import { renderReport } from '../report/render-report';
 
 /** Engineers review; admins may look (and withdraw a brief link), but do not judge structure. */
 const REVIEW_READERS = roles('engineer', 'admin');
@@ -30,8 +32,22 @@ const surveyIdOf = (req: Request) => idParam(req, 'id', 'survey');
 export function reviewRoutes(deps: AppContext): RouteSpec[] {
   const review = createReviewService(deps);
   const briefs = createBriefService(deps);
+  const reports = createReportService(deps);
 
   return [
+    {
+      method: 'get',
+      path: '/surveys/:id/report',
+      // the firm's record of the survey: every member may read and print it
+      policy: ANY_MEMBER,
+      handler: async (req, res) => {
+        const id = surveyIdOf(req);
+        const units = z.enum(['si', 'us']).catch('si').parse(req.query.units);
+        const html = renderReport(await reports.data(authOf(req), id, units));
+        res.setHeader('Cache-Control', 'no-store');
+        res.type('html').send(html);
+      },
+    },
     {
       method: 'post',
       path: '/surveys/:id/status',

@@ -191,6 +191,10 @@ export const routeCases: Record<string, RouteCase> = {
     setup: async ({ t, org }) => ({ params: { id: (await storeSurvey(t.db, org.surveyor)).id } }),
     expect: anyMemberObject(200),
   },
+  'GET /api/surveys/:id/report': {
+    setup: async ({ t, org }) => ({ params: { id: (await storeSurvey(t.db, org.surveyor)).id } }),
+    expect: anyMemberObject(200),
+  },
   'GET /api/review/queue': { expect: engineerOrAdmin(200) },
   'GET /api/review/surveys/:id': {
     setup: async ({ t, org }) => ({ params: { id: (await surveyInStatus(t.db, org, 'submitted')).id } }),
