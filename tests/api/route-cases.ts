@@ -252,4 +252,13 @@ export const routeCases: Record<string, RouteCase> = {
     },
     expect: everyone(200),
   },
+  // The master's acknowledgement, public like the brief; the matrix sends no name, so every caller
+  // gets the page back with the field's error (tests/api/brief-acknowledgement.test.ts posts the form).
+  'POST /brief/:token/acknowledge': {
+    setup: async ({ t, org }) => {
+      const s = await surveyInStatus(t.db, org, 'accepted');
+      return { params: { token: (await briefLink(t.db, org, s.id)).token } };
+    },
+    expect: everyone(400),
+  },
 };
