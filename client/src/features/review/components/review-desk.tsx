@@ -103,7 +103,14 @@ export function ReviewDesk({ surveyId }: { surveyId: string }) {
         {doc.title} · {condition?.name ?? 'readings'} of {condition ? formatShipAndUtc(condition.time, doc.vessel.shipTimeOffsetMin) : '—'} · revision {r.revision}
       </p>
       <div className="mt-3 flex flex-wrap items-start gap-2">
-        <StatusActions surveyId={surveyId} status={r.status} role={r.viewer.role} events={r.events} isSubmitter={isSubmitter} />
+        <StatusActions
+          surveyId={surveyId}
+          status={r.status}
+          role={r.viewer.role}
+          events={r.events}
+          isSubmitter={isSubmitter}
+          overCapacity={(server ?? device.results)?.summary.overCapacityBoundaryIds.map((id) => doc.boundaries.find((b) => b.id === id)?.name ?? id) ?? []}
+        />
         <ReportButton surveyId={surveyId} className="ml-auto" />
       </div>
       <FigureNotesPanel doc={doc} />
