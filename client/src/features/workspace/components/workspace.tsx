@@ -27,6 +27,7 @@ import { StabilitySection } from './stability-section';
 import { FloodingSection } from './flooding-section';
 import { PhotosSection } from './photos-section';
 import { ExportButton } from './survey-file';
+import { ReportButton } from '@client/components/report/report-button';
 import { ModelSection } from './model-section';
 import { SurveyReviewBar } from '@client/features/review-notes/components/survey-review-bar';
 
@@ -145,6 +146,7 @@ export function Workspace({ surveyId }: { surveyId: string }) {
         <SurveySyncChip surveyId={surveyId} />
         <UnitToggle />
         <ExportButton survey={survey} />
+        <ReportButton surveyId={surveyId} />
       </div>
       <StateStrip results={results} error={error} system={system} onOpen={() => go('loads')} />
       <div className="mx-3 mt-2 sm:mx-5">
