@@ -8,6 +8,7 @@ import type {
   CompareResponse,
   FieldChange,
   NewComment,
+  CommentResolution,
   NewLimit,
   QueueItem,
   ReviewBundle,
@@ -140,6 +141,12 @@ export function createReviewService(deps: { db: Knex }) {
 
   async function addComment(auth: AuthContext, surveyId: string, body: NewComment) {
     const s = await surveyOf(db, auth, surveyId);
+    if (body.id) {
+      // A device sending again a reply it wrote offline: the comment already made is the answer.
+      const seen = await repo.findCommentAnywhere(db, body.id);
+      if (seen && seen.surveyId === surveyId && seen.authorId === auth.userId) return (await repo.findComment(db, surveyId, body.id))!;
+      if (seen) throw validationFailed('This comment id is already in use.', [{ path: 'id', message: 'already in use' }]);
+    }
     if (!targetExists(s.doc as Survey, body.target.kind, body.target.id)) {
       throw validationFailed('The survey has no such item to comment on.', [{ path: 'target', message: 'no such item in the survey' }]);
     }
@@ -149,7 +156,15 @@ export function createReviewService(deps: { db: Knex }) {
       if (!parent) throw validationFailed('The comment you reply to is not on this survey.', [{ path: 'parentId', message: 'no such comment' }]);
       parentId = parent.parentId ?? parent.id;
     }
-    return repo.insertComment(db, { surveyId, orgId: auth.orgId, target: body.target, parentId, body: body.body, authorId: auth.userId, revision: s.revision });
+    return repo.insertComment(db, { id: body.id, surveyId, orgId: auth.orgId, target: body.target, parentId, body: body.body, authorId: auth.userId, revision: s.revision });
+  }
+
+  /** The reviewer closes a thread once answered, or opens it again. */
+  async function resolveComment(auth: AuthContext, surveyId: string, commentId: string, body: CommentResolution) {
+    await surveyOf(db, auth, surveyId);
+    const done = await repo.setCommentResolution(db, surveyId, commentId, body.resolved ? auth.userId : null);
+    if (!done) throw notFound('No such comment thread on this survey.');
+    return (await repo.findComment(db, surveyId, commentId))!;
   }
 
   async function listComments(auth: AuthContext, surveyId: string) {
@@ -244,7 +259,7 @@ export function createReviewService(deps: { db: Knex }) {
     };
   }
 
-  return { changeStatus, queue, bundle, addComment, listComments, setVerdict, addLimit, removeLimit, revisions, compare };
+  return { changeStatus, queue, bundle, addComment, resolveComment, listComments, setVerdict, addLimit, removeLimit, revisions, compare };
 }
 
 export type ReviewService = ReturnType<typeof createReviewService>;

@@ -1,12 +1,13 @@
 /** Public surface of the load engine: what the app, the server and the CLI import. */
-export { computeSurvey, levelElevation, type ComputeOptions } from './compute-survey';
 export {
-  checkPumpingSequence,
-  type PumpingBoundaryChange,
-  type PumpingCheck,
-  type PumpingStep,
-  type PumpingStepResult,
-} from './pumping';
+  computeBoundaryDetail,
+  computeSurvey,
+  computeSurveySummary,
+  levelElevation,
+  summariseBoundary,
+  type ComputeOptions,
+} from './compute-survey';
+export { boundaryIndex, boundaryRow, boundaryRows, tableOfRows } from './boundary-table';
 export { ENGINE_VERSION } from './version';
 export { DEFAULT_SEA_DENSITY_KG_M3, HEEL_AGREEMENT_TOLERANCE_DEG } from './frame';
 /** Solids and outlines for drawing (the 3D model), cut by the same geometry the loads use. */
@@ -35,3 +36,16 @@ export {
   type DownfloodingFreeboard,
   type ReadingsCheck,
 } from './stability-check';
+export {
+  applyFloodVariant,
+  forecastFlooding,
+  DEFAULT_HORIZON_H,
+  type BoundaryForecast,
+  type FloodForecast,
+  type FloodVariant,
+  type ForecastOptions,
+  type Governs,
+  type PlanStepForecast,
+  type SpaceForecast,
+} from './flooding';
+export { soundingEvidence, type SoundingEvidence } from './flooding-soundings';
