@@ -5,3 +5,7 @@ export const CAUTIONS: readonly string[] = [
   'Never enter a flooded or closed space without gas testing and an entry permit.',
   'Pumping or moving liquid changes both the ship’s stability and the loads on its boundaries.',
 ];
+
+/** Beside every figure of the ship's response (heel, trim, GM) and on the brief. */
+export const STABILITY_CAUTION =
+  'Stability decisions rest with the naval architect and the ship’s approved stability information; these heel, trim and GM figures are estimates for planning.';

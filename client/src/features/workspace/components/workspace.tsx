@@ -23,6 +23,7 @@ import { SpacesSection } from './spaces-section';
 import { ContentsSection } from './contents-section';
 import { PlatesSection } from './plates-section';
 import { LoadsSection } from './loads-section';
+import { StabilitySection } from './stability-section';
 import { PhotosSection } from './photos-section';
 import { ExportButton } from './survey-file';
 import { ModelSection } from './model-section';
@@ -35,6 +36,7 @@ const SECTIONS = [
   { id: 'contents', label: 'Contents' },
   { id: 'plates', label: 'Plates' },
   { id: 'loads', label: 'Loads' },
+  { id: 'stability', label: 'Stability' },
   { id: 'model', label: '3D' },
   { id: 'photos', label: 'Photos' },
 ] as const;
@@ -44,7 +46,7 @@ function useResults(survey: Survey | undefined): { results: SurveyResults | null
   return useMemo(() => {
     if (!survey) return { results: null, error: null };
     try {
-      return { results: computeSurvey(survey), error: null };
+      return { results: computeSurvey(survey, { includeLoadDiagrams: true }), error: null };
     } catch (err) {
       return { results: null, error: err instanceof Error ? err.message : 'The loads could not be computed.' };
     }
@@ -122,6 +124,7 @@ export function Workspace({ surveyId }: { surveyId: string }) {
     contents: <ContentsSection {...props} />,
     plates: <PlatesSection {...props} />,
     loads: <LoadsSection {...props} />,
+    stability: <StabilitySection {...props} />,
     model: <ModelSection {...props} open={open} />,
     photos: <PhotosSection {...props} />,
   };
