@@ -47,7 +47,7 @@ export function BoundaryDetail({ boundary: b, results, system }: { boundary: Bou
         <LoadDiagramChart points={b.loadDiagram} system={system} title={`Load diagram, ${b.name}`} />
       </div>
 
-      <div className="overflow-x-auto">
+      <div className="overflow-x-auto" tabIndex={0} role="region" aria-label="Pressure on each side (scrolls sideways)">
         <table className="w-full min-w-[28rem] border-collapse text-left text-sm">
           <caption className="text-left font-bold">Pressure on each side</caption>
           <thead className="bg-sea-soft">
@@ -77,7 +77,7 @@ export function BoundaryDetail({ boundary: b, results, system }: { boundary: Bou
       </div>
 
       {b.stiffeners && b.stiffeners.items.length > 0 && (
-        <div className="overflow-x-auto">
+        <div className="overflow-x-auto" tabIndex={0} role="region" aria-label="Stiffeners (scrolls sideways)">
           <table className="w-full min-w-[36rem] border-collapse text-left text-sm" data-testid="stiffener-table">
             <caption className="text-left font-bold">
               Stiffeners ({b.stiffeners.endFixity === 'fixed' ? 'fixed ends' : 'simply supported'}, {fmt(b.stiffeners.spacingM, 'length', system, 3)} apart)
@@ -113,7 +113,7 @@ export function BoundaryDetail({ boundary: b, results, system }: { boundary: Bou
       )}
 
       {b.shores.length > 0 && (
-        <div className="overflow-x-auto">
+        <div className="overflow-x-auto" tabIndex={0} role="region" aria-label="Shores (scrolls sideways)">
           <table className="w-full min-w-[36rem] border-collapse text-left text-sm" data-testid="shore-table">
             <caption className="text-left font-bold">Shores</caption>
             <thead className="bg-sea-soft">

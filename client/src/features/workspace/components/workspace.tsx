@@ -198,8 +198,11 @@ function StateStrip({ results, error, system, onOpen }: { results: SurveyResults
       onClick={onOpen}
       className={`mx-3 mt-2 flex w-[calc(100%-1.5rem)] flex-wrap items-center gap-x-4 gap-y-1 rounded-lg border-2 px-3 py-2 text-left sm:mx-5 sm:w-[calc(100%-2.5rem)] ${over ? 'border-danger bg-danger-soft' : 'border-hull bg-card'}`}
       data-testid="state-strip"
-      aria-label="Ship state: open the loads"
+      aria-describedby="state-strip-hint"
     >
+      <span id="state-strip-hint" className="sr-only">
+        Opens the loads.
+      </span>
       <span>
         <span className="text-xs font-bold uppercase text-ink-soft">Heel </span>
         <b className="tabular-nums">
