@@ -140,6 +140,24 @@ export function Workspace({ surveyId }: { surveyId: string }) {
         <UnitToggle />
         <ExportButton survey={survey} />
       </div>
+      {/* Right under the title, so every section is in the first screen on a phone: two rows of four there,
+          one scrollable strip from 640 px; it stays at the top while the page scrolls. */}
+      <nav aria-label="Workspace sections" className="sticky top-0 z-10 mt-2 border-b-2 border-line bg-paper px-1 sm:overflow-x-auto sm:px-4">
+        <ul className="grid grid-cols-4 gap-1 sm:flex sm:min-w-max">
+          {SECTIONS.map((s) => (
+            <li key={s.id}>
+              <button
+                type="button"
+                onClick={() => go(s.id)}
+                aria-current={s.id === section ? 'page' : undefined}
+                className={`min-h-touch w-full rounded-t-md px-1 font-bold sm:px-3 ${s.id === section ? 'bg-hull text-paper' : 'text-hull hover:bg-sea-soft'}`}
+              >
+                {s.label}
+              </button>
+            </li>
+          ))}
+        </ul>
+      </nav>
       <StateStrip results={results} error={error} system={system} onOpen={() => go('loads')} />
       <div className="mx-3 mt-2 sm:mx-5">
         <SurveyReviewBar surveyId={surveyId} survey={survey} />
@@ -150,22 +168,6 @@ export function Workspace({ surveyId }: { surveyId: string }) {
           {editError}
         </p>
       )}
-      <nav aria-label="Workspace sections" className="mt-2 overflow-x-auto border-b-2 border-line bg-paper px-1 sm:px-4">
-        <ul className="flex min-w-max gap-1">
-          {SECTIONS.map((s) => (
-            <li key={s.id}>
-              <button
-                type="button"
-                onClick={() => go(s.id)}
-                aria-current={s.id === section ? 'page' : undefined}
-                className={`min-h-touch rounded-t-md px-3 font-bold ${s.id === section ? 'bg-hull text-paper' : 'text-hull hover:bg-sea-soft'}`}
-              >
-                {s.label}
-              </button>
-            </li>
-          ))}
-        </ul>
-      </nav>
       <div className={`gap-6 px-3 pt-4 sm:px-5 ${sideResults ? 'lg:grid lg:grid-cols-[minmax(0,1fr)_minmax(0,26rem)]' : ''}`}>
         <div className="min-w-0">{body[section]}</div>
         {sideResults && results && (
