@@ -18,10 +18,10 @@ import type {
   StatusChangeRequest,
   StatusEvent,
 } from '@shared/api/review';
-import type { SurveyResults } from '@shared/engine/results';
 import type { Survey } from '@shared/schemas/survey';
-import { ENGINE_VERSION } from '@shared/engine';
+import { ENGINE_VERSION, type SurveyResults } from '@shared/engine';
 import { compareNumbers } from '@shared/review/compare';
+import { entityNoun } from '@shared/api/entity-nouns';
 import { QUEUE_STATUSES, REVIEWABLE_STATUSES, STATUS_LABELS, checkTransition, type SurveyStatus } from '@shared/review/status';
 import type { AuthContext } from '../http/auth-context';
 import { conflict, forbidden, notFound, validationFailed } from '../errors';
@@ -30,15 +30,6 @@ import { ensureResults } from './engine-results';
 
 const NO_SURVEY = 'No such survey in your organisation.';
 
-/** Collection names in the revision trail ('boundaries/<id>') as the singular the history shows. */
-const ENTITY_NAMES: Record<string, string> = {
-  conditions: 'condition',
-  compartments: 'compartment',
-  boundaries: 'boundary',
-  fluids: 'fluid',
-  photos: 'photo',
-};
-
 function splitEntity(c: repo.RevisionRow['changes'][number]): FieldChange {
   const slash = c.entity.indexOf('/');
   if (slash < 0) {
@@ -46,7 +37,7 @@ function splitEntity(c: repo.RevisionRow['changes'][number]): FieldChange {
     return { entity: vessel ? 'vessel' : c.entity, entityId: null, field: c.field, old: c.old ?? null, new: c.new ?? null };
   }
   const collection = c.entity.slice(0, slash);
-  return { entity: ENTITY_NAMES[collection] ?? collection, entityId: c.entity.slice(slash + 1), field: c.field, old: c.old ?? null, new: c.new ?? null };
+  return { entity: entityNoun(collection), entityId: c.entity.slice(slash + 1), field: c.field, old: c.old ?? null, new: c.new ?? null };
 }
 
 export function createReviewService(deps: { db: Knex }) {
@@ -61,8 +52,9 @@ export function createReviewService(deps: { db: Knex }) {
   async function changeStatus(auth: AuthContext, surveyId: string, body: StatusChangeRequest): Promise<{ surveyId: string; status: SurveyStatus; event: StatusEvent }> {
     return db.transaction(async (trx) => {
       const s = await surveyOf(trx, auth, surveyId, true);
-      const submitter = await repo.lastSubmitter(trx, surveyId);
-      const check = checkTransition({ from: s.status, to: body.to, role: auth.role, isSubmitter: submitter === auth.userId, note: body.note });
+      // The own-work rule: whoever made, edited or sent the survey at any revision may not accept it.
+      const ownWork = body.to === 'accepted' && (await repo.hasWorkedOn(trx, surveyId, auth.userId));
+      const check = checkTransition({ from: s.status, to: body.to, role: auth.role, isSubmitter: ownWork, note: body.note });
       if (!check.ok) {
         if (check.reason === 'role' || check.reason === 'own_submission') throw forbidden(check.message);
         if (check.reason === 'note_required') throw validationFailed(check.message, [{ path: 'note', message: check.message }]);

@@ -6,8 +6,10 @@
  */
 import { z } from 'zod';
 import { catalogueFluid } from '../fluids/catalogue';
-import { SpaceTypeSchema } from './space-types';
+import { CargoStateSchema, SpaceTypeSchema } from './space-types';
 import { SURVEY_LIMITS as L, TEXT_LIMITS, boundedText, capMessage, cappedArray } from './limits';
+import { ConditionStabilitySchema, DownfloodingPointSchema } from './stability';
+import { FloodingSettingsSchema, InternalOpeningSchema, OpeningFaceSchema, OpeningSizeSchema, PumpsRunningSchema } from './flooding';
 import { MarksSchema } from './marks';
 import { DirectionalRatingSchema, PlatingSchema, ShoreDesignSchema } from './structure';
 import { SURVEY_SCHEMA_VERSION, upgradeSurvey } from './upgrade';
@@ -26,6 +28,8 @@ export type Point3 = z.infer<typeof Point3Schema>;
 export const VesselSchema = z.object({
   name: boundedText(TEXT_LIMITS.name).trim().min(1),
   imo: z.string().regex(/^\d{7}$/, 'IMO number must be 7 digits').optional(),
+  /** The ship's clock: minutes ahead of UTC (negative west), for times said in ship's time. */
+  shipTimeOffsetMin: z.number().int().min(-14 * 60).max(14 * 60).optional(),
   lbpM: PositiveLength,
   breadthM: PositiveLength,
   depthM: PositiveLength,
@@ -36,6 +40,8 @@ export const VesselSchema = z.object({
     /** Position of the midship marks read on each side for heel, if any. */
     midshipXM: Length.optional(),
   }),
+  /** Openings that would let more water in once under water (the ship's response reports their freeboard). */
+  downfloodingPoints: cappedArray(DownfloodingPointSchema, L.breaches, 'downflooding points').optional(),
 });
 export type Vessel = z.infer<typeof VesselSchema>;
 
@@ -54,7 +60,13 @@ export const LevelSourceSchema = z.discriminatedUnion('kind', [
   // a reading absent until taken: the engine shows no loads that rest on it (shared/engine/readings.ts)
   z.object({ kind: z.literal('sounding'), pipe: SoundingPipeSchema, soundingM: NonNegative.optional() }),
   z.object({ kind: z.literal('interfaceSounding'), pipe: SoundingPipeSchema, soundingM: NonNegative.optional() }),
-  z.object({ kind: z.literal('ullage'), reference: Point3Schema, ullageM: NonNegative.optional() }),
+  z.object({
+    kind: z.literal('ullage'),
+    reference: Point3Schema,
+    ullageM: NonNegative.optional(),
+    /** How the tape ran: along the pipe (ship's z axis, the default) or hanging plumb (earth-vertical). */
+    tape: z.enum(['along-pipe', 'plumb']).optional(),
+  }),
   z.object({ kind: z.literal('openToSea') }),
   z.object({ kind: z.literal('point'), point: Point3Schema }),
 ]);
@@ -108,6 +120,10 @@ export const ConditionSchema = z.object({
   /** Acceleration of gravity, m/s² (default standard gravity 9.80665). */
   gravityMS2: z.number().min(9.7).max(9.9).optional(),
   contents: cappedArray(ContentsSchema, L.compartments, 'compartments with contents'),
+  /** Hydrostatic particulars for the ship's response (./stability.ts). */
+  stability: ConditionStabilitySchema.optional(),
+  /** Forecast settings and the pumping plan (shared/schemas/flooding.ts). */
+  flooding: FloodingSettingsSchema.optional(),
   marks: MarksSchema.optional(),
 });
 export type Condition = z.infer<typeof ConditionSchema>;
@@ -119,17 +135,28 @@ export const BreachSchema = z.object({
   areaM2: z.number().positive(),
   /** Discharge coefficient (default 0.6, sharp-edged orifice). */
   dischargeCoefficient: z.number().gt(0).max(1).optional(),
+  face: OpeningFaceSchema.optional(),
+  size: OpeningSizeSchema.optional(),
 });
 
 export const PumpSchema = z.object({
   id: Id,
   name: boundedText(TEXT_LIMITS.name),
   capacityM3S: z.number().nonnegative(),
+  /** Height of the suction above the space's lowest point, m (default 0: the bottom). */
+  suctionHeightM: NonNegative.optional(),
+  /** Whether the pump is running now (default true). */
+  running: z.boolean().optional(),
 });
 
 export const SoundingLogSchema = z.object({
   pipe: SoundingPipeSchema,
-  readings: cappedArray(z.object({ time: z.iso.datetime({ offset: true }), soundingM: NonNegative }), L.soundingReadings, 'readings in one sounding log').min(2),
+  /** `pumpIds`: the pumps that ran between the reading before and this one. */
+  readings: cappedArray(
+    z.object({ time: z.iso.datetime({ offset: true }), soundingM: NonNegative, pumpIds: PumpsRunningSchema.optional() }),
+    L.soundingReadings,
+    'readings in one sounding log',
+  ).min(2),
 });
 
 export const CompartmentGeometrySchema = z.discriminatedUnion('kind', [
@@ -151,12 +178,18 @@ export const CompartmentSchema = z.object({
   geometry: CompartmentGeometrySchema,
   /** Overrides the default permeability of the space type. */
   permeability: z.number().min(0).max(1).optional(),
+  /** Cargo spaces: how loaded the space is, which sets its default permeability. */
+  cargoState: CargoStateSchema.optional(),
   /** Open to the sea through a breach: unless the condition gives contents, it floods to the outside waterline. */
   openToSea: z.boolean().optional(),
   breaches: cappedArray(BreachSchema, L.breaches, 'breaches in one compartment').optional(),
   pumps: cappedArray(PumpSchema, L.pumps, 'pumps in one compartment').optional(),
   soundingLog: SoundingLogSchema.optional(),
   marks: MarksSchema.optional(),
+  /** Openings into other compartments (shared/schemas/flooding.ts). */
+  openings: cappedArray(InternalOpeningSchema, L.breaches, 'openings from one compartment').optional(),
+  /** Air-tight, not vented: air trapped above the liquid is compressed as it rises (Boyle's law). */
+  airTight: z.boolean().optional(),
 });
 export type Compartment = z.infer<typeof CompartmentSchema>;
 

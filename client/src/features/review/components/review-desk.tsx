@@ -5,8 +5,7 @@
  */
 import { useMemo, useState } from 'react';
 import { Link } from 'react-router';
-import { computeSurvey } from '@shared/engine';
-import type { SurveyResults } from '@shared/engine/results';
+import { computeSurvey, type SurveyResults } from '@shared/engine';
 import { UpgradingSurveySchema, type Survey } from '@shared/schemas/survey';
 import { compareResults } from '@shared/review/compare';
 import { REVIEWABLE_STATUSES } from '@shared/review/status';

@@ -7,6 +7,7 @@ import { CompartmentTable } from '@client/features/results/components/compartmen
 import type { SectionProps } from '../utils/types';
 import { secondaryBtn } from '@client/components/ui/fields';
 import { useSearchParams } from 'react-router';
+import { WithheldNotice } from './withheld-notice';
 
 export function LoadsSection({ results, system, selectedId, select }: SectionProps) {
   const [, setParams] = useSearchParams();
@@ -17,6 +18,7 @@ export function LoadsSection({ results, system, selectedId, select }: SectionPro
       <h2 id="loads-h" className="text-2xl">
         Loads
       </h2>
+      <WithheldNotice results={results} />
       <ShipTotals results={results} system={system} />
       <EngineWarnings results={results} />
       <div className="space-y-2">
