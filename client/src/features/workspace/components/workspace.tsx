@@ -141,8 +141,8 @@ export function Workspace({ surveyId }: { surveyId: string }) {
         <ExportButton survey={survey} />
       </div>
       {/* Right under the title, so every section is in the first screen on a phone: two rows of four there,
-          one scrollable strip from 640 px; it stays at the top while the page scrolls. */}
-      <nav aria-label="Workspace sections" className="sticky top-0 z-10 mt-2 border-b-2 border-line bg-paper px-1 sm:overflow-x-auto sm:px-4">
+          one scrollable strip from 640 px (not sticky: the app header already is). */}
+      <nav aria-label="Workspace sections" className="mt-2 border-b-2 border-line bg-paper px-1 sm:overflow-x-auto sm:px-4">
         <ul className="grid grid-cols-4 gap-1 sm:flex sm:min-w-max">
           {SECTIONS.map((s) => (
             <li key={s.id}>
