@@ -4,8 +4,7 @@
  * for A4 and US Letter (the page size is left to the printer: margins fit both).
  */
 import type { Boundary, Compartment, LevelSource, Survey } from '@shared/schemas/survey';
-import type { BoundaryResult, SurveyResults } from '@shared/engine/results';
-import { withheldSentence } from '@shared/engine/readings';
+import { withheldSentence, type BoundaryResult, type SurveyResults } from '@shared/engine';
 import type { OperatingLimit, Verdict } from '@shared/api/review';
 import { CAUTIONS } from '@shared/api/cautions';
 import { catalogueFluid } from '@shared/fluids/catalogue';

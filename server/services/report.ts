@@ -1,6 +1,6 @@
 /** The calculation report's data: the survey as stored, the server's results, the review around it. */
 import type { Knex } from 'knex';
-import type { SurveyResults } from '@shared/engine/results';
+import type { SurveyResults } from '@shared/engine';
 import { UpgradingSurveySchema } from '@shared/schemas/survey';
 import type { UnitSystem } from '@shared/units/units';
 import type { AuthContext } from '../http/auth-context';

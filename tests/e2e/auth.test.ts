@@ -55,6 +55,12 @@ describe('sign-in', () => {
       await page.getByRole('button', { name: 'Sign in' }).click();
       await page.getByRole('alert').getByText('not right').waitFor();
       expect(await page.getByLabel('E-mail').inputValue()).toBe(surveyor.email);
+      // …tied to the password field, which takes the focus to retype it.
+      const password = page.getByLabel('Password', { exact: true });
+      await expect(password.getAttribute('aria-invalid')).resolves.toBe('true');
+      const describedBy = (await password.getAttribute('aria-describedby'))!;
+      await expect(page.locator(`[id="${describedBy.split(' ').pop()}"]`).textContent()).resolves.toContain('not right');
+      await expect(password.evaluate((el) => el === document.activeElement)).resolves.toBe(true);
       await page.screenshot({ path: screenshotPath(`auth-sign-in-${width}`), fullPage: true });
       expect(await noSideScroll(page)).toBeLessThanOrEqual(0);
 

@@ -8,6 +8,7 @@ import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
 import type { Browser, Page } from 'playwright-core';
 import { DEMO_USERS } from '../../seeds/demo-people';
 import { launchBrowser, screenshotPath } from '../support/browser';
+import { seriousA11yViolations } from '../support/axe';
 import { newSurvey, tokenFor } from '../support/surveys';
 import { SimDevice } from '../support/sync-device';
 
@@ -85,6 +86,7 @@ describe('replies to the reviewer', () => {
       await expect.poll(() => thread.getAttribute('data-thread-state')).toBe('answered');
       await expect.poll(() => phone.getByTestId('sync-status').getAttribute('data-pending')).toBe('1');
       await phone.screenshot({ path: screenshotPath('reply-offline-waiting-390'), fullPage: true });
+      expect(await seriousA11yViolations(phone)).toEqual([]);
       const before = (await call(engineerToken, 'GET', `/api/review/surveys/${survey.id}/comments`)).comments as { body: string }[];
       expect(before.map((c) => c.body)).not.toContain(ANSWER);
 
@@ -103,6 +105,7 @@ describe('replies to the reviewer', () => {
       await deskThread.getByText(ANSWER).waitFor({ timeout: 20_000 });
       await expect(deskThread.getAttribute('data-thread-state')).resolves.toBe('answered');
       await desk.screenshot({ path: screenshotPath('reply-desk-answered-1440'), fullPage: true });
+      expect(await seriousA11yViolations(desk)).toEqual([]);
       await deskThread.getByRole('button', { name: 'Mark resolved' }).click();
       await expect.poll(() => deskThread.getAttribute('data-thread-state'), { timeout: 20_000 }).toBe('resolved');
 

@@ -32,7 +32,7 @@ export function TextField({ label, error, hint, id, className, ref, ...input }: 
         {...input}
       />
       {error && (
-        <p id={errorId} className="mt-1 text-sm font-bold text-danger">
+        <p id={errorId} className="mt-1 text-sm font-bold text-danger" role="alert">
           {error}
         </p>
       )}

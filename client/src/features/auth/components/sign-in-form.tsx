@@ -28,7 +28,10 @@ export function SignInForm({ defaultEmail = '', onSignedIn }: { defaultEmail?: s
       onSignedIn(session.user);
     } catch (err) {
       if (err instanceof ApiError && err.status === 429) setProblem(err.message);
-      else setProblem(applyServerErrors(err, ['email', 'password'], form.setError));
+      else if (err instanceof ApiError && err.status === 401) {
+        // A wrong e-mail or password: said at the password field (aria-describedby), where focus goes to retype it.
+        form.setError('password', { type: 'server', message: err.message }, { shouldFocus: true });
+      } else setProblem(applyServerErrors(err, ['email', 'password'], form.setError));
     }
   });
 

@@ -57,7 +57,7 @@ export function ForecastView({ forecast, survey, system, now = Date.now() }: { f
         {forecast.limits.length === 0 ? (
           <p data-testid="no-limits">No boundary reaches 100 % within the forecast.</p>
         ) : (
-          <div className="overflow-x-auto">
+          <div className="overflow-x-auto" tabIndex={0} role="region" aria-label="Time to limit (scrolls sideways)">
             <table className="w-full text-left text-sm" data-testid="limits-table">
               <thead>
                 <tr>

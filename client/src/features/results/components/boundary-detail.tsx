@@ -60,7 +60,7 @@ export function BoundaryDetail({ boundary: b, results, system }: { boundary: Bou
         <LoadDiagramChart points={b.loadDiagram} system={system} title={`Load diagram, ${b.name}`} />
       </div>
 
-      <div className="overflow-x-auto">
+      <div className="overflow-x-auto" tabIndex={0} role="region" aria-label="Pressure on each side (scrolls sideways)">
         <table className="w-full min-w-[28rem] border-collapse text-left text-sm">
           <caption className="text-left font-bold">Pressure on each side</caption>
           <thead className="bg-sea-soft">

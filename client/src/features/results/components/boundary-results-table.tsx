@@ -94,7 +94,7 @@ export function BoundaryResultsTable({
   }
 
   return (
-    <div className="overflow-x-auto rounded-lg border border-line bg-card">
+    <div className="overflow-x-auto rounded-lg border border-line bg-card" tabIndex={0} role="region" aria-label="Loads on each plate (scrolls sideways)">
       <table className="w-full min-w-[36rem] border-collapse text-left" data-testid="boundary-results">
         <thead className="bg-sea-soft">
           <SortableHeaderRows table={table} />

@@ -7,7 +7,7 @@ import { num, percent, unitLabel } from '@client/lib/unit-system';
 export function CompartmentTable({ results, system, onSelect }: { results: SurveyResults; system: UnitSystem; onSelect?: (id: string) => void }) {
   if (results.compartments.length === 0) return <p className="text-ink-soft">No compartments yet.</p>;
   return (
-    <div className="overflow-x-auto rounded-lg border border-line bg-card">
+    <div className="overflow-x-auto rounded-lg border border-line bg-card" tabIndex={0} role="region" aria-label="Spaces and contents (scrolls sideways)">
       <table className="w-full min-w-[34rem] border-collapse text-left text-sm" data-testid="compartment-results">
         <thead className="bg-sea-soft">
           <tr>

@@ -2,7 +2,7 @@
  * The structural checks of one plate: stiffeners, shores (as columns by their design method) and
  * the plating between stiffeners, with what the model assumes said in words.
  */
-import type { BoundaryResult } from '@shared/engine/results';
+import type { BoundaryResult } from '@shared/engine';
 import { INCH_M, type UnitSystem } from '@shared/units/units';
 import { fmt, num, percent, unitLabel } from '@client/lib/unit-system';
 import { UtilisationBadge } from './utilisation';
@@ -42,7 +42,7 @@ export function StructureChecks({ boundary: b, system }: { boundary: BoundaryRes
         </p>
       )}
       {st && st.items.length > 0 && (
-        <div className="overflow-x-auto">
+        <div className="overflow-x-auto" tabIndex={0} role="region" aria-label="Stiffeners (scrolls sideways)">
           <table className="w-full min-w-[40rem] border-collapse text-left text-sm" data-testid="stiffener-table">
             <caption className="text-left font-bold">
               Stiffeners ({st.endFixity === 'fixed' ? 'fixed ends' : 'simply supported'}, {fmt(st.spacingM, 'length', system, 3)} apart; offsets from the {st.offsetFromEdge})
@@ -83,7 +83,7 @@ export function StructureChecks({ boundary: b, system }: { boundary: BoundaryRes
       )}
 
       {b.plating && (
-        <div className="overflow-x-auto">
+        <div className="overflow-x-auto" tabIndex={0} role="region" aria-label="Plating panels (scrolls sideways)">
           <table className="w-full min-w-[36rem] border-collapse text-left text-sm" data-testid="plating-table">
             <caption className="text-left font-bold">
               Plating between stiffeners ({system === 'us' ? `${(b.plating.netThicknessM / INCH_M).toFixed(3)} in` : `${(b.plating.netThicknessM * 1000).toFixed(1)} mm`} net of corrosion allowance, edges {b.plating.edges === 'fixed' ? 'fixed' : 'simply supported'})
@@ -118,7 +118,7 @@ export function StructureChecks({ boundary: b, system }: { boundary: BoundaryRes
       )}
 
       {b.shores.length > 0 && (
-        <div className="overflow-x-auto">
+        <div className="overflow-x-auto" tabIndex={0} role="region" aria-label="Shores (scrolls sideways)">
           <table className="w-full min-w-[44rem] border-collapse text-left text-sm" data-testid="shore-table">
             <caption className="text-left font-bold">Shores, checked as columns</caption>
             <thead className="bg-sea-soft">

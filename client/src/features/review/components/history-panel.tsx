@@ -65,7 +65,7 @@ export function HistoryPanel({ surveyId, names, system }: { surveyId: string; na
           </div>
           {compare.isError && <p role="alert">{compare.error.message}</p>}
           {compare.data && (
-            <div className="mt-2 overflow-x-auto" data-testid="revision-compare">
+            <div className="mt-2 overflow-x-auto" data-testid="revision-compare" tabIndex={0} role="region" aria-label="Revision comparison (scrolls sideways)">
               <p className="text-sm text-ink-soft">
                 {compare.data.differenceCount} numbers differ. Engines: {compare.data.a.engineVersion ?? '—'} / {compare.data.b.engineVersion ?? '—'}.
               </p>

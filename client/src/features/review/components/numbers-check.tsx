@@ -61,7 +61,7 @@ export function NumbersCheck({
         {serverRevision !== null ? `, revision ${serverRevision}` : ''}; this device {device.results?.engineVersion ?? '—'}.
       </p>
       {rows && rows.length > 0 && (
-        <div className="mt-2 overflow-x-auto">
+        <div className="mt-2 overflow-x-auto" tabIndex={0} role="region" aria-label="Device and server figures (scrolls sideways)">
           <table className="w-full text-sm">
             <thead>
               <tr className="text-left text-xs uppercase text-ink-soft">

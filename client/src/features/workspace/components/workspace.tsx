@@ -148,6 +148,24 @@ export function Workspace({ surveyId }: { surveyId: string }) {
         <ExportButton survey={survey} />
         <ReportButton surveyId={surveyId} />
       </div>
+      {/* Right under the title, so every section is in the first screen on a phone: two rows of four there,
+          one scrollable strip from 640 px (not sticky: the app header already is). */}
+      <nav aria-label="Workspace sections" className="mt-2 border-b-2 border-line bg-paper px-1 sm:overflow-x-auto sm:px-4">
+        <ul className="grid grid-cols-4 gap-1 sm:flex sm:min-w-max">
+          {SECTIONS.map((s) => (
+            <li key={s.id}>
+              <button
+                type="button"
+                onClick={() => go(s.id)}
+                aria-current={s.id === section ? 'page' : undefined}
+                className={`min-h-touch w-full rounded-t-md px-1 font-bold sm:px-3 ${s.id === section ? 'bg-hull text-paper' : 'text-hull hover:bg-sea-soft'}`}
+              >
+                {s.label}
+              </button>
+            </li>
+          ))}
+        </ul>
+      </nav>
       <StateStrip results={results} error={error} system={system} onOpen={() => go('loads')} />
       <div className="mx-3 mt-2 sm:mx-5">
         <SurveyReviewBar surveyId={surveyId} survey={survey} />
@@ -158,22 +176,6 @@ export function Workspace({ surveyId }: { surveyId: string }) {
           {editError}
         </p>
       )}
-      <nav aria-label="Workspace sections" className="mt-2 overflow-x-auto border-b-2 border-line bg-paper px-1 sm:px-4">
-        <ul className="flex min-w-max gap-1">
-          {SECTIONS.map((s) => (
-            <li key={s.id}>
-              <button
-                type="button"
-                onClick={() => go(s.id)}
-                aria-current={s.id === section ? 'page' : undefined}
-                className={`min-h-touch rounded-t-md px-3 font-bold ${s.id === section ? 'bg-hull text-paper' : 'text-hull hover:bg-sea-soft'}`}
-              >
-                {s.label}
-              </button>
-            </li>
-          ))}
-        </ul>
-      </nav>
       <div className={`gap-6 px-3 pt-4 sm:px-5 ${sideResults ? 'lg:grid lg:grid-cols-[minmax(0,1fr)_minmax(0,26rem)]' : ''}`}>
         <div className="min-w-0">{body[section]}</div>
         {sideResults && results && (
@@ -207,8 +209,11 @@ function StateStrip({ results, error, system, onOpen }: { results: SurveyResults
       onClick={onOpen}
       className={`mx-3 mt-2 flex w-[calc(100%-1.5rem)] flex-wrap items-center gap-x-4 gap-y-1 rounded-lg border-2 px-3 py-2 text-left sm:mx-5 sm:w-[calc(100%-2.5rem)] ${over ? 'border-danger bg-danger-soft' : 'border-hull bg-card'}`}
       data-testid="state-strip"
-      aria-label="Ship state: open the loads"
+      aria-describedby="state-strip-hint"
     >
+      <span id="state-strip-hint" className="sr-only">
+        Opens the loads.
+      </span>
       <span>
         <span className="text-xs font-bold uppercase text-ink-soft">Heel </span>
         <b className="tabular-nums">
