@@ -1,5 +1,5 @@
 /** Everything computed for one boundary: each side, the net load, its diagram, stiffeners, shores, capacity. */
-import type { BoundaryResult, SurveyResults } from '@shared/engine/results';
+import type { BoundaryResult, SurveyLevelResults } from '@shared/engine/results';
 import type { UnitSystem } from '@shared/units/units';
 import { fmt, num, percent, unitLabel } from '@client/lib/unit-system';
 import { LoadDiagramChart } from './load-diagram-chart';
@@ -17,7 +17,7 @@ function Row({ label, value, testId }: { label: string; value: string; testId?: 
   );
 }
 
-export function BoundaryDetail({ boundary: b, results, system }: { boundary: BoundaryResult; results: SurveyResults; system: UnitSystem }) {
+export function BoundaryDetail({ boundary: b, results, system }: { boundary: BoundaryResult; results: SurveyLevelResults; system: UnitSystem }) {
   const L = (v: number) => num(v, 'length', system, 3);
   const warnings = results.warnings.filter((w) => w.entityId === b.id || b.shores.some((s) => s.id === w.entityId));
   return (

@@ -7,21 +7,24 @@ import { CompartmentTable } from '@client/features/results/components/compartmen
 import type { SectionProps } from '../utils/types';
 import { secondaryBtn } from '@client/components/ui/fields';
 import { useSearchParams } from 'react-router';
+import { useMemo } from 'react';
+import { computeBoundaryDetail } from '@shared/engine';
 
-export function LoadsSection({ results, system, selectedId, select }: SectionProps) {
+export function LoadsSection({ survey, results, rows, system, selectedId, select }: SectionProps) {
   const [, setParams] = useSearchParams();
+  // the one boundary opened is computed in full (sides, parts, stiffeners, diagram) when opened
+  const b = useMemo(() => (results && selectedId ? computeBoundaryDetail(survey, selectedId, { conditionId: results.conditionId }) : null), [survey, results, selectedId]);
   if (!results) return <p className="text-ink-soft">No loads yet.</p>;
-  const b = results.boundaries.find((x) => x.id === selectedId) ?? null;
   return (
     <section aria-labelledby="loads-h" className="space-y-5">
       <h2 id="loads-h" className="text-2xl">
         Loads
       </h2>
-      <ShipTotals results={results} system={system} />
+      <ShipTotals results={results} rows={rows} system={system} />
       <EngineWarnings results={results} />
       <div className="space-y-2">
         <h3 className="text-xl">Plates</h3>
-        <BoundaryResultsTable results={results} system={system} selectedId={selectedId} onSelect={(id) => select(id === selectedId ? null : id)} />
+        <BoundaryResultsTable results={results} rows={rows} system={system} selectedId={selectedId} onSelect={(id) => select(id === selectedId ? null : id)} />
       </div>
       {b && (
         <div className="rounded-lg border-2 border-hull bg-card p-3">
