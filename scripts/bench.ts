@@ -25,6 +25,10 @@ const sections: Record<string, () => Promise<unknown> | unknown> = {
     console.log('-- for comparison, with --max-semi-space-size=128 (timing only):');
     node(['--max-semi-space-size=128', '--import', 'tsx', 'scripts/bench-engine.ts', '--timing-only']);
   },
+  flooding: () => {
+    console.log('-- with Node defaults:');
+    node(['--import', 'tsx', 'scripts/bench-flooding.ts']);
+  },
   sync: async () => (await import('./bench-sync')).main(),
   bundle: async () => (await import('./bench-bundle')).main(),
 };

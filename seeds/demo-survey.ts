@@ -76,10 +76,11 @@ export function demoSurvey(): Survey {
       'Grounded on a falling tide; shell set in and holed at No. 1 starboard, No. 1 \'tween deck open to the sea, ' +
       'No. 2 hold making water through a cracked shell plate, engine room flooded from a failed sea chest with diesel ' +
       'floating on the flood water. Listing to starboard, trimmed by the stern. Surveyed for Skerrow Marine Salvage by ' +
-      'I. Mackinnon (salvage surveyor); model checked ashore by R. Fennick (naval architect).',
+      'Ines Achterberg (salvage surveyor), for review ashore by Tomas Varga (naval architect).',
     vessel: {
       name: 'MV Corran Tide',
       imo: '9000015',
+      shipTimeOffsetMin: 60,
       lbpM: 118,
       breadthM: 18,
       depthM: 11,
@@ -301,5 +302,26 @@ export function demoSurvey(): Survey {
         contentType: 'image/jpeg',
       },
     ],
+  };
+}
+
+/**
+ * A second invented casualty, already sent for review by the demo surveyor, so the engineer's queue
+ * is not empty on first sign-in. The same model as the first under another ship's name and id.
+ */
+export const DEMO_SUBMITTED_SURVEY_ID = '3c9e1a20-7b4d-4e61-9f0a-5d2c8b7e4a11';
+
+export function demoSubmittedSurvey(): Survey {
+  const base = demoSurvey();
+  return {
+    ...base,
+    id: DEMO_SUBMITTED_SURVEY_ID,
+    vesselId: undefined,
+    title: 'MV Lunga Sound: collision damage, Firth of Skerrow',
+    casualtyDescription:
+      'Struck on the starboard side forward in fog; No. 1 \'tween deck open to the sea and No. 2 hold making water. ' +
+      'Surveyed for Skerrow Marine Salvage by Ines Achterberg (salvage surveyor), for review ashore by Tomas Varga (naval architect).',
+    // 9×7 + 1×6 + 2×5 + 3×4 + 4×3 + 5×2 = 113: check digit 3
+    vessel: { ...base.vessel, name: 'MV Lunga Sound', imo: '9123453' },
   };
 }

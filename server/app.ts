@@ -19,6 +19,7 @@ import { authRateLimits } from './http/rate-limit';
 import { createMailer } from './mail/mailer';
 import { createS3PhotoStorage } from './storage/photo-store';
 import { createServices, type AppServices } from './services';
+import { jsonBody } from './http/json-body';
 import { healthRoutes } from './routes/health';
 import { authRoutes, REFRESH_COOKIE_PATH } from './routes/auth';
 import { memberRoutes } from './routes/members';
@@ -80,7 +81,7 @@ export function createApp(given: AppDeps): BrinelineApp {
 
   const verify = services.access;
   const api = Router();
-  api.use(express.json({ limit: '5mb' }));
+  api.use(jsonBody({ limit: '5mb' }));
   // JSON answers above 1 KB go gzip- or brotli-compressed when the client accepts it (a survey read is
   // tens of KB; an answer of a few bytes gains nothing from a compression header)
   api.use(compression({ threshold: API_COMPRESSION_THRESHOLD_BYTES }));

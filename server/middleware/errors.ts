@@ -33,6 +33,15 @@ interface BodyParserError {
   message?: string;
 }
 
+interface PgError {
+  code?: string;
+}
+/**
+ * PostgreSQL errors that only a bad value causes: NUL in text (22P05, 22021), a number out of range
+ * (22003), text that is not of the column's type (22P02), a string too long for its column (22001).
+ */
+const PG_BAD_VALUE = new Set(['22P05', '22021', '22003', '22P02', '22001']);
+
 export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
   const requestId = String(req.id ?? '');
   let status = 500;
@@ -57,6 +66,12 @@ export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
   } else if (typeof (err as BodyParserError)?.status === 'number' && (err as BodyParserError).status! < 500 && (err as BodyParserError).expose) {
     status = (err as BodyParserError).status!;
     body = { code: 'bad_request', message: (err as BodyParserError).message ?? 'Bad request.', requestId };
+  } else if (typeof (err as PgError)?.code === 'string' && PG_BAD_VALUE.has((err as PgError).code!)) {
+    // A value the request carried that PostgreSQL cannot hold: the checks before the query should
+    // have refused it (and are the bug to fix), but the answer is still the client's 400.
+    req.log?.warn({ err }, 'value refused by PostgreSQL');
+    status = 400;
+    body = { code: 'bad_request', message: 'A value in the request cannot be stored. Check the text and numbers sent.', requestId };
   } else {
     req.log?.error({ err }, 'unhandled error');
     body = { code: 'internal', message: 'Something went wrong on the server. The error has been logged.', requestId };

@@ -21,7 +21,9 @@ function fileUpload(): RequestHandler {
         }
         return next(badRequest(`The upload is not valid: ${err.message}.`));
       }
-      next(err);
+      // Anything else the multipart parser throws is about the body it was sent (cut short, no
+      // boundary, a malformed part header): the client's to fix, never a server fault.
+      next(badRequest(`The upload is not a complete multipart form: ${err instanceof Error ? err.message : String(err)}. Send the photo again.`));
     });
 }
 

@@ -36,6 +36,7 @@ async function uploadPhoto(
   const storageKey = `${auth.orgId}/${fields.surveyId}/${randomUUID()}.${ext}`;
   await storage.put(storageKey, bytes, type.mime);
   const sha256 = createHash('sha256').update(bytes).digest('hex');
+  // The bytes go first so a row never points at nothing; if the row is not written, they go too.
   const inserted = await insertPhoto(db, {
     id,
     orgId: auth.orgId,
@@ -48,6 +49,9 @@ async function uploadPhoto(
     sha256,
     storageKey,
     uploadedBy: auth.userId,
+  }).catch(async (err: unknown) => {
+    await storage.delete(storageKey).catch(() => undefined);
+    throw err;
   });
   if (!inserted) {
     // a concurrent retry of the same upload stored it first: keep theirs

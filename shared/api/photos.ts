@@ -1,5 +1,6 @@
 /** Photo upload and listing bodies (zod; types by z.infer). Bytes travel as multipart field `file`. */
 import { z } from 'zod';
+import { TEXT_LIMITS, boundedText } from '../schemas/limits';
 
 export const PHOTO_MAX_BYTES = 15 * 1024 * 1024;
 /** Checked against the file's content, not its name or declared type. */
@@ -9,7 +10,7 @@ export const PhotoUploadFieldsSchema = z.object({
   surveyId: z.uuid(),
   entityKind: z.enum(['survey', 'condition', 'compartment', 'boundary']),
   entityId: z.uuid(),
-  caption: z.string().max(500).default(''),
+  caption: boundedText(TEXT_LIMITS.caption).default(''),
 });
 export type PhotoUploadFields = z.infer<typeof PhotoUploadFieldsSchema>;
 

@@ -4,11 +4,13 @@
  * options.conditionId is given). Pure and deterministic: no clock, no randomness, no I/O.
  */
 import { catalogueFluid, crudeDensityFromApi, type FluidCategory } from '../fluids/catalogue';
-import { DEFAULT_PERMEABILITY } from '../schemas/space-types';
+import { CARGO_PERMEABILITY, defaultPermeability, PERMEABILITY_SOURCE } from '../schemas/space-types';
 import type { Boundary, BoundarySide, Compartment, LevelSource, Survey } from '../schemas/survey';
 import { earthFrame, HEEL_AGREEMENT_TOLERANCE_DEG, type EarthFrame } from './frame';
 import { missingShipReadings, withheldItems, withheldSentence } from './readings';
-import { DEFAULT_DISCHARGE_COEFFICIENT, leastSquares, orificeFlow, timeToPumpOut } from './inflow';
+import { balanceOpenToSea, spaceInflow } from './flooding-space';
+import { soundingEvidence } from './flooding-soundings';
+import { timeToPumpOut } from './inflow';
 import { clipHalfPlane } from './plane-integrals';
 import {
   childAsHole,
@@ -50,6 +52,7 @@ import type {
   BoundarySummary,
   SurveyLevelResults,
 } from './results';
+import { facetOrientation } from './facets';
 import { newBoundaryTable, setBoundaryRow } from './boundary-table';
 import { platingCheck } from './plating';
 import { capacitiesOf, governingCapacity } from './ratings';
@@ -66,6 +69,8 @@ export interface ComputeOptions {
    * a large vessel's results) and only the boundary being viewed needs one (computeBoundaryDetail).
    */
   includeLoadDiagrams?: boolean;
+  /** Leave out the per-compartment inflow and pump-out figures (the forecast has its own). Default true. */
+  includeInflow?: boolean;
 }
 
 interface ResolvedFluid {
@@ -81,7 +86,7 @@ const NULL_POINT_TOL = 1e-12;
  * results and pressure profile, the flat plates of parents and their openings, and the warnings so
  * far. Built once per computation, whichever of the three entry points asked.
  */
-function prepareCondition(survey: Survey, conditionIdIn: string | undefined) {
+function prepareCondition(survey: Survey, conditionIdIn: string | undefined, includeInflow = true) {
   const conditionId = conditionIdIn ?? survey.activeConditionId;
   const condition = survey.conditions.find((c) => c.id === conditionId);
   if (!condition) throw new Error(`computeSurvey: no condition with id ${conditionId}`);
@@ -127,7 +132,12 @@ function prepareCondition(survey: Survey, conditionIdIn: string | undefined) {
       return r;
     };
     const gross = below(Infinity);
-    const permeability = comp.permeability ?? DEFAULT_PERMEABILITY[comp.spaceType];
+    const defaultPerm = defaultPermeability(comp.spaceType, comp.cargoState);
+    const permeability = comp.permeability ?? defaultPerm.value;
+    const permeabilitySource = comp.permeability !== undefined ? 'given by the surveyor' : defaultPerm.source;
+    if (comp.permeability === undefined && CARGO_PERMEABILITY[comp.spaceType] && !comp.cargoState) {
+      warn('cargo-state-unknown', 'info', comp.id, `${comp.name}: how loaded the space is was not given, so the loaded-space permeability ${defaultPerm.value.toFixed(2)} is used; empty it would be ${CARGO_PERMEABILITY[comp.spaceType]!.empty.toFixed(2)} (${PERMEABILITY_SOURCE})`);
+    }
     const contents = contentsById.get(comp.id);
     const layersIn = contents
       ? contents.layers
@@ -141,10 +151,24 @@ function prepareCondition(survey: Survey, conditionIdIn: string | undefined) {
     let prevTop = -Infinity;
     const liquid = acc();
     const centroidXY: V3 = gross.volume > 0 ? [gross.mx / gross.volume, gross.my / gross.volume, gross.mz / gross.volume] : [0, 0, 0];
+    const densityOf = (layer: (typeof layersIn)[number]) =>
+      layer.densityKgM3 ?? (layer.fluidId === 'sea-water' && !survey.fluids.some((f) => f.id === 'sea-water') ? frame.seaDensityKgM3 : fluids(layer.fluidId).densityKgM3);
+    let tops = layersIn.map((layer) => levelElevation(layer.level, frame));
+    const open = layersIn.findIndex((l) => l.level.kind === 'openToSea');
+    if (open >= 0) {
+      // in balance with the sea at the opening, any oil or gas on top included
+      const openings = (comp.breaches ?? []).map((b) => dot(up, fromPoint(b.position)));
+      tops = balanceOpenToSea(tops, layersIn.map(densityOf), open, pGas, openings.length > 0 ? Math.min(...openings) : eBottom, [eBottom, eTop], (eta) => below(eta).volume, {
+        up,
+        waterlineElevationM: frame.waterlineElevation,
+        seaDensityKgM3: frame.seaDensityKgM3,
+        g,
+      });
+    }
     layersIn.forEach((layer, i) => {
       const fluid = fluids(layer.fluidId);
-      const density = layer.densityKgM3 ?? (layer.fluidId === 'sea-water' && !survey.fluids.some((f) => f.id === 'sea-water') ? frame.seaDensityKgM3 : fluid.densityKgM3);
-      let top = levelElevation(layer.level, frame);
+      const density = densityOf(layer);
+      let top = tops[i];
       if (top < prevTop) {
         warn('level-order', 'warning', layer.id, `${comp.name}: layer ${i + 1} (${fluid.name}) has its surface below the layer beneath it; taken as empty`);
         top = prevTop;
@@ -154,6 +178,13 @@ function prepareCondition(survey: Survey, conditionIdIn: string | undefined) {
       }
       if (top < eBottom - 1e-9 && layer.level.kind !== 'openToSea') {
         warn('level-below-bottom', 'info', layer.id, `${comp.name}: layer ${i + 1} (${fluid.name}) surface is below the compartment bottom`);
+      }
+      const lv = layer.level;
+      let levelRange: LayerResult['levelRange'] = null;
+      if ((lv.kind === 'sounding' || lv.kind === 'interfaceSounding') && lv.soundingM === 0 && top > eBottom + 1e-9) {
+        // a dry tape says only that the surface is at or below the pipe's bottom
+        levelRange = { lowElevationM: Math.max(eBottom, prevTop), highElevationM: top };
+        warn('sounding-zero', 'warning', layer.id, `${comp.name}: a zero sounding puts the ${fluid.name.toLowerCase()} surface at or below the pipe bottom, anywhere in the lowest ${(top - levelRange.lowElevationM).toFixed(2)} m of the space here; loads take it at the pipe bottom (the most liquid it can be)`);
       }
       levels.push({ top, densityKgM3: density });
       const hi = below(top), lo = i === 0 ? below(-Infinity) : below(prevTop);
@@ -169,6 +200,7 @@ function prepareCondition(survey: Survey, conditionIdIn: string | undefined) {
         densityKgM3: density,
         levelElevationM: top,
         levelPoint: toPoint(pointOnLevel(up, top, centroidXY[0], centroidXY[1])),
+        levelRange,
         volumeM3: vol,
         massKg: mass,
         centroid: c,
@@ -182,7 +214,7 @@ function prepareCondition(survey: Survey, conditionIdIn: string | undefined) {
     const profile = layeredProfile(levels, pGas, g);
     profiles.set(comp.id, profile);
 
-    const inflow = compartmentInflow(comp, profile, frame, permeability, below, liquid.volume, warn);
+    const inflow = !includeInflow ? null : compartmentInflow(comp, layerResults, pGas, frame, permeability, below, liquid.volume, warn);
     if (inflow) {
       totalInflow += inflow.inflowUsedM3S;
       totalPumps += inflow.pumpCapacityM3S;
@@ -193,6 +225,7 @@ function prepareCondition(survey: Survey, conditionIdIn: string | undefined) {
       name: comp.name,
       spaceType: comp.spaceType,
       permeability,
+      permeabilitySource,
       grossVolumeM3: gross.volume,
       openToSea: comp.openToSea ?? false,
       gasGaugePressurePa: pGas,
@@ -330,7 +363,7 @@ function surveyLevel(p: Prepared, tally: ReturnType<typeof utilisationTally>): S
  * What the server stores and the desk compares. Units SI throughout (see results.ts).
  */
 export function computeSurvey(survey: Survey, options: ComputeOptions = {}): SurveyResults {
-  const p = prepareCondition(survey, options.conditionId);
+  const p = prepareCondition(survey, options.conditionId, options.includeInflow !== false);
   const withDiagrams = options.includeLoadDiagrams === true;
   const tally = utilisationTally(p.warn);
   const boundaryResults: BoundaryResult[] = [];
@@ -354,8 +387,8 @@ export function computeSurvey(survey: Survey, options: ComputeOptions = {}): Sur
  * (forecasts, pumping plans) and the device's per-edit path; open one boundary's detail with
  * computeBoundaryDetail.
  */
-export function computeSurveySummary(survey: Survey, options: Pick<ComputeOptions, 'conditionId'> = {}): SurveySummary {
-  const p = prepareCondition(survey, options.conditionId);
+export function computeSurveySummary(survey: Survey, options: Pick<ComputeOptions, 'conditionId' | 'includeInflow'> = {}): SurveySummary {
+  const p = prepareCondition(survey, options.conditionId, options.includeInflow !== false);
   const tally = utilisationTally(p.warn);
   const table = newBoundaryTable(survey.boundaries.length);
   let k = 0;
@@ -462,7 +495,11 @@ export function levelElevation(level: LevelSource, frame: EarthFrame): number {
       // a missing reading withholds the compartment before this is reached; NaN if called on one
       return dot(up, [level.pipe.x, level.pipe.y, level.pipe.bottomZM + (level.soundingM ?? Number.NaN)]);
     case 'ullage':
-      return dot(up, [level.reference.x, level.reference.y, level.reference.z - (level.ullageM ?? Number.NaN)]);
+      // a plumb tape hangs along earth-vertical; a tape along a pipe runs along the ship's z axis
+      // and so reads long by 1 / cos of the inclination
+      return level.tape === 'plumb'
+        ? dot(up, fromPoint(level.reference)) - (level.ullageM ?? Number.NaN)
+        : dot(up, [level.reference.x, level.reference.y, level.reference.z - (level.ullageM ?? Number.NaN)]);
     case 'openToSea':
       return frame.waterlineElevation;
     case 'point':
@@ -501,7 +538,8 @@ function finishAcc(a: Acc): Aggregate {
 
 function compartmentInflow(
   comp: Compartment,
-  profile: PressureProfile,
+  layers: readonly LayerResult[],
+  pGas: number,
   frame: EarthFrame,
   permeability: number,
   below: (eta: number) => VolumeMoments,
@@ -509,40 +547,47 @@ function compartmentInflow(
   warn: (code: string, s: Severity, id: string | null, m: string) => void,
 ): InflowResult | null {
   const breaches = comp.breaches ?? [];
-  const pumps = comp.pumps ?? [];
+  const pumps = (comp.pumps ?? []).filter((p) => p.running !== false);
   if (breaches.length === 0 && pumps.length === 0 && !comp.soundingLog) return null;
   const rhoSea = frame.seaDensityKgM3;
-  const out: InflowResult['breaches'] = [];
-  let orifice = 0;
-  for (const br of breaches) {
+  const profile = layeredProfile(layers.map((l) => ({ top: l.levelElevationM, densityKgM3: l.densityKgM3 })), pGas, frame.g);
+  // the flooding model's orifice law: the fluid present upstream flows, over the opening's height
+  const now = spaceInflow(
+    comp,
+    { up: frame.up, waterlineElevationM: frame.waterlineElevation, seaDensityKgM3: rhoSea, g: frame.g },
+    permeability,
+    layers.map((l) => ({ fluidId: l.fluidId, name: l.fluidName, category: l.category, densityKgM3: l.densityKgM3, volumeM3: l.volumeM3 })),
+    pGas,
+  );
+  const out: InflowResult['breaches'] = breaches.map((br, i) => {
     const e = dot(frame.up, fromPoint(br.position));
     const pOut = rhoSea * frame.g * Math.max(0, frame.waterlineElevation - e);
-    const pIn = evalProfile(profile, e);
-    const q = orificeFlow(br.areaM2, br.dischargeCoefficient ?? DEFAULT_DISCHARGE_COEFFICIENT, pOut, pIn, rhoSea);
-    out.push({ id: br.id, headM: (pOut - pIn) / (rhoSea * frame.g), flowM3S: q });
-    orifice += q;
-  }
-  let measured: InflowResult['measured'] = null;
-  if (comp.soundingLog) {
-    const log = comp.soundingLog;
-    const t0 = Date.parse(log.readings[0].time);
-    const ts: number[] = [];
-    const vs: number[] = [];
-    const readings = log.readings.map((r) => {
-      const eta = dot(frame.up, [log.pipe.x, log.pipe.y, log.pipe.bottomZM + r.soundingM]);
-      const v = below(eta).volume * permeability;
-      ts.push((Date.parse(r.time) - t0) / 1000);
-      vs.push(v);
-      return { time: r.time, volumeM3: v };
-    });
-    const fit = leastSquares(ts, vs);
-    measured = { inflowM3S: fit.slope, r2: fit.r2, readings };
-  }
+    return { id: br.id, headM: (pOut - evalProfile(profile, e)) / (rhoSea * frame.g), flowM3S: now.breaches[i].flowM3S };
+  });
+  const orifice = now.orificeInflowM3S;
+  const evidence = soundingEvidence(comp, (soundingM) => {
+    const log = comp.soundingLog!;
+    return below(dot(frame.up, [log.pipe.x, log.pipe.y, log.pipe.bottomZM + soundingM])).volume * permeability;
+  }, orifice);
+  const measured: InflowResult['measured'] = evidence
+    ? {
+        inflowM3S: evidence.grossInflowM3S,
+        netRiseM3S: evidence.netRiseM3S,
+        r2: evidence.r2,
+        readings: evidence.readings,
+        ratio: evidence.ratio,
+        disagree: evidence.disagree,
+      }
+    : null;
   const pumpCapacity = pumps.reduce((s, p) => s + p.capacityM3S, 0);
   const inflowUsed = measured ? measured.inflowM3S : orifice;
-  const t = timeToPumpOut(liquidVolume, pumpCapacity, inflowUsed);
+  // with breaches the inflow grows as the level falls: the model's run; with only a measured rate, that rate held
+  const t = breaches.length > 0 ? now.timeToPumpOutS : timeToPumpOut(liquidVolume, pumpCapacity, inflowUsed);
   if (pumpCapacity > 0 && t === null) {
-    warn('pumps-behind', 'danger', comp.id, `${comp.name}: pumps (${(pumpCapacity * 3600).toFixed(0)} m³/h) cannot keep up with the inflow (${(inflowUsed * 3600).toFixed(0)} m³/h)`);
+    warn('pumps-behind', 'danger', comp.id, `${comp.name}: pumps (${(pumpCapacity * 3600).toFixed(0)} m³/h) do not pump the space out against the inflow (${(inflowUsed * 3600).toFixed(0)} m³/h now)`);
+  }
+  if (evidence?.disagree) {
+    warn('inflow-disagrees', 'warning', comp.id, `${comp.name}: the soundings show ${(evidence.grossInflowM3S * 3600).toFixed(0)} m³/h coming in, the breaches entered explain ${(orifice * 3600).toFixed(0)} m³/h: an unknown breach, or a wrong area`);
   }
   return {
     breaches: out,
@@ -666,18 +711,39 @@ function earthSplit(F: V3, up: V3): Pick<NetResult, 'verticalN' | 'horizontalN' 
   return { verticalN: vertical, horizontalN: hn, horizontalDirection: horizontalDirection(F[0], F[1], F[2], up, vertical, hn) };
 }
 
-function flatNet(plate: FlatPlate, it: PlateIntegration, up: V3): NetResult {
+/**
+ * The two sides nearly cancel when the net force is under 2 % of the larger side's own force
+ * (common practice, no source): the centre of pressure then lies far off the plate and means
+ * nothing, so the load is given as the net force and a couple.
+ */
+export const CANCEL_FRACTION = 0.02;
+function nearlyCancels(net: number, sideA: number, sideB: number): boolean {
+  const larger = Math.max(Math.abs(sideA), Math.abs(sideB));
+  return larger > 0 && Math.abs(net) < CANCEL_FRACTION * larger;
+}
+function warnCancels(b: Boundary, f: number, couple: number, warn: Warn): void {
+  warn('net-cancels', 'warning', b.id, `${b.name}: the two sides nearly cancel (net ${(f / 1000).toFixed(1)} kN); the load is a couple of ${(couple / 1000).toFixed(1)} kN·m about the plate's centroid, not a force at a point`);
+}
+
+function flatNet(b: Boundary, plate: FlatPlate, it: PlateIntegration, up: V3, warn: Warn): NetResult {
   const fr = plate.frame;
   const n = fr.n;
   const F = it.netForceN;
+  const cancels = nearlyCancels(F, it.sideForceA, it.sideForceB);
+  // moment about the centroid: −(Mu − F cu) v + (Mv − F cv) u (u × n = −v, v × n = u)
+  const couple = Math.hypot(it.netMomentU - F * it.centroidU, it.netMomentV - F * it.centroidV);
+  if (cancels) warnCancels(b, F, couple, warn);
   const fx = n[0] * F, fy = n[1] * F, fz = n[2] * F;
   const vertical = fx * up[0] + fy * up[1] + fz * up[2];
   const hn = horizontalMagnitude(fx, fy, fz, up, vertical);
-  const hasCop = F !== 0;
+  const hasCop = F !== 0 && !cancels;
   const cu = it.netMomentU / F, cv = it.netMomentV / F;
   const useMin = Math.abs(it.peakMinPa) > Math.abs(it.peakMaxPa);
   return {
     forceN: F,
+    referenceDirection: { x: n[0], y: n[1], z: n[2] },
+    nearlyCancels: cancels,
+    coupleNm: cancels ? couple : null,
     resultantN: Math.abs(F),
     forceVector: { x: fx, y: fy, z: fz },
     verticalN: vertical,
@@ -779,7 +845,7 @@ function flatBoundary(
   const flat = flatIntegration(b, plateIn, pa, pb, net, warn);
   if (!flat) return null;
   const { plate, it } = flat;
-  const netRes = flatNet(plate, it, frame.up);
+  const netRes = flatNet(b, plate, it, frame.up, warn);
   const { stiffeners, plating, shores, structureModel, capacities, capacity, maxU } = flatChecks(b, plate, it, net, netRes, warn);
   const fr = plate.frame;
   const n = fr.n;
@@ -799,6 +865,7 @@ function flatBoundary(
     net: netRes,
     loadDiagram: withDiagram ? loadDiagram(plate, net, it.cuts) : [],
     facets: null,
+    reversedFacets: [],
     stiffeners,
     plating,
     shores,
@@ -832,7 +899,10 @@ function flatSummary(
   const ratingInput = { forceN: F, resultantN: Math.abs(F), maxPressurePa: it.peakMaxPa, minPressurePa: it.peakMinPa, peak: { pressurePa: peak } };
   const { stiffeners, plating, shores, capacity, maxU } = flatChecks(b, plate, it, net, ratingInput, warn);
   const fr = plate.frame, n = fr.n, o = fr.origin, U = fr.u, W = fr.v;
-  const hasCop = F !== 0;
+  // As flatNet: when the two sides nearly cancel the load is a couple, with no point of action.
+  const cancels = nearlyCancels(F, it.sideForceA, it.sideForceB);
+  if (cancels) warnCancels(b, F, Math.hypot(it.netMomentU - F * it.centroidU, it.netMomentV - F * it.centroidV), warn);
+  const hasCop = F !== 0 && !cancels;
   const cu = it.netMomentU / F, cv = it.netMomentV / F;
   t.id[k] = b.id;
   t.name[k] = b.name;
@@ -921,8 +991,16 @@ function facetedBoundary(
   warn: Warn,
 ): BoundaryResult | null {
   const up = frame.up;
+  let reversedFacets: number[] = [];
   if (b.stiffening || (b.shores && b.shores.length > 0)) {
     warn('curved-structure', 'info', b.id, `${b.name}: stiffeners and shores are assessed on flat plates only; model the shored part as a flat boundary`);
+  }
+  if (b.geometry.kind === 'faceted') {
+    const o = facetOrientation(b.geometry.facets);
+    reversedFacets = o.reversed;
+    if (o.reversed.length > 0) {
+      warn('facets-reversed', 'danger', b.id, `${b.name}: facet${o.reversed.length > 1 ? 's' : ''} ${o.reversed.map((i) => i + 1).join(', ')} run${o.reversed.length > 1 ? '' : 's'} the other way round from ${o.reversed.length > 1 ? 'their' : 'its'} neighbours, so ${o.reversed.length > 1 ? 'their' : 'its'} load is counted the wrong way; turn ${o.reversed.length > 1 ? 'them' : 'it'} over in the plate's form`);
+    }
   }
   const parts = facets.map((pts) => {
     const plate = polygonPlate(pts, up);
@@ -930,8 +1008,10 @@ function facetedBoundary(
   });
   let area = 0;
   let O: V3 = [0, 0, 0];
+  let meanN: V3 = [0, 0, 0];
   for (const { plate, it } of parts) {
     area += it.areaM2;
+    meanN = add(meanN, scale(plate.frame.n, it.areaM2));
     O = add(O, scale(plateToShip(plate.frame, it.centroidU, it.centroidV), it.areaM2));
   }
   if (area <= 0) {
@@ -977,14 +1057,24 @@ function facetedBoundary(
     facetResults.push({ areaM2: it.areaM2, forceN: it.netForceN, centreOfPressure: cop ? toPoint(cop) : null });
   }
   const Fm = norm(F);
+  let ref = unit(meanN);
+  if (norm(meanN) < 1e-9 * area) {
+    ref = unit(F);
+    warn('facets-closed', 'info', b.id, `${b.name}: the facets' normals cancel (a closed surface?); the net force is given along its own direction`);
+  }
+  const cancels = nearlyCancels(Fm, side.fa, side.fb);
   let point: V3 | null = null;
   let residual = 0;
-  if (Fm > 0) {
+  if (Fm > 0 && !cancels) {
     point = add(O, scale(cross(F, M), 1 / (Fm * Fm)));
     residual = dot(M, F) / Fm;
   }
+  if (cancels) warnCancels(b, Fm, norm(M), warn);
   const netRes: NetResult = {
-    forceN: Fm,
+    forceN: dot(F, ref),
+    referenceDirection: toPoint(ref),
+    nearlyCancels: cancels,
+    coupleNm: cancels ? norm(M) : null,
     resultantN: Fm,
     forceVector: toPoint(F),
     ...earthSplit(F, up),
@@ -1017,6 +1107,7 @@ function facetedBoundary(
     net: netRes,
     loadDiagram: [],
     facets: facetResults,
+    reversedFacets,
     stiffeners: null,
     plating: null,
     shores: [],

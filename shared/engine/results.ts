@@ -56,6 +56,11 @@ export interface LayerResult {
   levelElevationM: number;
   /** Where the top surface cuts the vertical (ship z) line through the compartment's centroid. */
   levelPoint: Point;
+  /**
+   * When the reading gives only a range (a zero sounding: at or below the pipe bottom), the lowest
+   * and highest elevations the surface may have, m along earth-up; the loads use the highest.
+   */
+  levelRange: { lowElevationM: number; highElevationM: number } | null;
   /** Liquid volume with permeability applied, m³. */
   volumeM3: number;
   massKg: number;
@@ -66,14 +71,29 @@ export interface InflowResult {
   breaches: { id: string; headM: number; flowM3S: number }[];
   /** Sum of orifice flows, m³/s (positive = into the compartment). */
   orificeInflowM3S: number;
-  /** From the sounding log: least-squares slope of liquid volume against time. */
-  measured: { inflowM3S: number; r2: number; readings: { time: string; volumeM3: number }[] } | null;
+  /**
+   * From the sounding log: the least-squares slope of liquid volume against time with the pumps that
+   * ran added back (inflowM3S), the net rise as read, the fit's r² and residuals, and whether it
+   * disagrees with the orifice inflow (ratio measured / orifice) by more than a factor of 2.
+   */
+  measured: {
+    inflowM3S: number;
+    netRiseM3S: number;
+    r2: number;
+    readings: { time: string; volumeM3: number; pumpedSinceM3: number; residualM3: number }[];
+    ratio: number | null;
+    disagree: boolean;
+  } | null;
   pumpCapacityM3S: number;
   /** Inflow used for the pumping estimate: the measured one if there is a log, else the orifice estimate. */
   inflowUsedM3S: number;
   /** pumps − inflow, m³/s. */
   netRemovalM3S: number;
-  /** Seconds to pump the present liquid out, or null if the pumps cannot gain on the inflow. */
+  /**
+   * Seconds until the running pumps uncover their suction, the inflow growing as the level falls
+   * (the flooding model, other spaces held); with no breach entered, against the measured rate held.
+   * Null if they do not within 48 h.
+   */
   timeToPumpOutS: number | null;
 }
 
@@ -82,6 +102,8 @@ export interface CompartmentResult {
   name: string;
   spaceType: string;
   permeability: number;
+  /** Where the permeability comes from (a named default, or the surveyor). */
+  permeabilitySource: string;
   grossVolumeM3: number;
   openToSea: boolean;
   gasGaugePressurePa: number;
@@ -110,8 +132,22 @@ export interface PartResult {
 }
 
 export interface NetResult {
-  /** Flat plates: ∫(p_A − p_B) dA along the normal (positive pushes towards side B), N. Faceted: |F|. */
+  /**
+   * Net force along referenceDirection, N, positive towards side B. Flat plates: ∫(p_A − p_B) dA
+   * along the plate normal. Faceted surfaces: the resultant's component along the facets'
+   * area-weighted mean normal.
+   */
   forceN: number;
+  /** The direction forceN is measured along (ship axes, unit, pointing from side A to side B). */
+  referenceDirection: Point | null;
+  /**
+   * The two sides nearly cancel (net force under 2 % of the larger side's force): the load is
+   * reported as the net force and a couple, and no centre of pressure is given (it would lie far
+   * off the plate).
+   */
+  nearlyCancels: boolean;
+  /** Moment of the net pressure about the plate's (or surface's) centroid, N·m: given when nearlyCancels. */
+  coupleNm: number | null;
   resultantN: number;
   /** Resultant force vector, ship axes, N. */
   forceVector: Point;
@@ -264,6 +300,8 @@ export interface BoundaryResult {
   net: NetResult;
   loadDiagram: LoadDiagramPoint[];
   facets: FacetResult[] | null;
+  /** Faceted surfaces: facets walked the other way round from their neighbours (indices). */
+  reversedFacets: number[];
   stiffeners: StiffenerResult | null;
   plating: PlatingResult | null;
   shores: ShoreResult[];

@@ -31,3 +31,28 @@ export const DEFAULT_PERMEABILITY: Record<SpaceType, number> = {
   void: 0.95,
   tank: 0.95,
 };
+
+/** How full a cargo space is: the permeability of a cargo space depends on how much cargo fills it. */
+export const CARGO_STATES = ['empty', 'part-loaded', 'loaded'] as const;
+export const CargoStateSchema = z.enum(CARGO_STATES);
+export type CargoState = z.infer<typeof CargoStateSchema>;
+
+/**
+ * Permeability of cargo spaces by how loaded they are: SOLAS Chapter II-1, Regulation 7-3,
+ * Table 7-3.2 (from memory), whose columns are draughts standing for an empty, part-loaded and
+ * loaded ship: dry cargo and containers 0.95 / 0.80 / 0.70, ro-ro 0.95 / 0.90 / 0.90.
+ */
+export const CARGO_PERMEABILITY: Partial<Record<SpaceType, Record<CargoState, number>>> = {
+  'dry-cargo': { empty: 0.95, 'part-loaded': 0.8, loaded: 0.7 },
+  container: { empty: 0.95, 'part-loaded': 0.8, loaded: 0.7 },
+  'ro-ro': { empty: 0.95, 'part-loaded': 0.9, loaded: 0.9 },
+};
+
+export const PERMEABILITY_SOURCE = 'SOLAS Chapter II-1, Regulation 7-3 (from memory)';
+
+/** The default permeability of a space and where it comes from (cargo spaces by their loading, when given). */
+export function defaultPermeability(spaceType: SpaceType, cargoState: CargoState | undefined): { value: number; source: string } {
+  const byState = CARGO_PERMEABILITY[spaceType];
+  if (byState && cargoState) return { value: byState[cargoState], source: `${PERMEABILITY_SOURCE}, ${spaceType} space ${cargoState}` };
+  return { value: DEFAULT_PERMEABILITY[spaceType], source: `${PERMEABILITY_SOURCE}, ${spaceType}${byState ? ' space loaded (its state not given)' : ''}` };
+}

@@ -6,7 +6,10 @@
  */
 import { z } from 'zod';
 import { catalogueFluid } from '../fluids/catalogue';
-import { SpaceTypeSchema } from './space-types';
+import { CargoStateSchema, SpaceTypeSchema } from './space-types';
+import { SURVEY_LIMITS as L, TEXT_LIMITS, boundedText, capMessage, cappedArray } from './limits';
+import { ConditionStabilitySchema, DownfloodingPointSchema } from './stability';
+import { FloodingSettingsSchema, InternalOpeningSchema, OpeningFaceSchema, OpeningSizeSchema, PumpsRunningSchema } from './flooding';
 import { MarksSchema } from './marks';
 import { DirectionalRatingSchema, PlatingSchema, ShoreDesignSchema } from './structure';
 import { SURVEY_SCHEMA_VERSION, upgradeSurvey } from './upgrade';
@@ -23,8 +26,10 @@ export const Point3Schema = z.object({ x: z.number(), y: z.number(), z: z.number
 export type Point3 = z.infer<typeof Point3Schema>;
 
 export const VesselSchema = z.object({
-  name: z.string().trim().min(1),
+  name: boundedText(TEXT_LIMITS.name).trim().min(1),
   imo: z.string().regex(/^\d{7}$/, 'IMO number must be 7 digits').optional(),
+  /** The ship's clock: minutes ahead of UTC (negative west), for times said in ship's time. */
+  shipTimeOffsetMin: z.number().int().min(-14 * 60).max(14 * 60).optional(),
   lbpM: PositiveLength,
   breadthM: PositiveLength,
   depthM: PositiveLength,
@@ -35,6 +40,8 @@ export const VesselSchema = z.object({
     /** Position of the midship marks read on each side for heel, if any. */
     midshipXM: Length.optional(),
   }),
+  /** Openings that would let more water in once under water (the ship's response reports their freeboard). */
+  downfloodingPoints: cappedArray(DownfloodingPointSchema, L.breaches, 'downflooding points').optional(),
 });
 export type Vessel = z.infer<typeof VesselSchema>;
 
@@ -53,7 +60,13 @@ export const LevelSourceSchema = z.discriminatedUnion('kind', [
   // a reading absent until taken: the engine shows no loads that rest on it (shared/engine/readings.ts)
   z.object({ kind: z.literal('sounding'), pipe: SoundingPipeSchema, soundingM: NonNegative.optional() }),
   z.object({ kind: z.literal('interfaceSounding'), pipe: SoundingPipeSchema, soundingM: NonNegative.optional() }),
-  z.object({ kind: z.literal('ullage'), reference: Point3Schema, ullageM: NonNegative.optional() }),
+  z.object({
+    kind: z.literal('ullage'),
+    reference: Point3Schema,
+    ullageM: NonNegative.optional(),
+    /** How the tape ran: along the pipe (ship's z axis, the default) or hanging plumb (earth-vertical). */
+    tape: z.enum(['along-pipe', 'plumb']).optional(),
+  }),
   z.object({ kind: z.literal('openToSea') }),
   z.object({ kind: z.literal('point'), point: Point3Schema }),
 ]);
@@ -62,7 +75,7 @@ export type LevelSource = z.infer<typeof LevelSourceSchema>;
 export const LayerSchema = z.object({
   id: Id,
   /** Catalogue id (see shared/fluids/catalogue) or the id of a survey fluid override. */
-  fluidId: z.string().min(1),
+  fluidId: boundedText(TEXT_LIMITS.key).min(1),
   /** Measured density for this layer, overriding the fluid's density. */
   densityKgM3: z.number().positive().max(2000).optional(),
   /** The top surface of this layer. */
@@ -81,14 +94,14 @@ export type GasSpace = z.infer<typeof GasSpaceSchema>;
 /** What one compartment holds in one condition: layers from the bottom up, and the gas space. */
 export const ContentsSchema = z.object({
   compartmentId: Id,
-  layers: z.array(LayerSchema),
+  layers: cappedArray(LayerSchema, L.layers, 'layers in one compartment'),
   gas: GasSpaceSchema.optional(),
 });
 export type Contents = z.infer<typeof ContentsSchema>;
 
 export const ConditionSchema = z.object({
   id: Id,
-  name: z.string().optional(),
+  name: boundedText(TEXT_LIMITS.name).optional(),
   time: z.iso.datetime({ offset: true }),
   /**
    * Drafts at the marks, m above baseline. Forward and aft are centreline (mean of both sides) values,
@@ -106,7 +119,11 @@ export const ConditionSchema = z.object({
   seaDensityKgM3: z.number().min(990).max(1050).optional(),
   /** Acceleration of gravity, m/s² (default standard gravity 9.80665). */
   gravityMS2: z.number().min(9.7).max(9.9).optional(),
-  contents: z.array(ContentsSchema),
+  contents: cappedArray(ContentsSchema, L.compartments, 'compartments with contents'),
+  /** Hydrostatic particulars for the ship's response (./stability.ts). */
+  stability: ConditionStabilitySchema.optional(),
+  /** Forecast settings and the pumping plan (shared/schemas/flooding.ts). */
+  flooding: FloodingSettingsSchema.optional(),
   marks: MarksSchema.optional(),
 });
 export type Condition = z.infer<typeof ConditionSchema>;
@@ -118,17 +135,28 @@ export const BreachSchema = z.object({
   areaM2: z.number().positive(),
   /** Discharge coefficient (default 0.6, sharp-edged orifice). */
   dischargeCoefficient: z.number().gt(0).max(1).optional(),
+  face: OpeningFaceSchema.optional(),
+  size: OpeningSizeSchema.optional(),
 });
 
 export const PumpSchema = z.object({
   id: Id,
-  name: z.string(),
+  name: boundedText(TEXT_LIMITS.name),
   capacityM3S: z.number().nonnegative(),
+  /** Height of the suction above the space's lowest point, m (default 0: the bottom). */
+  suctionHeightM: NonNegative.optional(),
+  /** Whether the pump is running now (default true). */
+  running: z.boolean().optional(),
 });
 
 export const SoundingLogSchema = z.object({
   pipe: SoundingPipeSchema,
-  readings: z.array(z.object({ time: z.iso.datetime({ offset: true }), soundingM: NonNegative })).min(2),
+  /** `pumpIds`: the pumps that ran between the reading before and this one. */
+  readings: cappedArray(
+    z.object({ time: z.iso.datetime({ offset: true }), soundingM: NonNegative, pumpIds: PumpsRunningSchema.optional() }),
+    L.soundingReadings,
+    'readings in one sounding log',
+  ).min(2),
 });
 
 export const CompartmentGeometrySchema = z.discriminatedUnion('kind', [
@@ -138,24 +166,30 @@ export const CompartmentGeometrySchema = z.discriminatedUnion('kind', [
     kind: z.literal('prism'),
     xAftM: z.number(),
     xForeM: z.number(),
-    section: z.array(z.object({ y: z.number(), z: z.number() })).min(3),
+    section: cappedArray(z.object({ y: z.number(), z: z.number() }), L.sectionPoints, 'points in one section').min(3),
   }),
 ]);
 export type CompartmentGeometry = z.infer<typeof CompartmentGeometrySchema>;
 
 export const CompartmentSchema = z.object({
   id: Id,
-  name: z.string().trim().min(1),
+  name: boundedText(TEXT_LIMITS.name).trim().min(1),
   spaceType: SpaceTypeSchema,
   geometry: CompartmentGeometrySchema,
   /** Overrides the default permeability of the space type. */
   permeability: z.number().min(0).max(1).optional(),
+  /** Cargo spaces: how loaded the space is, which sets its default permeability. */
+  cargoState: CargoStateSchema.optional(),
   /** Open to the sea through a breach: unless the condition gives contents, it floods to the outside waterline. */
   openToSea: z.boolean().optional(),
-  breaches: z.array(BreachSchema).optional(),
-  pumps: z.array(PumpSchema).optional(),
+  breaches: cappedArray(BreachSchema, L.breaches, 'breaches in one compartment').optional(),
+  pumps: cappedArray(PumpSchema, L.pumps, 'pumps in one compartment').optional(),
   soundingLog: SoundingLogSchema.optional(),
   marks: MarksSchema.optional(),
+  /** Openings into other compartments (shared/schemas/flooding.ts). */
+  openings: cappedArray(InternalOpeningSchema, L.breaches, 'openings from one compartment').optional(),
+  /** Air-tight, not vented: air trapped above the liquid is compressed as it rises (Boyle's law). */
+  airTight: z.boolean().optional(),
 });
 export type Compartment = z.infer<typeof CompartmentSchema>;
 
@@ -166,7 +200,7 @@ export const BoundarySideSchema = z.discriminatedUnion('kind', [
 ]);
 export type BoundarySide = z.infer<typeof BoundarySideSchema>;
 
-const PolygonVertices = z.array(Point3Schema).min(3);
+const PolygonVertices = cappedArray(Point3Schema, L.polygonVertices, 'vertices per polygon').min(3);
 
 /**
  * Plate geometry. The vertex order fixes the plate normal by the right-hand rule; the normal points
@@ -178,7 +212,7 @@ export const BoundaryGeometrySchema = z.discriminatedUnion('kind', [
   z.object({ kind: z.literal('polygon'), vertices: PolygonVertices }),
   z.object({ kind: z.literal('rectangle'), origin: Point3Schema, edgeU: Point3Schema, edgeV: Point3Schema }),
   z.object({ kind: z.literal('circle'), centre: Point3Schema, normal: Point3Schema, radiusM: PositiveLength }),
-  z.object({ kind: z.literal('faceted'), facets: z.array(z.object({ vertices: PolygonVertices })).min(1) }),
+  z.object({ kind: z.literal('faceted'), facets: cappedArray(z.object({ vertices: PolygonVertices }), L.facets, 'facets in one boundary').min(1) }),
 ]);
 export type BoundaryGeometry = z.infer<typeof BoundaryGeometrySchema>;
 
@@ -235,7 +269,7 @@ export const BOUNDARY_KINDS = ['bulkhead', 'deck', 'tank-top', 'hatch-cover', 'd
 
 export const BoundarySchema = z.object({
   id: Id,
-  name: z.string().trim().min(1),
+  name: boundedText(TEXT_LIMITS.name).trim().min(1),
   kind: z.enum(BOUNDARY_KINDS),
   geometry: BoundaryGeometrySchema,
   sideA: BoundarySideSchema,
@@ -247,12 +281,12 @@ export const BoundarySchema = z.object({
    */
   parentBoundaryId: Id.optional(),
   stiffening: StiffeningSchema.optional(),
-  shores: z.array(ShoreSchema).optional(),
+  shores: cappedArray(ShoreSchema, L.shores, 'shores on one boundary').optional(),
   /** A rating that holds whichever way the net pressure pushes (see directionalCapacity for one per direction). */
   ratedCapacity: RatedCapacitySchema.optional(),
   directionalCapacity: DirectionalRatingSchema.optional(),
   plating: PlatingSchema.optional(),
-  notes: z.string().optional(),
+  notes: boundedText(TEXT_LIMITS.notes).optional(),
   marks: MarksSchema.optional(),
 });
 export type Boundary = z.infer<typeof BoundarySchema>;
@@ -260,13 +294,13 @@ export type Boundary = z.infer<typeof BoundarySchema>;
 /** A survey-level fluid: overrides a catalogue entry with the same id, or adds a new one. */
 export const FluidOverrideSchema = z
   .object({
-    id: z.string().min(1),
-    name: z.string().min(1),
+    id: boundedText(TEXT_LIMITS.key).min(1),
+    name: boundedText(TEXT_LIMITS.name).min(1),
     category: z.enum(['water', 'oil', 'other']),
     densityKgM3: z.number().positive().max(2000).optional(),
     /** For crude oils: density follows from API gravity. */
     apiGravity: z.number().min(-10).max(100).optional(),
-    source: z.string().optional(),
+    source: boundedText(TEXT_LIMITS.caption).optional(),
   })
   .refine((f) => (f.densityKgM3 === undefined) !== (f.apiGravity === undefined), {
     message: 'give exactly one of densityKgM3 or apiGravity',
@@ -276,9 +310,9 @@ export type FluidOverride = z.infer<typeof FluidOverrideSchema>;
 export const PhotoRefSchema = z.object({
   id: Id,
   entity: z.object({ kind: z.enum(['survey', 'condition', 'compartment', 'boundary']), id: Id }),
-  caption: z.string(),
-  contentType: z.string().regex(/^image\/[a-z0-9.+-]+$/),
-  key: z.string().optional(),
+  caption: boundedText(TEXT_LIMITS.caption),
+  contentType: z.string().max(TEXT_LIMITS.key).regex(/^image\/[a-z0-9.+-]+$/),
+  key: boundedText(TEXT_LIMITS.key).optional(),
 });
 export type PhotoRef = z.infer<typeof PhotoRefSchema>;
 
@@ -287,17 +321,17 @@ export type PhotoRef = z.infer<typeof PhotoRefSchema>;
  * from this table and `isValidEdit` checks against it, so the two cannot drift apart.
  */
 const COLLECTIONS = {
-  conditions: { element: ConditionSchema, min: 1 },
-  fluids: { element: FluidOverrideSchema, min: 0 },
-  compartments: { element: CompartmentSchema, min: 0 },
-  boundaries: { element: BoundarySchema, min: 0 },
-  photos: { element: PhotoRefSchema, min: 0 },
+  conditions: { element: ConditionSchema, min: 1, max: L.conditions, what: 'conditions' },
+  fluids: { element: FluidOverrideSchema, min: 0, max: L.fluids, what: 'fluids' },
+  compartments: { element: CompartmentSchema, min: 0, max: L.compartments, what: 'compartments' },
+  boundaries: { element: BoundarySchema, min: 0, max: L.boundaries, what: 'boundaries' },
+  photos: { element: PhotoRefSchema, min: 0, max: L.photos, what: 'photos' },
 } as const;
 type CollectionKey = keyof typeof COLLECTIONS;
 
 function arrayOf<K extends CollectionKey>(key: K) {
-  const { element, min } = COLLECTIONS[key];
-  const array = z.array(element as (typeof COLLECTIONS)[K]['element']);
+  const { element, min, max, what } = COLLECTIONS[key];
+  const array = z.array(element as (typeof COLLECTIONS)[K]['element']).max(max, capMessage(max, what));
   return min > 0 ? array.min(min) : array;
 }
 
@@ -307,8 +341,8 @@ const SurveyObjectSchema = z.object({
   }),
   id: Id,
   vesselId: Id.optional(),
-  title: z.string().trim().min(1),
-  casualtyDescription: z.string(),
+  title: boundedText(TEXT_LIMITS.name).trim().min(1),
+  casualtyDescription: boundedText(TEXT_LIMITS.narrative),
   vessel: VesselSchema,
   conditions: arrayOf('conditions'),
   activeConditionId: Id,
@@ -367,7 +401,40 @@ function referenceIssues(s: SurveyObject, add: (issue: { path: (string | number)
   });
 }
 
-export const SurveySchema = SurveyObjectSchema.superRefine((s, ctx) => referenceIssues(s, (issue) => ctx.addIssue({ code: 'custom', ...issue })));
+/** Geometry points of one boundary's or compartment's shape, as SURVEY_LIMITS.geometryPoints counts them. */
+function geometryPoints(g: Boundary['geometry'] | Compartment['geometry']): number {
+  switch (g.kind) {
+    case 'polygon':
+      return g.vertices.length;
+    case 'faceted':
+      return g.facets.reduce((n, f) => n + f.vertices.length, 0);
+    case 'prism':
+      return g.section.length;
+    case 'circle':
+      return 1;
+    default:
+      return 4;
+  }
+}
+
+/** The whole survey's geometry within SURVEY_LIMITS.geometryPoints (each shape is capped by its own schema). */
+function sizeIssues(s: SurveyObject, add: (issue: { path: (string | number)[]; message: string }) => void): void {
+  let points = 0;
+  for (const b of s.boundaries) points += geometryPoints(b.geometry);
+  for (const c of s.compartments) points += geometryPoints(c.geometry);
+  if (points > L.geometryPoints) {
+    add({
+      path: ['boundaries'],
+      message: `The survey's geometry has ${points.toLocaleString('en-GB')} points; at most ${L.geometryPoints.toLocaleString('en-GB')} allowed.`,
+    });
+  }
+}
+
+export const SurveySchema = SurveyObjectSchema.superRefine((s, ctx) => {
+  const add = (issue: { path: (string | number)[]; message: string }) => ctx.addIssue({ code: 'custom', ...issue });
+  referenceIssues(s, add);
+  sizeIssues(s, add);
+});
 export type Survey = z.infer<typeof SurveySchema>;
 
 /**
@@ -391,8 +458,8 @@ export function isValidEdit(prev: Survey, next: Survey): boolean {
     const after: unknown = next[key];
     if (before === after) continue;
     if (key in COLLECTIONS && Array.isArray(before) && Array.isArray(after)) {
-      const { element, min } = COLLECTIONS[key as CollectionKey];
-      if (after.length < min) return false;
+      const { element, min, max } = COLLECTIONS[key as CollectionKey];
+      if (after.length < min || after.length > max) return false;
       const unchanged = new Set<unknown>(before);
       for (const entity of after) if (!unchanged.has(entity) && !element.safeParse(entity).success) return false;
       continue;
@@ -400,8 +467,10 @@ export function isValidEdit(prev: Survey, next: Survey): boolean {
     if (!shape[key].safeParse(after).success) return false;
   }
   let clean = true;
-  referenceIssues(next as SurveyObject, () => {
+  const fail = () => {
     clean = false;
-  });
+  };
+  referenceIssues(next as SurveyObject, fail);
+  sizeIssues(next as SurveyObject, fail);
   return clean;
 }

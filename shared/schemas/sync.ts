@@ -28,6 +28,9 @@ export type SurveySetPath = (typeof SURVEY_SET_PATHS)[number];
 export const SurveySetPathSchema = z.enum(SURVEY_SET_PATHS);
 
 /** The arrays of entities (each with an `id`) inside a survey. */
+/** The largest value of a PostgreSQL integer column (sequence numbers and revisions are stored as one). */
+export const PG_INT_MAX = 2 ** 31 - 1;
+
 export const SURVEY_COLLECTIONS = ['conditions', 'compartments', 'boundaries', 'fluids', 'photos'] as const;
 export type SurveyCollection = (typeof SURVEY_COLLECTIONS)[number];
 export const SurveyCollectionSchema = z.enum(SURVEY_COLLECTIONS);
@@ -133,10 +136,10 @@ export const SurveyChangeSchema = z
   .object({
     id: z.uuid(),
     deviceId: z.uuid(),
-    seq: z.number().int().min(1),
+    seq: z.number().int().min(1).max(PG_INT_MAX),
     surveyId: z.uuid(),
     /** The server revision of the survey the device had when the edit was made (0: never synced). */
-    baseRevision: z.number().int().min(0),
+    baseRevision: z.number().int().min(0).max(PG_INT_MAX),
     createdAt: z.iso.datetime({ offset: true }),
     op: SurveyOpSchema,
   })
@@ -282,10 +285,13 @@ export const SyncedSurveySchema = z.object({
 });
 export type SyncedSurvey = z.infer<typeof SyncedSurveySchema>;
 
+const XID8_MAX = 2n ** 64n - 1n;
 export const PullQuerySchema = z.object({
+  // Transaction ids are PostgreSQL xid8 (unsigned 64-bit); the id is a survey's UUID.
   cursor: z
     .string()
-    .regex(/^\d+(:\d+:[0-9a-f-]{36})?$/, 'cursor is not one this server gave out')
+    .regex(/^\d{1,20}(:\d{1,20}:[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12})?$/i, 'cursor is not one this server gave out')
+    .refine((c) => c.split(':').every((part, i) => i === 2 || BigInt(part) <= XID8_MAX), 'cursor is not one this server gave out')
     .default('0'),
   limit: z.coerce.number().int().min(1).max(200).default(50),
 });

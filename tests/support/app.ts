@@ -8,6 +8,7 @@ import { pino, type Logger } from 'pino';
 import { createApp, type BrinelineApp } from '../../server/app';
 import { loadConfig, type Config } from '../../server/config';
 import { createDb, type Db } from '../../server/db/knex';
+import type { PhotoStorage } from '../../server/storage/photo-store';
 
 export interface TestApp {
   url: string;
@@ -17,10 +18,10 @@ export interface TestApp {
   close: () => Promise<void>;
 }
 
-export async function startTestApp(overrides: Record<string, string> = {}, opts: { logger?: Logger } = {}): Promise<TestApp> {
+export async function startTestApp(overrides: Record<string, string> = {}, opts: { logger?: Logger; storage?: (config: Config) => PhotoStorage } = {}): Promise<TestApp> {
   const config = loadConfig({ ...inject('testEnv'), PORT: '0', ...overrides });
   const db = createDb(config.DATABASE_URL);
-  const app = createApp({ db, config, logger: opts.logger ?? pino({ level: 'silent' }) });
+  const app = createApp({ db, config, logger: opts.logger ?? pino({ level: 'silent' }), storage: opts.storage?.(config) });
   const server = http.createServer(app);
   await new Promise<void>((resolve) => server.listen(0, '127.0.0.1', () => resolve()));
   const addr = server.address();

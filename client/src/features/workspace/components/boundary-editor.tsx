@@ -12,6 +12,15 @@ import { useFrameTable } from '../utils/frames';
 import { PLANE_AXES, SIDE_WORDS } from '../utils/plane-geometry';
 import { boundaryResolver, boundaryToForm, sideOptions, type BoundaryForm } from '../utils/boundary-form';
 import { newId } from '../utils/new-entities';
+import { withMark, type FigureMark } from '@shared/schemas/marks';
+import { MarkChip } from './mark-chip';
+
+/** The chip under one of the plate's figures, kept in the form's `marks` value. */
+function PlateMark({ form, field, filled = true }: { form: UseFormReturn<BoundaryForm, unknown, Boundary>; field: string; filled?: boolean }) {
+  const marks = form.watch('marks');
+  const set = (m: FigureMark | undefined) => form.setValue('marks', withMark(marks, field, m) ?? {}, { shouldDirty: true });
+  return <MarkChip mark={marks[field]} onChange={set} canEstimate={filled} />;
+}
 
 export const KIND_LABEL: Record<Boundary['kind'], string> = {
   bulkhead: 'Bulkhead',
@@ -120,7 +129,20 @@ export function BoundaryEditor({ boundary, survey, apply, system }: { boundary: 
         </fieldset>
       )}
       <div className="flex items-center gap-2">
-        <input id={stiffId} type="checkbox" className="size-6" {...register('stiff')} />
+        <input
+          id={stiffId}
+          type="checkbox"
+          className="size-6"
+          {...register('stiff', {
+            // stiffening switched on starts from typical values: assumed until the surveyor confirms them
+            onChange: (ev: { target: { checked: boolean } }) => {
+              if (!ev.target.checked || boundary.stiffening) return;
+              let m = withMark(form.getValues('marks'), 'stiffening.sectionModulusM3', 'assumed');
+              m = withMark(m, 'stiffening.allowableStressPa', 'assumed');
+              form.setValue('marks', m ?? {});
+            },
+          })}
+        />
         <label htmlFor={stiffId} className="font-bold">
           Stiffened
         </label>
@@ -152,8 +174,22 @@ export function BoundaryEditor({ boundary, survey, apply, system }: { boundary: 
               { value: 'fixed', label: 'Fixed (bracketed)' },
             ]}
           />
-          <NumberInput register={register} name="stModulus" label="Section modulus (with plate)" unit={measureLabel('sectionModulus', system)} errors={{ stModulus: errorAt(e, 'stiffening.sectionModulusM3') }} />
-          <NumberInput register={register} name="stAllow" label="Allowable stress" unit={measureLabel('stress', system)} errors={{ stAllow: errorAt(e, 'stiffening.allowableStressPa') }} />
+          <NumberInput
+            register={register}
+            name="stModulus"
+            label="Section modulus (with plate)"
+            unit={measureLabel('sectionModulus', system)}
+            errors={{ stModulus: errorAt(e, 'stiffening.sectionModulusM3') }}
+            extra={<PlateMark form={form} field="stiffening.sectionModulusM3" />}
+          />
+          <NumberInput
+            register={register}
+            name="stAllow"
+            label="Allowable stress"
+            unit={measureLabel('stress', system)}
+            errors={{ stAllow: errorAt(e, 'stiffening.allowableStressPa') }}
+            extra={<PlateMark form={form} field="stiffening.allowableStressPa" />}
+          />
         </fieldset>
       )}
       <ShoreFields form={form} system={system} />
@@ -176,6 +212,7 @@ export function BoundaryEditor({ boundary, survey, apply, system }: { boundary: 
             label={capKind === 'pressure' ? 'Rated pressure' : 'Rated force'}
             unit={measureLabel(capKind === 'pressure' ? 'pressure' : 'force', system)}
             errors={{ capValue: errorAt(e, 'ratedCapacity.pressurePa') ?? errorAt(e, 'ratedCapacity.forceN') }}
+            extra={<PlateMark form={form} field="ratedCapacity" />}
           />
         )}
       </div>
@@ -233,6 +270,7 @@ function ShoreFields({ form, system }: { form: UseFormReturn<BoundaryForm, unkno
               label={v.shores?.[i]?.secKind === 'tube' ? 'Outer diameter' : 'Width'}
               unit={lu}
               errors={{ shores: { [i]: { w: err(i, 'section.widthM') ?? err(i, 'section.outerDiameterM') } } }}
+              extra={<PlateMark form={form} field={`shores.${f.id}.section`} />}
             />
             <NumberInput
               register={register}
@@ -274,12 +312,14 @@ function ShoreFields({ form, system }: { form: UseFormReturn<BoundaryForm, unkno
         className={secondaryBtn}
         onClick={() => {
           const c = centre();
-          append({ id: newId(), ...c, length: S(3), secKind: 'rectangular', w: S(0.2), d: S(0.2), e: stress(11e9), allow: stress(8e6), end: 'pinned-pinned', side: 'B', angle: '' });
+          const id = newId();
+          form.setValue('marks', withMark(form.getValues('marks'), `shores.${id}.section`, 'assumed') ?? {});
+          append({ id, ...c, length: S(3), secKind: 'rectangular', w: S(0.2), d: S(0.2), e: stress(11e9), allow: stress(8e6), end: 'pinned-pinned', side: 'B', angle: '' });
         }}
       >
         + Add shore
       </button>
-      {fields.length > 0 && <p className="text-xs text-ink-soft">New shores start with typical timber values (200 × 200 mm, E 11 GPa, 8 MPa allowable): enter those of the shore actually fitted.</p>}
+      {fields.length > 0 && <p className="text-xs text-ink-soft">New shores start with typical timber values (200 × 200 mm, E 11 GPa, 8 MPa allowable), marked assumed: enter those of the shore actually fitted, or confirm them.</p>}
     </fieldset>
   );
 }

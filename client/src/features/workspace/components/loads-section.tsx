@@ -9,6 +9,7 @@ import { secondaryBtn } from '@client/components/ui/fields';
 import { useSearchParams } from 'react-router';
 import { useMemo } from 'react';
 import { computeBoundaryDetail } from '@shared/engine';
+import { WithheldNotice } from './withheld-notice';
 
 export function LoadsSection({ survey, results, rows, system, selectedId, select }: SectionProps) {
   const [, setParams] = useSearchParams();
@@ -20,6 +21,7 @@ export function LoadsSection({ survey, results, rows, system, selectedId, select
       <h2 id="loads-h" className="text-2xl">
         Loads
       </h2>
+      <WithheldNotice results={results} />
       <ShipTotals results={results} rows={rows} system={system} />
       <EngineWarnings results={results} />
       <div className="space-y-2">

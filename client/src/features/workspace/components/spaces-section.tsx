@@ -1,8 +1,9 @@
 /** "Spaces": the compartments, as a box or a prism between two frames, with permeability and openness to the sea. */
+import { MarkChip } from './mark-chip';
 import { useForm } from 'react-hook-form';
 import { useId } from 'react';
 import { CompartmentSchema, type Compartment } from '@shared/schemas/survey';
-import { DEFAULT_PERMEABILITY, SPACE_TYPES, type SpaceType } from '@shared/schemas/space-types';
+import { CARGO_PERMEABILITY, defaultPermeability, SPACE_TYPES, type CargoState, type SpaceType } from '@shared/schemas/space-types';
 import type { UnitSystem } from '@shared/units/units';
 import { byKey, measureLabel, parseField, showField, unitResolver } from '../utils/form-units';
 import { NumberInput, TextInput, SelectInput, FormError, primaryBtn, dangerBtn, secondaryBtn, inputCls, Field, errorAt } from '@client/components/ui/fields';
@@ -29,6 +30,7 @@ interface CompartmentForm {
   name: string;
   spaceType: SpaceType;
   permeability: string;
+  cargoState: CargoState | '';
   openToSea: boolean;
   kind: 'box' | 'prism';
   xAft: string;
@@ -66,6 +68,7 @@ function toModel(v: CompartmentForm, base: Compartment, system: UnitSystem, fram
     name: v.name,
     spaceType: v.spaceType,
     permeability: v.permeability.trim() === '' ? undefined : Number(v.permeability.replace(',', '.')),
+    cargoState: CARGO_PERMEABILITY[v.spaceType] && v.cargoState !== '' ? v.cargoState : undefined,
     openToSea: v.openToSea || undefined,
     geometry,
   };
@@ -78,6 +81,7 @@ function defaults(c: Compartment, system: UnitSystem): CompartmentForm {
     name: c.name,
     spaceType: c.spaceType,
     permeability: c.permeability === undefined ? '' : String(c.permeability),
+    cargoState: (c.cargoState ?? '') as CargoState | '',
     openToSea: c.openToSea ?? false,
   };
   if (g.kind === 'box') {
@@ -105,9 +109,12 @@ function CompartmentEditor({ compartment, surveyId, apply, system }: { compartme
     defaultValues: defaults(compartment, system),
   });
   const state = useAutosave(form, (v) => apply({ kind: 'upsert', collection: 'compartments', entity: v }));
-  const { register, formState, watch } = form;
+  const { register, formState, watch, setValue } = form;
   const kind = watch('kind');
   const spaceType = watch('spaceType');
+  const cargoState = watch('cargoState');
+  const perm = defaultPermeability(spaceType, cargoState === '' ? undefined : cargoState);
+  const permeability = watch('permeability');
   const xAft = watch('xAft');
   const xFore = watch('xFore');
   const lu = measureLabel('length', system);
@@ -131,10 +138,34 @@ function CompartmentEditor({ compartment, surveyId, apply, system }: { compartme
           label="Permeability"
           unit=""
           errors={e}
-          placeholder={DEFAULT_PERMEABILITY[spaceType]?.toFixed(2)}
-          hint={`empty: published default ${DEFAULT_PERMEABILITY[spaceType]?.toFixed(2)} for this space type`}
+          placeholder={perm.value.toFixed(2)}
+          hint={`empty: default ${perm.value.toFixed(2)} (${perm.source})`}
+          extra={
+            permeability.trim() === '' ? (
+              <MarkChip
+                mark="assumed"
+                assumedValue={`${perm.value.toFixed(2)}, ${perm.source}`}
+                onChange={() => undefined}
+                onConfirm={() => setValue('permeability', perm.value.toFixed(2), { shouldDirty: true })}
+              />
+            ) : undefined
+          }
         />
       </div>
+      {CARGO_PERMEABILITY[spaceType] && (
+        <SelectInput
+          register={register}
+          name="cargoState"
+          label="How loaded is the space? (sets the default permeability)"
+          errors={e}
+          options={[
+            { value: '', label: `Not stated (taken as loaded, ${CARGO_PERMEABILITY[spaceType]!.loaded.toFixed(2)})` },
+            { value: 'empty', label: `Empty of cargo (${CARGO_PERMEABILITY[spaceType]!.empty.toFixed(2)})` },
+            { value: 'part-loaded', label: `Part loaded (${CARGO_PERMEABILITY[spaceType]!['part-loaded'].toFixed(2)})` },
+            { value: 'loaded', label: `Loaded (${CARGO_PERMEABILITY[spaceType]!.loaded.toFixed(2)})` },
+          ]}
+        />
+      )}
       <div className="flex items-center gap-2">
         <input id={openId} type="checkbox" className="size-6" {...register('openToSea')} />
         <label htmlFor={openId} className="font-bold">

@@ -197,6 +197,7 @@ function StateStrip({ results, rows, error, system, onOpen }: { results: SurveyS
   if (!results) return null;
   const worst = rows.find((b) => b.id === results.summary.maxUtilisationBoundaryId);
   const over = results.summary.overCapacityBoundaryIds.length;
+  const unread = (results.frame.missingReadings ?? []).length > 0;
   return (
     <button
       type="button"
@@ -208,13 +209,13 @@ function StateStrip({ results, rows, error, system, onOpen }: { results: SurveyS
       <span>
         <span className="text-xs font-bold uppercase text-ink-soft">Heel </span>
         <b className="tabular-nums">
-          {Math.abs(results.frame.heelDeg).toFixed(1)}° {results.frame.heelDeg > 0.05 ? 'stbd' : results.frame.heelDeg < -0.05 ? 'port' : ''}
+          {unread ? '—' : `${Math.abs(results.frame.heelDeg).toFixed(1)}° ${results.frame.heelDeg > 0.05 ? 'stbd' : results.frame.heelDeg < -0.05 ? 'port' : ''}`}
         </b>
       </span>
       <span>
         <span className="text-xs font-bold uppercase text-ink-soft">Trim </span>
         <b className="tabular-nums">
-          {fmt(Math.abs(results.frame.trimM), 'length', system, 3)} {results.frame.trimM > 0.005 ? 'stern' : results.frame.trimM < -0.005 ? 'head' : ''}
+          {unread ? '—' : `${fmt(Math.abs(results.frame.trimM), 'length', system, 3)} ${results.frame.trimM > 0.005 ? 'stern' : results.frame.trimM < -0.005 ? 'head' : ''}`}
         </b>
       </span>
       <span>
@@ -225,6 +226,11 @@ function StateStrip({ results, rows, error, system, onOpen }: { results: SurveyS
         <span className="text-xs font-bold uppercase text-ink-soft">Oil </span>
         <b className="tabular-nums">{fmt(results.ship.oil.massKg, 'mass', system, 4)}</b>
       </span>
+      {(results.withheld ?? []).length > 0 && (
+        <span className="text-sm font-bold" data-testid="readings-needed">
+          Readings needed: {(results.withheld ?? []).length} not shown
+        </span>
+      )}
       <span className="flex items-center gap-1">
         <UtilisationBadge value={results.summary.maxUtilisation} compact />
         {worst && <span className="text-sm font-bold">{worst.name}</span>}

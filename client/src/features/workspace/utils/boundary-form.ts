@@ -6,6 +6,7 @@ import { byKey, parseField, showField, unitResolver } from './form-units';
 import { emptyPlaneShape, geometryToPlaneShape, planeShapeToGeometry, type PlaneKind, type ShapeKind } from './plane-geometry';
 import { parseX } from './parse-x';
 import type { FrameTable } from './frames';
+import { settleMarks, type Marks } from '@shared/schemas/marks';
 
 export interface ShoreForm {
   id: string;
@@ -54,6 +55,8 @@ export interface BoundaryForm {
   capKind: 'none' | 'pressure' | 'force';
   capValue: string;
   notes: string;
+  /** Not an input: the marks on this plate's figures (shared/schemas/marks.ts). */
+  marks: Marks;
 }
 
 export const sideValue = (s: BoundarySide): string => (s.kind === 'compartment' ? s.compartmentId : s.kind);
@@ -117,6 +120,7 @@ export function boundaryToForm(b: Boundary, system: UnitSystem): BoundaryForm {
     capKind: cap?.kind ?? 'none',
     capValue: cap ? (cap.kind === 'pressure' ? showField(cap.pressurePa, 'pressure', system) : showField(cap.forceN, 'force', system)) : '',
     notes: b.notes ?? '',
+    marks: b.marks ?? {},
   };
 }
 
@@ -156,7 +160,7 @@ export function formToBoundary(v: BoundaryForm, base: Boundary, system: UnitSyst
     });
   }
   const stress = (t: string) => parseField(t, 'stress', system);
-  return {
+  const next = {
     ...base,
     name: v.name,
     kind: v.kind,
@@ -196,6 +200,7 @@ export function formToBoundary(v: BoundaryForm, base: Boundary, system: UnitSyst
           : { kind: 'force', forceN: parseField(v.capValue, 'force', system) },
     notes: v.notes.trim() === '' ? undefined : v.notes,
   };
+  return { ...next, marks: settleMarks(v.marks, base, next) };
 }
 
 const MEASURES = byKey({
