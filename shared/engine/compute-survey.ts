@@ -897,11 +897,12 @@ function flatSummary(
   const F = it.netForceN;
   const peak = peakOf(it);
   const ratingInput = { forceN: F, resultantN: Math.abs(F), maxPressurePa: it.peakMaxPa, minPressurePa: it.peakMinPa, peak: { pressurePa: peak } };
-  const { stiffeners, plating, shores, capacity, maxU } = flatChecks(b, plate, it, net, ratingInput, warn);
-  const fr = plate.frame, n = fr.n, o = fr.origin, U = fr.u, W = fr.v;
-  // As flatNet: when the two sides nearly cancel the load is a couple, with no point of action.
+  // As flatNet (and before the checks, so the warnings come in the same order): when the two sides
+  // nearly cancel the load is a couple, with no point of action.
   const cancels = nearlyCancels(F, it.sideForceA, it.sideForceB);
   if (cancels) warnCancels(b, F, Math.hypot(it.netMomentU - F * it.centroidU, it.netMomentV - F * it.centroidV), warn);
+  const { stiffeners, plating, shores, capacity, maxU } = flatChecks(b, plate, it, net, ratingInput, warn);
+  const fr = plate.frame, n = fr.n, o = fr.origin, U = fr.u, W = fr.v;
   const hasCop = F !== 0 && !cancels;
   const cu = it.netMomentU / F, cv = it.netMomentV / F;
   t.id[k] = b.id;
