@@ -3,7 +3,7 @@
  * inline style sheet. Readable on a 360 px phone and printable on one or two A4 pages.
  */
 import type { Survey } from '@shared/schemas/survey';
-import type { BoundaryResult, SurveyResults } from '@shared/engine/results';
+import { governingCheck, type BoundaryResult, type SurveyResults } from '@shared/engine';
 import type { OperatingLimit, Verdict } from '@shared/api/review';
 import { CAUTIONS } from '@shared/api/cautions';
 import { STATUS_LABELS, type SurveyStatus } from '@shared/review/status';
@@ -76,11 +76,12 @@ export function renderBriefPage(d: BriefPageData): string {
   const boundaryItems = important.map((b) => {
     const v = boundaryVerdicts.get(b.id);
     const sev = v ? verdictSeverity(v.verdict) : null;
+    const gov = governingCheck(b);
     return html`<li class="boundary">
 <div class="bhead"><strong>${b.name}</strong> <span class="muted">(${b.kind}, between ${sideLabel(r!, b.sideA)} and ${sideLabel(r!, b.sideB)})</span></div>
 ${v ? html`<div class="verdict ${SEVERITY_CLASS[sev!]}"><strong>${boundaryVerdictLabel(v.verdict)}</strong>: ${boundaryVerdictMeaning(v.verdict)}.${v.note ? html` ${v.note}` : ''}</div>` : html`<div class="muted">No verdict given.</div>`}
-<div class="figs">Net load ${q(Math.abs(b.net.resultantN), 'force')} · highest net pressure ${q(Math.abs(b.net.peak.pressurePa), 'pressure')}${
-      b.maxUtilisation !== null ? html` · <span class="${b.maxUtilisation > 1 ? 'over' : ''}">${b.maxUtilisation > 1 ? '▲ OVER CAPACITY: ' : ''}${formatNumber(b.maxUtilisation * 100, 3)} % of capacity</span>` : ''
+<div class="figs">Net load ${q(Math.abs(b.net.resultantN), 'force')} pushing towards ${sideLabel(r!, b.net.forceN >= 0 ? b.sideB : b.sideA)} · highest net pressure ${q(Math.abs(b.net.peak.pressurePa), 'pressure')}${
+      gov ? html` · <span class="${gov.utilisation > 1 ? 'over' : ''}">${gov.utilisation > 1 ? '▲ OVER CAPACITY: ' : ''}${formatNumber(gov.utilisation * 100, 3)} % of ${gov.what}</span>` : ''
     }</div>
 </li>`;
   });

@@ -751,6 +751,7 @@ function flatNet(b: Boundary, plate: FlatPlate, it: PlateIntegration, up: V3, wa
     horizontalDirection: horizontalDirection(fx, fy, fz, up, vertical, hn),
     centreOfPressure: hasCop ? platePoint(fr, cu, cv) : null,
     centreOfPressurePlate: hasCop ? { u: cu, v: cv } : null,
+    centreOfPressureAboveLowestM: hasCop ? fr.k * (cv - plate.vMin) : null,
     lineOfAction: hasCop
       ? { point: platePoint(fr, cu, cv), direction: F >= 0 ? { x: n[0], y: n[1], z: n[2] } : { x: n[0] * -1, y: n[1] * -1, z: n[2] * -1 } }
       : null,
@@ -896,11 +897,10 @@ function flatSummary(
   const { plate, it } = flat;
   const F = it.netForceN;
   const peak = peakOf(it);
-  const ratingInput = { forceN: F, resultantN: Math.abs(F), maxPressurePa: it.peakMaxPa, minPressurePa: it.peakMinPa, peak: { pressurePa: peak } };
-  // As flatNet (and before the checks, so the warnings come in the same order): when the two sides
-  // nearly cancel the load is a couple, with no point of action.
+  // As flatNet (and in its order, before the checks' warnings): when the two sides nearly cancel the load is a couple, with no point of action.
   const cancels = nearlyCancels(F, it.sideForceA, it.sideForceB);
   if (cancels) warnCancels(b, F, Math.hypot(it.netMomentU - F * it.centroidU, it.netMomentV - F * it.centroidV), warn);
+  const ratingInput = { forceN: F, resultantN: Math.abs(F), maxPressurePa: it.peakMaxPa, minPressurePa: it.peakMinPa, peak: { pressurePa: peak } };
   const { stiffeners, plating, shores, capacity, maxU } = flatChecks(b, plate, it, net, ratingInput, warn);
   const fr = plate.frame, n = fr.n, o = fr.origin, U = fr.u, W = fr.v;
   const hasCop = F !== 0 && !cancels;
@@ -1064,6 +1064,8 @@ function facetedBoundary(
     warn('facets-closed', 'info', b.id, `${b.name}: the facets' normals cancel (a closed surface?); the net force is given along its own direction`);
   }
   const cancels = nearlyCancels(Fm, side.fa, side.fb);
+  let lowest = Infinity;
+  for (const pts of facets) for (const q of pts) lowest = Math.min(lowest, dot(q, up));
   let point: V3 | null = null;
   let residual = 0;
   if (Fm > 0 && !cancels) {
@@ -1081,6 +1083,7 @@ function facetedBoundary(
     ...earthSplit(F, up),
     centreOfPressure: point ? toPoint(point) : null,
     centreOfPressurePlate: null,
+    centreOfPressureAboveLowestM: point ? dot(point, up) - lowest : null,
     lineOfAction: point ? { point: toPoint(point), direction: toPoint(unit(F)) } : null,
     residualMomentNm: residual,
     positive: { forceN: norm(Fp), areaM2: Ap, centreOfPressure: null },

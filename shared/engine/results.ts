@@ -158,6 +158,8 @@ export interface NetResult {
   /** Point of action (for faceted surfaces: point of the line of action closest to the surface centroid). */
   centreOfPressure: Point | null;
   centreOfPressurePlate: { u: number; v: number } | null;
+  /** Height (earth-vertical) of the centre of pressure above the plate's lowest point, m. */
+  centreOfPressureAboveLowestM: number | null;
   lineOfAction: { point: Point; direction: Point } | null;
   /** Faceted surfaces only: couple left about the line of action (a wrench), N·m. */
   residualMomentNm: number;
@@ -195,6 +197,8 @@ export interface StiffenerResult {
   note: string | null;
   /** Load the plate's edges take directly (outer strips, less what shores between stiffeners pass to an edge), N. */
   edgeLoadN: number | null;
+  /** The plate edge offsets are measured from, in words ("starboard edge", "lower edge", …). */
+  offsetFromEdge: string;
   /** More than the largest number of stiffeners built; the rest are not checked. */
   truncated: boolean;
   /** What the model assumes, in words. */

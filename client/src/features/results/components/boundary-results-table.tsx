@@ -14,11 +14,12 @@ import {
   useReactTable,
   type SortingState,
 } from '@tanstack/react-table';
-import type { BoundarySummary, SurveyLevelResults } from '@shared/engine/results';
+import type { BoundarySummary, SurveyLevelResults } from '@shared/engine';
 import type { UnitSystem } from '@shared/units/units';
 import { num, unitLabel } from '@client/lib/unit-system';
 import { UtilisationBadge } from './utilisation';
-import { fmtPoint, sideName } from './side-name';
+import { pointWords } from '@shared/units/point-words';
+import { sideName } from './side-name';
 
 const col = createColumnHelper<BoundarySummary>();
 
@@ -56,7 +57,7 @@ export function BoundaryResultsTable({
       }),
       col.accessor((b) => b.forceN, {
         id: 'force',
-        header: `Net force (${unitLabel('force', system)})`,
+        header: `Net force, + towards side B (${unitLabel('force', system)})`,
         cell: (c) => <span data-testid={`net-force-${c.row.original.id}`}>{num(c.getValue(), 'force', system)}</span>,
       }),
       col.accessor((b) => b.peakPressurePa, {
@@ -66,16 +67,24 @@ export function BoundaryResultsTable({
       }),
       col.accessor((b) => b.copZ, {
         id: 'cop',
-        header: `Centre of pressure (${unitLabel('length', system)})`,
+        header: 'Centre of pressure',
         sortUndefined: 'last',
         cell: (c) => (
-          <span className="text-sm">{fmtPoint(copOf(c.row.original), (v) => num(v, 'length', system, 3))}</span>
+          <span className="text-sm">{pointWords(copOf(c.row.original), system)}</span>
         ),
       }),
       col.accessor((b) => b.maxUtilisation ?? -1, {
         id: 'utilisation',
         header: 'Utilisation',
-        cell: (c) => <UtilisationBadge value={c.row.original.maxUtilisation} compact />,
+        cell: (c) => {
+          const gov = governingWords(c.row.original);
+          return (
+            <span>
+              <UtilisationBadge value={c.row.original.maxUtilisation} compact />
+              {gov && <span className="block text-xs text-ink-soft">{gov.what}</span>}
+            </span>
+          );
+        },
       }),
     ],
     [results, system],
@@ -146,3 +155,16 @@ export function BoundaryResultsTable({
 }
 
 const copOf = (b: BoundarySummary) => (b.copX === null || b.copY === null || b.copZ === null ? null : { x: b.copX, y: b.copY, z: b.copZ });
+
+/** Which check sets the row's utilisation, in words (the detail view names the stiffener, panel or shore). */
+function governingWords(b: BoundarySummary): { what: string } | null {
+  const cands: [number | null, string][] = [
+    [b.capacityUtilisation, 'its rating'],
+    [b.stiffenerUtilisation, 'a stiffener in bending'],
+    [b.platingUtilisation, 'plating in bending'],
+    [b.shoreUtilisation, 'a shore'],
+  ];
+  let best: { u: number; what: string } | null = null;
+  for (const [u, what] of cands) if (u !== null && Number.isFinite(u) && (best === null || u > best.u)) best = { u, what };
+  return best && { what: best.what };
+}

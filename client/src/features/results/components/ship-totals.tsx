@@ -1,8 +1,8 @@
 /** The whole ship at a glance: heel, trim, flood water, oil, their centroid, the worst utilisation. */
-import type { BoundarySummary, SurveyLevelResults } from '@shared/engine/results';
+import type { BoundarySummary, SurveyLevelResults } from '@shared/engine';
 import type { UnitSystem } from '@shared/units/units';
 import { fmt, num, unitLabel } from '@client/lib/unit-system';
-import { fmtPoint } from './side-name';
+import { pointWords } from '@shared/units/point-words';
 import { UtilisationBadge } from './utilisation';
 
 function Tile({ label, value, sub, testId }: { label: string; value: string; sub?: string; testId?: string }) {
@@ -44,7 +44,7 @@ export function ShipTotals({ results, rows, system }: { results: SurveyLevelResu
         <Tile
           label={`All liquid centroid (${unitLabel('length', system)})`}
           value={ship.allLiquids.centroid ? `x ${L(ship.allLiquids.centroid.x)}` : '—'}
-          sub={fmtPoint(ship.allLiquids.centroid, L)}
+          sub={pointWords(ship.allLiquids.centroid, system)}
         />
         <Tile label="Sea density" value={fmt(frame.seaDensityKgM3, 'density', system)} />
         <div className="col-span-2 rounded-lg border border-line bg-card p-2">

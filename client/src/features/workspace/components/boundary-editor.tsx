@@ -14,6 +14,7 @@ import { boundaryResolver, boundaryToForm, sideOptions, type BoundaryForm } from
 import { newId } from '../utils/new-entities';
 import { withMark, type FigureMark } from '@shared/schemas/marks';
 import { MarkChip } from './mark-chip';
+import { facetOrientation, reverseFacets } from '@shared/engine';
 
 /** The chip under one of the plate's figures, kept in the form's `marks` value. */
 function PlateMark({ form, field, filled = true }: { form: UseFormReturn<BoundaryForm, unknown, Boundary>; field: string; filled?: boolean }) {
@@ -77,7 +78,10 @@ export function BoundaryEditor({ boundary, survey, apply, system }: { boundary: 
         <SelectInput register={register} name="sideB" label="Side B space" errors={{}} options={sides} hint="positive net force pushes towards side B" />
       </div>
       {custom ? (
-        <p className="rounded-md border border-line bg-paper p-2 text-sm">This plate has an imported shape not on a ship-axis plane; it is kept as it is. Edit it in the survey file and import it again.</p>
+        <>
+          <p className="rounded-md border border-line bg-paper p-2 text-sm">This plate has an imported shape not on a ship-axis plane; it is kept as it is. Edit it in the survey file and import it again.</p>
+          <FacetFix boundary={boundary} apply={apply} />
+        </>
       ) : (
         <fieldset className="space-y-3 rounded-md border border-line p-2">
           <legend className="px-1 font-bold">Shape</legend>
@@ -222,6 +226,29 @@ export function BoundaryEditor({ boundary, survey, apply, system }: { boundary: 
   );
 }
 
+/** Names the facets that run the other way round from their neighbours, and turns them over in one tap. */
+function FacetFix({ boundary, apply }: { boundary: Boundary; apply: Apply }) {
+  const g = boundary.geometry;
+  if (g.kind !== 'faceted') return null;
+  const { reversed } = facetOrientation(g.facets);
+  if (reversed.length === 0) return null;
+  return (
+    <div className="rounded-md border-2 border-danger p-2 text-sm" role="alert" data-testid="facet-fix">
+      <p className="font-bold text-danger">
+        <span aria-hidden="true">▲ </span>
+        Facet{reversed.length > 1 ? 's' : ''} {reversed.map((i) => i + 1).join(', ')} run{reversed.length > 1 ? '' : 's'} the other way round from the rest, so their load counts the wrong way.
+      </p>
+      <button
+        type="button"
+        className={secondaryBtn}
+        onClick={() => apply({ kind: 'upsert', collection: 'boundaries', entity: { ...boundary, geometry: { kind: 'faceted', facets: reverseFacets(g.facets, reversed) } } })}
+      >
+        Turn {reversed.length > 1 ? 'them' : 'it'} over
+      </button>
+    </div>
+  );
+}
+
 function ShoreFields({ form, system }: { form: UseFormReturn<BoundaryForm, unknown, Boundary>; system: UnitSystem }) {
   const { fields, append, remove } = useFieldArray({ control: form.control, name: 'shores', keyName: 'key' });
   const { register, formState, watch } = form;
@@ -304,6 +331,33 @@ function ShoreFields({ form, system }: { form: UseFormReturn<BoundaryForm, unkno
               ]}
             />
             <NumberInput register={register} name={`shores.${i}.angle`} label="Angle from square" unit="°" errors={{ shores: { [i]: { angle: err(i, 'angleFromNormalDeg') } } }} hint="empty: square to the plate" />
+            <SelectInput
+              register={register}
+              name={`shores.${i}.method`}
+              label="Checked as a column by"
+              errors={{}}
+              options={[
+                { value: '', label: 'No method given (Euler ÷ 2, flagged)' },
+                { value: 'aisc-360-e3', label: 'Steel: AISC 360 §E3, ASD (Ωc 1.67)' },
+                { value: 'nds-3.7.1', label: 'Sawn timber: NDS §3.7.1 (Cp, c 0.8)' },
+                { value: 'generic', label: 'Other: a design factor' },
+              ]}
+            />
+            {v.shores?.[i]?.method === 'aisc-360-e3' && (
+              <NumberInput register={register} name={`shores.${i}.fy`} label="Yield stress Fy" unit={su} errors={{ shores: { [i]: { fy: err(i, 'design.yieldStressPa') } } }} />
+            )}
+            {v.shores?.[i]?.method === 'nds-3.7.1' && (
+              <>
+                <NumberInput register={register} name={`shores.${i}.fc`} label="Fc* (Fc × factors but Cp)" unit={su} errors={{ shores: { [i]: { fc: err(i, 'design.adjustedCompressionPa') } } }} />
+                <NumberInput register={register} name={`shores.${i}.emin`} label="E′min" unit={su} errors={{ shores: { [i]: { emin: err(i, 'design.adjustedEMinPa') } } }} />
+              </>
+            )}
+            {v.shores?.[i]?.method === 'generic' && (
+              <>
+                <NumberInput register={register} name={`shores.${i}.fail`} label="Crushing stress" unit={su} errors={{ shores: { [i]: { fail: err(i, 'design.failureStressPa') } } }} />
+                <NumberInput register={register} name={`shores.${i}.factor`} label="Design factor" unit="" errors={{ shores: { [i]: { factor: err(i, 'design.designFactor') } } }} />
+              </>
+            )}
           </div>
         </div>
       ))}
@@ -314,12 +368,15 @@ function ShoreFields({ form, system }: { form: UseFormReturn<BoundaryForm, unkno
           const c = centre();
           const id = newId();
           form.setValue('marks', withMark(form.getValues('marks'), `shores.${id}.section`, 'assumed') ?? {});
-          append({ id, ...c, length: S(3), secKind: 'rectangular', w: S(0.2), d: S(0.2), e: stress(11e9), allow: stress(8e6), end: 'pinned-pinned', side: 'B', angle: '' });
+          append({
+            id, ...c, length: S(3), secKind: 'rectangular', w: S(0.2), d: S(0.2), e: stress(11e9), allow: stress(8e6), end: 'pinned-pinned', side: 'B', angle: '',
+            method: 'nds-3.7.1', fy: stress(235e6), fc: stress(6.3e6), emin: stress(3.6e9), fail: stress(16e6), factor: '2',
+          });
         }}
       >
         + Add shore
       </button>
-      {fields.length > 0 && <p className="text-xs text-ink-soft">New shores start with typical timber values (200 × 200 mm, E 11 GPa, 8 MPa allowable), marked assumed: enter those of the shore actually fitted, or confirm them.</p>}
+      {fields.length > 0 && <p className="text-xs text-ink-soft">New shores start with typical timber values (200 × 200 mm, E 11 GPa, 8 MPa allowable; NDS check with Fc* 6.3 MPa and E′min 3.6 GPa, wet Douglas fir-larch No. 1 posts), marked assumed: enter those of the shore actually fitted, or confirm them.</p>}
     </fieldset>
   );
 }
