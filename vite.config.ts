@@ -4,6 +4,7 @@ import { defineConfig } from 'vite';
 import react from '@vitejs/plugin-react';
 import tailwindcss from '@tailwindcss/vite';
 import { VitePWA } from 'vite-plugin-pwa';
+import { compression } from 'vite-plugin-compression2';
 
 const root = path.dirname(fileURLToPath(import.meta.url));
 
@@ -18,6 +19,9 @@ export default defineConfig({
   },
   plugins: [
     react(),
+    // brotli and gzip copies of every text asset, made once at build time; the server sends the one
+    // the browser accepts (express-static-gzip in server/app.ts)
+    compression({ algorithms: ['brotliCompress', 'gzip'], include: /\.(js|mjs|css|html|svg|json|webmanifest|txt)$/, threshold: 512 }),
     tailwindcss(),
     VitePWA({
       // A new version is offered to the user, never forced (client/src/offline/pwa.ts asks).

@@ -4,6 +4,8 @@
  */
 import express, { Router } from 'express';
 import cookieParser from 'cookie-parser';
+import compression from 'compression';
+import expressStaticGzip from 'express-static-gzip';
 import fs from 'node:fs';
 import path from 'node:path';
 import type { AppContext, AppDeps } from './context';
@@ -27,6 +29,9 @@ import { briefPageRoutes } from './routes/brief-page';
 import { photoRoutes } from './routes/photos';
 
 export type { AppDeps } from './context';
+
+/** API answers smaller than this go uncompressed. */
+export const API_COMPRESSION_THRESHOLD_BYTES = 1024;
 
 export interface BrinelineApp extends express.Express {
   locals: express.Express['locals'] & { routes: RegisteredRoute[] };
@@ -83,6 +88,9 @@ export function createApp(given: AppDeps): BrinelineApp {
     next();
   });
   api.use(jsonBody({ limit: '5mb' }));
+  // JSON answers above 1 KB go gzip- or brotli-compressed when the client accepts it (a survey read is
+  // tens of KB; an answer of a few bytes gains nothing from a compression header)
+  api.use(compression({ threshold: API_COMPRESSION_THRESHOLD_BYTES }));
   for (const group of routeGroups(services, deps)) defineRoutes(api, '/api', group, verify, app.locals.routes);
   api.use(apiNotFound);
   app.use('/api', api);
@@ -93,15 +101,23 @@ export function createApp(given: AppDeps): BrinelineApp {
 
   if (deps.clientDir && fs.existsSync(path.join(deps.clientDir, 'index.html'))) {
     const clientDir = deps.clientDir;
+    // brotli and gzip copies are made at build time (vite-plugin-compression2): the server only picks one
     app.use(
-      express.static(clientDir, {
+      expressStaticGzip(clientDir, {
+        enableBrotli: true,
+        orderPreference: ['br', 'gzip'],
         index: false,
-        setHeaders: (res, file) => {
-          if (file.endsWith('sw.js') || file.endsWith('index.html') || file.endsWith('.webmanifest')) {
-            res.setHeader('Cache-Control', 'no-cache');
-          } else if (file.includes(`${path.sep}assets${path.sep}`)) {
-            res.setHeader('Cache-Control', 'public, max-age=31536000, immutable');
-          }
+        serveStatic: {
+          index: false,
+          setHeaders: (res, served) => {
+            const file = served.replace(/\.(br|gz)$/, '');
+            if (file.endsWith('sw.js') || file.endsWith('index.html') || file.endsWith('.webmanifest')) {
+              res.setHeader('Cache-Control', 'no-cache');
+            } else if (file.includes(`${path.sep}assets${path.sep}`)) {
+              // hashed names: a changed file is a new name, so a year is safe
+              res.setHeader('Cache-Control', 'public, max-age=31536000, immutable');
+            }
+          },
         },
       }),
     );

@@ -369,7 +369,7 @@ function wallSidedHeel(gm: number, bm: number, a: number): number {
  * layers (oil on water) the interface counts with the difference of their densities; a surface
  * pressed up to the top of its space has no polygon and no free surface.
  */
-export function floodWeightsFromResults(survey: Survey, results: SurveyResults): FloodWeight[] {
+export function floodWeightsFromResults(survey: Survey, results: Omit<SurveyResults, 'boundaries'>): FloodWeight[] {
   const up: [number, number, number] = [results.frame.up.x, results.frame.up.y, results.frame.up.z];
   const compartments = new Map(survey.compartments.map((c) => [c.id, c]));
   const condition = survey.conditions.find((k) => k.id === results.conditionId);
@@ -401,7 +401,7 @@ export function floodWeightsFromResults(survey: Survey, results: SurveyResults):
 }
 
 /** The response of the ship to the contents of the computed condition (null without particulars). */
-export function shipResponseOf(survey: Survey, results: SurveyResults): ShipResponse | null {
+export function shipResponseOf(survey: Survey, results: Omit<SurveyResults, 'boundaries'>): ShipResponse | null {
   const condition = survey.conditions.find((c) => c.id === results.conditionId);
   return condition ? responseFromWeights(survey, condition, floodWeightsFromResults(survey, results)) : null;
 }

@@ -187,7 +187,10 @@ async function start(): Promise<void> {
     publish({ status: 'signed-out', user: null });
     return;
   }
-  await refreshSession();
+  // Nobody has signed in on this device (no remembered profile, which every sign-in leaves): there is
+  // no refresh cookie to trade, so ask nothing that could only answer 401.
+  if (session.user) await refreshSession();
+  else publish({ status: 'signed-out', user: null });
   window.addEventListener('online', () => {
     if (session.status === 'offline') void refreshSession();
   });

@@ -9,15 +9,18 @@ import { useEffect, useLayoutEffect, useMemo, useRef, useState } from 'react';
 import { Canvas, useThree, type ThreeEvent } from '@react-three/fiber';
 import { OrbitControls } from '@react-three/drei';
 import * as THREE from 'three';
+import type { BoundarySummary, SurveyLevelResults } from '@shared/engine';
 import type { Survey } from '@shared/schemas/survey';
 import type { UnitSystem } from '@shared/units/units';
-import { boundaryPolygons, compartmentSolid, liquidBody, type SurveyResults, type V3 } from '@shared/engine';
+import { boundaryPolygons, compartmentSolid, liquidBody, type V3 } from '@shared/engine';
 import { fmt } from '@client/lib/unit-system';
 import { pressureRgb, rgbCss } from './pressure-colour';
 
 export interface SurveySceneProps {
   survey: Survey;
-  results: SurveyResults;
+  results: SurveyLevelResults;
+  /** Boundary summary rows (computeSurveySummary): colours and arrows. */
+  rows: readonly BoundarySummary[];
   system: UnitSystem;
   selectedId: string | null;
   onSelect: (id: string) => void;
@@ -25,7 +28,7 @@ export interface SurveySceneProps {
 
 type View = 'three-quarter' | 'profile' | 'plan' | 'section';
 const VIEWS: { id: View; label: string }[] = [
-  { id: 'three-quarter', label: '3/4' },
+  { id: 'three-quarter', label: 'Oblique' },
   { id: 'profile', label: 'Profile' },
   { id: 'plan', label: 'Plan' },
   { id: 'section', label: 'Section' },
@@ -75,55 +78,78 @@ interface Drawn {
   waterline: { point: THREE.Vector3; normal: THREE.Vector3 };
 }
 
-function useDrawn(survey: Survey, results: SurveyResults): Drawn {
-  const drawn = useMemo<Drawn>(() => {
-    const up: V3 = [results.frame.up.x, results.frame.up.y, results.frame.up.z];
-    const byId = new Map(survey.compartments.map((c) => [c.id, c]));
-    const compartments = results.compartments.flatMap((cr) => {
-      const c = byId.get(cr.id);
-      if (!c) return [];
+/**
+ * What the scene draws. Geometry is built once per survey shape (the compartments' and plates'
+ * arrays, which an edit of contents or readings leaves as they are) and kept across edits; the
+ * liquids follow the results, and the plates' colours and arrows follow the summary rows, applied
+ * to the kept meshes' materials in place.
+ */
+function useDrawn(survey: Survey, results: SurveyLevelResults, rows: readonly BoundarySummary[]): Drawn {
+  const { compartments: comps, boundaries: plates, vessel } = survey;
+  const solids = useMemo(() => {
+    const list = comps.map((c) => {
       const solid = polygonsGeometry(compartmentSolid(c.geometry));
-      let below = -Infinity;
-      const layers = cr.layers.map((l) => {
-        const top = l.levelElevationM;
-        const geometry = polygonsGeometry(top > below ? liquidBody(c.geometry, up, below, top) : []);
-        below = Math.max(below, top);
-        return { id: l.layerId, geometry, colour: LAYER_COLOUR[l.category] };
-      });
-      return [{ id: c.id, solid, edges: new THREE.EdgesGeometry(solid, 20), layers }];
-    });
-    const mean = (b: SurveyResults['boundaries'][number]) => (b.areaM2 > 0 && b.geometryKind !== 'faceted' ? b.net.forceN / b.areaM2 : 0);
-    const maxPressurePa = Math.max(1, ...results.boundaries.map((b) => Math.abs(mean(b))));
-    const byBoundary = new Map(survey.boundaries.map((b) => [b.id, b]));
-    const boundaries = results.boundaries.flatMap((br) => {
-      const b = byBoundary.get(br.id);
-      if (!b) return [];
-      const p = mean(br);
-      return [{ id: br.id, geometry: polygonsGeometry(boundaryPolygons(b.geometry)), colour: new THREE.Color(...pressureRgb(p / maxPressurePa)), pressurePa: p }];
+      return { id: c.id, solid, edges: new THREE.EdgesGeometry(solid, 20) };
     });
     // frame the spaces modelled (not the whole hull, which may be mostly empty of compartments)
     const box = new THREE.Box3();
-    for (const c of compartments) {
+    for (const c of list) {
       c.solid.computeBoundingBox();
       if (c.solid.boundingBox) box.union(c.solid.boundingBox);
     }
-    const v = survey.vessel;
-    if (box.isEmpty()) box.setFromPoints([toThree({ x: 0, y: -v.breadthM / 2, z: 0 }), toThree({ x: v.lbpM, y: v.breadthM / 2, z: v.depthM })]);
+    if (box.isEmpty()) box.setFromPoints([toThree({ x: 0, y: -vessel.breadthM / 2, z: 0 }), toThree({ x: vessel.lbpM, y: vessel.breadthM / 2, z: vessel.depthM })]);
     const centre = box.getCenter(new THREE.Vector3());
     const radius = Math.max(box.getSize(new THREE.Vector3()).length() / 2, 1);
-    const L = radius * 2;
-    const maxF = Math.max(1, ...results.boundaries.map((b) => b.net.resultantN));
-    const arrows = results.boundaries.flatMap((br) => {
-      const cop = br.net.centreOfPressure;
-      const f = br.net.forceVector;
-      if (!cop || br.net.resultantN <= 0) return [];
-      const dir = toThree(f).normalize();
-      return [{ id: br.id, origin: toThree(cop), dir, length: L * (0.03 + 0.09 * (br.net.resultantN / maxF)) }];
+    return { list, centre, radius };
+  }, [comps, vessel]);
+  const plateGeometry = useMemo(() => new Map(plates.map((b) => [b.id, polygonsGeometry(boundaryPolygons(b.geometry))])), [plates]);
+  const liquids = useMemo(() => {
+    const up: V3 = [results.frame.up.x, results.frame.up.y, results.frame.up.z];
+    const byId = new Map(comps.map((c) => [c.id, c]));
+    return new Map(
+      results.compartments.map((cr) => {
+        const c = byId.get(cr.id);
+        let below = -Infinity;
+        const layers = c
+          ? cr.layers.map((l) => {
+              const top = l.levelElevationM;
+              const geometry = polygonsGeometry(top > below ? liquidBody(c.geometry, up, below, top) : []);
+              below = Math.max(below, top);
+              return { id: l.layerId, geometry, colour: LAYER_COLOUR[l.category] };
+            })
+          : [];
+        return [cr.id, layers] as const;
+      }),
+    );
+  }, [comps, results]);
+  useEffect(() => () => solids.list.forEach((c) => (c.solid.dispose(), c.edges.dispose())), [solids]);
+  useEffect(() => () => plateGeometry.forEach((g) => g.dispose()), [plateGeometry]);
+  useEffect(() => () => liquids.forEach((ls) => ls.forEach((l) => l.geometry.dispose())), [liquids]);
+  return useMemo<Drawn>(() => {
+    const { centre, radius } = solids;
+    const mean = (b: BoundarySummary) => (b.areaM2 > 0 && b.geometryKind !== 'faceted' ? b.forceN / b.areaM2 : 0);
+    let maxPressurePa = 1, maxF = 1;
+    for (const b of rows) {
+      maxPressurePa = Math.max(maxPressurePa, Math.abs(mean(b)));
+      maxF = Math.max(maxF, b.resultantN);
+    }
+    const boundaries = rows.flatMap((br) => {
+      const geometry = plateGeometry.get(br.id);
+      if (!geometry) return [];
+      const p = mean(br);
+      return [{ id: br.id, geometry, colour: new THREE.Color(...pressureRgb(p / maxPressurePa)), pressurePa: p }];
     });
-    const shores = survey.boundaries.flatMap((b) => {
-      const br = results.boundaries.find((x) => x.id === b.id);
-      if (!br?.normal || !b.shores) return [];
-      const n = toThree(br.normal).normalize();
+    const L = radius * 2;
+    const arrows = rows.flatMap((br) => {
+      if (br.copX === null || br.copY === null || br.copZ === null || br.resultantN <= 0) return [];
+      const dir = toThree({ x: br.forceX, y: br.forceY, z: br.forceZ }).normalize();
+      return [{ id: br.id, origin: toThree({ x: br.copX, y: br.copY, z: br.copZ }), dir, length: L * (0.03 + 0.09 * (br.resultantN / maxF)) }];
+    });
+    const byRow = new Map(rows.map((r) => [r.id, r]));
+    const shores = plates.flatMap((b) => {
+      const br = byRow.get(b.id);
+      if (!br || br.normalX === null || br.normalY === null || br.normalZ === null || !b.shores) return [];
+      const n = toThree({ x: br.normalX, y: br.normalY, z: br.normalZ }).normalize();
       return b.shores.map((s) => {
         const from = toThree(s.position);
         const dir = s.side === 'B' ? n : n.clone().negate();
@@ -132,7 +158,7 @@ function useDrawn(survey: Survey, results: SurveyResults): Drawn {
       });
     });
     return {
-      compartments,
+      compartments: solids.list.map((c) => ({ ...c, layers: liquids.get(c.id) ?? [] })),
       boundaries,
       arrows,
       shores,
@@ -141,19 +167,7 @@ function useDrawn(survey: Survey, results: SurveyResults): Drawn {
       radius,
       waterline: { point: toThree(results.frame.waterlinePoint), normal: toThree(results.frame.up).normalize() },
     };
-  }, [survey, results]);
-  useEffect(
-    () => () => {
-      for (const c of drawn.compartments) {
-        c.solid.dispose();
-        c.edges.dispose();
-        c.layers.forEach((l) => l.geometry.dispose());
-      }
-      drawn.boundaries.forEach((b) => b.geometry.dispose());
-    },
-    [drawn],
-  );
-  return drawn;
+  }, [solids, plateGeometry, liquids, rows, plates, results]);
 }
 
 function CameraRig({ view, centre, radius }: { view: View; centre: THREE.Vector3; radius: number }) {
@@ -292,8 +306,8 @@ function Legend({ maxPressurePa, system }: { maxPressurePa: number; system: Unit
   );
 }
 
-export default function SurveyScene({ survey, results, system, selectedId, onSelect }: SurveySceneProps) {
-  const drawn = useDrawn(survey, results);
+export default function SurveyScene({ survey, results, rows, system, selectedId, onSelect }: SurveySceneProps) {
+  const drawn = useDrawn(survey, results, rows);
   const [view, setView] = useState<View>('three-quarter');
   return (
     <div className="space-y-2">

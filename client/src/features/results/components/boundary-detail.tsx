@@ -1,5 +1,5 @@
 /** Everything computed for one boundary: each side, the net load, its diagram, stiffeners, shores, capacity. */
-import type { BoundaryResult, SurveyResults } from '@shared/engine';
+import type { BoundaryResult, SurveyLevelResults } from '@shared/engine';
 import type { UnitSystem } from '@shared/units/units';
 import { fmt, num, percent, unitLabel } from '@client/lib/unit-system';
 import { LoadDiagramChart } from './load-diagram-chart';
@@ -19,7 +19,7 @@ function Row({ label, value, testId }: { label: string; value: string; testId?: 
   );
 }
 
-export function BoundaryDetail({ boundary: b, results, system }: { boundary: BoundaryResult; results: SurveyResults; system: UnitSystem }) {
+export function BoundaryDetail({ boundary: b, results, system }: { boundary: BoundaryResult; results: SurveyLevelResults; system: UnitSystem }) {
   const warnings = results.warnings.filter((w) => w.entityId === b.id || b.shores.some((s) => s.id === w.entityId));
   return (
     <section aria-label={`Loads on ${b.name}`} className="space-y-4" data-testid="boundary-detail">

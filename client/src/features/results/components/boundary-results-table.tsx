@@ -1,6 +1,11 @@
-/** Sortable table of every boundary's load; tap a row to open its detail. */
+/**
+ * Sortable table of every boundary's load; tap a row to open its detail. Reads summary rows
+ * (computeSurveySummary's BoundaryTable as rows), and beyond a screenful renders only the rows in
+ * view (TanStack Virtual), so a ship of thousands of boundaries stays a few hundred elements.
+ */
 import { SortableHeaderRows } from '@client/components/ui/sortable-header';
-import { useMemo, useState } from 'react';
+import { useMemo, useRef, useState } from 'react';
+import { useVirtualizer } from '@tanstack/react-virtual';
 import {
   createColumnHelper,
   flexRender,
@@ -9,23 +14,29 @@ import {
   useReactTable,
   type SortingState,
 } from '@tanstack/react-table';
-import type { BoundaryResult, SurveyResults } from '@shared/engine';
+import type { BoundarySummary, SurveyLevelResults } from '@shared/engine';
 import type { UnitSystem } from '@shared/units/units';
-import { fmt, num, unitLabel } from '@client/lib/unit-system';
+import { num, unitLabel } from '@client/lib/unit-system';
 import { UtilisationBadge } from './utilisation';
 import { pointWords } from '@shared/units/point-words';
-import { governingCheck } from '@shared/engine';
 import { sideName } from './side-name';
 
-const col = createColumnHelper<BoundaryResult>();
+const col = createColumnHelper<BoundarySummary>();
+
+/** Above this many rows the table scrolls in its own box and renders only what is in view. */
+const VIRTUAL_FROM = 60;
+const ROW_ESTIMATE_PX = 56;
 
 export function BoundaryResultsTable({
   results,
+  rows,
   system,
   selectedId,
   onSelect,
 }: {
-  results: SurveyResults;
+  /** For the names of the spaces on each side. */
+  results: SurveyLevelResults;
+  rows: readonly BoundarySummary[];
   system: UnitSystem;
   selectedId?: string | null;
   onSelect?: (id: string) => void;
@@ -44,31 +55,29 @@ export function BoundaryResultsTable({
           </span>
         ),
       }),
-      col.accessor((b) => b.net.forceN, {
+      col.accessor((b) => b.forceN, {
         id: 'force',
         header: `Net force, + towards side B (${unitLabel('force', system)})`,
         cell: (c) => <span data-testid={`net-force-${c.row.original.id}`}>{num(c.getValue(), 'force', system)}</span>,
       }),
-      col.accessor((b) => b.net.peak.pressurePa, {
+      col.accessor((b) => b.peakPressurePa, {
         id: 'peak',
         header: `Peak pressure (${unitLabel('pressure', system)})`,
         cell: (c) => num(c.getValue(), 'pressure', system),
       }),
-      col.accessor((b) => b.net.centreOfPressure?.z ?? null, {
+      col.accessor((b) => b.copZ, {
         id: 'cop',
         header: 'Centre of pressure',
         sortUndefined: 'last',
         cell: (c) => (
-          <span className="text-sm">
-            {c.row.original.net.nearlyCancels ? `sides nearly cancel: couple ${fmt(c.row.original.net.coupleNm, 'moment', system)}` : pointWords(c.row.original.net.centreOfPressure, system)}
-          </span>
+          <span className="text-sm">{pointWords(copOf(c.row.original), system)}</span>
         ),
       }),
       col.accessor((b) => b.maxUtilisation ?? -1, {
         id: 'utilisation',
         header: 'Utilisation',
         cell: (c) => {
-          const gov = governingCheck(c.row.original);
+          const gov = governingWords(c.row.original);
           return (
             <span>
               <UtilisationBadge value={c.row.original.maxUtilisation} compact />
@@ -81,7 +90,7 @@ export function BoundaryResultsTable({
     [results, system],
   );
   const table = useReactTable({
-    data: results.boundaries,
+    data: rows as BoundarySummary[],
     columns,
     state: { sorting },
     onSortingChange: setSorting,
@@ -89,18 +98,34 @@ export function BoundaryResultsTable({
     getSortedRowModel: getSortedRowModel(),
   });
 
-  if (results.boundaries.length === 0) {
+  const all = table.getRowModel().rows;
+  const virtual = all.length > VIRTUAL_FROM;
+  const scroller = useRef<HTMLDivElement>(null);
+  const v = useVirtualizer({ count: virtual ? all.length : 0, getScrollElement: () => scroller.current, estimateSize: () => ROW_ESTIMATE_PX, overscan: 8 });
+  const items = virtual ? v.getVirtualItems() : [];
+  const shown = virtual ? items.map((i) => all[i.index]) : all;
+  const padTop = virtual && items.length > 0 ? items[0].start : 0;
+  const padBottom = virtual && items.length > 0 ? v.getTotalSize() - items[items.length - 1].end : 0;
+
+  if (rows.length === 0) {
     return <p className="text-ink-soft">No boundaries yet. Add one under Plates to see its load.</p>;
   }
 
   return (
-    <div className="overflow-x-auto rounded-lg border border-line bg-card" tabIndex={0} role="region" aria-label="Loads on each plate (scrolls sideways)">
+    <div
+      ref={scroller}
+      className={`overflow-x-auto rounded-lg border border-line bg-card ${virtual ? 'max-h-[70vh] overflow-y-auto' : ''}`}
+      tabIndex={0}
+      role="region"
+      aria-label={virtual ? `Loads on ${rows.length} plates (scrolls)` : 'Loads on each plate (scrolls sideways)'}
+    >
       <table className="w-full min-w-[36rem] border-collapse text-left" data-testid="boundary-results">
         <thead className="bg-sea-soft">
           <SortableHeaderRows table={table} />
         </thead>
         <tbody>
-          {table.getRowModel().rows.map((row) => {
+          {padTop > 0 && <tr aria-hidden="true" style={{ height: padTop }} />}
+          {shown.map((row) => {
             const over = (row.original.maxUtilisation ?? 0) > 1;
             return (
               <tr
@@ -123,8 +148,24 @@ export function BoundaryResultsTable({
               </tr>
             );
           })}
+          {padBottom > 0 && <tr aria-hidden="true" style={{ height: padBottom }} />}
         </tbody>
       </table>
     </div>
   );
+}
+
+const copOf = (b: BoundarySummary) => (b.copX === null || b.copY === null || b.copZ === null ? null : { x: b.copX, y: b.copY, z: b.copZ });
+
+/** Which check sets the row's utilisation, in words (the detail view names the stiffener, panel or shore). */
+function governingWords(b: BoundarySummary): { what: string } | null {
+  const cands: [number | null, string][] = [
+    [b.capacityUtilisation, 'its rating'],
+    [b.stiffenerUtilisation, 'a stiffener in bending'],
+    [b.platingUtilisation, 'plating in bending'],
+    [b.shoreUtilisation, 'a shore'],
+  ];
+  let best: { u: number; what: string } | null = null;
+  for (const [u, what] of cands) if (u !== null && Number.isFinite(u) && (best === null || u > best.u)) best = { u, what };
+  return best && { what: best.what };
 }

@@ -1,10 +1,10 @@
 /** Liquid in every compartment: each layer's volume (permeability applied), mass and level. */
-import type { SurveyResults } from '@shared/engine';
+import type { SurveyLevelResults } from '@shared/engine';
 import type { UnitSystem } from '@shared/units/units';
 import { pointWords } from '@shared/units/point-words';
 import { num, percent, unitLabel } from '@client/lib/unit-system';
 
-export function CompartmentTable({ results, system, onSelect }: { results: SurveyResults; system: UnitSystem; onSelect?: (id: string) => void }) {
+export function CompartmentTable({ results, system, onSelect }: { results: SurveyLevelResults; system: UnitSystem; onSelect?: (id: string) => void }) {
   if (results.compartments.length === 0) return <p className="text-ink-soft">No compartments yet.</p>;
   return (
     <div className="overflow-x-auto rounded-lg border border-line bg-card" tabIndex={0} role="region" aria-label="Spaces and contents (scrolls sideways)">
@@ -28,7 +28,7 @@ export function CompartmentTable({ results, system, onSelect }: { results: Surve
   );
 }
 
-function CompartmentRows({ c, system, onSelect }: { c: SurveyResults['compartments'][number]; system: UnitSystem; onSelect?: (id: string) => void }) {
+function CompartmentRows({ c, system, onSelect }: { c: SurveyLevelResults['compartments'][number]; system: UnitSystem; onSelect?: (id: string) => void }) {
   return (
     <>
       <tr className="border-t-2 border-line font-bold">

@@ -28,7 +28,7 @@ export interface ShipResponseView {
 }
 
 /** The response of the survey's computed condition and of its intact ship (null without particulars). */
-export function useShipResponse(survey: Survey, results: SurveyResults | null): ShipResponseView {
+export function useShipResponse(survey: Survey, results: Omit<SurveyResults, 'boundaries'> | null): ShipResponseView {
   return useMemo(() => {
     const condition = results ? survey.conditions.find((c) => c.id === results.conditionId) : undefined;
     if (!results || !condition) return { response: null, intact: null };
@@ -36,7 +36,7 @@ export function useShipResponse(survey: Survey, results: SurveyResults | null): 
   }, [survey, results]);
 }
 
-export function ShipResponsePanel({ survey, results, system }: { survey: Survey; results: SurveyResults | null; system: UnitSystem }) {
+export function ShipResponsePanel({ survey, results, system }: { survey: Survey; results: Omit<SurveyResults, 'boundaries'> | null; system: UnitSystem }) {
   const { response, intact } = useShipResponse(survey, results);
   const condition = results ? survey.conditions.find((c) => c.id === results.conditionId) : undefined;
   if (!results || !condition) return null;
@@ -209,7 +209,7 @@ export function AttitudeSketch({ survey, attitude, measured }: { survey: Survey;
 }
 
 /** Which attitude the loads use (the readings') beside the one the model predicts. */
-export function AttitudeInUse({ survey, results, system }: { survey: Survey; results: SurveyResults; system: UnitSystem }) {
+export function AttitudeInUse({ survey, results, system }: { survey: Survey; results: Omit<SurveyResults, 'boundaries'>; system: UnitSystem }) {
   const { response } = useShipResponse(survey, results);
   const f = results.frame;
   const trim = (m: number) => `${fmt(Math.abs(m), 'length', system, 2)} ${m > 0.005 ? 'by the stern' : m < -0.005 ? 'by the head' : ''}`.trim();

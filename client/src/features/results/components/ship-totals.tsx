@@ -1,5 +1,5 @@
 /** The whole ship at a glance: heel, trim, flood water, oil, their centroid, the worst utilisation. */
-import type { SurveyResults } from '@shared/engine';
+import type { BoundarySummary, SurveyLevelResults } from '@shared/engine';
 import type { UnitSystem } from '@shared/units/units';
 import { fmt, num, unitLabel } from '@client/lib/unit-system';
 import { pointWords } from '@shared/units/point-words';
@@ -17,9 +17,9 @@ function Tile({ label, value, sub, testId }: { label: string; value: string; sub
   );
 }
 
-export function ShipTotals({ results, system }: { results: SurveyResults; system: UnitSystem }) {
+export function ShipTotals({ results, rows, system }: { results: SurveyLevelResults; rows: readonly BoundarySummary[]; system: UnitSystem }) {
   const { frame, ship, summary } = results;
-  const worst = results.boundaries.find((b) => b.id === summary.maxUtilisationBoundaryId);
+  const worst = rows.find((b) => b.id === summary.maxUtilisationBoundaryId);
   const L = (v: number) => num(v, 'length', system, 3);
   // heel and trim are only real once the drafts and the heel are read
   const unread = (frame.missingReadings ?? []).length > 0;
@@ -29,7 +29,7 @@ export function ShipTotals({ results, system }: { results: SurveyResults; system
         <p className="flex items-center gap-2 rounded-lg border-2 border-danger bg-danger p-2 font-bold text-paper" role="alert" data-testid="over-capacity-alert">
           <span aria-hidden="true" className="text-xl">▲</span>
           {summary.overCapacityBoundaryIds.length === 1 ? '1 boundary is' : `${summary.overCapacityBoundaryIds.length} boundaries are`} OVER CAPACITY:{' '}
-          {summary.overCapacityBoundaryIds.map((id) => results.boundaries.find((b) => b.id === id)?.name ?? id).join(', ')}
+          {namesOf(rows, summary.overCapacityBoundaryIds)}
         </p>
       )}
       <div className="grid grid-cols-2 gap-2 sm:grid-cols-4">
@@ -59,7 +59,7 @@ export function ShipTotals({ results, system }: { results: SurveyResults; system
   );
 }
 
-export function EngineWarnings({ results }: { results: SurveyResults }) {
+export function EngineWarnings({ results }: { results: SurveyLevelResults }) {
   if (results.warnings.length === 0) return null;
   return (
     <details className="rounded-lg border border-caution bg-caution-soft p-2 text-sm" open={results.warnings.some((w) => w.severity === 'danger')}>
@@ -74,4 +74,9 @@ export function EngineWarnings({ results }: { results: SurveyResults }) {
       </ul>
     </details>
   );
+}
+
+function namesOf(rows: readonly BoundarySummary[], ids: readonly string[]): string {
+  const byId = new Map(rows.map((r) => [r.id, r.name]));
+  return ids.map((id) => byId.get(id) ?? id).join(', ');
 }

@@ -5,7 +5,8 @@
  */
 import { useMemo, useState } from 'react';
 import { Link } from 'react-router';
-import { computeSurvey, type SurveyResults } from '@shared/engine';
+import { computeBoundaryDetail, computeSurvey, summariseBoundary } from '@shared/engine';
+import type { SurveyResults } from '@shared/engine';
 import { UpgradingSurveySchema, type Survey } from '@shared/schemas/survey';
 import { compareResults } from '@shared/review/compare';
 import { REVIEWABLE_STATUSES } from '@shared/review/status';
@@ -77,7 +78,12 @@ export function ReviewDesk({ surveyId }: { surveyId: string }) {
   const shown = server ?? device.results;
   const editable = r.viewer.role === 'engineer' && REVIEWABLE_STATUSES.includes(r.status);
   const isSubmitter = r.submittedById === r.viewer.userId;
-  const selectedBoundary = shown?.boundaries.find((b) => b.id === selected) ?? null;
+  // the detail of the boundary opened: the server's stored figures, with the load diagram this device computes on demand
+  const stored = shown?.boundaries.find((b) => b.id === selected) ?? null;
+  const diagram = stored && doc ? computeBoundaryDetail(doc, stored.id, { conditionId: shown?.conditionId })?.loadDiagram : undefined;
+  const selectedBoundary = stored ? { ...stored, loadDiagram: stored.loadDiagram.length > 0 ? stored.loadDiagram : (diagram ?? []) } : null;
+  const byId = new Map(doc.boundaries.map((b) => [b.id, b]));
+  const rows = shown ? shown.boundaries.flatMap((b) => { const sb = byId.get(b.id); return sb ? [summariseBoundary(b, sb)] : []; }) : [];
   const names = new Map<string, string>([...doc.compartments, ...doc.boundaries, ...doc.conditions.map((c) => ({ id: c.id, name: c.name ?? c.time }))].map((x) => [x.id, x.name]));
   const condition = doc.conditions.find((c) => c.id === doc.activeConditionId);
 
@@ -136,16 +142,16 @@ export function ReviewDesk({ surveyId }: { surveyId: string }) {
           </div>
           {tab === 'results' && shown && (
             <div className="space-y-4">
-              <ShipTotals results={shown} system={system} />
+              <ShipTotals results={shown} rows={rows} system={system} />
               {parsed?.success && <ShipResponsePanel survey={parsed.data} results={shown} system={system} />}
-              <BoundaryResultsTable results={shown} system={system} selectedId={selected} onSelect={setSelected} />
+              <BoundaryResultsTable results={shown} rows={rows} system={system} selectedId={selected} onSelect={setSelected} />
               {selectedBoundary && <BoundaryDetail boundary={selectedBoundary} results={shown} system={system} />}
               <CompartmentTable results={shown} system={system} />
               <Cautions compact />
             </div>
           )}
           {tab === 'results' && !shown && <p>No results to show.</p>}
-          {tab === 'model' && <ReviewModel3d survey={doc} results={shown} system={system} selectedId={selected} onSelect={setSelected} />}
+          {tab === 'model' && <ReviewModel3d survey={doc} results={shown} rows={rows} system={system} selectedId={selected} onSelect={setSelected} />}
           {tab === 'history' && <HistoryPanel surveyId={surveyId} names={names} system={system} />}
         </div>
         <div className="min-w-0 space-y-3">

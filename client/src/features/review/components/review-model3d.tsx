@@ -1,6 +1,6 @@
 /** The 3D model on the review desk: the shared scene, read-only here (tapping selects a boundary's results). */
 import { lazy, Suspense } from 'react';
-import type { SurveyResults } from '@shared/engine';
+import type { BoundarySummary, SurveyLevelResults } from '@shared/engine';
 import type { Survey } from '@shared/schemas/survey';
 import type { UnitSystem } from '@shared/units/units';
 import { ModelBoundary } from '@client/features/model3d/components/model-boundary';
@@ -10,12 +10,14 @@ const SurveyScene = lazy(() => import('@client/features/model3d/components/surve
 export function ReviewModel3d({
   survey,
   results,
+  rows,
   system,
   selectedId,
   onSelect,
 }: {
   survey: Survey;
-  results: SurveyResults | null;
+  results: SurveyLevelResults | null;
+  rows: readonly BoundarySummary[];
   system: UnitSystem;
   selectedId: string | null;
   onSelect: (id: string) => void;
@@ -24,7 +26,7 @@ export function ReviewModel3d({
     <ModelBoundary>
       <Suspense fallback={<p className="grid h-[50vh] place-items-center rounded-lg border border-line bg-card text-ink-soft">Loading the 3D model…</p>}>
         {results ? (
-          <SurveyScene survey={survey} results={results} system={system} selectedId={selectedId} onSelect={onSelect} />
+          <SurveyScene survey={survey} results={results} rows={rows} system={system} selectedId={selectedId} onSelect={onSelect} />
         ) : (
           <p className="text-ink-soft">No results to draw.</p>
         )}

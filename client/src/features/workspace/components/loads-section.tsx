@@ -8,24 +8,27 @@ import { AttitudeInUse } from '@client/features/results/components/ship-response
 import type { SectionProps } from '../utils/types';
 import { secondaryBtn } from '@client/components/ui/fields';
 import { useSearchParams } from 'react-router';
+import { useMemo } from 'react';
+import { computeBoundaryDetail } from '@shared/engine';
 import { WithheldNotice } from './withheld-notice';
 
-export function LoadsSection({ survey, results, system, selectedId, select }: SectionProps) {
+export function LoadsSection({ survey, results, rows, system, selectedId, select }: SectionProps) {
   const [, setParams] = useSearchParams();
+  // the one boundary opened is computed in full (sides, parts, stiffeners, diagram) when opened
+  const b = useMemo(() => (results && selectedId ? computeBoundaryDetail(survey, selectedId, { conditionId: results.conditionId }) : null), [survey, results, selectedId]);
   if (!results) return <p className="text-ink-soft">No loads yet.</p>;
-  const b = results.boundaries.find((x) => x.id === selectedId) ?? null;
   return (
     <section aria-labelledby="loads-h" className="space-y-5">
       <h2 id="loads-h" className="text-2xl">
         Loads
       </h2>
       <WithheldNotice results={results} />
-      <ShipTotals results={results} system={system} />
+      <ShipTotals results={results} rows={rows} system={system} />
       <AttitudeInUse survey={survey} results={results} system={system} />
       <EngineWarnings results={results} />
       <div className="space-y-2">
         <h3 className="text-xl">Plates</h3>
-        <BoundaryResultsTable results={results} system={system} selectedId={selectedId} onSelect={(id) => select(id === selectedId ? null : id)} />
+        <BoundaryResultsTable results={results} rows={rows} system={system} selectedId={selectedId} onSelect={(id) => select(id === selectedId ? null : id)} />
       </div>
       {b && (
         <div className="rounded-lg border-2 border-hull bg-card p-3">

@@ -18,10 +18,12 @@ const FACE_LABEL: Record<Face, string> = {
   top: 'Deck over',
 };
 
-export function PlatesSection({ survey, results, apply, system, selectedId, select }: SectionProps) {
+export function PlatesSection({ survey, rows, apply, system, selectedId, select }: SectionProps) {
   const [faceComp, setFaceComp] = useState<string>('');
   const [face, setFace] = useState<Face>('forward');
   const selected = survey.boundaries.find((b) => b.id === selectedId) ?? null;
+  // one look-up table per render, not a search per plate (a large ship has thousands)
+  const rowById = new Map(rows.map((r) => [r.id, r]));
   const compId = faceComp || survey.compartments[0]?.id || '';
 
   const create = async (b: Boundary) => {
@@ -101,7 +103,7 @@ export function PlatesSection({ survey, results, apply, system, selectedId, sele
       </button>
       <ul className="space-y-1" aria-label="Plates">
         {survey.boundaries.map((b) => {
-          const r = results?.boundaries.find((x) => x.id === b.id);
+          const r = rowById.get(b.id);
           return (
             <li key={b.id}>
               <button
@@ -112,7 +114,7 @@ export function PlatesSection({ survey, results, apply, system, selectedId, sele
               >
                 <span className="font-bold">{b.name}</span>
                 <span className="text-sm text-ink-soft">{KIND_LABEL[b.kind]}</span>
-                {r && <span className="ml-auto text-sm tabular-nums">{fmt(r.net.forceN, 'force', system)}</span>}
+                {r && <span className="ml-auto text-sm tabular-nums">{fmt(r.forceN, 'force', system)}</span>}
                 {r && <UtilisationBadge value={r.maxUtilisation} compact />}
               </button>
             </li>

@@ -3,10 +3,10 @@
  * and the readings to enter. Shown above the results so an empty table is never read as "no load".
  */
 import { useSearchParams } from 'react-router';
-import { joinWords, withheldSentence, type SurveyResults } from '@shared/engine';
+import { joinWords, withheldSentence, type SurveyLevelResults } from '@shared/engine';
 import { secondaryBtn } from '@client/components/ui/fields';
 
-export function WithheldNotice({ results }: { results: SurveyResults }) {
+export function WithheldNotice({ results }: { results: SurveyLevelResults }) {
   const [, setParams] = useSearchParams();
   const ship = results.frame.missingReadings ?? [];
   const withheld = results.withheld ?? [];

@@ -6,7 +6,8 @@
  */
 import { useCallback, useMemo, useState, type ReactNode } from 'react';
 import { Link, useSearchParams } from 'react-router';
-import { computeSurvey, type SurveyResults } from '@shared/engine';
+import { boundaryRows, computeSurveySummary, type BoundarySummary, type SurveySummary } from '@shared/engine';
+import { useMediaQuery, WIDE_SCREEN } from '@client/lib/use-media-query';
 import type { Survey } from '@shared/schemas/survey';
 import { applyLocalChange, useLocalSurvey, usePendingCount } from '@client/offline/survey-store';
 import { useSyncState } from '@client/offline/sync';
@@ -45,13 +46,15 @@ const SECTIONS = [
 ] as const;
 type SectionId = (typeof SECTIONS)[number]['id'];
 
-function useResults(survey: Survey | undefined): { results: SurveyResults | null; error: string | null } {
+/** The lean results of every edit (computeSurveySummary) and their boundary rows. */
+function useResults(survey: Survey | undefined): { results: SurveySummary | null; rows: BoundarySummary[]; error: string | null } {
   return useMemo(() => {
-    if (!survey) return { results: null, error: null };
+    if (!survey) return { results: null, rows: [], error: null };
     try {
-      return { results: computeSurvey(survey, { includeLoadDiagrams: true }), error: null };
+      const results = computeSurveySummary(survey);
+      return { results, rows: boundaryRows(results.boundaries), error: null };
     } catch (err) {
-      return { results: null, error: err instanceof Error ? err.message : 'The loads could not be computed.' };
+      return { results: null, rows: [], error: err instanceof Error ? err.message : 'The loads could not be computed.' };
     }
   }, [survey]);
 }
@@ -64,7 +67,9 @@ export function Workspace({ surveyId }: { surveyId: string }) {
   const selectedId = params.get('item');
   const [editError, setEditError] = useState<string | null>(null);
   const survey = local?.doc;
-  const { results, error } = useResults(survey);
+  const { results, rows, error } = useResults(survey);
+  // the aside is for wide screens only: on a phone it is not rendered at all (not merely hidden)
+  const wide = useMediaQuery(WIDE_SCREEN);
 
   const go = useCallback(
     (s: SectionId, item?: string | null) => {
@@ -119,7 +124,7 @@ export function Workspace({ surveyId }: { surveyId: string }) {
     );
   }
 
-  const props: SectionProps = { survey, results, apply, system, selectedId, select };
+  const props: SectionProps = { survey, results, rows, apply, system, selectedId, select };
   const body: Record<SectionId, ReactNode> = {
     ship: <ShipSection key={system} {...props} />,
     readings: <ReadingsSection {...props} />,
@@ -148,25 +153,7 @@ export function Workspace({ surveyId }: { surveyId: string }) {
         <ExportButton survey={survey} />
         <ReportButton surveyId={surveyId} />
       </div>
-      {/* Right under the title, so every section is in the first screen on a phone: two rows of four there,
-          one scrollable strip from 640 px (not sticky: the app header already is). */}
-      <nav aria-label="Workspace sections" className="mt-2 border-b-2 border-line bg-paper px-1 sm:overflow-x-auto sm:px-4">
-        <ul className="grid grid-cols-4 gap-1 sm:flex sm:min-w-max">
-          {SECTIONS.map((s) => (
-            <li key={s.id}>
-              <button
-                type="button"
-                onClick={() => go(s.id)}
-                aria-current={s.id === section ? 'page' : undefined}
-                className={`min-h-touch w-full rounded-t-md px-1 font-bold sm:px-3 ${s.id === section ? 'bg-hull text-paper' : 'text-hull hover:bg-sea-soft'}`}
-              >
-                {s.label}
-              </button>
-            </li>
-          ))}
-        </ul>
-      </nav>
-      <StateStrip results={results} error={error} system={system} onOpen={() => go('loads')} />
+      <StateStrip results={results} rows={rows} error={error} system={system} onOpen={() => go('loads')} />
       <div className="mx-3 mt-2 sm:mx-5">
         <SurveyReviewBar surveyId={surveyId} survey={survey} />
       </div>
@@ -178,10 +165,10 @@ export function Workspace({ surveyId }: { surveyId: string }) {
       )}
       <div className={`gap-6 px-3 pt-4 sm:px-5 ${sideResults ? 'lg:grid lg:grid-cols-[minmax(0,1fr)_minmax(0,26rem)]' : ''}`}>
         <div className="min-w-0">{body[section]}</div>
-        {sideResults && results && (
-          <aside className="mt-6 hidden space-y-3 lg:mt-0 lg:block" aria-label="Loads at a glance">
+        {sideResults && wide && results && (
+          <aside className="mt-6 space-y-3 lg:mt-0" aria-label="Loads at a glance">
             <h2 className="text-lg">Loads now</h2>
-            <BoundaryResultsTable results={results} system={system} onSelect={(id) => go('loads', id)} />
+            <BoundaryResultsTable results={results} rows={rows} system={system} onSelect={(id) => go('loads', id)} />
             <Cautions compact />
           </aside>
         )}
@@ -191,7 +178,7 @@ export function Workspace({ surveyId }: { surveyId: string }) {
 }
 
 /** Always on screen: heel, trim, flood water and the worst plate, big enough to read in sunlight. */
-function StateStrip({ results, error, system, onOpen }: { results: SurveyResults | null; error: string | null; system: ReturnType<typeof useUnitSystem>; onOpen: () => void }) {
+function StateStrip({ results, rows, error, system, onOpen }: { results: SurveySummary | null; rows: readonly BoundarySummary[]; error: string | null; system: ReturnType<typeof useUnitSystem>; onOpen: () => void }) {
   if (error) {
     return (
       <p className="mx-3 mt-2 rounded-md border-2 border-danger bg-danger-soft p-2 font-bold sm:mx-5" role="alert">
@@ -200,7 +187,7 @@ function StateStrip({ results, error, system, onOpen }: { results: SurveyResults
     );
   }
   if (!results) return null;
-  const worst = results.boundaries.find((b) => b.id === results.summary.maxUtilisationBoundaryId);
+  const worst = rows.find((b) => b.id === results.summary.maxUtilisationBoundaryId);
   const over = results.summary.overCapacityBoundaryIds.length;
   const unread = (results.frame.missingReadings ?? []).length > 0;
   return (

@@ -1,6 +1,6 @@
 import type { DeleteOp, SetOp, UpsertOp } from '@shared/schemas/sync';
 import type { Survey } from '@shared/schemas/survey';
-import type { SurveyResults } from '@shared/engine';
+import type { BoundarySummary, SurveySummary } from '@shared/engine';
 import type { UnitSystem } from '@shared/units/units';
 
 /** An edit the workspace makes; every one goes through the device store (works offline). */
@@ -9,7 +9,9 @@ export type Apply = (op: EditOp) => Promise<void>;
 
 export interface SectionProps {
   survey: Survey;
-  results: SurveyResults | null;
+  /** The lean per-edit results (computeSurveySummary) and its boundary rows; a boundary's detail is computed when opened. */
+  results: SurveySummary | null;
+  rows: readonly BoundarySummary[];
   apply: Apply;
   system: UnitSystem;
   /** Item to open (from the list, the model or a results row). */
