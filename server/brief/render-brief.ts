@@ -5,7 +5,8 @@
 import type { Survey } from '@shared/schemas/survey';
 import type { BoundaryResult, SurveyResults } from '@shared/engine/results';
 import type { OperatingLimit, Verdict } from '@shared/api/review';
-import { CAUTIONS } from '@shared/api/cautions';
+import { CAUTIONS, FORECAST_CAUTION, hmm } from '@shared/api/cautions';
+import { forecastFlooding } from '@shared/engine';
 import { STATUS_LABELS, type SurveyStatus } from '@shared/review/status';
 import { formatNumber, formatQuantity, type UnitSystem } from '@shared/units/units';
 import {
@@ -57,7 +58,27 @@ function sideLabel(results: SurveyResults, side: BoundaryResult['sideA']): strin
   return results.compartments.find((c) => c.id === side.compartmentId)?.name ?? 'a space';
 }
 
+/** The nearest time-to-limit in plain words, with what it assumes (null when no forecast can be run). */
+export function nearestLimitWords(doc: Survey): { sentence: string; assumptions: string } | null {
+  let f;
+  try {
+    f = forecastFlooding(doc);
+  } catch {
+    return null;
+  }
+  const first = f.limits[0];
+  const hours = (f.horizonS / 3600).toFixed(0);
+  const sentence = !first
+    ? `No boundary reaches its limit within the next ${hours} hours.`
+    : first.atS === 0
+      ? `${first.name} is already past its limit.`
+      : `${first.name} is expected to reach its limit at ${utc(new Date(Date.parse(f.readingsTime) + first.atS * 1000).toISOString())}, ${hmm(first.atS)} (h:mm) after the soundings.`;
+  const assumptions = `This assumes the breaches, openings, pumps and pumping plan stay as entered, and ${f.attitude.note.charAt(0).toLowerCase()}${f.attitude.note.slice(1)} ${FORECAST_CAUTION} It rests on readings of ${utc(f.latestReadingTime)}.`;
+  return { sentence, assumptions };
+}
+
 export function renderBriefPage(d: BriefPageData): string {
+  const nearest = nearestLimitWords(d.doc);
   const q = (v: number, dim: Parameters<typeof formatQuantity>[1], digits = 3) => formatQuantity(v, dim, d.units, digits).text;
   const names = namesFromSurvey(d.doc);
   const condition = d.doc.conditions.find((c) => c.id === d.doc.activeConditionId) ?? d.doc.conditions[0];
@@ -107,6 +128,11 @@ ${v ? html`<div class="verdict ${SEVERITY_CLASS[sev!]}"><strong>${boundaryVerdic
   <h2 id="h-limits">Operating limits</h2>
   ${limitItems.length ? html`<ol class="limits">${limitItems}</ol>` : html`<p class="muted">The engineer set no limits.</p>`}
 </section>
+${nearest ? html`<section aria-labelledby="h-nearest">
+  <h2 id="h-nearest">Time to the nearest limit</h2>
+  <p><strong>${nearest.sentence}</strong></p>
+  <p class="muted">${nearest.assumptions}</p>
+</section>` : ''}
 <section aria-labelledby="h-flooded">
   <h2 id="h-flooded">What is flooded</h2>
   ${r
