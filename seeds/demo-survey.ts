@@ -64,6 +64,9 @@ const timberShore = (n: number, y: number, z: number, lengthM: number, sideM: nu
   allowableStressPa: 8e6,
   endCondition: 'pinned-pinned',
   side: 'B',
+  // Douglas fir-larch No. 1 posts and timbers, wet: Fc 1,000 psi × CM 0.91 = 6.3 MPa,
+  // Emin 580,000 psi × CM 0.9 = 3.6 GPa (NDS Supplement Table 4D and its wet-service factors)
+  design: { method: 'nds-3.7.1', adjustedCompressionPa: 6.3e6, adjustedEMinPa: 3.6e9, c: 0.8 },
 });
 
 export function demoSurvey(): Survey {
@@ -76,10 +79,11 @@ export function demoSurvey(): Survey {
       'Grounded on a falling tide; shell set in and holed at No. 1 starboard, No. 1 \'tween deck open to the sea, ' +
       'No. 2 hold making water through a cracked shell plate, engine room flooded from a failed sea chest with diesel ' +
       'floating on the flood water. Listing to starboard, trimmed by the stern. Surveyed for Skerrow Marine Salvage by ' +
-      'I. Mackinnon (salvage surveyor); model checked ashore by R. Fennick (naval architect).',
+      'Ines Achterberg (salvage surveyor), for review ashore by Tomas Varga (naval architect).',
     vessel: {
       name: 'MV Corran Tide',
       imo: '9000015',
+      shipTimeOffsetMin: 60,
       lbpM: 118,
       breadthM: 18,
       depthM: 11,
@@ -140,15 +144,17 @@ export function demoSurvey(): Survey {
         id: ID.tweenDeck1,
         name: "No. 1 'tween deck",
         spaceType: 'dry-cargo',
+        cargoState: 'part-loaded',
         geometry: { kind: 'box', min: P(88, -9, 5), max: P(108, 9, 11) },
         openToSea: true,
         breaches: [{ id: id(200), position: P(98, -9, 5.6), areaM2: 0.35 }],
       },
-      { id: ID.lowerHold1, name: 'No. 1 lower hold', spaceType: 'dry-cargo', geometry: { kind: 'box', min: P(88, -9, 1.2), max: P(108, 9, 5) } },
+      { id: ID.lowerHold1, name: 'No. 1 lower hold', spaceType: 'dry-cargo', cargoState: 'loaded', geometry: { kind: 'box', min: P(88, -9, 1.2), max: P(108, 9, 5) } },
       {
         id: ID.hold2,
         name: 'No. 2 hold',
         spaceType: 'dry-cargo',
+        cargoState: 'loaded',
         geometry: { kind: 'box', min: P(62, -9, 1.2), max: P(88, 9, 11) },
         breaches: [{ id: id(201), position: P(75, -9, 2.0), areaM2: 0.004, dischargeCoefficient: 0.6 }],
         pumps: [
@@ -165,7 +171,7 @@ export function demoSurvey(): Survey {
           ],
         },
       },
-      { id: ID.hold3, name: 'No. 3 hold', spaceType: 'dry-cargo', geometry: { kind: 'box', min: P(38, -9, 1.2), max: P(62, 9, 11) } },
+      { id: ID.hold3, name: 'No. 3 hold', spaceType: 'dry-cargo', cargoState: 'empty', geometry: { kind: 'box', min: P(38, -9, 1.2), max: P(62, 9, 11) } },
       { id: ID.dbTank3, name: 'No. 3 double-bottom fuel tank (P)', spaceType: 'tank', geometry: { kind: 'box', min: P(38, 0, 0), max: P(62, 9, 1.2) } },
       {
         id: ID.engineRoom,
@@ -205,8 +211,9 @@ export function demoSurvey(): Survey {
         sideA: hold(ID.tweenDeck1),
         sideB: hold(ID.lowerHold1),
         parentBoundaryId: id(300),
-        ratedCapacity: { kind: 'pressure', pressurePa: 17.5e3 },
-        notes: "Steel pontoon covers, design load 1.8 t/m² from the ship's plans",
+        // downwards (towards the lower hold) the covers' design load; upwards only their cleats hold them
+        directionalCapacity: { kind: 'pressure', towardsB: 17.5e3, towardsA: 5e3 },
+        notes: "Steel pontoon covers, design load 1.8 t/m² from the ship's plans; cleats good for about 5 kPa upwards (surveyor's estimate)",
       },
       {
         id: id(302),
@@ -222,6 +229,8 @@ export function demoSurvey(): Survey {
           sectionModulusM3: 450e-6,
           allowableStressPa: 160e6,
         },
+        // 12.5 mm plating as built, 1.5 mm wastage allowed; mild steel, allowable 0.8 × 235 MPa
+        plating: { thicknessM: 0.0125, corrosionAllowanceM: 0.0015, yieldStressPa: 235e6, allowableStressPa: 188e6, edges: 'fixed' },
         shores: [
           timberShore(400, 4.5, 2.6, 6.0, 0.25),
           timberShore(401, 0, 2.6, 6.0, 0.25),
@@ -301,5 +310,26 @@ export function demoSurvey(): Survey {
         contentType: 'image/jpeg',
       },
     ],
+  };
+}
+
+/**
+ * A second invented casualty, already sent for review by the demo surveyor, so the engineer's queue
+ * is not empty on first sign-in. The same model as the first under another ship's name and id.
+ */
+export const DEMO_SUBMITTED_SURVEY_ID = '3c9e1a20-7b4d-4e61-9f0a-5d2c8b7e4a11';
+
+export function demoSubmittedSurvey(): Survey {
+  const base = demoSurvey();
+  return {
+    ...base,
+    id: DEMO_SUBMITTED_SURVEY_ID,
+    vesselId: undefined,
+    title: 'MV Lunga Sound: collision damage, Firth of Skerrow',
+    casualtyDescription:
+      'Struck on the starboard side forward in fog; No. 1 \'tween deck open to the sea and No. 2 hold making water. ' +
+      'Surveyed for Skerrow Marine Salvage by Ines Achterberg (salvage surveyor), for review ashore by Tomas Varga (naval architect).',
+    // 9×7 + 1×6 + 2×5 + 3×4 + 4×3 + 5×2 = 113: check digit 3
+    vessel: { ...base.vessel, name: 'MV Lunga Sound', imo: '9123453' },
   };
 }

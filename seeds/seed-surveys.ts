@@ -1,15 +1,21 @@
 /**
- * Puts the demo casualty survey (seeds/demo-survey.ts) on the server for the demo firm, made by the
+ * Puts the demo casualty surveys (seeds/demo-survey.ts: one draft, one sent for review) on the server for the demo firm, made by the
  * demo surveyor, as revision 1. Idempotent: fixed ids, and nothing is written when it is already there.
  */
 import type { Knex } from 'knex';
 import { computeSurvey, ENGINE_VERSION } from '@shared/engine';
 import { SurveySchema } from '@shared/schemas/survey';
 import { DEMO_ORG, DEMO_USERS } from './demo-people';
-import { demoSurvey } from './demo-survey';
+import { demoSubmittedSurvey, demoSurvey } from './demo-survey';
 
 export async function seedSurveys(db: Knex): Promise<{ created: boolean }> {
-  const doc = SurveySchema.parse(demoSurvey());
+  const created = await seedOne(db, demoSurvey(), 'draft');
+  await seedOne(db, demoSubmittedSurvey(), 'submitted');
+  return created;
+}
+
+async function seedOne(db: Knex, raw: unknown, status: 'draft' | 'submitted'): Promise<{ created: boolean }> {
+  const doc = SurveySchema.parse(raw);
   if (await db('surveys').where({ id: doc.id }).first('id')) return { created: false };
   const surveyor = DEMO_USERS.find((u) => u.orgId === DEMO_ORG.id && u.role === 'surveyor')!;
   const soundingsAt = doc.conditions.find((c) => c.id === doc.activeConditionId)?.time ?? null;
@@ -34,6 +40,7 @@ export async function seedSurveys(db: Knex): Promise<{ created: boolean }> {
         doc: JSON.stringify(doc),
         revision: 1,
         soundings_at: soundingsAt,
+        status,
       })
       .onConflict('id')
       .ignore()
@@ -46,6 +53,9 @@ export async function seedSurveys(db: Knex): Promise<{ created: boolean }> {
       user_id: surveyor.id,
       changes: JSON.stringify([{ entity: 'survey', field: null, old: null, new: 'created' }]),
     });
+    if (status === 'submitted') {
+      await trx('status_events').insert({ survey_id: doc.id, organisation_id: DEMO_ORG.id, from_status: 'draft', to_status: 'submitted', note: null, actor_id: surveyor.id, revision: 1 });
+    }
     let results: unknown = null;
     let error: string | null = null;
     try {

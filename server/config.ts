@@ -1,5 +1,6 @@
 /** Server configuration from the environment. Every variable is listed in README.md and DEVELOPERS.md. */
 import { z } from 'zod';
+import { formatIssueLines } from '@shared/api/format-issues';
 
 /**
  * Values written in this repository for development and tests. They are public, so a production
@@ -33,6 +34,8 @@ const ConfigSchema = z.object({
   /** The same requests allowed per IP address in one window, whatever the e-mail. */
   RATE_LIMIT_PER_IP: z.coerce.number().int().min(1).default(50),
   RATE_LIMIT_WINDOW_MINUTES: z.coerce.number().int().min(1).default(15),
+  /** Failed sign-ins to one account (from any address) before each further one doubles its wait. */
+  RATE_LIMIT_PER_ACCOUNT: z.coerce.number().int().min(1).default(5),
   /** How long a device stays signed in without use (each refresh starts the period again). */
   REFRESH_TTL_DAYS: z.coerce.number().int().min(1).max(365).default(30),
 });
@@ -62,7 +65,7 @@ function productionProblems(c: z.infer<typeof ConfigSchema>, env: NodeJS.Process
 export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
   const parsed = ConfigSchema.safeParse(env);
   if (!parsed.success) {
-    const lines = parsed.error.issues.map((i) => `  ${i.path.join('.')}: ${i.message}`).join('\n');
+    const lines = formatIssueLines(parsed.error).map((l) => `  ${l}`).join('\n');
     throw new Error(`Invalid environment:\n${lines}`);
   }
   const c = parsed.data;

@@ -3,10 +3,10 @@
  * inline style sheet. Readable on a 360 px phone and printable on one or two A4 pages.
  */
 import type { Survey } from '@shared/schemas/survey';
-import type { BoundaryResult, SurveyResults } from '@shared/engine/results';
+import { governingCheck, type BoundaryResult, type SurveyResults } from '@shared/engine';
 import type { OperatingLimit, Verdict } from '@shared/api/review';
-import { CAUTIONS, FORECAST_CAUTION, hmm } from '@shared/api/cautions';
-import { forecastFlooding } from '@shared/engine';
+import { CAUTIONS, FORECAST_CAUTION, STABILITY_CAUTION, hmm } from '@shared/api/cautions';
+import { downfloodingFreeboards, forecastFlooding, shipResponseOf } from '@shared/engine';
 import { STATUS_LABELS, type SurveyStatus } from '@shared/review/status';
 import { formatNumber, formatQuantity, type UnitSystem } from '@shared/units/units';
 import {
@@ -78,7 +78,7 @@ export function nearestLimitWords(doc: Survey): { sentence: string; assumptions:
 }
 
 export function renderBriefPage(d: BriefPageData): string {
-  const nearest = nearestLimitWords(d.doc);
+  const nearestLimit = nearestLimitWords(d.doc);
   const q = (v: number, dim: Parameters<typeof formatQuantity>[1], digits = 3) => formatQuantity(v, dim, d.units, digits).text;
   const names = namesFromSurvey(d.doc);
   const condition = d.doc.conditions.find((c) => c.id === d.doc.activeConditionId) ?? d.doc.conditions[0];
@@ -97,14 +97,25 @@ export function renderBriefPage(d: BriefPageData): string {
   const boundaryItems = important.map((b) => {
     const v = boundaryVerdicts.get(b.id);
     const sev = v ? verdictSeverity(v.verdict) : null;
+    const gov = governingCheck(b);
     return html`<li class="boundary">
 <div class="bhead"><strong>${b.name}</strong> <span class="muted">(${b.kind}, between ${sideLabel(r!, b.sideA)} and ${sideLabel(r!, b.sideB)})</span></div>
 ${v ? html`<div class="verdict ${SEVERITY_CLASS[sev!]}"><strong>${boundaryVerdictLabel(v.verdict)}</strong>: ${boundaryVerdictMeaning(v.verdict)}.${v.note ? html` ${v.note}` : ''}</div>` : html`<div class="muted">No verdict given.</div>`}
-<div class="figs">Net load ${q(Math.abs(b.net.resultantN), 'force')} · highest net pressure ${q(Math.abs(b.net.peak.pressurePa), 'pressure')}${
-      b.maxUtilisation !== null ? html` · <span class="${b.maxUtilisation > 1 ? 'over' : ''}">${b.maxUtilisation > 1 ? '▲ OVER CAPACITY: ' : ''}${formatNumber(b.maxUtilisation * 100, 3)} % of capacity</span>` : ''
+<div class="figs">Net load ${q(Math.abs(b.net.resultantN), 'force')} pushing towards ${sideLabel(r!, b.net.forceN >= 0 ? b.sideB : b.sideA)} · highest net pressure ${q(Math.abs(b.net.peak.pressurePa), 'pressure')}${
+      gov ? html` · <span class="${gov.utilisation > 1 ? 'over' : ''}">${gov.utilisation > 1 ? '▲ OVER CAPACITY: ' : ''}${formatNumber(gov.utilisation * 100, 3)} % of ${gov.what}</span>` : ''
     }</div>
 </li>`;
   });
+
+  const response = r ? shipResponseOf(d.doc, r) : null;
+  const nearest = response && condition ? downfloodingFreeboards(d.doc, condition, response)[0] : undefined;
+  const heelWords = (deg: number) => `${formatNumber(Math.abs(deg), 2)}° ${deg > 0.05 ? 'to starboard' : deg < -0.05 ? 'to port' : ''}`;
+  const stability = response
+    ? html`<p>Predicted from the modelled flooding: drafts aft <strong>${q(response.attitude.draftAftM, 'length')}</strong>, forward <strong>${q(response.attitude.draftForeM, 'length')}</strong>, heel <strong>${heelWords(response.attitude.heelDeg)}</strong>, trim <strong>${q(Math.abs(response.attitude.trimM), 'length')} ${response.attitude.trimM > 0 ? 'by the stern' : response.attitude.trimM < 0 ? 'by the head' : ''}</strong>.</p>
+<p>GM after free surface: <strong class="${response.gmFluidM <= 0 ? 'over' : ''}">${q(response.gmFluidM, 'length')}</strong>${nearest && nearest.predictedM !== null ? html` · nearest opening that would let water in: <strong>${nearest.name}</strong>, ${q(nearest.predictedM, 'length')} above the water` : ''}.</p>
+${response.warnings.length ? html`<ul>${response.warnings.map((w) => html`<li class="${w.severity === 'danger' ? 'over' : ''}">${w.message}</li>`)}</ul>` : ''}
+<p class="muted">${STABILITY_CAUTION}</p>`
+    : html`<p class="muted">Not computed: the survey has no hydrostatic particulars for these readings.</p>`;
 
   const limitItems = d.limits.map((l) => html`<li>${describeLimit(l, names, d.units)}</li>`);
   const sev = surveyVerdict ? verdictSeverity(surveyVerdict.verdict) : null;
@@ -128,10 +139,10 @@ ${v ? html`<div class="verdict ${SEVERITY_CLASS[sev!]}"><strong>${boundaryVerdic
   <h2 id="h-limits">Operating limits</h2>
   ${limitItems.length ? html`<ol class="limits">${limitItems}</ol>` : html`<p class="muted">The engineer set no limits.</p>`}
 </section>
-${nearest ? html`<section aria-labelledby="h-nearest">
+${nearestLimit ? html`<section aria-labelledby="h-nearest">
   <h2 id="h-nearest">Time to the nearest limit</h2>
-  <p><strong>${nearest.sentence}</strong></p>
-  <p class="muted">${nearest.assumptions}</p>
+  <p><strong>${nearestLimit.sentence}</strong></p>
+  <p class="muted">${nearestLimit.assumptions}</p>
 </section>` : ''}
 <section aria-labelledby="h-flooded">
   <h2 id="h-flooded">What is flooded</h2>
@@ -142,13 +153,17 @@ ${nearest ? html`<section aria-labelledby="h-nearest">
 ${flooded.length ? html`<table><thead><tr><th scope="col">Space</th><th scope="col">Holds</th><th scope="col">Full</th></tr></thead><tbody>${floodedRows}</tbody></table>` : html`<p>No space holds liquid in this survey.</p>`}`
     : html`<p class="muted">The server has not worked out the loads for this survey yet.</p>`}
 </section>
+<section aria-labelledby="h-stability">
+  <h2 id="h-stability">The ship’s response</h2>
+  ${stability}
+</section>
 <section aria-labelledby="h-boundaries">
   <h2 id="h-boundaries">Boundaries that matter</h2>
   ${boundaryItems.length ? html`<ul class="boundaries">${boundaryItems}</ul>` : html`<p class="muted">No boundary carries a net load.</p>`}
 </section>
 <section aria-labelledby="h-cautions" class="cautions">
   <h2 id="h-cautions">Cautions</h2>
-  <ul>${CAUTIONS.map((c) => html`<li>${c}</li>`)}</ul>
+  <ul>${[...CAUTIONS, STABILITY_CAUTION].map((c) => html`<li>${c}</li>`)}</ul>
 </section>
 <footer>
   <p>Reviewed by <strong>${d.reviewedBy ?? 'nobody yet'}</strong>${d.reviewedAt ? html` on ${utc(d.reviewedAt)}` : ''} · ${d.organisationName} · survey revision ${d.revision}.</p>

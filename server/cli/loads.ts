@@ -11,9 +11,10 @@ import { readFileSync } from 'node:fs';
 import { resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { computeSurvey, type SurveyResults } from '@shared/engine';
-import { formatIssues } from '@shared/schemas/format-issues';
+import { formatIssueLines } from '@shared/api/format-issues';
 import { UpgradingSurveySchema } from '@shared/schemas/survey';
-import { formatNumber, formatQuantity, fromSi, type Dimension, type UnitId, type UnitSystem } from '@shared/units/units';
+import { pointWords, trimWords } from '@shared/units/point-words';
+import { FOOT_M, formatNumber, formatQuantity, fromSi, type Dimension, type UnitId, type UnitSystem } from '@shared/units/units';
 
 interface Args {
   file: string;
@@ -71,7 +72,7 @@ export function runLoads(args: Args): SurveyResults {
   // An older file is brought up to the current format first (shared/schemas/upgrade.ts).
   const parsed = UpgradingSurveySchema.safeParse(doc);
   if (!parsed.success) {
-    throw new CliError(`${args.file}: invalid survey\n${formatIssues(parsed.error).map((l) => `  ${l}`).join('\n')}`, 1);
+    throw new CliError(`${args.file}: invalid survey\n${formatIssueLines(parsed.error).map((l) => `  ${l}`).join('\n')}`, 1);
   }
   if (args.conditionId && !parsed.data.conditions.some((c) => c.id === args.conditionId)) {
     throw new CliError(`${args.file}: no condition with id ${args.conditionId}`, 1);
@@ -91,12 +92,30 @@ const SUFFIXES: [string, Dimension, string][] = [
   ['N', 'force', 'Kip'],
   ['M', 'length', 'Ft'],
 ];
-const POINT_KEYS = new Set(['centroid', 'centreOfPressure', 'point', 'levelPoint', 'waterlinePoint', 'origin']);
+const POINT_KEYS = new Set(['centroid', 'centreOfPressure', 'centreOfPressurePlate', 'point', 'levelPoint', 'waterlinePoint', 'origin']);
 
-function convertUs(value: unknown, key = ''): unknown {
+/** Ratings carry their unit in `kind`: rated and actual are Pa or N. */
+function convertRating(obj: Record<string, unknown>): Record<string, unknown> {
+  const dim: Dimension = obj.kind === 'pressure' ? 'pressure' : 'force';
+  const suffix = dim === 'pressure' ? 'Psi' : 'Kip';
+  const out: Record<string, unknown> = {};
+  for (const [k, v] of Object.entries(obj)) {
+    if ((k === 'rated' || k === 'actual') && typeof v === 'number') out[k + suffix] = fromSi(v, usUnit(dim));
+    else out[k] = v;
+  }
+  return out;
+}
+
+/**
+ * The results with every dimensioned field in US customary units, renamed by its new unit
+ * (areaM2 → areaFt2); dimensionless fields (ratios, unit vectors, utilisations, degrees, seconds)
+ * are left as they are.
+ */
+export function convertUs(value: unknown, key = ''): unknown {
   if (Array.isArray(value)) return value.map((v) => convertUs(v, key));
   if (value !== null && typeof value === 'object') {
     const obj = value as Record<string, unknown>;
+    if ((key === 'capacity' || key === 'capacities') && 'rated' in obj) return convertRating(obj);
     if (POINT_KEYS.has(key) || key === 'forceVector') {
       const dim: Dimension = key === 'forceVector' ? 'force' : 'length';
       const out: Record<string, unknown> = {};
@@ -106,7 +125,9 @@ function convertUs(value: unknown, key = ''): unknown {
     const out: Record<string, unknown> = {};
     for (const [k, v] of Object.entries(obj)) {
       const match = typeof v === 'number' ? SUFFIXES.find(([s]) => k.endsWith(s) && k.length > s.length) : undefined;
-      if (match && typeof v === 'number') out[k.slice(0, -match[0].length) + match[2]] = fromSi(v, usUnit(match[1]));
+      if (k.endsWith('MS2') && typeof v === 'number') out[`${k.slice(0, -3)}FtS2`] = v / FOOT_M;
+      else if (k.endsWith('ModulusM3') && typeof v === 'number') out[`${k.slice(0, -2)}In3`] = fromSi(v, 'in3');
+      else if (match && typeof v === 'number') out[k.slice(0, -match[0].length) + match[2]] = fromSi(v, usUnit(match[1]));
       else out[k] = convertUs(v, k);
     }
     return out;
@@ -133,25 +154,38 @@ export function renderTable(r: SurveyResults, units: UnitSystem): string {
   const q = (v: number, d: Dimension) => formatQuantity(v, d, units, 4).text;
   const out: string[] = [];
   out.push(`Engine ${r.engineVersion}  condition ${r.conditionId} at ${r.conditionTime}`);
-  out.push(`Heel ${formatNumber(r.frame.heelDeg, 3)}° (starboard down +), trim ${q(r.frame.trimM, 'length')} by the stern (${formatNumber(r.frame.trimDeg, 3)}°), sea ${q(r.frame.seaDensityKgM3, 'density')}`);
+  out.push(`Heel ${formatNumber(r.frame.heelDeg, 3)}° (starboard down +), trim ${trimWords(r.frame.trimM, units)} (${formatNumber(r.frame.trimDeg, 3)}°), sea ${q(r.frame.seaDensityKgM3, 'density')}`);
   out.push('');
   out.push('BOUNDARIES');
   out.push(
     table(
-      ['name', 'kind', 'area', 'net force', 'peak net p', 'CoP z', 'vertical', 'horizontal', 'utilisation'],
+      ['name', 'kind', 'area', 'net force (+ towards B)', 'peak net p', 'CoP height above lowest point', 'vertical (+ up)', 'horizontal', 'utilisation'],
       r.boundaries.map((b) => [
         b.name,
         b.kind,
         q(b.areaM2, 'area'),
         q(b.net.forceN, 'force'),
         q(b.net.peak.pressurePa, 'pressure'),
-        b.net.centreOfPressure ? q(b.net.centreOfPressure.z, 'length') : '-',
+        b.net.nearlyCancels ? `couple ${q(b.net.coupleNm ?? 0, 'moment')}` : b.net.centreOfPressureAboveLowestM !== null ? q(b.net.centreOfPressureAboveLowestM, 'length') : '-',
         q(b.net.verticalN, 'force'),
         q(b.net.horizontalN, 'force'),
         b.maxUtilisation === null ? '-' : `${(100 * b.maxUtilisation).toFixed(0)} %${b.maxUtilisation > 1 ? ' OVER' : ''}`,
       ]),
     ),
   );
+  const shored = r.boundaries.filter((b) => b.shores.length > 0);
+  if (shored.length > 0) {
+    out.push('');
+    out.push('SHORES (checked as columns)');
+    out.push(
+      table(
+        ['boundary', 'no.', 'bears on', 'axial load', 'design capacity', 'method', 'Euler (elastic) buckling load', 'utilisation'],
+        shored.flatMap((b) =>
+          b.shores.map((s, i) => [b.name, String(i + 1), s.bearsOn, q(s.axialLoadN, 'force'), q(s.designCapacityN, 'force'), s.designMethodLabel, q(s.eulerLoadN, 'force'), `${(100 * s.utilisation).toFixed(0)} %${s.utilisation > 1 ? ' OVER' : ''}`]),
+        ),
+      ),
+    );
+  }
   out.push('');
   out.push('COMPARTMENTS');
   out.push(
@@ -170,7 +204,7 @@ export function renderTable(r: SurveyResults, units: UnitSystem): string {
   );
   out.push('');
   const agg = (name: string, a: SurveyResults['ship']['floodWater']) =>
-    `${pad(name, 12)} ${q(a.massKg, 'mass')}  ${q(a.volumeM3, 'volume')}  centroid ${a.centroid ? `x ${q(a.centroid.x, 'length')}, y ${q(a.centroid.y, 'length')}, z ${q(a.centroid.z, 'length')}` : '-'}`;
+    `${pad(name, 12)} ${q(a.massKg, 'mass')}  ${q(a.volumeM3, 'volume')}  centroid ${pointWords(a.centroid, units)}`;
   out.push('SHIP TOTALS');
   out.push(agg('flood water', r.ship.floodWater));
   out.push(agg('oil', r.ship.oil));

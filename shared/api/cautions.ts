@@ -6,6 +6,10 @@ export const CAUTIONS: readonly string[] = [
   'Pumping or moving liquid changes both the ship’s stability and the loads on its boundaries.',
 ];
 
+/** Beside every figure of the ship's response (heel, trim, GM) and on the brief. */
+export const STABILITY_CAUTION =
+  'Stability decisions rest with the naval architect and the ship’s approved stability information; these heel, trim and GM figures are estimates for planning.';
+
 /**
  * The forecast's own caution, beside every forecast and on the brief: how old its readings are is
  * said with it (`readingsAge`).

@@ -13,7 +13,21 @@ const EPS = 1e-9;
 
 /** The part of a closed solid with n·p ≤ d (n need not be unit), as a closed solid. */
 export function clipSolid(solid: Polyhedron, n: V3, d: number): Polyhedron {
+  const { faces, caps } = clipWithCaps(solid, n, d);
+  return [...faces, ...caps];
+}
+
+/**
+ * The section of a closed solid by the plane n·p = d: the cap loops of clipSolid, each running
+ * anticlockwise seen from the side n points to. A liquid's free surface is this section at its level.
+ */
+export function planeSection(solid: Polyhedron, n: V3, d: number): V3[][] {
+  return clipWithCaps(solid, n, d).caps;
+}
+
+function clipWithCaps(solid: Polyhedron, n: V3, d: number): { faces: Polyhedron; caps: V3[][] } {
   const out: Polyhedron = [];
+  const caps: V3[][] = [];
   const segments: [V3, V3][] = [];
   for (const face of solid) {
     const pts: V3[] = [];
@@ -60,9 +74,9 @@ export function clipSolid(solid: Polyhedron, n: V3, d: number): Polyhedron {
       const next: [V3, V3][] = byStart.get(key(cur[0])) ?? [];
       cur = next.find((x) => !used.has(x));
     }
-    if (loop.length >= 3) out.push(loop);
+    if (loop.length >= 3) caps.push(loop);
   }
-  return out;
+  return { faces: out, caps };
 }
 
 /**

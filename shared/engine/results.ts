@@ -4,6 +4,7 @@
  */
 import type { LoadDiagramPoint } from './plate';
 import type { BeamResult } from './beam';
+import type { BoundarySide } from '../schemas/survey';
 import type { Withheld } from './readings';
 
 export interface Point {
@@ -157,6 +158,8 @@ export interface NetResult {
   /** Point of action (for faceted surfaces: point of the line of action closest to the surface centroid). */
   centreOfPressure: Point | null;
   centreOfPressurePlate: { u: number; v: number } | null;
+  /** Height (earth-vertical) of the centre of pressure above the plate's lowest point, m. */
+  centreOfPressureAboveLowestM: number | null;
   lineOfAction: { point: Point; direction: Point } | null;
   /** Faceted surfaces only: couple left about the line of action (a wrench), N·m. */
   residualMomentNm: number;
@@ -194,6 +197,8 @@ export interface StiffenerResult {
   note: string | null;
   /** Load the plate's edges take directly (outer strips, less what shores between stiffeners pass to an edge), N. */
   edgeLoadN: number | null;
+  /** The plate edge offsets are measured from, in words ("starboard edge", "lower edge", …). */
+  offsetFromEdge: string;
   /** More than the largest number of stiffeners built; the rest are not checked. */
   truncated: boolean;
   /** What the model assumes, in words. */
@@ -343,3 +348,93 @@ export interface SurveyResults {
 }
 
 export type { LoadDiagramPoint, Withheld };
+
+/**
+ * One boundary's headline figures, flat (no nested objects): the row of the Loads table, the
+ * colour and arrow of the 3D view, the utilisations the survey summary is built from. Every number
+ * equals the same quantity in the boundary's full BoundaryResult (computeBoundaryDetail).
+ */
+export interface BoundarySummary {
+  id: string;
+  name: string;
+  kind: string;
+  geometryKind: BoundaryResult['geometryKind'];
+  parentBoundaryId: string | null;
+  /** The sides as the survey states them. */
+  sideA: BoundarySide;
+  sideB: BoundarySide;
+  areaM2: number;
+  /** net.forceN and net.resultantN, N. */
+  forceN: number;
+  resultantN: number;
+  /** net.forceVector, ship axes, N. */
+  forceX: number;
+  forceY: number;
+  forceZ: number;
+  /** net.centreOfPressure (null when there is no net force). */
+  copX: number | null;
+  copY: number | null;
+  copZ: number | null;
+  /** Plate normal (null for faceted surfaces). */
+  normalX: number | null;
+  normalY: number | null;
+  normalZ: number | null;
+  /** net.peak.pressurePa. */
+  peakPressurePa: number;
+  signChange: boolean;
+  capacityUtilisation: number | null;
+  /** stiffeners.maxUtilisation. */
+  stiffenerUtilisation: number | null;
+  /** plating.maxUtilisation. */
+  platingUtilisation: number | null;
+  /** Largest shore utilisation. */
+  shoreUtilisation: number | null;
+  maxUtilisation: number | null;
+}
+
+/** Numeric columns of a BoundaryTable, in BoundarySummary's names. */
+export const BOUNDARY_NUMBER_FIELDS = [
+  'areaM2',
+  'forceN',
+  'resultantN',
+  'forceX',
+  'forceY',
+  'forceZ',
+  'copX',
+  'copY',
+  'copZ',
+  'normalX',
+  'normalY',
+  'normalZ',
+  'peakPressurePa',
+  'capacityUtilisation',
+  'stiffenerUtilisation',
+  'platingUtilisation',
+  'shoreUtilisation',
+  'maxUtilisation',
+] as const satisfies readonly (keyof BoundarySummary)[];
+export type BoundaryNumberField = (typeof BOUNDARY_NUMBER_FIELDS)[number];
+
+/**
+ * Every boundary's summary as columns: one typed array per number (NaN where the summary has
+ * null), so a large vessel's per-edit results are a few flat buffers rather than thousands of
+ * objects. Row i is boundaryRow(table, i); `length` rows are filled.
+ */
+export type BoundaryTable = {
+  length: number;
+  id: string[];
+  name: string[];
+  kind: string[];
+  geometryKind: BoundaryResult['geometryKind'][];
+  parentBoundaryId: (string | null)[];
+  sideA: BoundarySide[];
+  sideB: BoundarySide[];
+  /** 1 where the net pressure reverses across the plate. */
+  signChange: Uint8Array;
+} & Record<BoundaryNumberField, Float64Array>;
+
+/** computeSurveySummary's output: SurveyResults with the boundaries as a BoundaryTable. */
+export type SurveySummary = Omit<SurveyResults, 'boundaries'> & { boundaries: BoundaryTable };
+
+/** What both kinds of results share (the compartment, totals and warnings views read only this). */
+export type SurveyLevelResults = Omit<SurveyResults, 'boundaries'>;

@@ -17,6 +17,7 @@
  *   pulled is dropped and the rest solved again. Every stiffener has the same section, so EI cancels.
  */
 import type { Boundary } from '../schemas/survey';
+import { edgeWords } from '../units/point-words';
 import { solveBeam, type BeamResult, type EndFixity } from './beam';
 import { clipHalfPlane } from './plane-integrals';
 import { evalProfile, regionAsPolygons, regionNetForce, type FlatPlate, type SignedShape } from './plate';
@@ -216,7 +217,7 @@ export function stiffenedPlateLoads(b: Boundary, plate: FlatPlate, net: Pressure
   const st = b.stiffening!;
   const fr = plate.frame;
   const empty = (status: StiffenerResult['status'], note: string): StiffenedPlateLoads => ({
-    stiffeners: { endFixity: st.endFixity, spacingM: st.spacingM, items: [], governingIndex: null, maxUtilisation: null, status, note, edgeLoadN: null, truncated: false, model: STIFFENED_MODEL_WORDS },
+    stiffeners: { endFixity: st.endFixity, spacingM: st.spacingM, items: [], governingIndex: null, maxUtilisation: null, status, note, edgeLoadN: null, offsetFromEdge: '', truncated: false, model: STIFFENED_MODEL_WORDS },
     shores: null,
     layout: null,
   });
@@ -429,6 +430,7 @@ export function stiffenedPlateLoads(b: Boundary, plate: FlatPlate, net: Pressure
       status: 'ok',
       note: null,
       edgeLoadN: edgeStrips - edgeLever,
+      offsetFromEdge: edgeWords({ x: pu * fr.u[0] + pv * fr.v[0], y: pu * fr.u[1] + pv * fr.v[1], z: pu * fr.u[2] + pv * fr.v[2] }),
       truncated,
       model: STIFFENED_MODEL_WORDS,
     },

@@ -5,6 +5,7 @@
  * any document written before them still parses. SI throughout (m, m², m³/s, s).
  */
 import { z } from 'zod';
+import { boundedText, cappedArray, SURVEY_LIMITS, TEXT_LIMITS } from './limits';
 
 const Point3 = z.object({ x: z.number(), y: z.number(), z: z.number() });
 
@@ -35,7 +36,7 @@ export const InternalOpeningSchema = z.object({
   size: OpeningSizeSchema.optional(),
   /** Discharge coefficient (default 0.6, sharp-edged orifice). */
   dischargeCoefficient: z.number().gt(0).max(1).optional(),
-  name: z.string().optional(),
+  name: boundedText(TEXT_LIMITS.name).optional(),
 });
 export type InternalOpening = z.infer<typeof InternalOpeningSchema>;
 
@@ -59,9 +60,9 @@ export const FloodingSettingsSchema = z.object({
   horizonH: z.number().positive().max(240).optional(),
   /** Measured and orifice inflow disagree when one is more than this many times the other (default 2). */
   disagreementFactor: z.number().gt(1).max(100).optional(),
-  plan: z.array(PlanStepSchema).optional(),
+  plan: cappedArray(PlanStepSchema, SURVEY_LIMITS.planSteps, 'steps in one pumping plan').optional(),
 });
 export type FloodingSettings = z.infer<typeof FloodingSettingsSchema>;
 
 /** Pump ids listed on a sounding: the pumps that ran since the reading before. */
-export const PumpsRunningSchema = z.array(z.uuid());
+export const PumpsRunningSchema = cappedArray(z.uuid(), SURVEY_LIMITS.pumps, 'pumps running');

@@ -37,3 +37,32 @@ export function imoCheckDigitOk(imo: string): boolean {
   for (let i = 0; i < 6; i++) sum += Number(imo[i]) * (7 - i);
   return sum % 10 === Number(imo[6]);
 }
+
+/** The value at a marks key inside an entity; inside an array, a segment is the element's id. */
+export function fieldAt(entity: unknown, field: string): unknown {
+  let cur: unknown = entity;
+  for (const key of field.split('.')) {
+    if (Array.isArray(cur)) cur = cur.find((e: unknown) => typeof e === 'object' && e !== null && (e as { id?: unknown }).id === key);
+    else if (cur !== null && typeof cur === 'object') cur = (cur as Record<string, unknown>)[key];
+    else return undefined;
+  }
+  return cur;
+}
+
+/**
+ * An edit settles assumptions: a field marked "assumed" whose value the edit changed now holds what
+ * the surveyor entered, so its mark goes; a field that is now empty loses any mark.
+ */
+export function settleMarks(marks: Marks | undefined, before: unknown, after: unknown): Marks | undefined {
+  if (!marks) return undefined;
+  let next: Marks | undefined = marks;
+  for (const [field, mark] of Object.entries(marks)) {
+    const now = fieldAt(after, field);
+    const gone = now === undefined;
+    const was = fieldAt(before, field);
+    // a field the edit brings in keeps its mark (a new shore starts from assumed values)
+    const changed = mark === 'assumed' && was !== undefined && JSON.stringify(now) !== JSON.stringify(was);
+    if (gone || changed) next = withMark(next, field, undefined);
+  }
+  return next;
+}

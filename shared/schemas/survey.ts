@@ -6,9 +6,10 @@
  */
 import { z } from 'zod';
 import { catalogueFluid } from '../fluids/catalogue';
-import { FloodingSettingsSchema, InternalOpeningSchema, OpeningFaceSchema, OpeningSizeSchema, PumpsRunningSchema } from './flooding';
 import { CargoStateSchema, SpaceTypeSchema } from './space-types';
 import { SURVEY_LIMITS as L, TEXT_LIMITS, boundedText, capMessage, cappedArray } from './limits';
+import { ConditionStabilitySchema, DownfloodingPointSchema } from './stability';
+import { FloodingSettingsSchema, InternalOpeningSchema, OpeningFaceSchema, OpeningSizeSchema, PumpsRunningSchema } from './flooding';
 import { MarksSchema } from './marks';
 import { DirectionalRatingSchema, PlatingSchema, ShoreDesignSchema } from './structure';
 import { SURVEY_SCHEMA_VERSION, upgradeSurvey } from './upgrade';
@@ -27,6 +28,8 @@ export type Point3 = z.infer<typeof Point3Schema>;
 export const VesselSchema = z.object({
   name: boundedText(TEXT_LIMITS.name).trim().min(1),
   imo: z.string().regex(/^\d{7}$/, 'IMO number must be 7 digits').optional(),
+  /** The ship's clock: minutes ahead of UTC (negative west), for times said in ship's time. */
+  shipTimeOffsetMin: z.number().int().min(-14 * 60).max(14 * 60).optional(),
   lbpM: PositiveLength,
   breadthM: PositiveLength,
   depthM: PositiveLength,
@@ -37,6 +40,8 @@ export const VesselSchema = z.object({
     /** Position of the midship marks read on each side for heel, if any. */
     midshipXM: Length.optional(),
   }),
+  /** Openings that would let more water in once under water (the ship's response reports their freeboard). */
+  downfloodingPoints: cappedArray(DownfloodingPointSchema, L.breaches, 'downflooding points').optional(),
 });
 export type Vessel = z.infer<typeof VesselSchema>;
 
@@ -115,9 +120,11 @@ export const ConditionSchema = z.object({
   /** Acceleration of gravity, m/s² (default standard gravity 9.80665). */
   gravityMS2: z.number().min(9.7).max(9.9).optional(),
   contents: cappedArray(ContentsSchema, L.compartments, 'compartments with contents'),
-  marks: MarksSchema.optional(),
+  /** Hydrostatic particulars for the ship's response (./stability.ts). */
+  stability: ConditionStabilitySchema.optional(),
   /** Forecast settings and the pumping plan (shared/schemas/flooding.ts). */
   flooding: FloodingSettingsSchema.optional(),
+  marks: MarksSchema.optional(),
 });
 export type Condition = z.infer<typeof ConditionSchema>;
 
@@ -180,7 +187,7 @@ export const CompartmentSchema = z.object({
   soundingLog: SoundingLogSchema.optional(),
   marks: MarksSchema.optional(),
   /** Openings into other compartments (shared/schemas/flooding.ts). */
-  openings: cappedArray(InternalOpeningSchema, L.breaches, 'openings in one compartment').optional(),
+  openings: cappedArray(InternalOpeningSchema, L.breaches, 'openings from one compartment').optional(),
   /** Air-tight, not vented: air trapped above the liquid is compressed as it rises (Boyle's law). */
   airTight: z.boolean().optional(),
 });

@@ -105,6 +105,10 @@ function randomCase(rand: () => number) {
   return { s, A, B, e1, e2, centre, field };
 }
 
+// The brute-force sums take a few seconds of CPU; on a busy shared machine that can be many more, so
+// these tests get a generous timeout (speed is measured in the benchmarks, not here).
+const BRUTE_FORCE_TIMEOUT_MS = 120_000;
+
 describe('exact plate integration vs brute-force quadrature (seeded random cases)', () => {
   it('random convex polygons, both sides, heel and trim: force and moment to 1e-4', () => {
     const rand = prng(20250314);
@@ -147,7 +151,7 @@ describe('exact plate integration vs brute-force quadrature (seeded random cases
       // positive and negative parts add up to the net
       expect(r.net.positive.forceN + r.net.negative.forceN).toBeCloseTo(r.net.forceN, 3);
     }
-  });
+  }, BRUTE_FORCE_TIMEOUT_MS);
 
   it('random circles: force and moment to 1e-4 (polar midpoint grid)', () => {
     const rand = prng(7);
@@ -190,5 +194,5 @@ describe('exact plate integration vs brute-force quadrature (seeded random cases
         expect(err / absArm).toBeLessThan(1e-4);
       }
     }
-  });
+  }, BRUTE_FORCE_TIMEOUT_MS);
 });

@@ -37,6 +37,7 @@ export function Field({
   hint,
   children,
   id,
+  extra,
 }: {
   label: string;
   unit?: string;
@@ -44,6 +45,8 @@ export function Field({
   hint?: ReactNode;
   children: ReactNode;
   id: string;
+  /** Shown under the field whatever its state (the figure's "assumed" / "estimated" mark). */
+  extra?: ReactNode;
 }) {
   return (
     <div className="min-w-0">
@@ -63,6 +66,7 @@ export function Field({
           {error}
         </p>
       )}
+      {extra}
     </div>
   );
 }
@@ -76,6 +80,7 @@ export function NumberInput<T extends FieldValues>({
   hint,
   placeholder,
   allowFrames = false,
+  extra,
 }: {
   register: UseFormRegister<T>;
   name: Path<T>;
@@ -86,11 +91,12 @@ export function NumberInput<T extends FieldValues>({
   placeholder?: string;
   /** Accepts "Fr 45" as well as a number (x positions). */
   allowFrames?: boolean;
+  extra?: ReactNode;
 }) {
   const id = useId();
   const err = errorAt(errors, name)?.message;
   return (
-    <Field label={label} unit={unit} error={err} hint={hint} id={id}>
+    <Field label={label} unit={unit} error={err} hint={hint} id={id} extra={extra}>
       <input
         id={id}
         className={inputCls}

@@ -9,11 +9,13 @@ import {
   useReactTable,
   type SortingState,
 } from '@tanstack/react-table';
-import type { BoundaryResult, SurveyResults } from '@shared/engine/results';
+import type { BoundaryResult, SurveyResults } from '@shared/engine';
 import type { UnitSystem } from '@shared/units/units';
-import { num, unitLabel } from '@client/lib/unit-system';
+import { fmt, num, unitLabel } from '@client/lib/unit-system';
 import { UtilisationBadge } from './utilisation';
-import { fmtPoint, sideName } from './side-name';
+import { pointWords } from '@shared/units/point-words';
+import { governingCheck } from '@shared/engine';
+import { sideName } from './side-name';
 
 const col = createColumnHelper<BoundaryResult>();
 
@@ -44,7 +46,7 @@ export function BoundaryResultsTable({
       }),
       col.accessor((b) => b.net.forceN, {
         id: 'force',
-        header: `Net force (${unitLabel('force', system)})`,
+        header: `Net force, + towards side B (${unitLabel('force', system)})`,
         cell: (c) => <span data-testid={`net-force-${c.row.original.id}`}>{num(c.getValue(), 'force', system)}</span>,
       }),
       col.accessor((b) => b.net.peak.pressurePa, {
@@ -54,16 +56,26 @@ export function BoundaryResultsTable({
       }),
       col.accessor((b) => b.net.centreOfPressure?.z ?? null, {
         id: 'cop',
-        header: `Centre of pressure (${unitLabel('length', system)})`,
+        header: 'Centre of pressure',
         sortUndefined: 'last',
         cell: (c) => (
-          <span className="text-sm">{fmtPoint(c.row.original.net.centreOfPressure, (v) => num(v, 'length', system, 3))}</span>
+          <span className="text-sm">
+            {c.row.original.net.nearlyCancels ? `sides nearly cancel: couple ${fmt(c.row.original.net.coupleNm, 'moment', system)}` : pointWords(c.row.original.net.centreOfPressure, system)}
+          </span>
         ),
       }),
       col.accessor((b) => b.maxUtilisation ?? -1, {
         id: 'utilisation',
         header: 'Utilisation',
-        cell: (c) => <UtilisationBadge value={c.row.original.maxUtilisation} compact />,
+        cell: (c) => {
+          const gov = governingCheck(c.row.original);
+          return (
+            <span>
+              <UtilisationBadge value={c.row.original.maxUtilisation} compact />
+              {gov && <span className="block text-xs text-ink-soft">{gov.what}</span>}
+            </span>
+          );
+        },
       }),
     ],
     [results, system],

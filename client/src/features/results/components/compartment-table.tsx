@@ -1,7 +1,7 @@
 /** Liquid in every compartment: each layer's volume (permeability applied), mass and level. */
-import type { SurveyResults } from '@shared/engine/results';
+import type { SurveyResults } from '@shared/engine';
 import type { UnitSystem } from '@shared/units/units';
-import { fmtPoint } from './side-name';
+import { pointWords } from '@shared/units/point-words';
 import { num, percent, unitLabel } from '@client/lib/unit-system';
 
 export function CompartmentTable({ results, system, onSelect }: { results: SurveyResults; system: UnitSystem; onSelect?: (id: string) => void }) {
@@ -29,7 +29,6 @@ export function CompartmentTable({ results, system, onSelect }: { results: Surve
 }
 
 function CompartmentRows({ c, system, onSelect }: { c: SurveyResults['compartments'][number]; system: UnitSystem; onSelect?: (id: string) => void }) {
-  const L = (v: number) => num(v, 'length', system, 3);
   return (
     <>
       <tr className="border-t-2 border-line font-bold">
@@ -49,7 +48,7 @@ function CompartmentRows({ c, system, onSelect }: { c: SurveyResults['compartmen
         <td className="p-1.5 text-right tabular-nums">{num(c.liquid.volumeM3, 'volume', system)}</td>
         <td className="p-1.5 text-right tabular-nums">{num(c.liquid.massKg, 'mass', system)}</td>
         <td className="p-1.5 text-right tabular-nums">{percent(c.fillFraction)}</td>
-        <td className="p-1.5">{fmtPoint(c.liquid.centroid, L)}</td>
+        <td className="p-1.5">{pointWords(c.liquid.centroid, system)}</td>
       </tr>
       {c.layers.map((l) => (
         <tr key={l.layerId} className="border-t border-line">
@@ -63,7 +62,7 @@ function CompartmentRows({ c, system, onSelect }: { c: SurveyResults['compartmen
           <td className="p-1.5 text-right tabular-nums">{num(l.volumeM3, 'volume', system)}</td>
           <td className="p-1.5 text-right tabular-nums">{num(l.massKg, 'mass', system)}</td>
           <td className="p-1.5" />
-          <td className="p-1.5">{fmtPoint(l.centroid, L)}</td>
+          <td className="p-1.5">{pointWords(l.centroid, system)}</td>
         </tr>
       ))}
     </>

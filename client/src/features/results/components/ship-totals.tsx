@@ -1,8 +1,8 @@
 /** The whole ship at a glance: heel, trim, flood water, oil, their centroid, the worst utilisation. */
-import type { SurveyResults } from '@shared/engine/results';
+import type { SurveyResults } from '@shared/engine';
 import type { UnitSystem } from '@shared/units/units';
 import { fmt, num, unitLabel } from '@client/lib/unit-system';
-import { fmtPoint } from './side-name';
+import { pointWords } from '@shared/units/point-words';
 import { UtilisationBadge } from './utilisation';
 
 function Tile({ label, value, sub, testId }: { label: string; value: string; sub?: string; testId?: string }) {
@@ -21,6 +21,8 @@ export function ShipTotals({ results, system }: { results: SurveyResults; system
   const { frame, ship, summary } = results;
   const worst = results.boundaries.find((b) => b.id === summary.maxUtilisationBoundaryId);
   const L = (v: number) => num(v, 'length', system, 3);
+  // heel and trim are only real once the drafts and the heel are read
+  const unread = (frame.missingReadings ?? []).length > 0;
   return (
     <section aria-label="Ship totals" className="space-y-2">
       {summary.overCapacityBoundaryIds.length > 0 && (
@@ -31,14 +33,18 @@ export function ShipTotals({ results, system }: { results: SurveyResults; system
         </p>
       )}
       <div className="grid grid-cols-2 gap-2 sm:grid-cols-4">
-        <Tile label="Heel" value={`${frame.heelDeg.toFixed(1)}° ${frame.heelDeg > 0 ? 'stbd' : frame.heelDeg < 0 ? 'port' : ''}`} sub={`from ${frame.heelSource}`} />
-        <Tile label="Trim" value={`${fmt(Math.abs(frame.trimM), 'length', system, 3)} ${frame.trimM > 0 ? 'by stern' : frame.trimM < 0 ? 'by head' : ''}`} sub={`${frame.trimDeg.toFixed(2)}°`} />
+        <Tile label="Heel" value={unread ? '—' : `${Math.abs(frame.heelDeg).toFixed(1)}° ${frame.heelDeg > 0.05 ? 'stbd' : frame.heelDeg < -0.05 ? 'port' : ''}`} sub={unread ? 'readings needed' : `from ${frame.heelSource}`} />
+        <Tile
+          label="Trim"
+          value={unread ? '—' : `${fmt(Math.abs(frame.trimM), 'length', system, 3)} ${frame.trimM > 0.0005 ? 'by stern' : frame.trimM < -0.0005 ? 'by head' : ''}`}
+          sub={unread ? 'readings needed' : `${Math.abs(frame.trimDeg).toFixed(2)}°`}
+        />
         <Tile label="Flood water" value={fmt(ship.floodWater.massKg, 'mass', system)} sub={fmt(ship.floodWater.volumeM3, 'volume', system)} testId="total-flood-water" />
         <Tile label="Oil" value={fmt(ship.oil.massKg, 'mass', system)} sub={fmt(ship.oil.volumeM3, 'volume', system)} />
         <Tile
           label={`All liquid centroid (${unitLabel('length', system)})`}
           value={ship.allLiquids.centroid ? `x ${L(ship.allLiquids.centroid.x)}` : '—'}
-          sub={fmtPoint(ship.allLiquids.centroid, L)}
+          sub={pointWords(ship.allLiquids.centroid, system)}
         />
         <Tile label="Sea density" value={fmt(frame.seaDensityKgM3, 'density', system)} />
         <div className="col-span-2 rounded-lg border border-line bg-card p-2">

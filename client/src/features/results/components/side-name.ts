@@ -1,4 +1,4 @@
-import type { SurveyResults } from '@shared/engine/results';
+import type { SurveyResults } from '@shared/engine';
 
 /** Plain name of the space on one side of a boundary. */
 export function sideName(results: SurveyResults, side: { kind: 'compartment' | 'sea' | 'air'; compartmentId: string | null }): string {
@@ -6,6 +6,3 @@ export function sideName(results: SurveyResults, side: { kind: 'compartment' | '
   if (side.kind === 'air') return 'Open air';
   return results.compartments.find((c) => c.id === side.compartmentId)?.name ?? 'Unknown space';
 }
-
-export const fmtPoint = (p: { x: number; y: number; z: number } | null, f: (v: number) => string): string =>
-  p ? `x ${f(p.x)}, y ${f(p.y)}, z ${f(p.z)}` : '—';

@@ -13,6 +13,7 @@ import { syncNow } from '@client/offline/sync';
 import { useReviewNotes } from '@client/offline/review-notes';
 import { ReviewNotes } from './review-notes';
 import { buttonClass } from '@client/components/ui/button';
+import { figureNotes, figureNoteSentence } from '@shared/review/assumptions';
 
 export function SurveyReviewBar({ surveyId, survey }: { surveyId: string; survey?: Survey }) {
   const local = useLocalSurvey(surveyId);
@@ -21,11 +22,15 @@ export function SurveyReviewBar({ surveyId, survey }: { surveyId: string; survey
   const { user } = useSession();
   const [busy, setBusy] = useState(false);
   const [error, setError] = useState<string | null>(null);
+  // a survey resting on unconfirmed defaults goes to review only past a screen that lists them
+  const [reviewing, setReviewing] = useState(false);
   if (!local) return null;
+  const assumed = survey ? figureNotes(survey).filter((n) => n.mark === 'assumed') : [];
   const submit = user ? transitionsFor(local.status, user.role).find((t) => t.action === 'submit') : undefined;
   const count = notes ? notes.comments.length + notes.verdicts.length + notes.limits.length : 0;
 
   const send = async () => {
+    setReviewing(false);
     setBusy(true);
     setError(null);
     try {
@@ -49,13 +54,34 @@ export function SurveyReviewBar({ surveyId, survey }: { surveyId: string; survey
           <button
             type="button"
             className={buttonClass('primary', 'ml-auto')}
-            onClick={send}
-            disabled={busy}
+            onClick={() => (assumed.length > 0 ? setReviewing(true) : void send())}
+            disabled={busy || reviewing}
           >
             {busy ? 'Sending…' : submit.label}
           </button>
         )}
       </div>
+      {submit && reviewing && (
+        <div className="mt-2 space-y-2 rounded-md border-2 border-caution bg-caution-soft p-3" role="region" aria-label="Assumed figures" data-testid="assumptions-screen">
+          <h3 className="text-lg font-bold">
+            {assumed.length === 1 ? 'One figure is' : `${assumed.length} figures are`} assumed, not measured or confirmed
+          </h3>
+          <p className="text-sm">The engineer will see this list beside the loads. Confirm or replace them in their sections, or send the survey with them as they are.</p>
+          <ul className="list-disc space-y-0.5 pl-5 text-sm">
+            {assumed.map((n) => (
+              <li key={`${n.entityId}-${n.field}`}>{figureNoteSentence(n)}</li>
+            ))}
+          </ul>
+          <div className="flex flex-wrap gap-2">
+            <button type="button" className={buttonClass('secondary')} onClick={() => setReviewing(false)}>
+              Go back and confirm them
+            </button>
+            <button type="button" className={buttonClass('primary')} onClick={() => void send()}>
+              Send for review with these assumptions
+            </button>
+          </div>
+        </div>
+      )}
       {submit && pending > 0 && <p className="mt-1 text-sm text-ink-soft">{pending} edits will sync first.</p>}
       {error && (
         <p role="alert" className="mt-1 text-sm font-bold text-danger">

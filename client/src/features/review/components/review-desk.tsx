@@ -5,8 +5,7 @@
  */
 import { useMemo, useState } from 'react';
 import { Link } from 'react-router';
-import { computeSurvey, forecastFlooding } from '@shared/engine';
-import type { SurveyResults } from '@shared/engine/results';
+import { computeSurvey, forecastFlooding, type SurveyResults } from '@shared/engine';
 import { UpgradingSurveySchema, type Survey } from '@shared/schemas/survey';
 import { compareResults } from '@shared/review/compare';
 import { REVIEWABLE_STATUSES } from '@shared/review/status';
@@ -16,6 +15,7 @@ import { BoundaryResultsTable } from '@client/features/results/components/bounda
 import { ForecastView } from '@client/features/flooding/components/forecast-view';
 import { CompartmentTable } from '@client/features/results/components/compartment-table';
 import { ShipTotals } from '@client/features/results/components/ship-totals';
+import { ShipResponsePanel } from '@client/features/results/components/ship-response';
 import { paths } from '@client/config/paths';
 import { useUnitSystem } from '@client/lib/unit-system';
 import { useReview } from '../api/get-review';
@@ -127,6 +127,7 @@ export function ReviewDesk({ surveyId }: { surveyId: string }) {
           {tab === 'results' && shown && (
             <div className="space-y-4">
               <ShipTotals results={shown} system={system} />
+              {parsed?.success && <ShipResponsePanel survey={parsed.data} results={shown} system={system} />}
               <BoundaryResultsTable results={shown} system={system} selectedId={selected} onSelect={setSelected} />
               {selectedBoundary && <BoundaryDetail boundary={selectedBoundary} results={shown} system={system} />}
               <CompartmentTable results={shown} system={system} />
@@ -141,7 +142,7 @@ export function ReviewDesk({ surveyId }: { surveyId: string }) {
         <div className="min-w-0 space-y-3">
           <VerdictPanel key={`v-${r.verdicts.length}`} surveyId={surveyId} doc={doc} verdicts={r.verdicts} editable={editable} />
           <LimitsPanel surveyId={surveyId} doc={doc} limits={r.limits} editable={editable} system={system} />
-          <CommentThreads surveyId={surveyId} doc={doc} comments={r.comments} />
+          <CommentThreads surveyId={surveyId} doc={doc} comments={r.comments} canResolve={r.viewer.role === 'engineer'} />
           <BriefPanel surveyId={surveyId} status={r.status} briefs={r.briefs} canIssue={r.viewer.role === 'engineer'} canRevoke={r.viewer.role !== 'surveyor'} />
         </div>
       </div>

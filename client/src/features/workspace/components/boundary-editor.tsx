@@ -12,6 +12,16 @@ import { useFrameTable } from '../utils/frames';
 import { PLANE_AXES, SIDE_WORDS } from '../utils/plane-geometry';
 import { boundaryResolver, boundaryToForm, sideOptions, type BoundaryForm } from '../utils/boundary-form';
 import { newId } from '../utils/new-entities';
+import { withMark, type FigureMark } from '@shared/schemas/marks';
+import { MarkChip } from './mark-chip';
+import { facetOrientation, reverseFacets } from '@shared/engine';
+
+/** The chip under one of the plate's figures, kept in the form's `marks` value. */
+function PlateMark({ form, field, filled = true }: { form: UseFormReturn<BoundaryForm, unknown, Boundary>; field: string; filled?: boolean }) {
+  const marks = form.watch('marks');
+  const set = (m: FigureMark | undefined) => form.setValue('marks', withMark(marks, field, m) ?? {}, { shouldDirty: true });
+  return <MarkChip mark={marks[field]} onChange={set} canEstimate={filled} />;
+}
 
 export const KIND_LABEL: Record<Boundary['kind'], string> = {
   bulkhead: 'Bulkhead',
@@ -68,7 +78,10 @@ export function BoundaryEditor({ boundary, survey, apply, system }: { boundary: 
         <SelectInput register={register} name="sideB" label="Side B space" errors={{}} options={sides} hint="positive net force pushes towards side B" />
       </div>
       {custom ? (
-        <p className="rounded-md border border-line bg-paper p-2 text-sm">This plate has an imported shape not on a ship-axis plane; it is kept as it is. Edit it in the survey file and import it again.</p>
+        <>
+          <p className="rounded-md border border-line bg-paper p-2 text-sm">This plate has an imported shape not on a ship-axis plane; it is kept as it is. Edit it in the survey file and import it again.</p>
+          <FacetFix boundary={boundary} apply={apply} />
+        </>
       ) : (
         <fieldset className="space-y-3 rounded-md border border-line p-2">
           <legend className="px-1 font-bold">Shape</legend>
@@ -120,7 +133,20 @@ export function BoundaryEditor({ boundary, survey, apply, system }: { boundary: 
         </fieldset>
       )}
       <div className="flex items-center gap-2">
-        <input id={stiffId} type="checkbox" className="size-6" {...register('stiff')} />
+        <input
+          id={stiffId}
+          type="checkbox"
+          className="size-6"
+          {...register('stiff', {
+            // stiffening switched on starts from typical values: assumed until the surveyor confirms them
+            onChange: (ev: { target: { checked: boolean } }) => {
+              if (!ev.target.checked || boundary.stiffening) return;
+              let m = withMark(form.getValues('marks'), 'stiffening.sectionModulusM3', 'assumed');
+              m = withMark(m, 'stiffening.allowableStressPa', 'assumed');
+              form.setValue('marks', m ?? {});
+            },
+          })}
+        />
         <label htmlFor={stiffId} className="font-bold">
           Stiffened
         </label>
@@ -152,8 +178,22 @@ export function BoundaryEditor({ boundary, survey, apply, system }: { boundary: 
               { value: 'fixed', label: 'Fixed (bracketed)' },
             ]}
           />
-          <NumberInput register={register} name="stModulus" label="Section modulus (with plate)" unit={measureLabel('sectionModulus', system)} errors={{ stModulus: errorAt(e, 'stiffening.sectionModulusM3') }} />
-          <NumberInput register={register} name="stAllow" label="Allowable stress" unit={measureLabel('stress', system)} errors={{ stAllow: errorAt(e, 'stiffening.allowableStressPa') }} />
+          <NumberInput
+            register={register}
+            name="stModulus"
+            label="Section modulus (with plate)"
+            unit={measureLabel('sectionModulus', system)}
+            errors={{ stModulus: errorAt(e, 'stiffening.sectionModulusM3') }}
+            extra={<PlateMark form={form} field="stiffening.sectionModulusM3" />}
+          />
+          <NumberInput
+            register={register}
+            name="stAllow"
+            label="Allowable stress"
+            unit={measureLabel('stress', system)}
+            errors={{ stAllow: errorAt(e, 'stiffening.allowableStressPa') }}
+            extra={<PlateMark form={form} field="stiffening.allowableStressPa" />}
+          />
         </fieldset>
       )}
       <ShoreFields form={form} system={system} />
@@ -176,12 +216,36 @@ export function BoundaryEditor({ boundary, survey, apply, system }: { boundary: 
             label={capKind === 'pressure' ? 'Rated pressure' : 'Rated force'}
             unit={measureLabel(capKind === 'pressure' ? 'pressure' : 'force', system)}
             errors={{ capValue: errorAt(e, 'ratedCapacity.pressurePa') ?? errorAt(e, 'ratedCapacity.forceN') }}
+            extra={<PlateMark form={form} field="ratedCapacity" />}
           />
         )}
       </div>
       <TextInput register={register} name="notes" label="Notes" errors={e} multiline />
       <SaveIndicator state={state} />
     </form>
+  );
+}
+
+/** Names the facets that run the other way round from their neighbours, and turns them over in one tap. */
+function FacetFix({ boundary, apply }: { boundary: Boundary; apply: Apply }) {
+  const g = boundary.geometry;
+  if (g.kind !== 'faceted') return null;
+  const { reversed } = facetOrientation(g.facets);
+  if (reversed.length === 0) return null;
+  return (
+    <div className="rounded-md border-2 border-danger p-2 text-sm" role="alert" data-testid="facet-fix">
+      <p className="font-bold text-danger">
+        <span aria-hidden="true">▲ </span>
+        Facet{reversed.length > 1 ? 's' : ''} {reversed.map((i) => i + 1).join(', ')} run{reversed.length > 1 ? '' : 's'} the other way round from the rest, so their load counts the wrong way.
+      </p>
+      <button
+        type="button"
+        className={secondaryBtn}
+        onClick={() => apply({ kind: 'upsert', collection: 'boundaries', entity: { ...boundary, geometry: { kind: 'faceted', facets: reverseFacets(g.facets, reversed) } } })}
+      >
+        Turn {reversed.length > 1 ? 'them' : 'it'} over
+      </button>
+    </div>
   );
 }
 
@@ -233,6 +297,7 @@ function ShoreFields({ form, system }: { form: UseFormReturn<BoundaryForm, unkno
               label={v.shores?.[i]?.secKind === 'tube' ? 'Outer diameter' : 'Width'}
               unit={lu}
               errors={{ shores: { [i]: { w: err(i, 'section.widthM') ?? err(i, 'section.outerDiameterM') } } }}
+              extra={<PlateMark form={form} field={`shores.${f.id}.section`} />}
             />
             <NumberInput
               register={register}
@@ -266,6 +331,33 @@ function ShoreFields({ form, system }: { form: UseFormReturn<BoundaryForm, unkno
               ]}
             />
             <NumberInput register={register} name={`shores.${i}.angle`} label="Angle from square" unit="°" errors={{ shores: { [i]: { angle: err(i, 'angleFromNormalDeg') } } }} hint="empty: square to the plate" />
+            <SelectInput
+              register={register}
+              name={`shores.${i}.method`}
+              label="Checked as a column by"
+              errors={{}}
+              options={[
+                { value: '', label: 'No method given (Euler ÷ 2, flagged)' },
+                { value: 'aisc-360-e3', label: 'Steel: AISC 360 §E3, ASD (Ωc 1.67)' },
+                { value: 'nds-3.7.1', label: 'Sawn timber: NDS §3.7.1 (Cp, c 0.8)' },
+                { value: 'generic', label: 'Other: a design factor' },
+              ]}
+            />
+            {v.shores?.[i]?.method === 'aisc-360-e3' && (
+              <NumberInput register={register} name={`shores.${i}.fy`} label="Yield stress Fy" unit={su} errors={{ shores: { [i]: { fy: err(i, 'design.yieldStressPa') } } }} />
+            )}
+            {v.shores?.[i]?.method === 'nds-3.7.1' && (
+              <>
+                <NumberInput register={register} name={`shores.${i}.fc`} label="Fc* (Fc × factors but Cp)" unit={su} errors={{ shores: { [i]: { fc: err(i, 'design.adjustedCompressionPa') } } }} />
+                <NumberInput register={register} name={`shores.${i}.emin`} label="E′min" unit={su} errors={{ shores: { [i]: { emin: err(i, 'design.adjustedEMinPa') } } }} />
+              </>
+            )}
+            {v.shores?.[i]?.method === 'generic' && (
+              <>
+                <NumberInput register={register} name={`shores.${i}.fail`} label="Crushing stress" unit={su} errors={{ shores: { [i]: { fail: err(i, 'design.failureStressPa') } } }} />
+                <NumberInput register={register} name={`shores.${i}.factor`} label="Design factor" unit="" errors={{ shores: { [i]: { factor: err(i, 'design.designFactor') } } }} />
+              </>
+            )}
           </div>
         </div>
       ))}
@@ -274,12 +366,17 @@ function ShoreFields({ form, system }: { form: UseFormReturn<BoundaryForm, unkno
         className={secondaryBtn}
         onClick={() => {
           const c = centre();
-          append({ id: newId(), ...c, length: S(3), secKind: 'rectangular', w: S(0.2), d: S(0.2), e: stress(11e9), allow: stress(8e6), end: 'pinned-pinned', side: 'B', angle: '' });
+          const id = newId();
+          form.setValue('marks', withMark(form.getValues('marks'), `shores.${id}.section`, 'assumed') ?? {});
+          append({
+            id, ...c, length: S(3), secKind: 'rectangular', w: S(0.2), d: S(0.2), e: stress(11e9), allow: stress(8e6), end: 'pinned-pinned', side: 'B', angle: '',
+            method: 'nds-3.7.1', fy: stress(235e6), fc: stress(6.3e6), emin: stress(3.6e9), fail: stress(16e6), factor: '2',
+          });
         }}
       >
         + Add shore
       </button>
-      {fields.length > 0 && <p className="text-xs text-ink-soft">New shores start with typical timber values (200 × 200 mm, E 11 GPa, 8 MPa allowable): enter those of the shore actually fitted.</p>}
+      {fields.length > 0 && <p className="text-xs text-ink-soft">New shores start with typical timber values (200 × 200 mm, E 11 GPa, 8 MPa allowable; NDS check with Fc* 6.3 MPa and E′min 3.6 GPa, wet Douglas fir-larch No. 1 posts), marked assumed: enter those of the shore actually fitted, or confirm them.</p>}
     </fieldset>
   );
 }

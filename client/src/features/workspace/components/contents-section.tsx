@@ -12,6 +12,9 @@ import type { Apply, SectionProps } from '../utils/types';
 import { activeCondition, newId } from '../utils/new-entities';
 import { display, unitLabel, fmt } from '@client/lib/unit-system';
 import type { Survey } from '@shared/schemas/survey';
+import { settleMarks, withMark, type Marks } from '@shared/schemas/marks';
+import { MarkChip } from './mark-chip';
+import { withheldSentence } from '@shared/engine';
 
 type LevelKind = LevelSource['kind'];
 
@@ -24,6 +27,8 @@ interface LayerForm {
   py: string;
   pz: string;
   reading: string;
+  /** Not an input: this layer's marks ("level" estimated), set by the chip under the reading. */
+  marks: Marks;
 }
 
 interface ContentsForm {
@@ -52,7 +57,7 @@ function centreOf(c: Compartment): { x: number; y: number; zb: number; zt: numbe
 function layerToForm(l: Contents['layers'][number], system: UnitSystem, c: Compartment): LayerForm {
   const S = (n: number | undefined) => showField(n, 'length', system);
   const ctr = centreOf(c);
-  const base = { id: l.id, fluidId: l.fluidId, density: showField(l.densityKgM3, 'density', system), levelKind: l.level.kind, px: S(ctr.x), py: S(ctr.y), pz: S(ctr.zb), reading: '' };
+  const base = { id: l.id, fluidId: l.fluidId, density: showField(l.densityKgM3, 'density', system), levelKind: l.level.kind, px: S(ctr.x), py: S(ctr.y), pz: S(ctr.zb), reading: '', marks: l.marks ?? {} };
   const lv = l.level;
   switch (lv.kind) {
     case 'sounding':
@@ -67,7 +72,7 @@ function layerToForm(l: Contents['layers'][number], system: UnitSystem, c: Compa
   }
 }
 
-function toModel(v: ContentsForm, compartmentId: string, system: UnitSystem): unknown {
+function toModel(v: ContentsForm, compartmentId: string, system: UnitSystem, before: Contents): unknown {
   const L = (t: string) => parseField(t, 'length', system);
   return {
     compartmentId,
@@ -81,7 +86,8 @@ function toModel(v: ContentsForm, compartmentId: string, system: UnitSystem): un
             : l.levelKind === 'point'
               ? { kind: 'point', point: { x: L(l.px), y: L(l.py), z: L(l.pz) } }
               : { kind: 'openToSea' };
-      return { id: l.id, fluidId: l.fluidId, densityKgM3: parseField(l.density, 'density', system), level };
+      const layer = { id: l.id, fluidId: l.fluidId, densityKgM3: parseField(l.density, 'density', system), level };
+      return { ...layer, marks: settleMarks(l.marks, before.layers.find((x) => x.id === l.id), layer) };
     }),
   };
 }
@@ -94,7 +100,7 @@ function fluidOptions(survey: Survey) {
 function ContentsEditor({ survey, condition, compartment, contents, apply, system }: { survey: Survey; condition: Condition; compartment: Compartment; contents: Contents; apply: Apply; system: UnitSystem }) {
   const form = useForm<ContentsForm, unknown, Contents>({
     mode: 'onChange',
-    resolver: unitResolver(ContentsSchema, (v: ContentsForm) => toModel(v, compartment.id, system), system, MEASURES),
+    resolver: unitResolver(ContentsSchema, (v: ContentsForm) => toModel(v, compartment.id, system, contents), system, MEASURES),
     defaultValues: {
       gasKind: contents.gas?.kind ?? 'vented',
       gasPressure: contents.gas?.kind === 'pressurised' ? showField(contents.gas.gaugePressurePa, 'pressure', system) : '',
@@ -116,7 +122,7 @@ function ContentsEditor({ survey, condition, compartment, contents, apply, syste
   const S = (n: number) => showField(n, 'length', system);
   const addLayer = (fluidId: string) => {
     const below = layers.at(-1);
-    append({ id: newId(), fluidId, density: '', levelKind: 'sounding', px: below?.px ?? S(ctr.x), py: below?.py ?? S(ctr.y), pz: below?.pz ?? S(ctr.zb), reading: '' });
+    append({ id: newId(), fluidId, density: '', levelKind: 'sounding', px: below?.px ?? S(ctr.x), py: below?.py ?? S(ctr.y), pz: below?.pz ?? S(ctr.zb), reading: '', marks: {} });
   };
   const layerErr = (i: number, ...paths: string[]) => paths.map((p) => errorAt(e, `layers.${i}.${p}`)).find(Boolean);
   return (
@@ -159,13 +165,37 @@ function ContentsEditor({ survey, condition, compartment, contents, apply, syste
                   unit={unitLabel('density', system)}
                   errors={{ layers: { [i]: { density: layerErr(i, 'densityKgM3') } } }}
                   placeholder={defaultDensity ? formatNumber(display(defaultDensity, 'density', system), 4) : ''}
-                  hint="empty: catalogue value"
+                  hint={l?.fluidId === 'sea-water' ? 'empty: the sea water density of these readings' : undefined}
+                  extra={
+                    (l?.density ?? '').trim() === '' && defaultDensity && l?.fluidId !== 'sea-water' ? (
+                      <MarkChip
+                        mark="assumed"
+                        assumedValue={`${formatNumber(display(defaultDensity, 'density', system), 4)} ${unitLabel('density', system)}, catalogue`}
+                        onChange={() => undefined}
+                        onConfirm={() => form.setValue(`layers.${i}.density`, formatNumber(display(defaultDensity, 'density', system), 4), { shouldDirty: true })}
+                      />
+                    ) : undefined
+                  }
                 />
                 <div className="col-span-2">
                   <SelectInput register={register} name={`layers.${i}.levelKind`} label="Top of this layer from" errors={{}} options={(Object.keys(LEVEL_LABEL) as LevelKind[]).map((k) => ({ value: k, label: LEVEL_LABEL[k] }))} />
                 </div>
                 {(kind === 'sounding' || kind === 'interfaceSounding' || kind === 'ullage') && (
-                  <NumberInput register={register} name={`layers.${i}.reading`} label={readingLabel} unit={lu} errors={{ layers: { [i]: { reading: layerErr(i, 'level.soundingM', 'level.ullageM') } } }} />
+                  <NumberInput
+                    register={register}
+                    name={`layers.${i}.reading`}
+                    label={readingLabel}
+                    unit={lu}
+                    errors={{ layers: { [i]: { reading: layerErr(i, 'level.soundingM', 'level.ullageM') } } }}
+                    hint={(l?.reading ?? '').trim() === '' ? 'not read yet: no loads for this space until it is' : undefined}
+                    extra={
+                      <MarkChip
+                        mark={l?.marks.level}
+                        canEstimate={(l?.reading ?? '').trim() !== ''}
+                        onChange={(m) => form.setValue(`layers.${i}.marks`, withMark(l?.marks, 'level', m) ?? {}, { shouldDirty: true })}
+                      />
+                    }
+                  />
                 )}
                 {kind !== 'openToSea' && (
                   <>
@@ -225,7 +255,8 @@ export function ContentsSection({ survey, results, apply, system, selectedId, se
     const entry: Contents = {
       compartmentId: compartment.id,
       gas: { kind: 'vented' },
-      layers: [{ id: newId(), fluidId: 'sea-water', level: { kind: 'sounding', pipe: { x: ctr.x, y: ctr.y, bottomZM: ctr.zb }, soundingM: (ctr.zt - ctr.zb) / 2 } }],
+      // the pipe is placed at the space's centre to start with; the sounding waits for the tape
+      layers: [{ id: newId(), fluidId: 'sea-water', level: { kind: 'sounding', pipe: { x: ctr.x, y: ctr.y, bottomZM: ctr.zb } } }],
     };
     await apply({ kind: 'upsert', collection: 'conditions', entity: { ...condition, contents: [...condition.contents, entry] } });
   };
@@ -234,6 +265,7 @@ export function ContentsSection({ survey, results, apply, system, selectedId, se
     await apply({ kind: 'upsert', collection: 'conditions', entity: { ...condition, contents: condition.contents.filter((k) => k.compartmentId !== compartment.id) } });
   };
   const cr = results?.compartments.find((c) => c.id === compartment?.id);
+  const held = results?.withheld?.find((w) => w.entityId === compartment?.id);
   return (
     <section aria-labelledby="contents-h" className="space-y-4">
       <h2 id="contents-h" className="text-2xl">
@@ -255,6 +287,11 @@ export function ContentsSection({ survey, results, apply, system, selectedId, se
       )}
       {compartment && (
         <div className="rounded-lg border-2 border-hull bg-card p-3">
+          {held && (
+            <p className="mb-2 rounded-md border-2 border-caution bg-caution-soft p-2 text-sm font-bold" data-testid="contents-withheld">
+              {withheldSentence(held)}
+            </p>
+          )}
           {cr && (
             <p className="mb-2 text-sm" data-testid="contents-summary">
               <b>{compartment.name}:</b> {fmt(cr.liquid.volumeM3, 'volume', system)} of liquid, {fmt(cr.liquid.massKg, 'mass', system)}, {(cr.fillFraction * 100).toFixed(0)} % full

@@ -2,7 +2,9 @@
 import { useForm } from 'react-hook-form';
 import { ConditionSchema, type Condition } from '@shared/schemas/survey';
 import type { UnitSystem } from '@shared/units/units';
-import { DEFAULT_SEA_DENSITY_KG_M3 } from '@shared/engine/frame';
+import { DEFAULT_SEA_DENSITY_KG_M3, HEEL_AGREEMENT_TOLERANCE_DEG } from '@shared/engine';
+import { settleMarks, withMark, type FigureMark, type Marks } from '@shared/schemas/marks';
+import { MarkChip } from './mark-chip';
 import { byKey, measureLabel, parseField, showField, unitResolver } from '../utils/form-units';
 import { NumberInput, TextInput, FormError, inputCls, primaryBtn, secondaryBtn, dangerBtn, Field } from '@client/components/ui/fields';
 import { useAutosave } from '../hooks/use-autosave';
@@ -18,6 +20,8 @@ interface ConditionForm {
   drafts: { forwardM: string; aftM: string; midPortM: string; midStarboardM: string };
   heelDeg: string;
   seaDensityKgM3: string;
+  /** Not an input: the marks on this condition's figures, set by the chips under the fields. */
+  marks: Marks;
 }
 
 const MEASURES = byKey({ forwardM: 'length', aftM: 'length', midPortM: 'length', midStarboardM: 'length', heelDeg: 'ratio', seaDensityKgM3: 'density' });
@@ -33,7 +37,7 @@ function toLocalInput(iso: string): string {
 function toModel(v: ConditionForm, base: Condition, system: UnitSystem): unknown {
   const L = (t: string) => parseField(t, 'length', system);
   const t = new Date(v.time);
-  return {
+  const next = {
     ...base,
     name: v.name.trim() === '' ? undefined : v.name.trim(),
     time: Number.isNaN(t.getTime()) ? v.time : t.toISOString(),
@@ -41,6 +45,7 @@ function toModel(v: ConditionForm, base: Condition, system: UnitSystem): unknown
     heelDeg: parseField(v.heelDeg, 'ratio', system),
     seaDensityKgM3: parseField(v.seaDensityKgM3, 'density', system),
   };
+  return { ...next, marks: settleMarks(v.marks, base, next) };
 }
 
 function ConditionEditor({ condition, apply, system }: { condition: Condition; apply: Apply; system: UnitSystem }) {
@@ -54,14 +59,19 @@ function ConditionEditor({ condition, apply, system }: { condition: Condition; a
       drafts: { forwardM: S(condition.drafts.forwardM), aftM: S(condition.drafts.aftM), midPortM: S(condition.drafts.midPortM), midStarboardM: S(condition.drafts.midStarboardM) },
       heelDeg: condition.heelDeg === undefined ? '' : String(condition.heelDeg),
       seaDensityKgM3: showField(condition.seaDensityKgM3, 'density', system),
+      marks: condition.marks ?? {},
     },
   });
   // contents are edited under Contents; keep the latest ones when saving this form
   const state = useAutosave(form, (v) => apply({ kind: 'upsert', collection: 'conditions', entity: { ...v, contents: condition.contents } }));
-  const { register, formState } = form;
+  const { register, formState, watch, setValue } = form;
   const lu = measureLabel('length', system);
   const du = unitLabel('density', system);
   const timeId = `time-${condition.id}`;
+  const [marks, drafts, heel, sea] = watch(['marks', 'drafts', 'heelDeg', 'seaDensityKgM3']);
+  const setMark = (field: string, mark: FigureMark | undefined) => setValue('marks', withMark(marks, field, mark) ?? {}, { shouldDirty: true });
+  const chip = (field: string, text: string | undefined) => <MarkChip mark={marks[field]} onChange={(m) => setMark(field, m)} canEstimate={(text ?? '').trim() !== ''} />;
+  const defaultSea = formatNumber(display(DEFAULT_SEA_DENSITY_KG_M3, 'density', system), 5);
   return (
     <form className="space-y-3" onSubmit={(e) => e.preventDefault()} noValidate aria-label="Condition readings">
       <FormError errors={formState.errors} />
@@ -73,21 +83,36 @@ function ConditionEditor({ condition, apply, system }: { condition: Condition; a
       </div>
       <fieldset className="grid grid-cols-2 gap-3 sm:grid-cols-4">
         <legend className="mb-1 font-bold">Drafts (above the baseline)</legend>
-        <NumberInput register={register} name="drafts.aftM" label="Aft" unit={lu} errors={formState.errors} />
-        <NumberInput register={register} name="drafts.forwardM" label="Forward" unit={lu} errors={formState.errors} />
-        <NumberInput register={register} name="drafts.midPortM" label="Midship port" unit={lu} errors={formState.errors} hint="optional" />
-        <NumberInput register={register} name="drafts.midStarboardM" label="Midship stbd" unit={lu} errors={formState.errors} hint="optional" />
+        <NumberInput register={register} name="drafts.aftM" label="Aft" unit={lu} errors={formState.errors} hint="needed for loads" extra={chip('drafts.aftM', drafts.aftM)} />
+        <NumberInput register={register} name="drafts.forwardM" label="Forward" unit={lu} errors={formState.errors} hint="needed for loads" extra={chip('drafts.forwardM', drafts.forwardM)} />
+        <NumberInput register={register} name="drafts.midPortM" label="Midship port" unit={lu} errors={formState.errors} hint="optional" extra={chip('drafts.midPortM', drafts.midPortM)} />
+        <NumberInput register={register} name="drafts.midStarboardM" label="Midship stbd" unit={lu} errors={formState.errors} hint="optional" extra={chip('drafts.midStarboardM', drafts.midStarboardM)} />
       </fieldset>
       <div className="grid grid-cols-2 gap-3 sm:grid-cols-4">
-        <NumberInput register={register} name="heelDeg" label="Heel (inclinometer)" unit="°" errors={formState.errors} hint="+ starboard down; empty: from midship drafts" />
+        <NumberInput
+          register={register}
+          name="heelDeg"
+          label="Heel (inclinometer)"
+          unit="°"
+          errors={formState.errors}
+          hint={`+ starboard down; needed for loads unless both midship drafts are read; checked against them (warning beyond ${HEEL_AGREEMENT_TOLERANCE_DEG}°)`}
+          extra={chip('heelDeg', heel)}
+        />
         <NumberInput
           register={register}
           name="seaDensityKgM3"
           label="Sea water density"
           unit={du}
           errors={formState.errors}
-          placeholder={formatNumber(display(DEFAULT_SEA_DENSITY_KG_M3, 'density', system), 5)}
-          hint={`hydrometer reading; empty: default ${formatNumber(display(DEFAULT_SEA_DENSITY_KG_M3, 'density', system), 5)} ${du}`}
+          placeholder={defaultSea}
+          hint="hydrometer reading"
+          extra={
+            sea.trim() === '' ? (
+              <MarkChip mark="assumed" assumedValue={`${defaultSea} ${du}, typical open sea`} onChange={() => undefined} onConfirm={() => setValue('seaDensityKgM3', defaultSea, { shouldDirty: true })} />
+            ) : (
+              chip('seaDensityKgM3', sea)
+            )
+          }
         />
       </div>
       <SaveIndicator state={state} />

@@ -1,4 +1,5 @@
 /** "Spaces": the compartments, as a box or a prism between two frames, with permeability and openness to the sea. */
+import { MarkChip } from './mark-chip';
 import { useForm } from 'react-hook-form';
 import { useId } from 'react';
 import { CompartmentSchema, type Compartment } from '@shared/schemas/survey';
@@ -108,11 +109,12 @@ function CompartmentEditor({ compartment, surveyId, apply, system }: { compartme
     defaultValues: defaults(compartment, system),
   });
   const state = useAutosave(form, (v) => apply({ kind: 'upsert', collection: 'compartments', entity: v }));
-  const { register, formState, watch } = form;
+  const { register, formState, watch, setValue } = form;
   const kind = watch('kind');
   const spaceType = watch('spaceType');
   const cargoState = watch('cargoState');
   const perm = defaultPermeability(spaceType, cargoState === '' ? undefined : cargoState);
+  const permeability = watch('permeability');
   const xAft = watch('xAft');
   const xFore = watch('xFore');
   const lu = measureLabel('length', system);
@@ -138,6 +140,16 @@ function CompartmentEditor({ compartment, surveyId, apply, system }: { compartme
           errors={e}
           placeholder={perm.value.toFixed(2)}
           hint={`empty: default ${perm.value.toFixed(2)} (${perm.source})`}
+          extra={
+            permeability.trim() === '' ? (
+              <MarkChip
+                mark="assumed"
+                assumedValue={`${perm.value.toFixed(2)}, ${perm.source}`}
+                onChange={() => undefined}
+                onConfirm={() => setValue('permeability', perm.value.toFixed(2), { shouldDirty: true })}
+              />
+            ) : undefined
+          }
         />
       </div>
       {CARGO_PERMEABILITY[spaceType] && (

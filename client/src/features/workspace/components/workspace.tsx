@@ -24,6 +24,7 @@ import { ContentsSection } from './contents-section';
 import { PlatesSection } from './plates-section';
 import { LoadsSection } from './loads-section';
 import { FloodingSection } from './flooding-section';
+import { StabilitySection } from './stability-section';
 import { PhotosSection } from './photos-section';
 import { ExportButton } from './survey-file';
 import { ModelSection } from './model-section';
@@ -37,6 +38,7 @@ const SECTIONS = [
   { id: 'plates', label: 'Plates' },
   { id: 'loads', label: 'Loads' },
   { id: 'flooding', label: 'Flooding' },
+  { id: 'stability', label: 'Stability' },
   { id: 'model', label: '3D' },
   { id: 'photos', label: 'Photos' },
 ] as const;
@@ -46,7 +48,7 @@ function useResults(survey: Survey | undefined): { results: SurveyResults | null
   return useMemo(() => {
     if (!survey) return { results: null, error: null };
     try {
-      return { results: computeSurvey(survey), error: null };
+      return { results: computeSurvey(survey, { includeLoadDiagrams: true }), error: null };
     } catch (err) {
       return { results: null, error: err instanceof Error ? err.message : 'The loads could not be computed.' };
     }
@@ -125,6 +127,7 @@ export function Workspace({ surveyId }: { surveyId: string }) {
     plates: <PlatesSection {...props} />,
     loads: <LoadsSection {...props} />,
     flooding: <FloodingSection {...props} />,
+    stability: <StabilitySection {...props} />,
     model: <ModelSection {...props} open={open} />,
     photos: <PhotosSection {...props} />,
   };
@@ -195,6 +198,7 @@ function StateStrip({ results, error, system, onOpen }: { results: SurveyResults
   if (!results) return null;
   const worst = results.boundaries.find((b) => b.id === results.summary.maxUtilisationBoundaryId);
   const over = results.summary.overCapacityBoundaryIds.length;
+  const unread = (results.frame.missingReadings ?? []).length > 0;
   return (
     <button
       type="button"
@@ -206,13 +210,13 @@ function StateStrip({ results, error, system, onOpen }: { results: SurveyResults
       <span>
         <span className="text-xs font-bold uppercase text-ink-soft">Heel </span>
         <b className="tabular-nums">
-          {Math.abs(results.frame.heelDeg).toFixed(1)}° {results.frame.heelDeg > 0.05 ? 'stbd' : results.frame.heelDeg < -0.05 ? 'port' : ''}
+          {unread ? '—' : `${Math.abs(results.frame.heelDeg).toFixed(1)}° ${results.frame.heelDeg > 0.05 ? 'stbd' : results.frame.heelDeg < -0.05 ? 'port' : ''}`}
         </b>
       </span>
       <span>
         <span className="text-xs font-bold uppercase text-ink-soft">Trim </span>
         <b className="tabular-nums">
-          {fmt(Math.abs(results.frame.trimM), 'length', system, 3)} {results.frame.trimM > 0.005 ? 'stern' : results.frame.trimM < -0.005 ? 'head' : ''}
+          {unread ? '—' : `${fmt(Math.abs(results.frame.trimM), 'length', system, 3)} ${results.frame.trimM > 0.005 ? 'stern' : results.frame.trimM < -0.005 ? 'head' : ''}`}
         </b>
       </span>
       <span>
@@ -223,6 +227,11 @@ function StateStrip({ results, error, system, onOpen }: { results: SurveyResults
         <span className="text-xs font-bold uppercase text-ink-soft">Oil </span>
         <b className="tabular-nums">{fmt(results.ship.oil.massKg, 'mass', system, 4)}</b>
       </span>
+      {(results.withheld ?? []).length > 0 && (
+        <span className="text-sm font-bold" data-testid="readings-needed">
+          Readings needed: {(results.withheld ?? []).length} not shown
+        </span>
+      )}
       <span className="flex items-center gap-1">
         <UtilisationBadge value={results.summary.maxUtilisation} compact />
         {worst && <span className="text-sm font-bold">{worst.name}</span>}

@@ -6,6 +6,7 @@ import { byKey, parseField, showField, unitResolver } from './form-units';
 import { emptyPlaneShape, geometryToPlaneShape, planeShapeToGeometry, type PlaneKind, type ShapeKind } from './plane-geometry';
 import { parseX } from './parse-x';
 import type { FrameTable } from './frames';
+import { settleMarks, type Marks } from '@shared/schemas/marks';
 
 export interface ShoreForm {
   id: string;
@@ -21,6 +22,13 @@ export interface ShoreForm {
   end: 'pinned-pinned' | 'fixed-fixed' | 'fixed-pinned' | 'fixed-free';
   side: 'A' | 'B';
   angle: string;
+  /** Column design method ('' = none given: Euler ÷ 2 or the allowable stress, flagged). */
+  method: '' | 'aisc-360-e3' | 'nds-3.7.1' | 'generic';
+  fy: string;
+  fc: string;
+  emin: string;
+  fail: string;
+  factor: string;
 }
 
 export interface BoundaryForm {
@@ -54,6 +62,8 @@ export interface BoundaryForm {
   capKind: 'none' | 'pressure' | 'force';
   capValue: string;
   notes: string;
+  /** Not an input: the marks on this plate's figures (shared/schemas/marks.ts). */
+  marks: Marks;
 }
 
 export const sideValue = (s: BoundarySide): string => (s.kind === 'compartment' ? s.compartmentId : s.kind);
@@ -113,10 +123,17 @@ export function boundaryToForm(b: Boundary, system: UnitSystem): BoundaryForm {
       end: s.endCondition,
       side: s.side,
       angle: s.angleFromNormalDeg === undefined ? '' : String(s.angleFromNormalDeg),
+      method: s.design?.method ?? '',
+      fy: showField(s.design?.method === 'aisc-360-e3' ? s.design.yieldStressPa : 235e6, 'stress', system),
+      fc: showField(s.design?.method === 'nds-3.7.1' ? s.design.adjustedCompressionPa : 6.3e6, 'stress', system),
+      emin: showField(s.design?.method === 'nds-3.7.1' ? s.design.adjustedEMinPa : 3.6e9, 'stress', system),
+      fail: showField(s.design?.method === 'generic' ? s.design.failureStressPa : s.allowableStressPa * 2, 'stress', system),
+      factor: s.design?.method === 'generic' ? String(s.design.designFactor) : '2',
     })),
     capKind: cap?.kind ?? 'none',
     capValue: cap ? (cap.kind === 'pressure' ? showField(cap.pressurePa, 'pressure', system) : showField(cap.forceN, 'force', system)) : '',
     notes: b.notes ?? '',
+    marks: b.marks ?? {},
   };
 }
 
@@ -131,6 +148,19 @@ function parsePoints(text: string, system: UnitSystem): { a: number; b: number }
     });
   if (pts.some((p) => p.a === undefined || p.b === undefined || !Number.isFinite(p.a) || !Number.isFinite(p.b))) return null;
   return pts as { a: number; b: number }[];
+}
+
+function shoreDesign(s: ShoreForm, stress: (t: string) => number | undefined): unknown {
+  switch (s.method) {
+    case 'aisc-360-e3':
+      return { method: s.method, yieldStressPa: stress(s.fy) };
+    case 'nds-3.7.1':
+      return { method: s.method, adjustedCompressionPa: stress(s.fc), adjustedEMinPa: stress(s.emin), c: 0.8 };
+    case 'generic':
+      return { method: s.method, failureStressPa: stress(s.fail), designFactor: Number(s.factor.replace(',', '.')) };
+    default:
+      return undefined;
+  }
 }
 
 export function formToBoundary(v: BoundaryForm, base: Boundary, system: UnitSystem, frames: FrameTable): unknown {
@@ -156,7 +186,7 @@ export function formToBoundary(v: BoundaryForm, base: Boundary, system: UnitSyst
     });
   }
   const stress = (t: string) => parseField(t, 'stress', system);
-  return {
+  const next = {
     ...base,
     name: v.name,
     kind: v.kind,
@@ -186,6 +216,7 @@ export function formToBoundary(v: BoundaryForm, base: Boundary, system: UnitSyst
           endCondition: s.end,
           side: s.side,
           angleFromNormalDeg: parseField(s.angle, 'ratio', system),
+          design: shoreDesign(s, stress),
         }))
       : undefined,
     ratedCapacity:
@@ -196,6 +227,7 @@ export function formToBoundary(v: BoundaryForm, base: Boundary, system: UnitSyst
           : { kind: 'force', forceN: parseField(v.capValue, 'force', system) },
     notes: v.notes.trim() === '' ? undefined : v.notes,
   };
+  return { ...next, marks: settleMarks(v.marks, base, next) };
 }
 
 const MEASURES = byKey({
@@ -211,6 +243,10 @@ const MEASURES = byKey({
   sectionModulusM3: 'sectionModulus',
   allowableStressPa: 'stress',
   elasticModulusPa: 'stress',
+  yieldStressPa: 'stress',
+  adjustedCompressionPa: 'stress',
+  adjustedEMinPa: 'stress',
+  failureStressPa: 'stress',
   pressurePa: 'pressure',
   forceN: 'force',
   x: 'length',

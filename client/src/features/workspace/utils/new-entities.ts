@@ -1,5 +1,8 @@
-/** Fresh entities with sensible starting values, so "add" is one tap and the form opens filled in. */
-import type { Boundary, Compartment, Condition, Survey } from '@shared/schemas/survey';
+/**
+ * Fresh entities, so "add" is one tap and the form opens filled in with geometry; readings (drafts,
+ * heel, soundings, ullages) always start empty, never as a value that could pass for one.
+ */
+import type { Boundary, Compartment, Condition, LevelSource, Survey } from '@shared/schemas/survey';
 import { SURVEY_SCHEMA_VERSION } from '@shared/schemas/survey';
 
 export const newId = (): string => crypto.randomUUID();
@@ -9,11 +12,19 @@ export function newCondition(from?: Condition): Condition {
     id: newId(),
     name: undefined,
     time: new Date().toISOString(),
-    drafts: from ? { ...from.drafts } : { forwardM: 5, aftM: 5 },
-    heelDeg: from?.heelDeg,
+    // readings start empty: a new set is read afresh, only the pipes and the fluids carry over
+    drafts: {},
+    heelDeg: undefined,
     seaDensityKgM3: from?.seaDensityKgM3,
-    contents: from ? structuredClone(from.contents) : [],
+    contents: from ? from.contents.map((k) => ({ ...structuredClone(k), layers: k.layers.map((l) => ({ ...structuredClone(l), level: unread(l.level) })) })) : [],
   };
+}
+
+/** The same pipe or reference point with its reading taken off. */
+function unread(level: LevelSource): LevelSource {
+  if (level.kind === 'sounding' || level.kind === 'interfaceSounding') return { kind: level.kind, pipe: { ...level.pipe } };
+  if (level.kind === 'ullage') return { kind: 'ullage', reference: { ...level.reference } };
+  return structuredClone(level);
 }
 
 export function newSurvey(): Survey {

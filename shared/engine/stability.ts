@@ -1,0 +1,417 @@
+/**
+ * The ship's response to the liquids the survey models: new drafts, trim and heel, GM solid and
+ * fluid, from her intact hydrostatic particulars (./hydrostatics.ts), by the two textbook methods
+ * (Barrass & Derrett, "Ship Stability for Masters and Mates", chapters on bilging and on free
+ * surface; Rawson & Tupper, "Basic Ship Theory", ch. 5 "Flooding and damaged stability"):
+ *
+ * - ADDED WEIGHT: the liquid in each space is a weight at its centroid; the ship sinks by w/TPC,
+ *   trims by w·(LCF − x)/MCT, G moves to the combined centre, and every slack surface takes
+ *   ρ·i/Δ off GM (free-surface correction).
+ * - LOST BUOYANCY: a space open to the sea stops providing buoyancy and waterplane; displacement
+ *   and G stay, the ship sinks until the remaining waterplane makes up the lost volume, and KM
+ *   changes with the lost waterplane's second moment.
+ *
+ * Both find the same final waterline; GM differs between them (Δ differs) while the righting
+ * moment Δ·GM agrees. Small-angle theory throughout: heel tan φ = Σ w·y / (Δ · GM_fluid); beyond
+ * its range the response says so. Pure and fast: it is called at every step of a forecast.
+ */
+import type { Condition, Survey } from '../schemas/survey';
+import { DEFAULT_PERMEABILITY } from '../schemas/space-types';
+import { intactShip } from './hydrostatics';
+import { planeSection } from './mesh';
+import { compartmentSolid, volumeBelow, type Polyhedron } from './polyhedron';
+import type { Severity, SurveyResults } from './results';
+import { sectionMoments } from './section-moments';
+
+/**
+ * The liquid of one space as a weight. `freeSurfaceMomentKgM2` is ρ·i_T of the liquid's free
+ * surface(s) with permeability applied (in kg·m: kg/m³ × m⁴; the name is the agreed one).
+ * `openToSea`: the space is in free communication with the sea, its level the sea's: it is taken
+ * by lost buoyancy (or added weight up to the final waterline) from its geometry, and its
+ * massKg, centroid and free-surface moment are not used.
+ */
+export interface FloodWeight {
+  spaceId: string;
+  massKg: number;
+  x: number;
+  y: number;
+  z: number;
+  freeSurfaceMomentKgM2: number;
+  openToSea: boolean;
+}
+
+/**
+ * Heel in degrees (positive starboard down), trim over the LBP in m (T_AP − T_FP, positive by the
+ * stern), drafts at the vessel's draught marks (as a condition records them, so a condition at this
+ * attitude reads them back) and the mean draft amidships, m.
+ */
+export interface ShipAttitude {
+  heelDeg: number;
+  trimM: number;
+  draftAftM: number;
+  draftForeM: number;
+  meanDraftM: number;
+}
+
+export interface StabilityWarning {
+  code: string;
+  severity: Severity;
+  message: string;
+}
+
+export interface ShipResponse {
+  attitude: ShipAttitude;
+  /** Drafts at the perpendiculars, m. */
+  draftAftPerpM: number;
+  draftForePerpM: number;
+  displacementKg: number;
+  kgM: number;
+  kmM: number;
+  gmSolidM: number;
+  /** GM after the free-surface correction, m. */
+  gmFluidM: number;
+  freeSurfaceCorrectionM: number;
+  /** Each slack space's free-surface moment, kg·m. */
+  freeSurfaces: { spaceId: string; momentKgM: number }[];
+  /** Which spaces each method took. */
+  methods: { addedWeight: string[]; lostBuoyancy: string[] };
+  /** 'small-angle' (tan φ = Σw·y/(Δ·GM)) or 'loll' (GM fluid ≤ 0: wall-sided formula, a rough figure). */
+  heelBy: 'small-angle' | 'loll';
+  /** Least height of the deck edge above the water at this attitude, m. */
+  deckEdgeFreeboardM: number;
+  /** Remaining waterplane area, m² (less than intact when a space is open to the sea). */
+  waterplaneAreaM2: number;
+  /** Longitudinal centre of flotation about which the ship trims, m from the AP. */
+  lcfM: number;
+  /** Moment to change trim one metre, kg·m/m. */
+  mctKgM: number;
+  warnings: StabilityWarning[];
+}
+
+/** Heel beyond which small-angle results are flagged, degrees (the common limit of the texts). */
+export const SMALL_ANGLE_LIMIT_DEG = 10;
+/** Trim beyond which the hydrostatics of an even-keel table are flagged, as a fraction of LBP (common practice, no source). */
+export const LARGE_TRIM_FRACTION = 0.01;
+
+const UP: [number, number, number] = [0, 0, 1];
+const solids = new WeakMap<object, Polyhedron>();
+function solidOf(geometry: object & Parameters<typeof compartmentSolid>[0]): Polyhedron {
+  let s = solids.get(geometry);
+  if (!s) solids.set(geometry, (s = compartmentSolid(geometry)));
+  return s;
+}
+
+interface OpenSpace {
+  spaceId: string;
+  solid: Polyhedron;
+  permeability: number;
+}
+
+/** Volume, centroid and waterplane of the open spaces' permeable part below the level z = T. */
+function openSpacesAt(spaces: readonly OpenSpace[], T: number) {
+  return spaces.map((s) => {
+    const v = volumeBelow(s.solid, UP, T);
+    const sec = sectionMoments(planeSection(s.solid, UP, T), UP);
+    const mu = s.permeability;
+    return {
+      spaceId: s.spaceId,
+      volumeM3: mu * v.volume,
+      centroid: v.volume > 1e-12 ? [v.mx / v.volume, v.my / v.volume, v.mz / v.volume] : [0, 0, T],
+      areaM2: mu * sec.areaM2,
+      areaCentroid: sec.centroid ?? [0, 0, T],
+      iAlongM4: mu * sec.iAlongM4,
+      iAcrossM4: mu * sec.iAcrossM4,
+    };
+  });
+}
+
+/**
+ * The response of the ship of `condition` (its hydrostatic particulars) to `weights`, or null when
+ * the condition has no particulars. Weights are the liquids of the spaces the survey models (the
+ * particulars are for the ship with those spaces empty). Spaces open to the sea go by lost
+ * buoyancy unless the condition chooses added weight. Units: kg, m, degrees.
+ */
+export function responseFromWeights(survey: Survey, condition: Condition, weights: readonly FloodWeight[]): ShipResponse | null {
+  const ship = intactShip(survey, condition);
+  if (!ship) return null;
+  const warnings: StabilityWarning[] = [];
+  const warn = (code: string, severity: Severity, message: string) => warnings.push({ code, severity, message });
+  const rho = ship.seaDensityKgM3;
+  const L = ship.lengthM;
+  const openMethod = condition.stability?.openSpaceMethod ?? 'lost-buoyancy';
+
+  const compartments = new Map(survey.compartments.map((c) => [c.id, c]));
+  const open: OpenSpace[] = [];
+  let W = 0, Mx = 0, My = 0, Mz = 0, fsmAdded = 0;
+  const added: string[] = [];
+  const freeSurfaces: { spaceId: string; momentKgM: number }[] = [];
+  for (const w of weights) {
+    const comp = w.openToSea ? compartments.get(w.spaceId) : undefined;
+    if (comp) {
+      open.push({ spaceId: w.spaceId, solid: solidOf(comp.geometry), permeability: comp.permeability ?? DEFAULT_PERMEABILITY[comp.spaceType] });
+      continue;
+    }
+    if (w.openToSea) warn('open-space-unknown', 'warning', `Space ${w.spaceId} is open to the sea but not in the survey; taken as an added weight.`);
+    if (!(w.massKg > 0)) continue;
+    W += w.massKg;
+    Mx += w.massKg * w.x;
+    My += w.massKg * w.y;
+    Mz += w.massKg * w.z;
+    added.push(w.spaceId);
+    if (w.freeSurfaceMomentKgM2 > 0) {
+      fsmAdded += w.freeSurfaceMomentKgM2;
+      freeSurfaces.push({ spaceId: w.spaceId, momentKgM: w.freeSurfaceMomentKgM2 });
+    }
+  }
+
+  const d0 = ship.displacementKg;
+  const h0 = ship.at(ship.draftM);
+  if (h0.kmM < ship.kgM) {
+    warn('km-below-kg', 'warning', `KM ${h0.kmM.toFixed(2)} m is below KG ${ship.kgM.toFixed(2)} m in the particulars: the intact ship would have no stability. Check the figures against the stability information.`);
+  }
+
+  // Added weights: parallel sinkage at the centre of flotation (box: exact draft of the box).
+  const d1 = d0 + W;
+  const T1 = ship.kind === 'box' ? d1 / (rho * L * ship.breadthM) : ship.draftM + W / (rho * h0.waterplaneAreaM2);
+  const h1 = ship.at(T1);
+  const Aw = h1.waterplaneAreaM2;
+  const V1 = d1 / rho;
+
+  // Spaces open to the sea: the draft at which the hull displaces V1 plus what they take in.
+  let Tf = T1;
+  let sinks = false;
+  if (open.length > 0) {
+    for (let i = 0; i < 60; i++) {
+      const at = openSpacesAt(open, Tf);
+      const lost = at.reduce((s, o) => s + o.volumeM3, 0);
+      const lostArea = at.reduce((s, o) => s + o.areaM2, 0);
+      const f = Aw * (Tf - T1) - lost;
+      const slope = Aw - lostArea;
+      if (slope <= 1e-9 * Aw) {
+        sinks = true;
+        break;
+      }
+      const step = -f / slope;
+      Tf += step;
+      if (Math.abs(step) < 1e-10 * Math.max(1, Tf)) break;
+      if (Tf > 10 * ship.depthM) {
+        sinks = true;
+        break;
+      }
+    }
+  }
+  const os = openSpacesAt(open, Tf);
+  const lostVolume = os.reduce((s, o) => s + o.volumeM3, 0);
+
+  let disp: number, kg: number, lcg: number, tcg: number, km: number, kb: number, lcb: number, tcb: number, mct: number, lcf: number, area: number;
+  let fsm = fsmAdded;
+  if (openMethod === 'added-weight' || open.length === 0) {
+    // ADDED WEIGHT, open spaces included as water up to the final waterline.
+    const wo = rho * lostVolume;
+    disp = d1 + wo;
+    let mx = d0 * ship.lcgM + Mx, my = d0 * ship.tcgM + My, mz = d0 * ship.kgM + Mz;
+    for (const o of os) {
+      mx += rho * o.volumeM3 * o.centroid[0];
+      my += rho * o.volumeM3 * o.centroid[1];
+      mz += rho * o.volumeM3 * o.centroid[2];
+      const m = rho * o.iAlongM4;
+      if (m > 0) {
+        fsm += m;
+        freeSurfaces.push({ spaceId: o.spaceId, momentKgM: m });
+      }
+    }
+    kg = mz / disp;
+    lcg = mx / disp;
+    tcg = my / disp;
+    const hf = ship.kind === 'box' ? ship.at(Tf) : h1;
+    km = hf.kmM;
+    kb = Tf / 2;
+    lcf = hf.lcfM;
+    area = hf.waterplaneAreaM2;
+    // The added layer of buoyancy lies at the centre of flotation (box: upright box, B at L/2).
+    lcb = ship.kind === 'box' ? L / 2 : (d0 * ship.lcbM + (disp - d0) * lcf) / disp;
+    tcb = 0;
+    mct = hf.mctKgM(disp, kg);
+  } else {
+    // LOST BUOYANCY: displacement and G as with the added weights alone.
+    disp = d1;
+    kg = (d0 * ship.kgM + Mz) / d1;
+    lcg = (d0 * ship.lcgM + Mx) / d1;
+    tcg = (d0 * ship.tcgM + My) / d1;
+    const s = Tf - T1;
+    // Buoyancy: the layer Aw·s between T1 and Tf comes in, the open spaces' volume goes out.
+    let zLost = 0, xLost = 0, yLost = 0, aLost = 0, ayLost = 0, axLost = 0, iT = 0, iL = 0;
+    for (const o of os) {
+      zLost += o.volumeM3 * o.centroid[2];
+      xLost += o.volumeM3 * o.centroid[0];
+      yLost += o.volumeM3 * o.centroid[1];
+      aLost += o.areaM2;
+      ayLost += o.areaM2 * o.areaCentroid[1];
+      axLost += o.areaM2 * o.areaCentroid[0];
+      // each lost piece about the centreline and about the intact LCF (parallel axes)
+      iT += o.iAlongM4 + o.areaM2 * o.areaCentroid[1] ** 2;
+      iL += o.iAcrossM4 + o.areaM2 * (o.areaCentroid[0] - h1.lcfM) ** 2;
+    }
+    const dKb = (Aw * s * (T1 + Tf) / 2 - zLost) / V1;
+    area = Aw - aLost;
+    const yF = -ayLost / area;
+    lcf = (Aw * h1.lcfM - axLost) / area;
+    // Remaining waterplane's second moments about its own centroid (parallel-axis theorem).
+    const dIT = -iT - area * yF * yF;
+    const dIL = -iL - area * (lcf - h1.lcfM) ** 2;
+    km = h1.kmM + dKb + dIT / V1;
+    kb = T1 / 2 + dKb;
+    const lcb1 = ship.kind === 'box' ? L / 2 : (d0 * ship.lcbM + W * h1.lcfM) / d1;
+    lcb = lcb1 + (Aw * s * h1.lcfM - xLost) / V1;
+    tcb = -yLost / V1;
+    mct = h1.mctKgM(d1, kg) + (d1 * (dKb + dIL / V1)) / L;
+  }
+
+  const gmSolid = km - kg;
+  const fsc = fsm / disp;
+  const gmFluid = gmSolid - fsc;
+  const trim = mct > 0 ? (disp * (lcb - lcg)) / mct : 0;
+  // Heel: positive to starboard; G to port of B heels her to port.
+  const arm = tcg - tcb;
+  let heelBy: ShipResponse['heelBy'] = 'small-angle';
+  let tanPort: number;
+  if (gmFluid > 0) {
+    tanPort = arm / gmFluid;
+  } else {
+    heelBy = 'loll';
+    tanPort = wallSidedHeel(gmFluid, Math.max(km - kb, 1e-6), arm);
+  }
+  const heelDeg = (-Math.atan(tanPort) * 180) / Math.PI;
+
+  const draftAt = (x: number) => Tf + (trim * (lcf - x)) / L;
+  const marks = survey.vessel.draughtMarks;
+  const attitude: ShipAttitude = {
+    heelDeg,
+    trimM: draftAt(0) - draftAt(L),
+    draftAftM: draftAt(marks.aftXM),
+    draftForeM: draftAt(marks.forwardXM),
+    meanDraftM: draftAt(L / 2),
+  };
+  const tanHeel = Math.tan((heelDeg * Math.PI) / 180);
+  const halfB = ship.breadthM / 2;
+  let deckEdge = Infinity;
+  for (const x of [0, L]) for (const y of [-halfB, halfB]) deckEdge = Math.min(deckEdge, ship.depthM - (draftAt(x) - y * tanHeel));
+
+  if (sinks || Tf >= ship.depthM) {
+    warn('sinks', 'danger', 'By these figures the remaining buoyancy cannot carry the ship: she would founder. The figures below do not apply.');
+  }
+  if (gmFluid <= 0) {
+    warn('gm-negative', 'danger', `GM fluid is ${gmFluid.toFixed(2)} m: the ship is unstable upright and may loll or capsize. The heel shown is a rough angle of loll (wall-sided formula${arm === 0 ? '; she may lie over to either side' : ''}); small-angle figures do not apply.`);
+  }
+  if (Math.abs(heelDeg) > SMALL_ANGLE_LIMIT_DEG) {
+    warn('heel-beyond-range', 'warning', `Heel ${Math.abs(heelDeg).toFixed(1)}° is beyond the ${SMALL_ANGLE_LIMIT_DEG}° to which the small-angle method holds; the real heel may differ a good deal.`);
+  }
+  if (Math.abs(attitude.trimM) > LARGE_TRIM_FRACTION * L) {
+    warn('trim-beyond-range', 'warning', `Trim ${Math.abs(attitude.trimM).toFixed(2)} m is more than ${(LARGE_TRIM_FRACTION * 100).toFixed(0)} % of the length: hydrostatics for an even keel lose accuracy.`);
+  }
+  if (deckEdge < 0) {
+    warn('deck-edge-immersed', 'warning', `The deck edge is ${(-deckEdge).toFixed(2)} m under water at this attitude: the ship has less stability than these figures show.`);
+  }
+  if (ship.kind === 'booklet' && Math.abs(Tf - ship.draftM) > Math.max(0.05 * ship.draftM, 0.25)) {
+    warn('hydrostatics-far', 'warning', `The mean draft moves from ${ship.draftM.toFixed(2)} m to ${Tf.toFixed(2)} m: read the hydrostatics at a draft nearer the new one (TPC, LCF, MCT and KM were taken as at ${ship.draftM.toFixed(2)} m).`);
+  }
+
+  return {
+    attitude,
+    draftAftPerpM: draftAt(0),
+    draftForePerpM: draftAt(L),
+    displacementKg: disp,
+    kgM: kg,
+    kmM: km,
+    gmSolidM: gmSolid,
+    gmFluidM: gmFluid,
+    freeSurfaceCorrectionM: fsc,
+    freeSurfaces,
+    methods: {
+      addedWeight: openMethod === 'added-weight' ? [...added, ...open.map((o) => o.spaceId)] : added,
+      lostBuoyancy: openMethod === 'added-weight' ? [] : open.map((o) => o.spaceId),
+    },
+    heelBy,
+    deckEdgeFreeboardM: deckEdge,
+    waterplaneAreaM2: area,
+    lcfM: lcf,
+    mctKgM: mct,
+    warnings,
+  };
+}
+
+/**
+ * tan φ of the heel (to port positive) where a wall-sided ship with negative or zero GM comes to
+ * rest: GZ = sin φ (GM + ½ BM tan² φ) balances the off-centre arm `a` (m to port) × cos φ, i.e.
+ * ½ BM t³ + GM t − a = 0 (the wall-sided formula, Barrass & Derrett, ch. "Angle of loll").
+ * With no off-centre arm, the angle of loll tan φ = √(−2 GM / BM), shown to starboard.
+ */
+function wallSidedHeel(gm: number, bm: number, a: number): number {
+  const sign = a >= 0 ? 1 : -1;
+  const target = Math.abs(a);
+  const g = (t: number) => 0.5 * bm * t * t * t + gm * t - target;
+  if (target === 0) return -Math.sqrt(Math.max(0, (-2 * gm) / bm));
+  let lo = 0, hi = 1;
+  while (g(hi) < 0 && hi < 1e6) hi *= 2;
+  for (let i = 0; i < 100; i++) {
+    const mid = (lo + hi) / 2;
+    if (g(mid) < 0) lo = mid;
+    else hi = mid;
+  }
+  return sign * hi;
+}
+
+/**
+ * The FloodWeights of a computed condition: each space's liquids (permeability and density applied,
+ * as computeSurvey found them) at their centroid, with the free-surface moment of every slack
+ * surface: ρ·μ·i_T, i_T the exact second moment of the surface polygon (the compartment solid cut at
+ * the level, at the condition's heel and trim) about its own axis along the ship. Between two
+ * layers (oil on water) the interface counts with the difference of their densities; a surface
+ * pressed up to the top of its space has no polygon and no free surface.
+ */
+export function floodWeightsFromResults(survey: Survey, results: SurveyResults): FloodWeight[] {
+  const up: [number, number, number] = [results.frame.up.x, results.frame.up.y, results.frame.up.z];
+  const compartments = new Map(survey.compartments.map((c) => [c.id, c]));
+  const condition = survey.conditions.find((k) => k.id === results.conditionId);
+  const contents = new Map((condition?.contents ?? []).map((k) => [k.compartmentId, k]));
+  // Open to the sea means in balance with it: no contents given (the engine floods it to the
+  // waterline) or a top layer at the outside waterline. A breached space still filling is a weight.
+  const inBalance = (id: string) => {
+    const layers = contents.get(id)?.layers;
+    return !layers || layers.length === 0 || layers[layers.length - 1].level.kind === 'openToSea';
+  };
+  const out: FloodWeight[] = [];
+  for (const r of results.compartments) {
+    const comp = compartments.get(r.id);
+    const c = r.liquid.centroid;
+    if (!comp || !c || !(r.liquid.massKg > 0)) continue;
+    const solid = solidOf(comp.geometry);
+    const layers = r.layers.filter((l) => l.volumeM3 > 0);
+    let fsm = 0;
+    layers.forEach((l, i) => {
+      const above = layers[i + 1]?.densityKgM3 ?? 0;
+      const contrast = l.densityKgM3 - above;
+      if (contrast <= 0) return;
+      const sec = sectionMoments(planeSection(solid, up, l.levelElevationM), up);
+      fsm += contrast * r.permeability * sec.iAlongM4;
+    });
+    out.push({ spaceId: r.id, massKg: r.liquid.massKg, x: c.x, y: c.y, z: c.z, freeSurfaceMomentKgM2: fsm, openToSea: r.openToSea && inBalance(r.id) });
+  }
+  return out;
+}
+
+/** The response of the ship to the contents of the computed condition (null without particulars). */
+export function shipResponseOf(survey: Survey, results: SurveyResults): ShipResponse | null {
+  const condition = survey.conditions.find((c) => c.id === results.conditionId);
+  return condition ? responseFromWeights(survey, condition, floodWeightsFromResults(survey, results)) : null;
+}
+
+/** The condition with the drafts and heel of `attitude` (to compute levels and loads at it). */
+export function conditionAtAttitude(condition: Condition, attitude: ShipAttitude): Condition {
+  return {
+    ...condition,
+    drafts: { forwardM: attitude.draftForeM, aftM: attitude.draftAftM },
+    heelDeg: attitude.heelDeg,
+  };
+}
+
