@@ -5,8 +5,8 @@
 import type { Survey } from '@shared/schemas/survey';
 import { governingCheck, type BoundaryResult, type SurveyResults } from '@shared/engine';
 import type { OperatingLimit, Verdict } from '@shared/api/review';
-import { CAUTIONS, STABILITY_CAUTION } from '@shared/api/cautions';
-import { downfloodingFreeboards, shipResponseOf } from '@shared/engine';
+import { CAUTIONS, FORECAST_CAUTION, STABILITY_CAUTION, hmm } from '@shared/api/cautions';
+import { downfloodingFreeboards, forecastFlooding, shipResponseOf } from '@shared/engine';
 import { STATUS_LABELS, type SurveyStatus } from '@shared/review/status';
 import { formatNumber, formatQuantity, type UnitSystem } from '@shared/units/units';
 import {
@@ -67,7 +67,28 @@ function sideLabel(results: SurveyResults, side: BoundaryResult['sideA']): strin
   return results.compartments.find((c) => c.id === side.compartmentId)?.name ?? 'a space';
 }
 
+/** The nearest time-to-limit in plain words, with what it assumes (null when no forecast can be run). */
+export function nearestLimitWords(doc: Survey): { sentence: string; assumptions: string } | null {
+  const utc = (iso: string | null) => formatShipAndUtc(iso, doc.vessel.shipTimeOffsetMin);
+  let f;
+  try {
+    f = forecastFlooding(doc);
+  } catch {
+    return null;
+  }
+  const first = f.limits[0];
+  const hours = (f.horizonS / 3600).toFixed(0);
+  const sentence = !first
+    ? `No boundary reaches its limit within the next ${hours} hours.`
+    : first.atS === 0
+      ? `${first.name} is already past its limit.`
+      : `${first.name} is expected to reach its limit at ${utc(new Date(Date.parse(f.readingsTime) + first.atS * 1000).toISOString())}, ${hmm(first.atS)} (h:mm) after the soundings.`;
+  const assumptions = `This assumes the breaches, openings, pumps and pumping plan stay as entered, and ${f.attitude.note.charAt(0).toLowerCase()}${f.attitude.note.slice(1)} ${FORECAST_CAUTION} It rests on readings of ${utc(f.latestReadingTime)}.`;
+  return { sentence, assumptions };
+}
+
 export function renderBriefPage(d: BriefPageData, opts: { ackError?: string } = {}): string {
+  const nearestLimit = nearestLimitWords(d.doc);
   const q = (v: number, dim: Parameters<typeof formatQuantity>[1], digits = 3) => formatQuantity(v, dim, d.units, digits).text;
   const utc = (iso: string | null) => formatShipAndUtc(iso, d.doc.vessel.shipTimeOffsetMin);
   const names = namesFromSurvey(d.doc);
@@ -147,6 +168,11 @@ ${response.warnings.length ? html`<ul>${response.warnings.map((w) => html`<li cl
   <h2 id="h-limits">Operating limits</h2>
   ${limitItems.length ? html`<ol class="limits">${limitItems}</ol>` : html`<p class="muted">The engineer set no limits.</p>`}
 </section>
+${nearestLimit ? html`<section aria-labelledby="h-nearest">
+  <h2 id="h-nearest">Time to the nearest limit</h2>
+  <p><strong>${nearestLimit.sentence}</strong></p>
+  <p class="muted">${nearestLimit.assumptions}</p>
+</section>` : ''}
 <section aria-labelledby="h-flooded">
   <h2 id="h-flooded">What is flooded</h2>
   ${r

@@ -5,7 +5,7 @@
  */
 import { useMemo, useState } from 'react';
 import { Link } from 'react-router';
-import { computeBoundaryDetail, computeSurvey, summariseBoundary } from '@shared/engine';
+import { computeBoundaryDetail, computeSurvey, forecastFlooding, summariseBoundary } from '@shared/engine';
 import type { SurveyResults } from '@shared/engine';
 import { UpgradingSurveySchema, type Survey } from '@shared/schemas/survey';
 import { compareResults } from '@shared/review/compare';
@@ -13,6 +13,7 @@ import { REVIEWABLE_STATUSES } from '@shared/review/status';
 import { Cautions } from '@client/components/layout/cautions';
 import { BoundaryDetail } from '@client/features/results/components/boundary-detail';
 import { BoundaryResultsTable } from '@client/features/results/components/boundary-results-table';
+import { ForecastView } from '@client/features/flooding/components/forecast-view';
 import { CompartmentTable } from '@client/features/results/components/compartment-table';
 import { ShipTotals } from '@client/features/results/components/ship-totals';
 import { ShipResponsePanel } from '@client/features/results/components/ship-response';
@@ -31,7 +32,7 @@ import { FigureNotesPanel } from './figure-notes-panel';
 import { VerdictPanel } from './verdict-panel';
 import { ReviewModel3d } from './review-model3d';
 
-type Tab = 'results' | 'model' | 'history';
+type Tab = 'results' | 'model' | 'forecast' | 'history';
 
 function useDeviceNumbers(doc: Survey | null): DeviceNumbers {
   return useMemo(() => {
@@ -138,6 +139,7 @@ export function ReviewDesk({ surveyId }: { surveyId: string }) {
           <div role="tablist" aria-label="Survey views" className="flex gap-1 border-b border-line">
             {tabBtn('results', 'Results')}
             {tabBtn('model', '3D model')}
+            {tabBtn('forecast', 'Forecast')}
             {tabBtn('history', 'History')}
           </div>
           {tab === 'results' && shown && (
@@ -152,6 +154,7 @@ export function ReviewDesk({ surveyId }: { surveyId: string }) {
           )}
           {tab === 'results' && !shown && <p>No results to show.</p>}
           {tab === 'model' && <ReviewModel3d survey={doc} results={shown} rows={rows} system={system} selectedId={selected} onSelect={setSelected} />}
+          {tab === 'forecast' && <ReviewForecast doc={doc} system={system} />}
           {tab === 'history' && <HistoryPanel surveyId={surveyId} names={names} system={system} />}
         </div>
         <div className="min-w-0 space-y-3">
@@ -163,4 +166,17 @@ export function ReviewDesk({ surveyId }: { surveyId: string }) {
       </div>
     </main>
   );
+}
+
+/** The surveyor's flooding forecast, recomputed here from the same document: read-only. */
+function ReviewForecast({ doc, system }: { doc: Parameters<typeof forecastFlooding>[0]; system: Parameters<typeof ForecastView>[0]['system'] }) {
+  const f = useMemo(() => {
+    try {
+      return forecastFlooding(doc);
+    } catch {
+      return null;
+    }
+  }, [doc]);
+  if (!f) return <p role="alert">The forecast could not be run on this document.</p>;
+  return <ForecastView forecast={f} survey={doc} system={system} />;
 }
