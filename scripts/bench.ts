@@ -2,7 +2,8 @@
  * `npm run bench`: every benchmark in one run, each printing its own figures.
  * Targets: engine < 10 ms for 4,000 boundaries (Node defaults) and ≥ 5,000× faster than quadrature; API ≥ 1,000 req/s
  * with p99 < 150 ms; initial JavaScript for sign-in and survey list ≤ 170 KB gzipped.
- * `npm run bench -- engine` (or sync, bundle) runs one section.
+ * `npm run bench -- engine` (or sync, bundle, loop) runs one section. `loop`: /api/health p99 while the
+ * largest allowed survey is recomputed, in the worker pool and (for comparison) on the request loop.
  *
  * The engine runs in child processes: with Node's default young generation (the figure that
  * counts: a phone's browser has no flags), then with --max-semi-space-size=128 for comparison.
@@ -31,6 +32,7 @@ const sections: Record<string, () => Promise<unknown> | unknown> = {
   },
   sync: async () => (await import('./bench-sync')).main(),
   bundle: async () => (await import('./bench-bundle')).main(),
+  loop: async () => (await import('./bench-loop')).main(),
 };
 
 const wanted = process.argv.slice(2).filter((a) => a in sections);

@@ -6,6 +6,7 @@ import http from 'node:http';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { pino } from 'pino';
+import { closeEnginePool } from './services/engine-pool';
 import { createApp } from './app';
 import { loadConfig, type Config } from './config';
 import { createDb, type Db } from './db/knex';
@@ -39,6 +40,7 @@ export async function startServer(config: Config, opts: { clientDir?: string; db
       server.closeAllConnections();
       await new Promise<void>((resolve) => server.close(() => resolve()));
       await db.destroy();
+      await closeEnginePool();
     },
   };
 }

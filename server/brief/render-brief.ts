@@ -17,6 +17,10 @@ import {
   surveyVerdictLabel,
   verdictSeverity,
 } from '@shared/review/words';
+import { formatShipAndUtc } from '@shared/review/time-words';
+import { boundaryKindWords } from '@shared/review/plain-words';
+import { figureNotes, figureNoteSentence } from '@shared/review/assumptions';
+import { measurableLimit } from '@shared/review/measurable-limits';
 import { html, type SafeHtml } from './html';
 
 export interface BriefPageData {
@@ -33,12 +37,17 @@ export interface BriefPageData {
   reviewedBy: string | null;
   reviewedAt: string | null;
   expiresAt: string;
+  /** The engineer who sent the link, so the bridge knows whom to call. */
+  engineer?: { name: string; email: string } | null;
+  /** The master's latest "received and understood" on this link. */
+  acknowledgement?: { name: string; at: string; revision: number } | null;
+  /** The link's own token, for the acknowledgement form's address. */
+  token?: string;
 }
 
 /** How many boundaries the brief lists at most, so it stays on one or two pages. */
 const MAX_BOUNDARIES = 8;
 
-const utc = (iso: string | null) => (iso ? new Date(iso).toISOString().replace('T', ' ').slice(0, 16) + ' UTC' : '—');
 
 const SEVERITY_CLASS = ['ok', 'care', 'warn', 'bad'] as const;
 
@@ -58,8 +67,9 @@ function sideLabel(results: SurveyResults, side: BoundaryResult['sideA']): strin
   return results.compartments.find((c) => c.id === side.compartmentId)?.name ?? 'a space';
 }
 
-export function renderBriefPage(d: BriefPageData): string {
+export function renderBriefPage(d: BriefPageData, opts: { ackError?: string } = {}): string {
   const q = (v: number, dim: Parameters<typeof formatQuantity>[1], digits = 3) => formatQuantity(v, dim, d.units, digits).text;
+  const utc = (iso: string | null) => formatShipAndUtc(iso, d.doc.vessel.shipTimeOffsetMin);
   const names = namesFromSurvey(d.doc);
   const condition = d.doc.conditions.find((c) => c.id === d.doc.activeConditionId) ?? d.doc.conditions[0];
   const surveyVerdict = d.verdicts.find((v) => v.scope === 'survey');
@@ -79,7 +89,7 @@ export function renderBriefPage(d: BriefPageData): string {
     const sev = v ? verdictSeverity(v.verdict) : null;
     const gov = governingCheck(b);
     return html`<li class="boundary">
-<div class="bhead"><strong>${b.name}</strong> <span class="muted">(${b.kind}, between ${sideLabel(r!, b.sideA)} and ${sideLabel(r!, b.sideB)})</span></div>
+<div class="bhead"><strong>${b.name}</strong> <span class="muted">(${boundaryKindWords(b.kind)}, between ${sideLabel(r!, b.sideA)} and ${sideLabel(r!, b.sideB)})</span></div>
 ${v ? html`<div class="verdict ${SEVERITY_CLASS[sev!]}"><strong>${boundaryVerdictLabel(v.verdict)}</strong>: ${boundaryVerdictMeaning(v.verdict)}.${v.note ? html` ${v.note}` : ''}</div>` : html`<div class="muted">No verdict given.</div>`}
 <div class="figs">Net load ${q(Math.abs(b.net.resultantN), 'force')} pushing towards ${sideLabel(r!, b.net.forceN >= 0 ? b.sideB : b.sideA)} · highest net pressure ${q(Math.abs(b.net.peak.pressurePa), 'pressure')}${
       gov ? html` · <span class="${gov.utilisation > 1 ? 'over' : ''}">${gov.utilisation > 1 ? '▲ OVER CAPACITY: ' : ''}${formatNumber(gov.utilisation * 100, 3)} % of ${gov.what}</span>` : ''
@@ -97,7 +107,25 @@ ${response.warnings.length ? html`<ul>${response.warnings.map((w) => html`<li cl
 <p class="muted">${STABILITY_CAUTION}</p>`
     : html`<p class="muted">Not computed: the survey has no hydrostatic particulars for these readings.</p>`;
 
-  const limitItems = d.limits.map((l) => html`<li>${describeLimit(l, names, d.units)}</li>`);
+  const limitItems = d.limits.map((l) => {
+    const measure = measurableLimit(l.rule, d.doc, d.units);
+    return html`<li>${describeLimit(l, names, d.units)}${measure ? html`<div class="measure">${measure}</div>` : ''}</li>`;
+  });
+  const notes = figureNotes(d.doc);
+  const ack = d.acknowledgement;
+  const ackSection = d.token
+    ? html`<section aria-labelledby="h-ack" id="acknowledged" class="ack">
+  <h2 id="h-ack">Received and understood</h2>
+  ${ack ? html`<p class="done">Acknowledged by <strong>${ack.name}</strong>, ${utc(ack.at)} (survey revision ${ack.revision}).</p>` : ''}
+  <form method="post" action="/brief/${d.token}/acknowledge">
+    <label for="ack-name">Your name and rank</label>
+    <input id="ack-name" name="name" autocomplete="name" maxlength="120" required${opts.ackError ? html` aria-invalid="true" aria-describedby="ack-error"` : ''}>
+    ${opts.ackError ? html`<p class="err" id="ack-error">${opts.ackError}</p>` : ''}
+    <button type="submit">${ack ? 'Acknowledge again' : 'Received and understood'}</button>
+  </form>
+  <p class="muted">The engineer sees your name and the time. It records that you have read this brief, nothing more.</p>
+</section>`
+    : '';
   const sev = surveyVerdict ? verdictSeverity(surveyVerdict.verdict) : null;
   const changedSince = d.revision > d.issuedRevision;
 
@@ -136,10 +164,19 @@ ${flooded.length ? html`<table><thead><tr><th scope="col">Space</th><th scope="c
   <h2 id="h-boundaries">Boundaries that matter</h2>
   ${boundaryItems.length ? html`<ul class="boundaries">${boundaryItems}</ul>` : html`<p class="muted">No boundary carries a net load.</p>`}
 </section>
+${notes.length ? html`<section aria-labelledby="h-notes">
+  <h2 id="h-notes">Figures not measured</h2>
+  <ul>${notes.map((n) => html`<li>${figureNoteSentence(n)}</li>`)}</ul>
+</section>` : ''}
 <section aria-labelledby="h-cautions" class="cautions">
   <h2 id="h-cautions">Cautions</h2>
   <ul>${[...CAUTIONS, STABILITY_CAUTION].map((c) => html`<li>${c}</li>`)}</ul>
 </section>
+<section aria-labelledby="h-contact">
+  <h2 id="h-contact">Your engineer</h2>
+  ${d.engineer ? html`<p><strong>${d.engineer.name}</strong>, ${d.organisationName}: <a href="mailto:${d.engineer.email}">${d.engineer.email}</a></p>` : html`<p class="muted">Ask ${d.organisationName} for the engineer on duty.</p>`}
+</section>
+${ackSection}
 <footer>
   <p>Reviewed by <strong>${d.reviewedBy ?? 'nobody yet'}</strong>${d.reviewedAt ? html` on ${utc(d.reviewedAt)}` : ''} · ${d.organisationName} · survey revision ${d.revision}.</p>
   <p>This link stops working ${utc(d.expiresAt)} and may be withdrawn earlier. Do not forward it. Figures in ${d.units === 'us' ? 'US customary units' : 'SI units'}.</p>
@@ -202,6 +239,14 @@ td:last-child,th:last-child{text-align:right;white-space:nowrap}
 .bhead{overflow-wrap:anywhere}
 .figs{font-size:.95rem;font-variant-numeric:tabular-nums}
 .over{color:var(--bad);font-weight:700}
+.measure{font-weight:400;font-size:.95rem;margin-top:2px}
+.ack{border:2px solid var(--hull);border-radius:8px;padding:2px 12px 10px;margin-top:1.3em}
+.ack h2{border:0}
+.ack label{display:block;font-weight:700}
+.ack input{font:inherit;width:100%;max-width:24rem;min-height:44px;padding:6px 8px;border:2px solid var(--line);border-radius:6px}
+.ack button{font:inherit;font-weight:700;min-height:44px;margin-top:8px;padding:6px 16px;border:0;border-radius:8px;background:var(--hull);color:#fff}
+.done{border-left:6px solid var(--ok);background:var(--ok-soft);padding:6px 10px;border-radius:4px}
+.err{color:var(--bad);font-weight:700}
 .cautions{border:2px solid var(--care);background:var(--care-soft);padding:2px 12px 8px;border-radius:8px;margin-top:1.3em}
 .cautions h2{border:0;margin-top:.5em}
 .cautions ul{padding-left:1.2em;margin:0}
@@ -211,6 +256,7 @@ footer{margin-top:1.2em;font-size:.9rem;color:var(--soft)}
   body{background:#fff;font-size:10.5pt}
   main{max-width:none;padding:0}
   h1{font-size:17pt} h2{font-size:12pt;margin-top:10pt}
+  .ack form{display:none}
   .verdict,.notice,.cautions{-webkit-print-color-adjust:exact;print-color-adjust:exact}
   .boundary,tr,.limits li,.cautions{break-inside:avoid}
   h2{break-after:avoid}

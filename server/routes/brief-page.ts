@@ -2,7 +2,8 @@
  * GET /brief/:token — the master's brief, server-rendered. Not under /api and not the SPA: no
  * sign-in, no script. Unknown, expired, revoked and malformed tokens all get the same 404 page.
  */
-import type { Response } from 'express';
+import express, { type Response } from 'express';
+import { BriefAcknowledgementSchema } from '@shared/api/review';
 import { PUBLIC, type RouteSpec } from '../http/route';
 import type { BriefService } from '../services/briefs';
 import { renderBriefNotFound, renderBriefPage } from '../brief/render-brief';
@@ -28,6 +29,34 @@ export function briefPageRoutes(briefs: BriefService): RouteSpec[] {  return [
           return;
         }
         res.status(200).send(renderBriefPage(data));
+      },
+    },
+    {
+      method: 'post',
+      path: '/brief/:token/acknowledge',
+      policy: PUBLIC,
+      // a plain HTML form: works with no script on the bridge's phone
+      before: [express.urlencoded({ extended: false, limit: '4kb' })],
+      handler: async (req, res) => {
+        privateHeaders(res);
+        const token = String(req.params.token);
+        const meta = { ip: req.ip ?? null, userAgent: req.get('user-agent') ?? null };
+        const parsed = BriefAcknowledgementSchema.safeParse(req.body ?? {});
+        if (!parsed.success) {
+          const data = await briefs.open(token, { ...meta, log: false });
+          if (!data) {
+            res.status(404).send(renderBriefNotFound());
+            return;
+          }
+          res.status(400).send(renderBriefPage(data, { ackError: parsed.error.issues[0]?.message ?? 'Write your name and rank.' }));
+          return;
+        }
+        if (!(await briefs.acknowledge(token, parsed.data.name, meta))) {
+          res.status(404).send(renderBriefNotFound());
+          return;
+        }
+        // post, redirect, get: a reload does not send it twice
+        res.redirect(303, `/brief/${encodeURIComponent(token)}#acknowledged`);
       },
     },
   ];

@@ -13,6 +13,7 @@ import {
 import { ANY_MEMBER, authOf, roles, type RouteSpec } from '../http/route';
 import { notFound } from '../errors';
 import type { AppServices } from '../services';
+import { renderReport } from '../report/render-report';
 
 /** Engineers review; admins may look (and withdraw a brief link), but do not judge structure. */
 const REVIEW_READERS = roles('engineer', 'admin');
@@ -26,8 +27,21 @@ const idParam = (req: Request, name: string, what: string): string => {
 };
 const surveyIdOf = (req: Request) => idParam(req, 'id', 'survey');
 
-export function reviewRoutes({ review, briefs }: Pick<AppServices, 'review' | 'briefs'>): RouteSpec[] {
+export function reviewRoutes({ review, briefs, reports }: Pick<AppServices, 'review' | 'briefs' | 'reports'>): RouteSpec[] {
   return [
+    {
+      method: 'get',
+      path: '/surveys/:id/report',
+      // the firm's record of the survey: every member may read and print it
+      policy: ANY_MEMBER,
+      handler: async (req, res) => {
+        const id = surveyIdOf(req);
+        const units = z.enum(['si', 'us']).catch('si').parse(req.query.units);
+        const html = renderReport(await reports.data(authOf(req), id, units));
+        res.setHeader('Cache-Control', 'no-store');
+        res.type('html').send(html);
+      },
+    },
     {
       method: 'post',
       path: '/surveys/:id/status',

@@ -66,20 +66,22 @@ export function createBriefService(deps: { db: Knex; config: Pick<Config, 'publi
   }
 
   /** The page's data for a live token, or null for any other (unknown, expired, revoked, malformed). */
-  async function open(token: string, meta: { ip: string | null; userAgent: string | null }): Promise<BriefPageData | null> {
+  async function open(token: string, meta: { ip: string | null; userAgent: string | null; log?: boolean }): Promise<BriefPageData | null> {
     if (!looksLikeSecret(token)) return null;
     const link = await repo.findLiveBrief(db, hashSecret(token));
     if (!link) return null;
     const s = await repo.findSurvey(db, link.orgId, link.surveyId);
     const parsed = s ? UpgradingSurveySchema.safeParse(s.doc) : null;
     if (!s || !parsed?.success) return null;
-    const [results, verdicts, limits, reviewed, organisationName] = await Promise.all([
+    const [results, verdicts, limits, reviewed, organisationName, issuer, acknowledgement] = await Promise.all([
       ensureResults(db, s.id, s.revision, parsed.data),
       repo.listVerdicts(db, [s.id]),
       repo.listLimits(db, [s.id]),
       repo.lastReviewEvent(db, s.id),
       repo.organisationName(db, link.orgId),
-      repo.logBriefOpening(db, link.id, meta.ip, meta.userAgent),
+      repo.briefIssuer(db, link.id),
+      repo.lastBriefAcknowledgement(db, link.id),
+      meta.log === false ? Promise.resolve() : repo.logBriefOpening(db, link.id, meta.ip, meta.userAgent),
     ]);
     return {
       doc: parsed.data,
@@ -94,10 +96,27 @@ export function createBriefService(deps: { db: Knex; config: Pick<Config, 'publi
       reviewedBy: reviewed?.name ?? null,
       reviewedAt: reviewed?.at ?? null,
       expiresAt: link.expiresAt,
+      engineer: issuer,
+      acknowledgement,
+      token,
     };
   }
 
-  return { issue, revoke, open };
+  /**
+   * The master's "received and understood": logged with the revision it was read at. False for a
+   * token that is not live (the caller answers as for an unknown link).
+   */
+  async function acknowledge(token: string, name: string, meta: { ip: string | null; userAgent: string | null }): Promise<boolean> {
+    if (!looksLikeSecret(token)) return false;
+    const link = await repo.findLiveBrief(db, hashSecret(token));
+    if (!link) return false;
+    const s = await repo.findSurvey(db, link.orgId, link.surveyId);
+    if (!s) return false;
+    await repo.insertBriefAcknowledgement(db, { briefId: link.id, name, revision: s.revision, ip: meta.ip, userAgent: meta.userAgent });
+    return true;
+  }
+
+  return { issue, revoke, open, acknowledge };
 }
 
 export type BriefService = ReturnType<typeof createBriefService>;

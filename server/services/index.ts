@@ -14,6 +14,7 @@ import { createSurveyService } from './surveys';
 import { createSyncService } from './sync/service';
 import { createReviewService } from './review';
 import { createBriefService } from './briefs';
+import { createReportService } from './report';
 import { createPhotoService } from './photos';
 
 export function createServices(ctx: AppContext) {
@@ -30,6 +31,7 @@ export function createServices(ctx: AppContext) {
     sync: createSyncService({ db: ctx.db, scheduler: surveys.scheduler }),
     review: createReviewService(ctx),
     briefs: createBriefService(ctx),
+    reports: createReportService(ctx),
     photos: createPhotoService(ctx),
   };
 }

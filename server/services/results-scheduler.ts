@@ -27,7 +27,7 @@ export function createResultsScheduler(db: Db, onError: (err: unknown) => void, 
     for (const id of ids) {
       try {
         const row = await docNeedingResults(db, id, ENGINE_VERSION);
-        if (row) await insertResults(db, { surveyId: id, revision: row.revision, engineVersion: ENGINE_VERSION, ...runEngine(row.doc) });
+        if (row) await insertResults(db, { surveyId: id, revision: row.revision, engineVersion: ENGINE_VERSION, ...(await runEngine(row.doc)) });
       } catch (err) {
         onError(err);
       }

@@ -281,8 +281,15 @@ export const BriefLinkSchema = z.object({
   revokedAt: z.string().nullable(),
   openings: z.number().int(),
   lastOpenedAt: z.string().nullable(),
+  /** The master's latest "received and understood", if any (absent from older servers). */
+  acknowledgement: z.object({ name: z.string(), at: z.string(), revision: z.number().int() }).nullable().optional(),
 });
 export type BriefLink = z.infer<typeof BriefLinkSchema>;
+
+/** The master's acknowledgement, posted by a plain HTML form (no script): a name is all it asks. */
+export const BriefAcknowledgementSchema = z.object({
+  name: z.string().trim().min(1, 'Write your name and rank.').max(120, 'At most 120 characters.'),
+});
 
 export const IssueBriefResponseSchema = z.object({
   link: BriefLinkSchema,

@@ -291,7 +291,8 @@ export const PullQuerySchema = z.object({
   cursor: z
     .string()
     .regex(/^\d{1,20}(:\d{1,20}:[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12})?$/i, 'cursor is not one this server gave out')
-    .refine((c) => c.split(':').every((part, i) => i === 2 || BigInt(part) <= XID8_MAX), 'cursor is not one this server gave out')
+    // zod runs the refinement even when the pattern failed: only digits reach BigInt (else a 500, not a 400).
+    .refine((c) => c.split(':').every((part, i) => i === 2 || (/^\d{1,20}$/.test(part) && BigInt(part) <= XID8_MAX)), 'cursor is not one this server gave out')
     .default('0'),
   limit: z.coerce.number().int().min(1).max(200).default(50),
 });

@@ -191,6 +191,10 @@ export const routeCases: Record<string, RouteCase> = {
     setup: async ({ t, org }) => ({ params: { id: (await storeSurvey(t.db, org.surveyor)).id } }),
     expect: anyMemberObject(200),
   },
+  'GET /api/surveys/:id/report': {
+    setup: async ({ t, org }) => ({ params: { id: (await storeSurvey(t.db, org.surveyor)).id } }),
+    expect: anyMemberObject(200),
+  },
   'GET /api/review/queue': { expect: engineerOrAdmin(200) },
   'GET /api/review/surveys/:id': {
     setup: async ({ t, org }) => ({ params: { id: (await surveyInStatus(t.db, org, 'submitted')).id } }),
@@ -258,5 +262,14 @@ export const routeCases: Record<string, RouteCase> = {
       return { params: { token: (await briefLink(t.db, org, s.id)).token } };
     },
     expect: everyone(200),
+  },
+  // The master's acknowledgement, public like the brief; the matrix sends no name, so every caller
+  // gets the page back with the field's error (tests/api/brief-acknowledgement.test.ts posts the form).
+  'POST /brief/:token/acknowledge': {
+    setup: async ({ t, org }) => {
+      const s = await surveyInStatus(t.db, org, 'accepted');
+      return { params: { token: (await briefLink(t.db, org, s.id)).token } };
+    },
+    expect: everyone(400),
   },
 };

@@ -425,6 +425,7 @@ const toBrief = (r: Record<string, unknown>): BriefLink => ({
   revokedAt: iso((r.revoked_at as Date | null) ?? null),
   openings: Number(r.openings ?? 0),
   lastOpenedAt: iso((r.last_opened_at as Date | null) ?? null),
+  acknowledgement: r.ack_name ? { name: r.ack_name as string, at: iso(r.ack_at as Date)!, revision: Number(r.ack_revision) } : null,
 });
 
 function briefsQuery(db: Q) {
@@ -435,6 +436,12 @@ function briefsQuery(db: Q) {
       'u.name as created_by_name',
       db.raw('(select count(*) from brief_openings o where o.brief_link_id = b.id) as openings'),
       db.raw('(select max(opened_at) from brief_openings o where o.brief_link_id = b.id) as last_opened_at'),
+      'a.name as ack_name',
+      'a.acknowledged_at as ack_at',
+      'a.revision as ack_revision',
+    )
+    .joinRaw(
+      'left join lateral (select name, acknowledged_at, revision from brief_acknowledgements k where k.brief_link_id = b.id order by acknowledged_at desc, id desc limit 1) a on true',
     );
 }
 
@@ -494,6 +501,22 @@ export async function findLiveBrief(db: Q, tokenHash: string): Promise<LiveBrief
 
 export async function logBriefOpening(db: Q, briefId: string, ip: string | null, userAgent: string | null): Promise<void> {
   await db('brief_openings').insert({ brief_link_id: briefId, ip, user_agent: userAgent?.slice(0, 300) ?? null });
+}
+
+export async function insertBriefAcknowledgement(db: Q, a: { briefId: string; name: string; revision: number; ip: string | null; userAgent: string | null }): Promise<void> {
+  await db('brief_acknowledgements').insert({ brief_link_id: a.briefId, name: a.name, revision: a.revision, ip: a.ip, user_agent: a.userAgent?.slice(0, 300) ?? null });
+}
+
+/** The latest acknowledgement of a link, for the brief page itself. */
+export async function lastBriefAcknowledgement(db: Q, briefId: string): Promise<{ name: string; at: string; revision: number } | null> {
+  const row = await db('brief_acknowledgements').where({ brief_link_id: briefId }).orderBy([{ column: 'acknowledged_at', order: 'desc' }, { column: 'id', order: 'desc' }]).first('name', 'acknowledged_at', 'revision');
+  return row ? { name: row.name, at: iso(row.acknowledged_at)!, revision: row.revision } : null;
+}
+
+/** The engineer who issued a link: name and e-mail, so the master knows whom to call. */
+export async function briefIssuer(db: Q, briefId: string): Promise<{ name: string; email: string } | null> {
+  const row = await db('brief_links as b').join('users as u', 'u.id', 'b.created_by').where('b.id', briefId).first('u.name', 'u.email');
+  return row ? { name: row.name, email: row.email } : null;
 }
 
 export async function organisationName(db: Q, orgId: string): Promise<string> {

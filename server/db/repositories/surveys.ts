@@ -113,10 +113,10 @@ export async function docNeedingResults(db: Q, id: string, engineVersion: string
 
 export async function insertResults(
   db: Q,
-  r: { surveyId: string; revision: number; engineVersion: string; results: unknown; error: string | null },
+  r: { surveyId: string; revision: number; engineVersion: string; /** The results as JSON text. */ resultsJson: string; error: string | null },
 ): Promise<void> {
   await db('survey_results')
-    .insert({ survey_id: r.surveyId, revision: r.revision, engine_version: r.engineVersion, results: json(r.results), error: r.error })
+    .insert({ survey_id: r.surveyId, revision: r.revision, engine_version: r.engineVersion, results: r.resultsJson, error: r.error })
     .onConflict(['survey_id', 'revision', 'engine_version'])
     .ignore();
 }

@@ -88,6 +88,13 @@ export function BriefPanel({ surveyId, status, briefs, canIssue, canRevoke }: { 
                   by {b.createdByName} · opened {b.openings} {b.openings === 1 ? 'time' : 'times'}
                   {b.lastOpenedAt ? ` (last ${when(b.lastOpenedAt)})` : ''}
                 </p>
+                {b.acknowledgement ? (
+                  <p className="mt-1 font-bold text-ok" data-testid="brief-acknowledged">
+                    Received and understood: {b.acknowledgement.name}, {when(b.acknowledgement.at)} (revision {b.acknowledgement.revision})
+                  </p>
+                ) : (
+                  <p className="mt-1 text-ink-soft">Not acknowledged yet.</p>
+                )}
                 {state === 'active' && canRevoke && (
                   <button type="button" className={buttonClass('danger-outline', 'mt-1')} onClick={() => revoke.mutate(b.id)} disabled={revoke.isPending}>
                     Withdraw link

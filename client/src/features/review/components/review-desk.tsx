@@ -24,6 +24,9 @@ import { HistoryPanel } from './history-panel';
 import { LimitsPanel } from './limits-panel';
 import { NumbersCheck, type DeviceNumbers } from './numbers-check';
 import { StatusActions } from './status-actions';
+import { ReportButton } from '@client/components/report/report-button';
+import { formatShipAndUtc } from '@shared/review/time-words';
+import { FigureNotesPanel } from './figure-notes-panel';
 import { VerdictPanel } from './verdict-panel';
 import { ReviewModel3d } from './review-model3d';
 
@@ -97,11 +100,20 @@ export function ReviewDesk({ surveyId }: { surveyId: string }) {
       </Link>
       <h1 className="mt-1 text-2xl">{doc.vessel.name}</h1>
       <p className="text-ink-soft">
-        {doc.title} · soundings {condition ? new Date(condition.time).toISOString().slice(0, 16).replace('T', ' ') + ' UTC' : '—'} · revision {r.revision}
+        {doc.title} · {condition?.name ?? 'readings'} of {condition ? formatShipAndUtc(condition.time, doc.vessel.shipTimeOffsetMin) : '—'} · revision {r.revision}
       </p>
-      <div className="mt-3">
-        <StatusActions surveyId={surveyId} status={r.status} role={r.viewer.role} events={r.events} isSubmitter={isSubmitter} />
+      <div className="mt-3 flex flex-wrap items-start gap-2">
+        <StatusActions
+          surveyId={surveyId}
+          status={r.status}
+          role={r.viewer.role}
+          events={r.events}
+          isSubmitter={isSubmitter}
+          overCapacity={(server ?? device.results)?.summary.overCapacityBoundaryIds.map((id) => doc.boundaries.find((b) => b.id === id)?.name ?? id) ?? []}
+        />
+        <ReportButton surveyId={surveyId} className="ml-auto" />
       </div>
+      <FigureNotesPanel doc={doc} />
       <nav aria-label="On this page" className="mt-2 flex flex-wrap gap-x-4 text-sm font-bold lg:hidden">
         {[
           ['#verdicts-h', 'Verdicts'],

@@ -7,12 +7,30 @@ import { useChangeStatus } from '../api/change-status';
 import { StatusChip } from './status-chip';
 import { buttonClass } from '@client/components/ui/button';
 import { inputCls } from '@client/components/ui/fields';
+import { formatUtc } from '@shared/review/time-words';
 
-const when = (iso: string) => new Date(iso).toLocaleString('en-GB', { dateStyle: 'medium', timeStyle: 'short', timeZone: 'UTC' }) + ' UTC';
+const when = formatUtc;
 
-export function StatusActions({ surveyId, status, role, events, isSubmitter }: { surveyId: string; status: SurveyStatus; role: Role; events: StatusEvent[]; isSubmitter: boolean }) {
+export function StatusActions({
+  surveyId,
+  status,
+  role,
+  events,
+  isSubmitter,
+  overCapacity = [],
+}: {
+  surveyId: string;
+  status: SurveyStatus;
+  role: Role;
+  events: StatusEvent[];
+  isSubmitter: boolean;
+  /** Names of boundaries over capacity in the server's results: accepting asks first, naming them. */
+  overCapacity?: string[];
+}) {
   const change = useChangeStatus(surveyId);
   const [note, setNote] = useState('');
+  const [confirmAccept, setConfirmAccept] = useState(false);
+  const move = (to: SurveyStatus) => change.mutate({ to, note: note || undefined }, { onSuccess: () => setNote('') });
   const moves = transitionsFor(status, role).filter((t) => !(t.notBySubmitter && isSubmitter));
   return (
     <section aria-labelledby="status-h" className="rounded-lg border border-line bg-card p-3">
@@ -32,12 +50,35 @@ export function StatusActions({ surveyId, status, role, events, isSubmitter }: {
                 type="button"
                 className={buttonClass(t.action === 'return' ? 'danger-outline' : 'primary')}
                 disabled={change.isPending}
-                onClick={() => change.mutate({ to: t.to, note: note || undefined }, { onSuccess: () => setNote('') })}
+                onClick={() => (t.to === 'accepted' && overCapacity.length > 0 ? setConfirmAccept(true) : move(t.to))}
               >
                 {t.label}
               </button>
             ))}
           </div>
+          {confirmAccept && (
+            <div className="rounded-md border-2 border-danger bg-danger-soft p-2" role="alertdialog" aria-labelledby="accept-over-h" data-testid="accept-over-capacity">
+              <p id="accept-over-h" className="font-bold">
+                <span aria-hidden="true">▲ </span>
+                {overCapacity.length === 1 ? 'This boundary is' : `These ${overCapacity.length} boundaries are`} OVER CAPACITY: {overCapacity.join(', ')}. Accept the survey all the same?
+              </p>
+              <div className="mt-2 flex flex-wrap gap-2">
+                <button type="button" className={buttonClass('secondary')} onClick={() => setConfirmAccept(false)}>
+                  Not yet
+                </button>
+                <button
+                  type="button"
+                  className={buttonClass('danger-outline')}
+                  onClick={() => {
+                    setConfirmAccept(false);
+                    move('accepted');
+                  }}
+                >
+                  Accept with {overCapacity.length === 1 ? 'it' : 'them'} over capacity
+                </button>
+              </div>
+            </div>
+          )}
           {change.isError && <p role="alert" className="text-danger">{change.error.message}</p>}
         </div>
       )}

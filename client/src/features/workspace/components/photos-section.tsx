@@ -139,7 +139,6 @@ export function PhotosSection({ survey, apply, selectedId }: SectionProps) {
             ref={fileRef}
             type="file"
             accept="image/*"
-            capture="environment"
             className="sr-only"
             aria-label="Photo file"
             data-testid="photo-input"

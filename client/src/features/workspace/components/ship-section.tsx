@@ -2,6 +2,7 @@
 import { useForm } from 'react-hook-form';
 import { z } from 'zod';
 import { VesselSchema } from '@shared/schemas/survey';
+import { imoCheckDigitOk } from '@shared/schemas/marks';
 import type { UnitSystem } from '@shared/units/units';
 import { byKey, measureLabel, parseField, showField, unitResolver } from '../utils/form-units';
 import { NumberInput, TextInput, FormError, inputCls, secondaryBtn } from '@client/components/ui/fields';
@@ -14,7 +15,11 @@ import { formatNumber } from '@shared/units/units';
 const ShipFormSchema = z.object({
   title: z.string().trim().min(1),
   casualtyDescription: z.string(),
-  vessel: VesselSchema,
+  // the check digit is asked of new entries only: a stored document with a bad number still opens
+  vessel: VesselSchema.refine((v) => v.imo === undefined || imoCheckDigitOk(v.imo), {
+    path: ['imo'],
+    message: 'This IMO number fails its check digit: check the seven digits.',
+  }),
 });
 
 interface ShipForm {
@@ -76,7 +81,7 @@ export function ShipSection({ survey, apply, system }: SectionProps) {
         <div className="grid gap-3 sm:grid-cols-2">
           <TextInput register={register} name="title" label="Survey title" errors={formState.errors} />
           <TextInput register={register} name="vessel.name" label="Vessel name" errors={formState.errors} />
-          <TextInput register={register} name="vessel.imo" label="IMO number" errors={formState.errors} hint="7 digits; leave empty if unknown" />
+          <TextInput register={register} name="vessel.imo" label="IMO number" errors={formState.errors} hint="7 digits, the last a check digit; leave empty if unknown" />
         </div>
         <TextInput register={register} name="casualtyDescription" label="What happened" errors={formState.errors} multiline />
         <fieldset className="grid grid-cols-2 gap-3 sm:grid-cols-3">

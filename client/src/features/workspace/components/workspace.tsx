@@ -24,8 +24,10 @@ import { ContentsSection } from './contents-section';
 import { PlatesSection } from './plates-section';
 import { LoadsSection } from './loads-section';
 import { StabilitySection } from './stability-section';
+import { FloodingSection } from './flooding-section';
 import { PhotosSection } from './photos-section';
 import { ExportButton } from './survey-file';
+import { ReportButton } from '@client/components/report/report-button';
 import { ModelSection } from './model-section';
 import { SurveyReviewBar } from '@client/features/review-notes/components/survey-review-bar';
 
@@ -37,6 +39,7 @@ const SECTIONS = [
   { id: 'plates', label: 'Plates' },
   { id: 'loads', label: 'Loads' },
   { id: 'stability', label: 'Stability' },
+  { id: 'flooding', label: 'Flooding' },
   { id: 'model', label: '3D' },
   { id: 'photos', label: 'Photos' },
 ] as const;
@@ -125,10 +128,11 @@ export function Workspace({ surveyId }: { surveyId: string }) {
     plates: <PlatesSection {...props} />,
     loads: <LoadsSection {...props} />,
     stability: <StabilitySection {...props} />,
+    flooding: <FloodingSection {...props} />,
     model: <ModelSection {...props} open={open} />,
     photos: <PhotosSection {...props} />,
   };
-  const sideResults = section !== 'loads' && section !== 'model';
+  const sideResults = section !== 'loads' && section !== 'model' && section !== 'flooding';
 
   return (
     <main className="mx-auto max-w-7xl pb-8" data-testid="workspace">
@@ -142,6 +146,7 @@ export function Workspace({ surveyId }: { surveyId: string }) {
         <SurveySyncChip surveyId={surveyId} />
         <UnitToggle />
         <ExportButton survey={survey} />
+        <ReportButton surveyId={surveyId} />
       </div>
       <StateStrip results={results} error={error} system={system} onOpen={() => go('loads')} />
       <div className="mx-3 mt-2 sm:mx-5">

@@ -1,0 +1,169 @@
+/**
+ * The people around the numbers, in Chromium at 390 px and 1440 px: a new survey shows no loads
+ * until its readings are entered; the calculation report prints to PDF with every boundary; the
+ * master acknowledges the brief on a page with no script, and the engineer sees it on the desk.
+ */
+import { execFileSync } from 'node:child_process';
+import { writeFileSync, mkdtempSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import path from 'node:path';
+import { afterAll, beforeAll, describe, expect, it, inject } from 'vitest';
+import type { Browser, Page } from 'playwright-core';
+import { launchBrowser, screenshotPath } from '../support/browser';
+import { createDb, type Db } from '../../server/db/knex';
+import { demoSurvey } from '../../seeds/demo-survey';
+import { DEMO_SUBMITTED_SURVEY_ID } from '../../seeds/demo-survey';
+import { issueSecret } from '../../server/services/secrets';
+
+const baseUrl = inject('baseUrl');
+const SURVEYOR = { email: 'ines.achterberg@skerrow.example', password: 'brine-surveyor-2026' };
+const ENGINEER = { email: 'tomas.varga@skerrow.example', password: 'brine-engineer-2026' };
+const WIDTHS = [390, 1440] as const;
+
+let browser: Browser;
+let db: Db;
+
+beforeAll(async () => {
+  browser = await launchBrowser();
+  db = createDb(inject('testEnv').DATABASE_URL);
+});
+afterAll(async () => {
+  await browser?.close();
+  await db?.destroy();
+});
+
+async function signIn(page: Page, who: { email: string; password: string }) {
+  await page.goto(`${baseUrl}/sign-in`);
+  await page.getByLabel('E-mail').waitFor({ timeout: 30_000 });
+  await page.getByLabel('E-mail').fill(who.email);
+  await page.getByLabel('Password').fill(who.password);
+  await page.getByRole('button', { name: 'Sign in' }).click();
+  await page.waitForURL((u) => !u.pathname.startsWith('/sign-in'));
+}
+
+const section = (page: Page, name: string) => page.getByRole('navigation', { name: 'Workspace sections' }).getByRole('button', { name, exact: true }).click();
+async function waitSaved(page: Page) {
+  await page.waitForTimeout(300);
+  await page.getByTestId('save-state').filter({ hasText: 'Saved on this device' }).first().waitFor({ timeout: 10_000 });
+}
+
+describe.each(WIDTHS)('at %i px', (width) => {
+  it('a new survey shows no loads until its readings are entered', async () => {
+    const context = await browser.newContext({ viewport: { width, height: 900 } });
+    const page = await context.newPage();
+    await signIn(page, SURVEYOR);
+    await page.goto(`${baseUrl}/surveys`);
+    await page.getByRole('button', { name: '+ New survey' }).click();
+    await page.getByTestId('workspace').waitFor();
+
+    await section(page, 'Readings');
+    // readings start empty: nothing that could pass for a draft
+    await expect(page.getByLabel(/^Aft \(/).inputValue()).resolves.toBe('');
+    await expect(page.getByLabel(/^Forward \(/).inputValue()).resolves.toBe('');
+    await expect(page.getByLabel('Heel (inclinometer)').inputValue()).resolves.toBe('');
+    await page.screenshot({ path: screenshotPath(`people-readings-empty-${width}`), fullPage: true });
+
+    await section(page, 'Spaces');
+    await page.getByRole('button', { name: '+ Add compartment' }).click();
+    await page.getByRole('form', { name: 'Compartment Space 1' }).waitFor();
+    await page.getByLabel('Name', { exact: true }).fill('No. 2 hold');
+    await waitSaved(page);
+    // the permeability left empty is the space type's default, marked assumed until confirmed
+    await expect(page.locator('[data-mark="assumed"]').first().textContent()).resolves.toContain('assumed');
+
+    await section(page, 'Contents');
+    await page.getByRole('button', { name: 'Enter contents of No. 2 hold' }).click();
+    await expect(page.getByLabel(/^Sounding \(/).inputValue()).resolves.toBe('');
+    await page.getByTestId('contents-withheld').waitFor();
+    await expect(page.getByTestId('contents-withheld').textContent()).resolves.toContain('enter the draft aft, draft forward, heel');
+
+    await section(page, 'Loads');
+    const notice = page.getByTestId('withheld-notice');
+    await notice.waitFor();
+    await expect(notice.textContent()).resolves.toContain('sounding in No. 2 hold');
+    await expect(page.getByTestId('total-flood-water').textContent()).resolves.toMatch(/^0(\.0+)? t$/);
+    await page.screenshot({ path: screenshotPath(`people-loads-withheld-${width}`), fullPage: true });
+
+    await section(page, 'Readings');
+    await page.getByLabel(/^Aft \(/).fill('6.2');
+    await page.getByLabel(/^Forward \(/).fill('5.8');
+    await page.getByLabel('Heel (inclinometer)').fill('1.5');
+    await waitSaved(page);
+    await section(page, 'Contents');
+    await page.getByLabel(/^Sounding \(/).fill('3.5');
+    await waitSaved(page);
+    await page.getByTestId('contents-summary').waitFor();
+
+    await section(page, 'Loads');
+    await expect(page.getByTestId('withheld-notice').count()).resolves.toBe(0);
+    await expect.poll(() => page.getByTestId('total-flood-water').textContent()).not.toMatch(/^0(\.0+)? t$/);
+    await page.screenshot({ path: screenshotPath(`people-loads-shown-${width}`), fullPage: true });
+    await context.close();
+  });
+
+  it('the calculation report prints to PDF with every boundary', async () => {
+    const context = await browser.newContext({ viewport: { width, height: 900 } });
+    const page = await context.newPage();
+    await signIn(page, ENGINEER);
+    await page.goto(`${baseUrl}/review/${DEMO_SUBMITTED_SURVEY_ID}`);
+    await page.getByTestId('review-desk').waitFor({ timeout: 30_000 });
+    const [tab] = await Promise.all([context.waitForEvent('page'), page.getByTestId('report-button').click()]);
+    await tab.waitForURL((u) => u.protocol === 'blob:', { timeout: 30_000 });
+    await tab.getByRole('heading', { name: /MV Lunga Sound/ }).waitFor();
+    await tab.screenshot({ path: screenshotPath(`people-report-${width}`), fullPage: width === 390 });
+    const names = demoSurvey().boundaries.map((b) => b.name);
+    for (const name of names) expect(await tab.locator('[data-boundary]').filter({ hasText: name }).count()).toBeGreaterThan(0);
+
+    const dir = mkdtempSync(path.join(tmpdir(), 'report-'));
+    for (const format of ['A4', 'Letter'] as const) {
+      const pdf = await tab.pdf({ format, printBackground: true });
+      const file = path.join(dir, `report-${format}.pdf`);
+      writeFileSync(file, pdf);
+      // pdftotext / pdfinfo (poppler-utils) read the printed file as a reader would
+      const pages = Number(/Pages:\s+(\d+)/.exec(execFileSync('pdfinfo', [file], { encoding: 'utf8' }))?.[1]);
+      expect(pages).toBeGreaterThanOrEqual(3);
+      expect(pages).toBeLessThan(30);
+      const text = execFileSync('pdftotext', ['-layout', file, '-'], { encoding: 'utf8' }).replace(/\s+/g, ' ');
+      for (const name of names) expect(text).toContain(name);
+      expect(text).toContain('Signature and date');
+      expect(text).toContain('Methods and sources');
+    }
+    await context.close();
+  });
+
+  it('the master acknowledges the brief with no script, and the engineer sees it', async () => {
+    // a link made as the desk makes one (token hashed), for the survey under review
+    const { token, hash } = issueSecret();
+    const engineer = await db('users').where({ email: ENGINEER.email }).first('id', 'organisation_id');
+    await db('brief_links').insert({
+      survey_id: DEMO_SUBMITTED_SURVEY_ID,
+      organisation_id: engineer.organisation_id,
+      token_hash: hash,
+      recipient_email: `master-${width}@lunga.example`,
+      units: 'si',
+      revision: 1,
+      expires_at: new Date(Date.now() + 86_400_000),
+      created_by: engineer.id,
+    });
+    const master = await browser.newContext({ viewport: { width, height: 900 }, javaScriptEnabled: false });
+    const page = await master.newPage();
+    await page.goto(`${baseUrl}/brief/${token}`);
+    await page.getByText("ship's time (UTC+01:00)").first().waitFor();
+    await expect(page.locator('body').textContent()).resolves.toContain('Tomas Varga');
+    await page.getByLabel('Your name and rank').fill(`A. Rennie, Master (${width})`);
+    await page.getByRole('button', { name: 'Received and understood' }).click();
+    await page.getByText(`Acknowledged by A. Rennie, Master (${width})`).waitFor();
+    await page.screenshot({ path: screenshotPath(`people-brief-acknowledged-${width}`), fullPage: true });
+    await master.close();
+
+    const context = await browser.newContext({ viewport: { width, height: 900 } });
+    const desk = await context.newPage();
+    await signIn(desk, ENGINEER);
+    await desk.goto(`${baseUrl}/review/${DEMO_SUBMITTED_SURVEY_ID}`);
+    await desk.getByTestId('review-desk').waitFor({ timeout: 30_000 });
+    const ack = desk.getByTestId('brief-acknowledged').filter({ hasText: `A. Rennie, Master (${width})` });
+    await ack.waitFor({ timeout: 30_000 });
+    await desk.screenshot({ path: screenshotPath(`people-desk-${width}`), fullPage: true });
+    await context.close();
+  });
+});
