@@ -88,6 +88,13 @@ export function demoSurvey(): Survey {
       breadthM: 18,
       depthM: 11,
       draughtMarks: { forwardXM: 118, aftXM: 0, midshipXM: 59 },
+      // Lowest points of the openings nearest the water (deck at side 11 m, forecastle 13.6 m).
+      downfloodingPoints: [
+        { id: id(600), name: 'Fore peak air pipe, forecastle deck (stbd)', kind: 'air-pipe', position: P(111, -6.5, 14.3) },
+        { id: id(601), name: 'No. 1 hatch coaming, fore end', kind: 'hatch-coaming', position: P(100, 0, 12.4) },
+        { id: id(602), name: 'Engine room vent, casing top (stbd)', kind: 'vent', position: P(22, -6, 16.5) },
+        { id: id(603), name: 'Accommodation door, main deck (stbd)', kind: 'door', position: P(14, -8.6, 11.3) },
+      ],
     },
     conditions: [
       {
@@ -97,6 +104,23 @@ export function demoSurvey(): Survey {
         drafts: { forwardM: 6.2, aftM: 7.4, midPortM: 6.17, midStarboardM: 7.43 },
         heelDeg: 4,
         seaDensityKgM3: 1024,
+        // The departure condition before the grounding, every modelled space empty: a part-laden
+        // tween-decker (Δ ≈ 0.69·L·B·T·ρ) with her heavy cargo stowed low. She is aground forward,
+        // so the free-floating model of her flooded is not expected to match the draft readings.
+        stability: {
+          particulars: {
+            kind: 'booklet',
+            displacementT: { value: 6900, from: 'Corran Tide stability booklet p. 41, departure condition 3 (part cargo)' },
+            meanDraftM: { value: 4.6, from: 'Corran Tide stability booklet p. 41, condition 3' },
+            kgM: { value: 5.05, from: 'Corran Tide stability booklet p. 41, condition 3, KG corrected' },
+            lcgM: { value: 57.6, from: 'Corran Tide stability booklet p. 41, condition 3' },
+            lcbM: { value: 59.3, from: 'Corran Tide stability booklet p. 12, hydrostatic table at 4.60 m' },
+            tpcT: { value: 17.4, from: 'Corran Tide stability booklet p. 12, hydrostatic table at 4.60 m' },
+            lcfM: { value: 58.2, from: 'Corran Tide stability booklet p. 12, hydrostatic table at 4.60 m' },
+            mct1cmTM: { value: 125, from: 'Corran Tide stability booklet p. 12, hydrostatic table at 4.60 m' },
+            kmM: { value: 7.75, from: 'Corran Tide stability booklet p. 12, hydrostatic table at 4.60 m' },
+          },
+        },
         contents: [
           {
             compartmentId: ID.forePeak,

@@ -173,11 +173,13 @@ function DownfloodingEditor({ survey, apply, system }: { survey: SectionProps['s
   const points = survey.vessel.downfloodingPoints ?? [];
   const [draft, setDraft] = useState({ name: '', kind: 'air-pipe', x: '', y: '', z: '' });
   const [errors, setErrors] = useState<Record<string, string>>({});
+  /** The point being changed in place (its id kept), or null when the form adds a new one. */
+  const [editingId, setEditingId] = useState<string | null>(null);
   const lu = measureLabel('length', system);
   const save = (next: typeof points) => apply({ kind: 'set', path: 'vessel', value: { ...survey.vessel, downfloodingPoints: next } });
   const add = async () => {
     const L = (t: string) => parseField(t, 'length', system);
-    const r = DownfloodingPointSchema.safeParse({ id: crypto.randomUUID(), name: draft.name, kind: draft.kind, position: { x: L(draft.x), y: L(draft.y), z: L(draft.z) } });
+    const r = DownfloodingPointSchema.safeParse({ id: editingId ?? crypto.randomUUID(), name: draft.name, kind: draft.kind, position: { x: L(draft.x), y: L(draft.y), z: L(draft.z) } });
     if (!r.success) {
       const e: Record<string, string> = {};
       for (const i of r.error.issues) e[String(i.path[i.path.length - 1])] = i.code === 'invalid_type' ? 'Required: enter a number.' : i.message;
@@ -185,7 +187,21 @@ function DownfloodingEditor({ survey, apply, system }: { survey: SectionProps['s
       return;
     }
     setErrors({});
-    await save([...points, r.data]);
+    // A point removed elsewhere while it was being edited comes back rather than losing the edit.
+    const inPlace = editingId !== null && points.some((q) => q.id === editingId);
+    await save(inPlace ? points.map((q) => (q.id === editingId ? r.data : q)) : [...points, r.data]);
+    setEditingId(null);
+    setDraft({ name: '', kind: draft.kind, x: '', y: '', z: '' });
+  };
+  const edit = (p: (typeof points)[number]) => {
+    setErrors({});
+    setEditingId(p.id);
+    const show = (v: number) => showField(v, 'length', system);
+    setDraft({ name: p.name, kind: p.kind, x: show(p.position.x), y: show(p.position.y), z: show(p.position.z) });
+  };
+  const cancel = () => {
+    setErrors({});
+    setEditingId(null);
     setDraft({ name: '', kind: draft.kind, x: '', y: '', z: '' });
   };
   const field = (k: 'x' | 'y' | 'z', label: string) => (
@@ -214,7 +230,17 @@ function DownfloodingEditor({ survey, apply, system }: { survey: SectionProps['s
             <span className="text-ink-soft">
               {p.kind.replace('-', ' ')} · x {showField(p.position.x, 'length', system)}, y {showField(p.position.y, 'length', system)}, z {showField(p.position.z, 'length', system)} {lu}
             </span>
-            <button type="button" className={`${dangerBtn} ml-auto`} onClick={() => void save(points.filter((q) => q.id !== p.id))}>
+            <button type="button" className={`${secondaryBtn} ml-auto`} aria-label={`Edit ${p.name}`} onClick={() => edit(p)}>
+              Edit
+            </button>
+            <button
+              type="button"
+              className={dangerBtn}
+              onClick={() => {
+                if (p.id === editingId) cancel();
+                void save(points.filter((q) => q.id !== p.id));
+              }}
+            >
               Remove
             </button>
           </li>
@@ -245,9 +271,16 @@ function DownfloodingEditor({ survey, apply, system }: { survey: SectionProps['s
         {field('y', 'y (to port)')}
         {field('z', 'z (above base)')}
       </div>
-      <button type="button" className={secondaryBtn} onClick={() => void add()}>
-        + Add downflooding point
-      </button>
+      <div className="flex flex-wrap gap-2">
+        <button type="button" className={secondaryBtn} onClick={() => void add()}>
+          {editingId ? 'Save changes to this point' : '+ Add downflooding point'}
+        </button>
+        {editingId && (
+          <button type="button" className={secondaryBtn} onClick={cancel}>
+            Cancel editing
+          </button>
+        )}
+      </div>
     </section>
   );
 }
