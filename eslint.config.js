@@ -53,6 +53,17 @@ const boundaries = {
   },
 };
 
+const SHARED_IS_PURE = {
+  group: ['node:*', 'fs', 'path', 'os', 'crypto', 'express', 'knex', 'pg', 'react', 'react-dom', '@client/*', '**/server/**', '**/client/**'],
+  message: 'shared/ is pure: no Node, DOM, server or client imports.',
+};
+
+/** Outside shared/engine/ the engine is reached through its public surface, shared/engine/index.ts, only. */
+const ENGINE_SURFACE = {
+  group: ['@shared/engine/*', '**/shared/engine/*', '../engine/*', '../../engine/*'],
+  message: 'Import the engine from @shared/engine (shared/engine/index.ts), its public surface.',
+};
+
 export default tseslint.config(
   { ignores: ['node_modules', 'dist', '.data', '.tmp', 'test-results', 'shared/schemas/*.json'] },
   js.configs.recommended,
@@ -78,8 +89,19 @@ export default tseslint.config(
     rules: {
       'no-restricted-imports': [
         'error',
-        { patterns: [{ group: ['node:*', 'fs', 'path', 'os', 'crypto', 'express', 'knex', 'pg', 'react', 'react-dom', '@client/*', '**/server/**', '**/client/**'], message: 'shared/ is pure: no Node, DOM, server or client imports.' }] },
+        {
+          patterns: [
+            SHARED_IS_PURE,
+            ENGINE_SURFACE,
+          ],
+        },
       ],
     },
   },
+  {
+    files: ['client/**/*.{ts,tsx}', 'server/**/*.ts', 'scripts/**/*.ts'],
+    rules: { 'no-restricted-imports': ['error', { patterns: [ENGINE_SURFACE] }] },
+  },
+  // The engine's own files import each other directly.
+  { files: ['shared/engine/**/*.ts'], rules: { 'no-restricted-imports': ['error', { patterns: [SHARED_IS_PURE] }] } },
 );

@@ -1,6 +1,7 @@
 /**
  * Engine benchmark: a generated 400-compartment, 4,000-boundary vessel under heel and trim.
- * Prints the median time of computeSurvey (wall clock and process CPU time, with the machine's
+ * Prints the median time of computeSurveySummary (the per-edit path), computeSurvey (full detail)
+ * and computeBoundaryDetail (wall clock and process CPU time, with the machine's
  * load average, since a busy machine inflates wall-clock medians), and, in the same run, the time
  * and error of a brute-force midpoint-grid quadrature of the same boundaries' net forces at
  * growing grid sizes, up to the first grid whose worst error is within 1e-4 relative; the speed
@@ -11,7 +12,7 @@
 import { loadavg } from 'node:os';
 import { resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { computeSurvey, type SurveyResults } from '@shared/engine';
+import { computeBoundaryDetail, computeSurvey, computeSurveySummary, type SurveyResults } from '@shared/engine';
 import { SURVEY_SCHEMA_VERSION, type Boundary, type Compartment, type Contents, type Survey } from '@shared/schemas/survey';
 import { pascalPressure } from '../tests/support/pascal';
 
@@ -198,32 +199,50 @@ function youngGeneration(): string {
   return flag ? `young generation ${flag}` : "Node's default young generation";
 }
 
+/** Median wall and CPU time of f over `runs` calls after a warm-up, in ms. */
+function timed(f: () => unknown, runs: number): { wall: number[]; cpu: number[] } {
+  for (let i = 0; i < 10; i++) f();
+  const wall: number[] = [];
+  const cpu: number[] = [];
+  for (let i = 0; i < runs; i++) {
+    const c0 = process.cpuUsage();
+    const t0 = performance.now();
+    f();
+    const t1 = performance.now();
+    const c = process.cpuUsage(c0);
+    wall.push(t1 - t0);
+    cpu.push((c.user + c.system) / 1000);
+  }
+  return { wall, cpu };
+}
+
+function describeTimes(label: string, t: { wall: number[]; cpu: number[] }): string {
+  const sorted = [...t.wall].sort((a, b) => a - b);
+  return (
+    `${label}: median ${median(t.wall).toFixed(2)} ms wall over ${t.wall.length} runs ` +
+    `(fastest ${sorted[0].toFixed(2)} ms, 10th percentile ${sorted[Math.floor(sorted.length / 10)].toFixed(2)} ms); process CPU time median ${median(t.cpu).toFixed(2)} ms (includes the collector's helper threads)`
+  );
+}
+
 export function main(opts: { timingOnly?: boolean } = {}): void {
   const survey = generateVessel();
   const [load1] = loadavg();
   console.log(`Vessel: ${survey.compartments.length} compartments, ${survey.boundaries.length} boundaries (heel 3.5°, trim 1.6 m by the stern); ${youngGeneration()}`);
-  let r = computeSurvey(survey);
-  for (let i = 0; i < 10; i++) r = computeSurvey(survey);
-  const times: number[] = [];
-  const cpuTimes: number[] = [];
-  for (let i = 0; i < 60; i++) {
-    const c0 = process.cpuUsage();
-    const t0 = performance.now();
-    r = computeSurvey(survey);
-    const t1 = performance.now();
-    const c = process.cpuUsage(c0);
-    times.push(t1 - t0);
-    cpuTimes.push((c.user + c.system) / 1000);
-  }
-  const engineMs = median(times);
-  const p10 = [...times].sort((a, b) => a - b)[Math.floor(times.length / 10)];
-  console.log(
-    `Engine computeSurvey (all loads, volumes, stiffeners, shores, load diagrams): median ${engineMs.toFixed(2)} ms wall over ${times.length} runs ` +
-      `(fastest ${Math.min(...times).toFixed(2)} ms, 10th percentile ${p10.toFixed(2)} ms); process CPU time median ${median(cpuTimes).toFixed(2)} ms (includes the collector's helper threads)`,
-  );
+  // the per-edit path: what the device computes on every edit and the forecast calls repeatedly
+  const lean = timed(() => computeSurveySummary(survey), 60);
+  const engineMs = median(lean.wall);
+  console.log(describeTimes('Engine computeSurveySummary (every load, volume, utilisation and warning; each boundary as a summary row)', lean));
+  // the stored results: every boundary in full (sides, parts, stiffener items, shores), no load diagrams
+  const full = timed(() => computeSurvey(survey), 30);
+  console.log(describeTimes('Engine computeSurvey (full detail of every boundary, as the server stores it)', full));
+  const one = timed(() => computeBoundaryDetail(survey, survey.boundaries[0].id), 30);
+  console.log(describeTimes('Engine computeBoundaryDetail (one boundary with its load diagram, as the detail view opens it)', one));
+  const r = computeSurvey(survey);
   console.log(`  machine load average ${load1.toFixed(2)} on this run: on a shared machine the fastest run is the better guide to an idle one`);
   if (opts.timingOnly) return;
   const exact = r.boundaries.map((b) => b.net.forceN);
+  const leanForces = computeSurveySummary(survey).boundaries.forceN;
+  if (exact.some((f, i) => f !== leanForces[i])) throw new Error('summary and full results disagree');
   console.log('');
   console.log('Engine error: exact in closed form (rounding only, ~1e-15 relative; tests hold it to 1e-9 on closed-form cases).');
   console.log(`Brute-force midpoint-grid quadrature of the same boundaries' net forces, against the engine, up to the first grid within ${TARGET_REL_ERROR.toExponential(0)}:`);
@@ -257,12 +276,12 @@ export function main(opts: { timingOnly?: boolean } = {}): void {
     console.log(
       `Speed ratio at equal or better accuracy: the ${reached.n}×${reached.n} grid first reaches a worst error of ${reached.maxErr.toExponential(2)} ` +
         `(≤ ${TARGET_REL_ERROR.toExponential(0)}) in ${reached.ms.toFixed(0)} ms for all boundaries; the engine, exact, takes ${engineMs.toFixed(2)} ms: ` +
-        `${ratio.toFixed(0)}× faster (goal ≥ 1,000×: ${ratio >= 1000 ? 'met' : 'not met'}).`,
+        `${ratio.toFixed(0)}× faster (goal ≥ 5,000×: ${ratio >= 5000 ? 'met' : 'not met'}).`,
     );
   } else {
     console.log(`No grid up to ${GRIDS[GRIDS.length - 1].n}×${GRIDS[GRIDS.length - 1].n} reached ${TARGET_REL_ERROR.toExponential(0)}; the ratio at equal accuracy exceeds the last one printed.`);
   }
-  console.log(`Engine target < 20 ms median: ${engineMs < 20 ? 'met' : 'not met'} on this run (wall clock, load average ${load1.toFixed(2)}).`);
+  console.log(`Engine target < 10 ms median (Node's default heap): ${engineMs < 10 ? 'met' : 'not met'} on this run (wall clock, load average ${load1.toFixed(2)}).`);
 }
 
 if (process.argv[1] && resolve(process.argv[1]) === fileURLToPath(import.meta.url)) main({ timingOnly: process.argv.includes('--timing-only') });

@@ -1,5 +1,6 @@
 /** Server configuration from the environment. Every variable is listed in README.md and DEVELOPERS.md. */
 import { z } from 'zod';
+import { formatIssueLines } from '@shared/api/format-issues';
 
 /**
  * Values written in this repository for development and tests. They are public, so a production
@@ -62,7 +63,7 @@ function productionProblems(c: z.infer<typeof ConfigSchema>, env: NodeJS.Process
 export function loadConfig(env: NodeJS.ProcessEnv = process.env): Config {
   const parsed = ConfigSchema.safeParse(env);
   if (!parsed.success) {
-    const lines = parsed.error.issues.map((i) => `  ${i.path.join('.')}: ${i.message}`).join('\n');
+    const lines = formatIssueLines(parsed.error).map((l) => `  ${l}`).join('\n');
     throw new Error(`Invalid environment:\n${lines}`);
   }
   const c = parsed.data;

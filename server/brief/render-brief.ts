@@ -3,8 +3,7 @@
  * inline style sheet. Readable on a 360 px phone and printable on one or two A4 pages.
  */
 import type { Survey } from '@shared/schemas/survey';
-import type { BoundaryResult, SurveyResults } from '@shared/engine/results';
-import { governingCheck } from '@shared/engine';
+import { governingCheck, type BoundaryResult, type SurveyResults } from '@shared/engine';
 import type { OperatingLimit, Verdict } from '@shared/api/review';
 import { CAUTIONS } from '@shared/api/cautions';
 import { STATUS_LABELS, type SurveyStatus } from '@shared/review/status';

@@ -11,7 +11,7 @@ import { readFileSync } from 'node:fs';
 import { resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { computeSurvey, type SurveyResults } from '@shared/engine';
-import { formatIssues } from '@shared/schemas/format-issues';
+import { formatIssueLines } from '@shared/api/format-issues';
 import { UpgradingSurveySchema } from '@shared/schemas/survey';
 import { pointWords, trimWords } from '@shared/units/point-words';
 import { FOOT_M, formatNumber, formatQuantity, fromSi, type Dimension, type UnitId, type UnitSystem } from '@shared/units/units';
@@ -72,7 +72,7 @@ export function runLoads(args: Args): SurveyResults {
   // An older file is brought up to the current format first (shared/schemas/upgrade.ts).
   const parsed = UpgradingSurveySchema.safeParse(doc);
   if (!parsed.success) {
-    throw new CliError(`${args.file}: invalid survey\n${formatIssues(parsed.error).map((l) => `  ${l}`).join('\n')}`, 1);
+    throw new CliError(`${args.file}: invalid survey\n${formatIssueLines(parsed.error).map((l) => `  ${l}`).join('\n')}`, 1);
   }
   if (args.conditionId && !parsed.data.conditions.some((c) => c.id === args.conditionId)) {
     throw new CliError(`${args.file}: no condition with id ${args.conditionId}`, 1);

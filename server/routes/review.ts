@@ -2,6 +2,7 @@
 import type { Request } from 'express';
 import { z } from 'zod';
 import {
+  CommentResolutionSchema,
   CompareQuerySchema,
   IssueBriefSchema,
   NewCommentSchema,
@@ -88,6 +89,16 @@ export function reviewRoutes({ review, briefs }: Pick<AppServices, 'review' | 'b
       handler: async (req, res) => {
         const id = surveyIdOf(req);
         res.status(201).json(await review.addComment(authOf(req), id, NewCommentSchema.parse(req.body)));
+      },
+    },
+    {
+      method: 'put',
+      path: '/review/surveys/:id/comments/:commentId/resolution',
+      // Only the reviewer closes a thread; the surveyor answers it.
+      policy: ENGINEER,
+      handler: async (req, res) => {
+        const id = surveyIdOf(req);
+        res.json(await review.resolveComment(authOf(req), id, idParam(req, 'commentId', 'comment'), CommentResolutionSchema.parse(req.body)));
       },
     },
     {

@@ -5,7 +5,7 @@
  */
 import type { Knex } from 'knex';
 import type { BriefLink, IssueBrief } from '@shared/api/review';
-import type { SurveyResults } from '@shared/engine/results';
+import type { SurveyResults } from '@shared/engine';
 import { UpgradingSurveySchema } from '@shared/schemas/survey';
 import { BRIEFABLE_STATUSES, STATUS_LABELS } from '@shared/review/status';
 import type { Config } from '../config';
@@ -13,7 +13,7 @@ import type { AuthContext } from '../http/auth-context';
 import { conflict, notFound } from '../errors';
 import type { Mailer } from '../mail/mailer';
 import { briefMail } from '../mail/brief-mail';
-import { briefPath, hashBriefToken, looksLikeBriefToken, newBriefToken } from '../brief/brief-token';
+import { hashSecret, issueSecret, looksLikeSecret } from './secrets';
 import type { BriefPageData } from '../brief/render-brief';
 import * as repo from '../db/repositories/review';
 import { ensureResults } from './engine-results';
@@ -27,7 +27,7 @@ export function createBriefService(deps: { db: Knex; config: Pick<Config, 'publi
     if (!BRIEFABLE_STATUSES.includes(s.status)) {
       throw conflict(`A brief is sent for a survey under review or accepted; this one is “${STATUS_LABELS[s.status]}”.`);
     }
-    const { token, hash } = newBriefToken();
+    const { token, hash } = issueSecret();
     const expiresAt = new Date(Date.now() + body.expiresInHours * 3600_000);
     const link = await repo.insertBrief(db, {
       surveyId,
@@ -39,7 +39,7 @@ export function createBriefService(deps: { db: Knex; config: Pick<Config, 'publi
       expiresAt,
       createdBy: auth.userId,
     });
-    const url = new URL(briefPath(token), config.publicUrl).toString();
+    const url = new URL(`/brief/${token}`, config.publicUrl).toString();
     const parsed = UpgradingSurveySchema.safeParse(s.doc);
     const [engineerName, organisationName] = await Promise.all([repo.userName(db, auth.userId), repo.organisationName(db, auth.orgId)]);
     await mailer.send({
@@ -66,8 +66,8 @@ export function createBriefService(deps: { db: Knex; config: Pick<Config, 'publi
 
   /** The page's data for a live token, or null for any other (unknown, expired, revoked, malformed). */
   async function open(token: string, meta: { ip: string | null; userAgent: string | null }): Promise<BriefPageData | null> {
-    if (!looksLikeBriefToken(token)) return null;
-    const link = await repo.findLiveBrief(db, hashBriefToken(token));
+    if (!looksLikeSecret(token)) return null;
+    const link = await repo.findLiveBrief(db, hashSecret(token));
     if (!link) return null;
     const s = await repo.findSurvey(db, link.orgId, link.surveyId);
     const parsed = s ? UpgradingSurveySchema.safeParse(s.doc) : null;

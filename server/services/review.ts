@@ -8,6 +8,7 @@ import type {
   CompareResponse,
   FieldChange,
   NewComment,
+  CommentResolution,
   NewLimit,
   QueueItem,
   ReviewBundle,
@@ -17,10 +18,10 @@ import type {
   StatusChangeRequest,
   StatusEvent,
 } from '@shared/api/review';
-import type { SurveyResults } from '@shared/engine/results';
 import type { Survey } from '@shared/schemas/survey';
-import { ENGINE_VERSION } from '@shared/engine';
+import { ENGINE_VERSION, type SurveyResults } from '@shared/engine';
 import { compareNumbers } from '@shared/review/compare';
+import { entityNoun } from '@shared/api/entity-nouns';
 import { QUEUE_STATUSES, REVIEWABLE_STATUSES, STATUS_LABELS, checkTransition, type SurveyStatus } from '@shared/review/status';
 import type { AuthContext } from '../http/auth-context';
 import { conflict, forbidden, notFound, validationFailed } from '../errors';
@@ -29,15 +30,6 @@ import { ensureResults } from './engine-results';
 
 const NO_SURVEY = 'No such survey in your organisation.';
 
-/** Collection names in the revision trail ('boundaries/<id>') as the singular the history shows. */
-const ENTITY_NAMES: Record<string, string> = {
-  conditions: 'condition',
-  compartments: 'compartment',
-  boundaries: 'boundary',
-  fluids: 'fluid',
-  photos: 'photo',
-};
-
 function splitEntity(c: repo.RevisionRow['changes'][number]): FieldChange {
   const slash = c.entity.indexOf('/');
   if (slash < 0) {
@@ -45,7 +37,7 @@ function splitEntity(c: repo.RevisionRow['changes'][number]): FieldChange {
     return { entity: vessel ? 'vessel' : c.entity, entityId: null, field: c.field, old: c.old ?? null, new: c.new ?? null };
   }
   const collection = c.entity.slice(0, slash);
-  return { entity: ENTITY_NAMES[collection] ?? collection, entityId: c.entity.slice(slash + 1), field: c.field, old: c.old ?? null, new: c.new ?? null };
+  return { entity: entityNoun(collection), entityId: c.entity.slice(slash + 1), field: c.field, old: c.old ?? null, new: c.new ?? null };
 }
 
 export function createReviewService(deps: { db: Knex }) {
@@ -149,6 +141,12 @@ export function createReviewService(deps: { db: Knex }) {
 
   async function addComment(auth: AuthContext, surveyId: string, body: NewComment) {
     const s = await surveyOf(db, auth, surveyId);
+    if (body.id) {
+      // A device sending again a reply it wrote offline: the comment already made is the answer.
+      const seen = await repo.findCommentAnywhere(db, body.id);
+      if (seen && seen.surveyId === surveyId && seen.authorId === auth.userId) return (await repo.findComment(db, surveyId, body.id))!;
+      if (seen) throw validationFailed('This comment id is already in use.', [{ path: 'id', message: 'already in use' }]);
+    }
     if (!targetExists(s.doc as Survey, body.target.kind, body.target.id)) {
       throw validationFailed('The survey has no such item to comment on.', [{ path: 'target', message: 'no such item in the survey' }]);
     }
@@ -158,7 +156,15 @@ export function createReviewService(deps: { db: Knex }) {
       if (!parent) throw validationFailed('The comment you reply to is not on this survey.', [{ path: 'parentId', message: 'no such comment' }]);
       parentId = parent.parentId ?? parent.id;
     }
-    return repo.insertComment(db, { surveyId, orgId: auth.orgId, target: body.target, parentId, body: body.body, authorId: auth.userId, revision: s.revision });
+    return repo.insertComment(db, { id: body.id, surveyId, orgId: auth.orgId, target: body.target, parentId, body: body.body, authorId: auth.userId, revision: s.revision });
+  }
+
+  /** The reviewer closes a thread once answered, or opens it again. */
+  async function resolveComment(auth: AuthContext, surveyId: string, commentId: string, body: CommentResolution) {
+    await surveyOf(db, auth, surveyId);
+    const done = await repo.setCommentResolution(db, surveyId, commentId, body.resolved ? auth.userId : null);
+    if (!done) throw notFound('No such comment thread on this survey.');
+    return (await repo.findComment(db, surveyId, commentId))!;
   }
 
   async function listComments(auth: AuthContext, surveyId: string) {
@@ -253,7 +259,7 @@ export function createReviewService(deps: { db: Knex }) {
     };
   }
 
-  return { changeStatus, queue, bundle, addComment, listComments, setVerdict, addLimit, removeLimit, revisions, compare };
+  return { changeStatus, queue, bundle, addComment, resolveComment, listComments, setVerdict, addLimit, removeLimit, revisions, compare };
 }
 
 export type ReviewService = ReturnType<typeof createReviewService>;

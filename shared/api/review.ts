@@ -48,6 +48,11 @@ export const NewCommentSchema = z.object({
   body: z.string().trim().min(1).max(4000),
   /** Reply to this comment (threads are one level deep: replies attach to the thread's first comment). */
   parentId: Id.optional(),
+  /**
+   * Made by the device that wrote it offline: sending the same comment again (a lost answer) returns
+   * the comment already made instead of a second one.
+   */
+  id: Id.optional(),
 });
 export type NewComment = z.infer<typeof NewCommentSchema>;
 
@@ -61,8 +66,14 @@ export const ReviewCommentSchema = z.object({
   authorRole: z.string(),
   revision: z.number().int(),
   createdAt: z.string(),
+  /** On a thread's first comment: when the reviewer closed the thread (absent from older servers). */
+  resolvedAt: z.string().nullable().optional(),
+  resolvedByName: z.string().nullable().optional(),
 });
 export type ReviewComment = z.infer<typeof ReviewCommentSchema>;
+
+export const CommentResolutionSchema = z.object({ resolved: z.boolean() });
+export type CommentResolution = z.infer<typeof CommentResolutionSchema>;
 
 // ---- verdicts -----------------------------------------------------------------------------------
 

@@ -129,7 +129,8 @@ export function solveBeam(s0: readonly number[], q0: readonly number[], fixity: 
     } else if (qa !== 0) {
       r1 = V / qa;
     }
-    for (const r of [r1, r2]) {
+    for (let j = 0; j < 2; j++) {
+      const r = j === 0 ? r1 : r2; // (no array per segment)
       if (r > 0 && r < h) {
         const mr = M + V * r - (qa * r * r) / 2 - (m * r * r * r) / 6;
         if (Math.abs(mr) > Math.abs(best)) {

@@ -8,7 +8,9 @@ import { CARGO_PERMEABILITY, defaultPermeability, PERMEABILITY_SOURCE } from '..
 import type { Boundary, BoundarySide, Compartment, LevelSource, Survey } from '../schemas/survey';
 import { earthFrame, HEEL_AGREEMENT_TOLERANCE_DEG, type EarthFrame } from './frame';
 import { missingShipReadings, withheldItems, withheldSentence } from './readings';
-import { DEFAULT_DISCHARGE_COEFFICIENT, leastSquares, orificeFlow, timeToPumpOut } from './inflow';
+import { balanceOpenToSea, spaceInflow } from './flooding-space';
+import { soundingEvidence } from './flooding-soundings';
+import { timeToPumpOut } from './inflow';
 import { clipHalfPlane } from './plane-integrals';
 import {
   childAsHole,
@@ -19,6 +21,7 @@ import {
   newPlateIntegration,
   plateToShip,
   polygonPlate,
+  newScratchPlate,
   polygonPlateXYZ,
   regionAsPolygons,
   regionNetForce,
@@ -44,8 +47,13 @@ import type {
   ShoreResult,
   SideResult,
   SurveyResults,
+  SurveySummary,
+  BoundaryTable,
+  BoundarySummary,
+  SurveyLevelResults,
 } from './results';
 import { facetOrientation } from './facets';
+import { newBoundaryTable, setBoundaryRow } from './boundary-table';
 import { platingCheck } from './plating';
 import { capacitiesOf, governingCapacity } from './ratings';
 import { shoreResult } from './shore-check';
@@ -56,8 +64,13 @@ import { ENGINE_VERSION } from './version';
 export interface ComputeOptions {
   /** Condition to compute (default: survey.activeConditionId). */
   conditionId?: string;
-  /** Leave out load diagrams (smaller results for batch checks). Default true. */
+  /**
+   * Include each flat boundary's load diagram. Default false: a diagram is bulky (about a third of
+   * a large vessel's results) and only the boundary being viewed needs one (computeBoundaryDetail).
+   */
   includeLoadDiagrams?: boolean;
+  /** Leave out the per-compartment inflow and pump-out figures (the forecast has its own). Default true. */
+  includeInflow?: boolean;
 }
 
 interface ResolvedFluid {
@@ -68,8 +81,13 @@ interface ResolvedFluid {
 
 const NULL_POINT_TOL = 1e-12;
 
-export function computeSurvey(survey: Survey, options: ComputeOptions = {}): SurveyResults {
-  const conditionId = options.conditionId ?? survey.activeConditionId;
+/**
+ * Everything of one condition that the boundaries need: the earth frame, each compartment's
+ * results and pressure profile, the flat plates of parents and their openings, and the warnings so
+ * far. Built once per computation, whichever of the three entry points asked.
+ */
+function prepareCondition(survey: Survey, conditionIdIn: string | undefined, includeInflow = true) {
+  const conditionId = conditionIdIn ?? survey.activeConditionId;
   const condition = survey.conditions.find((c) => c.id === conditionId);
   if (!condition) throw new Error(`computeSurvey: no condition with id ${conditionId}`);
   const warnings: EngineWarning[] = [];
@@ -133,10 +151,24 @@ export function computeSurvey(survey: Survey, options: ComputeOptions = {}): Sur
     let prevTop = -Infinity;
     const liquid = acc();
     const centroidXY: V3 = gross.volume > 0 ? [gross.mx / gross.volume, gross.my / gross.volume, gross.mz / gross.volume] : [0, 0, 0];
+    const densityOf = (layer: (typeof layersIn)[number]) =>
+      layer.densityKgM3 ?? (layer.fluidId === 'sea-water' && !survey.fluids.some((f) => f.id === 'sea-water') ? frame.seaDensityKgM3 : fluids(layer.fluidId).densityKgM3);
+    let tops = layersIn.map((layer) => levelElevation(layer.level, frame));
+    const open = layersIn.findIndex((l) => l.level.kind === 'openToSea');
+    if (open >= 0) {
+      // in balance with the sea at the opening, any oil or gas on top included
+      const openings = (comp.breaches ?? []).map((b) => dot(up, fromPoint(b.position)));
+      tops = balanceOpenToSea(tops, layersIn.map(densityOf), open, pGas, openings.length > 0 ? Math.min(...openings) : eBottom, [eBottom, eTop], (eta) => below(eta).volume, {
+        up,
+        waterlineElevationM: frame.waterlineElevation,
+        seaDensityKgM3: frame.seaDensityKgM3,
+        g,
+      });
+    }
     layersIn.forEach((layer, i) => {
       const fluid = fluids(layer.fluidId);
-      const density = layer.densityKgM3 ?? (layer.fluidId === 'sea-water' && !survey.fluids.some((f) => f.id === 'sea-water') ? frame.seaDensityKgM3 : fluid.densityKgM3);
-      let top = levelElevation(layer.level, frame);
+      const density = densityOf(layer);
+      let top = tops[i];
       if (top < prevTop) {
         warn('level-order', 'warning', layer.id, `${comp.name}: layer ${i + 1} (${fluid.name}) has its surface below the layer beneath it; taken as empty`);
         top = prevTop;
@@ -182,7 +214,7 @@ export function computeSurvey(survey: Survey, options: ComputeOptions = {}): Sur
     const profile = layeredProfile(levels, pGas, g);
     profiles.set(comp.id, profile);
 
-    const inflow = compartmentInflow(comp, profile, frame, permeability, below, liquid.volume, warn);
+    const inflow = !includeInflow ? null : compartmentInflow(comp, layerResults, pGas, frame, permeability, below, liquid.volume, warn);
     if (inflow) {
       totalInflow += inflow.inflowUsedM3S;
       totalPumps += inflow.pumpCapacityM3S;
@@ -253,36 +285,47 @@ export function computeSurvey(survey: Survey, options: ComputeOptions = {}): Sur
     return net;
   };
 
-  const withDiagrams = options.includeLoadDiagrams !== false;
-  const boundaryResults: BoundaryResult[] = [];
-  let maxU: number | null = null;
-  let maxUId: string | null = null;
-  const over: string[] = [];
-  for (const b of survey.boundaries) {
-    if (withheld.boundaries.has(b.id)) continue;
-    const pa = sideProfile(b.sideA), pb = sideProfile(b.sideB);
-    const net = netProfile(pa, pb);
-    const r =
-      b.geometry.kind === 'faceted'
-        ? facetedBoundary(b, b.geometry.facets.map((f) => f.vertices.map(fromPoint)), pa, pb, net, frame, warn)
-        : flatBoundary(b, plates.get(b.id) ?? buildFlat(b.geometry, up, false) ?? undefined, pa, pb, net, frame, openings.get(b.id) ?? [], withDiagrams, warn);
-    if (!r) continue;
-    boundaryResults.push(r);
-    if (r.maxUtilisation !== null) {
-      if (maxU === null || r.maxUtilisation > maxU) {
-        maxU = r.maxUtilisation;
-        maxUId = b.id;
-      }
-      if (r.maxUtilisation > 1) {
-        over.push(b.id);
-        warn('over-capacity', 'danger', b.id, `${b.name}: utilisation ${(100 * r.maxUtilisation).toFixed(0)} % exceeds capacity`);
-      }
-    }
-  }
 
+  return { survey, condition, frame, up, g, warnings, warn, withheld, compartmentResults, ship, totalInflow, totalPumps, sideProfile, netProfile, plates, openings };
+}
+
+type Prepared = ReturnType<typeof prepareCondition>;
+
+/** The full result of one boundary (load diagram when asked), or null when it has no area. */
+function boundaryResultOf(p: Prepared, b: Boundary, withDiagram: boolean, warn: Warn): BoundaryResult | null {
+  const pa = p.sideProfile(b.sideA), pb = p.sideProfile(b.sideB);
+  const net = p.netProfile(pa, pb);
+  return b.geometry.kind === 'faceted'
+    ? facetedBoundary(b, b.geometry.facets.map((f) => f.vertices.map(fromPoint)), pa, pb, net, p.frame, warn)
+    : flatBoundary(b, p.plates.get(b.id)?.plate ?? scratchFlat(b.geometry, p.up) ?? undefined, pa, pb, net, p.frame, p.openings.get(b.id) ?? [], withDiagram, warn);
+}
+
+/** Survey-level maximum utilisation and the over-capacity list and warnings, as boundaries are added. */
+function utilisationTally(warn: Warn) {
+  const t = {
+    maxU: null as number | null,
+    maxUId: null as string | null,
+    over: [] as string[],
+    add(id: string, name: string, u: number | null): void {
+      if (u === null) return;
+      if (t.maxU === null || u > t.maxU) {
+        t.maxU = u;
+        t.maxUId = id;
+      }
+      if (u > 1) {
+        t.over.push(id);
+        warn('over-capacity', 'danger', id, `${name}: utilisation ${(100 * u).toFixed(0)} % exceeds capacity`);
+      }
+    },
+  };
+  return t;
+}
+
+/** The survey-level parts shared by the full and the summary results. */
+function surveyLevel(p: Prepared, tally: ReturnType<typeof utilisationTally>): SurveyLevelResults {
+  const { ship, frame, condition, survey } = p;
   const all = acc();
   for (const a of [ship.water, ship.oil, ship.other]) if (a.mass > 0) addAcc(all, a.volume, a.mass, { x: a.mx / a.mass, y: a.my / a.mass, z: a.mz / a.mass });
-
   return {
     engineVersion: ENGINE_VERSION,
     surveyId: survey.id,
@@ -293,27 +336,137 @@ export function computeSurvey(survey: Survey, options: ComputeOptions = {}): Sur
       trimDeg: frame.trimDeg,
       trimM: frame.trimM,
       heelSource: frame.heelSource,
-      up: toPoint(up),
+      up: toPoint(frame.up),
       waterlinePoint: toPoint(frame.waterlinePoint),
       waterlineElevationM: frame.waterlineElevation,
       seaDensityKgM3: frame.seaDensityKgM3,
-      gravityMS2: g,
+      gravityMS2: frame.g,
       missingReadings: missingShipReadings(condition),
     },
-    compartments: compartmentResults,
-    boundaries: boundaryResults,
+    compartments: p.compartmentResults,
     ship: { floodWater: finishAcc(ship.water), oil: finishAcc(ship.oil), other: finishAcc(ship.other), allLiquids: finishAcc(all) },
     summary: {
-      maxUtilisation: maxU,
-      maxUtilisationBoundaryId: maxUId,
-      overCapacityBoundaryIds: over,
-      totalInflowM3S: totalInflow,
-      totalPumpCapacityM3S: totalPumps,
+      maxUtilisation: tally.maxU,
+      maxUtilisationBoundaryId: tally.maxUId,
+      overCapacityBoundaryIds: tally.over,
+      totalInflowM3S: p.totalInflow,
+      totalPumpCapacityM3S: p.totalPumps,
     },
-    withheld: [...withheld.compartments.values(), ...withheld.boundaries.values()],
-    warnings,
+    withheld: [...p.withheld.compartments.values(), ...p.withheld.boundaries.values()],
+    warnings: p.warnings,
   };
 }
+
+/**
+ * Full results of one condition: every compartment and every boundary with all its detail
+ * (sides, net resultant and its parts, stiffeners, shores; load diagrams only when asked).
+ * What the server stores and the desk compares. Units SI throughout (see results.ts).
+ */
+export function computeSurvey(survey: Survey, options: ComputeOptions = {}): SurveyResults {
+  const p = prepareCondition(survey, options.conditionId, options.includeInflow !== false);
+  const withDiagrams = options.includeLoadDiagrams === true;
+  const tally = utilisationTally(p.warn);
+  const boundaryResults: BoundaryResult[] = [];
+  for (const b of survey.boundaries) {
+    if (p.withheld.boundaries.has(b.id)) continue;
+    const r = boundaryResultOf(p, b, withDiagrams, p.warn);
+    if (!r) continue;
+    boundaryResults.push(r);
+    tally.add(b.id, b.name, r.maxUtilisation);
+  }
+  const level = surveyLevel(p, tally);
+  return { ...level, boundaries: boundaryResults };
+}
+
+/**
+ * The lean results a screen needs on every edit: the same survey-level figures, compartments,
+ * totals, utilisations and warnings as computeSurvey, but each boundary as one flat row of
+ * headline numbers (BoundarySummary) instead of its full detail, so a large vessel's results stay
+ * small (no per-boundary points, parts, stiffener items or diagrams). Every number in it equals
+ * the corresponding number of computeSurvey (summariseBoundary). For repeated computation
+ * (forecasts, pumping plans) and the device's per-edit path; open one boundary's detail with
+ * computeBoundaryDetail.
+ */
+export function computeSurveySummary(survey: Survey, options: Pick<ComputeOptions, 'conditionId' | 'includeInflow'> = {}): SurveySummary {
+  const p = prepareCondition(survey, options.conditionId, options.includeInflow !== false);
+  const tally = utilisationTally(p.warn);
+  const table = newBoundaryTable(survey.boundaries.length);
+  let k = 0;
+  for (const b of survey.boundaries) {
+    if (p.withheld.boundaries.has(b.id)) continue;
+    let written: boolean;
+    if (b.geometry.kind === 'faceted') {
+      const r = boundaryResultOf(p, b, false, p.warn);
+      if (r) setBoundaryRow(table, k, summariseBoundary(r, b));
+      written = r !== null;
+    } else {
+      const pa = p.sideProfile(b.sideA), pb = p.sideProfile(b.sideB);
+      written = flatSummary(b, p.plates.get(b.id)?.plate ?? scratchFlat(b.geometry, p.up) ?? undefined, pa, pb, p.netProfile(pa, pb), p.warn, table, k);
+    }
+    if (!written) continue;
+    const u = table.maxUtilisation[k];
+    tally.add(b.id, b.name, Number.isNaN(u) ? null : u);
+    k++;
+  }
+  table.length = k;
+  return { ...surveyLevel(p, tally), boundaries: table };
+}
+
+/**
+ * One boundary in full, load diagram included, for the boundary being viewed: equal to its entry
+ * in computeSurvey(survey, { includeLoadDiagrams: true }). Null when the boundary is unknown or
+ * has no area.
+ */
+export function computeBoundaryDetail(survey: Survey, boundaryId: string, options: Pick<ComputeOptions, 'conditionId'> = {}): BoundaryResult | null {
+  const b = survey.boundaries.find((x) => x.id === boundaryId);
+  if (!b) return null;
+  const p = prepareCondition(survey, options.conditionId);
+  if (p.withheld.boundaries.has(b.id)) return null;
+  return boundaryResultOf(p, b, true, () => {});
+}
+
+/**
+ * A full boundary result reduced to its summary row (the desk shows stored full results in the
+ * same table as the device's summaries). `b` gives the sides as the survey states them.
+ */
+export function summariseBoundary(r: BoundaryResult, b: Pick<Boundary, 'sideA' | 'sideB'>): BoundarySummary {
+  const n = r.net, cop = n.centreOfPressure;
+  return {
+    id: r.id,
+    name: r.name,
+    kind: r.kind,
+    geometryKind: r.geometryKind,
+    parentBoundaryId: r.parentBoundaryId,
+    sideA: b.sideA,
+    sideB: b.sideB,
+    areaM2: r.areaM2,
+    forceN: n.forceN,
+    resultantN: n.resultantN,
+    forceX: n.forceVector.x,
+    forceY: n.forceVector.y,
+    forceZ: n.forceVector.z,
+    copX: cop ? cop.x : null,
+    copY: cop ? cop.y : null,
+    copZ: cop ? cop.z : null,
+    normalX: r.normal ? r.normal.x : null,
+    normalY: r.normal ? r.normal.y : null,
+    normalZ: r.normal ? r.normal.z : null,
+    peakPressurePa: n.peak.pressurePa,
+    signChange: n.signChange,
+    capacityUtilisation: r.capacity ? r.capacity.utilisation : null,
+    stiffenerUtilisation: r.stiffeners ? r.stiffeners.maxUtilisation : null,
+    platingUtilisation: r.plating ? r.plating.maxUtilisation : null,
+    shoreUtilisation: maxShoreUtilisation(r.shores),
+    maxUtilisation: r.maxUtilisation,
+  };
+}
+
+function maxShoreUtilisation(shores: readonly ShoreResult[]): number | null {
+  let m: number | null = null;
+  for (let i = 0; i < shores.length; i++) m = maxOf(shores[i].utilisation, undefined, m);
+  return m;
+}
+
 
 // ---------------------------------------------------------------- helpers
 
@@ -385,7 +538,8 @@ function finishAcc(a: Acc): Aggregate {
 
 function compartmentInflow(
   comp: Compartment,
-  profile: PressureProfile,
+  layers: readonly LayerResult[],
+  pGas: number,
   frame: EarthFrame,
   permeability: number,
   below: (eta: number) => VolumeMoments,
@@ -393,40 +547,47 @@ function compartmentInflow(
   warn: (code: string, s: Severity, id: string | null, m: string) => void,
 ): InflowResult | null {
   const breaches = comp.breaches ?? [];
-  const pumps = comp.pumps ?? [];
+  const pumps = (comp.pumps ?? []).filter((p) => p.running !== false);
   if (breaches.length === 0 && pumps.length === 0 && !comp.soundingLog) return null;
   const rhoSea = frame.seaDensityKgM3;
-  const out: InflowResult['breaches'] = [];
-  let orifice = 0;
-  for (const br of breaches) {
+  const profile = layeredProfile(layers.map((l) => ({ top: l.levelElevationM, densityKgM3: l.densityKgM3 })), pGas, frame.g);
+  // the flooding model's orifice law: the fluid present upstream flows, over the opening's height
+  const now = spaceInflow(
+    comp,
+    { up: frame.up, waterlineElevationM: frame.waterlineElevation, seaDensityKgM3: rhoSea, g: frame.g },
+    permeability,
+    layers.map((l) => ({ fluidId: l.fluidId, name: l.fluidName, category: l.category, densityKgM3: l.densityKgM3, volumeM3: l.volumeM3 })),
+    pGas,
+  );
+  const out: InflowResult['breaches'] = breaches.map((br, i) => {
     const e = dot(frame.up, fromPoint(br.position));
     const pOut = rhoSea * frame.g * Math.max(0, frame.waterlineElevation - e);
-    const pIn = evalProfile(profile, e);
-    const q = orificeFlow(br.areaM2, br.dischargeCoefficient ?? DEFAULT_DISCHARGE_COEFFICIENT, pOut, pIn, rhoSea);
-    out.push({ id: br.id, headM: (pOut - pIn) / (rhoSea * frame.g), flowM3S: q });
-    orifice += q;
-  }
-  let measured: InflowResult['measured'] = null;
-  if (comp.soundingLog) {
-    const log = comp.soundingLog;
-    const t0 = Date.parse(log.readings[0].time);
-    const ts: number[] = [];
-    const vs: number[] = [];
-    const readings = log.readings.map((r) => {
-      const eta = dot(frame.up, [log.pipe.x, log.pipe.y, log.pipe.bottomZM + r.soundingM]);
-      const v = below(eta).volume * permeability;
-      ts.push((Date.parse(r.time) - t0) / 1000);
-      vs.push(v);
-      return { time: r.time, volumeM3: v };
-    });
-    const fit = leastSquares(ts, vs);
-    measured = { inflowM3S: fit.slope, r2: fit.r2, readings };
-  }
+    return { id: br.id, headM: (pOut - evalProfile(profile, e)) / (rhoSea * frame.g), flowM3S: now.breaches[i].flowM3S };
+  });
+  const orifice = now.orificeInflowM3S;
+  const evidence = soundingEvidence(comp, (soundingM) => {
+    const log = comp.soundingLog!;
+    return below(dot(frame.up, [log.pipe.x, log.pipe.y, log.pipe.bottomZM + soundingM])).volume * permeability;
+  }, orifice);
+  const measured: InflowResult['measured'] = evidence
+    ? {
+        inflowM3S: evidence.grossInflowM3S,
+        netRiseM3S: evidence.netRiseM3S,
+        r2: evidence.r2,
+        readings: evidence.readings,
+        ratio: evidence.ratio,
+        disagree: evidence.disagree,
+      }
+    : null;
   const pumpCapacity = pumps.reduce((s, p) => s + p.capacityM3S, 0);
   const inflowUsed = measured ? measured.inflowM3S : orifice;
-  const t = timeToPumpOut(liquidVolume, pumpCapacity, inflowUsed);
+  // with breaches the inflow grows as the level falls: the model's run; with only a measured rate, that rate held
+  const t = breaches.length > 0 ? now.timeToPumpOutS : timeToPumpOut(liquidVolume, pumpCapacity, inflowUsed);
   if (pumpCapacity > 0 && t === null) {
-    warn('pumps-behind', 'danger', comp.id, `${comp.name}: pumps (${(pumpCapacity * 3600).toFixed(0)} m³/h) cannot keep up with the inflow (${(inflowUsed * 3600).toFixed(0)} m³/h)`);
+    warn('pumps-behind', 'danger', comp.id, `${comp.name}: pumps (${(pumpCapacity * 3600).toFixed(0)} m³/h) do not pump the space out against the inflow (${(inflowUsed * 3600).toFixed(0)} m³/h now)`);
+  }
+  if (evidence?.disagree) {
+    warn('inflow-disagrees', 'warning', comp.id, `${comp.name}: the soundings show ${(evidence.grossInflowM3S * 3600).toFixed(0)} m³/h coming in, the breaches entered explain ${(orifice * 3600).toFixed(0)} m³/h: an unknown breach, or a wrong area`);
   }
   return {
     breaches: out,
@@ -439,7 +600,19 @@ function compartmentInflow(
   };
 }
 
-const rectXYZ = new Array<number>(12);
+const rectXYZ = new Float64Array(12);
+
+/** A rectangle's corners o, o + eu, (o + eu) + ev, o + ev as x, y, z triples (scratch). */
+function rectangleXYZ(geom: Extract<Boundary['geometry'], { kind: 'rectangle' }>): Float64Array {
+  const o = geom.origin, eu = geom.edgeU, ev = geom.edgeV;
+  const ax = o.x + eu.x, ay = o.y + eu.y, az = o.z + eu.z;
+  const r = rectXYZ;
+  r[0] = o.x; r[1] = o.y; r[2] = o.z;
+  r[3] = ax; r[4] = ay; r[5] = az;
+  r[6] = ax + ev.x; r[7] = ay + ev.y; r[8] = az + ev.z;
+  r[9] = o.x + ev.x; r[10] = o.y + ev.y; r[11] = o.z + ev.z;
+  return r;
+}
 
 /**
  * The flat plate of a boundary, and its 3D outline when `withOutline` (needed only to cut a child
@@ -452,14 +625,7 @@ function buildFlat(geom: Exclude<Boundary['geometry'], { kind: 'faceted' }>, up:
       return { plate: polygonPlate(pts, up), pts };
     }
     case 'rectangle': {
-      const o = geom.origin, eu = geom.edgeU, ev = geom.edgeV;
-      // corners o, o + eu, (o + eu) + ev, o + ev
-      const ax = o.x + eu.x, ay = o.y + eu.y, az = o.z + eu.z;
-      const r = rectXYZ;
-      r[0] = o.x; r[1] = o.y; r[2] = o.z;
-      r[3] = ax; r[4] = ay; r[5] = az;
-      r[6] = ax + ev.x; r[7] = ay + ev.y; r[8] = az + ev.z;
-      r[9] = o.x + ev.x; r[10] = o.y + ev.y; r[11] = o.z + ev.z;
+      const r = rectangleXYZ(geom);
       const pts: V3[] | null = withOutline ? [[r[0], r[1], r[2]], [r[3], r[4], r[5]], [r[6], r[7], r[8]], [r[9], r[10], r[11]]] : null;
       return { plate: polygonPlateXYZ(r, 4, up), pts };
     }
@@ -467,6 +633,45 @@ function buildFlat(geom: Exclude<Boundary['geometry'], { kind: 'faceted' }>, up:
       if (norm(fromPoint(geom.normal)) === 0) return null;
       return { plate: circlePlate(fromPoint(geom.centre), fromPoint(geom.normal), geom.radiusM, up), pts: null };
   }
+}
+
+const scratchPolygon = newScratchPlate('polygon');
+const scratchCircle = newScratchPlate('circle');
+
+/**
+ * The flat plate of a boundary built into scratch space (valid until the next call): for the
+ * plates the main loop builds, uses and drops. Null for a circle with no normal.
+ */
+function scratchFlat(geom: Exclude<Boundary['geometry'], { kind: 'faceted' }>, up: V3): FlatPlate | null {
+  switch (geom.kind) {
+    case 'polygon': {
+      const v = geom.vertices;
+      if (polyXYZ.length < 3 * v.length) polyXYZ = new Float64Array(6 * v.length);
+      for (let i = 0; i < v.length; i++) {
+        polyXYZ[3 * i] = v[i].x;
+        polyXYZ[3 * i + 1] = v[i].y;
+        polyXYZ[3 * i + 2] = v[i].z;
+      }
+      return polygonPlateXYZ(polyXYZ, v.length, up, scratchPolygon);
+    }
+    case 'rectangle':
+      return polygonPlateXYZ(rectangleXYZ(geom), 4, up, scratchPolygon);
+    case 'circle': {
+      const nm = geom.normal;
+      if (Math.sqrt(nm.x * nm.x + nm.y * nm.y + nm.z * nm.z) === 0) return null;
+      setV3(circleC, geom.centre.x, geom.centre.y, geom.centre.z);
+      setV3(circleN, nm.x, nm.y, nm.z);
+      return circlePlate(circleC, circleN, geom.radiusM, up, scratchCircle);
+    }
+  }
+}
+let polyXYZ = new Float64Array(48);
+const circleC: V3 = [0, 0, 0];
+const circleN: V3 = [0, 0, 0];
+function setV3(a: V3, x: number, y: number, z: number): void {
+  a[0] = x;
+  a[1] = y;
+  a[2] = z;
 }
 
 function sideResult(side: BoundarySide, profile: PressureProfile, forceN: number, peak: number, wetted: number): SideResult {
@@ -571,22 +776,22 @@ const scratchIntegration = newPlateIntegration();
 
 type Warn = (code: string, s: Severity, id: string | null, m: string) => void;
 
-function flatBoundary(
+/**
+ * Integrates a flat boundary into the shared scratch integration, with the plate's warnings.
+ * Null when the plate has no area.
+ */
+function flatIntegration(
   b: Boundary,
-  built: { plate: FlatPlate; pts: V3[] | null } | undefined,
+  plate: FlatPlate | undefined,
   pa: PressureProfile,
   pb: PressureProfile,
   net: PressureProfile,
-  frame: EarthFrame,
-  openingIds: string[],
-  withDiagram: boolean,
   warn: Warn,
-): BoundaryResult | null {
-  if (!built) {
+): { plate: FlatPlate; it: PlateIntegration } | null {
+  if (!plate) {
     warn('degenerate', 'warning', b.id, `${b.name}: the plate has no area (zero normal); not computed`);
     return null;
   }
-  const { plate } = built;
   const size = Math.max(plate.vMax - plate.vMin, 1e-9);
   if (plate.planarityErrorM > 1e-3 * size && plate.planarityErrorM > 1e-4) {
     warn('non-planar', 'warning', b.id, `${b.name}: vertices stray up to ${(plate.planarityErrorM * 1000).toFixed(1)} mm from the mean plane; loads are for that plane (model it as faceted if it is curved)`);
@@ -596,10 +801,20 @@ function flatBoundary(
     warn('degenerate', 'warning', b.id, `${b.name}: the plate has no area (self-intersecting or collinear vertices); not computed`);
     return null;
   }
-  const netRes = flatNet(b, plate, it, frame.up, warn);
-  if (netRes.signChange) {
-    warn('sign-change', 'info', b.id, `${b.name}: net pressure reverses across the plate (${(netRes.positive.forceN / 1000).toFixed(1)} kN towards side B, ${(-netRes.negative.forceN / 1000).toFixed(1)} kN towards side A)`);
+  if (it.positive.forceN !== 0 && it.negative.forceN !== 0) {
+    warn('sign-change', 'info', b.id, `${b.name}: net pressure reverses across the plate (${(it.positive.forceN / 1000).toFixed(1)} kN towards side B, ${(-it.negative.forceN / 1000).toFixed(1)} kN towards side A)`);
   }
+  return { plate, it };
+}
+
+/** Net pressure of largest magnitude on a flat plate (the minimum when it is larger in magnitude). */
+const peakOf = (it: PlateIntegration): number => (Math.abs(it.peakMinPa) > Math.abs(it.peakMaxPa) ? it.peakMinPa : it.peakMaxPa);
+
+/**
+ * The structural checks of a flat boundary: ratings, stiffeners, plating, shores, and the largest
+ * utilisation. `net` needs only the figures the ratings read.
+ */
+function flatChecks(b: Boundary, plate: FlatPlate, it: PlateIntegration, net: PressureProfile, netRes: Parameters<typeof capacitiesOf>[1], warn: Warn) {
   const stiffened = b.stiffening ? stiffenedPlateLoads(b, plate, net, it.cuts, warn) : null;
   const stiffeners = stiffened ? stiffened.stiffeners : null;
   const hasShores = !!b.shores && b.shores.length > 0;
@@ -614,6 +829,25 @@ function flatBoundary(
   let maxU = maxOf(capacity ? capacity.utilisation : undefined, stiffeners?.maxUtilisation ?? undefined, null);
   maxU = maxOf(plating?.maxUtilisation ?? undefined, undefined, maxU);
   for (let i = 0; i < shores.length; i++) maxU = maxOf(shores[i].utilisation, undefined, maxU);
+  return { stiffeners, plating, shores, structureModel, capacities, capacity, maxU };
+}
+
+function flatBoundary(
+  b: Boundary,
+  plateIn: FlatPlate | undefined,
+  pa: PressureProfile,
+  pb: PressureProfile,
+  net: PressureProfile,
+  frame: EarthFrame,
+  openingIds: string[],
+  withDiagram: boolean,
+  warn: Warn,
+): BoundaryResult | null {
+  const flat = flatIntegration(b, plateIn, pa, pb, net, warn);
+  if (!flat) return null;
+  const { plate, it } = flat;
+  const netRes = flatNet(b, plate, it, frame.up, warn);
+  const { stiffeners, plating, shores, structureModel, capacities, capacity, maxU } = flatChecks(b, plate, it, net, netRes, warn);
   const fr = plate.frame;
   const n = fr.n;
   return {
@@ -641,6 +875,63 @@ function flatBoundary(
     capacities,
     maxUtilisation: maxU,
   };
+}
+
+/**
+ * A flat boundary's summary written into row k of the table straight from its integration (the
+ * same arithmetic as flatNet and platePoint, without building the full result's objects). False
+ * when the plate has no area.
+ */
+function flatSummary(
+  b: Boundary,
+  plateIn: FlatPlate | undefined,
+  pa: PressureProfile,
+  pb: PressureProfile,
+  net: PressureProfile,
+  warn: Warn,
+  t: BoundaryTable,
+  k: number,
+): boolean {
+  const flat = flatIntegration(b, plateIn, pa, pb, net, warn);
+  if (!flat) return false;
+  const { plate, it } = flat;
+  const F = it.netForceN;
+  const peak = peakOf(it);
+  // As flatNet (and in its order, before the checks' warnings): when the two sides nearly cancel the load is a couple, with no point of action.
+  const cancels = nearlyCancels(F, it.sideForceA, it.sideForceB);
+  if (cancels) warnCancels(b, F, Math.hypot(it.netMomentU - F * it.centroidU, it.netMomentV - F * it.centroidV), warn);
+  const ratingInput = { forceN: F, resultantN: Math.abs(F), maxPressurePa: it.peakMaxPa, minPressurePa: it.peakMinPa, peak: { pressurePa: peak } };
+  const { stiffeners, plating, shores, capacity, maxU } = flatChecks(b, plate, it, net, ratingInput, warn);
+  const fr = plate.frame, n = fr.n, o = fr.origin, U = fr.u, W = fr.v;
+  const hasCop = F !== 0 && !cancels;
+  const cu = it.netMomentU / F, cv = it.netMomentV / F;
+  t.id[k] = b.id;
+  t.name[k] = b.name;
+  t.kind[k] = b.kind;
+  t.geometryKind[k] = b.geometry.kind;
+  t.parentBoundaryId[k] = b.parentBoundaryId ?? null;
+  t.sideA[k] = b.sideA;
+  t.sideB[k] = b.sideB;
+  t.areaM2[k] = it.areaM2;
+  t.forceN[k] = F;
+  t.resultantN[k] = Math.abs(F);
+  t.forceX[k] = n[0] * F;
+  t.forceY[k] = n[1] * F;
+  t.forceZ[k] = n[2] * F;
+  t.copX[k] = hasCop ? o[0] + cu * U[0] + cv * W[0] : NaN;
+  t.copY[k] = hasCop ? o[1] + cu * U[1] + cv * W[1] : NaN;
+  t.copZ[k] = hasCop ? o[2] + cu * U[2] + cv * W[2] : NaN;
+  t.normalX[k] = n[0];
+  t.normalY[k] = n[1];
+  t.normalZ[k] = n[2];
+  t.peakPressurePa[k] = peak;
+  t.signChange[k] = it.positive.forceN !== 0 && it.negative.forceN !== 0 ? 1 : 0;
+  t.capacityUtilisation[k] = capacity ? capacity.utilisation : NaN;
+  t.stiffenerUtilisation[k] = stiffeners?.maxUtilisation ?? NaN;
+  t.platingUtilisation[k] = plating?.maxUtilisation ?? NaN;
+  t.shoreUtilisation[k] = maxShoreUtilisation(shores) ?? NaN;
+  t.maxUtilisation[k] = maxU ?? NaN;
+  return true;
 }
 
 /** Largest finite value among x, y and m (null when none). */

@@ -1,18 +1,22 @@
 /** Public surface of the load engine: what the app, the server and the CLI import. */
-export { computeSurvey, levelElevation, type ComputeOptions } from './compute-survey';
 export {
-  checkPumpingSequence,
-  type PumpingBoundaryChange,
-  type PumpingCheck,
-  type PumpingStep,
-  type PumpingStepResult,
-} from './pumping';
+  computeBoundaryDetail,
+  computeSurvey,
+  computeSurveySummary,
+  levelElevation,
+  summariseBoundary,
+  type ComputeOptions,
+} from './compute-survey';
+export { boundaryIndex, boundaryRow, boundaryRows, tableOfRows } from './boundary-table';
 export { ENGINE_VERSION } from './version';
 export { facetOrientation, reverseFacets, type FacetOrientation } from './facets';
 export { aiscE3, columnCheck, ndsColumnStability, AISC_OMEGA_C, NDS_LE_D_LIMIT } from './column-design';
 export { ROARK_SOURCE } from './plating';
 export { governingCheck, type GoverningCheck } from './governing';
-export { HEEL_AGREEMENT_TOLERANCE_DEG } from './frame';
+export { DEFAULT_SEA_DENSITY_KG_M3, HEEL_AGREEMENT_TOLERANCE_DEG } from './frame';
+/** Solids and outlines for drawing (the 3D model), cut by the same geometry the loads use. */
+export { boundaryPolygons, compartmentSolid, liquidBody } from './mesh';
+export type { V3 } from './vec';
 export { joinWords, levelReadingMissing, missingShipReadings, withheldSentence } from './readings';
 export type * from './results';
 export {
@@ -36,3 +40,16 @@ export {
   type DownfloodingFreeboard,
   type ReadingsCheck,
 } from './stability-check';
+export {
+  applyFloodVariant,
+  forecastFlooding,
+  DEFAULT_HORIZON_H,
+  type BoundaryForecast,
+  type FloodForecast,
+  type FloodVariant,
+  type ForecastOptions,
+  type Governs,
+  type PlanStepForecast,
+  type SpaceForecast,
+} from './flooding';
+export { soundingEvidence, type SoundingEvidence } from './flooding-soundings';

@@ -14,7 +14,7 @@ import {
   splitAtVInto,
 } from './plane-integrals';
 import type { PressureProfile } from './profile';
-import { dot, norm, scale, sub, unit, type V3 } from './vec';
+import { dot, sub, unit, type V3 } from './vec';
 
 export type Shape2D = { kind: 'polygon'; pts: number[] } | { kind: 'circle'; uc: number; vc: number; r: number };
 export interface SignedShape {
@@ -46,23 +46,58 @@ export interface FlatPlate {
 const EPS_LEVEL = 1e-12;
 
 /** Plate axes for a plane with unit normal n through origin, given earth-up. */
-export function plateFrame(origin: V3, n: V3, up: V3): PlateFrame {
+export function plateFrame(origin: V3, n: V3, up: V3, out?: PlateFrame): PlateFrame {
   const un = up[0] * n[0] + up[1] * n[1] + up[2] * n[2];
   const hx = up[0] - n[0] * un, hy = up[1] - n[1] * un, hz = up[2] - n[2] * un;
   let k = Math.sqrt(hx * hx + hy * hy + hz * hz);
   let v: V3;
   if (k < EPS_LEVEL) {
     // Level plate: v follows the ship's x axis (or y if the plate is normal to x).
+    // (h = x − n (x·n), or y − n (y·n); the arithmetic of sub/scale/unit, without the tuples)
     k = 0;
-    const x: V3 = [1, 0, 0];
-    let h = sub(x, scale(n, dot(x, n)));
-    if (norm(h) < 1e-6) h = sub([0, 1, 0], scale(n, n[1]));
-    v = unit(h);
+    let h0 = 1 - n[0] * n[0], h1 = 0 - n[1] * n[0], h2 = 0 - n[2] * n[0];
+    if (Math.sqrt(h0 * h0 + h1 * h1 + h2 * h2) < 1e-6) {
+      h0 = 0 - n[0] * n[1];
+      h1 = 1 - n[1] * n[1];
+      h2 = 0 - n[2] * n[1];
+    }
+    const hl = Math.sqrt(h0 * h0 + h1 * h1 + h2 * h2);
+    v = out ? out.v : [0, 0, 0];
+    if (hl > 0) set3(v, h0 / hl, h1 / hl, h2 / hl);
+    else set3(v, 0, 0, 0);
+  } else if (out) {
+    // written straight into the scratch frame (its v is overwritten with the same numbers below)
+    v = set3(out.v, hx / k, hy / k, hz / k);
   } else {
     v = [hx / k, hy / k, hz / k];
   }
-  const u: V3 = [v[1] * n[2] - v[2] * n[1], v[2] * n[0] - v[0] * n[2], v[0] * n[1] - v[1] * n[0]];
-  return { origin, n, u, v, k, e0: up[0] * origin[0] + up[1] * origin[1] + up[2] * origin[2] };
+  const ux = v[1] * n[2] - v[2] * n[1], uy = v[2] * n[0] - v[0] * n[2], uz = v[0] * n[1] - v[1] * n[0];
+  const e0 = up[0] * origin[0] + up[1] * origin[1] + up[2] * origin[2];
+  if (!out) return { origin, n, u: [ux, uy, uz], v, k, e0 };
+  set3(out.origin, origin[0], origin[1], origin[2]);
+  set3(out.n, n[0], n[1], n[2]);
+  set3(out.u, ux, uy, uz);
+  set3(out.v, v[0], v[1], v[2]);
+  out.k = k;
+  out.e0 = e0;
+  return out;
+}
+
+function set3(a: V3, x: number, y: number, z: number): V3 {
+  a[0] = x;
+  a[1] = y;
+  a[2] = z;
+  return a;
+}
+
+/**
+ * A plate to be built over and over: polygonPlateXYZ and circlePlate write into one instead of
+ * allocating, for plates used once and dropped (valid until the next build into it).
+ */
+export function newScratchPlate(kind: 'polygon' | 'circle'): FlatPlate {
+  const frame: PlateFrame = { origin: [0, 0, 0], n: [0, 0, 0], u: [0, 0, 0], v: [0, 0, 0], k: 0, e0: 0 };
+  const shape: Shape2D = kind === 'polygon' ? { kind, pts: [] } : { kind, uc: 0, vc: 0, r: 0 };
+  return { frame, region: [{ shape, sign: 1 }], vMin: 0, vMax: 0, planarityErrorM: 0 };
 }
 
 /** Newell's normal (unnormalised, length = 2 × area) of a 3D polygon. */
@@ -101,7 +136,7 @@ export function polygonPlate(pts: readonly V3[], up: V3): FlatPlate {
  * polygonPlate from a flat list of `count` vertices [x0, y0, z0, x1, ...] (ship axes, m): Newell's
  * normal, the vertex mean as origin, and the outline projected on the plate axes.
  */
-export function polygonPlateXYZ(xyz: ArrayLike<number>, count: number, up: V3): FlatPlate {
+export function polygonPlateXYZ(xyz: ArrayLike<number>, count: number, up: V3, out?: FlatPlate): FlatPlate {
   let nx = 0, ny = 0, nz = 0;
   let cx = 0, cy = 0, cz = 0;
   for (let i = 0; i < count; i++) {
@@ -114,14 +149,17 @@ export function polygonPlateXYZ(xyz: ArrayLike<number>, count: number, up: V3): 
     cz += xyz[a + 2];
   }
   const len = Math.sqrt(nx * nx + ny * ny + nz * nz);
-  const n: V3 = len > 0 ? [nx / len, ny / len, nz / len] : [0, 0, 0];
   const inv = 1 / count;
-  const c: V3 = [cx * inv, cy * inv, cz * inv];
-  const frame = plateFrame(c, n, up);
+  const nl = len > 0 ? 1 / len : 0;
+  const n: V3 = out ? set3(scratchN, nx * nl, ny * nl, nz * nl) : [nx * nl, ny * nl, nz * nl];
+  const c: V3 = out ? set3(scratchC, cx * inv, cy * inv, cz * inv) : [cx * inv, cy * inv, cz * inv];
+  const frame = plateFrame(c, n, up, out?.frame);
   const U = frame.u, W = frame.v;
   let planarityErrorM = 0;
   let vMin = Infinity, vMax = -Infinity;
-  const pts2 = new Array<number>(2 * count);
+  const outShape = out?.region[0].shape;
+  const pts2 = outShape?.kind === 'polygon' ? outShape.pts : new Array<number>(2 * count);
+  if (pts2.length !== 2 * count) pts2.length = 2 * count;
   for (let i = 0; i < count; i++) {
     const dx = xyz[3 * i] - c[0], dy = xyz[3 * i + 1] - c[1], dz = xyz[3 * i + 2] - c[2];
     planarityErrorM = Math.max(planarityErrorM, Math.abs(dx * n[0] + dy * n[1] + dz * n[2]));
@@ -131,12 +169,28 @@ export function polygonPlateXYZ(xyz: ArrayLike<number>, count: number, up: V3): 
     if (v < vMin) vMin = v;
     if (v > vMax) vMax = v;
   }
-  return { frame, region: [{ shape: { kind: 'polygon', pts: pts2 }, sign: 1 }], vMin, vMax, planarityErrorM };
+  if (!out) return { frame, region: [{ shape: { kind: 'polygon', pts: pts2 }, sign: 1 }], vMin, vMax, planarityErrorM };
+  out.vMin = vMin;
+  out.vMax = vMax;
+  out.planarityErrorM = planarityErrorM;
+  return out;
 }
+const scratchN: V3 = [0, 0, 0];
+const scratchC: V3 = [0, 0, 0];
 
 /** A flat circular plate. */
-export function circlePlate(centre: V3, normal: V3, r: number, up: V3): FlatPlate {
-  const frame = plateFrame(centre, unit(normal), up);
+export function circlePlate(centre: V3, normal: V3, r: number, up: V3, out?: FlatPlate): FlatPlate {
+  const frame = plateFrame(centre, unit(normal), up, out?.frame);
+  const shape = out?.region[0].shape;
+  if (out && shape?.kind === 'circle') {
+    shape.uc = 0;
+    shape.vc = 0;
+    shape.r = r;
+    out.vMin = -r;
+    out.vMax = r;
+    out.planarityErrorM = 0;
+    return out;
+  }
   return { frame, region: [{ shape: { kind: 'circle', uc: 0, vc: 0, r }, sign: 1 }], vMin: -r, vMax: r, planarityErrorM: 0 };
 }
 
@@ -336,7 +390,7 @@ export interface PlateIntegration {
 }
 
 /** Sorts xs[0..n) ascending in place (insertion sort: the lists are a handful of numbers). */
-function sortSmall(xs: Float64Array, n: number): void {
+export function sortSmall(xs: Float64Array, n: number): void {
   for (let i = 1; i < n; i++) {
     const x = xs[i];
     let j = i - 1;
@@ -413,10 +467,14 @@ export function integratePlate(
     }
   }
   const nInner = sortUniqueInPlace(cutBuf, nc, vMax - vMin);
-  const cuts = new Array<number>(nInner + 2);
+  // the cuts live in `out` (a scratch integration reuses its array: no allocation per plate)
+  // one small array per plate: the stiffener, shore and plating checks read the cuts after this returns
+  const nCuts = nInner + 2;
+  const cuts = new Array<number>(nCuts);
   cuts[0] = vMin;
   for (let i = 0; i < nInner; i++) cuts[i + 1] = cutBuf[i];
-  cuts[nInner + 1] = vMax;
+  cuts[nCuts - 1] = vMax;
+  out.cuts = cuts;
   const nStrips = nInner + 1;
   const m = stripMomentsInto(plate.region, cuts);
 
@@ -460,7 +518,7 @@ export function integratePlate(
   const outer = plate.region[0].shape;
   let maxPa = -Infinity, maxV = 0, minPa = Infinity, minV = 0;
   let peakA = -Infinity, peakB = -Infinity;
-  for (let i = 0; i < cuts.length; i++) {
+  for (let i = 0; i < nCuts; i++) {
     const v = cuts[i];
     const e = e0 + k * v;
     const p = evalProfile(net, e);
@@ -496,7 +554,6 @@ export function integratePlate(
   out.peakMinPa = minPa;
   out.peakMinU = chordMidU(outer, minV);
   out.peakMinV = minV;
-  out.cuts = cuts;
   return out;
 }
 

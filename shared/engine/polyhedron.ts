@@ -56,6 +56,9 @@ export interface VolumeMoments {
   mz: number;
 }
 
+/** Scratch for one clipped face (the engine is synchronous and never re-entered). */
+let clipBuf = new Float64Array(64);
+
 /**
  * Volume and first moments of the part of the solid whose elevation up·p ≤ eta
  * (eta = +∞ for the whole solid). `up` must be a unit vector.
@@ -64,21 +67,28 @@ export function volumeBelow(solid: Polyhedron, up: V3, eta: number): VolumeMomen
   const whole = !Number.isFinite(eta) || eta === Infinity;
   const ox = whole ? 0 : up[0] * eta, oy = whole ? 0 : up[1] * eta, oz = whole ? 0 : up[2] * eta;
   let vol = 0, mx = 0, my = 0, mz = 0;
-  const clipped: number[] = [];
   for (const face of solid) {
-    clipped.length = 0;
     const n = face.length;
+    // a face cut by a plane keeps at most n + 1 vertices; the scratch buffer grows, never shrinks
+    if (clipBuf.length < 3 * (n + 1)) clipBuf = new Float64Array(6 * (n + 1));
+    const clipped = clipBuf;
+    let m = 0;
     for (let i = 0; i < n; i++) {
       const a = face[i], b = face[(i + 1) % n];
       const da = whole ? -1 : a[0] * up[0] + a[1] * up[1] + a[2] * up[2] - eta;
       const db = whole ? -1 : b[0] * up[0] + b[1] * up[1] + b[2] * up[2] - eta;
-      if (da <= 0) clipped.push(a[0] - ox, a[1] - oy, a[2] - oz);
+      if (da <= 0) {
+        clipped[m++] = a[0] - ox;
+        clipped[m++] = a[1] - oy;
+        clipped[m++] = a[2] - oz;
+      }
       if ((da < 0 && db > 0) || (da > 0 && db < 0)) {
         const t = da / (da - db);
-        clipped.push(a[0] + t * (b[0] - a[0]) - ox, a[1] + t * (b[1] - a[1]) - oy, a[2] + t * (b[2] - a[2]) - oz);
+        clipped[m++] = a[0] + t * (b[0] - a[0]) - ox;
+        clipped[m++] = a[1] + t * (b[1] - a[1]) - oy;
+        clipped[m++] = a[2] + t * (b[2] - a[2]) - oz;
       }
     }
-    const m = clipped.length;
     if (m < 9) continue;
     const x0 = clipped[0], y0 = clipped[1], z0 = clipped[2];
     for (let i = 3; i + 5 < m; i += 3) {

@@ -7,7 +7,10 @@
 import type { Boundary } from '../schemas/survey';
 import type { CapacityResult, NetResult } from './results';
 
-export function capacitiesOf(b: Pick<Boundary, 'ratedCapacity' | 'directionalCapacity'>, net: NetResult): CapacityResult[] {
+export function capacitiesOf(
+  b: Pick<Boundary, 'ratedCapacity' | 'directionalCapacity'>,
+  net: Pick<NetResult, 'forceN' | 'resultantN' | 'maxPressurePa' | 'minPressurePa'> & { peak: Pick<NetResult['peak'], 'pressurePa'> },
+): CapacityResult[] {
   const out: CapacityResult[] = [];
   const rc = b.ratedCapacity;
   if (rc) {

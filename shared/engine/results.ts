@@ -4,6 +4,7 @@
  */
 import type { LoadDiagramPoint } from './plate';
 import type { BeamResult } from './beam';
+import type { BoundarySide } from '../schemas/survey';
 import type { Withheld } from './readings';
 
 export interface Point {
@@ -70,14 +71,29 @@ export interface InflowResult {
   breaches: { id: string; headM: number; flowM3S: number }[];
   /** Sum of orifice flows, m³/s (positive = into the compartment). */
   orificeInflowM3S: number;
-  /** From the sounding log: least-squares slope of liquid volume against time. */
-  measured: { inflowM3S: number; r2: number; readings: { time: string; volumeM3: number }[] } | null;
+  /**
+   * From the sounding log: the least-squares slope of liquid volume against time with the pumps that
+   * ran added back (inflowM3S), the net rise as read, the fit's r² and residuals, and whether it
+   * disagrees with the orifice inflow (ratio measured / orifice) by more than a factor of 2.
+   */
+  measured: {
+    inflowM3S: number;
+    netRiseM3S: number;
+    r2: number;
+    readings: { time: string; volumeM3: number; pumpedSinceM3: number; residualM3: number }[];
+    ratio: number | null;
+    disagree: boolean;
+  } | null;
   pumpCapacityM3S: number;
   /** Inflow used for the pumping estimate: the measured one if there is a log, else the orifice estimate. */
   inflowUsedM3S: number;
   /** pumps − inflow, m³/s. */
   netRemovalM3S: number;
-  /** Seconds to pump the present liquid out, or null if the pumps cannot gain on the inflow. */
+  /**
+   * Seconds until the running pumps uncover their suction, the inflow growing as the level falls
+   * (the flooding model, other spaces held); with no breach entered, against the measured rate held.
+   * Null if they do not within 48 h.
+   */
   timeToPumpOutS: number | null;
 }
 
@@ -332,3 +348,93 @@ export interface SurveyResults {
 }
 
 export type { LoadDiagramPoint, Withheld };
+
+/**
+ * One boundary's headline figures, flat (no nested objects): the row of the Loads table, the
+ * colour and arrow of the 3D view, the utilisations the survey summary is built from. Every number
+ * equals the same quantity in the boundary's full BoundaryResult (computeBoundaryDetail).
+ */
+export interface BoundarySummary {
+  id: string;
+  name: string;
+  kind: string;
+  geometryKind: BoundaryResult['geometryKind'];
+  parentBoundaryId: string | null;
+  /** The sides as the survey states them. */
+  sideA: BoundarySide;
+  sideB: BoundarySide;
+  areaM2: number;
+  /** net.forceN and net.resultantN, N. */
+  forceN: number;
+  resultantN: number;
+  /** net.forceVector, ship axes, N. */
+  forceX: number;
+  forceY: number;
+  forceZ: number;
+  /** net.centreOfPressure (null when there is no net force). */
+  copX: number | null;
+  copY: number | null;
+  copZ: number | null;
+  /** Plate normal (null for faceted surfaces). */
+  normalX: number | null;
+  normalY: number | null;
+  normalZ: number | null;
+  /** net.peak.pressurePa. */
+  peakPressurePa: number;
+  signChange: boolean;
+  capacityUtilisation: number | null;
+  /** stiffeners.maxUtilisation. */
+  stiffenerUtilisation: number | null;
+  /** plating.maxUtilisation. */
+  platingUtilisation: number | null;
+  /** Largest shore utilisation. */
+  shoreUtilisation: number | null;
+  maxUtilisation: number | null;
+}
+
+/** Numeric columns of a BoundaryTable, in BoundarySummary's names. */
+export const BOUNDARY_NUMBER_FIELDS = [
+  'areaM2',
+  'forceN',
+  'resultantN',
+  'forceX',
+  'forceY',
+  'forceZ',
+  'copX',
+  'copY',
+  'copZ',
+  'normalX',
+  'normalY',
+  'normalZ',
+  'peakPressurePa',
+  'capacityUtilisation',
+  'stiffenerUtilisation',
+  'platingUtilisation',
+  'shoreUtilisation',
+  'maxUtilisation',
+] as const satisfies readonly (keyof BoundarySummary)[];
+export type BoundaryNumberField = (typeof BOUNDARY_NUMBER_FIELDS)[number];
+
+/**
+ * Every boundary's summary as columns: one typed array per number (NaN where the summary has
+ * null), so a large vessel's per-edit results are a few flat buffers rather than thousands of
+ * objects. Row i is boundaryRow(table, i); `length` rows are filled.
+ */
+export type BoundaryTable = {
+  length: number;
+  id: string[];
+  name: string[];
+  kind: string[];
+  geometryKind: BoundaryResult['geometryKind'][];
+  parentBoundaryId: (string | null)[];
+  sideA: BoundarySide[];
+  sideB: BoundarySide[];
+  /** 1 where the net pressure reverses across the plate. */
+  signChange: Uint8Array;
+} & Record<BoundaryNumberField, Float64Array>;
+
+/** computeSurveySummary's output: SurveyResults with the boundaries as a BoundaryTable. */
+export type SurveySummary = Omit<SurveyResults, 'boundaries'> & { boundaries: BoundaryTable };
+
+/** What both kinds of results share (the compartment, totals and warnings views read only this). */
+export type SurveyLevelResults = Omit<SurveyResults, 'boundaries'>;

@@ -51,6 +51,8 @@ export const SURVEY_LIMITS = {
   /** Breaches or pumps of one compartment. */
   breaches: 100,
   pumps: 100,
+  /** Steps of one condition's pumping plan. */
+  planSteps: 1_000,
   /** Readings in one sounding log. */
   soundingReadings: 10_000,
 } as const;

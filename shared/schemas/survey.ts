@@ -9,6 +9,7 @@ import { catalogueFluid } from '../fluids/catalogue';
 import { CargoStateSchema, SpaceTypeSchema } from './space-types';
 import { SURVEY_LIMITS as L, TEXT_LIMITS, boundedText, capMessage, cappedArray } from './limits';
 import { ConditionStabilitySchema, DownfloodingPointSchema } from './stability';
+import { FloodingSettingsSchema, InternalOpeningSchema, OpeningFaceSchema, OpeningSizeSchema, PumpsRunningSchema } from './flooding';
 import { MarksSchema } from './marks';
 import { DirectionalRatingSchema, PlatingSchema, ShoreDesignSchema } from './structure';
 import { SURVEY_SCHEMA_VERSION, upgradeSurvey } from './upgrade';
@@ -121,6 +122,8 @@ export const ConditionSchema = z.object({
   contents: cappedArray(ContentsSchema, L.compartments, 'compartments with contents'),
   /** Hydrostatic particulars for the ship's response (./stability.ts). */
   stability: ConditionStabilitySchema.optional(),
+  /** Forecast settings and the pumping plan (shared/schemas/flooding.ts). */
+  flooding: FloodingSettingsSchema.optional(),
   marks: MarksSchema.optional(),
 });
 export type Condition = z.infer<typeof ConditionSchema>;
@@ -132,17 +135,28 @@ export const BreachSchema = z.object({
   areaM2: z.number().positive(),
   /** Discharge coefficient (default 0.6, sharp-edged orifice). */
   dischargeCoefficient: z.number().gt(0).max(1).optional(),
+  face: OpeningFaceSchema.optional(),
+  size: OpeningSizeSchema.optional(),
 });
 
 export const PumpSchema = z.object({
   id: Id,
   name: boundedText(TEXT_LIMITS.name),
   capacityM3S: z.number().nonnegative(),
+  /** Height of the suction above the space's lowest point, m (default 0: the bottom). */
+  suctionHeightM: NonNegative.optional(),
+  /** Whether the pump is running now (default true). */
+  running: z.boolean().optional(),
 });
 
 export const SoundingLogSchema = z.object({
   pipe: SoundingPipeSchema,
-  readings: cappedArray(z.object({ time: z.iso.datetime({ offset: true }), soundingM: NonNegative }), L.soundingReadings, 'readings in one sounding log').min(2),
+  /** `pumpIds`: the pumps that ran between the reading before and this one. */
+  readings: cappedArray(
+    z.object({ time: z.iso.datetime({ offset: true }), soundingM: NonNegative, pumpIds: PumpsRunningSchema.optional() }),
+    L.soundingReadings,
+    'readings in one sounding log',
+  ).min(2),
 });
 
 export const CompartmentGeometrySchema = z.discriminatedUnion('kind', [
@@ -172,6 +186,10 @@ export const CompartmentSchema = z.object({
   pumps: cappedArray(PumpSchema, L.pumps, 'pumps in one compartment').optional(),
   soundingLog: SoundingLogSchema.optional(),
   marks: MarksSchema.optional(),
+  /** Openings into other compartments (shared/schemas/flooding.ts). */
+  openings: cappedArray(InternalOpeningSchema, L.breaches, 'openings from one compartment').optional(),
+  /** Air-tight, not vented: air trapped above the liquid is compressed as it rises (Boyle's law). */
+  airTight: z.boolean().optional(),
 });
 export type Compartment = z.infer<typeof CompartmentSchema>;
 

@@ -83,6 +83,39 @@ describe('comments', () => {
     expect(notes.comments.map((c) => c.body)).toContain('Is this plate 10 or 12 mm?');
     expect(notes.comments.find((c) => c.body === '12 mm, gauged.')?.parentId).toBe(first.body.id);
   });
+
+  it('takes a reply written offline once, under the id the device made, however often it is sent', async () => {
+    const s = await surveyInStatus(t.db, org, 'in_review');
+    const ask = await call('POST', `/api/review/surveys/${s.id}/comments`, tok.engineer!, { target: { kind: 'survey', id: s.id }, body: 'Sounding of No. 2 hold?' });
+    const id = randomUUID();
+    const reply = { id, target: { kind: 'survey', id: s.id }, body: '6.40 m at 0600.', parentId: ask.body.id };
+    const sent = await call('POST', `/api/review/surveys/${s.id}/comments`, tok.surveyor!, reply);
+    const again = await call('POST', `/api/review/surveys/${s.id}/comments`, tok.surveyor!, reply);
+    expect(sent.status).toBe(201);
+    expect(sent.body.id).toBe(id);
+    expect(again.body).toEqual(sent.body);
+    expect(await t.db('review_comments').where({ survey_id: s.id }).count('* as n').first()).toMatchObject({ n: 2 });
+    // Someone else's comment id is not taken over.
+    expect((await call('POST', `/api/review/surveys/${s.id}/comments`, tok.engineer!, { ...reply, body: 'other' })).status).toBe(400);
+  });
+
+  it('lets the engineer close and reopen a thread, and the device hears of it on the next pull', async () => {
+    const s = await surveyInStatus(t.db, org, 'in_review');
+    const ask = await call('POST', `/api/review/surveys/${s.id}/comments`, tok.engineer!, { target: { kind: 'survey', id: s.id }, body: 'Shore sizes?' });
+    const before = await call('GET', '/api/sync/pull?limit=200', tok.surveyor!);
+    const closed = await call('PUT', `/api/review/surveys/${s.id}/comments/${ask.body.id}/resolution`, tok.engineer!, { resolved: true });
+    expect(closed.status).toBe(200);
+    expect(closed.body).toMatchObject({ id: ask.body.id, resolvedByName: org.engineer.name });
+    expect(typeof closed.body.resolvedAt).toBe('string');
+    const pull = await call('GET', `/api/sync/pull?limit=200&cursor=${before.body.cursor}`, tok.surveyor!);
+    const notes = (pull.body.extras.review as ReviewNotes[]).find((n) => n.surveyId === s.id)!;
+    expect(notes.comments.find((c) => c.id === ask.body.id)?.resolvedAt).toBeTruthy();
+
+    const reopened = await call('PUT', `/api/review/surveys/${s.id}/comments/${ask.body.id}/resolution`, tok.engineer!, { resolved: false });
+    expect(reopened.body.resolvedAt).toBeNull();
+    expect((await call('PUT', `/api/review/surveys/${s.id}/comments/${ask.body.id}/resolution`, tok.surveyor!, { resolved: true })).status).toBe(403);
+    expect((await call('PUT', `/api/review/surveys/${s.id}/comments/${randomUUID()}/resolution`, tok.engineer!, { resolved: true })).status).toBe(404);
+  });
 });
 
 describe('verdicts and limits', () => {

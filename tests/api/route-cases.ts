@@ -207,6 +207,17 @@ export const routeCases: Record<string, RouteCase> = {
     },
     expect: anyMemberObject(201),
   },
+  'PUT /api/review/surveys/:id/comments/:commentId/resolution': {
+    setup: async ({ t, org }) => {
+      const s = await surveyInStatus(t.db, org, 'in_review');
+      const [row] = await t
+        .db('review_comments')
+        .insert({ survey_id: s.id, organisation_id: org.id, target_kind: 'survey', target_id: s.id, body: 'Re-sound No. 2 hold.', author_id: org.engineer.id, revision: 1 })
+        .returning('id');
+      return { params: { id: s.id, commentId: row.id }, body: { resolved: true } };
+    },
+    expect: engineerOnly(200),
+  },
   'PUT /api/review/surveys/:id/verdicts': {
     setup: async ({ t, org }) => ({ params: { id: (await surveyInStatus(t.db, org, 'in_review')).id }, body: { scope: 'survey', verdict: 'proceed_within_limits' } }),
     expect: engineerOnly(200),

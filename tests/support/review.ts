@@ -2,7 +2,7 @@
 import type { Knex } from 'knex';
 import type { Survey } from '@shared/schemas/survey';
 import type { SurveyStatus } from '@shared/review/status';
-import { newBriefToken } from '../../server/brief/brief-token';
+import { issueSecret } from '../../server/services/secrets';
 import type { TestOrg } from './auth';
 import { storeSurvey } from './surveys';
 
@@ -52,7 +52,7 @@ export async function briefLink(
   surveyId: string,
   opts: { expiresAt?: Date; revoked?: boolean; units?: 'si' | 'us' } = {},
 ): Promise<{ id: string; token: string }> {
-  const { token, hash } = newBriefToken();
+  const { token, hash } = issueSecret();
   const [row] = await db('brief_links')
     .insert({
       survey_id: surveyId,

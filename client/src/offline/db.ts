@@ -74,7 +74,8 @@ export interface LocalReply {
   body: string;
   authorName: string;
   createdAt: string;
-  state: OutboxState;
+  /** 'sent': the server has it; kept until a pull brings it back as a comment, so the thread never loses it. */
+  state: OutboxState | 'sent';
   /** Why the server refused it, for the user. */
   reason?: string;
 }

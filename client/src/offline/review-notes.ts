@@ -6,6 +6,7 @@
 import { useLiveQuery } from 'dexie-react-hooks';
 import { ReviewNotesSchema, type ReviewNotes } from '@shared/api/review';
 import { db } from './db';
+import { forgetDeliveredReplies } from './replies';
 
 /** Stores the notes of a pull; records that do not parse are skipped (a newer server, an older app). */
 export async function storeReviewNotes(records: readonly unknown[] | undefined): Promise<void> {
@@ -15,6 +16,7 @@ export async function storeReviewNotes(records: readonly unknown[] | undefined):
     return parsed.success ? [parsed.data] : [];
   });
   if (rows.length) await db.reviewNotes.bulkPut(rows);
+  await forgetDeliveredReplies(new Set(rows.flatMap((n) => n.comments.map((c) => c.id))));
 }
 
 export function useReviewNotes(surveyId: string): ReviewNotes | null | undefined {

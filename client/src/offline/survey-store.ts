@@ -49,6 +49,8 @@ export function subscribeLocalChanges(fn: Listener): () => void {
   return () => listeners.delete(fn);
 }
 const notify = () => listeners.forEach((fn) => fn());
+/** For writes kept outside the survey (replies to reviewers): sync pushes them soon, as after any edit. */
+export const announceLocalChange = notify;
 
 function validate(doc: Survey): Survey {
   const parsed = SurveySchema.safeParse(doc);

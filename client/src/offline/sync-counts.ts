@@ -12,7 +12,8 @@ export interface SyncCounts {
 /** Calls `onChange` with the counts now and after every change to them; returns a function that stops. */
 export function watchSyncCounts(onChange: (counts: SyncCounts) => void): () => void {
   const subscription = liveQuery(async () => ({
-    pending: await db.outbox.where('state').equals('pending').count(),
+    // Replies to reviewers wait like any edit, and are counted with them.
+    pending: (await db.outbox.where('state').equals('pending').count()) + (await db.replies.where('state').equals('pending').count()),
     rejected: await db.outbox.where('state').equals('rejected').toArray(),
     openConflicts: await db.conflicts.where('status').equals('open').count(),
   })).subscribe({ next: onChange, error: () => undefined });
@@ -20,6 +21,6 @@ export function watchSyncCounts(onChange: (counts: SyncCounts) => void): () => v
 }
 
 /** How many changes wait in the outbox (for code outside React, e.g. the update prompt). */
-export function pendingChangeCount(): Promise<number> {
-  return db.outbox.where('state').equals('pending').count();
+export async function pendingChangeCount(): Promise<number> {
+  return (await db.outbox.where('state').equals('pending').count()) + (await db.replies.where('state').equals('pending').count());
 }

@@ -1,6 +1,7 @@
 /**
  * The sync engine: drains the outbox to the server and pulls what changed, on start, when the
- * link comes back, when the app becomes visible again, every 30 s and on demand. Failures back off
+ * link comes back (the `online` event, or a cheap probe every few seconds while offline), when the
+ * app becomes visible again, every 30 s and on demand. Failures back off
  * exponentially; a 401 that the token refresh cannot fix pauses sync with "sign in to sync" and
  * keeps the outbox; a change the server refuses for good is marked and shown while the rest go on.
  */
@@ -16,6 +17,7 @@ import { ApiError, OfflineError, api, jsonBody } from '@client/lib/api-client';
 import { db, getMeta, META, setMeta, type OutboxEntry } from './db';
 import { mergeServerSurveys, rebaseLocalSurvey, subscribeLocalChanges } from './survey-store';
 import { storeReviewNotes } from './review-notes';
+import { sendPendingReplies } from './replies';
 import { getEngineStatus, setEngineStatus } from './sync-state';
 
 export { useSyncState, type SyncState, type SyncStateName } from './sync-state';
@@ -26,6 +28,8 @@ const INTERVAL_MS = 30_000;
 const LOCAL_CHANGE_DELAY_MS = 1_500;
 const BACKOFF_MIN_MS = 2_000;
 const BACKOFF_MAX_MS = 5 * 60_000;
+/** While offline, how often a cheap request checks whether the link is back (the `online` event may never come). */
+export const PROBE_INTERVAL_MS = 2_500;
 
 const setStatus = setEngineStatus;
 
@@ -34,6 +38,9 @@ let again = false;
 let failures = 0;
 let retryTimer: ReturnType<typeof setTimeout> | undefined;
 let localTimer: ReturnType<typeof setTimeout> | undefined;
+let probeTimer: ReturnType<typeof setTimeout> | undefined;
+/** When a probe last reached the server: navigator.onLine can stay false after the link returns. */
+let reachedAt = 0;
 
 const toChange = (e: OutboxEntry): SurveyChange => ({
   id: e.id,
@@ -125,14 +132,53 @@ function scheduleRetry(): void {
   retryTimer = setTimeout(() => void syncNow(), delay);
 }
 
+/**
+ * Is the server reachable? One small GET with no body worth reading, never from a cache. A page
+ * reloaded while offline may never get the `online` event when the link returns, and the retry
+ * timer backs off to minutes, so while offline this runs every PROBE_INTERVAL_MS instead.
+ */
+async function probe(): Promise<boolean> {
+  try {
+    // Any answer at all means the link is back (the service worker never answers /api/).
+    await fetch('/api/health', { method: 'GET', cache: 'no-store', credentials: 'omit' });
+    return true;
+  } catch {
+    return false;
+  }
+}
+
+function scheduleProbe(): void {
+  if (probeTimer !== undefined || !stopper) return;
+  probeTimer = setTimeout(() => {
+    probeTimer = undefined;
+    if (getEngineStatus().online) return;
+    if (typeof document !== 'undefined' && document.visibilityState === 'hidden') return scheduleProbe();
+    void probe().then((up) => {
+      if (up && !getEngineStatus().online) {
+        reachedAt = Date.now();
+        failures = 0;
+        clearTimeout(retryTimer);
+        setStatus({ online: true, retryAt: undefined });
+        void syncNow();
+      } else if (!getEngineStatus().online) scheduleProbe();
+    });
+  }, PROBE_INTERVAL_MS);
+}
+
+function goneOffline(): void {
+  setStatus({ online: false });
+  scheduleProbe();
+}
+
 async function runOnce(): Promise<void> {
-  if (typeof navigator !== 'undefined' && !navigator.onLine) {
-    setStatus({ online: false });
+  if (typeof navigator !== 'undefined' && !navigator.onLine && Date.now() - reachedAt > PROBE_INTERVAL_MS * 4) {
+    goneOffline();
     return;
   }
   setStatus({ running: true });
   try {
     await pushAll();
+    await sendPendingReplies();
     await pullAll();
     const now = new Date().toISOString();
     await setMeta(META.lastSyncedAt, now);
@@ -144,7 +190,8 @@ async function runOnce(): Promise<void> {
       // The refresh already failed inside api-client: wait for a sign-in; the outbox stays as it is.
       setStatus({ online: true, needsSignIn: true, error: undefined, retryAt: undefined });
     } else if (err instanceof OfflineError) {
-      setStatus({ online: false, error: undefined });
+      setStatus({ error: undefined });
+      goneOffline();
       scheduleRetry();
     } else {
       setStatus({ online: true, error: err instanceof Error ? err.message : 'Sync failed.' });
@@ -185,7 +232,7 @@ export function startSync(opts: { intervalMs?: number } = {}): () => void {
     failures = 0;
     void syncNow();
   };
-  const onOffline = () => setStatus({ online: false });
+  const onOffline = () => goneOffline();
   const onVisible = () => {
     if (document.visibilityState === 'visible') void syncNow();
   };
@@ -200,7 +247,6 @@ export function startSync(opts: { intervalMs?: number } = {}): () => void {
   void getMeta<string>(META.lastSyncedAt).then((t) => {
     if (t && !getEngineStatus().lastSyncedAt) setStatus({ lastSyncedAt: t });
   });
-  void syncNow();
   stopper = () => {
     window.removeEventListener('online', onOnline);
     window.removeEventListener('offline', onOffline);
@@ -208,8 +254,11 @@ export function startSync(opts: { intervalMs?: number } = {}): () => void {
     clearInterval(interval);
     clearTimeout(retryTimer);
     clearTimeout(localTimer);
+    clearTimeout(probeTimer);
+    probeTimer = undefined;
     unsubscribe();
     stopper = null;
   };
+  void syncNow();
   return stopper;
 }

@@ -122,15 +122,6 @@ export async function lockConflicts(
   return out;
 }
 
-export async function lockConflict(
-  trx: Knex.Transaction,
-  orgId: string,
-  id: string,
-): Promise<{ surveyId: string; status: 'open' | 'resolved'; target: ConflictTarget } | undefined> {
-  const row = await trx('survey_conflicts').where({ id, organisation_id: orgId }).forUpdate().first('survey_id', 'status', 'target');
-  return row ? { surveyId: row.survey_id, status: row.status, target: row.target } : undefined;
-}
-
 export async function markConflictResolved(db: Q, id: string, userId: string, changeId: string): Promise<void> {
   await db('survey_conflicts')
     .where({ id })

@@ -2,6 +2,7 @@
  * SQL of a push run: its opening read (the survey, the changes already recorded, the caller's role)
  * and the one statement that writes its revisions, change records and the survey's new state.
  */
+import type { Knex } from 'knex';
 import type { Role } from '@shared/api/roles';
 import type { Survey } from '@shared/schemas/survey';
 import type { PushStatus, SurveyStatus } from '@shared/schemas/sync';
@@ -166,40 +167,26 @@ const processedRow = (p: ProcessedRow) => ({
   conflict_ids: json(p.conflictIds),
 });
 
+/** What a run writes (see insertRunWrites). */
+export interface RunWrites {
+  revisions: RevisionRow[];
+  processed: ProcessedRow[];
+  survey?: { id: string; columns: SurveyColumns; docJson?: string };
+  onlyAtRevision?: number;
+  /** With `onlyAtRevision`: the organisation the survey must belong to. */
+  orgId?: string;
+  /** With `onlyAtRevision`: write only while this caller is an active member with one of these roles. */
+  member?: MemberCheck & { roles: readonly Role[] };
+}
+
 /**
- * What a push run writes, in one statement: its revisions, its change records and the survey's new
- * state. `inserted`: how many change records were new (fewer than given when another transaction
- * recorded one of them first; the caller then redoes the run).
- *
- * With `onlyAtRevision` (an optimistic run, outside any transaction) the statement first locks the
- * survey row if it is still at that revision, and writes nothing at all otherwise (`guardHeld`
- * false). A change recorded meanwhile then fails the statement with a unique violation, which also
- * writes nothing.
+ * The statement's text: fixed for each of the two kinds (guarded or not). Rows go as one JSON array
+ * per table and the survey update is switched by a flag, so the text is the same for every run: one
+ * prepared statement, parsed and planned once per connection.
  */
-export async function insertRunWrites(
-  q: Q,
-  w: {
-    revisions: RevisionRow[];
-    processed: ProcessedRow[];
-    survey?: { id: string; columns: SurveyColumns; docJson?: string };
-    onlyAtRevision?: number;
-    /** With `onlyAtRevision`: the organisation the survey must belong to. */
-    orgId?: string;
-    /** With `onlyAtRevision`: write only while this caller is an active member with one of these roles. */
-    member?: MemberCheck & { roles: readonly Role[] };
-  },
-): Promise<{ inserted: number; guardHeld: boolean; memberRole: Role | null }> {
-  const guarded = w.onlyAtRevision !== undefined;
-  if (!guarded && !w.processed.length && !w.revisions.length && !w.survey) return { inserted: 0, guardHeld: true, memberRole: null };
-  const surveyId = w.survey?.id ?? w.processed[0]?.surveyId ?? w.revisions[0]?.surveyId ?? null;
-  // Rows go as one JSON array per table and the survey update is switched by a flag, so the text is
-  // the same for every run: one prepared statement, parsed and planned once per connection.
+function runWritesSql(guarded: boolean): string {
   const when = guarded ? ' AND EXISTS (SELECT 1 FROM g)' : '';
-  const c = w.survey?.columns;
-  const { rows } = await runNamed(
-    q,
-    guarded ? 'bl_run_writes_at_revision' : 'bl_run_writes',
-      `WITH g AS (
+  return `WITH g AS (
          SELECT id FROM surveys
           WHERE id = ? AND organisation_id = ? AND revision = ?
             AND (?::uuid IS NULL OR EXISTS (SELECT 1 FROM memberships m WHERE m.user_id = ? AND m.organisation_id = ?
@@ -225,30 +212,52 @@ export async function insertRunWrites(
          ${guarded ? '' : 'ON CONFLICT DO NOTHING'}
          RETURNING 1
        )
-       SELECT (SELECT count(*) FROM p)::int AS n, (SELECT count(*) FROM g)::int AS guard, ${MEMBER_ROLE_SQL} AS member_role`,
-      [
-        guarded ? surveyId : null,
-        guarded ? (w.orgId ?? null) : null,
-        w.onlyAtRevision ?? null,
-        w.member?.userId ?? null,
-        w.member?.userId ?? null,
-        w.member?.orgId ?? null,
-        w.member ? [...w.member.roles] : null,
-        JSON.stringify(w.revisions.map((r) => ({ ...revisionRow(r), changes: r.changes }))),
-        c ? (w.survey?.docJson ?? json(c.doc)) : null,
-        c?.revision ?? null,
-        c ? json(c.revs) : null,
-        c?.title ?? null,
-        c?.vesselName ?? null,
-        c?.vesselId ?? null,
-        c?.soundingsAt ?? null,
-        w.survey?.id ?? null,
-        Boolean(w.survey),
-        JSON.stringify(w.processed.map((p) => ({ ...processedRow(p), conflict_ids: p.conflictIds }))),
-        w.member?.userId ?? null,
-        w.member?.orgId ?? null,
-      ],
-  );
+       SELECT (SELECT count(*) FROM p)::int AS n, (SELECT count(*) FROM g)::int AS guard, ${MEMBER_ROLE_SQL} AS member_role`;
+}
+
+/** The statement's parameters, in the order of its text. */
+function runWritesParams(w: RunWrites, guarded: boolean): Knex.RawBinding[] {
+  const surveyId = w.survey?.id ?? w.processed[0]?.surveyId ?? w.revisions[0]?.surveyId ?? null;
+  const c = w.survey?.columns;
+  return [
+    guarded ? surveyId : null,
+    guarded ? (w.orgId ?? null) : null,
+    w.onlyAtRevision ?? null,
+    w.member?.userId ?? null,
+    w.member?.userId ?? null,
+    w.member?.orgId ?? null,
+    w.member ? [...w.member.roles] : null,
+    JSON.stringify(w.revisions.map((r) => ({ ...revisionRow(r), changes: r.changes }))),
+    c ? (w.survey?.docJson ?? json(c.doc)) : null,
+    c?.revision ?? null,
+    c ? json(c.revs) : null,
+    c?.title ?? null,
+    c?.vesselName ?? null,
+    c?.vesselId ?? null,
+    c?.soundingsAt ?? null,
+    w.survey?.id ?? null,
+    Boolean(w.survey),
+    JSON.stringify(w.processed.map((p) => ({ ...processedRow(p), conflict_ids: p.conflictIds }))),
+    w.member?.userId ?? null,
+    w.member?.orgId ?? null,
+  ];
+}
+
+/**
+ * What a push run writes, in one statement: its revisions, its change records and the survey's new
+ * state. `inserted`: how many change records were new (fewer than given when another transaction
+ * recorded one of them first; the caller then redoes the run).
+ *
+ * With `onlyAtRevision` (an optimistic run, outside any transaction) the statement first locks the
+ * survey row if it is still at that revision, and writes nothing at all otherwise (`guardHeld`
+ * false). A change recorded meanwhile then fails the statement with a unique violation, which also
+ * writes nothing.
+ */
+export async function insertRunWrites(q: Q, w: RunWrites): Promise<{ inserted: number; guardHeld: boolean; memberRole: Role | null }> {
+  const guarded = w.onlyAtRevision !== undefined;
+  if (!guarded && !w.processed.length && !w.revisions.length && !w.survey) return { inserted: 0, guardHeld: true, memberRole: null };
+  const name = guarded ? 'bl_run_writes_at_revision' : 'bl_run_writes';
+  const { rows } = await runNamed(q, name, runWritesSql(guarded), runWritesParams(w, guarded));
   const row = rows[0] as { n: number; guard: number; member_role: Role | null };
   return { inserted: Number(row.n), guardHeld: !guarded || Number(row.guard) > 0, memberRole: w.member ? row.member_role : null };
 }

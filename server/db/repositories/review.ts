@@ -261,11 +261,14 @@ const commentColumns = [
   'c.created_at',
   'u.name as author_name',
   'm.role as author_role',
+  'c.resolved_at',
+  'r.name as resolved_by_name',
 ];
 
 function commentsQuery(db: Q) {
   return db('review_comments as c')
     .join('users as u', 'u.id', 'c.author_id')
+    .leftJoin('users as r', 'r.id', 'c.resolved_by')
     .leftJoin('memberships as m', function () {
       this.on('m.user_id', '=', 'c.author_id').andOn('m.organisation_id', '=', 'c.organisation_id');
     });
@@ -281,6 +284,8 @@ const toComment = (r: Record<string, unknown>): ReviewComment => ({
   authorRole: (r.author_role as string | null) ?? 'former member',
   revision: r.revision as number,
   createdAt: iso(r.created_at as Date)!,
+  resolvedAt: iso(r.resolved_at as Date | null) ?? null,
+  resolvedByName: (r.resolved_by_name as string | null) ?? null,
 });
 
 export async function findComment(db: Q, surveyId: string, commentId: string): Promise<ReviewComment | undefined> {
@@ -290,10 +295,11 @@ export async function findComment(db: Q, surveyId: string, commentId: string): P
 
 export async function insertComment(
   db: Q,
-  c: { surveyId: string; orgId: string; target: CommentTarget; parentId: string | null; body: string; authorId: string; revision: number },
+  c: { id?: string; surveyId: string; orgId: string; target: CommentTarget; parentId: string | null; body: string; authorId: string; revision: number },
 ): Promise<ReviewComment> {
   const [row] = await db('review_comments')
     .insert({
+      ...(c.id ? { id: c.id } : {}),
       survey_id: c.surveyId,
       organisation_id: c.orgId,
       target_kind: c.target.kind,
@@ -484,4 +490,19 @@ export async function organisationName(db: Q, orgId: string): Promise<string> {
 export async function userName(db: Q, userId: string): Promise<string> {
   const row = await db('users').where({ id: userId }).first('name');
   return row?.name ?? '';
+}
+
+/** Any comment with this id, on any survey (a device-made id must not collide with another's comment). */
+export async function findCommentAnywhere(db: Q, commentId: string): Promise<{ surveyId: string; authorId: string } | undefined> {
+  const row = await db('review_comments').where({ id: commentId }).first('survey_id', 'author_id');
+  return row ? { surveyId: row.survey_id as string, authorId: row.author_id as string } : undefined;
+}
+
+/** Closes or reopens a thread (its first comment); false when there is no such thread on the survey. */
+export async function setCommentResolution(db: Q, surveyId: string, commentId: string, resolvedBy: string | null): Promise<boolean> {
+  const n = await db('review_comments')
+    .where({ id: commentId, survey_id: surveyId })
+    .whereNull('parent_id')
+    .update({ resolved_at: resolvedBy ? db.fn.now() : null, resolved_by: resolvedBy });
+  return n > 0;
 }

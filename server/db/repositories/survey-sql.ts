@@ -7,6 +7,7 @@ export type Q = Knex | Knex.Transaction;
 
 /** jsonb parameters go as JSON text: node-postgres would turn a JS array into a PostgreSQL array. */
 export const json = (v: unknown) => JSON.stringify(v ?? null);
+
 /**
  * A stored document in the current format. The migration of 2026-12-03 upgraded every stored
  * document; this covers one written meanwhile by an older server. The same object when current.

@@ -11,7 +11,7 @@ import { isValidEdit, SurveySchema, type Survey } from '@shared/schemas/survey';
 import type { ConflictTarget, PushResult, SurveyChange, SurveyStatus } from '@shared/schemas/sync';
 import { deepEqual } from '@shared/sync/apply';
 import { mergeChange, type ConflictDraft, type FieldRevisions } from '@shared/sync/merge';
-import { formatZodIssues } from '@shared/api/format-issues';
+import { formatIssueLines } from '@shared/api/format-issues';
 import type { ProcessedChange, ProcessedRow } from '../../db/repositories/push-writes';
 import type { RevisionRow } from '../../db/repositories/surveys';
 import type { ConflictInsert } from '../../db/repositories/conflicts';
@@ -96,8 +96,7 @@ export function validationReason(doc: Survey, from?: Survey): string | null {
   if (from && isValidEdit(from, doc)) return null;
   const parsed = SurveySchema.safeParse(doc);
   if (parsed.success) return null;
-  const issues = formatZodIssues(parsed.error).slice(0, 3);
-  return `The survey would not be valid after this change: ${issues.map((i) => `${i.path}: ${i.message}`).join('; ')}.`;
+  return `The survey would not be valid after this change: ${formatIssueLines(parsed.error).slice(0, 3).join('; ')}.`;
 }
 
 /** The plan of one run; see the file's comment. */

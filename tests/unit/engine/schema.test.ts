@@ -1,7 +1,7 @@
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { computeSurvey, ENGINE_VERSION } from '@shared/engine';
-import { formatIssues } from '@shared/schemas/format-issues';
+import { formatIssueLines } from '@shared/api/format-issues';
 import { surveyJsonSchemaText } from '@shared/schemas/json-schema';
 import { SurveySchema } from '@shared/schemas/survey';
 import { demoSurvey } from '../../../seeds/demo-survey';
@@ -20,15 +20,15 @@ describe('survey format', () => {
     bad.boundaries[1].sideB.compartmentId = '5eed0000-0000-4000-8000-0000000fffff';
     const r = SurveySchema.safeParse(bad);
     expect(r.success).toBe(false);
-    const lines = formatIssues(r.error!);
-    expect(lines).toContain('boundaries[0].geometry.origin.x: Invalid input: expected number, received string');
+    const lines = formatIssueLines(r.error!);
+    expect(lines).toContain('boundaries.0.geometry.origin.x: Invalid input: expected number, received string');
   });
   it('cross-references are checked', () => {
     const s = demoSurvey();
     s.boundaries[1].sideB = { kind: 'compartment', compartmentId: '5eed0000-0000-4000-8000-0000000fffff' };
     const r = SurveySchema.safeParse(s);
     expect(r.success).toBe(false);
-    expect(formatIssues(r.error!)).toEqual(['boundaries[1].sideB.compartmentId: no compartment has this id']);
+    expect(formatIssueLines(r.error!)).toEqual(['boundaries.1.sideB.compartmentId: no compartment has this id']);
   });
 });
 

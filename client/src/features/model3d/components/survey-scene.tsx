@@ -9,11 +9,9 @@ import { useEffect, useLayoutEffect, useMemo, useRef, useState } from 'react';
 import { Canvas, useThree, type ThreeEvent } from '@react-three/fiber';
 import { OrbitControls } from '@react-three/drei';
 import * as THREE from 'three';
-import type { SurveyResults } from '@shared/engine/results';
 import type { Survey } from '@shared/schemas/survey';
 import type { UnitSystem } from '@shared/units/units';
-import { boundaryPolygons, compartmentSolid, liquidBody } from '@shared/engine/mesh';
-import type { V3 } from '@shared/engine/vec';
+import { boundaryPolygons, compartmentSolid, liquidBody, type SurveyResults, type V3 } from '@shared/engine';
 import { fmt } from '@client/lib/unit-system';
 import { pressureRgb, rgbCss } from './pressure-colour';
 

@@ -1,5 +1,5 @@
 /** Everything computed for one boundary: each side, the net load, its diagram, stiffeners, shores, capacity. */
-import type { BoundaryResult, SurveyResults } from '@shared/engine/results';
+import type { BoundaryResult, SurveyResults } from '@shared/engine';
 import type { UnitSystem } from '@shared/units/units';
 import { fmt, num, percent, unitLabel } from '@client/lib/unit-system';
 import { LoadDiagramChart } from './load-diagram-chart';

@@ -9,7 +9,7 @@ import {
   useReactTable,
   type SortingState,
 } from '@tanstack/react-table';
-import type { BoundaryResult, SurveyResults } from '@shared/engine/results';
+import type { BoundaryResult, SurveyResults } from '@shared/engine';
 import type { UnitSystem } from '@shared/units/units';
 import { fmt, num, unitLabel } from '@client/lib/unit-system';
 import { UtilisationBadge } from './utilisation';

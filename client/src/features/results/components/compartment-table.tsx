@@ -1,5 +1,5 @@
 /** Liquid in every compartment: each layer's volume (permeability applied), mass and level. */
-import type { SurveyResults } from '@shared/engine/results';
+import type { SurveyResults } from '@shared/engine';
 import type { UnitSystem } from '@shared/units/units';
 import { pointWords } from '@shared/units/point-words';
 import { num, percent, unitLabel } from '@client/lib/unit-system';

@@ -3,7 +3,7 @@
  * net pressure on the horizontal, both labelled with the user's units. Positive pressure (pushing
  * towards side B) is drawn to the right.
  */
-import type { LoadDiagramPoint } from '@shared/engine/results';
+import type { LoadDiagramPoint } from '@shared/engine';
 import type { UnitSystem } from '@shared/units/units';
 import { formatNumber } from '@shared/units/units';
 import { display, unitLabel } from '@client/lib/unit-system';

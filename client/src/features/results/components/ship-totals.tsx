@@ -1,5 +1,5 @@
 /** The whole ship at a glance: heel, trim, flood water, oil, their centroid, the worst utilisation. */
-import type { SurveyResults } from '@shared/engine/results';
+import type { SurveyResults } from '@shared/engine';
 import type { UnitSystem } from '@shared/units/units';
 import { fmt, num, unitLabel } from '@client/lib/unit-system';
 import { pointWords } from '@shared/units/point-words';

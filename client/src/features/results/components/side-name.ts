@@ -1,4 +1,4 @@
-import type { SurveyResults } from '@shared/engine/results';
+import type { SurveyResults } from '@shared/engine';
 
 /** Plain name of the space on one side of a boundary. */
 export function sideName(results: SurveyResults, side: { kind: 'compartment' | 'sea' | 'air'; compartmentId: string | null }): string {

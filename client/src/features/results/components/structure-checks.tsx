@@ -2,7 +2,7 @@
  * The structural checks of one plate: stiffeners, shores (as columns by their design method) and
  * the plating between stiffeners, with what the model assumes said in words.
  */
-import type { BoundaryResult } from '@shared/engine/results';
+import type { BoundaryResult } from '@shared/engine';
 import { INCH_M, type UnitSystem } from '@shared/units/units';
 import { fmt, num, percent, unitLabel } from '@client/lib/unit-system';
 import { UtilisationBadge } from './utilisation';

@@ -3,12 +3,20 @@
  * status move and its note, the verdicts, the operating limits and the comment threads. Works
  * offline. The workspace drops it in whole, or with `target` to show only one item's comments.
  */
+import { useState, type FormEvent } from 'react';
 import type { CommentTarget, ReviewComment } from '@shared/api/review';
 import type { Survey } from '@shared/schemas/survey';
 import { STATUS_LABELS } from '@shared/review/status';
 import { boundaryVerdictLabel, describeLimit, namesFromSurvey, surveyVerdictLabel, verdictSeverity } from '@shared/review/words';
 import { useUnitSystem } from '@client/lib/unit-system';
 import { useReviewNotes } from '@client/offline/review-notes';
+import { discardReply, queueReply, useLocalReplies } from '@client/offline/replies';
+import type { LocalReply } from '@client/offline/db';
+import { useSession } from '@client/lib/session';
+import { threadState } from '@shared/review/threads';
+import { buttonClass } from '@client/components/ui/button';
+import { inputCls } from '@client/components/ui/fields';
+import { ThreadStateChip } from './thread-state-chip';
 
 const when = (iso: string) => new Date(iso).toLocaleString('en-GB', { dateStyle: 'medium', timeStyle: 'short', timeZone: 'UTC' }) + ' UTC';
 const SEVERITY = ['border-ok bg-ok-soft', 'border-caution bg-caution-soft', 'border-danger bg-danger-soft', 'border-danger bg-danger-soft'];
@@ -33,10 +41,82 @@ function itemName(survey: Survey | undefined, t: CommentTarget): string {
   }
 }
 
-function Thread({ root, replies, survey, showTarget }: { root: ReviewComment; replies: ReviewComment[]; survey?: Survey; showTarget: boolean }) {
+/** The surveyor's answer, kept on the device first and sent with the next sync (works with no signal). */
+function ReplyForm({ root }: { root: ReviewComment }) {
+  const [open, setOpen] = useState(false);
+  const [body, setBody] = useState('');
+  const [saving, setSaving] = useState(false);
+  const session = useSession();
+  const id = `reply-${root.id}`;
+  if (!open)
+    return (
+      <button type="button" className={buttonClass('link', 'mt-1')} onClick={() => setOpen(true)}>
+        Reply
+      </button>
+    );
+  const send = async (e: FormEvent) => {
+    e.preventDefault();
+    if (!body.trim()) return;
+    setSaving(true);
+    try {
+      await queueReply({ surveyId: root.surveyId, parentId: root.id, target: root.target, body, authorName: session.user?.name ?? 'You' });
+      setBody('');
+      setOpen(false);
+    } finally {
+      setSaving(false);
+    }
+  };
   return (
-    <li className="rounded border border-line bg-card p-2" data-testid="review-note-comment">
-      {showTarget && <p className="text-xs font-bold uppercase tracking-wide text-ink-soft">{itemName(survey, root.target)}</p>}
+    <form className="mt-2 flex flex-col gap-1" onSubmit={(e) => void send(e)}>
+      <label htmlFor={id} className="text-sm font-bold">
+        Your reply
+      </label>
+      <textarea id={id} className={`${inputCls} py-2`} rows={2} maxLength={4000} value={body} onChange={(e) => setBody(e.target.value)} required />
+      <div className="flex flex-wrap gap-2">
+        <button type="submit" className={buttonClass('primary')} disabled={saving || !body.trim()}>
+          Send reply
+        </button>
+        <button type="button" className={buttonClass('secondary')} onClick={() => setOpen(false)}>
+          Cancel
+        </button>
+      </div>
+    </form>
+  );
+}
+
+function LocalReplyView({ reply }: { reply: LocalReply }) {
+  return (
+    <div className="ml-3 mt-1 border-l-4 border-sea-soft pl-2" data-testid="local-reply" data-state={reply.state}>
+      <p className="whitespace-pre-wrap">{reply.body}</p>
+      <p className="text-xs text-ink-soft">
+        {reply.authorName} · {when(reply.createdAt)} ·{' '}
+        {reply.state === 'rejected' ? (
+          <span className="font-bold text-danger" role="alert">
+            Not sent: {reply.reason}{' '}
+            <button type="button" className={buttonClass('danger-link')} onClick={() => void discardReply(reply.id)}>
+              Discard
+            </button>
+          </span>
+        ) : reply.state === 'sent' ? (
+          'sent'
+        ) : (
+          <strong>waiting to send</strong>
+        )}
+      </p>
+    </div>
+  );
+}
+
+function Thread({ root, replies, local, survey, showTarget }: { root: ReviewComment; replies: ReviewComment[]; local: LocalReply[]; survey?: Survey; showTarget: boolean }) {
+  const waiting = local.filter((r) => r.state !== 'rejected');
+  // A reply waiting on the device already answers the thread, as far as the surveyor is concerned.
+  const state = threadState(root, [root, ...replies, ...waiting.map(() => ({ authorRole: 'surveyor' }))]);
+  return (
+    <li className="rounded border border-line bg-card p-2" data-testid="review-note-comment" data-thread-state={state}>
+      <div className="flex flex-wrap items-center justify-between gap-2">
+        {showTarget ? <p className="text-xs font-bold uppercase tracking-wide text-ink-soft">{itemName(survey, root.target)}</p> : <span />}
+        <ThreadStateChip state={state} />
+      </div>
       <p className="whitespace-pre-wrap">{root.body}</p>
       <p className="text-xs text-ink-soft">
         {root.authorName} · {when(root.createdAt)}
@@ -49,17 +129,31 @@ function Thread({ root, replies, survey, showTarget }: { root: ReviewComment; re
           </p>
         </div>
       ))}
+      {local.map((r) => (
+        <LocalReplyView key={r.id} reply={r} />
+      ))}
+      {root.resolvedAt ? (
+        <p className="mt-1 text-xs text-ink-soft">
+          Resolved by {root.resolvedByName ?? 'the reviewer'} · {when(root.resolvedAt)}
+        </p>
+      ) : (
+        <ReplyForm root={root} />
+      )}
     </li>
   );
 }
 
 export function ReviewNotes({ surveyId, survey, target }: { surveyId: string; survey?: Survey; target?: CommentTarget }) {
   const notes = useReviewNotes(surveyId);
+  const localReplies = useLocalReplies(surveyId);
   const system = useUnitSystem();
   if (!notes) return null;
   const comments = target ? notes.comments.filter((c) => c.target.kind === target.kind && c.target.id === target.id) : notes.comments;
   const roots = comments.filter((c) => !c.parentId);
   const repliesOf = (id: string) => comments.filter((c) => c.parentId === id);
+  // A sent reply stays on the device until the pull brings it as a comment: show it once.
+  const seen = new Set(notes.comments.map((c) => c.id));
+  const localOf = (id: string) => (localReplies ?? []).filter((r) => r.parentId === id && !seen.has(r.id));
 
   if (target) {
     if (roots.length === 0) return null;
@@ -68,7 +162,7 @@ export function ReviewNotes({ surveyId, survey, target }: { surveyId: string; su
         <h3 className="font-bold">Reviewer’s comments</h3>
         <ul className="space-y-2">
           {roots.map((c) => (
-            <Thread key={c.id} root={c} replies={repliesOf(c.id)} survey={survey} showTarget={false} />
+            <Thread key={c.id} root={c} replies={repliesOf(c.id)} local={localOf(c.id)} survey={survey} showTarget={false} />
           ))}
         </ul>
       </section>
@@ -132,7 +226,7 @@ export function ReviewNotes({ surveyId, survey, target }: { surveyId: string; su
           <h3 className="font-bold">Comments</h3>
           <ul className="mt-1 space-y-2">
             {roots.map((c) => (
-              <Thread key={c.id} root={c} replies={repliesOf(c.id)} survey={survey} showTarget />
+              <Thread key={c.id} root={c} replies={repliesOf(c.id)} local={localOf(c.id)} survey={survey} showTarget />
             ))}
           </ul>
         </div>

@@ -1,5 +1,5 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
-import type { NewComment, ReviewComment } from '@shared/api/review';
+import type { CommentResolution, NewComment, ReviewComment } from '@shared/api/review';
 import { api, jsonBody } from '@client/lib/api-client';
 import { reviewKeys } from './keys';
 
@@ -10,6 +10,18 @@ export function useAddComment(surveyId: string) {
   const qc = useQueryClient();
   return useMutation({
     mutationFn: (body: NewComment) => addComment(surveyId, body),
+    onSuccess: () => qc.invalidateQueries({ queryKey: reviewKeys.detail(surveyId) }),
+  });
+}
+
+export const resolveComment = (surveyId: string, commentId: string, body: CommentResolution) =>
+  api<ReviewComment>(`/api/review/surveys/${encodeURIComponent(surveyId)}/comments/${encodeURIComponent(commentId)}/resolution`, { method: 'PUT', ...jsonBody(body) });
+
+/** The engineer closes an answered thread, or opens it again. */
+export function useResolveComment(surveyId: string) {
+  const qc = useQueryClient();
+  return useMutation({
+    mutationFn: ({ commentId, resolved }: { commentId: string; resolved: boolean }) => resolveComment(surveyId, commentId, { resolved }),
     onSuccess: () => qc.invalidateQueries({ queryKey: reviewKeys.detail(surveyId) }),
   });
 }

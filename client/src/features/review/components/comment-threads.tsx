@@ -2,7 +2,9 @@
 import { useState, type FormEvent } from 'react';
 import type { ReviewComment } from '@shared/api/review';
 import type { Survey } from '@shared/schemas/survey';
-import { useAddComment } from '../api/add-comment';
+import { useAddComment, useResolveComment } from '../api/add-comment';
+import { threadState } from '@shared/review/threads';
+import { ThreadStateChip } from '@client/features/review-notes/components/thread-state-chip';
 import { targetKey, targetLabel, targetOptions } from './review-targets';
 import { buttonClass } from '@client/components/ui/button';
 import { inputCls } from '@client/components/ui/fields';
@@ -42,16 +44,40 @@ function Reply({ surveyId, parent }: { surveyId: string; parent: ReviewComment }
   );
 }
 
+function ResolveButton({ surveyId, thread }: { surveyId: string; thread: ReviewComment }) {
+  const resolve = useResolveComment(surveyId);
+  return (
+    <>
+      <button
+        type="button"
+        className={buttonClass('link', 'mt-1')}
+        disabled={resolve.isPending}
+        onClick={() => resolve.mutate({ commentId: thread.id, resolved: !thread.resolvedAt })}
+      >
+        {thread.resolvedAt ? 'Reopen thread' : 'Mark resolved'}
+      </button>
+      {resolve.isError && (
+        <p role="alert" className="text-danger">
+          {resolve.error.message}
+        </p>
+      )}
+    </>
+  );
+}
+
 export function CommentThreads({
   surveyId,
   doc,
   comments,
   initialTarget,
+  canResolve = false,
 }: {
   surveyId: string;
   doc: Survey;
   comments: ReviewComment[];
   initialTarget?: string;
+  /** The engineer closes threads; others only answer them. */
+  canResolve?: boolean;
 }) {
   const options = targetOptions(doc);
   const [target, setTarget] = useState(initialTarget ?? options[0]!.key);
@@ -97,8 +123,11 @@ export function CommentThreads({
       ) : (
         <ul className="mt-3 space-y-3" data-testid="comment-list">
           {roots.map((c) => (
-            <li key={c.id} className={`${inputCls} py-2`} data-target={targetKey(c.target)}>
-              <p className="text-xs font-bold uppercase tracking-wide text-ink-soft">{targetLabel(doc, c.target)}</p>
+            <li key={c.id} className="rounded border border-line p-2" data-target={targetKey(c.target)} data-thread-state={threadState(c, [c, ...replies(c.id)])}>
+              <div className="flex flex-wrap items-center justify-between gap-2">
+                <p className="text-xs font-bold uppercase tracking-wide text-ink-soft">{targetLabel(doc, c.target)}</p>
+                <ThreadStateChip state={threadState(c, [c, ...replies(c.id)])} />
+              </div>
               <p className="mt-1 whitespace-pre-wrap">{c.body}</p>
               <p className="text-xs text-ink-soft">
                 {c.authorName} ({c.authorRole}) · {when(c.createdAt)} · revision {c.revision}
@@ -111,7 +140,14 @@ export function CommentThreads({
                   </p>
                 </div>
               ))}
-              <Reply surveyId={surveyId} parent={c} />
+              {c.resolvedAt ? (
+                <p className="mt-1 text-xs text-ink-soft">
+                  Resolved by {c.resolvedByName ?? 'the reviewer'} · {when(c.resolvedAt)}
+                </p>
+              ) : (
+                <Reply surveyId={surveyId} parent={c} />
+              )}
+              {canResolve && <ResolveButton surveyId={surveyId} thread={c} />}
             </li>
           ))}
         </ul>

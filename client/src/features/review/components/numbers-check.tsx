@@ -3,7 +3,7 @@
  * document, with a clear mark where they differ beyond 1e-9 relative or come from different
  * engine versions.
  */
-import type { SurveyResults } from '@shared/engine/results';
+import type { SurveyResults } from '@shared/engine';
 import { RELATIVE_TOLERANCE, type ResultsAgreement } from '@shared/review/compare';
 import type { UnitSystem } from '@shared/units/units';
 import { fmt } from '@client/lib/unit-system';

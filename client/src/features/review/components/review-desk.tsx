@@ -5,8 +5,7 @@
  */
 import { useMemo, useState } from 'react';
 import { Link } from 'react-router';
-import { computeSurvey } from '@shared/engine';
-import type { SurveyResults } from '@shared/engine/results';
+import { computeSurvey, type SurveyResults } from '@shared/engine';
 import { UpgradingSurveySchema, type Survey } from '@shared/schemas/survey';
 import { compareResults } from '@shared/review/compare';
 import { REVIEWABLE_STATUSES } from '@shared/review/status';
@@ -138,7 +137,7 @@ export function ReviewDesk({ surveyId }: { surveyId: string }) {
         <div className="min-w-0 space-y-3">
           <VerdictPanel key={`v-${r.verdicts.length}`} surveyId={surveyId} doc={doc} verdicts={r.verdicts} editable={editable} />
           <LimitsPanel surveyId={surveyId} doc={doc} limits={r.limits} editable={editable} system={system} />
-          <CommentThreads surveyId={surveyId} doc={doc} comments={r.comments} />
+          <CommentThreads surveyId={surveyId} doc={doc} comments={r.comments} canResolve={r.viewer.role === 'engineer'} />
           <BriefPanel surveyId={surveyId} status={r.status} briefs={r.briefs} canIssue={r.viewer.role === 'engineer'} canRevoke={r.viewer.role !== 'surveyor'} />
         </div>
       </div>

@@ -1,6 +1,6 @@
 /** The 3D model on the review desk: the shared scene, read-only here (tapping selects a boundary's results). */
 import { lazy, Suspense } from 'react';
-import type { SurveyResults } from '@shared/engine/results';
+import type { SurveyResults } from '@shared/engine';
 import type { Survey } from '@shared/schemas/survey';
 import type { UnitSystem } from '@shared/units/units';
 import { ModelBoundary } from '@client/features/model3d/components/model-boundary';

@@ -2,7 +2,7 @@
 import { useForm } from 'react-hook-form';
 import { ConditionSchema, type Condition } from '@shared/schemas/survey';
 import type { UnitSystem } from '@shared/units/units';
-import { DEFAULT_SEA_DENSITY_KG_M3, HEEL_AGREEMENT_TOLERANCE_DEG } from '@shared/engine/frame';
+import { DEFAULT_SEA_DENSITY_KG_M3, HEEL_AGREEMENT_TOLERANCE_DEG } from '@shared/engine';
 import { settleMarks, withMark, type FigureMark, type Marks } from '@shared/schemas/marks';
 import { MarkChip } from './mark-chip';
 import { byKey, measureLabel, parseField, showField, unitResolver } from '../utils/form-units';

@@ -44,7 +44,7 @@ function useResults(survey: Survey | undefined): { results: SurveyResults | null
   return useMemo(() => {
     if (!survey) return { results: null, error: null };
     try {
-      return { results: computeSurvey(survey), error: null };
+      return { results: computeSurvey(survey, { includeLoadDiagrams: true }), error: null };
     } catch (err) {
       return { results: null, error: err instanceof Error ? err.message : 'The loads could not be computed.' };
     }

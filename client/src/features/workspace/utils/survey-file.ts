@@ -3,7 +3,7 @@
  * shared/schemas/upgrade.ts), then the survey format's schema, with one "path: problem" line per error.
  */
 import { UpgradingSurveySchema, type Survey } from '@shared/schemas/survey';
-import { formatIssues } from '@shared/schemas/format-issues';
+import { formatIssueLines } from '@shared/api/format-issues';
 
 export type ParsedFile = { ok: true; survey: Survey } | { ok: false; errors: string[] };
 
@@ -15,7 +15,7 @@ export function parseSurveyFile(text: string): ParsedFile {
     return { ok: false, errors: [`(file): not JSON — ${err instanceof Error ? err.message : 'unreadable'}`] };
   }
   const r = UpgradingSurveySchema.safeParse(json);
-  return r.success ? { ok: true, survey: r.data } : { ok: false, errors: formatIssues(r.error) };
+  return r.success ? { ok: true, survey: r.data } : { ok: false, errors: formatIssueLines(r.error) };
 }
 
 /**

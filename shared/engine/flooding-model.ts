@@ -1,0 +1,402 @@
+/**
+ * The flooding model: the physics of the forecast, with no survey format and no clock in it.
+ *
+ * State: the liquid volume (permeability applied, m³) of every fluid in every space, then three
+ * running totals: volume in from the sea, out to the sea, and pumped out. Within a space the
+ * fluids lie in layers by density, heaviest at the bottom; their surfaces come from the volumes
+ * through the exact volume-below-a-plane (flooding-levels.ts). The gas above is vented (0 gauge),
+ * held at a gauge pressure (compressed air kept up by a compressor), or trapped: an air-tight space
+ * whose air obeys Boyle's law p·V = const (isothermal; absolute pressure over the standard
+ * atmosphere's 101,325 Pa, ISO 2533).
+ *
+ * Flow through an opening follows the orifice law q = C_d w √(2 Δp / ρ) per unit height, with Δp
+ * the difference of the two sides' hydrostatic pressures at that height (each side's gas pressure
+ * plus its layers above: Pascal's law) and ρ the density of the fluid present at that height on
+ * the upstream side (so oil leaves through a breach in an oil layer at oil density; gas passes
+ * nothing). An opening with a height is integrated over it: exactly for a rectangle where the head
+ * is large, by 8-point Gauss–Legendre after a cosine change of variable (which absorbs the square
+ * roots at the ends) for a round opening and near zero head. C_d defaults to 0.6, the usual value
+ * for a sharp-edged orifice (common practice). Below HEAD_LINEAR_BELOW_M of head the flow is taken
+ * as linear in the head, matched at that head: the √ law's infinite slope at equal levels would
+ * otherwise make the equations infinitely stiff, and 10 mm is below what a sounding tape resolves.
+ *
+ * Pumps draw from the lowest layer at their suction and lose suction as it uncovers: over the last
+ * PUMP_TAIL_S seconds' worth of its capacity of liquid above the suction its rate falls away in
+ * proportion (the pump takes air). So a pump stops when its suction uncovers, and the equations stay
+ * continuous and no stiffer than that time, even where a heeled space's surface shrinks to a corner.
+ */
+import type { LevelTable } from './flooding-levels';
+import { levelOfVolume, surfaceAreaAt, volumeAt } from './flooding-levels';
+import type { V3 } from './vec';
+
+/** Sea-level pressure of the standard atmosphere, Pa (ISO 2533:1975; ICAO Doc 7488). */
+export const STANDARD_ATMOSPHERE_PA = 101_325;
+/** Discharge coefficient of a sharp-edged orifice (common practice, no single source). */
+export const DEFAULT_DISCHARGE_COEFFICIENT = 0.6;
+/** Head below which orifice flow is taken as linear in the head, m (see the module comment). */
+export const HEAD_LINEAR_BELOW_M = 0.01;
+/** A pump loses suction over its last this-many seconds of capacity of liquid above the suction, s (modelling choice, no source). */
+export const PUMP_TAIL_S = 60;
+
+export interface FloodFluid {
+  /** fluidId plus density: one slot per distinct liquid. */
+  key: string;
+  fluidId: string;
+  name: string;
+  category: 'water' | 'oil' | 'other';
+  densityKgM3: number;
+}
+
+export type GasModel = { kind: 'vented' } | { kind: 'held'; gaugePa: number } | { kind: 'trapped'; pvPaM3: number };
+
+export interface FloodSpace {
+  id: string;
+  name: string;
+  permeability: number;
+  table: LevelTable;
+  gas: GasModel;
+  /** Open to the sea with no breach entered: held in balance with the sea, its exchange booked to the sea. */
+  held: boolean;
+}
+
+export interface FloodOpening {
+  id: string;
+  name: string;
+  /** Space index; `outside` −1 is the sea. Positive flow runs from outside into inside. */
+  inside: number;
+  outside: number;
+  /** Elevation of the centre, m; half its vertical extent (0: taken at its centre). */
+  elevationM: number;
+  halfHeightM: number;
+  shape: 'point' | 'rectangular' | 'round';
+  areaM2: number;
+  cd: number;
+}
+
+export interface FloodPump {
+  id: string;
+  name: string;
+  space: number;
+  capacityM3S: number;
+  /** Elevation of the suction, m. */
+  suctionElevationM: number;
+}
+
+export interface FloodFrame {
+  up: V3;
+  waterlineElevationM: number;
+  seaDensityKgM3: number;
+  g: number;
+}
+
+export interface FloodModel {
+  frame: FloodFrame;
+  /** Fluids ordered by density, heaviest first (the order layers lie in, bottom up). */
+  fluids: FloodFluid[];
+  /** Slot of sea water in `fluids`. */
+  seaSlot: number;
+  spaces: FloodSpace[];
+  openings: FloodOpening[];
+  pumps: FloodPump[];
+}
+
+/** Index of the running totals after the volumes. */
+export const SEA_IN = 0, SEA_OUT = 1, PUMPED = 2;
+
+export const stateSize = (m: FloodModel): number => m.spaces.length * m.fluids.length + 3;
+
+/** Per-space liquid surfaces worked out from a state. */
+export interface SpaceStack {
+  /** Top elevation of each fluid's layer in fluid order (bottom up), m; an absent fluid has zero thickness. */
+  tops: Float64Array;
+  /** Top of all liquid (the bottom when dry), m. */
+  liquidTop: Float64Array;
+  gasPa: Float64Array;
+  liquidVolume: Float64Array;
+}
+
+export function newStack(m: FloodModel): SpaceStack {
+  const n = m.spaces.length;
+  return { tops: new Float64Array(n * m.fluids.length), liquidTop: new Float64Array(n), gasPa: new Float64Array(n), liquidVolume: new Float64Array(n) };
+}
+
+/** Fills `st` from the volumes in `y`, for the spaces listed in `only` (default all). */
+export function stackOf(m: FloodModel, y: Float64Array, st: SpaceStack, only?: Int32Array): void {
+  const nF = m.fluids.length;
+  const count = only ? only.length : m.spaces.length;
+  for (let j = 0; j < count; j++) {
+    const s = only ? only[j] : j;
+    const sp = m.spaces[s];
+    let cum = 0;
+    let top = sp.table.bottom;
+    for (let f = 0; f < nF; f++) {
+      const v = y[s * nF + f];
+      if (v > 0) {
+        cum += v;
+        top = levelOfVolume(sp.table, cum / sp.permeability);
+      }
+      st.tops[s * nF + f] = top;
+    }
+    st.liquidTop[s] = top;
+    st.liquidVolume[s] = cum;
+    st.gasPa[s] = gasPressure(sp, cum);
+  }
+}
+
+/** Gauge pressure of the gas over `liquidM3` of liquid, Pa. */
+export function gasPressure(sp: FloodSpace, liquidM3: number): number {
+  const gas = sp.gas;
+  if (gas.kind === 'vented') return 0;
+  if (gas.kind === 'held') return gas.gaugePa;
+  // Boyle: p_abs V = const; the gas has the permeable volume the liquid leaves (never below 0.1 % of it)
+  const room = sp.permeability * sp.table.total;
+  const vGas = Math.max(room - liquidM3, 1e-3 * room);
+  return gas.pvPaM3 / vGas - STANDARD_ATMOSPHERE_PA;
+}
+
+/** Hydrostatic pressure in space s at elevation e, Pa gauge. */
+export function spacePressure(m: FloodModel, st: SpaceStack, s: number, e: number): number {
+  const nF = m.fluids.length;
+  let p = st.gasPa[s];
+  let bottom = m.spaces[s].table.bottom;
+  for (let f = 0; f < nF; f++) {
+    const top = st.tops[s * nF + f];
+    if (top > bottom && top > e) p += m.fluids[f].densityKgM3 * m.frame.g * (top - Math.max(e, bottom));
+    bottom = Math.max(bottom, top);
+  }
+  return p;
+}
+
+/** The fluid slot present in space s at elevation e, or −1 for gas. */
+export function spaceFluidAt(m: FloodModel, st: SpaceStack, s: number, e: number): number {
+  const nF = m.fluids.length;
+  let bottom = m.spaces[s].table.bottom;
+  for (let f = 0; f < nF; f++) {
+    const top = st.tops[s * nF + f];
+    if (top > bottom && top > e) return f;
+    bottom = Math.max(bottom, top);
+  }
+  return -1;
+}
+
+function sidePressure(m: FloodModel, st: SpaceStack, side: number, e: number): number {
+  if (side >= 0) return spacePressure(m, st, side, e);
+  const fr = m.frame;
+  return fr.seaDensityKgM3 * fr.g * Math.max(0, fr.waterlineElevationM - e);
+}
+function sideFluid(m: FloodModel, st: SpaceStack, side: number, e: number): number {
+  if (side >= 0) return spaceFluidAt(m, st, side, e);
+  return e < m.frame.waterlineElevationM ? m.seaSlot : -1;
+}
+
+/** √(2|Δp|/ρ) with the sign of Δp, linear below the head HEAD_LINEAR_BELOW_M. */
+function velocity(dp: number, rho: number, g: number): number {
+  const pLin = rho * g * HEAD_LINEAR_BELOW_M;
+  const a = Math.abs(dp);
+  if (a >= pLin) return Math.sign(dp) * Math.sqrt((2 * a) / rho);
+  return (dp / pLin) * Math.sqrt((2 * pLin) / rho);
+}
+
+// 8-point Gauss–Legendre on [−1, 1] (Abramowitz & Stegun, Table 25.4)
+const GL_X = [-0.9602898564975363, -0.7966664774136267, -0.525532409916329, -0.1834346424956498, 0.1834346424956498, 0.525532409916329, 0.7966664774136267, 0.9602898564975363];
+const GL_W = [0.1012285362903763, 0.2223810344533745, 0.3137066458778873, 0.362683783378362, 0.362683783378362, 0.3137066458778873, 0.2223810344533745, 0.1012285362903763];
+
+const pieceBreaks: number[] = new Array<number>(16).fill(0);
+
+/**
+ * Flow through one opening, split by fluid: calls `take(slot, q)` with q m³/s (positive from
+ * outside into inside) for each part with liquid upstream.
+ */
+export function openingFlow(m: FloodModel, st: SpaceStack, op: FloodOpening, take: (slot: number, q: number) => void): void {
+  const g = m.frame.g;
+  if (op.shape === 'point' || op.halfHeightM <= 0) {
+    const e = op.elevationM;
+    const dp = sidePressure(m, st, op.outside, e) - sidePressure(m, st, op.inside, e);
+    if (dp === 0) return;
+    const slot = dp > 0 ? sideFluid(m, st, op.outside, e) : sideFluid(m, st, op.inside, e);
+    if (slot < 0) return;
+    take(slot, op.cd * op.areaM2 * velocity(dp, m.fluids[slot].densityKgM3, g));
+    return;
+  }
+  const lo = op.elevationM - op.halfHeightM, hi = op.elevationM + op.halfHeightM;
+  // where either side's pressure changes slope, inside the opening (insertion-sorted, no allocation)
+  const cuts = pieceBreaks;
+  let n = 0;
+  const addCut = (e: number) => {
+    if (!(e > lo && e < hi)) return;
+    let i = n++;
+    while (i > 0 && cuts[i - 1] > e) {
+      cuts[i] = cuts[i - 1];
+      i--;
+    }
+    cuts[i] = e;
+  };
+  const nF = m.fluids.length;
+  if (op.inside >= 0) for (let f = 0; f < nF; f++) addCut(st.tops[op.inside * nF + f]);
+  if (op.outside < 0) addCut(m.frame.waterlineElevationM);
+  else for (let f = 0; f < nF; f++) addCut(st.tops[op.outside * nF + f]);
+  let a = lo;
+  let da = sidePressure(m, st, op.outside, a) - sidePressure(m, st, op.inside, a);
+  for (let k = 0; k <= n; k++) {
+    const b = k < n ? cuts[k] : hi;
+    if (b - a <= 1e-12) continue;
+    const db = sidePressure(m, st, op.outside, b) - sidePressure(m, st, op.inside, b);
+    if ((da > 0 && db < 0) || (da < 0 && db > 0)) {
+      const z = a + ((b - a) * da) / (da - db);
+      piece(m, st, op, a, z, da, 0, take);
+      piece(m, st, op, z, b, 0, db, take);
+    } else piece(m, st, op, a, b, da, db, take);
+    a = b;
+    da = db;
+  }
+}
+
+/** One piece of an opening, [a, b], over which Δp runs linearly from da to db without changing sign. */
+function piece(m: FloodModel, st: SpaceStack, op: FloodOpening, a: number, b: number, da: number, db: number, take: (slot: number, q: number) => void): void {
+  const mid = 0.5 * (a + b);
+  const dm = 0.5 * (da + db);
+  if (dm === 0) return;
+  const slot = dm > 0 ? sideFluid(m, st, op.outside, mid) : sideFluid(m, st, op.inside, mid);
+  if (slot < 0) return;
+  const rho = m.fluids[slot].densityKgM3;
+  const g = m.frame.g;
+  const pLin = rho * g * HEAD_LINEAR_BELOW_M;
+  const h = op.halfHeightM;
+  const ec = op.elevationM;
+  let integral: number; // ∫ w(e) v(e) de
+  if (b - a >= 2 * h * (1 - 1e-12) && Math.abs(db - da) <= 1e-9 * Math.abs(dm)) {
+    // the whole opening under one head (both sides the same liquid over it): the plain orifice law
+    take(slot, op.cd * op.areaM2 * velocity(dm, rho, g));
+    return;
+  }
+  if (op.shape === 'rectangular' && Math.min(Math.abs(da), Math.abs(db)) >= pLin) {
+    const w = op.areaM2 / (2 * h);
+    const pa = Math.abs(da), pb = Math.abs(db);
+    const meanRoot = Math.abs(pb - pa) < 1e-12 * Math.max(pa, pb) ? Math.sqrt(pa) : ((2 / 3) * (pb ** 1.5 - pa ** 1.5)) / (pb - pa);
+    integral = Math.sign(dm) * w * (b - a) * meanRoot * Math.sqrt(2 / rho);
+  } else {
+    // e = mid − (b − a)/2 cos θ, θ ∈ [0, π]: de = (b − a)/2 sin θ dθ
+    integral = 0;
+    const half = 0.5 * (b - a);
+    for (let i = 0; i < 8; i++) {
+      const th = 0.5 * Math.PI * (GL_X[i] + 1);
+      const e = mid - half * Math.cos(th);
+      const dp = da + ((db - da) * (e - a)) / (b - a);
+      const s = e - ec;
+      const w = op.shape === 'round' ? (op.areaM2 * 2 * Math.sqrt(Math.max(0, h * h - s * s))) / (Math.PI * h * h) : op.areaM2 / (2 * h);
+      integral += GL_W[i] * w * velocity(dp, rho, g) * half * Math.sin(th);
+    }
+    integral *= 0.5 * Math.PI;
+  }
+  take(slot, op.cd * integral);
+}
+
+/** What a derivative evaluation adds up, besides dy: per-opening and per-pump flows. */
+export interface FlowBreakdown {
+  /** Net flow through each opening, outside → inside positive, m³/s. */
+  opening: Float64Array;
+  /** Each pump's actual rate, m³/s. */
+  pump: Float64Array;
+}
+
+/**
+ * dy/dt for the state: `pumpRate[i]` is pump i's capacity while it runs (0 when stopped).
+ * `breakdown`, if given, receives the flows.
+ */
+export function floodDerivative(m: FloodModel, pumpRate: Float64Array, st: SpaceStack = newStack(m)) {
+  const nF = m.fluids.length;
+  const nV = m.spaces.length * nF;
+  // only spaces with an opening or a pump ever change: the others' surfaces are worked out once
+  const touched = new Set<number>();
+  for (const op of m.openings) {
+    touched.add(op.inside);
+    if (op.outside >= 0) touched.add(op.outside);
+  }
+  for (const p of m.pumps) touched.add(p.space);
+  const moving = Int32Array.from([...touched].sort((a, b) => a - b));
+  let primed = false;
+  let target: Float64Array = new Float64Array(0);
+  let current: FloodOpening = m.openings[0];
+  let net = 0;
+  const take = (slot: number, q: number) => {
+    net += q;
+    move(m, target, current.outside, current.inside, slot, q, nF, nV);
+  };
+  return (_t: number, y: Float64Array, dy: Float64Array, breakdown?: FlowBreakdown): void => {
+    stackOf(m, y, st, primed ? moving : undefined);
+    primed = true;
+    dy.fill(0);
+    target = dy;
+    for (let k = 0; k < m.openings.length; k++) {
+      current = m.openings[k];
+      net = 0;
+      openingFlow(m, st, current, take);
+      if (breakdown) breakdown.opening[k] = net;
+    }
+    for (let k = 0; k < m.pumps.length; k++) {
+      const p = m.pumps[k];
+      let left = pumpRate[k];
+      let drawn = 0;
+      if (left > 0) {
+        const s = p.space;
+        const sp = m.spaces[s];
+        const tail = pumpRate[k] * PUMP_TAIL_S;
+        let bottom = sp.table.bottom;
+        for (let f = 0; f < nF && left > 0; f++) {
+          const top = st.tops[s * nF + f];
+          if (top > bottom && top > p.suctionElevationM) {
+            // this layer's liquid above the suction
+            const above = sp.permeability * (volumeAt(sp.table, top) - volumeAt(sp.table, Math.max(p.suctionElevationM, bottom)));
+            const q = left * Math.min(1, above / tail);
+            left -= q;
+            drawn += q;
+            if (m.spaces[s].held) dy[nV + SEA_IN] += q;
+            else dy[s * nF + f] -= q;
+          }
+          bottom = Math.max(bottom, top);
+        }
+        dy[nV + PUMPED] += drawn;
+      }
+      if (breakdown) breakdown.pump[k] = drawn;
+    }
+  };
+}
+
+/** Moves q m³/s of fluid `slot` from side `from` to side `to` (−1: the sea); a held space trades with the sea. */
+function move(m: FloodModel, dy: Float64Array, from: number, to: number, slot: number, q: number, nF: number, nV: number): void {
+  const fromSea = from < 0 || m.spaces[from].held;
+  const toSea = to < 0 || m.spaces[to].held;
+  if (fromSea && toSea) return;
+  if (fromSea) {
+    if (q >= 0) dy[nV + SEA_IN] += q;
+    else dy[nV + SEA_OUT] -= q;
+  } else dy[from * nF + slot] -= q;
+  if (toSea) {
+    if (q >= 0) dy[nV + SEA_OUT] += q;
+    else dy[nV + SEA_IN] -= q;
+  } else dy[to * nF + slot] += q;
+}
+
+/** in − out − stored between two states, m³, and the scale to judge it by. */
+export function volumeBalance(m: FloodModel, y0: Float64Array, y: Float64Array): { inM3: number; outM3: number; storedM3: number; balanceM3: number; relative: number } {
+  const nV = m.spaces.length * m.fluids.length;
+  let stored = 0, total = 0;
+  for (let i = 0; i < nV; i++) {
+    stored += y[i] - y0[i];
+    total += Math.abs(y[i]);
+  }
+  const inM3 = y[nV + SEA_IN] - y0[nV + SEA_IN];
+  const outM3 = y[nV + SEA_OUT] - y0[nV + SEA_OUT] + y[nV + PUMPED] - y0[nV + PUMPED];
+  const balance = inM3 - outM3 - stored;
+  const scale = Math.max(Math.abs(inM3), Math.abs(outM3), Math.abs(stored), total, 1e-12);
+  return { inM3, outM3, storedM3: stored, balanceM3: balance, relative: Math.abs(balance) / scale };
+}
+
+/** Rate of rise of the liquid surface of space s, m/s, from the volume rates. */
+export function levelRate(m: FloodModel, st: SpaceStack, s: number, dy: Float64Array): number {
+  const nF = m.fluids.length;
+  let dv = 0;
+  for (let f = 0; f < nF; f++) dv += dy[s * nF + f];
+  const area = surfaceAreaAt(m.spaces[s].table, st.liquidTop[s]) * m.spaces[s].permeability;
+  return area > 0 ? dv / area : 0;
+}

@@ -1,0 +1,616 @@
+/**
+ * The flooding forecast: from a condition's readings, runs the flooding model forward in time
+ * under the present openings and pumps and the condition's pumping plan, and reports every space's
+ * level, volume and flow over time, its time to equalise, whether its pumps gain on it and when it
+ * is pumped dry; and every boundary's utilisation over time (computed by computeSurvey at the
+ * output times only, never at the integrator's inner stages) and the time it first reaches 100 %,
+ * with what governs. Every run reports its volume balance (in − out − stored).
+ *
+ * Plan semantics: a pump named by any plan step runs only during its steps, on the step's space;
+ * every other pump runs as it is now (running unless marked stopped). A step stops at its stop
+ * time, or when the level in its space falls to its "until" level, whichever comes first.
+ *
+ * Attitude: the ship's present attitude (drafts and heel as read) holds throughout the forecast.
+ */
+import type { Condition, Contents, Survey } from '../schemas/survey';
+import type { PlanStep } from '../schemas/flooding';
+import { computeSurvey } from './compute-survey';
+import { earthFrame } from './frame';
+import { buildFloodModel } from './flooding-build';
+import { levelOfVolume, volumeAt } from './flooding-levels';
+import {
+  PUMP_TAIL_S,
+  floodDerivative,
+  levelRate,
+  newStack,
+  stackOf,
+  volumeBalance,
+  type FloodModel,
+  type FloodPump,
+  type FlowBreakdown,
+} from './flooding-model';
+import { dormandPrince } from './flooding-ode';
+import { soundingEvidence, type SoundingEvidence } from './flooding-soundings';
+import type { BoundaryResult, EngineWarning, SurveyResults } from './results';
+import { ENGINE_VERSION } from './version';
+
+export const DEFAULT_HORIZON_H = 24;
+/** Output times per forecast (every 30 min over 24 h). */
+export const DEFAULT_OUTPUT_STEPS = 48;
+/** Loads are worked out again for a space's boundaries once its surfaces have moved this far, m (a sounding tape's resolution). */
+export const LOAD_LEVEL_STEP_M = 0.001;
+/** A level moving slower than this is steady: 1 mm per hour, in m/s (common practice, no source). */
+export const STEADY_LEVEL_RATE_M_S = 0.001 / 3600;
+
+export type Governs = 'rating' | 'stiffeners' | 'shores';
+
+/** A "what if" change to the survey before the forecast runs. */
+export type FloodVariant =
+  | { kind: 'pump-added'; compartmentId: string; capacityM3S: number; suctionHeightM?: number }
+  | { kind: 'pump-stopped'; pumpId: string }
+  | { kind: 'breach-reduced'; breachId: string; /** 0: plugged */ remainingFraction: number }
+  | { kind: 'space-vented'; compartmentId: string };
+
+export interface ForecastOptions {
+  conditionId?: string;
+  /** Hours ahead (default: the condition's setting, else 24). */
+  horizonH?: number;
+  outputSteps?: number;
+  variant?: FloodVariant;
+  /** Run the condition's pumping plan (default true). */
+  withPlan?: boolean;
+  /** Integrator tolerances (default rtol 1e-7, atol 1e-6 m³). */
+  rtol?: number;
+  atol?: number;
+}
+
+export interface SpaceForecast {
+  id: string;
+  name: string;
+  /** Height of the liquid surface above the space's lowest point at each output time, m. */
+  levelM: number[];
+  volumeM3: number[];
+  /** Net flow into the space (openings and pumps) at each output time, m³/s. */
+  netFlowM3S: number[];
+  gasGaugePa: number[];
+  /** First output time from which the level stays steady to the end, s; null if it never settles. */
+  equalisedAtS: number | null;
+  /** Whether the space exchanges anything (openings or pumps). */
+  active: boolean;
+  pumps: {
+    capacityM3S: number;
+    verdict: 'dry' | 'gaining' | 'holding' | 'losing';
+    /** When the suction uncovers, s (null: not within the forecast). */
+    dryAtS: number | null;
+  } | null;
+  soundings: SoundingEvidence | null;
+}
+
+export interface BoundaryForecast {
+  id: string;
+  name: string;
+  /** Utilisation at each output time (null: nothing rated). */
+  utilisation: (number | null)[];
+  governs: (Governs | null)[];
+  /** First time at or above 100 %, s (0: already there), and what governs then. */
+  limitAtS: number | null;
+  limitGoverns: Governs | null;
+}
+
+export interface PlanStepForecast {
+  stepId: string;
+  pumpId: string;
+  compartmentId: string;
+  /** Problems that kept the step out of the run (empty when it ran). */
+  problems: string[];
+  startS: number;
+  stopS: number;
+  stoppedBy: 'time' | 'level' | 'end' | null;
+  /** At the step's start and stop: the level in its space, m above its lowest point; the worst boundary. */
+  atStart: { levelM: number; worstUtilisation: number | null; worstBoundaryId: string | null } | null;
+  atStop: { levelM: number; worstUtilisation: number | null; worstBoundaryId: string | null } | null;
+}
+
+export interface FloodForecast {
+  engineVersion: string;
+  conditionId: string;
+  /** When the readings were taken (the condition's time); times below are seconds after it. */
+  readingsTime: string;
+  /** The latest sounding-log reading, if any is later than the condition. */
+  latestReadingTime: string;
+  horizonS: number;
+  attitude: { mode: 'present'; note: string };
+  times: number[];
+  spaces: SpaceForecast[];
+  boundaries: BoundaryForecast[];
+  worst: { utilisation: number | null; boundaryId: string | null }[];
+  /** Boundaries reaching 100 %, earliest first. */
+  limits: { boundaryId: string; name: string; atS: number; governs: Governs | null }[];
+  worstMoment: { atS: number; utilisation: number; boundaryId: string } | null;
+  plan: PlanStepForecast[];
+  balance: { inM3: number; outM3: number; storedM3: number; balanceM3: number; relative: number };
+  warnings: EngineWarning[];
+  stats: { steps: number; evaluations: number; loadRuns: number };
+}
+
+/** Applies a "what if" to a copy of the survey (the original is not touched). */
+export function applyFloodVariant(survey: Survey, conditionId: string, v: FloodVariant): Survey {
+  switch (v.kind) {
+    case 'pump-added':
+      return {
+        ...survey,
+        compartments: survey.compartments.map((c) =>
+          c.id === v.compartmentId
+            ? { ...c, pumps: [...(c.pumps ?? []), { id: `what-if-pump-${c.id}`, name: 'Added pump (what if)', capacityM3S: v.capacityM3S, suctionHeightM: v.suctionHeightM }] }
+            : c,
+        ),
+      };
+    case 'pump-stopped':
+      return {
+        ...survey,
+        compartments: survey.compartments.map((c) => (c.pumps?.some((p) => p.id === v.pumpId) ? { ...c, pumps: c.pumps.map((p) => (p.id === v.pumpId ? { ...p, running: false } : p)) } : c)),
+        conditions: survey.conditions.map((c) =>
+          c.id === conditionId && c.flooding?.plan ? { ...c, flooding: { ...c.flooding, plan: c.flooding.plan.filter((s) => s.pumpId !== v.pumpId) } } : c,
+        ),
+      };
+    case 'breach-reduced':
+      return {
+        ...survey,
+        compartments: survey.compartments.map((c) =>
+          c.breaches?.some((b) => b.id === v.breachId)
+            ? { ...c, breaches: c.breaches.flatMap((b) => (b.id !== v.breachId ? [b] : v.remainingFraction > 0 ? [{ ...b, areaM2: b.areaM2 * v.remainingFraction, size: undefined }] : [])) }
+            : c,
+        ),
+      };
+    case 'space-vented':
+      return {
+        ...survey,
+        compartments: survey.compartments.map((c) => (c.id === v.compartmentId ? { ...c, airTight: false } : c)),
+        conditions: survey.conditions.map((c) =>
+          c.id === conditionId ? { ...c, contents: c.contents.map((k) => (k.compartmentId === v.compartmentId ? { ...k, gas: { kind: 'vented' as const } } : k)) } : c,
+        ),
+      };
+  }
+}
+
+interface PumpRun {
+  pump: number;
+  startS: number;
+  stopS: number;
+  /** Elevation at which the run stops (−∞: none). */
+  untilElevationM: number;
+  step: PlanStepForecast | null;
+  stoppedAtS: number | null;
+}
+
+/** The pumps of the run: the plan's steps, and every pump the plan does not name running as it is now. */
+function pumpRuns(survey: Survey, plan: readonly PlanStep[], model: FloodModel, index: Map<string, number>, horizonS: number): { runs: PumpRun[]; steps: PlanStepForecast[] } {
+  const pumps = new Map<string, { p: NonNullable<Survey['compartments'][number]['pumps']>[number]; comp: string }>();
+  for (const c of survey.compartments) for (const p of c.pumps ?? []) pumps.set(p.id, { p, comp: c.id });
+  const named = new Set(plan.map((s) => s.pumpId));
+  const runs: PumpRun[] = [];
+  const addPump = (spaceIdx: number, id: string, name: string, cap: number, suctionHeightM: number): number => {
+    const sp = model.spaces[spaceIdx];
+    const pump: FloodPump = { id, name, space: spaceIdx, capacityM3S: cap, suctionElevationM: sp.table.bottom + suctionHeightM };
+    model.pumps.push(pump);
+    return model.pumps.length - 1;
+  };
+  for (const [id, { p, comp }] of pumps) {
+    if (named.has(id) || p.running === false || p.capacityM3S <= 0) continue;
+    const s = index.get(comp)!;
+    runs.push({ pump: addPump(s, id, p.name, p.capacityM3S, p.suctionHeightM ?? 0), startS: 0, stopS: horizonS, untilElevationM: -Infinity, step: null, stoppedAtS: null });
+  }
+  const steps: PlanStepForecast[] = [];
+  for (const st of plan) {
+    const problems: string[] = [];
+    const found = pumps.get(st.pumpId);
+    const s = index.get(st.compartmentId);
+    if (!found) problems.push('no pump of the survey has this id');
+    if (s === undefined) problems.push('no compartment of the survey has this id');
+    if (st.stopH !== undefined && st.stopH <= st.startH) problems.push('stops before it starts');
+    const f: PlanStepForecast = {
+      stepId: st.id,
+      pumpId: st.pumpId,
+      compartmentId: st.compartmentId,
+      problems,
+      startS: st.startH * 3600,
+      stopS: Math.min(horizonS, (st.stopH ?? Infinity) * 3600),
+      stoppedBy: null,
+      atStart: null,
+      atStop: null,
+    };
+    steps.push(f);
+    if (problems.length > 0 || !found || s === undefined || f.startS >= horizonS) continue;
+    const bottom = model.spaces[s].table.bottom;
+    runs.push({
+      pump: addPump(s, `${st.id}`, found.p.name, found.p.capacityM3S, found.p.suctionHeightM ?? 0),
+      startS: f.startS,
+      stopS: f.stopS,
+      untilElevationM: st.untilLevelM !== undefined ? bottom + st.untilLevelM : -Infinity,
+      step: f,
+      stoppedAtS: null,
+    });
+  }
+  return { runs, steps };
+}
+
+/** Liquid surface elevation of space s in state y. */
+function liquidTopOf(m: FloodModel, y: Float64Array, s: number): number {
+  const nF = m.fluids.length;
+  let v = 0;
+  for (let f = 0; f < nF; f++) if (y[s * nF + f] > 0) v += y[s * nF + f];
+  const sp = m.spaces[s];
+  return v > 0 ? levelOfVolume(sp.table, v / sp.permeability) : sp.table.bottom;
+}
+
+/** Runs the forecast. Pure: the survey is not modified. */
+export function forecastFlooding(surveyIn: Survey, options: ForecastOptions = {}): FloodForecast {
+  const conditionId = options.conditionId ?? surveyIn.activeConditionId;
+  const survey = options.variant ? applyFloodVariant(surveyIn, conditionId, options.variant) : surveyIn;
+  const condition = survey.conditions.find((c) => c.id === conditionId);
+  if (!condition) throw new Error(`forecastFlooding: no condition with id ${conditionId}`);
+  const settings = condition.flooding ?? {};
+  const horizonS = (options.horizonH ?? settings.horizonH ?? 24) * 3600;
+  const outputSteps = Math.max(1, Math.round(options.outputSteps ?? DEFAULT_OUTPUT_STEPS));
+  const warnings: EngineWarning[] = [];
+
+  const results0 = computeSurvey(survey, { conditionId, includeLoadDiagrams: false, includeInflow: false });
+  const ef = earthFrame(survey.vessel, condition);
+  const frame = { up: ef.up, waterlineElevationM: ef.waterlineElevation, seaDensityKgM3: ef.seaDensityKgM3, g: ef.g };
+  const built = buildFloodModel(survey, results0, frame);
+  const { model, y0, index } = built;
+  for (const w of built.warnings) warnings.push({ ...w, severity: 'info' });
+  const { runs, steps } = pumpRuns(survey, options.withPlan === false ? [] : (settings.plan ?? []), model, index, horizonS);
+  for (const st of steps) for (const p of st.problems) warnings.push({ code: 'plan-step', severity: 'warning', entityId: st.stepId, message: `Pumping plan: a step ${p}; left out` });
+
+  // the times at which the state is reported: regular outputs, plan starts and stops
+  const grid = new Set<number>();
+  for (let k = 0; k <= outputSteps; k++) grid.add((horizonS * k) / outputSteps);
+  for (const r of runs) {
+    if (r.startS > 0 && r.startS < horizonS) grid.add(r.startS);
+    if (r.stopS > 0 && r.stopS < horizonS) grid.add(r.stopS);
+  }
+  const segmentEnds = [...grid].sort((a, b) => a - b);
+
+  const rate = new Float64Array(model.pumps.length);
+  const setRates = (t: number) => {
+    rate.fill(0);
+    for (const r of runs) if (t >= r.startS && t < r.stopS && r.stoppedAtS === null) rate[r.pump] = model.pumps[r.pump].capacityM3S;
+  };
+  const stack = newStack(model);
+  const f = floodDerivative(model, rate, stack);
+
+  // spaces whose pumps we watch for the moment their suction uncovers
+  const pumped = new Set(runs.map((r) => model.pumps[r.pump].space));
+  const dryAt = new Map<number, number>();
+  // pumped dry: no more liquid above the highest suction than the pumps' tail (they are losing suction)
+  const dryLimit = (s: number): number => {
+    const own = runs.filter((r) => model.pumps[r.pump].space === s);
+    const suction = Math.max(...own.map((r) => model.pumps[r.pump].suctionElevationM));
+    const tail = PUMP_TAIL_S * Math.max(...own.map((r) => model.pumps[r.pump].capacityM3S));
+    const sp = model.spaces[s];
+    return levelOfVolume(sp.table, volumeAt(sp.table, suction) + tail / sp.permeability);
+  };
+  const dryLimits = new Map([...pumped].map((s) => [s, dryLimit(s)]));
+
+  const snapshots: { t: number; y: Float64Array }[] = [{ t: 0, y: Float64Array.from(y0) }];
+  let y = Float64Array.from(y0);
+  let t = 0;
+  let stepsTaken = 0, evaluations = 0;
+  let h: number | undefined;
+  const scale = Math.max(1, ...model.spaces.map((s) => s.table.total * s.permeability));
+  const rtol = options.rtol ?? 1e-7, atol = options.atol ?? 1e-6 * Math.min(1, scale);
+  const tmp = new Float64Array(y.length);
+  for (const tEnd of segmentEnds) {
+    if (tEnd <= t) continue;
+    while (t < tEnd) {
+      setRates(t);
+      const active = runs.filter((r) => rate[r.pump] > 0 && r.untilElevationM > -Infinity);
+      const run = dormandPrince(f, t, y, tEnd, { rtol, atol, h0: h, hMax: horizonS / 8 }, (tOld, tNew, yNew, dense) => {
+        // a space pumped dry: note the time, carry on
+        for (const s of pumped) {
+          if (dryAt.has(s)) continue;
+          const limit = dryLimits.get(s)!;
+          if (liquidTopOf(model, yNew, s) <= limit) dryAt.set(s, bisect(tOld, tNew, (tt) => (dense(tt, tmp), liquidTopOf(model, tmp, s) <= limit)));
+        }
+        // a plan step reaching its level stops the run there
+        let first: number | null = null;
+        for (const r of active) {
+          if (liquidTopOf(model, yNew, model.pumps[r.pump].space) > r.untilElevationM) continue;
+          const te = bisect(tOld, tNew, (tt) => (dense(tt, tmp), liquidTopOf(model, tmp, model.pumps[r.pump].space) <= r.untilElevationM));
+          if (first === null || te < first) first = te;
+        }
+        return first;
+      });
+      stepsTaken += run.steps;
+      evaluations += run.evaluations;
+      h = run.hNext;
+      y = run.y;
+      t = run.t;
+      if (run.stoppedByEvent) {
+        for (const r of active) {
+          if (r.stoppedAtS === null && liquidTopOf(model, y, model.pumps[r.pump].space) <= r.untilElevationM + 1e-9) {
+            r.stoppedAtS = t;
+            if (r.step) {
+              r.step.stopS = t;
+              r.step.stoppedBy = 'level';
+            }
+          }
+        }
+        snapshots.push({ t, y: Float64Array.from(y) });
+      }
+    }
+    snapshots.push({ t, y: Float64Array.from(y) });
+  }
+  for (const r of runs) if (r.step && r.step.stoppedBy === null) r.step.stoppedBy = r.stopS < horizonS ? 'time' : 'end';
+
+  // ---- what each snapshot shows: levels and flows, then loads
+  const times = snapshots.map((s) => s.t);
+  const nS = model.spaces.length;
+  const breakdown: FlowBreakdown = { opening: new Float64Array(model.openings.length), pump: new Float64Array(model.pumps.length) };
+  const dy = new Float64Array(y.length);
+  const spaceSeries = model.spaces.map(() => ({ level: [] as number[], volume: [] as number[], flow: [] as number[], gas: [] as number[], rate: [] as number[] }));
+  for (const snap of snapshots) {
+    setRates(snap.t);
+    f(snap.t, snap.y, dy, breakdown);
+    for (let s = 0; s < nS; s++) {
+      const sp = model.spaces[s];
+      const ser = spaceSeries[s];
+      let dv = 0;
+      for (let k = 0; k < model.fluids.length; k++) dv += dy[s * model.fluids.length + k];
+      ser.level.push(stack.liquidTop[s] - sp.table.bottom);
+      ser.volume.push(stack.liquidVolume[s]);
+      ser.flow.push(dv);
+      ser.gas.push(stack.gasPa[s]);
+      ser.rate.push(levelRate(model, stack, s, dy));
+    }
+  }
+
+  const loads = boundaryLoads(survey, condition, model, snapshots);
+  const spaceActive = new Set<number>();
+  for (const op of model.openings) {
+    spaceActive.add(op.inside);
+    if (op.outside >= 0) spaceActive.add(op.outside);
+  }
+  for (const p of model.pumps) spaceActive.add(p.space);
+
+  const spaces: SpaceForecast[] = model.spaces.map((sp, s) => {
+    const ser = spaceSeries[s];
+    let equalisedAtS: number | null = null;
+    for (let k = times.length - 1; k >= 0; k--) {
+      if (Math.abs(ser.rate[k]) >= STEADY_LEVEL_RATE_M_S) break;
+      equalisedAtS = times[k];
+    }
+    const comp = survey.compartments[s];
+    const capacity = runs.filter((r) => model.pumps[r.pump].space === s && r.startS === 0).reduce((a, r) => a + model.pumps[r.pump].capacityM3S, 0);
+    let pumps: SpaceForecast['pumps'] = null;
+    if (pumped.has(s)) {
+      const dry = dryAt.get(s) ?? null;
+      const last = ser.volume[ser.volume.length - 1], first = ser.volume[0];
+      const verdict = dry !== null ? 'dry' : Math.abs(ser.rate[ser.rate.length - 1]) < STEADY_LEVEL_RATE_M_S ? 'holding' : last < first ? 'gaining' : 'losing';
+      pumps = { capacityM3S: capacity, verdict, dryAtS: dry };
+    }
+    const orificeNow = model.openings.reduce((a, op, k) => a + (op.inside === s && op.outside < 0 ? loads.openingAt0[k] : 0), 0);
+    const soundings = soundingEvidence(
+      comp,
+      (soundingM) => {
+        const log = comp.soundingLog!;
+        const eta = frame.up[0] * log.pipe.x + frame.up[1] * log.pipe.y + frame.up[2] * (log.pipe.bottomZM + soundingM);
+        const v = volumeAt(sp.table, eta);
+        return v * sp.permeability;
+      },
+      orificeNow,
+      settings.disagreementFactor ?? 2,
+    );
+    if (soundings?.disagree) {
+      warnings.push({
+        code: 'inflow-disagrees',
+        severity: 'warning',
+        entityId: comp.id,
+        message: `${comp.name}: the soundings show ${(soundings.grossInflowM3S * 3600).toFixed(0)} m³/h coming in, the openings entered explain ${(orificeNow * 3600).toFixed(0)} m³/h (more than ${soundings.factor}× apart): an unknown breach, or a wrong area`,
+      });
+    }
+    return {
+      id: sp.id,
+      name: sp.name,
+      levelM: ser.level,
+      volumeM3: ser.volume,
+      netFlowM3S: ser.flow,
+      gasGaugePa: ser.gas,
+      equalisedAtS: spaceActive.has(s) ? equalisedAtS : null,
+      active: spaceActive.has(s),
+      pumps,
+      soundings,
+    };
+  });
+
+
+  // plan steps: level and worst load at their start and stop
+  const at = (ts: number, s: number) => {
+    let k = times.findIndex((x) => x >= ts - 1e-6);
+    if (k < 0) k = times.length - 1;
+    return { levelM: spaceSeries[s].level[k], worstUtilisation: loads.worst[k].utilisation, worstBoundaryId: loads.worst[k].boundaryId };
+  };
+  for (const st of steps) {
+    const s = index.get(st.compartmentId);
+    if (st.problems.length > 0 || s === undefined || st.startS >= horizonS) continue;
+    st.atStart = at(st.startS, s);
+    st.atStop = at(st.stopS, s);
+  }
+
+  let worstMoment: FloodForecast['worstMoment'] = null;
+  loads.worst.forEach((w, k) => {
+    if (w.utilisation !== null && w.boundaryId !== null && (worstMoment === null || w.utilisation > worstMoment.utilisation)) worstMoment = { atS: times[k], utilisation: w.utilisation, boundaryId: w.boundaryId };
+  });
+
+  const balance = volumeBalance(model, y0, y);
+  const latest = survey.compartments.flatMap((c) => c.soundingLog?.readings.map((r) => r.time) ?? []).reduce((a, b) => (Date.parse(b) > Date.parse(a) ? b : a), condition.time);
+  return {
+    engineVersion: ENGINE_VERSION,
+    conditionId,
+    readingsTime: condition.time,
+    latestReadingTime: latest,
+    horizonS,
+    attitude: { mode: 'present', note: "The ship's present attitude (drafts and heel as read) is held throughout the forecast." },
+    times,
+    spaces,
+    boundaries: loads.boundaries,
+    worst: loads.worst,
+    limits: loads.boundaries
+      .filter((b) => b.limitAtS !== null)
+      .map((b) => ({ boundaryId: b.id, name: b.name, atS: b.limitAtS!, governs: b.limitGoverns }))
+      .sort((a, b) => a.atS - b.atS),
+    worstMoment,
+    plan: steps,
+    balance,
+    warnings,
+    stats: { steps: stepsTaken, evaluations, loadRuns: loads.runs },
+  };
+}
+
+/** The earliest time in (a, b] at which `past(t)` holds, by bisection to 1e-6 s (past(b) holds). */
+function bisect(a: number, b: number, past: (t: number) => boolean): number {
+  let lo = a, hi = b;
+  for (let k = 0; k < 60 && hi - lo > 1e-6; k++) {
+    const mid = 0.5 * (lo + hi);
+    if (past(mid)) hi = mid;
+    else lo = mid;
+  }
+  return hi;
+}
+
+function governsOf(b: BoundaryResult): Governs | null {
+  if (b.maxUtilisation === null) return null;
+  const shoreMax = b.shores.reduce((m, s) => Math.max(m, s.utilisation), -Infinity);
+  if (b.capacity && b.capacity.utilisation === b.maxUtilisation) return 'rating';
+  if (b.stiffeners && b.stiffeners.maxUtilisation === b.maxUtilisation) return 'stiffeners';
+  if (shoreMax === b.maxUtilisation) return 'shores';
+  return 'rating';
+}
+
+/** The condition with each space's liquids and gas as the state has them. */
+function conditionAt(condition: Condition, m: FloodModel, y: Float64Array): Condition {
+  const st = newStack(m);
+  stackOf(m, y, st);
+  const nF = m.fluids.length;
+  const up = m.frame.up;
+  const contents: Contents[] = m.spaces.map((sp, s) => {
+    const layers: Contents['layers'] = [];
+    for (let f = 0; f < nF; f++) {
+      if (!(y[s * nF + f] > 0)) continue;
+      const fl = m.fluids[f];
+      layers.push({ id: `${sp.id}:${f}`, fluidId: fl.fluidId, densityKgM3: fl.densityKgM3, level: { kind: 'point', point: { x: 0, y: 0, z: st.tops[s * nF + f] / up[2] } } });
+    }
+    const gp = st.gasPa[s];
+    return { compartmentId: sp.id, layers, gas: gp !== 0 ? { kind: 'pressurised', gaugePressurePa: gp } : { kind: 'vented' } };
+  });
+  return { ...condition, contents };
+}
+
+/**
+ * Boundary utilisations at every snapshot: the first from the whole survey, later ones only for the
+ * boundaries next to a space whose contents changed (with their parents and the openings set in them).
+ */
+function boundaryLoads(survey: Survey, condition: Condition, m: FloodModel, snapshots: { t: number; y: Float64Array }[]) {
+  const nF = m.fluids.length;
+  const y0 = snapshots[0].y;
+  const st = newStack(m);
+  const lastStack = newStack(m);
+  stackOf(m, y0, lastStack);
+  const ids = survey.boundaries.map((b) => b.id);
+  const pos = new Map(ids.map((id, i) => [id, i]));
+  const u: (number | null)[][] = ids.map(() => []);
+  const gov: (Governs | null)[][] = ids.map(() => []);
+  const fill = (r: SurveyResults, k: number) => {
+    for (const b of r.boundaries) {
+      const i = pos.get(b.id);
+      if (i === undefined) continue;
+      u[i][k] = b.maxUtilisation;
+      gov[i][k] = governsOf(b);
+    }
+  };
+  let runs = 0;
+  // only a boundary with a rating, stiffeners or shores has a utilisation
+  const rated = survey.boundaries.filter((b) => b.ratedCapacity || b.stiffening || (b.shores && b.shores.length > 0));
+  const children = new Map<string, string[]>();
+  for (const b of survey.boundaries) if (b.parentBoundaryId) children.set(b.parentBoundaryId, [...(children.get(b.parentBoundaryId) ?? []), b.id]);
+  // a door's loads depend on its parent plate and a plate's on the openings cut from it: they go together
+  const withFamily = (b: Survey['boundaries'][number], keep: Set<string>) => {
+    keep.add(b.id);
+    if (b.parentBoundaryId) keep.add(b.parentBoundaryId);
+    for (const c of children.get(b.id) ?? []) keep.add(c);
+  };
+  snapshots.forEach((snap, k) => {
+    if (k === 0) {
+      // the snapshot at 0 is the condition as read, recomputed from the model's layers so every time is alike
+      const keep0 = new Set<string>();
+      for (const b of rated) withFamily(b, keep0);
+      const r0 = computeSurvey(
+        { ...survey, conditions: [conditionAt(condition, m, snap.y)], activeConditionId: condition.id, boundaries: survey.boundaries.filter((b) => keep0.has(b.id)) },
+        { includeLoadDiagrams: false, includeInflow: false },
+      );
+      runs++;
+      fill(r0, 0);
+      return;
+    }
+    // spaces whose surfaces moved by more than LOAD_LEVEL_STEP_M (or gas by 10 Pa) since their loads were last worked out
+    const changed = new Set<string>();
+    stackOf(m, snap.y, st);
+    m.spaces.forEach((sp, s) => {
+      let moved = Math.abs(st.gasPa[s] - lastStack.gasPa[s]) > 10;
+      for (let f = 0; f < nF && !moved; f++) moved = Math.abs(st.tops[s * nF + f] - lastStack.tops[s * nF + f]) > LOAD_LEVEL_STEP_M;
+      if (!moved) return;
+      changed.add(sp.id);
+      lastStack.gasPa[s] = st.gasPa[s];
+      for (let f = 0; f < nF; f++) lastStack.tops[s * nF + f] = st.tops[s * nF + f];
+    });
+    const keep = new Set<string>();
+    for (const b of rated) {
+      const touches = (sd: typeof b.sideA) => sd.kind === 'compartment' && changed.has(sd.compartmentId);
+      if (touches(b.sideA) || touches(b.sideB)) withFamily(b, keep);
+    }
+    for (let i = 0; i < ids.length; i++) {
+      if (keep.has(ids[i])) continue;
+      u[i][k] = u[i][k - 1];
+      gov[i][k] = gov[i][k - 1];
+    }
+    if (keep.size === 0) return;
+    const sub: Survey = {
+      ...survey,
+      conditions: [conditionAt(condition, m, snap.y)],
+      activeConditionId: condition.id,
+      boundaries: survey.boundaries.filter((b) => keep.has(b.id)),
+    };
+    fill(computeSurvey(sub, { includeLoadDiagrams: false, includeInflow: false }), k);
+    runs++;
+  });
+  const times = snapshots.map((s) => s.t);
+  const boundaries: BoundaryForecast[] = survey.boundaries.map((b, i) => {
+    let limitAtS: number | null = null, limitGoverns: Governs | null = null;
+    for (let k = 0; k < times.length; k++) {
+      const v = u[i][k];
+      if (v === null || v === undefined || v < 1) continue;
+      const prev = k > 0 ? u[i][k - 1] : null;
+      limitAtS = k === 0 || prev === null || prev === undefined ? times[k] : times[k - 1] + ((1 - prev) / (v - prev)) * (times[k] - times[k - 1]);
+      limitGoverns = gov[i][k];
+      break;
+    }
+    return { id: b.id, name: b.name, utilisation: u[i].map((x) => x ?? null), governs: gov[i].map((x) => x ?? null), limitAtS, limitGoverns };
+  });
+  const worst = times.map((_, k) => {
+    let best: number | null = null, id: string | null = null;
+    boundaries.forEach((b) => {
+      const v = b.utilisation[k];
+      if (v !== null && (best === null || v > best)) {
+        best = v;
+        id = b.id;
+      }
+    });
+    return { utilisation: best, boundaryId: id };
+  });
+  // orifice inflow now, per opening (for the soundings comparison)
+  const rate = new Float64Array(m.pumps.length);
+  const breakdown: FlowBreakdown = { opening: new Float64Array(m.openings.length), pump: new Float64Array(m.pumps.length) };
+  floodDerivative(m, rate, st)(0, y0, new Float64Array(y0.length), breakdown);
+  return { boundaries, worst, runs, openingAt0: breakdown.opening };
+}
