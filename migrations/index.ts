@@ -13,6 +13,7 @@ import * as resultsAsJson from './20261201000500_results_as_json';
 import * as lz4Toast from './20261202000600_lz4_toast';
 import * as docsAsJson from './20261202000700_docs_as_json';
 import * as refreshSuccessors from './20261202000800_refresh_successors';
+import * as rateLimits from './20261203001300_rate_limits';
 import * as surveyFormatV2 from './20261203001500_survey_format_v2';
 import * as commentResolution from './20261203001700_comment_resolution';
 
@@ -26,6 +27,7 @@ const migrations: Record<string, Knex.Migration> = {
   '20261202000600_lz4_toast': lz4Toast,
   '20261202000700_docs_as_json': docsAsJson,
   '20261202000800_refresh_successors': refreshSuccessors,
+  '20261203001300_rate_limits': rateLimits,
   '20261203001500_survey_format_v2': surveyFormatV2,
   '20261203001700_comment_resolution': commentResolution,
 };

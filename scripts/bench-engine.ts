@@ -12,7 +12,7 @@
 import { loadavg } from 'node:os';
 import { resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { computeBoundaryDetail, computeSurvey, computeSurveySummary, type SurveyResults } from '@shared/engine';
+import { computeBoundaryDetail, computeSurvey, computeSurveySummary, floodWeightsFromResults, responseFromWeights, type SurveyResults } from '@shared/engine';
 import { SURVEY_SCHEMA_VERSION, type Boundary, type Compartment, type Contents, type Survey } from '@shared/schemas/survey';
 import { pascalPressure } from '../tests/support/pascal';
 
@@ -282,6 +282,48 @@ export function main(opts: { timingOnly?: boolean } = {}): void {
     console.log(`No grid up to ${GRIDS[GRIDS.length - 1].n}×${GRIDS[GRIDS.length - 1].n} reached ${TARGET_REL_ERROR.toExponential(0)}; the ratio at equal accuracy exceeds the last one printed.`);
   }
   console.log(`Engine target < 10 ms median (Node's default heap): ${engineMs < 10 ? 'met' : 'not met'} on this run (wall clock, load average ${load1.toFixed(2)}).`);
+  benchShipResponse(survey, r);
+}
+
+/**
+ * The ship's response, which a forecast calls at every time step: the flood weights of all 400
+ * spaces from the results (a plane section per liquid surface) and responseFromWeights with them,
+ * all by added weight and again with ten spaces open to the sea (lost buoyancy, found by Newton's method).
+ */
+export function benchShipResponse(survey: Survey, r: SurveyResults): void {
+  const condition = {
+    ...survey.conditions[0],
+    stability: {
+      particulars: {
+        kind: 'booklet' as const,
+        displacementT: { value: 12000 },
+        meanDraftM: { value: 7.3 },
+        kgM: { value: 7 },
+        lcgM: { value: 78 },
+        tpcT: { value: 30 },
+        lcfM: { value: 76 },
+        mct1cmTM: { value: 180 },
+        kmM: { value: 9 },
+      },
+    },
+  };
+  const time = (fn: () => unknown, runs: number) => {
+    for (let i = 0; i < 5; i++) fn();
+    const t: number[] = [];
+    for (let i = 0; i < runs; i++) {
+      const t0 = performance.now();
+      fn();
+      t.push(performance.now() - t0);
+    }
+    return median(t);
+  };
+  const weights = floodWeightsFromResults(survey, r);
+  const open = weights.map((w, i) => (i % 40 === 0 ? { ...w, openToSea: true } : w));
+  const fw = time(() => floodWeightsFromResults(survey, r), 30);
+  const rw = time(() => responseFromWeights(survey, condition, weights), 200);
+  const ro = time(() => responseFromWeights(survey, condition, open), 200);
+  console.log('');
+  console.log(`Ship's response (${weights.length} spaces): flood weights from results ${fw.toFixed(2)} ms median; responseFromWeights ${rw.toFixed(3)} ms (added weight), ${ro.toFixed(3)} ms (10 spaces open to the sea).`);
 }
 
 if (process.argv[1] && resolve(process.argv[1]) === fileURLToPath(import.meta.url)) main({ timingOnly: process.argv.includes('--timing-only') });

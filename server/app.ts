@@ -6,14 +6,13 @@ import express, { Router } from 'express';
 import cookieParser from 'cookie-parser';
 import fs from 'node:fs';
 import path from 'node:path';
-import type { Config } from './config';
 import type { AppContext, AppDeps } from './context';
 import { defineRoutes, type RegisteredRoute, type RouteSpec } from './http/route';
 import { apiNotFound, errorHandler } from './middleware/errors';
 import { requestLogging } from './http/request-log';
 import { securityHeaders } from './http/security-headers';
 import { sameOrigin } from './http/same-origin';
-import { authRateLimits } from './http/rate-limit';
+import { createSignInGuard, resetRequestLimits } from './http/rate-limit';
 import { createMailer } from './mail/mailer';
 import { createS3PhotoStorage } from './storage/photo-store';
 import { createServices, type AppServices } from './services';
@@ -34,12 +33,13 @@ export interface BrinelineApp extends express.Express {
 }
 
 /** The API route groups, each a function of the services it uses. */
-function routeGroups(s: AppServices, config: Config): RouteSpec[][] {
+function routeGroups(s: AppServices, deps: AppContext): RouteSpec[][] {
+  const { config } = deps;
   const authEdge = {
     secure: config.publicUrl.startsWith('https:'),
     origin: sameOrigin(config),
-    signInLimits: authRateLimits(config, { onlyFailures: true }),
-    resetLimits: authRateLimits(config, { onlyFailures: false }),
+    signInGuard: createSignInGuard(deps.db, config),
+    resetLimits: resetRequestLimits(deps.db, config),
   };
   return [
     healthRoutes(s.health),
@@ -76,8 +76,14 @@ export function createApp(given: AppDeps): BrinelineApp {
 
   const verify = services.access;
   const api = Router();
+  // API answers are for one caller at one moment: no cache (a shared proxy, the browser's disk) may
+  // keep them. Routes that serve bytes meant to be cached (photos) set their own header.
+  api.use((_req, res, next) => {
+    res.setHeader('Cache-Control', 'no-store');
+    next();
+  });
   api.use(jsonBody({ limit: '5mb' }));
-  for (const group of routeGroups(services, deps.config)) defineRoutes(api, '/api', group, verify, app.locals.routes);
+  for (const group of routeGroups(services, deps)) defineRoutes(api, '/api', group, verify, app.locals.routes);
   api.use(apiNotFound);
   app.use('/api', api);
 

@@ -34,6 +34,8 @@ const ConfigSchema = z.object({
   /** The same requests allowed per IP address in one window, whatever the e-mail. */
   RATE_LIMIT_PER_IP: z.coerce.number().int().min(1).default(50),
   RATE_LIMIT_WINDOW_MINUTES: z.coerce.number().int().min(1).default(15),
+  /** Failed sign-ins to one account (from any address) before each further one doubles its wait. */
+  RATE_LIMIT_PER_ACCOUNT: z.coerce.number().int().min(1).default(5),
   /** How long a device stays signed in without use (each refresh starts the period again). */
   REFRESH_TTL_DAYS: z.coerce.number().int().min(1).max(365).default(30),
 });

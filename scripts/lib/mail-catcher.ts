@@ -17,6 +17,8 @@ export interface CaughtMail {
   subject: string;
   text: string;
   html: string;
+  /** The sending organisation, from Brineline's X-Brineline-Organisation header. */
+  organisationId?: string;
 }
 
 export interface MailCatcher {
@@ -24,6 +26,8 @@ export interface MailCatcher {
   dir: string;
   close: () => Promise<void>;
 }
+
+const headerText = (v: unknown): string | undefined => (typeof v === 'string' && v ? v : undefined);
 
 export async function startMailCatcher(opts: { port: number; dir: string }): Promise<MailCatcher> {
   fs.mkdirSync(opts.dir, { recursive: true });
@@ -42,6 +46,7 @@ export async function startMailCatcher(opts: { port: number; dir: string }): Pro
             subject: parsed.subject ?? '',
             text: parsed.text ?? '',
             html: typeof parsed.html === 'string' ? parsed.html : '',
+            organisationId: headerText(parsed.headers.get('x-brineline-organisation')),
           };
           const name = `${Date.now()}-${mail.id}.json`;
           // Write then rename, so a reader never sees a half-written message.

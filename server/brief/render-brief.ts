@@ -5,7 +5,8 @@
 import type { Survey } from '@shared/schemas/survey';
 import { governingCheck, type BoundaryResult, type SurveyResults } from '@shared/engine';
 import type { OperatingLimit, Verdict } from '@shared/api/review';
-import { CAUTIONS } from '@shared/api/cautions';
+import { CAUTIONS, STABILITY_CAUTION } from '@shared/api/cautions';
+import { downfloodingFreeboards, shipResponseOf } from '@shared/engine';
 import { STATUS_LABELS, type SurveyStatus } from '@shared/review/status';
 import { formatNumber, formatQuantity, type UnitSystem } from '@shared/units/units';
 import {
@@ -86,6 +87,16 @@ ${v ? html`<div class="verdict ${SEVERITY_CLASS[sev!]}"><strong>${boundaryVerdic
 </li>`;
   });
 
+  const response = r ? shipResponseOf(d.doc, r) : null;
+  const nearest = response && condition ? downfloodingFreeboards(d.doc, condition, response)[0] : undefined;
+  const heelWords = (deg: number) => `${formatNumber(Math.abs(deg), 2)}° ${deg > 0.05 ? 'to starboard' : deg < -0.05 ? 'to port' : ''}`;
+  const stability = response
+    ? html`<p>Predicted from the modelled flooding: drafts aft <strong>${q(response.attitude.draftAftM, 'length')}</strong>, forward <strong>${q(response.attitude.draftForeM, 'length')}</strong>, heel <strong>${heelWords(response.attitude.heelDeg)}</strong>, trim <strong>${q(Math.abs(response.attitude.trimM), 'length')} ${response.attitude.trimM > 0 ? 'by the stern' : response.attitude.trimM < 0 ? 'by the head' : ''}</strong>.</p>
+<p>GM after free surface: <strong class="${response.gmFluidM <= 0 ? 'over' : ''}">${q(response.gmFluidM, 'length')}</strong>${nearest && nearest.predictedM !== null ? html` · nearest opening that would let water in: <strong>${nearest.name}</strong>, ${q(nearest.predictedM, 'length')} above the water` : ''}.</p>
+${response.warnings.length ? html`<ul>${response.warnings.map((w) => html`<li class="${w.severity === 'danger' ? 'over' : ''}">${w.message}</li>`)}</ul>` : ''}
+<p class="muted">${STABILITY_CAUTION}</p>`
+    : html`<p class="muted">Not computed: the survey has no hydrostatic particulars for these readings.</p>`;
+
   const limitItems = d.limits.map((l) => html`<li>${describeLimit(l, names, d.units)}</li>`);
   const sev = surveyVerdict ? verdictSeverity(surveyVerdict.verdict) : null;
   const changedSince = d.revision > d.issuedRevision;
@@ -117,13 +128,17 @@ ${v ? html`<div class="verdict ${SEVERITY_CLASS[sev!]}"><strong>${boundaryVerdic
 ${flooded.length ? html`<table><thead><tr><th scope="col">Space</th><th scope="col">Holds</th><th scope="col">Full</th></tr></thead><tbody>${floodedRows}</tbody></table>` : html`<p>No space holds liquid in this survey.</p>`}`
     : html`<p class="muted">The server has not worked out the loads for this survey yet.</p>`}
 </section>
+<section aria-labelledby="h-stability">
+  <h2 id="h-stability">The ship’s response</h2>
+  ${stability}
+</section>
 <section aria-labelledby="h-boundaries">
   <h2 id="h-boundaries">Boundaries that matter</h2>
   ${boundaryItems.length ? html`<ul class="boundaries">${boundaryItems}</ul>` : html`<p class="muted">No boundary carries a net load.</p>`}
 </section>
 <section aria-labelledby="h-cautions" class="cautions">
   <h2 id="h-cautions">Cautions</h2>
-  <ul>${CAUTIONS.map((c) => html`<li>${c}</li>`)}</ul>
+  <ul>${[...CAUTIONS, STABILITY_CAUTION].map((c) => html`<li>${c}</li>`)}</ul>
 </section>
 <footer>
   <p>Reviewed by <strong>${d.reviewedBy ?? 'nobody yet'}</strong>${d.reviewedAt ? html` on ${utc(d.reviewedAt)}` : ''} · ${d.organisationName} · survey revision ${d.revision}.</p>

@@ -11,7 +11,12 @@ export interface MailMessage {
   subject: string;
   text: string;
   html: string;
+  /** The organisation on whose behalf the message goes (a header, so the development mailbox can keep firms apart). */
+  orgId: string;
 }
+
+/** Header naming the sending organisation; the development mailbox shows a firm only its own. */
+export const ORG_HEADER = 'X-Brineline-Organisation';
 
 export interface Mailer {
   send(message: MailMessage): Promise<void>;
@@ -21,7 +26,8 @@ export function createMailer(config: Pick<Config, 'SMTP_URL' | 'MAIL_FROM'>): Ma
   const transport = nodemailer.createTransport(config.SMTP_URL);
   return {
     async send(message) {
-      await transport.sendMail({ from: config.MAIL_FROM, ...message });
+      const { orgId, ...mail } = message;
+      await transport.sendMail({ from: config.MAIL_FROM, ...mail, headers: { [ORG_HEADER]: orgId } });
     },
   };
 }

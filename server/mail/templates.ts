@@ -29,7 +29,7 @@ export function invitationMail(m: {
   role: Role;
   link: string;
   expiresAt: Date;
-}): MailMessage {
+}): Omit<MailMessage, 'orgId'> {
   const who = m.inviterName ? `${m.inviterName} has invited you` : 'You have been invited';
   const lines = [
     `${who} to join ${m.orgName} on Brineline as ${article(m.role)} ${m.role}.`,
@@ -45,7 +45,7 @@ export function invitationMail(m: {
   };
 }
 
-export function passwordResetMail(m: { to: string; name: string; link: string; expiresAt: Date }): MailMessage {
+export function passwordResetMail(m: { to: string; name: string; link: string; expiresAt: Date }): Omit<MailMessage, 'orgId'> {
   const lines = [
     m.name ? `Hello ${m.name},` : 'Hello,',
     'Someone (we hope you) asked to choose a new Brineline password for this address.',

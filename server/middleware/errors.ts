@@ -20,6 +20,7 @@ export const STATUS_OF: Record<ErrorCode, number> = {
   rate_limited: 429,
   internal: 500,
   service_unavailable: 503,
+  db_unavailable: 503,
 };
 
 export const apiNotFound: RequestHandler = (req, _res, next) => {
@@ -41,6 +42,18 @@ interface PgError {
  * (22003), text that is not of the column's type (22P02), a string too long for its column (22001).
  */
 const PG_BAD_VALUE = new Set(['22P05', '22021', '22003', '22P02', '22001']);
+
+/** Socket errors reaching PostgreSQL, its "shutting down / starting up / too many connections" answers, a pool timeout. */
+const DB_DOWN_CODES = new Set(['ECONNREFUSED', 'ECONNRESET', 'ENOTFOUND', 'ETIMEDOUT', 'EHOSTUNREACH', 'EPIPE', '57P01', '57P02', '57P03', '53300']);
+
+/** Whether `err` says the database could not be reached (not that a query was wrong). */
+export function isDatabaseUnavailable(err: unknown): boolean {
+  const e = err as { code?: unknown; name?: unknown; message?: unknown } | null;
+  if (!e || typeof e !== 'object') return false;
+  if (typeof e.code === 'string' && (DB_DOWN_CODES.has(e.code) || e.code.startsWith('08'))) return true;
+  if (e.name === 'KnexTimeoutError') return true;
+  return typeof e.message === 'string' && /^Connection terminated|Client has encountered a connection error/.test(e.message);
+}
 
 export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
   const requestId = String(req.id ?? '');
@@ -66,6 +79,11 @@ export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
   } else if (typeof (err as BodyParserError)?.status === 'number' && (err as BodyParserError).status! < 500 && (err as BodyParserError).expose) {
     status = (err as BodyParserError).status!;
     body = { code: 'bad_request', message: (err as BodyParserError).message ?? 'Bad request.', requestId };
+  } else if (isDatabaseUnavailable(err)) {
+    req.log?.warn({ err }, 'database unavailable');
+    status = 503;
+    res.setHeader('Retry-After', '5');
+    body = { code: 'db_unavailable', message: 'The database cannot be reached just now. Nothing was changed; try again shortly.', requestId };
   } else if (typeof (err as PgError)?.code === 'string' && PG_BAD_VALUE.has((err as PgError).code!)) {
     // A value the request carried that PostgreSQL cannot hold: the checks before the query should
     // have refused it (and are the bug to fix), but the answer is still the client's 400.

@@ -14,7 +14,8 @@ import {
   type MessageResponse,
 } from '@shared/api/auth';
 import { ANY_MEMBER, PUBLIC, authOf, type RouteSpec } from '../http/route';
-import { notFound } from '../errors';
+import { DomainError, notFound } from '../errors';
+import type { SignInGuard } from '../http/rate-limit';
 import type { AppServices } from '../services';
 import type { IssuedSession } from '../services/auth';
 import { requestMeta } from '../services/audit';
@@ -28,13 +29,14 @@ export interface AuthEdge {
   secure: boolean;
   /** Refuses a foreign Origin on the cookie routes. */
   origin: RequestHandler;
-  signInLimits: RequestHandler[];
-  resetLimits: RequestHandler[];
+  /** Failed sign-ins per IP, e-mail + IP and account (server/http/rate-limit.ts). */
+  signInGuard: SignInGuard;
+  resetLimits: RequestHandler;
 }
 
 export function authRoutes(services: Pick<AppServices, 'auth' | 'invitations' | 'members'>, edge: AuthEdge): RouteSpec[] {
   const { auth, invitations, members } = services;
-  const { secure, origin, signInLimits, resetLimits } = edge;
+  const { secure, origin, signInGuard, resetLimits } = edge;
 
   const cookieOptions = { httpOnly: true, secure, sameSite: 'strict' as const, path: REFRESH_COOKIE_PATH };
   const sendSession = (res: Response, session: IssuedSession) => {
@@ -57,10 +59,20 @@ export function authRoutes(services: Pick<AppServices, 'auth' | 'invitations' | 
       method: 'post',
       path: '/auth/sign-in',
       policy: PUBLIC,
-      before: [origin, ...signInLimits],
+      before: [origin, signInGuard.check],
       handler: async (req, res) => {
         const body = SignInRequestSchema.parse(req.body);
-        sendSession(res, await auth.signIn(body.email, body.password, requestMeta(req)));
+        const email = body.email.trim().toLowerCase();
+        let session: IssuedSession;
+        try {
+          session = await auth.signIn(body.email, body.password, requestMeta(req));
+        } catch (err) {
+          // Only wrong credentials count against the limits; a server fault (503) does not.
+          if (err instanceof DomainError && err.code === 'unauthorized') await signInGuard.failed(req, email);
+          throw err;
+        }
+        await signInGuard.succeeded(req, res, email, { secure, path: REFRESH_COOKIE_PATH });
+        sendSession(res, session);
       },
     },
     {
@@ -92,7 +104,7 @@ export function authRoutes(services: Pick<AppServices, 'auth' | 'invitations' | 
       method: 'post',
       path: '/auth/forgot-password',
       policy: PUBLIC,
-      before: [origin, ...resetLimits],
+      before: [origin, resetLimits],
       handler: async (req, res) => {
         const { email } = ForgotPasswordRequestSchema.parse(req.body);
         const body: MessageResponse = {

@@ -162,7 +162,7 @@ export function createAuthService(deps: AuthDeps) {
       await secrets.insertPasswordReset(trx, { userId: me.id, tokenHash: hashSecret(token), expiresAt });
     });
     const link = `${config.publicUrl.replace(/\/$/, '')}/reset-password#${token}`;
-    await mailer.send(passwordResetMail({ to: me.email, name: me.name, link, expiresAt }));
+    await mailer.send({ ...passwordResetMail({ to: me.email, name: me.name, link, expiresAt }), orgId: me.organisation.id });
     await audit('password_reset_requested', meta, { orgId: me.organisation.id, subjectId: me.id, email, details: { sent: true } });
   }
 

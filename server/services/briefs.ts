@@ -44,6 +44,7 @@ export function createBriefService(deps: { db: Knex; config: Pick<Config, 'publi
     const [engineerName, organisationName] = await Promise.all([repo.userName(db, auth.userId), repo.organisationName(db, auth.orgId)]);
     await mailer.send({
       to: body.recipientEmail,
+      orgId: auth.orgId,
       ...briefMail({
         url,
         vesselName: parsed.success ? parsed.data.vessel.name : 'the vessel',

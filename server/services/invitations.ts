@@ -45,7 +45,10 @@ export function createInvitationService(deps: { db: Db; config: Config; logger: 
     const [org, inviterName] = await Promise.all([accounts.findOrganisation(db, actor.orgId), accounts.findUserName(db, actor.userId)]);
     const link = `${config.publicUrl.replace(/\/$/, '')}/accept-invitation#${token}`;
     try {
-      await mailer.send(invitationMail({ to: email, orgName: org?.name ?? 'your organisation', inviterName: inviterName ?? null, role, link, expiresAt }));
+      await mailer.send({
+        ...invitationMail({ to: email, orgName: org?.name ?? 'your organisation', inviterName: inviterName ?? null, role, link, expiresAt }),
+        orgId: actor.orgId,
+      });
     } catch (err) {
       logger.error({ err }, 'invitation e-mail failed');
       throw mailFailed('The invitation is saved, but not sent: use “Resend” on the members screen.');

@@ -28,7 +28,8 @@ async function uploadPhoto(
   if (!type || !(PHOTO_TYPES as readonly string[]).includes(type.mime)) throw unsupportedType();
   const existing = await findPhotoAnyOrg(db, id);
   if (existing) {
-    if (existing.organisationId !== auth.orgId) throw conflict('This photo id is already in use. Attach the photo again to get a new one.');
+    // Another firm's photo id answers as any id that names nothing of ours (no hint that it exists).
+    if (existing.organisationId !== auth.orgId) throw notFound('No such photo.');
     return { photo: publicPhoto(existing), created: false };
   }
   if (!(await surveyInOrg(db, auth.orgId, fields.surveyId))) throw notFound('No survey of your organisation has this id. Sync the survey first.');

@@ -52,8 +52,9 @@ export function createReviewService(deps: { db: Knex }) {
   async function changeStatus(auth: AuthContext, surveyId: string, body: StatusChangeRequest): Promise<{ surveyId: string; status: SurveyStatus; event: StatusEvent }> {
     return db.transaction(async (trx) => {
       const s = await surveyOf(trx, auth, surveyId, true);
-      const submitter = await repo.lastSubmitter(trx, surveyId);
-      const check = checkTransition({ from: s.status, to: body.to, role: auth.role, isSubmitter: submitter === auth.userId, note: body.note });
+      // The own-work rule: whoever made, edited or sent the survey at any revision may not accept it.
+      const ownWork = body.to === 'accepted' && (await repo.hasWorkedOn(trx, surveyId, auth.userId));
+      const check = checkTransition({ from: s.status, to: body.to, role: auth.role, isSubmitter: ownWork, note: body.note });
       if (!check.ok) {
         if (check.reason === 'role' || check.reason === 'own_submission') throw forbidden(check.message);
         if (check.reason === 'note_required') throw validationFailed(check.message, [{ path: 'note', message: check.message }]);

@@ -5,3 +5,27 @@ export const CAUTIONS: readonly string[] = [
   'Never enter a flooded or closed space without gas testing and an entry permit.',
   'Pumping or moving liquid changes both the ship’s stability and the loads on its boundaries.',
 ];
+
+/** Beside every figure of the ship's response (heel, trim, GM) and on the brief. */
+export const STABILITY_CAUTION =
+  'Stability decisions rest with the naval architect and the ship’s approved stability information; these heel, trim and GM figures are estimates for planning.';
+
+/**
+ * The forecast's own caution, beside every forecast and on the brief: how old its readings are is
+ * said with it (`readingsAge`).
+ */
+export const FORECAST_CAUTION =
+  'A forecast is an estimate from the readings it rests on, run forward under the openings, pumps and plan entered. New soundings replace it.';
+
+/** "3 h 20 min" from milliseconds. */
+export function durationWords(ms: number): string {
+  const min = Math.max(0, Math.round(ms / 60000));
+  const h = Math.floor(min / 60), m = min % 60;
+  return h > 0 ? `${h} h ${m} min` : `${m} min`;
+}
+
+/** "h:mm" from seconds. */
+export function hmm(seconds: number): string {
+  const min = Math.max(0, Math.round(seconds / 60));
+  return `${Math.floor(min / 60)}:${String(min % 60).padStart(2, '0')}`;
+}

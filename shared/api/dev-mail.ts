@@ -9,6 +9,8 @@ export const DevMailSchema = z.object({
   subject: z.string(),
   text: z.string(),
   html: z.string(),
+  /** The organisation that sent it (absent on mail from older versions). */
+  organisationId: z.string().optional(),
 });
 export type DevMail = z.infer<typeof DevMailSchema>;
 

@@ -22,6 +22,7 @@ export const ErrorCodes = [
   'unsupported_media_type',
   'rate_limited',
   'service_unavailable',
+  'db_unavailable',
   'internal',
 ] as const;
 export type ErrorCode = (typeof ErrorCodes)[number];

@@ -7,10 +7,10 @@ import { catalogueFluid, crudeDensityFromApi, type FluidCategory } from '../flui
 import { CARGO_PERMEABILITY, defaultPermeability, PERMEABILITY_SOURCE } from '../schemas/space-types';
 import type { Boundary, BoundarySide, Compartment, LevelSource, Survey } from '../schemas/survey';
 import { earthFrame, HEEL_AGREEMENT_TOLERANCE_DEG, type EarthFrame } from './frame';
-import { missingShipReadings, withheldItems, withheldSentence } from './readings';
 import { balanceOpenToSea, spaceInflow } from './flooding-space';
 import { soundingEvidence } from './flooding-soundings';
 import { timeToPumpOut } from './inflow';
+import { missingShipReadings, withheldItems, withheldSentence } from './readings';
 import { clipHalfPlane } from './plane-integrals';
 import {
   childAsHole,

@@ -263,15 +263,26 @@ function piece(m: FloodModel, st: SpaceStack, op: FloodOpening, a: number, b: nu
   const pLin = rho * g * HEAD_LINEAR_BELOW_M;
   const h = op.halfHeightM;
   const ec = op.elevationM;
+  const pa = Math.abs(da), pb = Math.abs(db);
+  if ((pa < pLin && pb > pLin) || (pa > pLin && pb < pLin)) {
+    // the law changes where the head is HEAD_LINEAR_BELOW_M: integrate either side of it apart
+    const z = a + ((b - a) * (pLin - pa)) / (pb - pa);
+    const dz = Math.sign(dm) * pLin;
+    piece(m, st, op, a, z, da, dz, take);
+    piece(m, st, op, z, b, dz, db, take);
+    return;
+  }
   let integral: number; // ∫ w(e) v(e) de
   if (b - a >= 2 * h * (1 - 1e-12) && Math.abs(db - da) <= 1e-9 * Math.abs(dm)) {
     // the whole opening under one head (both sides the same liquid over it): the plain orifice law
     take(slot, op.cd * op.areaM2 * velocity(dm, rho, g));
     return;
   }
-  if (op.shape === 'rectangular' && Math.min(Math.abs(da), Math.abs(db)) >= pLin) {
+  if (op.shape === 'rectangular' && Math.max(pa, pb) <= pLin) {
+    // linear law: the mean of a linear function
+    integral = (op.areaM2 / (2 * h)) * (b - a) * velocity(dm, rho, g);
+  } else if (op.shape === 'rectangular') {
     const w = op.areaM2 / (2 * h);
-    const pa = Math.abs(da), pb = Math.abs(db);
     const meanRoot = Math.abs(pb - pa) < 1e-12 * Math.max(pa, pb) ? Math.sqrt(pa) : ((2 / 3) * (pb ** 1.5 - pa ** 1.5)) / (pb - pa);
     integral = Math.sign(dm) * w * (b - a) * meanRoot * Math.sqrt(2 / rho);
   } else {

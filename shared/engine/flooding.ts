@@ -42,7 +42,7 @@ export const LOAD_LEVEL_STEP_M = 0.001;
 /** A level moving slower than this is steady: 1 mm per hour, in m/s (common practice, no source). */
 export const STEADY_LEVEL_RATE_M_S = 0.001 / 3600;
 
-export type Governs = 'rating' | 'stiffeners' | 'shores';
+export type Governs = 'rating' | 'stiffeners' | 'plating' | 'shores';
 
 /** A "what if" change to the survey before the forecast runs. */
 export type FloodVariant =
@@ -483,7 +483,9 @@ function governsOf(b: BoundaryResult): Governs | null {
   if (b.maxUtilisation === null) return null;
   const shoreMax = b.shores.reduce((m, s) => Math.max(m, s.utilisation), -Infinity);
   if (b.capacity && b.capacity.utilisation === b.maxUtilisation) return 'rating';
+  if (b.capacities.some((c) => c.utilisation === b.maxUtilisation)) return 'rating';
   if (b.stiffeners && b.stiffeners.maxUtilisation === b.maxUtilisation) return 'stiffeners';
+  if (b.plating && b.plating.maxUtilisation === b.maxUtilisation) return 'plating';
   if (shoreMax === b.maxUtilisation) return 'shores';
   return 'rating';
 }
@@ -530,8 +532,8 @@ function boundaryLoads(survey: Survey, condition: Condition, m: FloodModel, snap
     }
   };
   let runs = 0;
-  // only a boundary with a rating, stiffeners or shores has a utilisation
-  const rated = survey.boundaries.filter((b) => b.ratedCapacity || b.stiffening || (b.shores && b.shores.length > 0));
+  // only a boundary with a rating, stiffeners, plating or shores has a utilisation (the first run tells)
+  let rated: Survey['boundaries'] = [];
   const children = new Map<string, string[]>();
   for (const b of survey.boundaries) if (b.parentBoundaryId) children.set(b.parentBoundaryId, [...(children.get(b.parentBoundaryId) ?? []), b.id]);
   // a door's loads depend on its parent plate and a plate's on the openings cut from it: they go together
@@ -543,12 +545,9 @@ function boundaryLoads(survey: Survey, condition: Condition, m: FloodModel, snap
   snapshots.forEach((snap, k) => {
     if (k === 0) {
       // the snapshot at 0 is the condition as read, recomputed from the model's layers so every time is alike
-      const keep0 = new Set<string>();
-      for (const b of rated) withFamily(b, keep0);
-      const r0 = computeSurvey(
-        { ...survey, conditions: [conditionAt(condition, m, snap.y)], activeConditionId: condition.id, boundaries: survey.boundaries.filter((b) => keep0.has(b.id)) },
-        { includeLoadDiagrams: false, includeInflow: false },
-      );
+      const r0 = computeSurvey({ ...survey, conditions: [conditionAt(condition, m, snap.y)], activeConditionId: condition.id }, { includeLoadDiagrams: false, includeInflow: false });
+      const hasU = new Set(r0.boundaries.filter((b) => b.maxUtilisation !== null).map((b) => b.id));
+      rated = survey.boundaries.filter((b) => hasU.has(b.id));
       runs++;
       fill(r0, 0);
       return;

@@ -9,14 +9,14 @@ export {
 } from './compute-survey';
 export { boundaryIndex, boundaryRow, boundaryRows, tableOfRows } from './boundary-table';
 export { ENGINE_VERSION } from './version';
-export { facetOrientation, reverseFacets, type FacetOrientation } from './facets';
-export { aiscE3, columnCheck, ndsColumnStability, AISC_OMEGA_C, NDS_LE_D_LIMIT } from './column-design';
-export { ROARK_SOURCE } from './plating';
-export { governingCheck, type GoverningCheck } from './governing';
 export { DEFAULT_SEA_DENSITY_KG_M3, HEEL_AGREEMENT_TOLERANCE_DEG } from './frame';
 /** Solids and outlines for drawing (the 3D model), cut by the same geometry the loads use. */
 export { boundaryPolygons, compartmentSolid, liquidBody } from './mesh';
 export type { V3 } from './vec';
+export { facetOrientation, reverseFacets, type FacetOrientation } from './facets';
+export { aiscE3, columnCheck, ndsColumnStability, AISC_OMEGA_C, NDS_LE_D_LIMIT } from './column-design';
+export { ROARK_SOURCE } from './plating';
+export { governingCheck, type GoverningCheck } from './governing';
 export { joinWords, levelReadingMissing, missingShipReadings, withheldSentence } from './readings';
 export type * from './results';
 export {

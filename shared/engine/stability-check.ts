@@ -95,7 +95,9 @@ export function readingsVersusModel(survey: Survey, condition: Condition, respon
   const y = placeable && response.gmFluidM > 0 ? heelMoment / mass : null;
 
   let message: string;
-  if (agrees) {
+  if (response.gmFluidM <= 0) {
+    message = 'Readings not compared with the model: the model has no positive GM, so its heel means little.';
+  } else if (agrees) {
     message = 'The readings agree with the model within reading accuracy.';
   } else if (placeable) {
     const more = mass > 0;

@@ -301,7 +301,7 @@ export function responseFromWeights(survey: Survey, condition: Condition, weight
     warn('sinks', 'danger', 'By these figures the remaining buoyancy cannot carry the ship: she would founder. The figures below do not apply.');
   }
   if (gmFluid <= 0) {
-    warn('gm-negative', 'danger', `GM fluid is ${gmFluid.toFixed(2)} m: the ship is unstable upright and may loll or capsize. The heel shown is a rough angle of loll (wall-sided formula); small-angle figures do not apply.`);
+    warn('gm-negative', 'danger', `GM fluid is ${gmFluid.toFixed(2)} m: the ship is unstable upright and may loll or capsize. The heel shown is a rough angle of loll (wall-sided formula${arm === 0 ? '; she may lie over to either side' : ''}); small-angle figures do not apply.`);
   }
   if (Math.abs(heelDeg) > SMALL_ANGLE_LIMIT_DEG) {
     warn('heel-beyond-range', 'warning', `Heel ${Math.abs(heelDeg).toFixed(1)}° is beyond the ${SMALL_ANGLE_LIMIT_DEG}° to which the small-angle method holds; the real heel may differ a good deal.`);

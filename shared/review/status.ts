@@ -80,7 +80,7 @@ export function checkTransition(args: {
     return { ok: false, reason: 'role', message: `Only ${t.roles.join(' or ')} may ${t.label.toLowerCase()}.` };
   }
   if (t.notBySubmitter && args.isSubmitter) {
-    return { ok: false, reason: 'own_submission', message: 'Someone other than the person who sent it must accept a survey.' };
+    return { ok: false, reason: 'own_submission', message: 'Someone who has not made, edited or sent this survey must accept it.' };
   }
   if (t.noteRequired && !args.note?.trim()) {
     return { ok: false, reason: 'note_required', message: 'Say why in the note.' };

@@ -78,7 +78,11 @@ describe('photos', () => {
     expect(list.status).toBe(404);
     // nor can it attach a photo to this organisation's survey, or take over the id
     expect((await put(randomUUID(), form(makePng()), otherToken)).status).toBe(404);
-    expect((await put(id, form(makePng()), otherToken)).status).toBe(409);
+    // Another firm's photo id answers as one that names nothing (F13: it used to answer 409).
+    const taken = await put(id, form(makePng()), otherToken);
+    expect(taken.status).toBe(404);
+    const unknown = await fetch(`${t.url}/api/photos/${randomUUID()}`, { headers: authHeader(otherToken) });
+    expect(ErrorBodySchema.parse(await taken.json()).error.message).toBe(ErrorBodySchema.parse(await unknown.json()).error.message);
   });
 
   it('refuses a file that is not an image by its content, whatever its name and declared type (415)', async () => {

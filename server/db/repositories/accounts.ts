@@ -161,11 +161,3 @@ export async function findUserName(db: Q, userId: string): Promise<string | unde
   return row?.name;
 }
 
-/** Every e-mail address of the organisation's people, in any status. */
-export async function listMemberEmails(db: Q, orgId: string): Promise<string[]> {
-  const rows: Array<{ email: string }> = await db('users as u')
-    .join('memberships as m', 'm.user_id', 'u.id')
-    .where('m.organisation_id', orgId)
-    .select('u.email');
-  return rows.map((r) => r.email);
-}

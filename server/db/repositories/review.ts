@@ -237,6 +237,20 @@ export async function lastSubmitter(db: Q, surveyId: string): Promise<string | n
   return row?.actor_id ?? null;
 }
 
+/**
+ * Whether `userId` has had a hand in the survey at any revision: made it, sent it for review, or
+ * wrote any revision of it. Such a person may not accept it (the own-work rule).
+ */
+export async function hasWorkedOn(db: Q, surveyId: string, userId: string): Promise<boolean> {
+  const { rows } = await db.raw(
+    `SELECT EXISTS (SELECT 1 FROM surveys WHERE id = ? AND created_by = ?)
+         OR EXISTS (SELECT 1 FROM status_events WHERE survey_id = ? AND actor_id = ? AND to_status = 'submitted')
+         OR EXISTS (SELECT 1 FROM survey_revisions WHERE survey_id = ? AND user_id = ?) AS worked`,
+    [surveyId, userId, surveyId, userId, surveyId, userId],
+  );
+  return Boolean((rows as { worked: boolean }[])[0]?.worked);
+}
+
 /** The latest move to "accepted" or "under review", for the brief's "reviewed by". */
 export async function lastReviewEvent(db: Q, surveyId: string): Promise<{ name: string; at: string } | null> {
   const row = await db('status_events as e')

@@ -1,7 +1,5 @@
 import { describe, expect, it } from 'vitest';
 import { computeSurvey } from '@shared/engine';
-import { timeToPumpOut } from '@shared/engine/inflow';
-import { leastSquares } from '@shared/engine/flooding-soundings';
 import { baseSurvey, boxCompartment, contents, polygonBoundary, tid } from './fixtures';
 
 const G = 9.80665;
@@ -125,15 +123,5 @@ describe('flat plate loads', () => {
     expect(total).toBeCloseTo(r.net.forceN, 4);
     expect(r.shores[0].tributaryAreaM2).toBeCloseTo(40, 9);
     expect(r.shores[0].tributaryForceN).toBeCloseTo(1000 * G * 10 * (36 - 4) / 2, 4);
-  });
-});
-
-describe('inflow', () => {
-  it('least squares and time to pump out (values worked by hand)', () => {
-    const f = leastSquares([0, 1, 2, 3], [10, 12, 14, 16]);
-    expect(f.slope).toBeCloseTo(2, 12);
-    expect(f.r2).toBeCloseTo(1, 12);
-    expect(timeToPumpOut(100, 0.05, 0.03)).toBeCloseTo(5000, 9);
-    expect(timeToPumpOut(100, 0.02, 0.03)).toBeNull();
   });
 });

@@ -14,6 +14,7 @@ import { BoundaryDetail } from '@client/features/results/components/boundary-det
 import { BoundaryResultsTable } from '@client/features/results/components/boundary-results-table';
 import { CompartmentTable } from '@client/features/results/components/compartment-table';
 import { ShipTotals } from '@client/features/results/components/ship-totals';
+import { ShipResponsePanel } from '@client/features/results/components/ship-response';
 import { paths } from '@client/config/paths';
 import { useUnitSystem } from '@client/lib/unit-system';
 import { useReview } from '../api/get-review';
@@ -124,6 +125,7 @@ export function ReviewDesk({ surveyId }: { surveyId: string }) {
           {tab === 'results' && shown && (
             <div className="space-y-4">
               <ShipTotals results={shown} system={system} />
+              {parsed?.success && <ShipResponsePanel survey={parsed.data} results={shown} system={system} />}
               <BoundaryResultsTable results={shown} system={system} selectedId={selected} onSelect={setSelected} />
               {selectedBoundary && <BoundaryDetail boundary={selectedBoundary} results={shown} system={system} />}
               <CompartmentTable results={shown} system={system} />

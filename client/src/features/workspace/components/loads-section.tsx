@@ -4,12 +4,13 @@ import { ShipTotals, EngineWarnings } from '@client/features/results/components/
 import { BoundaryResultsTable } from '@client/features/results/components/boundary-results-table';
 import { BoundaryDetail } from '@client/features/results/components/boundary-detail';
 import { CompartmentTable } from '@client/features/results/components/compartment-table';
+import { AttitudeInUse } from '@client/features/results/components/ship-response';
 import type { SectionProps } from '../utils/types';
 import { secondaryBtn } from '@client/components/ui/fields';
 import { useSearchParams } from 'react-router';
 import { WithheldNotice } from './withheld-notice';
 
-export function LoadsSection({ results, system, selectedId, select }: SectionProps) {
+export function LoadsSection({ survey, results, system, selectedId, select }: SectionProps) {
   const [, setParams] = useSearchParams();
   if (!results) return <p className="text-ink-soft">No loads yet.</p>;
   const b = results.boundaries.find((x) => x.id === selectedId) ?? null;
@@ -20,6 +21,7 @@ export function LoadsSection({ results, system, selectedId, select }: SectionPro
       </h2>
       <WithheldNotice results={results} />
       <ShipTotals results={results} system={system} />
+      <AttitudeInUse survey={survey} results={results} system={system} />
       <EngineWarnings results={results} />
       <div className="space-y-2">
         <h3 className="text-xl">Plates</h3>

@@ -23,6 +23,8 @@ import { SpacesSection } from './spaces-section';
 import { ContentsSection } from './contents-section';
 import { PlatesSection } from './plates-section';
 import { LoadsSection } from './loads-section';
+import { StabilitySection } from './stability-section';
+import { FloodingSection } from './flooding-section';
 import { PhotosSection } from './photos-section';
 import { ExportButton } from './survey-file';
 import { ModelSection } from './model-section';
@@ -35,6 +37,8 @@ const SECTIONS = [
   { id: 'contents', label: 'Contents' },
   { id: 'plates', label: 'Plates' },
   { id: 'loads', label: 'Loads' },
+  { id: 'stability', label: 'Stability' },
+  { id: 'flooding', label: 'Flooding' },
   { id: 'model', label: '3D' },
   { id: 'photos', label: 'Photos' },
 ] as const;
@@ -122,10 +126,12 @@ export function Workspace({ surveyId }: { surveyId: string }) {
     contents: <ContentsSection {...props} />,
     plates: <PlatesSection {...props} />,
     loads: <LoadsSection {...props} />,
+    stability: <StabilitySection {...props} />,
+    flooding: <FloodingSection {...props} />,
     model: <ModelSection {...props} open={open} />,
     photos: <PhotosSection {...props} />,
   };
-  const sideResults = section !== 'loads' && section !== 'model';
+  const sideResults = section !== 'loads' && section !== 'model' && section !== 'flooding';
 
   return (
     <main className="mx-auto max-w-7xl pb-8" data-testid="workspace">

@@ -1,0 +1,60 @@
+/**
+ * The forecast's timeline: liquid levels of the spaces that change (left axis, m above their
+ * lowest point) and the worst boundary utilisation (right axis, %), with a marker at each time a
+ * boundary reaches its limit. uPlot, in its own lazily loaded chunk (a lazy default export).
+ */
+import { useEffect, useRef } from 'react';
+import uPlot from 'uplot';
+import 'uplot/dist/uPlot.min.css';
+import type { FloodForecast } from '@shared/engine';
+
+const COLOURS = ['#0b4f6c', '#2a9d8f', '#8a5a00', '#5b3a8c', '#1d6f42', '#7a1f1f'];
+
+export default function ForecastChart({ forecast, width }: { forecast: FloodForecast; width: number }) {
+  const ref = useRef<HTMLDivElement>(null);
+  useEffect(() => {
+    if (!ref.current) return;
+    const moving = forecast.spaces.filter((s) => s.active && Math.max(...s.levelM) - Math.min(...s.levelM) > 1e-3).slice(0, COLOURS.length);
+    const hours = forecast.times.map((t) => t / 3600);
+    const worst = forecast.worst.map((w) => (w.utilisation === null ? null : 100 * w.utilisation));
+    const limitHours = forecast.limits.map((l) => l.atS / 3600);
+    const data: uPlot.AlignedData = [hours, ...moving.map((s) => s.levelM), worst];
+    const opts: uPlot.Options = {
+      width,
+      height: 260,
+      scales: { x: { time: false }, pct: { auto: true } },
+      axes: [
+        { label: 'hours from the readings' },
+        { label: 'level, m' },
+        { side: 1, scale: 'pct', label: 'worst utilisation, %', grid: { show: false } },
+      ],
+      series: [
+        {},
+        ...moving.map((s, i) => ({ label: s.name, stroke: COLOURS[i], width: 2 })),
+        { label: 'Worst utilisation', scale: 'pct', stroke: '#c2185b', width: 2, dash: [6, 4] },
+      ],
+      hooks: {
+        draw: [
+          (u) => {
+            // a marker per limit reached: a vertical line at its time
+            const ctx = u.ctx;
+            ctx.save();
+            ctx.strokeStyle = '#c2185b';
+            ctx.lineWidth = 2 * uPlot.pxRatio;
+            for (const h of limitHours) {
+              const x = u.valToPos(h, 'x', true);
+              ctx.beginPath();
+              ctx.moveTo(x, u.bbox.top);
+              ctx.lineTo(x, u.bbox.top + u.bbox.height);
+              ctx.stroke();
+            }
+            ctx.restore();
+          },
+        ],
+      },
+    };
+    const plot = new uPlot(opts, data, ref.current);
+    return () => plot.destroy();
+  }, [forecast, width]);
+  return <div ref={ref} data-testid="forecast-chart" />;
+}

@@ -1,0 +1,154 @@
+/**
+ * A flooding forecast, read-only: how old its readings are, the timeline chart, the table of
+ * boundaries reaching their limits, each space's outlook and the pumping plan's steps. The
+ * workspace and the review desk show the same view.
+ */
+import { lazy, Suspense, useEffect, useRef, useState } from 'react';
+import type { FloodForecast, Governs } from '@shared/engine';
+import type { Survey } from '@shared/schemas/survey';
+import type { UnitSystem } from '@shared/units/units';
+import { FORECAST_CAUTION, durationWords, hmm } from '@shared/api/cautions';
+import { fmt, percent } from '@client/lib/unit-system';
+
+const ForecastChart = lazy(() => import('./forecast-chart'));
+
+const GOVERNS: Record<Governs, string> = { rating: 'rated capacity', stiffeners: 'stiffeners', plating: 'plating', shores: 'shores' };
+
+/** Ship's time of a moment `s` seconds after the readings (UTC, as the readings are stored). */
+export function shipTime(readingsTime: string, s: number): string {
+  const d = new Date(Date.parse(readingsTime) + s * 1000);
+  return `${d.toISOString().slice(0, 10)} ${d.toISOString().slice(11, 16)} UTC`;
+}
+
+function useWidth() {
+  const ref = useRef<HTMLDivElement>(null);
+  const [w, setW] = useState(340);
+  useEffect(() => {
+    const el = ref.current;
+    if (!el) return;
+    const ro = new ResizeObserver(() => setW(Math.max(280, Math.floor(el.clientWidth))));
+    ro.observe(el);
+    return () => ro.disconnect();
+  }, []);
+  return { ref, w };
+}
+
+export function ForecastView({ forecast, survey, system, now = Date.now() }: { forecast: FloodForecast; survey: Survey; system: UnitSystem; now?: number }) {
+  const { ref, w } = useWidth();
+  const name = (id: string) => survey.compartments.find((c) => c.id === id)?.name ?? id;
+  const pumpName = (id: string) => survey.compartments.flatMap((c) => c.pumps ?? []).find((p) => p.id === id)?.name ?? 'missing pump';
+  const age = now - Date.parse(forecast.latestReadingTime);
+  const worst = forecast.worstMoment;
+  return (
+    <div className="space-y-4" data-testid="forecast">
+      <p className="rounded-lg border-2 border-caution bg-caution-soft p-3 text-sm" data-testid="forecast-caution">
+        <b>{FORECAST_CAUTION}</b> It rests on readings taken {shipTime(forecast.latestReadingTime, 0)}
+        {age > 0 ? `, ${durationWords(age)} ago` : ''}. {forecast.attitude.note}
+      </p>
+      <div ref={ref} className="min-w-0 overflow-hidden rounded-lg border-2 border-line bg-card p-2">
+        <Suspense fallback={<p className="p-4 text-ink-soft">Drawing the timeline…</p>}>
+          <ForecastChart forecast={forecast} width={w - 16} />
+        </Suspense>
+      </div>
+      <section aria-labelledby="limits-h">
+        <h3 id="limits-h" className="text-lg">
+          When boundaries reach their limit ({(forecast.horizonS / 3600).toFixed(0)} h ahead)
+        </h3>
+        {forecast.limits.length === 0 ? (
+          <p data-testid="no-limits">No boundary reaches 100 % within the forecast.</p>
+        ) : (
+          <div className="overflow-x-auto">
+            <table className="w-full text-left text-sm" data-testid="limits-table">
+              <thead>
+                <tr>
+                  <th scope="col">Boundary</th>
+                  <th scope="col">Reaches its limit at (ship’s time)</th>
+                  <th scope="col">In h:mm</th>
+                  <th scope="col">What governs</th>
+                </tr>
+              </thead>
+              <tbody>
+                {forecast.limits.map((l) => (
+                  <tr key={l.boundaryId} className="border-t border-line" data-boundary-id={l.boundaryId}>
+                    <th scope="row">{l.name}</th>
+                    <td>{l.atS === 0 ? 'already over' : shipTime(forecast.readingsTime, l.atS)}</td>
+                    <td className="tabular-nums" data-testid="limit-hmm">
+                      {hmm(l.atS)}
+                    </td>
+                    <td>{l.governs ? GOVERNS[l.governs] : '—'}</td>
+                  </tr>
+                ))}
+              </tbody>
+            </table>
+          </div>
+        )}
+      </section>
+      <section aria-labelledby="spaces-h">
+        <h3 id="spaces-h" className="text-lg">
+          Spaces
+        </h3>
+        <ul className="space-y-2">
+          {forecast.spaces
+            .filter((s) => s.active || s.soundings)
+            .map((s) => {
+              const last = s.levelM.length - 1;
+              return (
+                <li key={s.id} className="rounded-md border-2 border-line bg-card p-2 text-sm" data-testid="forecast-space">
+                  <b>{s.name}</b>: level {fmt(s.levelM[0], 'length', system, 3)} now, {fmt(s.levelM[last], 'length', system, 3)} at the end; flow now{' '}
+                  {fmt(s.netFlowM3S[0], 'flow', system, 3)}. {s.equalisedAtS === null ? 'Still moving at the end.' : s.equalisedAtS === 0 ? 'Steady now.' : `Settles in ${hmm(s.equalisedAtS)}.`}
+                  {s.pumps && (
+                    <span className="block">
+                      Pumps ({fmt(s.pumps.capacityM3S, 'flow', system, 3)}):{' '}
+                      {s.pumps.verdict === 'dry'
+                        ? `gain; pumped dry in ${hmm(s.pumps.dryAtS ?? 0)}.`
+                        : s.pumps.verdict === 'gaining'
+                          ? 'gain, but not dry within the forecast.'
+                          : s.pumps.verdict === 'holding'
+                            ? 'hold the level; they do not gain.'
+                            : 'do not keep up: the level rises.'}
+                    </span>
+                  )}
+                  {s.soundings && (
+                    <span className="block" data-testid="soundings-fit">
+                      Soundings: {fmt(s.soundings.grossInflowM3S, 'flow', system, 3)} coming in (pumps that ran added back; net rise {fmt(s.soundings.netRiseM3S, 'flow', system, 3)}), r² {s.soundings.r2.toFixed(3)}, residuals{' '}
+                      {s.soundings.readings.map((r) => fmt(r.residualM3, 'volume', system, 2)).join(', ')}; the openings entered explain {fmt(s.soundings.orificeInflowM3S, 'flow', system, 3)}.
+                      {s.soundings.disagree && (
+                        <b className="block text-danger" role="alert">
+                          ▲ Measured and orifice inflow differ by more than {s.soundings.factor}×: an unknown breach, or a wrong area.
+                        </b>
+                      )}
+                    </span>
+                  )}
+                </li>
+              );
+            })}
+        </ul>
+      </section>
+      {forecast.plan.length > 0 && (
+        <section aria-labelledby="plan-out-h">
+          <h3 id="plan-out-h" className="text-lg">
+            Pumping plan, step by step
+          </h3>
+          <ol className="list-decimal space-y-1 pl-5 text-sm" data-testid="plan-outcome">
+            {forecast.plan.map((st) => (
+              <li key={st.stepId}>
+                {pumpName(st.pumpId)} on {name(st.compartmentId)}:{' '}
+                {st.problems.length > 0
+                  ? `left out (${st.problems.join('; ')})`
+                  : `${hmm(st.startS)} → ${hmm(st.stopS)} (${st.stoppedBy === 'level' ? 'stopped at its level' : st.stoppedBy === 'time' ? 'stopped at its time' : 'to the end'}); level ${fmt(st.atStart?.levelM, 'length', system, 3)} → ${fmt(st.atStop?.levelM, 'length', system, 3)}; worst load ${percent(st.atStart?.worstUtilisation)} → ${percent(st.atStop?.worstUtilisation)}`}
+              </li>
+            ))}
+          </ol>
+        </section>
+      )}
+      {worst && (
+        <p className="text-sm" data-testid="worst-moment">
+          <b>Worst moment:</b> {hmm(worst.atS)} after the readings, {survey.boundaries.find((b) => b.id === worst.boundaryId)?.name ?? ''} at {percent(worst.utilisation)}.
+        </p>
+      )}
+      <p className="text-xs text-ink-soft">
+        Volume balance over the run (in − out − stored): {forecast.balance.balanceM3.toExponential(1)} m³. {forecast.stats.steps} integration steps.
+      </p>
+    </div>
+  );
+}

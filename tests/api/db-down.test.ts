@@ -1,0 +1,92 @@
+/**
+ * F9: with PostgreSQL unreachable every route answers 503 `db_unavailable` (not 500), and those
+ * answers do not count against the sign-in limits. The app reaches PostgreSQL through a loopback
+ * TCP proxy the test can cut and restore.
+ */
+import net from 'node:net';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { inject } from 'vitest';
+import { ErrorBodySchema } from '@shared/api/errors';
+import { startTestApp, type TestApp } from '../support/app';
+import { authHeader, createOrgWithMembers, TEST_PASSWORD, type TestOrg } from '../support/auth';
+import { storeSurvey, tokenFor } from '../support/surveys';
+import { createDb, type Db } from '../../server/db/knex';
+
+let t: TestApp;
+let direct: Db;
+let org: TestOrg;
+let proxy: net.Server;
+let up = true;
+const sockets = new Set<net.Socket>();
+
+beforeAll(async () => {
+  const url = new URL(inject('testEnv').DATABASE_URL);
+  const pgPort = Number(url.port);
+  direct = createDb(inject('testEnv').DATABASE_URL);
+  proxy = net.createServer((client) => {
+    if (!up) return void client.destroy();
+    const server = net.connect(pgPort, '127.0.0.1');
+    sockets.add(client).add(server);
+    client.pipe(server).pipe(client);
+    const end = () => {
+      client.destroy();
+      server.destroy();
+    };
+    client.on('error', end).on('close', end);
+    server.on('error', end).on('close', end);
+  });
+  await new Promise<void>((r) => proxy.listen(0, '127.0.0.1', () => r()));
+  const port = (proxy.address() as net.AddressInfo).port;
+  url.searchParams.delete('host');
+  url.host = `127.0.0.1:${port}`;
+  t = await startTestApp({ DATABASE_URL: url.toString(), RATE_LIMIT_PER_EMAIL: '3', RATE_LIMIT_PER_IP: '6', RATE_LIMIT_PER_ACCOUNT: '3' });
+  org = await createOrgWithMembers(direct);
+});
+afterAll(async () => {
+  up = true;
+  await t?.close();
+  await direct?.destroy();
+  await new Promise((r) => proxy?.close(r));
+});
+
+const cut = () => {
+  up = false;
+  for (const s of sockets) s.destroy();
+  sockets.clear();
+};
+
+describe('PostgreSQL down', () => {
+  it('every route answers 503 db_unavailable, and sign-in failures are not counted', async () => {
+    const token = await tokenFor(t.config.JWT_SECRET, org.surveyor);
+    const survey = await storeSurvey(direct, org.surveyor);
+    // Up: the app answers from the database.
+    expect((await fetch(`${t.url}/api/surveys`, { headers: authHeader(token) })).status).toBe(200);
+
+    cut();
+    const json = { 'content-type': 'application/json', 'x-forwarded-for': '203.0.113.77' };
+    const calls: [string, string, RequestInit][] = [
+      ['GET', '/api/surveys', { headers: authHeader(token) }],
+      ['GET', `/api/surveys/${survey.id}`, { headers: authHeader(token) }],
+      ['GET', '/api/me', { headers: authHeader(token) }],
+      ['GET', '/api/sync/pull', { headers: authHeader(token) }],
+      ['POST', '/api/sync/push', { headers: { ...authHeader(token), 'content-type': 'application/json' }, body: JSON.stringify({ changes: [] }) }],
+      ['GET', '/api/review/queue', { headers: authHeader(await tokenFor(t.config.JWT_SECRET, org.engineer)) }],
+      ['GET', '/api/members', { headers: authHeader(await tokenFor(t.config.JWT_SECRET, org.admin)) }],
+      ['POST', '/api/auth/refresh', { headers: { cookie: 'brineline_refresh=abc' } }],
+      ['GET', `/brief/${'a'.repeat(43)}`, {}],
+    ];
+    for (let i = 0; i < 6; i++) calls.push(['POST', '/api/auth/sign-in', { headers: json, body: JSON.stringify({ email: org.surveyor.email, password: 'wrong-password-1' }) }]);
+    for (const [method, path, init] of calls) {
+      const res = await fetch(`${t.url}${path}`, { method, ...init });
+      const text = await res.text();
+      expect(res.status, `${method} ${path}: ${text}`).toBe(503);
+      if (path.startsWith('/api')) expect(ErrorBodySchema.parse(JSON.parse(text)).error.code).toBe('db_unavailable');
+    }
+    expect((await fetch(`${t.url}/api/health`)).status).toBe(503);
+
+    // Back up: the six failed attempts above were not held against the person.
+    up = true;
+    const res = await fetch(`${t.url}/api/auth/sign-in`, { method: 'POST', headers: json, body: JSON.stringify({ email: org.surveyor.email, password: TEST_PASSWORD }) });
+    expect(res.status).toBe(200);
+  });
+});
