@@ -14,7 +14,7 @@ import * as lz4Toast from './20261202000600_lz4_toast';
 import * as docsAsJson from './20261202000700_docs_as_json';
 import * as refreshSuccessors from './20261202000800_refresh_successors';
 import * as surveyFormatV2 from './20261203001500_survey_format_v2';
-import * as briefAcknowledgements from './20261203001700_brief_acknowledgements';
+import * as briefAcknowledgements from './20261203001750_brief_acknowledgements';
 
 const migrations: Record<string, Knex.Migration> = {
   '20261201000000_organisations_users': organisationsUsers,
@@ -27,7 +27,7 @@ const migrations: Record<string, Knex.Migration> = {
   '20261202000700_docs_as_json': docsAsJson,
   '20261202000800_refresh_successors': refreshSuccessors,
   '20261203001500_survey_format_v2': surveyFormatV2,
-  '20261203001700_brief_acknowledgements': briefAcknowledgements,
+  '20261203001750_brief_acknowledgements': briefAcknowledgements,
 };
 
 export const migrationSource: Knex.MigrationSource<string> = {
