@@ -15,8 +15,8 @@ import * as docsAsJson from './20261202000700_docs_as_json';
 import * as refreshSuccessors from './20261202000800_refresh_successors';
 import * as rateLimits from './20261203001300_rate_limits';
 import * as surveyFormatV2 from './20261203001500_survey_format_v2';
-import * as briefAcknowledgements from './20261203001700_brief_acknowledgements';
 import * as commentResolution from './20261203001700_comment_resolution';
+import * as briefAcknowledgements from './20261203001750_brief_acknowledgements';
 
 const migrations: Record<string, Knex.Migration> = {
   '20261201000000_organisations_users': organisationsUsers,
@@ -30,8 +30,8 @@ const migrations: Record<string, Knex.Migration> = {
   '20261202000800_refresh_successors': refreshSuccessors,
   '20261203001300_rate_limits': rateLimits,
   '20261203001500_survey_format_v2': surveyFormatV2,
-  '20261203001700_brief_acknowledgements': briefAcknowledgements,
   '20261203001700_comment_resolution': commentResolution,
+  '20261203001750_brief_acknowledgements': briefAcknowledgements,
 };
 
 export const migrationSource: Knex.MigrationSource<string> = {

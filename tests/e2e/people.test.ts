@@ -14,6 +14,7 @@ import { createDb, type Db } from '../../server/db/knex';
 import { demoSurvey } from '../../seeds/demo-survey';
 import { DEMO_SUBMITTED_SURVEY_ID } from '../../seeds/demo-survey';
 import { issueSecret } from '../../server/services/secrets';
+import { DEMO_ORG, DEMO_USERS } from '../../seeds/demo-people';
 
 const baseUrl = inject('baseUrl');
 const SURVEYOR = { email: 'ines.achterberg@skerrow.example', password: 'brine-surveyor-2026' };
@@ -134,10 +135,10 @@ describe.each(WIDTHS)('at %i px', (width) => {
   it('the master acknowledges the brief with no script, and the engineer sees it', async () => {
     // a link made as the desk makes one (token hashed), for the survey under review
     const { token, hash } = issueSecret();
-    const engineer = await db('users').where({ email: ENGINEER.email }).first('id', 'organisation_id');
+    const engineer = DEMO_USERS.find((u) => u.email === ENGINEER.email)!;
     await db('brief_links').insert({
       survey_id: DEMO_SUBMITTED_SURVEY_ID,
-      organisation_id: engineer.organisation_id,
+      organisation_id: DEMO_ORG.id,
       token_hash: hash,
       recipient_email: `master-${width}@lunga.example`,
       units: 'si',
