@@ -11,7 +11,7 @@
  */
 import { spawn, spawnSync, type ChildProcess } from 'node:child_process';
 import fs from 'node:fs';
-import { randomUUID } from 'node:crypto';
+import { randomBytes, randomUUID } from 'node:crypto';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import autocannon from 'autocannon';
@@ -45,7 +45,20 @@ async function startApp(env: Record<string, string>, port: number): Promise<Chil
   // With the young-generation size `npm start` gives the server (see DEVELOPERS.md).
   const proc = spawn(process.execPath, ['--max-semi-space-size=128', '--min-semi-space-size=64', '--import', 'tsx', 'server/index.ts'], {
     cwd: ROOT,
-    env: { ...process.env, ...env, PORT: String(port), LOG_LEVEL: 'silent', NODE_ENV: 'production', BCRYPT_COST: '12' },
+    // production settings (server/config.ts refuses development secrets and stores there); no photos are sent
+    env: {
+      ...process.env,
+      ...env,
+      PORT: String(port),
+      LOG_LEVEL: 'silent',
+      NODE_ENV: 'production',
+      BCRYPT_COST: '12',
+      JWT_SECRET: randomBytes(32).toString('base64url'),
+      PUBLIC_URL: `http://127.0.0.1:${port}`,
+      S3_ACCESS_KEY_ID: 'bench-key-id',
+      S3_SECRET_ACCESS_KEY: 'bench-secret-key',
+      DEV_MAIL_DIR: '',
+    },
     stdio: ['ignore', 'ignore', 'inherit'],
   });
   for (let i = 0; i < 300; i++) {

@@ -1,3 +1,4 @@
+import { randomBytes } from 'node:crypto';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { InvitationInfoSchema, MemberSchema, MembersResponseSchema, SessionResponseSchema } from '@shared/api/auth';
 import { DevMailListSchema, DevMailSchema } from '@shared/api/dev-mail';
@@ -209,7 +210,16 @@ describe('development mailbox', () => {
   });
 
   it('is not registered in production', async () => {
-    const prod = await startTestApp({ NODE_ENV: 'production', BCRYPT_COST: '12' });
+    // settings a production server accepts (server/config.ts refuses the development ones there)
+    const prod = await startTestApp({
+      NODE_ENV: 'production',
+      BCRYPT_COST: '12',
+      JWT_SECRET: randomBytes(32).toString('base64url'),
+      PUBLIC_URL: 'https://brineline.invalid',
+      S3_ACCESS_KEY_ID: 'production-key-id',
+      S3_SECRET_ACCESS_KEY: 'production-secret-key',
+      DEV_MAIL_DIR: '',
+    });
     try {
       expect(prod.app.locals.routes.some((r) => r.path.startsWith('/api/dev/'))).toBe(false);
       expect((await fetch(`${prod.url}/api/dev/mail`, { headers: authHeader(admin) })).status).toBe(404);

@@ -80,11 +80,12 @@ async function openInvitation(ctx: MatrixContext): Promise<string> {
 }
 
 /** A message in the catcher's folder addressed to a member of `ctx.org`. */
-function caughtMailFor(to: string): string {
+/** A caught message as the mail catcher writes it, sent by `orgId` (the dev mailbox shows a firm only its own mail). */
+function caughtMailFor(to: string, orgId: string): string {
   const id = randomUUID();
   const dir = inject('testEnv').DEV_MAIL_DIR;
   fs.mkdirSync(dir, { recursive: true });
-  const mail = { id, receivedAt: new Date().toISOString(), from: 'Brineline <no-reply@brineline.invalid>', to: [to], subject: 'Matrix', text: 'x', html: '<p>x</p>' };
+  const mail = { id, receivedAt: new Date().toISOString(), from: 'Brineline <no-reply@brineline.invalid>', to: [to], subject: 'Matrix', text: 'x', html: '<p>x</p>', organisationId: orgId };
   fs.writeFileSync(path.join(dir, `${Date.now()}-${id}.json`), JSON.stringify(mail));
   return id;
 }
@@ -144,7 +145,7 @@ export const routeCases: Record<string, RouteCase> = {
     expect: adminOnlyObject(200),
   },
   'GET /api/dev/mail': { expect: adminOnly(200) },
-  'GET /api/dev/mail/:id': { setup: async ({ org }) => ({ params: { id: caughtMailFor(org.surveyor.email) } }), expect: adminOnlyObject(200) },
+  'GET /api/dev/mail/:id': { setup: async ({ org }) => ({ params: { id: caughtMailFor(org.surveyor.email, org.id) } }), expect: adminOnlyObject(200) },
 
   // ---- surveys and sync (issue #5) ----
   'GET /api/surveys': { expect: anyMember(200) },

@@ -8,14 +8,24 @@ import { ROOT } from './stack';
 export const CHROMIUM = '/usr/bin/chromium';
 export const SCREENSHOT_DIR = path.join(ROOT, 'test-results', 'screenshots');
 
-/** Installs Debian's chromium package when it is missing (as root), else explains what to do. */
+/**
+ * Debian's packages the browser tests use: Chromium, and poppler-utils (pdfinfo, pdftotext) to read
+ * a printed PDF as a reader would. Installs what is missing (as root), else explains what to do.
+ */
+const PACKAGES: readonly { bin: string; pkg: string }[] = [
+  { bin: CHROMIUM, pkg: 'chromium' },
+  { bin: '/usr/bin/pdftotext', pkg: 'poppler-utils' },
+];
+
 export function ensureChromium(): void {
-  if (fs.existsSync(CHROMIUM)) return;
-  if (process.getuid?.() !== 0) throw new Error('Chromium is missing: install it with `sudo apt-get install -y chromium`.');
+  const missing = PACKAGES.filter((p) => !fs.existsSync(p.bin));
+  if (missing.length === 0) return;
+  const names = missing.map((p) => p.pkg);
+  if (process.getuid?.() !== 0) throw new Error(`Missing Debian packages: install them with \`sudo apt-get install -y ${names.join(' ')}\`.`);
   const env = { ...process.env, DEBIAN_FRONTEND: 'noninteractive' };
   spawnSync('apt-get', ['update', '-qq'], { stdio: 'inherit', env });
-  const res = spawnSync('apt-get', ['install', '-y', '-qq', 'chromium'], { stdio: 'inherit', env });
-  if (res.status !== 0 || !fs.existsSync(CHROMIUM)) throw new Error('apt-get could not install chromium.');
+  const res = spawnSync('apt-get', ['install', '-y', '-qq', ...names], { stdio: 'inherit', env });
+  if (res.status !== 0 || missing.some((p) => !fs.existsSync(p.bin))) throw new Error(`apt-get could not install ${names.join(' ')}.`);
 }
 
 export function launchBrowser(): Promise<Browser> {
