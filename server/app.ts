@@ -87,7 +87,7 @@ export function createApp(given: AppDeps): BrinelineApp {
     res.setHeader('Cache-Control', 'no-store');
     next();
   });
-  api.use(jsonBody({ limit: '5mb', nulCheckedPerItem: ['/sync/push'] }));
+  api.use(jsonBody({ limit: '5mb' }));
   // JSON answers above 1 KB go gzip- or brotli-compressed when the client accepts it (a survey read is
   // tens of KB; an answer of a few bytes gains nothing from a compression header)
   api.use(compression({ threshold: API_COMPRESSION_THRESHOLD_BYTES }));

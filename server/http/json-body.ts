@@ -56,12 +56,7 @@ function nulPaths(value: unknown, path: (string | number)[] = [], out: string[] 
   return out;
 }
 
-/**
- * `nulCheckedPerItem`: paths (below the router's mount) whose handler validates each item on its own
- * and refuses a NUL there, such as the sync push: one bad change in a device's outbox must be refused
- * alone, never block the edits queued behind it.
- */
-export function jsonBody(opts: { limit: string; nulCheckedPerItem?: readonly string[] }): RequestHandler[] {
+export function jsonBody(opts: { limit: string }): RequestHandler[] {
   const parse = express.json({
     limit: opts.limit,
     verify: (req, _res, buf) => {
@@ -74,7 +69,7 @@ export function jsonBody(opts: { limit: string; nulCheckedPerItem?: readonly str
     if (scan.tooDeep) {
       return next(badRequest(`The request body nests more than ${MAX_JSON_DEPTH} levels deep.`));
     }
-    if (scan.hasNul && !opts.nulCheckedPerItem?.includes(req.path)) {
+    if (scan.hasNul) {
       const paths = nulPaths(req.body);
       if (paths.length) {
         const message = 'must not contain the NUL character (U+0000)';

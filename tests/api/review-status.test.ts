@@ -109,7 +109,7 @@ describe('status rules', () => {
     expect((await move(tokens.engineer!, s.id, 'in_review')).status).toBe(200);
     const own = await move(tokens.engineer!, s.id, 'accepted');
     expect(own.status).toBe(403);
-    expect(own.body.error.message).toMatch(/other than the person who sent it/);
+    expect(own.body.error.message).toMatch(/has not made, edited or sent this survey/);
     // Returning it is still allowed: an engineer may pull back their own work.
     expect((await move(tokens.engineer!, s.id, 'returned', 'I sent it too early.')).status).toBe(200);
   });

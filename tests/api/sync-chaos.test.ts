@@ -62,7 +62,12 @@ async function startLossyProxy(target: string, random: () => number): Promise<Lo
           counts.duplicated++;
           answer = await forward(req, body); // the same request delivered twice
         } else counts.passed++;
-        res.writeHead(answer.status, { 'content-type': String(answer.headers['content-type'] ?? 'application/json') });
+        // the body as the server sent it, so its encoding goes with it (API JSON is compressed)
+        const encoding = answer.headers['content-encoding'];
+        res.writeHead(answer.status, {
+          'content-type': String(answer.headers['content-type'] ?? 'application/json'),
+          ...(encoding ? { 'content-encoding': String(encoding) } : {}),
+        });
         res.end(answer.body);
       } catch {
         req.socket.destroy();
