@@ -153,6 +153,24 @@ export function Workspace({ surveyId }: { surveyId: string }) {
         <ExportButton survey={survey} />
         <ReportButton surveyId={surveyId} />
       </div>
+      {/* Right under the title, so every section is in the first screen on a phone: rows of four there,
+          one scrollable strip from 640 px (not sticky: the app header already is). */}
+      <nav aria-label="Workspace sections" className="mt-2 border-b-2 border-line bg-paper px-1 sm:overflow-x-auto sm:px-4">
+        <ul className="grid grid-cols-4 gap-1 sm:flex sm:min-w-max">
+          {SECTIONS.map((s) => (
+            <li key={s.id}>
+              <button
+                type="button"
+                onClick={() => go(s.id)}
+                aria-current={s.id === section ? 'page' : undefined}
+                className={`min-h-touch w-full rounded-t-md px-1 font-bold sm:px-3 ${s.id === section ? 'bg-hull text-paper' : 'text-hull hover:bg-sea-soft'}`}
+              >
+                {s.label}
+              </button>
+            </li>
+          ))}
+        </ul>
+      </nav>
       <StateStrip results={results} rows={rows} error={error} system={system} onOpen={() => go('loads')} />
       <div className="mx-3 mt-2 sm:mx-5">
         <SurveyReviewBar surveyId={surveyId} survey={survey} />
