@@ -199,6 +199,8 @@ async function startDeployProxy(target: string) {
       // Ask for the whole file, so the changed one is what the browser compares.
       delete req.headers['if-none-match'];
       delete req.headers['if-modified-since'];
+      // …uncompressed, so "build 2" can be appended (static files are served pre-compressed).
+      delete req.headers['accept-encoding'];
     }
     const up = http.request(
       // The Host header stays the proxy's, so the app's same-origin check sees one origin, as in production behind a proxy.
