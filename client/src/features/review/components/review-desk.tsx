@@ -93,7 +93,7 @@ export function ReviewDesk({ surveyId }: { surveyId: string }) {
       type="button"
       role="tab"
       aria-selected={tab === t}
-      className={`min-h-touch rounded-t-lg px-4 font-bold ${tab === t ? 'bg-card text-ink shadow' : 'text-ink-soft underline'}`}
+      className={`min-h-touch rounded-t-lg px-3 font-bold sm:px-4 ${tab === t ? 'bg-card text-ink shadow' : 'text-ink-soft underline'}`}
       onClick={() => setTab(t)}
     >
       {label}
@@ -136,7 +136,7 @@ export function ReviewDesk({ surveyId }: { surveyId: string }) {
       <div className="mt-3 grid gap-4 lg:grid-cols-[minmax(0,3fr)_minmax(20rem,2fr)]">
         <div className="min-w-0 space-y-3">
           <NumbersCheck device={device} server={server} agreement={agreement} serverRevision={r.serverComputedRevision} revision={r.revision} system={system} />
-          <div role="tablist" aria-label="Survey views" className="flex gap-1 border-b border-line">
+          <div role="tablist" aria-label="Survey views" className="flex flex-wrap gap-1 border-b border-line">
             {tabBtn('results', 'Results')}
             {tabBtn('model', '3D model')}
             {tabBtn('forecast', 'Forecast')}
