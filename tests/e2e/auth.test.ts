@@ -99,6 +99,8 @@ describe('sign-in', () => {
     await page.waitForURL(`${baseUrl}/surveys`);
     // The device's refresh reaches the server, which rotates the token, but the answer (with the new
     // cookie) never reaches the device: sent here from outside the browser, which keeps its cookie.
+    // (the cookie store can lag the navigation on a busy host: wait for it)
+    await expect.poll(async () => (await ctx.cookies()).some((c) => c.name === 'brineline_refresh'), { timeout: 15_000 }).toBe(true);
     const held = (await ctx.cookies()).find((c) => c.name === 'brineline_refresh');
     expect(held).toBeTruthy();
     const rotated = await fetch(`${baseUrl}/api/auth/refresh`, { method: 'POST', headers: { cookie: `${held!.name}=${held!.value}` } });
