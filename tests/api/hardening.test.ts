@@ -6,11 +6,12 @@
 import { randomUUID } from 'node:crypto';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { DevMailListSchema } from '@shared/api/dev-mail';
-import { startTestApp, type TestApp } from '../support/app';
-import { authHeader, createOrgWithMembers, type TestOrg } from '../support/auth';
+import type { TestApp } from '../support/app';
+import { authHeader, type TestOrg } from '../support/auth';
 import { waitForMail } from '../support/mail';
-import { change, storeSurvey, tokenFor } from '../support/surveys';
+import { change, storeSurvey } from '../support/surveys';
 import { surveyInStatus } from '../support/review';
+import { startWithTwoFirms } from '../support/two-firms';
 
 let t: TestApp;
 let org: TestOrg;
@@ -18,12 +19,9 @@ let other: TestOrg;
 const tok: Record<string, string> = {};
 
 beforeAll(async () => {
-  t = await startTestApp();
-  org = await createOrgWithMembers(t.db);
-  other = await createOrgWithMembers(t.db);
-  for (const role of ['admin', 'engineer', 'surveyor'] as const) tok[role] = await tokenFor(t.config.JWT_SECRET, org.members[role]);
-  tok.otherAdmin = await tokenFor(t.config.JWT_SECRET, other.admin);
-  tok.otherEngineer = await tokenFor(t.config.JWT_SECRET, other.engineer);
+  const firms = await startWithTwoFirms();
+  ({ t, org, other } = firms);
+  Object.assign(tok, firms.tok);
 });
 afterAll(async () => {
   await t?.close();

@@ -2,22 +2,20 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { randomUUID } from 'node:crypto';
 import type { QueueItem, ReviewNotes } from '@shared/api/review';
-import { startTestApp, type TestApp } from '../support/app';
-import { authHeader, createOrgWithMembers, type TestOrg } from '../support/auth';
-import { change, tokenFor } from '../support/surveys';
+import type { TestApp } from '../support/app';
+import { authHeader, type TestOrg } from '../support/auth';
+import { change } from '../support/surveys';
 import { surveyInStatus } from '../support/review';
+import { startWithTwoFirms } from '../support/two-firms';
 
 let t: TestApp;
 let org: TestOrg;
-let other: TestOrg;
 const tok: Record<string, string> = {};
 
 beforeAll(async () => {
-  t = await startTestApp();
-  org = await createOrgWithMembers(t.db);
-  other = await createOrgWithMembers(t.db);
-  for (const role of ['admin', 'engineer', 'surveyor'] as const) tok[role] = await tokenFor(t.config.JWT_SECRET, org.members[role]);
-  tok.other = await tokenFor(t.config.JWT_SECRET, other.engineer);
+  const firms = await startWithTwoFirms();
+  ({ t, org } = firms);
+  Object.assign(tok, firms.tok, { other: firms.tok.otherEngineer });
 });
 afterAll(async () => {
   await t?.close();
