@@ -10,7 +10,7 @@ import { CAUTIONS } from '@shared/api/cautions';
 import { catalogueFluid } from '@shared/fluids/catalogue';
 import { DEFAULT_PERMEABILITY } from '@shared/schemas/space-types';
 import { STATUS_LABELS, type SurveyStatus } from '@shared/review/status';
-import { formatNumber, formatQuantity, type Dimension, type UnitSystem } from '@shared/units/units';
+import { formatNumber, formatQuantity, formatStress, type Dimension, type UnitSystem } from '@shared/units/units';
 import { boundaryVerdictLabel, boundaryVerdictMeaning, describeLimit, namesFromSurvey, surveyVerdictLabel } from '@shared/review/words';
 import { figureNotes, figureNoteSentence } from '@shared/review/assumptions';
 import { boundaryKindWords, SPACE_TYPE_WORDS } from '@shared/review/plain-words';
@@ -103,7 +103,7 @@ function extentWords(c: Compartment, q: (v: number, d: Dimension) => string): st
 export function renderReport(d: ReportData): string {
   const q = (v: number, dim: Dimension, digits = 4) => formatQuantity(v, dim, d.units, digits).text;
   // stresses in the unit the forms take them in (MPa or ksi), not as a pressure in kPa
-  const stress = (pa: number) => (d.units === 'us' ? `${formatNumber(pa / 6894757.293168, 4)} ksi` : `${formatNumber(pa / 1e6, 4)} MPa`);
+  const stress = (pa: number) => formatStress(pa, d.units);
   const doc = d.doc;
   const r = d.results;
   const names = namesFromSurvey(doc);

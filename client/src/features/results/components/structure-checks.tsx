@@ -3,7 +3,7 @@
  * the plating between stiffeners, with what the model assumes said in words.
  */
 import type { BoundaryResult } from '@shared/engine';
-import { INCH_M, type UnitSystem } from '@shared/units/units';
+import { INCH_M, STRESS_UNIT, formatStress, type UnitSystem } from '@shared/units/units';
 import { fmt, num, percent, unitLabel } from '@client/lib/unit-system';
 import { UtilisationBadge } from './utilisation';
 
@@ -94,7 +94,7 @@ export function StructureChecks({ boundary: b, system }: { boundary: BoundaryRes
                 <th className="p-1.5">Panel</th>
                 <th className={th}>Long × short side ({u('length')})</th>
                 <th className={th}>Net pressure, least–greatest ({u('pressure')})</th>
-                <th className={th}>Bending stress ({u('pressure')})</th>
+                <th className={th}>Bending stress ({STRESS_UNIT[system]})</th>
                 <th className="p-1.5">Utilisation</th>
               </tr>
             </thead>
@@ -108,7 +108,7 @@ export function StructureChecks({ boundary: b, system }: { boundary: BoundaryRes
                   <td className={td}>
                     {num(p.pressureMinPa, 'pressure', system)} – {num(p.pressureMaxPa, 'pressure', system)}
                   </td>
-                  <td className={td}>{num(p.stressPa, 'pressure', system)}</td>
+                  <td className={td}>{formatStress(p.stressPa, system, 4, false)}</td>
                   <UtilCell value={p.utilisation} />
                 </tr>
               ))}
