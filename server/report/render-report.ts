@@ -10,12 +10,12 @@ import { CAUTIONS } from '@shared/api/cautions';
 import { catalogueFluid } from '@shared/fluids/catalogue';
 import { defaultPermeability } from '@shared/schemas/space-types';
 import { STATUS_LABELS, type SurveyStatus } from '@shared/review/status';
-import { formatNumber, formatQuantity, type Dimension, type UnitSystem } from '@shared/units/units';
+import { formatNumber, formatQuantity, formatStress, type Dimension, type UnitSystem } from '@shared/units/units';
 import { boundaryVerdictLabel, boundaryVerdictMeaning, describeLimit, namesFromSurvey, surveyVerdictLabel } from '@shared/review/words';
 import { figureNotes, figureNoteSentence } from '@shared/review/assumptions';
 import { boundaryKindWords, SPACE_TYPE_WORDS } from '@shared/review/plain-words';
 import { formatShipAndUtc, formatUtc } from '@shared/review/time-words';
-import { structureCheckRows, stressWords } from '@shared/review/structure-rows';
+import { structureCheckRows } from '@shared/review/structure-rows';
 import { pointWords } from '@shared/units/point-words';
 import { html, type SafeHtml } from '../brief/html';
 
@@ -110,7 +110,7 @@ function extentWords(c: Compartment, q: (v: number, d: Dimension) => string): st
 export function renderReport(d: ReportData): string {
   const q = (v: number, dim: Dimension, digits = 4) => formatQuantity(v, dim, d.units, digits).text;
   // stresses in the unit the forms take them in (MPa or ksi), not as a pressure in kPa
-  const stress = (pa: number) => stressWords(pa, d.units, 4);
+  const stress = (pa: number) => formatStress(pa, d.units);
   const doc = d.doc;
   const r = d.results;
   const names = namesFromSurvey(doc);

@@ -15,6 +15,7 @@ import { newId } from '../utils/new-entities';
 import { withMark, type FigureMark } from '@shared/schemas/marks';
 import { MarkChip } from './mark-chip';
 import { facetOrientation, reverseFacets } from '@shared/engine';
+import { END_CONDITION_WORDS } from '@shared/review/plain-words';
 
 /** The chip under one of the plate's figures, kept in the form's `marks` value. */
 function PlateMark({ form, field, filled = true }: { form: UseFormReturn<BoundaryForm, unknown, Boundary>; field: string; filled?: boolean }) {
@@ -447,12 +448,7 @@ function ShoreFields({ form, system }: { form: UseFormReturn<BoundaryForm, unkno
               name={`shores.${i}.end`}
               label="Ends"
               errors={{}}
-              options={[
-                { value: 'pinned-pinned', label: 'Pinned both ends' },
-                { value: 'fixed-pinned', label: 'Fixed one end, pinned other' },
-                { value: 'fixed-fixed', label: 'Fixed both ends' },
-                { value: 'fixed-free', label: 'Fixed one end, free other' },
-              ]}
+              options={Object.entries(END_CONDITION_WORDS).map(([value, words]) => ({ value, label: words[0]!.toUpperCase() + words.slice(1) }))}
             />
             <SelectInput
               register={register}
