@@ -17,6 +17,7 @@ import * as rateLimits from './20261203001300_rate_limits';
 import * as surveyFormatV2 from './20261203001500_survey_format_v2';
 import * as commentResolution from './20261203001700_comment_resolution';
 import * as briefAcknowledgements from './20261203001750_brief_acknowledgements';
+import * as changedSinceReview from './20261204000100_changed_since_review';
 
 const migrations: Record<string, Knex.Migration> = {
   '20261201000000_organisations_users': organisationsUsers,
@@ -32,6 +33,7 @@ const migrations: Record<string, Knex.Migration> = {
   '20261203001500_survey_format_v2': surveyFormatV2,
   '20261203001700_comment_resolution': commentResolution,
   '20261203001750_brief_acknowledgements': briefAcknowledgements,
+  '20261204000100_changed_since_review': changedSinceReview,
 };
 
 export const migrationSource: Knex.MigrationSource<string> = {
