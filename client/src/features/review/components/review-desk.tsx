@@ -29,6 +29,7 @@ import { StatusActions } from './status-actions';
 import { ReportButton } from '@client/components/report/report-button';
 import { formatShipAndUtc } from '@shared/review/time-words';
 import { FigureNotesPanel } from './figure-notes-panel';
+import { SinceReviewPanel } from './since-review-panel';
 import { VerdictPanel } from './verdict-panel';
 import { ReviewModel3d } from './review-model3d';
 import { ResultInputs, SpaceInputLinks, SurveyInputs, type InputTarget } from '@client/features/survey-inputs/components/survey-inputs';
@@ -85,7 +86,8 @@ export function ReviewDesk({ surveyId }: { surveyId: string }) {
 
   const shown = server ?? device.results;
   const editable = r.viewer.role === 'engineer' && REVIEWABLE_STATUSES.includes(r.status);
-  const isSubmitter = r.submittedById === r.viewer.userId;
+  // the own-work rule as the server applies it: made, edited or sent at any revision
+  const isSubmitter = r.viewerWorkedOn || r.submittedById === r.viewer.userId;
   // the detail of the boundary opened: the server's stored figures, with the load diagram this device computes on demand
   const stored = shown?.boundaries.find((b) => b.id === selected) ?? null;
   const diagram = stored && doc ? computeBoundaryDetail(doc, stored.id, { conditionId: shown?.conditionId })?.loadDiagram : undefined;
@@ -127,6 +129,7 @@ export function ReviewDesk({ surveyId }: { surveyId: string }) {
         />
         <ReportButton surveyId={surveyId} className="ml-auto" />
       </div>
+      {r.sinceReview && <SinceReviewPanel since={r.sinceReview} revision={r.revision} system={system} />}
       <FigureNotesPanel doc={doc} />
       <nav aria-label="On this page" className="mt-2 flex flex-wrap gap-x-4 text-sm font-bold lg:hidden">
         {[

@@ -27,6 +27,7 @@ const STATUS_LABEL: Record<SurveyStatus, string> = {
   in_review: 'In review',
   accepted: 'Accepted',
   returned: 'Returned',
+  changed_since_review: 'Changed since review',
 };
 
 interface Row {
