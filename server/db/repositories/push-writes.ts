@@ -177,6 +177,12 @@ export interface RunWrites {
   processed: ProcessedRow[];
   survey?: { id: string; columns: SurveyColumns; docJson?: string };
   onlyAtRevision?: number;
+  /**
+   * With `onlyAtRevision`: the review status the run was planned with. A status move does not change
+   * the revision, and a run planned from a remembered state must not go ahead after one made by
+   * another request or instance.
+   */
+  onlyAtStatus?: SurveyStatus;
   /** With `onlyAtRevision`: the organisation the survey must belong to. */
   orgId?: string;
   /** With `onlyAtRevision`: write only while this caller is an active member with one of these roles. */
@@ -192,7 +198,7 @@ function runWritesSql(guarded: boolean): string {
   const when = guarded ? ' AND EXISTS (SELECT 1 FROM g)' : '';
   return `WITH g AS (
          SELECT id FROM surveys
-          WHERE id = ? AND organisation_id = ? AND revision = ?
+          WHERE id = ? AND organisation_id = ? AND revision = ? AND (?::text IS NULL OR status = ?::text)
             AND (?::uuid IS NULL OR EXISTS (SELECT 1 FROM memberships m WHERE m.user_id = ? AND m.organisation_id = ?
                                               AND m.status = 'active' AND m.role = ANY(?::text[])
                                               AND NOT EXISTS (SELECT 1 FROM refresh_tokens t
@@ -229,6 +235,8 @@ function runWritesParams(w: RunWrites, guarded: boolean): Knex.RawBinding[] {
     guarded ? surveyId : null,
     guarded ? (w.orgId ?? null) : null,
     w.onlyAtRevision ?? null,
+    w.onlyAtStatus ?? null,
+    w.onlyAtStatus ?? null,
     w.member?.userId ?? null,
     w.member?.userId ?? null,
     w.member?.orgId ?? null,
