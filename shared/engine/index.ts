@@ -55,3 +55,4 @@ export {
 } from './flooding';
 export { soundingEvidence, type SoundingEvidence } from './flooding-soundings';
 export { ATTITUDE_STEP_M, conditionAtPredictedAttitude, type DownfloodingForecast } from './flooding-attitude';
+export { dormandPrince, rosenbrock23, type Linearisation } from './flooding-ode';
