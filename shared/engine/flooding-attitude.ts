@@ -10,9 +10,12 @@
  * contents (no motion), as in the texts' step-by-step treatment of flooding.
  *
  * With readings of drafts and heel the forecast starts from them and adds the CHANGE the response
- * predicts (predicted now minus predicted at the readings), so an offset the model does not explain
- * (a grounding, unknown water) stays as read instead of jumping away at the first step. Without
- * particulars the attitude is held at the readings, and the forecast says so.
+ * predicts, so what the model does not explain (a grounding, unknown water) stays as read instead of
+ * jumping away at the first step: the drafts by the predicted change at the marks (the unexplained
+ * weight and trimming moment held), the heel by holding the unexplained heeling moment, i.e.
+ * tan φ(t) = tan φ_model(t) + (tan φ_read − tan φ_model(0)) · Δ₀GM₀ / (Δ(t)·GM(t)) (GM fluid;
+ * the angle itself is held when GM is not positive). Without particulars the attitude is held at
+ * the readings, and the forecast says so.
  */
 import type { Condition, Contents, Survey, Vessel } from '../schemas/survey';
 import { earthFrame } from './frame';
@@ -130,33 +133,48 @@ export interface AttitudeCoupling {
   basis: 'readings' | 'prediction';
 }
 
-const shifted = (a: ShipAttitude, d: { aft: number; fore: number; heel: number }, vessel: Vessel): ShipAttitude => {
+interface Offset {
+  aft: number;
+  fore: number;
+  /** tan φ read − tan φ predicted at the readings */
+  tanHeel: number;
+  /** Δ·GM fluid at the readings, kg·m (≤ 0: the angle is held instead of the moment) */
+  stiffness: number;
+}
+
+const tanDeg = (deg: number) => Math.tan((deg * Math.PI) / 180);
+
+const shifted = (r: ShipResponse, d: Offset, vessel: Vessel): ShipAttitude => {
+  const a = r.attitude;
   const aft = a.draftAftM + d.aft, fore = a.draftForeM + d.fore;
+  const stiffness = r.displacementKg * r.gmFluidM;
+  const tanHeel = tanDeg(a.heelDeg) + (d.stiffness > 0 && stiffness > 0 ? (d.tanHeel * d.stiffness) / stiffness : d.tanHeel);
   const { aftXM, forwardXM } = vessel.draughtMarks;
   const slope = forwardXM !== aftXM ? (fore - aft) / (forwardXM - aftXM) : 0;
   const at = (x: number) => aft + slope * (x - aftXM);
-  return { heelDeg: a.heelDeg + d.heel, draftAftM: aft, draftForeM: fore, trimM: at(0) - at(vessel.lbpM), meanDraftM: at(vessel.lbpM / 2) };
+  return { heelDeg: (Math.atan(tanHeel) * 180) / Math.PI, draftAftM: aft, draftForeM: fore, trimM: at(0) - at(vessel.lbpM), meanDraftM: at(vessel.lbpM / 2) };
 };
 
 /** Largest movement between two attitudes at the marks and the ship's side, m. */
 function attitudeMove(a: ShipAttitude, b: ShipAttitude, halfBreadthM: number): number {
-  const tan = (deg: number) => Math.tan((deg * Math.PI) / 180);
-  return Math.max(Math.abs(a.draftAftM - b.draftAftM), Math.abs(a.draftForeM - b.draftForeM), halfBreadthM * Math.abs(tan(a.heelDeg) - tan(b.heelDeg)));
+  return Math.max(Math.abs(a.draftAftM - b.draftAftM), Math.abs(a.draftForeM - b.draftForeM), halfBreadthM * Math.abs(tanDeg(a.heelDeg) - tanDeg(b.heelDeg)));
 }
 
 /** The coupling of a forecast's condition, or null when the condition has no hydrostatic particulars. */
 export function attitudeCoupling(survey: Survey, condition: Condition, results0: Pick<SurveyResults, 'compartments'>): AttitudeCoupling | null {
   if (!intactShip(survey, condition)) return null;
   const measured = measuredAttitude(survey, condition);
-  let offset: { aft: number; fore: number; heel: number } | null = null;
+  let offset: Offset | null = null;
   let current: ShipAttitude | null = measured;
   return {
     basis: measured ? 'readings' : 'prediction',
     update(model, y) {
       const response = responseFromWeights(survey, condition, weightsOfState(survey, model, y))!;
       const p = response.attitude;
-      offset ??= measured ? { aft: measured.draftAftM - p.draftAftM, fore: measured.draftForeM - p.draftForeM, heel: measured.heelDeg - p.heelDeg } : { aft: 0, fore: 0, heel: 0 };
-      const attitude = shifted(p, offset, survey.vessel);
+      offset ??= measured
+        ? { aft: measured.draftAftM - p.draftAftM, fore: measured.draftForeM - p.draftForeM, tanHeel: tanDeg(measured.heelDeg) - tanDeg(p.heelDeg), stiffness: response.displacementKg * response.gmFluidM }
+        : { aft: 0, fore: 0, tanHeel: 0, stiffness: 0 };
+      const attitude = shifted(response, offset, survey.vessel);
       const at = conditionAtAttitude(condition, attitude);
       if (current && attitudeMove(current, attitude, survey.vessel.breadthM / 2) <= ATTITUDE_STEP_M) {
         return { model, y, reframed: false, attitude: current, condition: conditionAtAttitude(condition, current), response };
