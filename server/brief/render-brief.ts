@@ -18,6 +18,7 @@ import {
   verdictSeverity,
 } from '@shared/review/words';
 import { formatShipAndUtc } from '@shared/review/time-words';
+import { downfloodingSentences, forecastAttitudeWords } from '@shared/review/forecast-words';
 import { boundaryKindWords } from '@shared/review/plain-words';
 import { figureNotes, figureNoteSentence } from '@shared/review/assumptions';
 import { measurableLimit } from '@shared/review/measurable-limits';
@@ -94,7 +95,7 @@ function sideLabel(results: SurveyResults, side: BoundaryResult['sideA']): strin
 }
 
 /** The nearest time-to-limit in plain words, with what it assumes (null when no forecast can be run). */
-export function nearestLimitWords(doc: Survey): { sentence: string; assumptions: string } | null {
+export function nearestLimitWords(doc: Survey): { sentence: string; assumptions: string; downflooding: string[]; attitude: string } | null {
   const utc = (iso: string | null) => formatShipAndUtc(iso, doc.vessel.shipTimeOffsetMin);
   let f;
   try {
@@ -110,7 +111,7 @@ export function nearestLimitWords(doc: Survey): { sentence: string; assumptions:
       ? `${first.name} is already past its limit.`
       : `${first.name} is expected to reach its limit at ${utc(new Date(Date.parse(f.readingsTime) + first.atS * 1000).toISOString())}, ${hmm(first.atS)} (h:mm) after the soundings.`;
   const assumptions = `This assumes the breaches, openings, pumps and pumping plan stay as entered, and ${f.attitude.note.charAt(0).toLowerCase()}${f.attitude.note.slice(1)} ${FORECAST_CAUTION} It rests on readings of ${utc(f.latestReadingTime)}.`;
-  return { sentence, assumptions };
+  return { sentence, assumptions, downflooding: downfloodingSentences(f, doc.vessel.shipTimeOffsetMin), attitude: forecastAttitudeWords(f) };
 }
 
 export function renderBriefPage(d: BriefPageData, opts: { ackError?: string } = {}): string {
@@ -222,7 +223,8 @@ ${response.warnings.length ? html`<ul>${response.warnings.map((w) => html`<li cl
 ${nearestLimit ? html`<section aria-labelledby="h-nearest">
   <h2 id="h-nearest">Time to the nearest limit</h2>
   <p><strong>${nearestLimit.sentence}</strong></p>
-  <p class="muted">${nearestLimit.assumptions}</p>
+  ${nearestLimit.downflooding.length ? html`<ul>${nearestLimit.downflooding.map((t) => html`<li><strong>${t}</strong></li>`)}</ul>` : ''}
+  <p class="muted">${nearestLimit.attitude}: ${nearestLimit.assumptions}</p>
 </section>` : ''}
 <section aria-labelledby="h-flooded">
   <h2 id="h-flooded">What is flooded</h2>
