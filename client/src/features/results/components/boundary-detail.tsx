@@ -43,7 +43,7 @@ export function BoundaryDetail({ boundary: b, results, system }: { boundary: Bou
             <Row label="Centre of pressure" value={pointWords(b.net.centreOfPressure, system)} testId="detail-cop" />
           )}
           {b.net.centreOfPressureAboveLowestM !== null && (
-            <Row label="Centre of pressure above the plate's lowest point" value={fmt(b.net.centreOfPressureAboveLowestM, 'length', system, 3)} />
+            <Row label="Centre of pressure above the boundary’s lowest point" value={fmt(b.net.centreOfPressureAboveLowestM, 'length', system, 3)} />
           )}
           <Row label="Peak net pressure" value={fmt(b.net.peak.pressurePa, 'pressure', system)} />
           <Row label="Peak acts at" value={pointWords(b.net.peak.point, system)} />

@@ -20,6 +20,7 @@ import { num, unitLabel } from '@client/lib/unit-system';
 import { UtilisationBadge } from './utilisation';
 import { pointWords } from '@shared/units/point-words';
 import { sideName } from './side-name';
+import { countWords } from '@shared/review/plain-words';
 
 const col = createColumnHelper<BoundarySummary>();
 
@@ -117,7 +118,7 @@ export function BoundaryResultsTable({
       className={`overflow-x-auto rounded-lg border border-line bg-card ${virtual ? 'max-h-[70vh] overflow-y-auto' : ''}`}
       tabIndex={0}
       role="region"
-      aria-label={virtual ? `Loads on ${rows.length} plates (scrolls)` : 'Loads on each plate (scrolls sideways)'}
+      aria-label={virtual ? `Loads on ${countWords(rows.length, 'boundary', 'boundaries')} (scrolls)` : 'Loads on each boundary (scrolls sideways)'}
     >
       <table className="w-full min-w-[36rem] border-collapse text-left" data-testid="boundary-results">
         <thead className="bg-sea-soft">

@@ -71,7 +71,7 @@ export function BoundaryEditor({ boundary, survey, apply, system }: { boundary: 
           name="parent"
           label="Set in (door or hatch)"
           errors={{ parent: errorAt(e, 'parentBoundaryId') }}
-          options={[{ value: '', label: 'Not set in another plate' }, ...parents.map((b) => ({ value: b.id, label: b.name }))]}
+          options={[{ value: '', label: 'Not set in another boundary' }, ...parents.map((b) => ({ value: b.id, label: b.name }))]}
         />
       </div>
       <div className="grid grid-cols-2 gap-3">
@@ -95,8 +95,8 @@ export function BoundaryEditor({ boundary, survey, apply, system }: { boundary: 
               label="Side A lies"
               errors={{}}
               options={[
-                { value: 'low', label: `${words.low} of the plate` },
-                { value: 'high', label: `${words.high} of the plate` },
+                { value: 'low', label: `${words.low} the boundary` },
+                { value: 'high', label: `${words.high} the boundary` },
               ]}
             />
           </div>
@@ -168,7 +168,7 @@ export function BoundaryEditor({ boundary, survey, apply, system }: { boundary: 
           />
           <NumberInput register={register} name="stSpacing" label="Spacing" unit={lu} errors={{ stSpacing: errorAt(e, 'stiffening.spacingM') }} />
           <NumberInput register={register} name="stFirst" label="First from edge" unit={lu} errors={{ stFirst: errorAt(e, 'stiffening.firstOffsetM') }} hint="empty: one spacing" />
-          <NumberInput register={register} name="stSpan" label="Span" unit={lu} errors={{ stSpan: errorAt(e, 'stiffening.spanM') }} hint="empty: across the plate" />
+          <NumberInput register={register} name="stSpan" label="Span" unit={lu} errors={{ stSpan: errorAt(e, 'stiffening.spanM') }} hint="empty: across the boundary" />
           <SelectInput
             register={register}
             name="stFix"
@@ -326,7 +326,7 @@ function ShoreFields({ form, system }: { form: UseFormReturn<BoundaryForm, unkno
                 { value: 'A', label: 'A' },
               ]}
             />
-            <NumberInput register={register} name={`shores.${i}.angle`} label="Angle from square" unit="°" errors={{ shores: { [i]: { angle: err(i, 'angleFromNormalDeg') } } }} hint="empty: square to the plate" />
+            <NumberInput register={register} name={`shores.${i}.angle`} label="Angle from square" unit="°" errors={{ shores: { [i]: { angle: err(i, 'angleFromNormalDeg') } } }} hint="empty: square to the boundary" />
             <SelectInput
               register={register}
               name={`shores.${i}.method`}

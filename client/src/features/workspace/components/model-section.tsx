@@ -20,7 +20,7 @@ export function ModelSection({ survey, results, rows, system, selectedId, open }
           )}
         </Suspense>
       </ModelBoundary>
-      <p className="text-sm text-ink-soft">Drag to turn, pinch or scroll to zoom. Tap a space or a plate to open its form.</p>
+      <p className="text-sm text-ink-soft">Drag to turn, pinch or scroll to zoom. Tap a space or a boundary to open its form.</p>
     </section>
   );
 }

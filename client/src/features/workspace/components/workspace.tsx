@@ -38,7 +38,7 @@ const SECTIONS = [
   { id: 'readings', label: 'Readings' },
   { id: 'spaces', label: 'Spaces' },
   { id: 'contents', label: 'Contents' },
-  { id: 'plates', label: 'Plates' },
+  { id: 'plates', label: 'Boundaries' },
   { id: 'loads', label: 'Loads' },
   { id: 'stability', label: 'Stability' },
   { id: 'flooding', label: 'Flooding' },
