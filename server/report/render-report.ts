@@ -13,7 +13,7 @@ import { STATUS_LABELS, type SurveyStatus } from '@shared/review/status';
 import { formatNumber, formatQuantity, formatStress, type Dimension, type UnitSystem } from '@shared/units/units';
 import { boundaryVerdictLabel, boundaryVerdictMeaning, describeLimit, namesFromSurvey, surveyVerdictLabel } from '@shared/review/words';
 import { figureNotes, figureNoteSentence } from '@shared/review/assumptions';
-import { boundaryKindWords, SPACE_TYPE_WORDS } from '@shared/review/plain-words';
+import { boundaryKindWords, END_CONDITION_WORDS, SPACE_TYPE_WORDS } from '@shared/review/plain-words';
 import { formatShipAndUtc, formatUtc } from '@shared/review/time-words';
 import { html, type SafeHtml } from '../brief/html';
 
@@ -100,6 +100,8 @@ function extentWords(c: Compartment, q: (v: number, d: Dimension) => string): st
   return `section of ${g.section.length} corners between x ${q(g.xAftM, 'length')} and ${q(g.xForeM, 'length')}`;
 }
 
+const SHAPE_WORDS: Record<Boundary['geometry']['kind'], string> = { polygon: 'flat outline', rectangle: 'rectangle', circle: 'circle', faceted: 'curved, in flat facets' };
+
 export function renderReport(d: ReportData): string {
   const q = (v: number, dim: Dimension, digits = 4) => formatQuantity(v, dim, d.units, digits).text;
   // stresses in the unit the forms take them in (MPa or ksi), not as a pressure in kPa
@@ -146,7 +148,7 @@ export function renderReport(d: ReportData): string {
     const st = b.stiffening;
     const inputs: SafeHtml[] = [
       html`<tr><th scope="row">Between</th><td>side A: ${sideWords(b.sideA)}; side B: ${sideWords(b.sideB)}</td></tr>`,
-      html`<tr><th scope="row">Shape</th><td>${b.geometry.kind}${b.parentBoundaryId ? html`, set in ${names.boundary(b.parentBoundaryId)}` : ''}</td></tr>`,
+      html`<tr><th scope="row">Shape</th><td>${SHAPE_WORDS[b.geometry.kind]}${b.parentBoundaryId ? html`, set in ${names.boundary(b.parentBoundaryId)}` : ''}</td></tr>`,
     ];
     if (st) {
       inputs.push(
@@ -155,7 +157,7 @@ export function renderReport(d: ReportData): string {
     }
     (b.shores ?? []).forEach((s, i) => {
       const sec = s.section.kind === 'rectangular' ? `${q(s.section.widthM, 'length')} × ${q(s.section.depthM, 'length')}` : s.section.kind === 'tube' ? `tube ${q(s.section.outerDiameterM, 'length')} × ${q(s.section.wallThicknessM, 'length')}` : `area ${q(s.section.areaM2, 'area')}`;
-      inputs.push(html`<tr><th scope="row">Shore ${i + 1}</th><td>${sec}, length ${q(s.lengthM, 'length')}, on side ${s.side}, ${s.endCondition.replace('-', ' / ')}${chip(b.id, `shores.${s.id}.section`)}</td></tr>`);
+      inputs.push(html`<tr><th scope="row">Shore ${i + 1}</th><td>${sec}, length ${q(s.lengthM, 'length')}, on side ${s.side}, ${END_CONDITION_WORDS[s.endCondition]}${chip(b.id, `shores.${s.id}.section`)}</td></tr>`);
     });
     if (b.ratedCapacity) {
       inputs.push(html`<tr><th scope="row">Rated capacity</th><td>${b.ratedCapacity.kind === 'pressure' ? q(b.ratedCapacity.pressurePa, 'pressure') : q(b.ratedCapacity.forceN, 'force')}${chip(b.id, 'ratedCapacity')}</td></tr>`);

@@ -51,7 +51,8 @@ export function UserMenu() {
   const devMailbox = useDevMailbox(user?.role === 'admin' || user?.role === 'engineer');
 
   if (!user) {
-    if (location.pathname === paths.signIn) return null;
+    // the sign-in page and the landing page (which has its own big button) need no second sign-in action
+    if (location.pathname === paths.signIn || location.pathname === paths.home) return null;
     return (
       <Link to={paths.signIn} className={`${headerButton} border-2 border-paper/60`}>
         Sign in

@@ -20,7 +20,7 @@ import { num, unitLabel } from '@client/lib/unit-system';
 import { UtilisationBadge } from './utilisation';
 import { pointWords } from '@shared/units/point-words';
 import { sideName } from './side-name';
-import { countWords } from '@shared/review/plain-words';
+import { boundaryKindWords, countWords } from '@shared/review/plain-words';
 
 const col = createColumnHelper<BoundarySummary>();
 
@@ -51,7 +51,7 @@ export function BoundaryResultsTable({
           <span>
             <span className="font-bold">{c.getValue()}</span>
             <span className="block text-xs text-ink-soft">
-              {c.row.original.kind} · {sideName(results, c.row.original.sideA)} | {sideName(results, c.row.original.sideB)}
+              {boundaryKindWords(c.row.original.kind)} · {sideName(results, c.row.original.sideA)} | {sideName(results, c.row.original.sideB)}
             </span>
           </span>
         ),

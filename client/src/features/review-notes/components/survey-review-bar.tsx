@@ -82,7 +82,7 @@ export function SurveyReviewBar({ surveyId, survey }: { surveyId: string; survey
           </div>
         </div>
       )}
-      {submit && pending > 0 && <p className="mt-1 text-sm text-ink-soft">{pending} edits will sync first.</p>}
+      {submit && pending > 0 && <p className="mt-1 text-sm text-ink-soft">{pending === 1 ? '1 edit syncs first.' : `${pending} edits sync first.`}</p>}
       {error && (
         <p role="alert" className="mt-1 text-sm font-bold text-danger">
           {error}

@@ -15,7 +15,7 @@ import { newId } from '../utils/new-entities';
 import { withMark, type FigureMark } from '@shared/schemas/marks';
 import { MarkChip } from './mark-chip';
 import { facetOrientation, reverseFacets } from '@shared/engine';
-import { END_CONDITION_WORDS } from '@shared/review/plain-words';
+import { BOUNDARY_KIND_WORDS, END_CONDITION_WORDS } from '@shared/review/plain-words';
 
 /** The chip under one of the plate's figures, kept in the form's `marks` value. */
 function PlateMark({ form, field, filled = true }: { form: UseFormReturn<BoundaryForm, unknown, Boundary>; field: string; filled?: boolean }) {
@@ -24,16 +24,8 @@ function PlateMark({ form, field, filled = true }: { form: UseFormReturn<Boundar
   return <MarkChip mark={marks[field]} onChange={set} canEstimate={filled} />;
 }
 
-export const KIND_LABEL: Record<Boundary['kind'], string> = {
-  bulkhead: 'Bulkhead',
-  deck: 'Deck',
-  'tank-top': 'Tank top',
-  'hatch-cover': 'Hatch cover',
-  door: 'Door',
-  manhole: 'Manhole cover',
-  shell: 'Shell plating',
-  patch: 'Patch',
-};
+/** Boundary kinds as the form shows them: the one table of words, capitalised. */
+export const KIND_LABEL = Object.fromEntries(Object.entries(BOUNDARY_KIND_WORDS).map(([k, w]) => [k, w[0]!.toUpperCase() + w.slice(1)])) as Record<Boundary['kind'], string>;
 
 const PLANE_LABEL = {
   transverse: 'Transverse (across the ship, at an x position)',
