@@ -48,6 +48,7 @@ export function createBriefService(deps: { db: Knex; config: Pick<Config, 'publi
     await mailer.send({
       to: body.recipientEmail,
       orgId: auth.orgId,
+      sentBy: auth.userId,
       ...briefMail({
         url,
         vesselName: parsed.success ? parsed.data.vessel.name : 'the vessel',

@@ -64,7 +64,7 @@ export function Mailbox() {
       <div className="flex flex-wrap items-end justify-between gap-2">
         <div>
           <h1 className="text-3xl">Development mailbox</h1>
-          <p className="text-ink-soft">E-mails the local mail catcher received for people of your organisation. Not available in production.</p>
+          <p className="text-ink-soft">E-mails the local mail catcher received from your firm: all of them for an admin, the master’s briefs you sent for an engineer. Not available in production.</p>
         </div>
         <Button tone="secondary" onClick={() => void list.refetch()}>
           Check again

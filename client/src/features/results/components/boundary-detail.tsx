@@ -45,7 +45,7 @@ export function BoundaryDetail({ boundary: b, results, system }: { boundary: Bou
             <Row label="Centre of pressure" value={<PointText point={b.net.centreOfPressure} system={system} />} testId="detail-cop" />
           )}
           {b.net.centreOfPressureAboveLowestM !== null && (
-            <Row label="Centre of pressure above the plate's lowest point" value={fmt(b.net.centreOfPressureAboveLowestM, 'length', system, 3)} />
+            <Row label="Centre of pressure above the boundary’s lowest point" value={fmt(b.net.centreOfPressureAboveLowestM, 'length', system, 3)} />
           )}
           <Row label="Peak net pressure (+ towards side B)" value={fmt(b.net.peak.pressurePa, 'pressure', system)} />
           <Row label="Peak acts at" value={<PointText point={b.net.peak.point} system={system} />} />

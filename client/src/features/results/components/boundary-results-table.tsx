@@ -21,6 +21,7 @@ import { num, unitLabel } from '@client/lib/unit-system';
 import { UtilisationBadge } from './utilisation';
 import { PointText } from './point-text';
 import { sideName } from './side-name';
+import { boundaryKindWords, countWords } from '@shared/review/plain-words';
 
 const col = createColumnHelper<BoundarySummary>();
 
@@ -51,7 +52,7 @@ export function BoundaryResultsTable({
           <span>
             <span className="font-bold">{c.getValue()}</span>
             <span className="block text-xs text-ink-soft">
-              {c.row.original.kind} · {sideName(results, c.row.original.sideA)} | {sideName(results, c.row.original.sideB)}
+              {boundaryKindWords(c.row.original.kind)} · {sideName(results, c.row.original.sideA)} | {sideName(results, c.row.original.sideB)}
             </span>
           </span>
         ),
@@ -118,7 +119,7 @@ export function BoundaryResultsTable({
       className={`overflow-x-auto rounded-lg border border-line bg-card ${virtual ? 'max-h-[70vh] overflow-y-auto' : ''}`}
       tabIndex={0}
       role="region"
-      aria-label={virtual ? `Loads on ${rows.length} plates (scrolls)` : 'Loads on each plate (scrolls sideways)'}
+      aria-label={virtual ? `Loads on ${countWords(rows.length, 'boundary', 'boundaries')} (scrolls)` : 'Loads on each boundary (scrolls sideways)'}
     >
       <table className="w-full min-w-[36rem] border-collapse text-left" data-testid="boundary-results">
         <thead className="bg-sea-soft">

@@ -3,6 +3,7 @@ import type { SurveyLevelResults } from '@shared/engine';
 import type { UnitSystem } from '@shared/units/units';
 import { PointText } from './point-text';
 import { num, percent, unitLabel } from '@client/lib/unit-system';
+import { spaceTypeWords } from '@shared/review/plain-words';
 
 export function CompartmentTable({ results, system, onSelect }: { results: SurveyLevelResults; system: UnitSystem; onSelect?: (id: string) => void }) {
   if (results.compartments.length === 0) return <p className="text-ink-soft">No compartments yet.</p>;
@@ -41,7 +42,7 @@ function CompartmentRows({ c, system, onSelect }: { c: SurveyLevelResults['compa
             c.name
           )}
           <span className="block text-xs font-normal text-ink-soft">
-            {c.spaceType} · permeability {c.permeability.toFixed(2)}
+            {spaceTypeWords(c.spaceType)} · permeability {c.permeability.toFixed(2)}
             {c.openToSea ? ' · open to sea' : ''}
           </span>
         </td>

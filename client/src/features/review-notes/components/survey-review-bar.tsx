@@ -87,11 +87,11 @@ export function SurveyReviewBar({ surveyId, survey }: { surveyId: string; survey
           </div>
         </div>
       )}
-      {submit && pending > 0 && <p className="mt-1 text-sm text-ink-soft">{pending} edits will sync first.</p>}
+      {submit && pending > 0 && <p className="mt-1 text-sm text-ink-soft">{pending === 1 ? '1 edit syncs first.' : `${pending} edits sync first.`}</p>}
       {waiting && (
         <p className="mt-1 rounded-md border-2 border-caution bg-caution-soft p-2 text-sm font-bold" role="status" data-testid="submit-queued">
           {online ? 'Sending for review…' : 'Sending for review when the link returns. It is kept on this device.'}
-          {pending > 1 ? ` ${pending - 1} edits go first.` : ''}
+          {pending > 1 ? (pending === 2 ? ' 1 edit goes first.' : ` ${pending - 1} edits go first.`) : ''}
         </p>
       )}
       {queued?.state === 'rejected' && (

@@ -20,7 +20,7 @@ export function ModelSection({ survey, results, rows, system, selectedId, select
           )}
         </Suspense>
       </ModelBoundary>
-      <p className="text-sm text-ink-soft">Drag to turn, pinch or scroll to zoom; “Fit to view” brings the whole ship back. Tap a space or a plate to see its name, and open its form from there.</p>
+      <p className="text-sm text-ink-soft">Drag to turn, pinch or scroll to zoom; “Fit to view” brings the whole ship back. Tap a space or a boundary to see its name, and open its form from there.</p>
     </section>
   );
 }

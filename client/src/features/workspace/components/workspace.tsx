@@ -40,7 +40,7 @@ const SECTIONS = [
   { id: 'readings', label: 'Readings' },
   { id: 'spaces', label: 'Spaces' },
   { id: 'contents', label: 'Contents' },
-  { id: 'plates', label: 'Plates' },
+  { id: 'plates', label: 'Boundaries' },
   { id: 'loads', label: 'Loads' },
   { id: 'stability', label: 'Stability' },
   { id: 'flooding', label: 'Flooding' },
@@ -198,7 +198,7 @@ export function Workspace({ surveyId }: { surveyId: string }) {
         <h1 className="order-first min-w-0 basis-full truncate text-xl sm:order-none sm:basis-auto sm:flex-1 sm:text-2xl" title={survey.title}>
           {survey.vessel.name} <span className="font-normal text-ink-soft">· {survey.title}</span>
         </h1>
-        <SurveySyncChip surveyId={surveyId} />
+        <SurveySyncChip surveyId={surveyId} onServer={local.serverRevision > 0} />
         <UnitToggle />
         <ExportButton survey={survey} />
         <ReportButton surveyId={surveyId} />
@@ -344,10 +344,12 @@ function UnitToggle() {
   );
 }
 
-function SurveySyncChip({ surveyId }: { surveyId: string }) {
+function SurveySyncChip({ surveyId, onServer }: { surveyId: string; onServer: boolean }) {
   const pending = usePendingCount(surveyId) ?? 0;
   const sync = useSyncState();
-  const text = pending > 0 ? (sync.state === 'offline' ? `${pending} to sync (offline)` : `${pending} to sync`) : sync.state === 'offline' ? 'On this device' : 'Synced';
+  const offline = sync.state === 'offline';
+  // a survey whose every edit reached the server is synced, whether or not the link is up now
+  const text = pending > 0 ? (offline ? `${pending} to sync (offline)` : `${pending} to sync`) : !onServer ? 'Only on this device' : offline ? 'Synced (now offline)' : 'Synced';
   return (
     <span className={`rounded-md border-2 px-2 py-1 text-sm font-bold ${pending > 0 ? 'border-caution bg-caution-soft' : 'border-ok bg-ok-soft'}`} data-testid="survey-sync">
       {text}
