@@ -53,6 +53,23 @@ async function waitForMail(dir: string, to: string, subject: string): Promise<st
   }
 }
 
+/**
+ * Taps the drawn model at points of a grid, from the middle out, until a label names what was
+ * tapped; returns the label's text. Throws when no tap lands on anything.
+ */
+export async function tapModelUntilLabelled(page: Page): Promise<string> {
+  const canvas = page.getByTestId('model-canvas').locator('canvas');
+  const box = await canvas.boundingBox();
+  if (!box) throw new Error('no 3D canvas on the page');
+  const spots = [0.5, 0.4, 0.6, 0.3, 0.7].flatMap((fy) => [0.5, 0.4, 0.6, 0.3, 0.7, 0.2, 0.8].map((fx) => [fx, fy] as const));
+  for (const [fx, fy] of spots) {
+    await canvas.click({ position: { x: box.width * fx, y: box.height * fy } });
+    const label = page.getByTestId('model-label');
+    if (await label.waitFor({ timeout: 1_000 }).then(() => true, () => false)) return (await label.textContent()) ?? '';
+  }
+  throw new Error('no tap on the model named a space or a plate');
+}
+
 /** Screens of one person: each a name and how to open it (on a page already at the right width). */
 type Opener = (page: Page) => Promise<void>;
 
@@ -136,6 +153,13 @@ export async function walkEveryScreen(browser: Browser, setup: WalkSetup, widths
         await go(anon);
         await visit(anon, `${name}-${width}`);
       }
+      // a refused sign-in, its message tied to the field (an address nobody has, so no account is slowed)
+      await anon.goto(`${baseUrl}/sign-in`);
+      await anon.getByLabel('E-mail').fill('nobody@skerrow.example');
+      await anon.getByLabel('Password').fill('not-the-password-1');
+      await anon.getByRole('button', { name: 'Sign in' }).click();
+      await anon.getByRole('alert').first().waitFor();
+      await visit(anon, `sign-in-refused-${width}`);
 
       await surveyor.goto(`${baseUrl}/surveys`);
       await surveyor.getByRole('link', { name: new RegExp(demoSurvey().vessel.name) }).first().waitFor({ timeout: 30_000 });
@@ -144,6 +168,22 @@ export async function walkEveryScreen(browser: Browser, setup: WalkSetup, widths
       await settleWorkspace(surveyor);
       const sections = await eachTab(surveyor, 'Workspace sections', 'workspace', width, visit, settleWorkspace);
       if (sections.length < 8) throw new Error(`the workspace shows only ${sections.join(', ')}`);
+      // an item open in each list: a space's form, a plate's form, a plate's loads in detail
+      const demo = demoSurvey();
+      for (const [name, query] of [
+        ['workspace-space-form', `s=spaces&item=${demo.compartments[0].id}`],
+        ['workspace-plate-form', `s=plates&item=${demo.boundaries[0].id}`],
+        ['workspace-loads-detail', `s=loads&item=${demo.boundaries[0].id}`],
+      ] as const) {
+        await surveyor.goto(`${baseUrl}/surveys/${surveyId}?${query}`);
+        await settleWorkspace(surveyor);
+        await visit(surveyor, `${name}-${width}`);
+      }
+      // the model with a tapped space or plate named beside it
+      await surveyor.goto(`${baseUrl}/surveys/${surveyId}?s=model`);
+      await settleWorkspace(surveyor);
+      await tapModelUntilLabelled(surveyor);
+      await visit(surveyor, `workspace-3d-label-${width}`);
       // the calculation report, opened as the surveyor opens it (a new tab)
       await surveyor.goto(`${baseUrl}/surveys/${surveyId}`);
       await settleWorkspace(surveyor);
@@ -160,6 +200,8 @@ export async function walkEveryScreen(browser: Browser, setup: WalkSetup, widths
       await visit(engineer, `review-queue-${width}`);
       await engineer.goto(`${baseUrl}/review/${DEMO_SUBMITTED_SURVEY_ID}`);
       await settleDesk(engineer);
+      await engineer.getByTestId('boundary-row').first().click();
+      await engineer.getByTestId('boundary-detail').waitFor();
       await eachTab(engineer, 'Survey views', 'desk', width, visit, settleDesk);
 
       await admin.goto(`${baseUrl}/members`);

@@ -8,7 +8,7 @@ import { Fragment } from 'react';
 export function EmailText({ email, className = '' }: { email: string; className?: string }) {
   const parts = email.split(/(?=[@.])/);
   return (
-    <span className={`break-words ${className}`}>
+    <span className={`break-words ${className}`} data-wrap-parts="">
       {parts.map((part, i) => (
         <Fragment key={i}>
           {i > 0 && <wbr />}
