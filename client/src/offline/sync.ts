@@ -15,7 +15,7 @@ import {
 } from '@shared/schemas/sync';
 import { ApiError, OfflineError, api, jsonBody } from '@client/lib/api-client';
 import { db, getMeta, META, setMeta, type OutboxEntry } from './db';
-import { mergeServerSurveys, rebaseLocalSurvey, subscribeLocalChanges } from './survey-store';
+import { mergeServerSurveys, rebaseLocalSurvey, replayUnsavedEdits, subscribeLocalChanges } from './survey-store';
 import { storeReviewNotes } from './review-notes';
 import { sendPendingReplies } from './replies';
 import { getEngineStatus, setEngineStatus } from './sync-state';
@@ -259,6 +259,9 @@ export function startSync(opts: { intervalMs?: number } = {}): () => void {
     unsubscribe();
     stopper = null;
   };
-  void syncNow();
+  // Edits a closing page noted but could not store go in first (./unsaved-edits.ts).
+  void replayUnsavedEdits()
+    .catch(() => 0)
+    .then(() => syncNow());
   return stopper;
 }

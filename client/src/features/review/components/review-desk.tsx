@@ -158,7 +158,7 @@ export function ReviewDesk({ surveyId }: { surveyId: string }) {
           {tab === 'history' && <HistoryPanel surveyId={surveyId} names={names} system={system} />}
         </div>
         <div className="min-w-0 space-y-3">
-          <VerdictPanel key={`v-${r.verdicts.length}`} surveyId={surveyId} doc={doc} verdicts={r.verdicts} editable={editable} />
+          <VerdictPanel surveyId={surveyId} doc={doc} verdicts={r.verdicts} editable={editable} />
           <LimitsPanel surveyId={surveyId} doc={doc} limits={r.limits} editable={editable} system={system} />
           <CommentThreads surveyId={surveyId} doc={doc} comments={r.comments} canResolve={r.viewer.role === 'engineer'} />
           <BriefPanel surveyId={surveyId} status={r.status} briefs={r.briefs} canIssue={r.viewer.role === 'engineer'} canRevoke={r.viewer.role !== 'surveyor'} />
