@@ -13,7 +13,7 @@ import {
   type SyncedSurvey,
   type UserRef,
 } from '@shared/schemas/sync';
-import { applyOp, changedFields, deepEqual, findEntity, replay } from '@shared/sync/apply';
+import { applyOp, changedFields, deepEqual, findEntity, leanOp, replay } from '@shared/sync/apply';
 import { formatZodIssues } from '@shared/api/format-issues';
 import { reportStorageError } from './storage';
 import { db, getDeviceId } from './db';
@@ -107,12 +107,17 @@ export async function createLocalSurvey(survey: Survey, opts: { owner?: UserRef 
   return doc.id;
 }
 
-/** Fills in `fields` of an upsert: which fields of the entity this edit actually changed. */
-function withChangedFields(doc: Survey, op: SurveyOp): SurveyOp {
+/**
+ * What is queued for an edit: an upsert of an existing entity that changed one field goes as a lean
+ * `patch` of the part that changed (a sounding, not the whole condition); otherwise the upsert gets
+ * `fields`, the fields of the entity this edit actually changed (empty: nothing changed).
+ */
+function queuedOp(doc: Survey, op: SurveyOp): SurveyOp {
   if (op.kind !== 'upsert') return op;
   const before = findEntity(doc, op.collection, op.entity.id);
   if (!before) return { ...op, fields: undefined };
-  return { ...op, fields: changedFields(before, op.entity) };
+  const lean = leanOp(before, op);
+  return lean.kind === 'patch' ? lean : { ...op, fields: changedFields(before, op.entity) };
 }
 
 /**
@@ -167,7 +172,7 @@ async function storeLocalChanges(surveyId: string, parsedOps: readonly SurveyOp[
     let doc = local.doc;
     const now = new Date().toISOString();
     for (const raw of parsedOps) {
-      const op = withChangedFields(doc, raw);
+      const op = queuedOp(doc, raw);
       if ((op.kind === 'upsert' && op.fields && op.fields.length === 0) || unchangedSet(doc, op)) continue; // nothing changed
       doc = validate(applyOp(doc, op));
       const id = crypto.randomUUID();
