@@ -2,25 +2,23 @@ import { randomUUID } from 'node:crypto';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { ErrorBodySchema } from '@shared/api/errors';
 import { PhotoSchema } from '@shared/api/photos';
-import { startTestApp, type TestApp } from '../support/app';
-import { authHeader, createOrgWithMembers, type TestOrg } from '../support/auth';
-import { storeSurvey, tokenFor } from '../support/surveys';
+import type { TestApp } from '../support/app';
+import { authHeader, type TestOrg } from '../support/auth';
+import { storeSurvey } from '../support/surveys';
+import { startWithTwoFirms } from '../support/two-firms';
 import { makePng } from '../support/photos';
 import { createS3PhotoStorage } from '../../server/storage/photo-store';
 
 let t: TestApp;
 let org: TestOrg;
-let other: TestOrg;
 let token: string;
 let otherToken: string;
 let surveyId: string;
 
 beforeAll(async () => {
-  t = await startTestApp();
-  org = await createOrgWithMembers(t.db);
-  other = await createOrgWithMembers(t.db);
-  token = await tokenFor(t.config.JWT_SECRET, org.surveyor);
-  otherToken = await tokenFor(t.config.JWT_SECRET, other.admin);
+  const firms = await startWithTwoFirms();
+  ({ t, org } = firms);
+  ({ surveyor: token, otherAdmin: otherToken } = firms.tok);
   surveyId = (await storeSurvey(t.db, org.surveyor)).id;
 });
 afterAll(async () => {

@@ -7,8 +7,9 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { randomBytes } from 'node:crypto';
 import http from 'node:http';
 import { CAUTIONS } from '@shared/api/cautions';
-import { startTestApp, type TestApp } from '../support/app';
-import { authHeader, createOrgWithMembers, uniqueEmail, type TestOrg } from '../support/auth';
+import type { TestApp } from '../support/app';
+import { authHeader, uniqueEmail, type TestOrg } from '../support/auth';
+import { startWithTwoFirms } from '../support/two-firms';
 import { tokenFor } from '../support/surveys';
 import { waitForMail } from '../support/mail';
 import { briefLink, surveyInStatus } from '../support/review';
@@ -20,11 +21,9 @@ let engineer: string;
 let admin: string;
 
 beforeAll(async () => {
-  t = await startTestApp();
-  org = await createOrgWithMembers(t.db);
-  other = await createOrgWithMembers(t.db);
-  engineer = await tokenFor(t.config.JWT_SECRET, org.engineer);
-  admin = await tokenFor(t.config.JWT_SECRET, org.admin);
+  const firms = await startWithTwoFirms();
+  ({ t, org, other } = firms);
+  ({ engineer, admin } = firms.tok);
 });
 afterAll(async () => {
   await t?.close();
@@ -87,7 +86,8 @@ describe('issuing, opening and revoking a brief', () => {
     expect(html).toContain(`Keep the liquid level in ${compartment.name} above 10.0 ft over the baseline.`);
     expect(html).toContain('No hot work near the fore peak.');
     for (const c of CAUTIONS) expect(html).toContain(c.replaceAll('’', '’'));
-    expect(html).toMatch(/Reviewed by <strong>Test Engineer<\/strong>/);
+    // Under review (not yet accepted): who has it, and the revision those figures are.
+    expect(html).toMatch(/Under review by <strong>Test Engineer<\/strong>.*: survey revision 1/);
     expect(html).toMatch(/psi|kip/);
     expect(html.length).toBeLessThan(40_000);
 

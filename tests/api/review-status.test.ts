@@ -7,23 +7,19 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { ErrorBodySchema } from '@shared/api/errors';
 import type { ReviewNotes } from '@shared/api/review';
 import { SURVEY_STATUSES, type SurveyStatus } from '@shared/review/status';
-import { startTestApp, type TestApp } from '../support/app';
-import { authHeader, createOrgWithMembers, type TestOrg } from '../support/auth';
-import { tokenFor } from '../support/surveys';
+import type { TestApp } from '../support/app';
+import { authHeader, type TestOrg } from '../support/auth';
+import { startWithTwoFirms } from '../support/two-firms';
 import { surveyInStatus } from '../support/review';
 
 let t: TestApp;
 let org: TestOrg;
-let other: TestOrg;
 const tokens: Record<string, string> = {};
 
 beforeAll(async () => {
-  t = await startTestApp();
-  org = await createOrgWithMembers(t.db);
-  other = await createOrgWithMembers(t.db);
-  for (const role of ['admin', 'engineer', 'surveyor'] as const) tokens[role] = await tokenFor(t.config.JWT_SECRET, org.members[role]);
-  tokens.otherAdmin = await tokenFor(t.config.JWT_SECRET, other.admin);
-  tokens.otherEngineer = await tokenFor(t.config.JWT_SECRET, other.engineer);
+  const firms = await startWithTwoFirms();
+  ({ t, org } = firms);
+  Object.assign(tokens, firms.tok);
 });
 afterAll(async () => {
   await t?.close();
@@ -41,6 +37,9 @@ const ALLOWED: Record<string, Who[]> = {
   'in_review>returned': ['engineer'],
   'in_review>accepted': ['engineer'],
   'accepted>in_review': ['engineer'],
+  'changed_since_review>submitted': ['surveyor', 'engineer', 'admin'],
+  'changed_since_review>in_review': ['engineer'],
+  'changed_since_review>returned': ['engineer'],
 };
 
 async function move(token: string, surveyId: string, to: SurveyStatus, note?: string) {

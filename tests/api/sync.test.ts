@@ -15,7 +15,8 @@ import {
   type SurveyChange,
 } from '@shared/schemas/sync';
 import type { Survey } from '@shared/schemas/survey';
-import { startTestApp, type TestApp } from '../support/app';
+import type { TestApp } from '../support/app';
+import { startWithTwoFirms } from '../support/two-firms';
 import { addMember, createOrgWithMembers, type TestOrg } from '../support/auth';
 import { createSyncService } from '../../server/services/sync/service';
 import { change, newSurvey, storeSurvey, tokenFor } from '../support/surveys';
@@ -23,18 +24,14 @@ import { SimDevice } from '../support/sync-device';
 
 let t: TestApp;
 let org: TestOrg;
-let other: TestOrg;
 let surveyorToken: string;
 let engineerToken: string;
 let otherToken: string;
 
 beforeAll(async () => {
-  t = await startTestApp();
-  org = await createOrgWithMembers(t.db);
-  other = await createOrgWithMembers(t.db);
-  surveyorToken = await tokenFor(t.config.JWT_SECRET, org.surveyor);
-  engineerToken = await tokenFor(t.config.JWT_SECRET, org.engineer);
-  otherToken = await tokenFor(t.config.JWT_SECRET, other.admin);
+  const firms = await startWithTwoFirms();
+  ({ t, org } = firms);
+  ({ surveyor: surveyorToken, engineer: engineerToken, otherAdmin: otherToken } = firms.tok);
 });
 afterAll(async () => {
   await t?.close();
