@@ -180,7 +180,7 @@ export function ReviewDesk({ surveyId }: { surveyId: string }) {
           // it scrolls on its own only on a wide screen: only there is it a stop for the keyboard
           {...(wide ? { role: 'region', 'aria-label': 'Verdicts, limits, comments and brief', tabIndex: 0 } : {})}
         >
-          <VerdictPanel key={`v-${r.verdicts.length}`} surveyId={surveyId} doc={doc} verdicts={r.verdicts} editable={editable} />
+          <VerdictPanel surveyId={surveyId} doc={doc} verdicts={r.verdicts} editable={editable} />
           <LimitsPanel surveyId={surveyId} doc={doc} limits={r.limits} editable={editable} system={system} />
           <CommentThreads surveyId={surveyId} doc={doc} comments={r.comments} canResolve={r.viewer.role === 'engineer'} />
           <BriefPanel surveyId={surveyId} status={r.status} briefs={r.briefs} canIssue={r.viewer.role === 'engineer'} canRevoke={r.viewer.role !== 'surveyor'} />
