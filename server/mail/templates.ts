@@ -1,12 +1,13 @@
 /** The account e-mails, each in plain text and HTML with the same words. */
 import type { Role } from '@shared/api/roles';
 import type { MailMessage } from './mailer';
+import { formatUtc } from '@shared/review/time-words';
 
 const escapeHtml = (s: string) =>
   s.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!);
 
-const when = (d: Date) =>
-  d.toLocaleString('en-GB', { dateStyle: 'long', timeStyle: 'short', timeZone: 'UTC' }) + ' UTC';
+// the one date-time style of every screen, the brief and the report
+const when = (d: Date) => formatUtc(d);
 
 function html(paragraphs: string[], link: { href: string; label: string }): string {
   const ps = paragraphs.map((p) => `<p style="margin:0 0 14px">${escapeHtml(p)}</p>`).join('\n');

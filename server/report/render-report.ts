@@ -13,7 +13,7 @@ import { STATUS_LABELS, type SurveyStatus } from '@shared/review/status';
 import { formatNumber, formatQuantity, formatStress, type Dimension, type UnitSystem } from '@shared/units/units';
 import { boundaryVerdictLabel, boundaryVerdictMeaning, describeLimit, namesFromSurvey, surveyVerdictLabel } from '@shared/review/words';
 import { figureNotes, figureNoteSentence } from '@shared/review/assumptions';
-import { boundaryKindWords, SPACE_TYPE_WORDS } from '@shared/review/plain-words';
+import { boundaryKindWords, END_CONDITION_WORDS, SPACE_TYPE_WORDS } from '@shared/review/plain-words';
 import { formatShipAndUtc, formatUtc } from '@shared/review/time-words';
 import { structureCheckRows } from '@shared/review/structure-rows';
 import { pointWords } from '@shared/units/point-words';
@@ -74,6 +74,7 @@ thead th{font-size:8.5pt;text-transform:uppercase;color:var(--soft)}
 .cautions{border:2px solid var(--care);padding:4px 10px;border-radius:6px;break-inside:avoid}
 .meta td{border:0;padding:1px 4px}
 @media (max-width:600px){.grid,.sign{grid-template-columns:1fr}}
+@media screen and (max-width:600px){.num{white-space:normal}th,td{padding:3px 2px}thead th{font-size:7.5pt;hyphens:auto;overflow-wrap:anywhere}}
 @media print{
   @page{margin:15mm 14mm 16mm}
   main{max-width:none;padding:0}
@@ -106,6 +107,8 @@ function extentWords(c: Compartment, q: (v: number, d: Dimension) => string): st
   if (g.kind === 'box') return `box, x ${q(g.min.x, 'length')} to ${q(g.max.x, 'length')}, y ${q(g.min.y, 'length')} to ${q(g.max.y, 'length')}, z ${q(g.min.z, 'length')} to ${q(g.max.z, 'length')}`;
   return `section of ${g.section.length} corners between x ${q(g.xAftM, 'length')} and ${q(g.xForeM, 'length')}`;
 }
+
+const SHAPE_WORDS: Record<Boundary['geometry']['kind'], string> = { polygon: 'flat outline', rectangle: 'rectangle', circle: 'circle', faceted: 'curved, in flat facets' };
 
 export function renderReport(d: ReportData): string {
   const q = (v: number, dim: Dimension, digits = 4) => formatQuantity(v, dim, d.units, digits).text;
@@ -153,7 +156,7 @@ export function renderReport(d: ReportData): string {
     const st = b.stiffening;
     const inputs: SafeHtml[] = [
       html`<tr><th scope="row">Between</th><td>side A: ${sideWords(b.sideA)}; side B: ${sideWords(b.sideB)}</td></tr>`,
-      html`<tr><th scope="row">Shape</th><td>${b.geometry.kind}${b.parentBoundaryId ? html`, set in ${names.boundary(b.parentBoundaryId)}` : ''}</td></tr>`,
+      html`<tr><th scope="row">Shape</th><td>${SHAPE_WORDS[b.geometry.kind]}${b.parentBoundaryId ? html`, set in ${names.boundary(b.parentBoundaryId)}` : ''}</td></tr>`,
     ];
     if (st) {
       inputs.push(
@@ -163,7 +166,7 @@ export function renderReport(d: ReportData): string {
     (b.shores ?? []).forEach((s, i) => {
       const sec = s.section.kind === 'rectangular' ? `${q(s.section.widthM, 'length')} × ${q(s.section.depthM, 'length')}` : s.section.kind === 'tube' ? `tube ${q(s.section.outerDiameterM, 'length')} × ${q(s.section.wallThicknessM, 'length')}` : `area ${q(s.section.areaM2, 'area')}`;
       const design = s.design?.method === 'aisc-360-e3' ? `AISC 360 §E3, Fy ${stress(s.design.yieldStressPa)}` : s.design?.method === 'nds-3.7.1' ? `NDS §3.7.1, Fc* ${stress(s.design.adjustedCompressionPa)}, E′min ${stress(s.design.adjustedEMinPa)}` : s.design?.method === 'generic' ? `crushing ${stress(s.design.failureStressPa)} ÷ ${formatNumber(s.design.designFactor, 3)}` : 'no design method (Euler ÷ 2)';
-      inputs.push(html`<tr><th scope="row">Shore ${i + 1}</th><td>${sec}, length ${q(s.lengthM, 'length')}, stands on side ${s.side}, ${s.endCondition.replace('-', ' / ')}, head at ${pointWords(s.position, d.units)}; ${design}${chip(b.id, `shores.${s.id}.section`)}</td></tr>`);
+      inputs.push(html`<tr><th scope="row">Shore ${i + 1}</th><td>${sec}, length ${q(s.lengthM, 'length')}, stands on side ${s.side}, ${END_CONDITION_WORDS[s.endCondition]}, head at ${pointWords(s.position, d.units)}; ${design}${chip(b.id, `shores.${s.id}.section`)}</td></tr>`);
     });
     if (b.plating) {
       const pl = b.plating;

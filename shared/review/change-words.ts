@@ -302,6 +302,11 @@ export function changeWords(c: FieldChange, ctx: ChangeContext): ChangeLine[] {
   const entityName = (c.entityId && ctx.names.get(c.entityId)) || (value && typeof value.name === 'string' ? value.name : value && typeof value.caption === 'string' ? value.caption : null);
   const called = c.entity === 'condition' ? `the ${conditionWords(entityName)}` : entityName ? `${noun} “${entityName}”` : `a ${noun}`;
 
+  if (c.entity === 'survey' && c.field === null) {
+    // the first revision of every survey records only that it was made
+    note(w, c.new === 'created' ? 'Survey started' : c.new === null ? 'Survey removed' : 'Survey changed');
+    return w.lines;
+  }
   if (c.entity === 'survey' || c.entity === 'vessel') {
     if (c.field === 'vessel' || c.entity === 'vessel') diff(w, '', "of the ship", c.old, c.new);
     else if (c.field === 'activeConditionId') push(w, 'condition in use', c.old, c.new, 'activeConditionId');

@@ -47,3 +47,8 @@ export const END_CONDITION_WORDS: Record<(typeof SHORE_END_CONDITIONS)[number], 
 export function conditionName(c: { name?: string; time: string }, shipTimeOffsetMin?: number): string {
   return c.name?.trim() || `Readings of ${formatShipAndUtc(c.time, shipTimeOffsetMin)}`;
 }
+
+/** A space type as words, for any string (older results carry the code). */
+export function spaceTypeWords(type: string): string {
+  return (SPACE_TYPE_WORDS as Record<string, string>)[type] ?? type.replace(/-/g, ' ');
+}

@@ -107,9 +107,9 @@ describe('the workspace, offline from the start', () => {
 
     // Plates: the bulkhead between them, from No. 1 hold's forward face
     step('Plates: the bulkhead');
-    await section(page, 'Plates');
+    await section(page, 'Boundaries');
     await page.getByLabel('Face', { exact: true }).selectOption('forward');
-    await page.getByLabel('Compartment of the face').selectOption({ label: 'No. 1 hold' });
+    await page.getByLabel('Space of the face').selectOption({ label: 'No. 1 hold' });
     await page.getByRole('button', { name: 'Create' }).click();
     await page.getByRole('button', { name: /Forward bulkhead of No\. 1 hold/ }).first().waitFor();
 
@@ -160,7 +160,7 @@ describe('the workspace, offline from the start', () => {
     // Photo, taken offline
     step('Photo, taken offline');
     await section(page, 'Photos');
-    await page.getByLabel('Of', { exact: true }).selectOption({ label: 'Plate: Forward bulkhead of No. 1 hold' });
+    await page.getByLabel('Of', { exact: true }).selectOption({ label: 'Boundary: Forward bulkhead of No. 1 hold' });
     await page.getByLabel('Caption').fill('Bulkhead seen from No. 1 hold');
     await page.getByTestId('photo-input').setInputFiles({ name: 'bulkhead.png', mimeType: 'image/png', buffer: makePng(64, 48) });
     await page.getByText('On this device, waiting to upload').waitFor();
@@ -220,14 +220,14 @@ describe('the workspace, offline from the start', () => {
       expect(demo, 'the demo survey is seeded').toBeTruthy();
       await page.goto(`${baseUrl}/surveys/${demo.id}`);
       await page.getByTestId('workspace').waitFor({ timeout: 30_000 });
-      for (const s of ['Ship', 'Readings', 'Spaces', 'Contents', 'Plates', 'Loads', '3D', 'Photos']) {
+      for (const s of ['Ship', 'Readings', 'Spaces', 'Contents', 'Boundaries', 'Loads', '3D', 'Photos']) {
         await section(page, s);
         if (s === '3D') {
           await page.getByTestId('model-canvas').locator('canvas').waitFor({ timeout: 60_000 });
           await page.waitForTimeout(1500);
         }
         if (s === 'Spaces') await page.getByRole('list', { name: 'Compartments' }).getByRole('button').first().click();
-        if (s === 'Plates') await page.getByRole('list', { name: 'Plates' }).getByRole('button').first().click();
+        if (s === 'Boundaries') await page.getByRole('list', { name: 'Boundaries' }).getByRole('button').first().click();
         if (s === 'Loads') await page.getByTestId('boundary-row').first().click();
         const overflow = await page.evaluate(() => document.documentElement.scrollWidth - window.innerWidth);
         expect(overflow, `${s} scrolls sideways at ${width} px`).toBeLessThanOrEqual(0);

@@ -44,13 +44,21 @@ export interface PushOptions {
   devices?: DeviceOwners;
 }
 
-/** Splits changes into runs of consecutive changes to the same survey, keeping their order. */
+/**
+ * Splits changes into runs of consecutive changes to the same survey, keeping their order. A
+ * "Send for review" (`submit`) is a run of its own: it moves the status the edits before it left
+ * (the database moves a reviewed survey to "changed since review" as they are written), and edits
+ * after it start again from the status it set.
+ */
 export function runsOf(changes: SurveyChange[]): SurveyChange[][] {
   const runs: SurveyChange[][] = [];
+  let alone = false;
   for (const c of changes) {
     const last = runs[runs.length - 1];
-    if (last && last[0].surveyId === c.surveyId) last.push(c);
+    const submit = c.op.kind === 'submit';
+    if (last && !alone && !submit && last[0].surveyId === c.surveyId) last.push(c);
     else runs.push([c]);
+    alone = submit;
   }
   return runs;
 }

@@ -69,7 +69,8 @@ export async function runLocked(db: Db, a: RunAttempt): Promise<RunOutcome> {
     const surveyId = a.run[0].surveyId;
     const start = await lockForRun(trx, a.auth, surveyId, a.run, a.confirm ? a.auth : undefined, { lock: true });
     a.confirm?.(start.memberRole);
-    const plan = planOf(a, { survey: start.survey, seen: start.seen, mode: 'locked', ...(await lockedInputs(trx, a, start.survey)) });
+    const role = start.memberRole ?? a.auth.role;
+    const plan = planOf(a, { survey: start.survey, seen: start.seen, mode: 'locked', role, ...(await lockedInputs(trx, a, start.survey)) });
     return writeLocked(trx, a.auth, surveyId, start.survey, plan);
   });
 }

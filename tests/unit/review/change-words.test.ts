@@ -83,6 +83,10 @@ describe('history in plain words', () => {
     expect(words({ entity: 'boundary', entityId: BHD, field: 'geometry', old: geo(40), new: geo(41) })).toEqual(['Shape or position of boundary “Aft bulkhead of No. 2 hold”: changed']);
   });
 
+  it('says the first revision as the survey started', () => {
+    expect(words({ entity: 'survey', entityId: null, field: null, old: null, new: 'created' })).toEqual(['Survey started']);
+  });
+
   it('shows no floating-point noise: 0.1 + 0.2 is said as 0.30 m', () => {
     const lines = words({ entity: 'condition', entityId: COND, field: 'contents', old: contents(4.7), new: contents(0.1 + 0.2) });
     expect(lines).toEqual(['Sounding in No. 2 hold: 4.70 m → 0.30 m']);

@@ -50,7 +50,7 @@ function Card(props: { target: InputTarget; title: string; focused: boolean; anc
       id={props.anchored ? inputAnchor(props.target) : undefined}
       tabIndex={-1}
       aria-label={props.title}
-      className={`rounded-lg border bg-card p-3 text-sm ${props.focused ? 'border-2 border-sea' : 'border-line'}`}
+      className={`scroll-mt-24 rounded-lg border bg-card p-3 text-sm ${props.focused ? 'border-2 border-sea' : 'border-line'}`}
     >
       <h4 className="font-bold">{props.title}</h4>
       {props.children}

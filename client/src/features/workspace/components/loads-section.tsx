@@ -27,7 +27,7 @@ export function LoadsSection({ survey, results, rows, system, selectedId, select
       <AttitudeInUse survey={survey} results={results} system={system} />
       <EngineWarnings results={results} />
       <div className="space-y-2">
-        <h3 className="text-xl">Plates</h3>
+        <h3 className="text-xl">Boundaries</h3>
         <BoundaryResultsTable results={results} rows={rows} system={system} selectedId={selectedId} onSelect={(id) => select(id === selectedId ? null : id)} />
       </div>
       {b && (

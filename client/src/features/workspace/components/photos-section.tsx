@@ -20,7 +20,7 @@ export function PhotosSection({ survey, apply, selectedId }: SectionProps) {
   const targets = useMemo(
     () => [
       ...survey.compartments.map((c) => ({ value: `compartment:${c.id}`, label: `Space: ${c.name}` })),
-      ...survey.boundaries.map((b) => ({ value: `boundary:${b.id}`, label: `Plate: ${b.name}` })),
+      ...survey.boundaries.map((b) => ({ value: `boundary:${b.id}`, label: `Boundary: ${b.name}` })),
       { value: `survey:${survey.id}`, label: 'The survey as a whole' },
     ],
     [survey],

@@ -20,14 +20,10 @@ import type { SurveyStatus } from '@shared/schemas/sync';
 import { inputCls, primaryBtn } from '@client/components/ui/fields';
 import { ImportButton } from './survey-file';
 import { formatLocal } from '@shared/review/time-words';
+import { STATUS_LABELS } from '@shared/review/status';
 
-const STATUS_LABEL: Record<SurveyStatus, string> = {
-  draft: 'Draft',
-  submitted: 'Submitted',
-  in_review: 'In review',
-  accepted: 'Accepted',
-  returned: 'Returned',
-};
+// the same words as the status chips on the desk and the device
+const STATUS_LABEL = STATUS_LABELS;
 
 interface Row {
   survey: LocalSurvey;

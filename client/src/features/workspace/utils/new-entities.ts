@@ -67,7 +67,7 @@ export function newBoundary(survey: Survey): Boundary {
   const b = survey.vessel.breadthM / 2;
   return {
     id: newId(),
-    name: `Plate ${survey.boundaries.length + 1}`,
+    name: `Boundary ${survey.boundaries.length + 1}`,
     kind: 'bulkhead',
     geometry: { kind: 'rectangle', origin: { x, y: -b, z: 0 }, edgeU: { x: 0, y: 2 * b, z: 0 }, edgeV: { x: 0, y: 0, z: survey.vessel.depthM } },
     sideA: c ? { kind: 'compartment', compartmentId: c.id } : { kind: 'sea' },
