@@ -13,6 +13,7 @@ import { describe, expect, it } from 'vitest';
 import { conditionAtPredictedAttitude, computeSurvey, forecastFlooding, shipResponseOf } from '@shared/engine';
 import type { Compartment, Survey } from '@shared/schemas/survey';
 import { baseSurvey, boxCompartment, contents, polygonBoundary, tid } from '../unit/engine/fixtures';
+import { renderTable, responseOutput } from '../../server/cli/loads';
 
 const RHO = 1025;
 const G = 9.80665;
@@ -188,5 +189,33 @@ describe('loads at the predicted attitude keep every liquid volume', () => {
     // volume kept (box tank, permeability 1: 20 × 5 × 4 m)
     expect(r2.compartments.find((k) => k.id === tank.id)!.liquid.volumeM3).toBeCloseTo(400, 6);
     expect(r2.frame.heelDeg).toBeCloseTo(response.attitude.heelDeg, 6);
+  });
+});
+
+describe('TPC and MCT 1 cm in US units (NIST SP 811 definitions: 1 LT = 1,016.0469088 kg, 1 in = 0.0254 m, 1 ft = 0.3048 m)', () => {
+  // the box barge of the closed forms: 100 × 20 m at 4 m, KG 6, empty; TPC = ρLB/100 = 1.025 × 100 × 20 / 100 = 20.5 t/cm
+  const tank = boxCompartment([40, -10, 0], [60, 10, D], { name: 'Hold', permeability: 1 });
+  const s = barge(tank, 0, { aft: T0, fwd: T0, heelDeg: 0 });
+  s.conditions[0].contents = [];
+  const r = computeSurvey(s);
+  // MCT 1 cm = Δ·GM_L/(100 L): Δ = 8,200 t, GM_L = 2 + 100²/48 − 6 = 204.333 m → 16,755.3 t·m / 100 = 167.553 t·m/cm
+  const mct1cm = (8200 * (2 + 10000 / 48 - 6)) / 100 / 100;
+
+  it('SI: 20.5 t/cm and the closed-form MCT 1 cm', () => {
+    const out = responseOutput(s, r, 'si')!;
+    expect(out.tpcTPerCm as number).toBeCloseTo(20.5, 9);
+    expect(out.mct1cmTMPerCm as number).toBeCloseTo(mct1cm, 6);
+  });
+
+  it('US: TPI = TPC × 2.54 / 1.0160469088 LT/in (≈ 2.5 × TPC, the trade’s rule of thumb, from memory) and MTI = MCT 1 cm × 2.54 / (1.0160469088 × 0.3048) ft·LT/in', () => {
+    const out = responseOutput(s, r, 'us')!;
+    expect(out.tpiLongTonsPerIn as number).toBeCloseTo((20.5 * 2.54) / 1.0160469088, 6); // 51.2476
+    expect(out.tpiLongTonsPerIn as number).toBeGreaterThan(2.49 * 20.5);
+    expect(out.mtiFtLongTonsPerIn as number).toBeCloseTo((mct1cm * 2.54) / (1.0160469088 * 0.3048), 5);
+    expect(out.meanDraftFt as number).toBeCloseTo(T0 / 0.3048, 9);
+    const text = renderTable(r, 'us', s);
+    expect(text).toContain('TPI 51.25 LT/in');
+    expect(text).toContain('MTI');
+    expect(renderTable(r, 'si', s)).toContain('TPC 20.50 t/cm');
   });
 });
