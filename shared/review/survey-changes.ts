@@ -119,8 +119,12 @@ function walk(before: unknown, after: unknown, subject: string, key: string, out
     out.push({ subject: said(subject, here), old: before === undefined ? NONE : text('as before'), new: after === undefined ? text('removed') : text('changed') });
     return;
   }
+  // The same instant written another way (a form writes times back with milliseconds) is no change.
+  if (typeof before === 'string' && typeof after === 'string' && ISO_TIME.test(before) && Date.parse(before) === Date.parse(after)) return;
   out.push({ subject: said(subject, here), old: valueOf(key, before), new: valueOf(key, after) });
 }
+
+const ISO_TIME = /^\d{4}-\d{2}-\d{2}T\d{2}:\d{2}/;
 
 const LEVEL_WORDS: Record<string, string> = { sounding: 'Sounding', interfaceSounding: 'Interface sounding', ullage: 'Ullage' };
 
@@ -225,6 +229,7 @@ function valueText(v: ChangeValue, system: UnitSystem): string {
 
 /** One line as a sentence in the reader's units: "Sounding in No. 2 hold: 5.4 m → 6.4 m". */
 export function changeLineText(line: ChangeLine, system: UnitSystem): string {
-  if (line.new.kind === 'text' && (line.new.text === 'added' || line.new.text === 'removed') && line.old.kind !== 'quantity') return `${line.subject}: ${line.new.text}`;
+  const whole = line.old.kind === 'none' || (line.old.kind === 'text' && (line.old.text === 'as before' || line.old.text === 'present'));
+  if (whole && line.new.kind === 'text' && ['added', 'removed', 'changed'].includes(line.new.text)) return `${line.subject}: ${line.new.text}`;
   return `${line.subject}: ${valueText(line.old, system)} → ${valueText(line.new, system)}`;
 }
