@@ -88,6 +88,9 @@ const said = (subject: string, words: string[]) => (words.length ? `${subject}: 
  */
 function walk(before: unknown, after: unknown, subject: string, key: string, out: Lines, words: string[]): void {
   if (JSON.stringify(before) === JSON.stringify(after)) return;
+  // Absent and empty say the same (a form may write `marks: {}` where there were none).
+  const empty = (x: unknown) => x === undefined || (typeof x === 'object' && x !== null && Object.keys(x).length === 0);
+  if (empty(before) && empty(after)) return;
   const here = key ? [...words, keyWords(key)] : words;
   const whole = WHOLE.has(key) || (typeof before !== typeof after && before !== undefined && after !== undefined);
   const isObj = (x: unknown) => typeof x === 'object' && x !== null;

@@ -113,7 +113,6 @@ describe('editing an accepted survey', () => {
       const review = await call(engineerToken, 'GET', `/api/review/surveys/${survey.id}`);
       expect(review.events.map((e: { to: string }) => e.to).slice(-2)).toEqual(['changed_since_review', 'submitted']);
       expect(review.sinceReview).toMatchObject({ revision: 1, reviewed: 'accepted', documentKept: true });
-      console.log('since review:', JSON.stringify(review.sinceReview.lines));
 
       // The desk: exactly what changed since the accepted revision.
       await signIn(desk, ENGINEER, `/review/${survey.id}`);
