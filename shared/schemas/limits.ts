@@ -55,6 +55,8 @@ export const SURVEY_LIMITS = {
   planSteps: 1_000,
   /** Readings in one sounding log. */
   soundingReadings: 10_000,
+  /** Assumed/estimated marks on one entity (a boundary with 500 shores marks a few fields of each). */
+  marks: 5_000,
 } as const;
 
 const plural = (n: number, what: string) => `${n.toLocaleString('en-GB')} ${what}`;

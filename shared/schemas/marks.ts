@@ -6,11 +6,14 @@
  * IMO numbers are checked here too, because the vessel form and the import share the rule.
  */
 import { z } from 'zod';
+import { capMessage, SURVEY_LIMITS } from './limits';
 
 export const FIGURE_MARKS = ['assumed', 'estimated'] as const;
 export type FigureMark = (typeof FIGURE_MARKS)[number];
 
-export const MarksSchema = z.record(z.string().min(1).max(200), z.enum(FIGURE_MARKS));
+export const MarksSchema = z
+  .record(z.string().min(1).max(200), z.enum(FIGURE_MARKS))
+  .refine((marks) => Object.keys(marks).length <= SURVEY_LIMITS.marks, capMessage(SURVEY_LIMITS.marks, 'marks'));
 export type Marks = z.infer<typeof MarksSchema>;
 
 /** The mark on one field, if any. */

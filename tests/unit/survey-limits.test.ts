@@ -53,6 +53,15 @@ describe('survey caps', () => {
     expect(issuesOf(many)).toContainEqual({ path: 'boundaries', message: 'At most 10,000 boundaries allowed.' });
   });
 
+  it('caps the assumed/estimated marks on one entity', () => {
+    const s = demoSurvey();
+    const marks = Object.fromEntries(Array.from({ length: SURVEY_LIMITS.marks + 1 }, (_, i) => [`shores.${i}.section`, 'assumed' as const]));
+    s.boundaries[0] = { ...s.boundaries[0], marks };
+    expect(issuesOf(s)).toContainEqual({ path: 'boundaries.0.marks', message: 'At most 5,000 marks allowed.' });
+    delete marks[`shores.${SURVEY_LIMITS.marks}.section`];
+    expect(issuesOf(s)).toEqual([]);
+  });
+
   it('caps the geometry of the whole survey, so many polygons at the cap cannot add up', () => {
     const s = demoSurvey();
     const count = Math.ceil(SURVEY_LIMITS.geometryPoints / SURVEY_LIMITS.polygonVertices) + 1;

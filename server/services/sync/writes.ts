@@ -66,7 +66,7 @@ function stateAfter(orgId: string, before: StartSurvey, final: EndState, written
 }
 
 /**
- * Writes an optimistic plan in one statement, only while the survey is still at `start.revision`
+ * Writes an optimistic plan in one statement, only while the survey is still at `start.revision` and `start.status`
  * (and, with `member`, while the caller is an active member with one of its roles).
  * `memberRole`: what that statement found, when it ran with `member`.
  */
@@ -86,6 +86,7 @@ export async function writeOptimistic(
     processed: plan.processed,
     survey: written ? { id: surveyId, ...written } : undefined,
     onlyAtRevision: start.revision,
+    onlyAtStatus: start.status,
     orgId: caller.orgId,
     member,
   });

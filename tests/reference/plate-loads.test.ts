@@ -1,6 +1,13 @@
+/**
+ * Plate loads against closed forms worked by hand. Sources: the hydrostatic force on a vertical
+ * rectangle F = ρ g b h²/2 acting at h/3 above the bottom (the pressure prism), and the superposition of
+ * a uniform gas pressure, as in standard fluid-mechanics texts (e.g. White, Fluid Mechanics, ch. 2,
+ * from memory); the volume and centroid of a wedge of liquid in a heeled box (solid geometry, by hand);
+ * a statically determinate beam's end reactions (statics: the loads add up).
+ */
 import { describe, expect, it } from 'vitest';
 import { computeSurvey } from '@shared/engine';
-import { baseSurvey, boxCompartment, contents, polygonBoundary, tid } from './fixtures';
+import { baseSurvey, boxCompartment, contents, polygonBoundary, tid } from '../unit/engine/fixtures';
 
 const G = 9.80665;
 const wall = (x: number): [number, number, number][] => [

@@ -1,3 +1,9 @@
+/**
+ * The engine's plane and solid integrals against closed forms: the area and centroid of a circular
+ * segment r²(θ − sin θ)/2 and 4 r sin³(θ/2) / (3(θ − sin θ)), the second moment of a disc π r⁴/4
+ * (mathematical handbook tables, e.g. CRC Standard Mathematical Tables, from memory), and the volume
+ * of a box cut by an inclined plane (by hand).
+ */
 import { describe, expect, it } from 'vitest';
 import { circleStripMoments, circleWidthAtV, clipHalfPlane, polygonMoments, polygonWidthAtV, splitAtV } from '@shared/engine/plane-integrals';
 import { compartmentSolid, volumeBelow } from '@shared/engine/polyhedron';
