@@ -126,6 +126,10 @@ export function renderReport(d: ReportData): string {
     return n ? html` <span class="mark">${n.mark}</span>` : '';
   };
   const sideWords = (s: Boundary['sideA']) => (s.kind === 'sea' ? 'the sea' : s.kind === 'air' ? 'open air' : names.compartment(s.compartmentId));
+  // A verdict given on an older revision of a survey not accepted or under review since: say so beside it.
+  const reviewedNow = d.status === 'accepted' || d.status === 'in_review';
+  const staleVerdict = (v: Verdict) =>
+    !reviewedNow && v.revision < d.revision ? html` <strong class="over">Given on revision ${v.revision}; the figures above (revision ${d.revision}) are not reviewed.</strong>` : '';
   const verdictOf = new Map(d.verdicts.filter((v) => v.scope === 'boundary').map((v) => [v.boundaryId, v]));
   const surveyVerdict = d.verdicts.find((v) => v.scope === 'survey');
   const resultOf = new Map((r?.boundaries ?? []).map((b) => [b.id, b]));
@@ -207,7 +211,7 @@ export function renderReport(d: ReportData): string {
 <h3>${b.name} <span class="muted">(${boundaryKindWords(b.kind)})</span></h3>
 <div class="grid"><div><p class="muted">Inputs</p><table><tbody>${inputs}</tbody></table></div><div><p class="muted">Results</p>${out}</div></div>
 ${res ? checksTable(res) : ''}
-<p>Reviewer: ${v ? html`<strong>${boundaryVerdictLabel(v.verdict)}</strong>: ${boundaryVerdictMeaning(v.verdict)}.${v.note ? html` ${v.note}` : ''}` : html`<span class="muted">no verdict</span>`}</p>
+<p>Reviewer: ${v ? html`<strong>${boundaryVerdictLabel(v.verdict)}</strong>: ${boundaryVerdictMeaning(v.verdict)}.${v.note ? html` ${v.note}` : ''}${staleVerdict(v)}` : html`<span class="muted">no verdict</span>`}</p>
 </section>`;
   }
 
@@ -250,7 +254,7 @@ ${r && r.warnings.length ? html`<ul>${r.warnings.map((w) => html`<li class="${w.
 ${assumed.length ? html`<p>Assumed (defaults not confirmed):</p><ul>${assumed.map((n) => html`<li>${figureNoteSentence(n)}</li>`)}</ul>` : html`<p class="muted">No assumed figures.</p>`}
 ${estimated.length ? html`<p>Estimated (judged, not measured):</p><ul>${estimated.map((n) => html`<li>${figureNoteSentence(n)}</li>`)}</ul>` : html`<p class="muted">No figures marked estimated.</p>`}
 <h2>Reviewer’s verdicts and limits</h2>
-<p>On the survey: ${surveyVerdict ? html`<strong>${surveyVerdictLabel(surveyVerdict.verdict)}</strong>${surveyVerdict.note ? html`: ${surveyVerdict.note}` : ''}` : html`<span class="muted">no verdict yet</span>`}</p>
+<p>On the survey: ${surveyVerdict ? html`<strong>${surveyVerdictLabel(surveyVerdict.verdict)}</strong>${surveyVerdict.note ? html`: ${surveyVerdict.note}` : ''}${staleVerdict(surveyVerdict)}` : html`<span class="muted">no verdict yet</span>`}</p>
 ${d.limits.length ? html`<ol>${d.limits.map((l) => html`<li>${describeLimit(l, names, d.units)}</li>`)}</ol>` : html`<p class="muted">No operating limits set.</p>`}
 <section class="cautions"><h2>Cautions</h2><ul>${CAUTIONS.map((c) => html`<li>${c}</li>`)}</ul></section>
 <section class="sign" aria-label="Signatures">

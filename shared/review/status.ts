@@ -7,7 +7,8 @@
  *   returned survey for review: the person who measured is not always the one with the link.
  * - Only an engineer starts a review, accepts, returns or reopens. The admin coordinates people, not
  *   structure: a verdict on a bulkhead belongs to a naval architect.
- * - Nobody reviews their own work: the engineer who sent a survey for review may not accept it.
+ * - Nobody reviews their own work: whoever made, edited or sent the survey at any revision may not
+ *   accept it (checked by the server, hasWorkedOn).
  * - An accepted survey can be reopened (back to "under review") when new soundings arrive.
  * - Accepted means accepted: any edit applied to a survey that is sent, under review or accepted
  *   moves it to "changed since review" (the database does it, in the same statement as the edit, so

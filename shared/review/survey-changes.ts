@@ -88,6 +88,9 @@ const said = (subject: string, words: string[]) => (words.length ? `${subject}: 
  */
 function walk(before: unknown, after: unknown, subject: string, key: string, out: Lines, words: string[]): void {
   if (JSON.stringify(before) === JSON.stringify(after)) return;
+  // Absent and empty say the same (a form may write `marks: {}` where there were none).
+  const empty = (x: unknown) => x === undefined || (typeof x === 'object' && x !== null && Object.keys(x).length === 0);
+  if (empty(before) && empty(after)) return;
   const here = key ? [...words, keyWords(key)] : words;
   const whole = WHOLE.has(key) || (typeof before !== typeof after && before !== undefined && after !== undefined);
   const isObj = (x: unknown) => typeof x === 'object' && x !== null;
@@ -119,8 +122,12 @@ function walk(before: unknown, after: unknown, subject: string, key: string, out
     out.push({ subject: said(subject, here), old: before === undefined ? NONE : text('as before'), new: after === undefined ? text('removed') : text('changed') });
     return;
   }
+  // The same instant written another way (a form writes times back with milliseconds) is no change.
+  if (typeof before === 'string' && typeof after === 'string' && ISO_TIME.test(before) && Date.parse(before) === Date.parse(after)) return;
   out.push({ subject: said(subject, here), old: valueOf(key, before), new: valueOf(key, after) });
 }
+
+const ISO_TIME = /^\d{4}-\d{2}-\d{2}T\d{2}:\d{2}/;
 
 const LEVEL_WORDS: Record<string, string> = { sounding: 'Sounding', interfaceSounding: 'Interface sounding', ullage: 'Ullage' };
 
@@ -225,6 +232,7 @@ function valueText(v: ChangeValue, system: UnitSystem): string {
 
 /** One line as a sentence in the reader's units: "Sounding in No. 2 hold: 5.4 m → 6.4 m". */
 export function changeLineText(line: ChangeLine, system: UnitSystem): string {
-  if (line.new.kind === 'text' && (line.new.text === 'added' || line.new.text === 'removed') && line.old.kind !== 'quantity') return `${line.subject}: ${line.new.text}`;
+  const whole = line.old.kind === 'none' || (line.old.kind === 'text' && (line.old.text === 'as before' || line.old.text === 'present'));
+  if (whole && line.new.kind === 'text' && ['added', 'removed', 'changed'].includes(line.new.text)) return `${line.subject}: ${line.new.text}`;
   return `${line.subject}: ${valueText(line.old, system)} → ${valueText(line.new, system)}`;
 }

@@ -7,7 +7,7 @@
  */
 import { useState } from 'react';
 import type { Survey } from '@shared/schemas/survey';
-import { STATUS_LABELS, transitionsFor } from '@shared/review/status';
+import { CHANGE_SENDS_BACK, STATUS_LABELS, transitionsFor } from '@shared/review/status';
 import { useSession } from '@client/lib/session';
 import { applyLocalChange, useLocalSurvey, usePendingCount } from '@client/offline/survey-store';
 import { useQueuedSubmit } from '@client/offline/local-surveys';
@@ -31,7 +31,11 @@ export function SurveyReviewBar({ surveyId, survey }: { surveyId: string; survey
   if (!local) return null;
   const assumed = survey ? figureNotes(survey).filter((n) => n.mark === 'assumed') : [];
   const waiting = queued?.state === 'pending';
-  const submit = user && !waiting ? transitionsFor(local.status, user.role).find((t) => t.action === 'submit') : undefined;
+  // Edits to a reviewed survey still on this device: the server will make it "changed since review"
+  // as they arrive, so it may be sent again already (offline too), queued after them.
+  const changedHere = CHANGE_SENDS_BACK.includes(local.status) && pending - (waiting ? 1 : 0) > 0;
+  const status = changedHere ? 'changed_since_review' : local.status;
+  const submit = user && !waiting ? transitionsFor(status, user.role).find((t) => t.action === 'submit') : undefined;
   const count = notes ? notes.comments.length + notes.verdicts.length + notes.limits.length : 0;
 
   const send = async () => {
@@ -53,7 +57,8 @@ export function SurveyReviewBar({ surveyId, survey }: { surveyId: string; survey
     <section aria-label="Review" className="rounded-lg border border-line bg-card p-2" data-testid="survey-review-bar">
       <div className="flex flex-wrap items-center gap-2">
         <span className="text-sm">
-          Review: <strong data-testid="survey-review-status">{STATUS_LABELS[local.status]}</strong>
+          Review: <strong data-testid="survey-review-status" data-status={status}>{STATUS_LABELS[status]}</strong>
+          {changedHere && <span className="text-ink-soft"> (on this device; not synced yet)</span>}
         </span>
         {submit && (
           <button
@@ -91,7 +96,7 @@ export function SurveyReviewBar({ surveyId, survey }: { surveyId: string; survey
       {waiting && (
         <p className="mt-1 rounded-md border-2 border-caution bg-caution-soft p-2 text-sm font-bold" role="status" data-testid="submit-queued">
           {online ? 'Sending for review…' : 'Sending for review when the link returns. It is kept on this device.'}
-          {pending > 1 ? (pending === 2 ? ' 1 edit goes first.' : ` ${pending - 1} edits go first.`) : ''}
+          {pending === 2 ? ' 1 edit goes first.' : pending > 2 ? ` ${pending - 1} edits go first.` : ''}
         </p>
       )}
       {queued?.state === 'rejected' && (
