@@ -21,6 +21,7 @@ import { formatShipAndUtc } from '@shared/review/time-words';
 import { boundaryKindWords } from '@shared/review/plain-words';
 import { figureNotes, figureNoteSentence } from '@shared/review/assumptions';
 import { measurableLimit } from '@shared/review/measurable-limits';
+import { structureCheckRows } from '@shared/review/structure-rows';
 import { html, type SafeHtml } from './html';
 
 export interface BriefPageData {
@@ -50,6 +51,23 @@ const MAX_BOUNDARIES = 8;
 
 
 const SEVERITY_CLASS = ['ok', 'care', 'warn', 'bad'] as const;
+
+/** Shores listed per boundary at most; the rest are summed up in one line (the brief stays short). */
+const MAX_SHORE_ROWS = 4;
+
+/** The boundary's structural checks as a compact table: what, load, allowed, use. */
+function checksTable(b: BoundaryResult, doc: Survey, units: UnitSystem, sides: { A: string; B: string }): SafeHtml | '' {
+  const rows = structureCheckRows(b, units, sides, doc.boundaries.find((x) => x.id === b.id));
+  if (rows.length === 0) return '';
+  const shores = rows.filter((r) => r.kind === 'shore');
+  const shown = [...rows.filter((r) => r.kind !== 'shore'), ...shores.slice(0, MAX_SHORE_ROWS)];
+  const rest = shores.slice(MAX_SHORE_ROWS);
+  const worstRest = rest.reduce((m, r) => Math.max(m, r.utilisation ?? 0), 0);
+  const use = (u: number | null) => (u === null ? html`<span class="muted">—</span>` : html`<span class="${u > 1 ? 'over' : ''}">${u > 1 ? '▲ ' : ''}${formatNumber(u * 100, 3)} %</span>`);
+  return html`<table class="checks"><thead><tr><th scope="col">Check</th><th scope="col">Load</th><th scope="col">Allowed</th><th scope="col">Use</th></tr></thead><tbody>${shown.map(
+    (r) => html`<tr><th scope="row">${r.check}${r.note ? html`<div class="note">${r.note}</div>` : ''}</th><td>${r.load}</td><td>${r.capacity}</td><td>${use(r.utilisation)}</td></tr>`,
+  )}${rest.length ? html`<tr><th scope="row" colspan="3">${rest.length} more shore${rest.length > 1 ? 's' : ''}, the highest at</th><td>${use(worstRest)}</td></tr>` : ''}</tbody></table>`;
+}
 
 function boundariesThatMatter(results: SurveyResults, verdicts: Verdict[]): BoundaryResult[] {
   const withVerdict = new Set(verdicts.filter((v) => v.scope === 'boundary').map((v) => v.boundaryId));
@@ -112,9 +130,10 @@ export function renderBriefPage(d: BriefPageData, opts: { ackError?: string } = 
     return html`<li class="boundary">
 <div class="bhead"><strong>${b.name}</strong> <span class="muted">(${boundaryKindWords(b.kind)}, between ${sideLabel(r!, b.sideA)} and ${sideLabel(r!, b.sideB)})</span></div>
 ${v ? html`<div class="verdict ${SEVERITY_CLASS[sev!]}"><strong>${boundaryVerdictLabel(v.verdict)}</strong>: ${boundaryVerdictMeaning(v.verdict)}.${v.note ? html` ${v.note}` : ''}</div>` : html`<div class="muted">No verdict given.</div>`}
-<div class="figs">Net load ${q(Math.abs(b.net.resultantN), 'force')} pushing towards ${sideLabel(r!, b.net.forceN >= 0 ? b.sideB : b.sideA)} · highest net pressure ${q(Math.abs(b.net.peak.pressurePa), 'pressure')}${
+<div class="figs">Net load ${q(Math.abs(b.net.resultantN), 'force')} pushing towards ${sideLabel(r!, b.net.forceN >= 0 ? b.sideB : b.sideA)} · highest net pressure ${q(Math.abs(b.net.peak.pressurePa), 'pressure')} towards ${sideLabel(r!, b.net.peak.pressurePa >= 0 ? b.sideB : b.sideA)}${
       gov ? html` · <span class="${gov.utilisation > 1 ? 'over' : ''}">${gov.utilisation > 1 ? '▲ OVER CAPACITY: ' : ''}${formatNumber(gov.utilisation * 100, 3)} % of ${gov.what}</span>` : ''
     }</div>
+${checksTable(b, d.doc, d.units, { A: sideLabel(r!, b.sideA), B: sideLabel(r!, b.sideB) })}
 </li>`;
   });
 
@@ -264,6 +283,12 @@ td:last-child,th:last-child{text-align:right;white-space:nowrap}
 .boundary{border-bottom:1px solid var(--line);padding:8px 0}
 .bhead{overflow-wrap:anywhere}
 .figs{font-size:.95rem;font-variant-numeric:tabular-nums}
+.checks{font-size:.85rem;margin-top:4px}
+.checks th,.checks td{padding:3px 4px}
+.checks tbody th{font-weight:600}
+.checks td{white-space:nowrap}
+.note{font-weight:400;font-size:.8rem;color:var(--soft)}
+@media (max-width:560px){.checks td{white-space:normal}}
 .over{color:var(--bad);font-weight:700}
 .measure{font-weight:400;font-size:.95rem;margin-top:2px}
 .ack{border:2px solid var(--hull);border-radius:8px;padding:2px 12px 10px;margin-top:1.3em}

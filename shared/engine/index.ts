@@ -53,3 +53,4 @@ export {
   type SpaceForecast,
 } from './flooding';
 export { soundingEvidence, type SoundingEvidence } from './flooding-soundings';
+export { dormandPrince, rosenbrock23, type Linearisation } from './flooding-ode';

@@ -37,3 +37,17 @@ export function edgeWords(across: { x: number; y: number; z: number }): string {
   if (ay >= ax) return across.y > 0 ? 'starboard edge' : 'port edge';
   return across.x > 0 ? 'after edge' : 'forward edge';
 }
+
+/**
+ * A horizontal direction in ship axes in words ("forward", "to port", "aft and to stbd"), naming a
+ * component only when it is at least a quarter of the other (about 14° off the axis).
+ */
+export function horizontalWords(d: { x: number; y: number } | null): string {
+  if (!d || (d.x === 0 && d.y === 0)) return '';
+  const ax = Math.abs(d.x), ay = Math.abs(d.y);
+  const fore = d.x > 0 ? 'forward' : 'aft';
+  const side = d.y > 0 ? 'to port' : 'to stbd';
+  if (ay < 0.25 * ax) return fore;
+  if (ax < 0.25 * ay) return side;
+  return `${fore} and ${side}`;
+}

@@ -161,7 +161,8 @@ class RunPlanner {
   }
 
   private answerRepeat(change: SurveyChange, earlier: ProcessedChange): void {
-    if (earlier.orgId !== this.input.orgId) {
+    // Someone else's change id (another firm's, or a colleague's): never a repeat of this caller's change.
+    if (earlier.orgId !== this.input.orgId || earlier.userId !== this.input.userId) {
       this.plan.results.push({ ...answerOf(change), status: 'rejected', reason: 'This change id is already in use.' });
       return;
     }

@@ -12,6 +12,7 @@ import { ROLE_LABELS, type Member, type MembershipStatus } from '@shared/api/aut
 import { ROLES, type Role } from '@shared/api/roles';
 import { Button } from '@client/components/ui/button';
 import type { MemberAction } from '../api/update-member';
+import { formatUtc } from '@shared/review/time-words';
 import { EmailText } from '@client/components/ui/email-text';
 
 const STATUS: Record<MembershipStatus, { label: string; className: string }> = {
@@ -21,7 +22,7 @@ const STATUS: Record<MembershipStatus, { label: string; className: string }> = {
 };
 
 const dateTime = (iso: string | null) =>
-  iso ? new Date(iso).toLocaleString(undefined, { dateStyle: 'medium', timeStyle: 'short' }) : '—';
+  formatUtc(iso);
 
 function StatusChip({ status }: { status: MembershipStatus }) {
   const s = STATUS[status];

@@ -5,9 +5,10 @@ import { BRIEFABLE_STATUSES, type SurveyStatus } from '@shared/review/status';
 import { useIssueBrief, useRevokeBrief } from '../api/briefs';
 import { buttonClass } from '@client/components/ui/button';
 import { inputCls } from '@client/components/ui/fields';
+import { formatUtc } from '@shared/review/time-words';
 import { EmailText } from '@client/components/ui/email-text';
 
-const when = (iso: string) => new Date(iso).toLocaleString('en-GB', { dateStyle: 'medium', timeStyle: 'short', timeZone: 'UTC' }) + ' UTC';
+const when = formatUtc;
 
 const EXPIRY_CHOICES = [
   { hours: 12, label: '12 hours' },

@@ -32,8 +32,10 @@ import { formatShipAndUtc } from '@shared/review/time-words';
 import { FigureNotesPanel } from './figure-notes-panel';
 import { VerdictPanel } from './verdict-panel';
 import { ReviewModel3d } from './review-model3d';
+import { ResultInputs, SpaceInputLinks, SurveyInputs, type InputTarget } from '@client/features/survey-inputs/components/survey-inputs';
+import { conditionName } from '@shared/review/plain-words';
 
-type Tab = 'results' | 'model' | 'forecast' | 'history';
+type Tab = 'results' | 'inputs' | 'model' | 'forecast' | 'history';
 
 function useDeviceNumbers(doc: Survey | null): DeviceNumbers {
   return useMemo(() => {
@@ -52,6 +54,11 @@ export function ReviewDesk({ surveyId }: { surveyId: string }) {
   const [tab, setTab] = useState<Tab>('results');
   const [selected, setSelected] = useState<string | null>(null);
   const wide = useMediaQuery(WIDE_SCREEN);
+  const [inputFocus, setInputFocus] = useState<InputTarget | null>(null);
+  const showInput = (t: InputTarget) => {
+    setInputFocus(t);
+    setTab('inputs');
+  };
   const parsed = useMemo(() => (review.data ? UpgradingSurveySchema.safeParse(review.data.doc) : null), [review.data]);
   const doc = parsed?.success ? parsed.data : null;
   const device = useDeviceNumbers(doc);
@@ -87,7 +94,7 @@ export function ReviewDesk({ surveyId }: { surveyId: string }) {
   const selectedBoundary = stored ? { ...stored, loadDiagram: stored.loadDiagram.length > 0 ? stored.loadDiagram : (diagram ?? []) } : null;
   const byId = new Map(doc.boundaries.map((b) => [b.id, b]));
   const rows = shown ? shown.boundaries.flatMap((b) => { const sb = byId.get(b.id); return sb ? [summariseBoundary(b, sb)] : []; }) : [];
-  const names = new Map<string, string>([...doc.compartments, ...doc.boundaries, ...doc.conditions.map((c) => ({ id: c.id, name: c.name ?? c.time }))].map((x) => [x.id, x.name]));
+  const names = new Map<string, string>([...doc.compartments, ...doc.boundaries, ...doc.conditions.map((c) => ({ id: c.id, name: conditionName(c, doc.vessel.shipTimeOffsetMin) })), ...(doc.photos ?? []).map((p) => ({ id: p.id, name: p.caption })), ...doc.fluids].map((x) => [x.id, x.name]));
   const condition = doc.conditions.find((c) => c.id === doc.activeConditionId);
 
   const tabBtn = (t: Tab, label: string) => (
@@ -142,6 +149,7 @@ export function ReviewDesk({ surveyId }: { surveyId: string }) {
           <NumbersCheck device={device} server={server} agreement={agreement} serverRevision={r.serverComputedRevision} revision={r.revision} system={system} />
           <div role="tablist" aria-label="Survey views" className="flex flex-wrap gap-1 border-b border-line">
             {tabBtn('results', 'Results')}
+            {tabBtn('inputs', 'Inputs')}
             {tabBtn('model', '3D model')}
             {tabBtn('forecast', 'Forecast')}
             {tabBtn('history', 'History')}
@@ -152,14 +160,17 @@ export function ReviewDesk({ surveyId }: { surveyId: string }) {
               {parsed?.success && <ShipResponsePanel survey={parsed.data} results={shown} system={system} />}
               <BoundaryResultsTable results={shown} rows={rows} system={system} selectedId={selected} onSelect={setSelected} />
               {selectedBoundary && <BoundaryDetail boundary={selectedBoundary} results={shown} system={system} />}
+              {selectedBoundary && <ResultInputs doc={doc} boundaryId={selectedBoundary.id} system={system} onOpen={showInput} />}
               <CompartmentTable results={shown} system={system} />
+              <SpaceInputLinks doc={doc} onOpen={showInput} />
               <Cautions compact />
             </div>
           )}
           {tab === 'results' && !shown && <p>No results to show.</p>}
           {tab === 'model' && <ReviewModel3d survey={doc} results={shown} rows={rows} system={system} selectedId={selected} onSelect={setSelected} />}
           {tab === 'forecast' && <ReviewForecast doc={doc} system={system} />}
-          {tab === 'history' && <HistoryPanel surveyId={surveyId} names={names} system={system} />}
+          {tab === 'inputs' && <SurveyInputs doc={doc} system={system} focus={inputFocus} revision={r.revision} />}
+          {tab === 'history' && <HistoryPanel surveyId={surveyId} names={names} system={system} shipTimeOffsetMin={doc.vessel.shipTimeOffsetMin} onShowInput={showInput} />}
         </div>
         <div
           className="min-w-0 space-y-3 lg:sticky lg:top-16 lg:max-h-[calc(100dvh-5rem)] lg:overflow-y-auto lg:pr-1"
