@@ -116,9 +116,20 @@ export function formatQuantity(valueSi: number, dimension: Dimension, system: Un
 /** Significant-figure formatting without exponent notation for everyday magnitudes. */
 export function formatNumber(value: number, digits = 4): string {
   if (!Number.isFinite(value)) return String(value);
-  if (value === 0) return '0';
+  // Below 1e-9 of any unit we show is round-off of a zero (a centroid on the centreline comes out
+  // as 1.5e-16), never a figure: say 0, not "1.53e-16".
+  if (Math.abs(value) < 1e-9) return '0';
   const magnitude = Math.floor(Math.log10(Math.abs(value)));
   if (magnitude >= 9 || magnitude < -4) return value.toExponential(digits - 1);
   const decimals = Math.max(0, digits - 1 - magnitude);
   return value.toFixed(decimals);
 }
+
+/** A stress in the unit the plate and shore forms take it in: MPa, or ksi in US customary ("160 MPa"). */
+export function formatStress(valuePa: number, system: UnitSystem, digits = 4, withUnit = true): string {
+  const n = formatNumber(system === 'us' ? valuePa / (1000 * PSI_PA) : valuePa / 1e6, digits);
+  return withUnit ? `${n} ${STRESS_UNIT[system]}` : n;
+}
+
+/** The label of the stress unit of each system. */
+export const STRESS_UNIT: Record<UnitSystem, string> = { si: 'MPa', us: 'ksi' };

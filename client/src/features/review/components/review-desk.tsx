@@ -29,10 +29,13 @@ import { StatusActions } from './status-actions';
 import { ReportButton } from '@client/components/report/report-button';
 import { formatShipAndUtc } from '@shared/review/time-words';
 import { FigureNotesPanel } from './figure-notes-panel';
+import { SinceReviewPanel } from './since-review-panel';
 import { VerdictPanel } from './verdict-panel';
 import { ReviewModel3d } from './review-model3d';
+import { ResultInputs, SpaceInputLinks, SurveyInputs, type InputTarget } from '@client/features/survey-inputs/components/survey-inputs';
+import { conditionName } from '@shared/review/plain-words';
 
-type Tab = 'results' | 'model' | 'forecast' | 'history';
+type Tab = 'results' | 'inputs' | 'model' | 'forecast' | 'history';
 
 function useDeviceNumbers(doc: Survey | null): DeviceNumbers {
   return useMemo(() => {
@@ -50,6 +53,11 @@ export function ReviewDesk({ surveyId }: { surveyId: string }) {
   const system = useUnitSystem();
   const [tab, setTab] = useState<Tab>('results');
   const [selected, setSelected] = useState<string | null>(null);
+  const [inputFocus, setInputFocus] = useState<InputTarget | null>(null);
+  const showInput = (t: InputTarget) => {
+    setInputFocus(t);
+    setTab('inputs');
+  };
   const parsed = useMemo(() => (review.data ? UpgradingSurveySchema.safeParse(review.data.doc) : null), [review.data]);
   const doc = parsed?.success ? parsed.data : null;
   const device = useDeviceNumbers(doc);
@@ -78,14 +86,15 @@ export function ReviewDesk({ surveyId }: { surveyId: string }) {
 
   const shown = server ?? device.results;
   const editable = r.viewer.role === 'engineer' && REVIEWABLE_STATUSES.includes(r.status);
-  const isSubmitter = r.submittedById === r.viewer.userId;
+  // the own-work rule as the server applies it: made, edited or sent at any revision
+  const isSubmitter = r.viewerWorkedOn || r.submittedById === r.viewer.userId;
   // the detail of the boundary opened: the server's stored figures, with the load diagram this device computes on demand
   const stored = shown?.boundaries.find((b) => b.id === selected) ?? null;
   const diagram = stored && doc ? computeBoundaryDetail(doc, stored.id, { conditionId: shown?.conditionId })?.loadDiagram : undefined;
   const selectedBoundary = stored ? { ...stored, loadDiagram: stored.loadDiagram.length > 0 ? stored.loadDiagram : (diagram ?? []) } : null;
   const byId = new Map(doc.boundaries.map((b) => [b.id, b]));
   const rows = shown ? shown.boundaries.flatMap((b) => { const sb = byId.get(b.id); return sb ? [summariseBoundary(b, sb)] : []; }) : [];
-  const names = new Map<string, string>([...doc.compartments, ...doc.boundaries, ...doc.conditions.map((c) => ({ id: c.id, name: c.name ?? c.time }))].map((x) => [x.id, x.name]));
+  const names = new Map<string, string>([...doc.compartments, ...doc.boundaries, ...doc.conditions.map((c) => ({ id: c.id, name: conditionName(c, doc.vessel.shipTimeOffsetMin) })), ...(doc.photos ?? []).map((p) => ({ id: p.id, name: p.caption })), ...doc.fluids].map((x) => [x.id, x.name]));
   const condition = doc.conditions.find((c) => c.id === doc.activeConditionId);
 
   const tabBtn = (t: Tab, label: string) => (
@@ -120,6 +129,7 @@ export function ReviewDesk({ surveyId }: { surveyId: string }) {
         />
         <ReportButton surveyId={surveyId} className="ml-auto" />
       </div>
+      {r.sinceReview && <SinceReviewPanel since={r.sinceReview} revision={r.revision} system={system} />}
       <FigureNotesPanel doc={doc} />
       <nav aria-label="On this page" className="mt-2 flex flex-wrap gap-x-4 text-sm font-bold lg:hidden">
         {[
@@ -138,6 +148,7 @@ export function ReviewDesk({ surveyId }: { surveyId: string }) {
           <NumbersCheck device={device} server={server} agreement={agreement} serverRevision={r.serverComputedRevision} revision={r.revision} system={system} />
           <div role="tablist" aria-label="Survey views" className="flex flex-wrap gap-1 border-b border-line">
             {tabBtn('results', 'Results')}
+            {tabBtn('inputs', 'Inputs')}
             {tabBtn('model', '3D model')}
             {tabBtn('forecast', 'Forecast')}
             {tabBtn('history', 'History')}
@@ -148,14 +159,17 @@ export function ReviewDesk({ surveyId }: { surveyId: string }) {
               {parsed?.success && <ShipResponsePanel survey={parsed.data} results={shown} system={system} />}
               <BoundaryResultsTable results={shown} rows={rows} system={system} selectedId={selected} onSelect={setSelected} />
               {selectedBoundary && <BoundaryDetail boundary={selectedBoundary} results={shown} system={system} />}
+              {selectedBoundary && <ResultInputs doc={doc} boundaryId={selectedBoundary.id} system={system} onOpen={showInput} />}
               <CompartmentTable results={shown} system={system} />
+              <SpaceInputLinks doc={doc} onOpen={showInput} />
               <Cautions compact />
             </div>
           )}
           {tab === 'results' && !shown && <p>No results to show.</p>}
           {tab === 'model' && <ReviewModel3d survey={doc} results={shown} rows={rows} system={system} selectedId={selected} onSelect={setSelected} />}
           {tab === 'forecast' && <ReviewForecast doc={doc} system={system} />}
-          {tab === 'history' && <HistoryPanel surveyId={surveyId} names={names} system={system} />}
+          {tab === 'inputs' && <SurveyInputs doc={doc} system={system} focus={inputFocus} revision={r.revision} />}
+          {tab === 'history' && <HistoryPanel surveyId={surveyId} names={names} system={system} shipTimeOffsetMin={doc.vessel.shipTimeOffsetMin} onShowInput={showInput} />}
         </div>
         <div className="min-w-0 space-y-3">
           <VerdictPanel key={`v-${r.verdicts.length}`} surveyId={surveyId} doc={doc} verdicts={r.verdicts} editable={editable} />

@@ -19,6 +19,7 @@ import { paths } from '@client/config/paths';
 import type { SurveyStatus } from '@shared/schemas/sync';
 import { inputCls, primaryBtn } from '@client/components/ui/fields';
 import { ImportButton } from './survey-file';
+import { formatLocal } from '@shared/review/time-words';
 
 const STATUS_LABEL: Record<SurveyStatus, string> = {
   draft: 'Draft',
@@ -26,6 +27,7 @@ const STATUS_LABEL: Record<SurveyStatus, string> = {
   in_review: 'In review',
   accepted: 'Accepted',
   returned: 'Returned',
+  changed_since_review: 'Changed since review',
 };
 
 interface Row {
@@ -74,7 +76,7 @@ export function SurveyList() {
         ),
       }),
       col.accessor((r) => r.survey.status, { id: 'status', header: 'Status', cell: (c) => STATUS_LABEL[c.getValue()] }),
-      col.accessor((r) => r.survey.updatedAt, { id: 'updated', header: 'Last edit', cell: (c) => new Date(c.getValue()).toLocaleString() }),
+      col.accessor((r) => r.survey.updatedAt, { id: 'updated', header: 'Last edit', cell: (c) => formatLocal(c.getValue()) }),
       col.accessor((r) => r.pending, {
         id: 'sync',
         header: 'Sync',

@@ -7,10 +7,10 @@ import { SURVEY_SCHEMA_VERSION } from '@shared/schemas/survey';
 
 export const newId = (): string => crypto.randomUUID();
 
-export function newCondition(from?: Condition): Condition {
+export function newCondition(from?: Condition, name?: string): Condition {
   return {
     id: newId(),
-    name: undefined,
+    name,
     time: new Date().toISOString(),
     // readings start empty: a new set is read afresh, only the pipes and the fluids carry over
     drafts: {},
