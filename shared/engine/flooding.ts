@@ -51,7 +51,7 @@ export type Governs = 'rating' | 'stiffeners' | 'plating' | 'shores';
 
 /** A "what if" change to the survey before the forecast runs. */
 export type FloodVariant =
-  | { kind: 'pump-added'; compartmentId: string; capacityM3S: number; suctionHeightM?: number }
+  | { kind: 'pump-added'; compartmentId: string; capacityM3S: number; suctionHeightM?: number; /** Several added pumps need their own ids. */ pumpId?: string; name?: string }
   | { kind: 'pump-stopped'; pumpId: string }
   | { kind: 'breach-reduced'; breachId: string; /** 0: plugged */ remainingFraction: number }
   | { kind: 'space-vented'; compartmentId: string };
@@ -61,7 +61,8 @@ export interface ForecastOptions {
   /** Hours ahead (default: the condition's setting, else 24). */
   horizonH?: number;
   outputSteps?: number;
-  variant?: FloodVariant;
+  /** A "what if": one change, or several applied in order. */
+  variant?: FloodVariant | readonly FloodVariant[];
   /** Run the condition's pumping plan (default true). */
   withPlan?: boolean;
   /** Integrator tolerances (default rtol 1e-6, atol 1e-6 m³: levels within 0.1 mm of a run at 1e-9 on the bench vessel). */
@@ -155,7 +156,7 @@ export function applyFloodVariant(survey: Survey, conditionId: string, v: FloodV
         ...survey,
         compartments: survey.compartments.map((c) =>
           c.id === v.compartmentId
-            ? { ...c, pumps: [...(c.pumps ?? []), { id: `what-if-pump-${c.id}`, name: 'Added pump (what if)', capacityM3S: v.capacityM3S, suctionHeightM: v.suctionHeightM }] }
+            ? { ...c, pumps: [...(c.pumps ?? []), { id: v.pumpId ?? `what-if-pump-${c.id}`, name: v.name ?? 'Added pump (what if)', capacityM3S: v.capacityM3S, suctionHeightM: v.suctionHeightM }] }
             : c,
         ),
       };
@@ -260,7 +261,8 @@ function liquidTopOf(m: FloodModel, y: Float64Array, s: number): number {
 /** Runs the forecast. Pure: the survey is not modified. */
 export function forecastFlooding(surveyIn: Survey, options: ForecastOptions = {}): FloodForecast {
   const conditionId = options.conditionId ?? surveyIn.activeConditionId;
-  const survey = options.variant ? applyFloodVariant(surveyIn, conditionId, options.variant) : surveyIn;
+  const variants: readonly FloodVariant[] = options.variant === undefined ? [] : Array.isArray(options.variant) ? options.variant : [options.variant as FloodVariant];
+  const survey = variants.reduce((s, v) => applyFloodVariant(s, conditionId, v), surveyIn);
   const condition = survey.conditions.find((c) => c.id === conditionId);
   if (!condition) throw new Error(`forecastFlooding: no condition with id ${conditionId}`);
   const settings = condition.flooding ?? {};

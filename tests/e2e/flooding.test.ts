@@ -8,6 +8,7 @@ import type { Browser } from 'playwright-core';
 import { launchBrowser, screenshotPath } from '../support/browser';
 import { forecastFlooding } from '@shared/engine';
 import { hmm } from '@shared/api/cautions';
+import { formatShipTime } from '@shared/review/time-words';
 import { DEMO, localDoc, signIn } from '../support/e2e';
 
 const baseUrl = inject('baseUrl');
@@ -73,19 +74,63 @@ describe('flooding forecast on the phone, offline', () => {
     expect(later, 'a boundary reaches its limit after the readings').toBeDefined();
     const row = page.getByTestId('limits-table').locator(`tr[data-boundary-id="${later!.boundaryId}"]`);
     await expect.poll(() => row.getByTestId('limit-hmm').textContent(), { timeout: 20_000 }).toBe(hmm(later!.atS));
+    // said in ship's time (the demo's clock is UTC+01:00), as the brief says it
+    expect(await row.locator('td').first().textContent()).toBe(formatShipTime(new Date(Date.parse(f.readingsTime) + later!.atS * 1000), doc.vessel.shipTimeOffsetMin!));
     expect(await page.getByTestId('forecast-caution').textContent()).toContain('New soundings replace it');
-    await page.getByTestId('forecast-chart').waitFor({ timeout: 20_000 });
+
+    // a what if composed on the same screen: the new pump stopped and the new breach reduced to 0.01 m²
+    const whatIf = page.getByRole('form', { name: 'Add a change to the what if' });
+    const portable = doc.compartments.find((c) => c.id === STEERING)!.pumps![0];
+    const hole = doc.compartments.find((c) => c.id === STEERING)!.breaches![0];
+    await whatIf.getByLabel('Change').selectOption('pump-stopped');
+    await whatIf.getByLabel('Pump').selectOption(portable.id);
+    await whatIf.getByRole('button', { name: '+ Add to the what if' }).click();
+    await whatIf.getByLabel('Change').selectOption('breach-reduced');
+    await whatIf.getByLabel('Breach').selectOption(hole.id);
+    // a negative area is refused under its field, and what was typed stays
+    await whatIf.getByLabel(/Area left open/).fill('-0.01');
+    await whatIf.getByRole('button', { name: '+ Add to the what if' }).click();
+    await whatIf.getByText('Must not be negative.').waitFor({ timeout: 10_000 });
+    expect(await whatIf.getByLabel(/Area left open/).inputValue()).toBe('-0.01');
+    await whatIf.getByLabel(/Area left open/).fill('0.01');
+    await whatIf.getByRole('button', { name: '+ Add to the what if' }).click();
+    const wf = forecastFlooding(doc, {
+      variant: [
+        { kind: 'pump-stopped', pumpId: portable.id },
+        { kind: 'breach-reduced', breachId: hole.id, remainingFraction: 0.01 / hole.areaM2 },
+      ],
+    });
+    const wl = wf.limits[0];
+    await expect.poll(() => page.getByTestId('what-if-nearest').textContent(), { timeout: 20_000 }).toContain(wl ? (wl.atS === 0 ? 'already over' : `(in ${hmm(wl.atS)})`) : 'no boundary reaches its limit');
+    await page.getByTestId('forecast-chart').first().waitFor({ timeout: 20_000 });
     expect(await page.evaluate(() => document.documentElement.scrollWidth - window.innerWidth)).toBeLessThanOrEqual(0);
     await page.screenshot({ path: screenshotPath('flooding-390'), fullPage: true });
 
     // soundings out of time order are refused (No. 2 hold's log ends 07:30 UTC)
     await page.getByLabel('Space', { exact: true }).first().selectOption('5eed0000-0000-4000-8000-00000000000d');
     const sounding = page.getByRole('form', { name: 'Add a sounding' });
-    await sounding.getByLabel('Ship’s time').fill('2025-03-14T01:00');
+    await sounding.getByLabel(/Time of the reading/).fill('2025-03-14T01:00');
     await sounding.getByLabel(/Sounding/).fill('3.7');
     await sounding.getByRole('button', { name: '+ Add sounding' }).click();
     await sounding.getByText(/Out of time order/).waitFor({ timeout: 10_000 });
     expect(await sounding.getByLabel(/Sounding/).inputValue()).toBe('3.7');
+    expect(await sounding.getByLabel(/Time of the reading/).inputValue()).toBe('2025-03-14T01:00');
+    // a later ship's time (UTC+01:00) is taken, and stored as UTC
+    await sounding.getByLabel(/Time of the reading/).fill('2025-03-14T09:45');
+    await sounding.getByRole('button', { name: '+ Add sounding' }).click();
+    const hold = () => localDoc(page, DEMO_SURVEY_ID).then((d) => d.compartments.find((c) => c.id === '5eed0000-0000-4000-8000-00000000000d')!.soundingLog!);
+    await expect.poll(async () => (await hold()).readings.at(-1)?.time).toBe('2025-03-14T08:45:00.000Z');
+    // the pipe is editable; a bottom outside the space is refused and kept
+    const pipe = page.getByRole('form', { name: 'Sounding pipe' });
+    await pipe.getByLabel(/Pipe bottom z/).fill('-30');
+    await pipe.getByRole('button', { name: 'Save pipe' }).click();
+    await pipe.getByText(/Outside the space/).waitFor({ timeout: 10_000 });
+    expect(await pipe.getByLabel(/Pipe bottom z/).inputValue()).toBe('-30');
+    await pipe.getByLabel(/Pipe x/).fill('85.5');
+    await pipe.getByLabel(/Pipe bottom z/).fill(String((await hold()).pipe.bottomZM));
+    await pipe.getByRole('button', { name: 'Save pipe' }).click();
+    await expect.poll(async () => (await hold()).pipe.x).toBe(85.5);
+    await page.screenshot({ path: screenshotPath('flooding-sounding-390'), fullPage: true });
     await context.close();
   }, 240_000);
 });

@@ -1,16 +1,23 @@
 /**
  * The forecast's timeline: liquid levels of the spaces that change (left axis, m above their
- * lowest point) and the worst boundary utilisation (right axis, %), with a marker at each time a
+ * lowest point) against the ship's clock, and the worst boundary utilisation (right axis, %), with a marker at each time a
  * boundary reaches its limit. uPlot, in its own lazily loaded chunk (a lazy default export).
  */
 import { useEffect, useRef } from 'react';
 import uPlot from 'uplot';
 import 'uplot/dist/uPlot.min.css';
 import type { FloodForecast } from '@shared/engine';
+import { utcOffsetWords } from '@shared/review/time-words';
 
 const COLOURS = ['#0b4f6c', '#2a9d8f', '#8a5a00', '#5b3a8c', '#1d6f42', '#7a1f1f'];
 
-export default function ForecastChart({ forecast, width }: { forecast: FloodForecast; width: number }) {
+/** "10:30" on the ship's clock (UTC when the offset is not set), `h` hours after the readings. */
+function clockAt(readingsTime: string, h: number, offsetMin: number | undefined): string {
+  const d = new Date(Date.parse(readingsTime) + h * 3_600_000 + (offsetMin ?? 0) * 60_000);
+  return d.toISOString().slice(11, 16);
+}
+
+export default function ForecastChart({ forecast, width, offsetMin }: { forecast: FloodForecast; width: number; offsetMin?: number }) {
   const ref = useRef<HTMLDivElement>(null);
   useEffect(() => {
     if (!ref.current) return;
@@ -24,7 +31,13 @@ export default function ForecastChart({ forecast, width }: { forecast: FloodFore
       height: 260,
       scales: { x: { time: false }, pct: { auto: true } },
       axes: [
-        { label: 'hours from the readings' },
+        {
+          label: offsetMin === undefined ? 'UTC (hours from the readings)' : `ship's time, ${utcOffsetWords(offsetMin)} (hours from the readings)`,
+          // whole hours only; each tick says the clock time and how long after the readings
+          incrs: [1, 2, 3, 4, 6, 8, 12, 24, 48],
+          values: (_u, splits) => splits.map((h) => `${clockAt(forecast.readingsTime, h, offsetMin)}\n+${h} h`),
+          size: 48,
+        },
         { label: 'level, m' },
         { side: 1, scale: 'pct', label: 'worst utilisation, %', grid: { show: false } },
       ],
@@ -55,6 +68,6 @@ export default function ForecastChart({ forecast, width }: { forecast: FloodFore
     };
     const plot = new uPlot(opts, data, ref.current);
     return () => plot.destroy();
-  }, [forecast, width]);
+  }, [forecast, width, offsetMin]);
   return <div ref={ref} data-testid="forecast-chart" />;
 }

@@ -10,6 +10,7 @@ import type { UnitSystem } from '@shared/units/units';
 import { FORECAST_CAUTION, STABILITY_CAUTION, durationWords, hmm } from '@shared/api/cautions';
 import { fmt, num, percent, unitLabel } from '@client/lib/unit-system';
 import { downfloodingSentences, forecastAttitudeWords } from '@shared/review/forecast-words';
+import { formatShipTime, formatUtc, utcOffsetWords } from '@shared/review/time-words';
 
 const ForecastChart = lazy(() => import('./forecast-chart'));
 
@@ -84,10 +85,27 @@ function ForecastAttitude({ forecast, survey, system }: { forecast: FloodForecas
   );
 }
 
-/** Ship's time of a moment `s` seconds after the readings (UTC, as the readings are stored). */
-export function shipTime(readingsTime: string, s: number): string {
-  const d = new Date(Date.parse(readingsTime) + s * 1000);
-  return `${d.toISOString().slice(0, 10)} ${d.toISOString().slice(11, 16)} UTC`;
+/** A moment `s` seconds after the readings in ship's time with its UTC offset (UTC alone when the ship's clock offset is not set). */
+export function shipTime(readingsTime: string, s: number, offsetMin: number | undefined): string {
+  const iso = new Date(Date.parse(readingsTime) + s * 1000).toISOString();
+  return offsetMin === undefined ? formatUtc(iso) : formatShipTime(iso, offsetMin);
+}
+
+/** The clock the forecast's times are said in: "ship's time, UTC+03:00", or "UTC". */
+export function clockWords(offsetMin: number | undefined): string {
+  return offsetMin === undefined ? 'UTC (ship’s clock offset not set)' : `ship’s time, ${utcOffsetWords(offsetMin)}`;
+}
+
+/** A forecast's timeline chart, lazily loaded, at the width of its box. */
+export function ForecastTimeline({ forecast, offsetMin }: { forecast: FloodForecast; offsetMin: number | undefined }) {
+  const { ref, w } = useWidth();
+  return (
+    <div ref={ref} className="min-w-0 overflow-hidden rounded-lg border-2 border-line bg-card p-2">
+      <Suspense fallback={<p className="p-4 text-ink-soft">Drawing the timeline…</p>}>
+        <ForecastChart forecast={forecast} width={w - 16} offsetMin={offsetMin} />
+      </Suspense>
+    </div>
+  );
 }
 
 function useWidth() {
@@ -104,7 +122,8 @@ function useWidth() {
 }
 
 export function ForecastView({ forecast, survey, system, now = Date.now() }: { forecast: FloodForecast; survey: Survey; system: UnitSystem; now?: number }) {
-  const { ref, w } = useWidth();
+  const offsetMin = survey.vessel.shipTimeOffsetMin;
+  const at = (sec: number) => shipTime(forecast.readingsTime, sec, offsetMin);
   const name = (id: string) => survey.compartments.find((c) => c.id === id)?.name ?? id;
   const pumpName = (id: string) => survey.compartments.flatMap((c) => c.pumps ?? []).find((p) => p.id === id)?.name ?? 'missing pump';
   const age = now - Date.parse(forecast.latestReadingTime);
@@ -112,15 +131,11 @@ export function ForecastView({ forecast, survey, system, now = Date.now() }: { f
   return (
     <div className="space-y-4" data-testid="forecast">
       <p className="rounded-lg border-2 border-caution bg-caution-soft p-3 text-sm" data-testid="forecast-caution">
-        <b>{FORECAST_CAUTION}</b> It rests on readings taken {shipTime(forecast.latestReadingTime, 0)}
+        <b>{FORECAST_CAUTION}</b> It rests on readings taken {shipTime(forecast.latestReadingTime, 0, offsetMin)}
         {age > 0 ? `, ${durationWords(age)} ago` : ''}.
       </p>
       <ForecastAttitude forecast={forecast} survey={survey} system={system} />
-      <div ref={ref} className="min-w-0 overflow-hidden rounded-lg border-2 border-line bg-card p-2">
-        <Suspense fallback={<p className="p-4 text-ink-soft">Drawing the timeline…</p>}>
-          <ForecastChart forecast={forecast} width={w - 16} />
-        </Suspense>
-      </div>
+      <ForecastTimeline forecast={forecast} offsetMin={offsetMin} />
       <section aria-labelledby="limits-h">
         <h3 id="limits-h" className="text-lg">
           When boundaries reach their limit ({(forecast.horizonS / 3600).toFixed(0)} h ahead)
@@ -133,7 +148,7 @@ export function ForecastView({ forecast, survey, system, now = Date.now() }: { f
               <thead>
                 <tr>
                   <th scope="col">Boundary</th>
-                  <th scope="col">Reaches its limit at (ship’s time)</th>
+                  <th scope="col">Reaches its limit at ({clockWords(offsetMin)})</th>
                   <th scope="col">In h:mm</th>
                   <th scope="col">What governs</th>
                 </tr>
@@ -142,7 +157,7 @@ export function ForecastView({ forecast, survey, system, now = Date.now() }: { f
                 {forecast.limits.map((l) => (
                   <tr key={l.boundaryId} className="border-t border-line" data-boundary-id={l.boundaryId}>
                     <th scope="row">{l.name}</th>
-                    <td>{l.atS === 0 ? 'already over' : shipTime(forecast.readingsTime, l.atS)}</td>
+                    <td>{l.atS === 0 ? 'already over' : at(l.atS)}</td>
                     <td className="tabular-nums" data-testid="limit-hmm">
                       {hmm(l.atS)}
                     </td>
@@ -206,7 +221,7 @@ export function ForecastView({ forecast, survey, system, now = Date.now() }: { f
                 {pumpName(st.pumpId)} on {name(st.compartmentId)}:{' '}
                 {st.problems.length > 0
                   ? `left out (${st.problems.join('; ')})`
-                  : `${hmm(st.startS)} → ${hmm(st.stopS)} (${st.stoppedBy === 'level' ? 'stopped at its level' : st.stoppedBy === 'time' ? 'stopped at its time' : 'to the end'}); level ${fmt(st.atStart?.levelM, 'length', system, 3)} → ${fmt(st.atStop?.levelM, 'length', system, 3)}; worst load ${percent(st.atStart?.worstUtilisation)} → ${percent(st.atStop?.worstUtilisation)}`}
+                  : `${at(st.startS)} → ${at(st.stopS)}, ${hmm(st.startS)} → ${hmm(st.stopS)} after the readings (${st.stoppedBy === 'level' ? 'stopped at its level' : st.stoppedBy === 'time' ? 'stopped at its time' : 'to the end'}); level ${fmt(st.atStart?.levelM, 'length', system, 3)} → ${fmt(st.atStop?.levelM, 'length', system, 3)}; worst load ${percent(st.atStart?.worstUtilisation)} → ${percent(st.atStop?.worstUtilisation)}`}
               </li>
             ))}
           </ol>
@@ -214,7 +229,7 @@ export function ForecastView({ forecast, survey, system, now = Date.now() }: { f
       )}
       {worst && (
         <p className="text-sm" data-testid="worst-moment">
-          <b>Worst moment:</b> {hmm(worst.atS)} after the readings, {survey.boundaries.find((b) => b.id === worst.boundaryId)?.name ?? ''} at {percent(worst.utilisation)}.
+          <b>Worst moment:</b> {at(worst.atS)}, {hmm(worst.atS)} after the readings, {survey.boundaries.find((b) => b.id === worst.boundaryId)?.name ?? ''} at {percent(worst.utilisation)}.
         </p>
       )}
       <p className="text-xs text-ink-soft">

@@ -1,63 +1,24 @@
 /**
  * "Flooding": what lets water in and out of each space (breaches to the sea, openings between
  * spaces), the pumps, the sounding log, the pumping plan, and the forecast that follows from them
- * (with one "what if" beside it). The forms keep what was typed and say what is wrong under the
+ * (with a composed "what if" beside it). The forms keep what was typed and say what is wrong under the
  * field; nothing is saved until it is right. Everything is computed on the device.
  */
-import { useMemo, useState, type ReactNode } from 'react';
-import { forecastFlooding, type FloodForecast, type FloodVariant } from '@shared/engine';
+import { useMemo, useState } from 'react';
+import { forecastFlooding } from '@shared/engine';
 import type { Compartment, Condition } from '@shared/schemas/survey';
 import { OPENING_FACES, type OpeningFace, type PlanStep } from '@shared/schemas/flooding';
 import type { UnitSystem } from '@shared/units/units';
-import { hmm } from '@shared/api/cautions';
-import { describedBy, Field, inputCls, primaryBtn, dangerBtn } from '@client/components/ui/fields';
+import { primaryBtn, dangerBtn } from '@client/components/ui/fields';
+import { heightOf, Input, need, Select, SpaceSelect, type Errors } from './flooding-fields';
+import { SoundingLog } from './sounding-log';
+import { WhatIf } from './what-if';
 import { fmt } from '@client/lib/unit-system';
-import { ForecastView } from '@client/features/flooding/components/forecast-view';
-import { measureLabel, parseField } from '../utils/form-units';
+import { ForecastView, shipTime } from '@client/features/flooding/components/forecast-view';
+import { measureLabel } from '../utils/form-units';
 import { activeCondition } from '../utils/new-entities';
 import { newId } from '../utils/new-entities';
 import type { Apply, SectionProps } from '../utils/types';
-import { formatUtc } from '@shared/review/time-words';
-
-type Errors = Record<string, string>;
-
-function Input({ id, label, unit, value, onChange, error, type = 'text', inputMode = 'decimal' }: { id: string; label: string; unit?: string; value: string; onChange: (v: string) => void; error?: string; type?: string; inputMode?: 'decimal' | 'text' }) {
-  return (
-    <Field id={id} label={label} unit={unit} error={error}>
-      <input id={id} type={type} inputMode={type === 'text' ? inputMode : undefined} className={inputCls} value={value} onChange={(e) => onChange(e.target.value)} aria-invalid={!!error} aria-describedby={describedBy(id, undefined, error)} />
-    </Field>
-  );
-}
-
-function Select({ id, label, value, onChange, children, error }: { id: string; label: string; value: string; onChange: (v: string) => void; children: ReactNode; error?: string }) {
-  return (
-    <Field id={id} label={label} error={error} wide>
-      <select id={id} className={inputCls} value={value} onChange={(e) => onChange(e.target.value)} aria-invalid={!!error} aria-describedby={describedBy(id, undefined, error)}>
-        {children}
-      </select>
-    </Field>
-  );
-}
-
-/** A number typed in the user's units, in SI; errors say what is wrong in words. */
-function need(errors: Errors, key: string, text: string, measure: Parameters<typeof parseField>[1], system: UnitSystem, opts: { positive?: boolean; optional?: boolean; min?: number } = {}): number | undefined {
-  if (text.trim() === '') {
-    if (!opts.optional) errors[key] = 'Enter a number.';
-    return undefined;
-  }
-  const v = parseField(text, measure, system);
-  if (v === undefined || !Number.isFinite(v)) errors[key] = 'Not a number.';
-  else if (opts.positive && v <= 0) errors[key] = 'Must be more than 0.';
-  else if (opts.min !== undefined && v < opts.min) errors[key] = 'Must not be negative.';
-  return v;
-}
-
-function heightOf(c: Compartment): { bottom: number; top: number; centre: { x: number; y: number } } {
-  const g = c.geometry;
-  if (g.kind === 'box') return { bottom: g.min.z, top: g.max.z, centre: { x: (g.min.x + g.max.x) / 2, y: (g.min.y + g.max.y) / 2 } };
-  const zs = g.section.map((p) => p.z), ys = g.section.map((p) => p.y);
-  return { bottom: Math.min(...zs), top: Math.max(...zs), centre: { x: (g.xAftM + g.xForeM) / 2, y: (Math.min(...ys) + Math.max(...ys)) / 2 } };
-}
 
 function OpeningForm({ comp, survey, system, apply, internal }: { comp: Compartment; survey: SectionProps['survey']; system: UnitSystem; apply: Apply; internal: boolean }) {
   const h = heightOf(comp);
@@ -154,64 +115,6 @@ function PumpForm({ comp, system, apply }: { comp: Compartment; system: UnitSyst
   );
 }
 
-function SoundingForm({ comp, system, apply }: { comp: Compartment; system: UnitSystem; apply: Apply }) {
-  const [v, setV] = useState({ time: '', sounding: '', pumps: [] as string[] });
-  const [pending, setPending] = useState<{ time: string; soundingM: number; pumpIds: string[] } | null>(null);
-  const [errors, setErrors] = useState<Errors>({});
-  const readings = comp.soundingLog?.readings ?? (pending ? [pending] : []);
-  const save = async () => {
-    const e: Errors = {};
-    const t = new Date(v.time);
-    if (Number.isNaN(t.getTime())) e.time = 'Enter the ship’s time of the reading.';
-    else if (readings.length > 0 && t.getTime() <= Date.parse(readings[readings.length - 1].time)) e.time = 'Out of time order: after the last reading, please.';
-    const s = need(e, 'sounding', v.sounding, 'length', system, { min: 0 });
-    setErrors(e);
-    if (Object.keys(e).length > 0) return;
-    const reading = { time: t.toISOString(), soundingM: s!, pumpIds: v.pumps };
-    if (readings.length === 0) {
-      setPending(reading);
-    } else {
-      const h = heightOf(comp);
-      const log = comp.soundingLog ?? { pipe: { x: h.centre.x, y: h.centre.y, bottomZM: h.bottom }, readings: [] };
-      await apply({ kind: 'upsert', collection: 'compartments', entity: { ...comp, soundingLog: { ...log, readings: [...readings, reading] } } });
-      setPending(null);
-    }
-    setV({ time: '', sounding: '', pumps: [] });
-  };
-  const p = `sounding-${comp.id}`;
-  return (
-    <div className="space-y-1">
-      <ul className="text-sm" aria-label="Sounding log">
-        {readings.map((r) => (
-          <li key={r.time}>
-            {formatUtc(r.time)}: {fmt(r.soundingM, 'length', system, 3)}
-            {r.pumpIds?.length ? ` · pumps ran: ${r.pumpIds.map((id) => comp.pumps?.find((q) => q.id === id)?.name ?? '?').join(', ')}` : ''}
-          </li>
-        ))}
-        {pending && <li className="text-ink-soft">One more reading starts the log.</li>}
-      </ul>
-      <form className="grid grid-cols-2 gap-2 rounded-md border-2 border-line p-2 sm:grid-cols-4" onSubmit={(e) => (e.preventDefault(), void save())} noValidate aria-label="Add a sounding">
-        <Input id={`${p}-time`} label="Ship’s time" type="datetime-local" value={v.time} onChange={(t) => setV({ ...v, time: t })} error={errors.time} />
-        <Input id={`${p}-s`} label="Sounding" unit={measureLabel('length', system)} value={v.sounding} onChange={(t) => setV({ ...v, sounding: t })} error={errors.sounding} />
-        <fieldset className="col-span-2 text-sm">
-          <legend className="font-bold">Pumps that ran since the last reading</legend>
-          {(comp.pumps ?? []).map((q) => (
-            <label key={q.id} className="mr-3 inline-flex min-h-touch items-center gap-1">
-              <input type="checkbox" className="size-6" checked={v.pumps.includes(q.id)} onChange={(e) => setV({ ...v, pumps: e.target.checked ? [...v.pumps, q.id] : v.pumps.filter((x) => x !== q.id) })} />
-              {q.name}
-            </label>
-          ))}
-        </fieldset>
-        <div className="col-span-full">
-          <button type="submit" className={primaryBtn}>
-            + Add sounding
-          </button>
-        </div>
-      </form>
-    </div>
-  );
-}
-
 function PlanEditor({ survey, condition, system, apply }: { survey: SectionProps['survey']; condition: Condition; system: UnitSystem; apply: Apply }) {
   const pumps = survey.compartments.flatMap((c) => (c.pumps ?? []).map((p) => ({ ...p, home: c.id })));
   const [v, setV] = useState({ pump: '', space: '', start: '0', stop: '', until: '' });
@@ -231,6 +134,7 @@ function PlanEditor({ survey, condition, system, apply }: { survey: SectionProps
     await save([...plan, { id: newId(), pumpId: v.pump, compartmentId: v.space, startH: start!, stopH: stop, untilLevelM: until }]);
   };
   const name = (id: string) => survey.compartments.find((c) => c.id === id)?.name ?? 'missing space';
+  const offsetMin = survey.vessel.shipTimeOffsetMin;
   return (
     <section aria-labelledby="plan-h" className="space-y-2">
       <h3 id="plan-h" className="text-lg">
@@ -239,8 +143,8 @@ function PlanEditor({ survey, condition, system, apply }: { survey: SectionProps
       <ol className="list-decimal pl-5 text-sm">
         {plan.map((st, i) => (
           <li key={st.id} className="flex flex-wrap items-center gap-2">
-            {pumps.find((p) => p.id === st.pumpId)?.name ?? <b className="text-danger">missing pump</b>} on {name(st.compartmentId)} from {st.startH} h
-            {st.stopH !== undefined ? ` to ${st.stopH} h` : ''}
+            {pumps.find((p) => p.id === st.pumpId)?.name ?? <b className="text-danger">missing pump</b>} on {name(st.compartmentId)} from {st.startH} h ({shipTime(condition.time, st.startH * 3600, offsetMin)})
+            {st.stopH !== undefined ? ` to ${st.stopH} h (${shipTime(condition.time, st.stopH * 3600, offsetMin)})` : ''}
             {st.untilLevelM !== undefined ? ` or until ${fmt(st.untilLevelM, 'length', system, 3)}` : ''}
             <button type="button" className={dangerBtn} onClick={() => void save(plan.filter((_, j) => j !== i))}>
               Remove
@@ -257,14 +161,7 @@ function PlanEditor({ survey, condition, system, apply }: { survey: SectionProps
             </option>
           ))}
         </Select>
-        <Select id="plan-space" label="Space" value={v.space} onChange={(t) => setV({ ...v, space: t })} error={errors.space}>
-          <option value="">—</option>
-          {survey.compartments.map((c) => (
-            <option key={c.id} value={c.id}>
-              {c.name}
-            </option>
-          ))}
-        </Select>
+        <SpaceSelect id="plan-space" compartments={survey.compartments} value={v.space} onChange={(t) => setV({ ...v, space: t })} error={errors.space} />
         <Input id="plan-start" label="Start" unit="h from readings" value={v.start} onChange={(t) => setV({ ...v, start: t })} error={errors.start} />
         <Input id="plan-stop" label="Stop" unit="h, optional" value={v.stop} onChange={(t) => setV({ ...v, stop: t })} error={errors.stop} />
         <Input id="plan-until" label="Or until level" unit={measureLabel('length', system)} value={v.until} onChange={(t) => setV({ ...v, until: t })} error={errors.until} />
@@ -278,29 +175,9 @@ function PlanEditor({ survey, condition, system, apply }: { survey: SectionProps
   );
 }
 
-function variantOf(text: string, survey: SectionProps['survey']): FloodVariant | undefined {
-  const [kind, id] = text.split(':');
-  if (kind === 'stop') return { kind: 'pump-stopped', pumpId: id };
-  if (kind === 'plug') return { kind: 'breach-reduced', breachId: id, remainingFraction: 0 };
-  if (kind === 'half') return { kind: 'breach-reduced', breachId: id, remainingFraction: 0.5 };
-  if (kind === 'vent') return { kind: 'space-vented', compartmentId: id };
-  if (kind === 'add') {
-    const c = survey.compartments.find((x) => x.id === id);
-    return c ? { kind: 'pump-added', compartmentId: id, capacityM3S: 150 / 3600 } : undefined;
-  }
-  return undefined;
-}
-
-function nearest(f: FloodForecast | null): string {
-  if (!f) return '—';
-  const l = f.limits[0];
-  return l ? `${l.name} in ${hmm(l.atS)}` : 'no boundary reaches its limit';
-}
-
 export function FloodingSection({ survey, apply, system }: SectionProps) {
   const condition = activeCondition(survey);
   const [spaceId, setSpaceId] = useState(survey.compartments[0]?.id ?? '');
-  const [whatIf, setWhatIf] = useState('');
   const [horizon, setHorizon] = useState(String(condition.flooding?.horizonH ?? 24));
   const [horizonError, setHorizonError] = useState<string | null>(null);
   const comp = survey.compartments.find((c) => c.id === spaceId);
@@ -311,15 +188,6 @@ export function FloodingSection({ survey, apply, system }: SectionProps) {
       return { f: null, error: err instanceof Error ? err.message : 'The forecast could not be run.' };
     }
   }, [survey]);
-  const variant = useMemo(() => {
-    const v = variantOf(whatIf, survey);
-    if (!v) return null;
-    try {
-      return forecastFlooding(survey, { variant: v });
-    } catch {
-      return null;
-    }
-  }, [survey, whatIf]);
   const saveHorizon = async (t: string) => {
     setHorizon(t);
     const h = Number(t);
@@ -390,7 +258,7 @@ export function FloodingSection({ survey, apply, system }: SectionProps) {
             Air-tight, not vented (trapped air is compressed)
           </label>
           <h3 className="text-lg">Sounding log</h3>
-          <SoundingForm comp={comp} system={system} apply={apply} />
+          <SoundingLog comp={comp} system={system} apply={apply} offsetMin={survey.vessel.shipTimeOffsetMin} />
         </div>
       )}
       <PlanEditor survey={survey} condition={condition} system={system} apply={apply} />
@@ -400,66 +268,14 @@ export function FloodingSection({ survey, apply, system }: SectionProps) {
         </h3>
         <div className="grid grid-cols-2 gap-2">
           <Input id="flood-horizon" label="Hours ahead" value={horizon} onChange={(t) => void saveHorizon(t)} error={horizonError ?? undefined} />
-          <Select id="flood-whatif" label="What if…" value={whatIf} onChange={setWhatIf}>
-            <option value="">— as entered —</option>
-            {survey.compartments.flatMap((c) => [
-              <option key={`add-${c.id}`} value={`add:${c.id}`}>
-                a 150 m³/h pump added in {c.name}
-              </option>,
-              ...(c.pumps ?? []).map((p) => (
-                <option key={`stop-${p.id}`} value={`stop:${p.id}`}>
-                  {p.name} stopped
-                </option>
-              )),
-              ...(c.breaches ?? []).flatMap((b, i) => [
-                <option key={`plug-${b.id}`} value={`plug:${b.id}`}>
-                  breach {i + 1} of {c.name} plugged
-                </option>,
-                <option key={`half-${b.id}`} value={`half:${b.id}`}>
-                  breach {i + 1} of {c.name} halved
-                </option>,
-              ]),
-              ...(c.airTight ? [<option key={`vent-${c.id}`} value={`vent:${c.id}`}>{c.name} vented</option>] : []),
-            ])}
-          </Select>
         </div>
         {base.error && (
           <p className="font-bold text-danger" role="alert">
             Forecast not run: {base.error}
           </p>
         )}
-        {variant && base.f && (
-          <table className="w-full text-left text-sm" data-testid="what-if">
-            <thead>
-              <tr>
-                <th scope="col" />
-                <th scope="col">As entered</th>
-                <th scope="col">What if</th>
-              </tr>
-            </thead>
-            <tbody>
-              <tr>
-                <th scope="row">Nearest limit</th>
-                <td>{nearest(base.f)}</td>
-                <td>{nearest(variant)}</td>
-              </tr>
-              {base.f.spaces
-                .filter((s) => s.pumps || variant.spaces.find((x) => x.id === s.id)?.pumps)
-                .map((s) => {
-                  const o = variant.spaces.find((x) => x.id === s.id)!;
-                  const words = (p: typeof s.pumps) => (!p ? 'no pumps' : p.verdict === 'dry' ? `dry in ${hmm(p.dryAtS ?? 0)}` : p.verdict);
-                  return (
-                    <tr key={s.id}>
-                      <th scope="row">{s.name}</th>
-                      <td>{words(s.pumps)}</td>
-                      <td>{words(o.pumps)}</td>
-                    </tr>
-                  );
-                })}
-            </tbody>
-          </table>
-        )}
         {base.f && <ForecastView forecast={base.f} survey={survey} system={system} />}
+        {base.f && <WhatIf survey={survey} base={base.f} system={system} />}
       </section>
     </section>
   );
