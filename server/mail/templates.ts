@@ -46,6 +46,26 @@ export function invitationMail(m: {
   };
 }
 
+/**
+ * To an address that already has an account with another organisation, instead of an invitation
+ * link (one address belongs to one organisation). The inviting admin is answered exactly as for any
+ * invitation; only the address's owner learns why no link came.
+ */
+export function invitationElsewhereMail(m: { to: string; orgName: string; inviterName: string | null; signInLink: string }): Omit<MailMessage, 'orgId'> {
+  const who = m.inviterName ? `${m.inviterName} of ${m.orgName}` : `An administrator of ${m.orgName}`;
+  const lines = [
+    `${who} has invited this address to Brineline.`,
+    'This address already has a Brineline account with another organisation, and one address can belong to one organisation only, so no invitation link is sent. Nothing has changed for your account.',
+    `If you are to work with ${m.orgName}, ask them to invite another address of yours.`,
+  ];
+  return {
+    to: m.to,
+    subject: `About an invitation from ${m.orgName}`,
+    text: `${lines.join('\n\n')}\n\n${m.signInLink}\n`,
+    html: html(lines, { href: m.signInLink, label: 'Sign in to your account' }),
+  };
+}
+
 export function passwordResetMail(m: { to: string; name: string; link: string; expiresAt: Date }): Omit<MailMessage, 'orgId'> {
   const lines = [
     m.name ? `Hello ${m.name},` : 'Hello,',

@@ -8,13 +8,15 @@ import { withheldSentence, type BoundaryResult, type SurveyResults } from '@shar
 import type { OperatingLimit, Verdict } from '@shared/api/review';
 import { CAUTIONS } from '@shared/api/cautions';
 import { catalogueFluid } from '@shared/fluids/catalogue';
-import { DEFAULT_PERMEABILITY } from '@shared/schemas/space-types';
+import { defaultPermeability } from '@shared/schemas/space-types';
 import { STATUS_LABELS, type SurveyStatus } from '@shared/review/status';
 import { formatNumber, formatQuantity, formatStress, type Dimension, type UnitSystem } from '@shared/units/units';
 import { boundaryVerdictLabel, boundaryVerdictMeaning, describeLimit, namesFromSurvey, surveyVerdictLabel } from '@shared/review/words';
 import { figureNotes, figureNoteSentence } from '@shared/review/assumptions';
 import { boundaryKindWords, END_CONDITION_WORDS, SPACE_TYPE_WORDS } from '@shared/review/plain-words';
 import { formatShipAndUtc, formatUtc } from '@shared/review/time-words';
+import { structureCheckRows } from '@shared/review/structure-rows';
+import { pointWords } from '@shared/units/point-words';
 import { html, type SafeHtml } from '../brief/html';
 
 export interface ReportData {
@@ -41,7 +43,11 @@ const METHODS: { what: string; source: string }[] = [
   { what: 'Liquid volumes and centroids: each space clipped by the level planes, times permeability and density', source: 'Divergence theorem over the clipped polyhedron' },
   { what: 'Default permeabilities by space type', source: 'SOLAS Chapter II-1, Regulation 7-3' },
   { what: 'Stiffeners: each as a beam under its strip of the plate load, bending stress against the allowable', source: 'Beam theory; fixed-end and simply supported cases per AISC Steel Construction Manual, Table 3-23' },
-  { what: 'Shores: as columns, steel by flexural buckling, timber by the column stability factor', source: 'ANSI/AISC 360-16 Chapter E (E3); ANSI/AWC NDS-2018 §3.7.1' },
+  { what: 'Shores: as columns, steel by flexural buckling, timber by the column stability factor; the Euler load is shown as a secondary figure, never as the capacity', source: 'ANSI/AISC 360-16 Chapter E (E3); ANSI/AWC NDS-2018 §3.7.1' },
+  { what: 'Shores and stiffeners together: a shore bearing on a stiffener is an intermediate support of that beam (indeterminate beam solved exactly); a shore between stiffeners passes its load to both', source: 'Force method of structural analysis (virtual work)' },
+  { what: 'Plating between stiffeners: each panel in bending under its linear net pressure, σ = β q b² / t², net of corrosion allowance', source: 'Roark’s Formulas for Stress and Strain, 8th ed., Table 11.4 (cases 1a, 1d, 1e, 8a)' },
+  { what: 'Ratings with a direction: a rating towards side A or side B is checked against the net load pushing that way only', source: 'Definition of the rating' },
+  { what: 'Ullage by plumb tape: measured along earth vertical from the reference point (heel and trim corrected); along a pipe: along the ship’s upright', source: 'Ship geometry' },
   { what: 'Inflow through a breach: orifice flow Q = C_d A √(2 Δp / ρ)', source: 'Torricelli / orifice equation; C_d 0.6 for a sharp-edged opening' },
 ];
 
@@ -68,6 +74,7 @@ thead th{font-size:8.5pt;text-transform:uppercase;color:var(--soft)}
 .cautions{border:2px solid var(--care);padding:4px 10px;border-radius:6px;break-inside:avoid}
 .meta td{border:0;padding:1px 4px}
 @media (max-width:600px){.grid,.sign{grid-template-columns:1fr}}
+@media screen and (max-width:600px){.num{white-space:normal}th,td{padding:3px 2px}thead th{font-size:7.5pt;hyphens:auto;overflow-wrap:anywhere}}
 @media print{
   @page{margin:15mm 14mm 16mm}
   main{max-width:none;padding:0}
@@ -85,7 +92,8 @@ function levelWords(level: LevelSource, q: (v: number, d: Dimension) => string):
     }
     case 'ullage': {
       const at = `from x ${q(level.reference.x, 'length')}, y ${q(level.reference.y, 'length')}, z ${q(level.reference.z, 'length')}`;
-      return level.ullageM === undefined ? `Ullage not read (${at})` : `Ullage ${q(level.ullageM, 'length')} ${at}`;
+      const tape = level.tape === 'plumb' ? 'plumb tape, heel corrected' : 'along the pipe';
+      return level.ullageM === undefined ? `Ullage not read (${at})` : `Ullage ${q(level.ullageM, 'length')} ${at}, ${tape}`;
     }
     case 'openToSea':
       return 'Open to the sea: at the outside waterline';
@@ -132,7 +140,7 @@ export function renderReport(d: ReportData): string {
     return html`<tr>
 <th scope="row">${c.name}<div class="muted">${SPACE_TYPE_WORDS[c.spaceType]}${c.openToSea ? ', open to the sea' : ''}</div></th>
 <td>${extentWords(c, q)}</td>
-<td class="num">${formatNumber(c.permeability ?? DEFAULT_PERMEABILITY[c.spaceType], 3)}${chip(c.id, 'permeability')}</td>
+<td class="num">${formatNumber(res?.permeability ?? c.permeability ?? defaultPermeability(c.spaceType, c.cargoState).value, 3)}${chip(c.id, 'permeability')}${c.permeability === undefined ? html`<div class="muted">${res?.permeabilitySource ?? defaultPermeability(c.spaceType, c.cargoState).source}</div>` : ''}</td>
 <td>${layers.length === 0 ? html`<span class="muted">${c.openToSea ? 'floods to the waterline' : 'dry'}</span>` : layers.map((l) => {
       const fluid = doc.fluids.find((f) => f.id === l.fluidId)?.name ?? catalogueFluid(l.fluidId)?.name ?? l.fluidId;
       return html`<div>${fluid}: ${levelWords(l.level, q)}${chip(l.id, 'level')}${l.densityKgM3 !== undefined ? html`, density ${q(l.densityKgM3, 'density')}` : chip(l.id, 'densityKgM3')}</div>`;
@@ -157,19 +165,40 @@ export function renderReport(d: ReportData): string {
     }
     (b.shores ?? []).forEach((s, i) => {
       const sec = s.section.kind === 'rectangular' ? `${q(s.section.widthM, 'length')} × ${q(s.section.depthM, 'length')}` : s.section.kind === 'tube' ? `tube ${q(s.section.outerDiameterM, 'length')} × ${q(s.section.wallThicknessM, 'length')}` : `area ${q(s.section.areaM2, 'area')}`;
-      inputs.push(html`<tr><th scope="row">Shore ${i + 1}</th><td>${sec}, length ${q(s.lengthM, 'length')}, on side ${s.side}, ${END_CONDITION_WORDS[s.endCondition]}${chip(b.id, `shores.${s.id}.section`)}</td></tr>`);
+      const design = s.design?.method === 'aisc-360-e3' ? `AISC 360 §E3, Fy ${stress(s.design.yieldStressPa)}` : s.design?.method === 'nds-3.7.1' ? `NDS §3.7.1, Fc* ${stress(s.design.adjustedCompressionPa)}, E′min ${stress(s.design.adjustedEMinPa)}` : s.design?.method === 'generic' ? `crushing ${stress(s.design.failureStressPa)} ÷ ${formatNumber(s.design.designFactor, 3)}` : 'no design method (Euler ÷ 2)';
+      inputs.push(html`<tr><th scope="row">Shore ${i + 1}</th><td>${sec}, length ${q(s.lengthM, 'length')}, stands on side ${s.side}, ${END_CONDITION_WORDS[s.endCondition]}, head at ${pointWords(s.position, d.units)}; ${design}${chip(b.id, `shores.${s.id}.section`)}</td></tr>`);
     });
+    if (b.plating) {
+      const pl = b.plating;
+      const t = (m: number) => (d.units === 'us' ? `${formatNumber(m / 0.0254, 3)} in` : `${formatNumber(m * 1000, 3)} mm`);
+      inputs.push(html`<tr><th scope="row">Plating</th><td>${t(pl.thicknessM)} thick${chip(b.id, 'plating.thicknessM')}, corrosion allowance ${t(pl.corrosionAllowanceM ?? 0)}, yield ${stress(pl.yieldStressPa)}, allowable ${stress(pl.allowableStressPa)}${chip(b.id, 'plating.allowableStressPa')}, edges ${pl.edges === 'fixed' ? 'fixed' : 'simply supported'}</td></tr>`);
+    }
     if (b.ratedCapacity) {
-      inputs.push(html`<tr><th scope="row">Rated capacity</th><td>${b.ratedCapacity.kind === 'pressure' ? q(b.ratedCapacity.pressurePa, 'pressure') : q(b.ratedCapacity.forceN, 'force')}${chip(b.id, 'ratedCapacity')}</td></tr>`);
+      inputs.push(html`<tr><th scope="row">Rated either way</th><td>${b.ratedCapacity.kind === 'pressure' ? q(b.ratedCapacity.pressurePa, 'pressure') : q(b.ratedCapacity.forceN, 'force')}${chip(b.id, 'ratedCapacity')}</td></tr>`);
+    }
+    const dc = b.directionalCapacity;
+    if (dc) {
+      const dim: Dimension = dc.kind === 'pressure' ? 'pressure' : 'force';
+      inputs.push(
+        html`<tr><th scope="row">Rated by direction</th><td>towards side B (${sideWords(b.sideB)}): ${dc.towardsB === undefined ? 'not rated' : q(dc.towardsB, dim)}; towards side A (${sideWords(b.sideA)}): ${dc.towardsA === undefined ? 'not rated' : q(dc.towardsA, dim)}</td></tr>`,
+      );
     }
     const w = held.get(b.id);
+    const checksTable = (res: BoundaryResult): SafeHtml | '' => {
+      const rows = structureCheckRows(res, d.units, { A: sideWords(b.sideA), B: sideWords(b.sideB) }, b);
+      return rows.length
+        ? html`<table><thead><tr><th scope="col">Check</th><th scope="col">Load</th><th scope="col">Allowed</th><th scope="col" class="num">Use</th></tr></thead><tbody>${rows.map(
+            (c) => html`<tr><th scope="row">${c.check}${c.note ? html`<div class="muted">${c.note}</div>` : ''}</th><td>${c.load}</td><td>${c.capacity}</td><td class="num ${c.utilisation !== null && c.utilisation > 1 ? 'over' : ''}">${c.utilisation === null ? '—' : `${formatNumber(c.utilisation * 100, 3)} %`}</td></tr>`,
+          )}</tbody></table>`
+        : '';
+    };
     const out = res
       ? html`<table><tbody>
 <tr><th scope="row">Net force</th><td class="num">${q(Math.abs(res.net.resultantN), 'force')}</td><td>${res.net.forceN >= 0 ? 'pushes towards side B' : 'pushes towards side A'}</td></tr>
 <tr><th scope="row">Side A alone</th><td class="num">${q(res.sideA.forceN, 'force')}</td><td>peak ${q(res.sideA.peakPressurePa, 'pressure')}</td></tr>
 <tr><th scope="row">Side B alone</th><td class="num">${q(res.sideB.forceN, 'force')}</td><td>peak ${q(res.sideB.peakPressurePa, 'pressure')}</td></tr>
-<tr><th scope="row">Highest net pressure</th><td class="num">${q(Math.abs(res.net.peak.pressurePa), 'pressure')}</td><td>at z ${q(res.net.peak.point.z, 'length')}</td></tr>
-<tr><th scope="row">Centre of pressure</th><td class="num" colspan="2">${res.net.centreOfPressure ? `x ${q(res.net.centreOfPressure.x, 'length')}, y ${q(res.net.centreOfPressure.y, 'length')}, z ${q(res.net.centreOfPressure.z, 'length')}` : '—'}</td></tr>
+<tr><th scope="row">Highest net pressure</th><td class="num">${q(Math.abs(res.net.peak.pressurePa), 'pressure')}</td><td>towards side ${res.net.peak.pressurePa >= 0 ? 'B' : 'A'}, at ${pointWords(res.net.peak.point, d.units)}</td></tr>
+<tr><th scope="row">Centre of pressure</th><td colspan="2">${res.net.nearlyCancels ? `the sides nearly cancel: couple ${q(res.net.coupleNm ?? 0, 'moment')} about the centroid` : pointWords(res.net.centreOfPressure, d.units)}</td></tr>
 <tr><th scope="row">Loaded area</th><td class="num">${q(res.areaM2, 'area')}</td><td></td></tr>
 <tr><th scope="row">Utilisation</th><td class="num ${res.maxUtilisation !== null && res.maxUtilisation > 1 ? 'over' : ''}">${res.maxUtilisation === null ? 'nothing rated' : `${formatNumber(res.maxUtilisation * 100, 3)} %`}</td><td>${res.maxUtilisation !== null && res.maxUtilisation > 1 ? html`<span class="over">▲ OVER CAPACITY</span>` : ''}</td></tr>
 </tbody></table>`
@@ -177,6 +206,7 @@ export function renderReport(d: ReportData): string {
     return html`<section class="boundary" data-boundary="${b.name}">
 <h3>${b.name} <span class="muted">(${boundaryKindWords(b.kind)})</span></h3>
 <div class="grid"><div><p class="muted">Inputs</p><table><tbody>${inputs}</tbody></table></div><div><p class="muted">Results</p>${out}</div></div>
+${res ? checksTable(res) : ''}
 <p>Reviewer: ${v ? html`<strong>${boundaryVerdictLabel(v.verdict)}</strong>: ${boundaryVerdictMeaning(v.verdict)}.${v.note ? html` ${v.note}` : ''}` : html`<span class="muted">no verdict</span>`}</p>
 </section>`;
   }

@@ -78,7 +78,7 @@ export function platingCheck(plating: Plating, panels: readonly PanelInput[]): P
   const t = plating.thicknessM - (plating.corrosionAllowanceM ?? 0);
   const notes: string[] = [];
   if (!(t > 0)) {
-    return { netThicknessM: t, edges: plating.edges, source: ROARK_SOURCE, panels: [], governingIndex: null, maxUtilisation: null, notes: ['the corrosion allowance leaves no plate thickness: no plating check'] };
+    return { netThicknessM: t, allowableStressPa: plating.allowableStressPa, yieldStressPa: plating.yieldStressPa, edges: plating.edges, source: ROARK_SOURCE, panels: [], governingIndex: null, maxUtilisation: null, notes: ['the corrosion allowance leaves no plate thickness: no plating check'] };
   }
   let bounded = false;
   const out: PlatingPanelResult[] = [];
@@ -107,5 +107,5 @@ export function platingCheck(plating: Plating, panels: readonly PanelInput[]): P
   }
   if (bounded) notes.push('where a liquid surface or a change of sign crosses a panel, that panel is taken under its greatest pressure all over (an upper bound)');
   if (plating.edges === 'fixed') notes.push('fixed edges: taken under the panel\'s greatest pressure all over (an upper bound)');
-  return { netThicknessM: t, edges: plating.edges, source: ROARK_SOURCE, panels: out, governingIndex: gov, maxUtilisation: gov === null ? null : out[gov].utilisation, notes };
+  return { netThicknessM: t, allowableStressPa: plating.allowableStressPa, yieldStressPa: plating.yieldStressPa, edges: plating.edges, source: ROARK_SOURCE, panels: out, governingIndex: gov, maxUtilisation: gov === null ? null : out[gov].utilisation, notes };
 }

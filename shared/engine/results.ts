@@ -222,6 +222,9 @@ export interface PlatingPanelResult {
 
 export interface PlatingResult {
   netThicknessM: number;
+  /** The stress utilisation is measured against, and the yield stress given beside it, Pa. */
+  allowableStressPa: number;
+  yieldStressPa: number;
   edges: 'simply-supported' | 'fixed';
   source: string;
   panels: PlatingPanelResult[];

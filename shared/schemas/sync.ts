@@ -18,8 +18,12 @@ import {
 
 const shape = SurveySchema.shape;
 
-/** The lifecycle of a survey on the server; the review desk moves it along. */
-export const SurveyStatusSchema = z.enum(['draft', 'submitted', 'in_review', 'accepted', 'returned']);
+/**
+ * The lifecycle of a survey on the server; the review desk moves it along. `changed_since_review`:
+ * an edit was applied while the survey was sent, under review or accepted, so it needs review again
+ * (set by the database itself, migration 20261204000100_changed_since_review).
+ */
+export const SurveyStatusSchema = z.enum(['draft', 'submitted', 'in_review', 'accepted', 'returned', 'changed_since_review']);
 export type SurveyStatus = z.infer<typeof SurveyStatusSchema>;
 
 /** The top-level fields of a survey a `set` change may replace. */
@@ -118,12 +122,20 @@ export const ResolveConflictOpSchema = z.object({
 
 export const CreateOpSchema = z.object({ kind: z.literal('create'), survey: UpgradingSurveySchema });
 
+/**
+ * "Send for review", queued on the device like any edit so it works offline and follows the edits
+ * made before it: the server moves the survey to "sent for review" when the push reaches it (the
+ * same rules as POST /api/surveys/:id/status). It changes nothing in the document.
+ */
+export const SubmitOpSchema = z.object({ kind: z.literal('submit') });
+
 export const SurveyOpSchema = z.discriminatedUnion('kind', [
   CreateOpSchema,
   SetOpSchema,
   UpsertOpSchema,
   DeleteOpSchema,
   ResolveConflictOpSchema,
+  SubmitOpSchema,
 ]);
 export type SurveyOp = z.infer<typeof SurveyOpSchema>;
 export type SetOp = z.infer<typeof SetOpSchema>;

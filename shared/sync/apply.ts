@@ -108,6 +108,8 @@ export function applyOp(survey: Survey | undefined, op: SurveyOp): Survey {
       return withoutEntity(survey, op.collection, op.entityId);
     case 'resolve-conflict':
       return applyTarget(survey, op.target, op.value);
+    case 'submit':
+      return survey;
   }
 }
 

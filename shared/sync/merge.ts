@@ -102,6 +102,10 @@ export function mergeChange(doc: Survey, revs: FieldRevisions, change: SurveyCha
       case 'create':
         return { status: 'rejected', reason: 'This survey already exists.' };
 
+      case 'submit':
+        // A status move, not an edit: the push plan carries it out (server/services/sync/plan.ts).
+        break;
+
       case 'set': {
         const key = fieldKey(op.path);
         const current = doc[op.path];

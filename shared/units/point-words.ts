@@ -12,11 +12,15 @@ function len(valueM: number, system: UnitSystem, decimals: number): string {
 
 /** A ship-axes point in words, in the unit system's length unit. */
 export function pointWords(p: { x: number; y: number; z: number } | null, system: UnitSystem): string {
-  if (!p) return '—';
+  return p ? pointParts(p, system).join(', ') : '—';
+}
+
+/** The three parts of `pointWords` (along, across, up), for a view that keeps each on one line. */
+export function pointParts(p: { x: number; y: number; z: number }, system: UnitSystem): [string, string, string] {
   const x = p.x >= 0 ? `${len(p.x, system, 1)} fwd of AP` : `${len(p.x, system, 1)} aft of AP`;
   const y = Math.abs(p.y) < 0.005 ? 'on the centreline' : `${len(p.y, system, 2)} to ${p.y > 0 ? 'port' : 'stbd'}`;
   const z = p.z >= 0 ? `${len(p.z, system, 2)} above base` : `${len(p.z, system, 2)} below base`;
-  return `${x}, ${y}, ${z}`;
+  return [x, y, z];
 }
 
 /** Trim in words: positive trim (by the stern, the ship's convention) and negative (by the head). */
@@ -32,4 +36,18 @@ export function edgeWords(across: { x: number; y: number; z: number }): string {
   if (az >= ax && az >= ay) return across.z > 0 ? 'lower edge' : 'upper edge';
   if (ay >= ax) return across.y > 0 ? 'starboard edge' : 'port edge';
   return across.x > 0 ? 'after edge' : 'forward edge';
+}
+
+/**
+ * A horizontal direction in ship axes in words ("forward", "to port", "aft and to stbd"), naming a
+ * component only when it is at least a quarter of the other (about 14° off the axis).
+ */
+export function horizontalWords(d: { x: number; y: number } | null): string {
+  if (!d || (d.x === 0 && d.y === 0)) return '';
+  const ax = Math.abs(d.x), ay = Math.abs(d.y);
+  const fore = d.x > 0 ? 'forward' : 'aft';
+  const side = d.y > 0 ? 'to port' : 'to stbd';
+  if (ay < 0.25 * ax) return fore;
+  if (ax < 0.25 * ay) return side;
+  return `${fore} and ${side}`;
 }

@@ -27,6 +27,8 @@ export function describeOp(op: SurveyOp): string {
       return `Delete a ${NOUN[op.collection]}`;
     case 'resolve-conflict':
       return `Settle a conflict (${describeTarget(op.target)})`;
+    case 'submit':
+      return 'Send the survey for review';
   }
 }
 

@@ -104,7 +104,7 @@ export function UserMenu() {
           aria-expanded={open}
           aria-controls="account-panel"
           onClick={() => setOpen((o) => !o)}
-          className={`${headerButton} max-w-[10rem] border-2 border-paper/60`}
+          className={`${headerButton} max-w-[9rem] border-2 border-paper/60`}
         >
           <span className="truncate">{user.name || user.email}</span>
           <span aria-hidden="true" className="ml-1">

@@ -7,6 +7,7 @@ import { ApiError } from '@client/lib/api-client';
 import { Button } from '@client/components/ui/button';
 import { useMail, useMailList } from '../api/get-mail';
 import { formatUtc } from '@shared/review/time-words';
+import { EmailText } from '@client/components/ui/email-text';
 
 /** Plain text with its addresses made clickable. */
 function Linked({ text }: { text: string }) {
@@ -84,8 +85,8 @@ export function Mailbox() {
                   className={`block min-h-touch w-full rounded-lg border-2 p-2 text-left ${selected === m.id ? 'border-hull bg-sea-soft' : 'border-line bg-card'}`}
                 >
                   <span className="block font-bold">{m.subject}</span>
-                  <span className="block break-all text-sm text-ink-soft">
-                    {m.to.join(', ')} · {formatUtc(m.receivedAt)}
+                  <span className="block text-sm text-ink-soft">
+                    <EmailText email={m.to.join(', ')} /> · {formatUtc(m.receivedAt)}
                   </span>
                 </button>
               </li>

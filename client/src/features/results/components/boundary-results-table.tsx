@@ -1,5 +1,6 @@
 /**
- * Sortable table of every boundary's load; tap a row to open its detail. Reads summary rows
+ * Sortable table of every boundary's load; tap a row to open its detail. Utilisation comes right
+ * after the name, so a phone shows it without scrolling sideways. Reads summary rows
  * (computeSurveySummary's BoundaryTable as rows), and beyond a screenful renders only the rows in
  * view (TanStack Virtual), so a ship of thousands of boundaries stays a few hundred elements.
  */
@@ -18,7 +19,7 @@ import type { BoundarySummary, SurveyLevelResults } from '@shared/engine';
 import type { UnitSystem } from '@shared/units/units';
 import { num, unitLabel } from '@client/lib/unit-system';
 import { UtilisationBadge } from './utilisation';
-import { pointWords } from '@shared/units/point-words';
+import { PointText } from './point-text';
 import { sideName } from './side-name';
 import { boundaryKindWords, countWords } from '@shared/review/plain-words';
 
@@ -56,6 +57,19 @@ export function BoundaryResultsTable({
           </span>
         ),
       }),
+      col.accessor((b) => b.maxUtilisation ?? -1, {
+        id: 'utilisation',
+        header: 'Utilisation',
+        cell: (c) => {
+          const gov = governingWords(c.row.original);
+          return (
+            <span>
+              <UtilisationBadge value={c.row.original.maxUtilisation} compact />
+              {gov && <span className="block text-xs text-ink-soft">{gov.what}</span>}
+            </span>
+          );
+        },
+      }),
       col.accessor((b) => b.forceN, {
         id: 'force',
         header: `Net force, + towards side B (${unitLabel('force', system)})`,
@@ -71,21 +85,8 @@ export function BoundaryResultsTable({
         header: 'Centre of pressure',
         sortUndefined: 'last',
         cell: (c) => (
-          <span className="text-sm">{pointWords(copOf(c.row.original), system)}</span>
+          <span className="text-sm"><PointText point={copOf(c.row.original)} system={system} /></span>
         ),
-      }),
-      col.accessor((b) => b.maxUtilisation ?? -1, {
-        id: 'utilisation',
-        header: 'Utilisation',
-        cell: (c) => {
-          const gov = governingWords(c.row.original);
-          return (
-            <span>
-              <UtilisationBadge value={c.row.original.maxUtilisation} compact />
-              {gov && <span className="block text-xs text-ink-soft">{gov.what}</span>}
-            </span>
-          );
-        },
       }),
     ],
     [results, system],
@@ -136,7 +137,7 @@ export function BoundaryResultsTable({
                 data-testid="boundary-row"
               >
                 {row.getVisibleCells().map((cell, i) => (
-                  <td key={cell.id} className={`px-2 py-1.5 align-top ${i > 0 && i < 3 ? 'text-right tabular-nums' : ''}`}>
+                  <td key={cell.id} className={`px-2 py-1.5 align-top ${i === 2 || i === 3 ? 'text-right tabular-nums' : ''}`}>
                     {i === 0 && onSelect ? (
                       <button type="button" className="min-h-touch text-left underline-offset-2 hover:underline" onClick={(e) => { e.stopPropagation(); onSelect(row.original.id); }}>
                         {flexRender(cell.column.columnDef.cell, cell.getContext())}

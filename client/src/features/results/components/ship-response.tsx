@@ -65,7 +65,7 @@ export function ShipResponsePanel({ survey, results, system }: { survey: Survey;
   return (
     <section aria-label="Ship's response" className={`space-y-2 rounded-lg border-2 p-3 ${danger ? 'border-danger bg-danger-soft' : 'border-hull bg-card'}`} data-testid="ship-response">
       <h3 className="text-lg">Ship’s response</h3>
-      <div className="grid gap-3 sm:grid-cols-[minmax(0,1fr)_auto]">
+      <div className="grid gap-3 sm:grid-cols-[minmax(16rem,1fr)_auto]">
         <table className="w-full text-sm tabular-nums">
           <caption className="sr-only">Attitude: intact, predicted from the modelled contents, and as read</caption>
           <thead>
@@ -180,7 +180,8 @@ export function AttitudeSketch({ survey, attitude, measured }: { survey: Survey;
   const p = side(attitude), e = end(attitude);
   const pm = measured ? side(measured) : null, em = measured ? end(measured) : null;
   return (
-    <figure className="flex flex-wrap gap-2">
+    // no wider than its two drawings: a long caption must not widen the figure over the table beside it
+    <figure className="flex max-w-[20.5rem] flex-wrap gap-2">
       <svg viewBox={`0 0 ${W} ${H}`} width="160" height="60" role="img" aria-label={`Side view: trim ${attitude.trimM.toFixed(2)} m`}>
         <rect x={sx(0)} y={sz(D)} width={sx(L) - sx(0)} height={sz(0) - sz(D)} fill="none" stroke="currentColor" strokeWidth="1.5" />
         <line x1={sx(0)} y1={p.y0} x2={sx(L)} y2={p.y1} stroke="#0369a1" strokeWidth="2" />

@@ -25,6 +25,8 @@ function UtilCell({ value }: { value: number }) {
 }
 const td = 'p-1.5 text-right tabular-nums';
 
+const thicknessText = (m: number, system: UnitSystem) => (system === 'us' ? `${(m / INCH_M).toFixed(3)} in` : `${(m * 1000).toFixed(1)} mm`);
+
 export function StructureChecks({ boundary: b, system }: { boundary: BoundaryResult; system: UnitSystem }) {
   const st = b.stiffeners;
   const u = (d: Parameters<typeof unitLabel>[0]) => unitLabel(d, system);
@@ -53,7 +55,7 @@ export function StructureChecks({ boundary: b, system }: { boundary: BoundaryRes
                 <th className="p-1.5">No.</th>
                 <th className={th}>Offset from the {st.offsetFromEdge} ({u('length')})</th>
                 <th className={th}>Span ({u('length')})</th>
-                <th className={th}>Load ({u('force')})</th>
+                <th className={th}>Load, along the normal ({u('force')})</th>
                 <th className={th}>End reactions ({u('force')})</th>
                 <th className={th}>From shores ({u('force')})</th>
                 <th className={th}>Max moment ({u('moment')})</th>
@@ -86,22 +88,27 @@ export function StructureChecks({ boundary: b, system }: { boundary: BoundaryRes
         <div className="overflow-x-auto" tabIndex={0} role="region" aria-label="Plating panels (scrolls sideways)">
           <table className="w-full min-w-[36rem] border-collapse text-left text-sm" data-testid="plating-table">
             <caption className="text-left font-bold">
-              Plating between stiffeners ({system === 'us' ? `${(b.plating.netThicknessM / INCH_M).toFixed(3)} in` : `${(b.plating.netThicknessM * 1000).toFixed(1)} mm`} net of corrosion allowance, edges {b.plating.edges === 'fixed' ? 'fixed' : 'simply supported'})
-              <span className="block font-normal">Coefficients: {b.plating.source}. {b.plating.notes.join('; ')}</span>
+              Plating {st && st.items.length > 0 ? 'between stiffeners' : '(the whole plate as one panel)'}: {thicknessText(b.plating.netThicknessM, system)} net of corrosion allowance, edges{' '}
+              {b.plating.edges === 'fixed' ? 'fixed' : 'simply supported'}, allowable {formatStress(b.plating.allowableStressPa, system, 3)} (yield {formatStress(b.plating.yieldStressPa, system, 3)})
+              <span className="block font-normal">
+                Coefficients: {b.plating.source}. {b.plating.notes.join('; ')}
+              </span>
             </caption>
             <thead className="bg-sea-soft">
               <tr>
                 <th className="p-1.5">Panel</th>
+                {st && st.offsetFromEdge && <th className={th}>Middle, from the {st.offsetFromEdge} ({u('length')})</th>}
                 <th className={th}>Long × short side ({u('length')})</th>
-                <th className={th}>Net pressure, least–greatest ({u('pressure')})</th>
+                <th className={th}>Net pressure, least–greatest, + towards side B ({u('pressure')})</th>
                 <th className={th}>Bending stress ({STRESS_UNIT[system]})</th>
-                <th className="p-1.5">Utilisation</th>
+                <th className="p-1.5">Utilisation of allowable</th>
               </tr>
             </thead>
             <tbody>
               {b.plating.panels.map((p, i) => (
-                <tr key={i} className={`border-t border-line ${p.utilisation > 1 ? 'bg-danger-soft' : ''}`}>
+                <tr key={i} className={`border-t border-line ${p.utilisation > 1 ? 'bg-danger-soft' : ''}`} data-testid="plating-panel">
                   <td className="p-1.5">{i + 1}</td>
+                  {st && st.offsetFromEdge && <td className={td}>{num(p.offsetM, 'length', system, 3)}</td>}
                   <td className={td}>
                     {num(p.longSideM, 'length', system, 3)} × {num(p.shortSideM, 'length', system, 3)}
                   </td>
@@ -125,7 +132,7 @@ export function StructureChecks({ boundary: b, system }: { boundary: BoundaryRes
               <tr>
                 <th className="p-1.5">No.</th>
                 <th className="p-1.5">Bears on</th>
-                <th className={th}>Axial load ({u('force')})</th>
+                <th className={th}>Axial load, compression ({u('force')})</th>
                 <th className={th}>Design capacity ({u('force')})</th>
                 <th className="p-1.5">Design method</th>
                 <th className={th}>Slenderness</th>

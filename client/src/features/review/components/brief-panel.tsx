@@ -6,6 +6,7 @@ import { useIssueBrief, useRevokeBrief } from '../api/briefs';
 import { buttonClass } from '@client/components/ui/button';
 import { inputCls } from '@client/components/ui/fields';
 import { formatUtc } from '@shared/review/time-words';
+import { EmailText } from '@client/components/ui/email-text';
 import { Link } from 'react-router';
 import { paths } from '@client/config/paths';
 import { useDevMailbox } from '@client/lib/dev-mailbox';
@@ -97,7 +98,9 @@ export function BriefPanel({ surveyId, status, briefs, canIssue, canRevoke }: { 
             const state = b.revokedAt ? 'withdrawn' : expired ? 'expired' : 'active';
             return (
               <li key={b.id} className="rounded border border-line p-2 text-sm" data-state={state}>
-                <p className="break-all font-bold">{b.recipientEmail}</p>
+                <p className="font-bold">
+                  <EmailText email={b.recipientEmail} />
+                </p>
                 <p className="text-ink-soft">
                   {state === 'withdrawn' ? `Withdrawn ${when(b.revokedAt!)}` : state === 'expired' ? `Expired ${when(b.expiresAt)}` : `Works until ${when(b.expiresAt)}`} · {b.units.toUpperCase()} · sent
                   by {b.createdByName} · opened {b.openings} {b.openings === 1 ? 'time' : 'times'}

@@ -79,8 +79,8 @@ export function NumbersCheck({
               {rows.map((r) => (
                 <tr key={r.id} className={`border-t border-line ${r.differs ? 'bg-danger-soft font-bold' : ''}`} data-differs={r.differs}>
                   <td className="py-1 pr-2">{r.name}</td>
-                  <td className="py-1 pr-2 text-right tabular-nums">{fmt(r.server, 'force', system)}</td>
-                  <td className="py-1 pr-2 text-right tabular-nums">{fmt(r.device, 'force', system)}</td>
+                  <td className="whitespace-nowrap py-1 pr-2 text-right tabular-nums">{fmt(r.server, 'force', system)}</td>
+                  <td className="whitespace-nowrap py-1 pr-2 text-right tabular-nums">{fmt(r.device, 'force', system)}</td>
                   <td className="py-1 text-right">{r.differs ? <span title="differs">▲ differs</span> : <span aria-label="same">=</span>}</td>
                 </tr>
               ))}

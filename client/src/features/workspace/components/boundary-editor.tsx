@@ -44,7 +44,7 @@ export function BoundaryEditor({ boundary, survey, apply, system }: { boundary: 
   const { register, formState, watch } = form;
   const e = formState.errors;
   const lu = measureLabel('length', system);
-  const [custom, plane, shape, stiff, capKind] = watch(['custom', 'plane', 'shape', 'stiff', 'capKind']);
+  const [custom, plane, shape, stiff, capKind, sideAValue, sideBValue] = watch(['custom', 'plane', 'shape', 'stiff', 'capKind', 'sideA', 'sideB']);
   const ax = PLANE_AXES[plane];
   const words = SIDE_WORDS[plane];
   const sides = sideOptions(survey);
@@ -189,33 +189,167 @@ export function BoundaryEditor({ boundary, survey, apply, system }: { boundary: 
           />
         </fieldset>
       )}
+      <PlatingFields form={form} system={system} stiffened={stiff} />
       <ShoreFields form={form} system={system} />
-      <div className="grid grid-cols-2 gap-3">
-        <SelectInput
-          register={register}
-          name="capKind"
-          label="Rated capacity"
-          errors={{}}
-          options={[
-            { value: 'none', label: 'None given' },
-            { value: 'pressure', label: 'Pressure (test head / rating)' },
-            { value: 'force', label: 'Total force' },
-          ]}
-        />
-        {capKind !== 'none' && (
-          <NumberInput
+      <fieldset className="space-y-3 rounded-md border border-line p-2">
+        <legend className="px-1 font-bold">Ratings</legend>
+        <div className="grid grid-cols-2 gap-3">
+          <SelectInput
             register={register}
-            name="capValue"
-            label={capKind === 'pressure' ? 'Rated pressure' : 'Rated force'}
-            unit={measureLabel(capKind === 'pressure' ? 'pressure' : 'force', system)}
-            errors={{ capValue: errorAt(e, 'ratedCapacity.pressurePa') ?? errorAt(e, 'ratedCapacity.forceN') }}
-            extra={<PlateMark form={form} field="ratedCapacity" />}
+            name="capKind"
+            label="Rated either way"
+            errors={{}}
+            options={[
+              { value: 'none', label: 'None given' },
+              { value: 'pressure', label: 'Pressure (test head / rating)' },
+              { value: 'force', label: 'Total force' },
+            ]}
           />
-        )}
-      </div>
+          {capKind !== 'none' && (
+            <NumberInput
+              register={register}
+              name="capValue"
+              label={capKind === 'pressure' ? 'Rated pressure' : 'Rated force'}
+              unit={measureLabel(capKind === 'pressure' ? 'pressure' : 'force', system)}
+              errors={{ capValue: errorAt(e, 'ratedCapacity.pressurePa') ?? errorAt(e, 'ratedCapacity.forceN') }}
+              extra={<PlateMark form={form} field="ratedCapacity" />}
+            />
+          )}
+        </div>
+        <DirectionalRatingFields form={form} system={system} sideAName={sideLabel(sides, sideAValue)} sideBName={sideLabel(sides, sideBValue)} />
+      </fieldset>
       <TextInput register={register} name="notes" label="Notes" errors={e} multiline />
       <SaveIndicator state={state} />
     </form>
+  );
+}
+
+const sideLabel = (options: { value: string; label: string }[], v: string) => options.find((o) => o.value === v)?.label ?? 'that side';
+
+/**
+ * A rating with a direction: a hatch cover on its cleats, a door on its dogs, a patch on its bolts
+ * hold differently each way. Each is checked against the net load pushing that way only.
+ */
+function DirectionalRatingFields({ form, system, sideAName, sideBName }: { form: UseFormReturn<BoundaryForm, unknown, Boundary>; system: UnitSystem; sideAName: string; sideBName: string }) {
+  const { register, formState, watch } = form;
+  const e = formState.errors;
+  const kind = watch('dirKind');
+  const unit = kind === 'none' ? '' : measureLabel(kind, system);
+  const what = kind === 'force' ? 'force' : 'pressure';
+  return (
+    <div className="grid grid-cols-2 gap-3 sm:grid-cols-3" data-testid="directional-rating">
+      <div className="col-span-2 sm:col-span-1">
+        <SelectInput
+          register={register}
+          name="dirKind"
+          label="Rated by direction"
+          errors={{}}
+          options={[
+            { value: 'none', label: 'None given' },
+            { value: 'pressure', label: 'Pressure, each way' },
+            { value: 'force', label: 'Total force, each way' },
+          ]}
+          hint="e.g. a hatch cover on its cleats holds less upwards"
+        />
+      </div>
+      {kind !== 'none' && (
+        <>
+          <NumberInput
+            register={register}
+            name="dirTowardsB"
+            label={`Rated ${what} towards side B (${sideBName})`}
+            unit={unit}
+            errors={{ dirTowardsB: errorAt(e, 'directionalCapacity.towardsB') ?? errorAt(e, 'directionalCapacity') }}
+            hint={`pushed from side A (${sideAName}); empty: not rated this way`}
+            extra={<PlateMark form={form} field="directionalCapacity.towardsB" />}
+          />
+          <NumberInput
+            register={register}
+            name="dirTowardsA"
+            label={`Rated ${what} towards side A (${sideAName})`}
+            unit={unit}
+            errors={{ dirTowardsA: errorAt(e, 'directionalCapacity.towardsA') }}
+            hint={`pushed from side B (${sideBName}); empty: not rated this way`}
+            extra={<PlateMark form={form} field="directionalCapacity.towardsA" />}
+          />
+        </>
+      )}
+    </div>
+  );
+}
+
+/** The plating between stiffeners (or the whole plate without them), checked in bending panel by panel. */
+function PlatingFields({ form, system, stiffened }: { form: UseFormReturn<BoundaryForm, unknown, Boundary>; system: UnitSystem; stiffened: boolean }) {
+  const { register, formState, watch } = form;
+  const e = formState.errors;
+  const on = watch('plating');
+  const id = useId();
+  const tu = measureLabel('thickness', system);
+  const su = measureLabel('stress', system);
+  return (
+    <fieldset className="space-y-2 rounded-md border border-line p-2" data-testid="plating-fields">
+      <legend className="px-1 font-bold">Plating</legend>
+      <div className="flex items-center gap-2">
+        <input
+          id={id}
+          type="checkbox"
+          className="size-6"
+          {...register('plating', {
+            // switched on with typical figures: assumed until the surveyor measures or confirms them
+            onChange: (ev: { target: { checked: boolean } }) => {
+              if (!ev.target.checked) return;
+              let m = withMark(form.getValues('marks'), 'plating.thicknessM', 'assumed');
+              m = withMark(m, 'plating.allowableStressPa', 'assumed');
+              form.setValue('marks', m ?? {});
+            },
+          })}
+        />
+        <label htmlFor={id} className="font-bold">
+          Check the plating {stiffened ? 'between stiffeners' : '(the whole plate as one panel)'}
+        </label>
+      </div>
+      {on && (
+        <div className="grid grid-cols-2 gap-3 sm:grid-cols-5">
+          <NumberInput
+            register={register}
+            name="plThick"
+            label="Plate thickness"
+            unit={tu}
+            errors={{ plThick: errorAt(e, 'plating.thicknessM') }}
+            hint="as built or gauged"
+            extra={<PlateMark form={form} field="plating.thicknessM" />}
+          />
+          <NumberInput
+            register={register}
+            name="plCorrosion"
+            label="Corrosion allowance"
+            unit={tu}
+            errors={{ plCorrosion: errorAt(e, 'plating.corrosionAllowanceM') }}
+            hint="taken off the thickness; empty: none"
+          />
+          <NumberInput register={register} name="plYield" label="Yield stress" unit={su} errors={{ plYield: errorAt(e, 'plating.yieldStressPa') }} hint="mild steel 235 MPa" />
+          <NumberInput
+            register={register}
+            name="plAllow"
+            label="Allowable bending stress"
+            unit={su}
+            errors={{ plAllow: errorAt(e, 'plating.allowableStressPa') }}
+            hint="utilisation is against this"
+            extra={<PlateMark form={form} field="plating.allowableStressPa" />}
+          />
+          <SelectInput
+            register={register}
+            name="plEdges"
+            label="Panel edges"
+            errors={{}}
+            options={[
+              { value: 'simply-supported', label: 'Simply supported' },
+              { value: 'fixed', label: 'Fixed (plating continuous over stiffeners)' },
+            ]}
+          />
+        </div>
+      )}
+    </fieldset>
   );
 }
 

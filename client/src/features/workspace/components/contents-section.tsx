@@ -29,6 +29,8 @@ interface LayerForm {
   py: string;
   pz: string;
   reading: string;
+  /** Ullages: how the tape ran (along the pipe, the ship's z axis; or plumb, earth-vertical). */
+  tape: 'along-pipe' | 'plumb';
   /** Not an input: this layer's marks ("level" estimated), set by the chip under the reading. */
   marks: Marks;
 }
@@ -59,14 +61,14 @@ function centreOf(c: Compartment): { x: number; y: number; zb: number; zt: numbe
 function layerToForm(l: Contents['layers'][number], system: UnitSystem, c: Compartment): LayerForm {
   const S = (n: number | undefined) => showField(n, 'length', system);
   const ctr = centreOf(c);
-  const base = { id: l.id, fluidId: l.fluidId, density: showField(l.densityKgM3, 'density', system), levelKind: l.level.kind, px: S(ctr.x), py: S(ctr.y), pz: S(ctr.zb), reading: '', marks: l.marks ?? {} };
+  const base = { id: l.id, fluidId: l.fluidId, density: showField(l.densityKgM3, 'density', system), levelKind: l.level.kind, px: S(ctr.x), py: S(ctr.y), pz: S(ctr.zb), reading: '', tape: 'along-pipe' as LayerForm['tape'], marks: l.marks ?? {} };
   const lv = l.level;
   switch (lv.kind) {
     case 'sounding':
     case 'interfaceSounding':
       return { ...base, px: S(lv.pipe.x), py: S(lv.pipe.y), pz: S(lv.pipe.bottomZM), reading: S(lv.soundingM) };
     case 'ullage':
-      return { ...base, px: S(lv.reference.x), py: S(lv.reference.y), pz: S(lv.reference.z), reading: S(lv.ullageM) };
+      return { ...base, px: S(lv.reference.x), py: S(lv.reference.y), pz: S(lv.reference.z), reading: S(lv.ullageM), tape: lv.tape ?? 'along-pipe' };
     case 'point':
       return { ...base, px: S(lv.point.x), py: S(lv.point.y), pz: S(lv.point.z) };
     default:
@@ -84,7 +86,7 @@ function toModel(v: ContentsForm, compartmentId: string, system: UnitSystem, bef
         l.levelKind === 'sounding' || l.levelKind === 'interfaceSounding'
           ? { kind: l.levelKind, pipe: { x: L(l.px), y: L(l.py), bottomZM: L(l.pz) }, soundingM: L(l.reading) }
           : l.levelKind === 'ullage'
-            ? { kind: 'ullage', reference: { x: L(l.px), y: L(l.py), z: L(l.pz) }, ullageM: L(l.reading) }
+            ? { kind: 'ullage', reference: { x: L(l.px), y: L(l.py), z: L(l.pz) }, ullageM: L(l.reading), tape: l.tape === 'plumb' ? 'plumb' : undefined }
             : l.levelKind === 'point'
               ? { kind: 'point', point: { x: L(l.px), y: L(l.py), z: L(l.pz) } }
               : { kind: 'openToSea' };
@@ -124,7 +126,7 @@ function ContentsEditor({ survey, condition, compartment, contents, apply, syste
   const S = (n: number) => showField(n, 'length', system);
   const addLayer = (fluidId: string) => {
     const below = layers.at(-1);
-    append({ id: newId(), fluidId, density: '', levelKind: 'sounding', px: below?.px ?? S(ctr.x), py: below?.py ?? S(ctr.y), pz: below?.pz ?? S(ctr.zb), reading: '', marks: {} });
+    append({ id: newId(), fluidId, density: '', levelKind: 'sounding', px: below?.px ?? S(ctr.x), py: below?.py ?? S(ctr.y), pz: below?.pz ?? S(ctr.zb), reading: '', tape: 'along-pipe', marks: {} });
   };
   const layerErr = (i: number, ...paths: string[]) => paths.map((p) => errorAt(e, `layers.${i}.${p}`)).find(Boolean);
   return (
@@ -198,6 +200,25 @@ function ContentsEditor({ survey, condition, compartment, contents, apply, syste
                       />
                     }
                   />
+                )}
+                {kind === 'ullage' && (
+                  <div className="col-span-2">
+                    <SelectInput
+                      register={register}
+                      name={`layers.${i}.tape`}
+                      label="How the ullage tape ran"
+                      errors={{}}
+                      options={[
+                        { value: 'along-pipe', label: "Along a pipe or the ship's side (heels with the ship)" },
+                        { value: 'plumb', label: 'Plumb: hanging straight down (corrected for heel and trim)' },
+                      ]}
+                      hint={
+                        l?.tape === 'plumb'
+                          ? 'the tape hung true vertical: the level is the reference point\'s height less the ullage, whatever the heel'
+                          : "read along the ship's upright: at heel the tape runs slant, and the level is taken along that line"
+                      }
+                    />
+                  </div>
                 )}
                 {kind !== 'openToSea' && (
                   <>

@@ -31,7 +31,7 @@ function Input({ id, label, unit, value, onChange, error, type = 'text', inputMo
 
 function Select({ id, label, value, onChange, children, error }: { id: string; label: string; value: string; onChange: (v: string) => void; children: ReactNode; error?: string }) {
   return (
-    <Field id={id} label={label} error={error}>
+    <Field id={id} label={label} error={error} wide>
       <select id={id} className={inputCls} value={value} onChange={(e) => onChange(e.target.value)} aria-invalid={!!error} aria-describedby={describedBy(id, undefined, error)}>
         {children}
       </select>

@@ -257,7 +257,7 @@ function DownfloodingEditor({ survey, apply, system }: { survey: SectionProps['s
           />
           {errors.name && <span className="block text-danger">▲ {errors.name}</span>}
         </label>
-        <label className="block text-sm font-bold">
+        <label className="block text-sm font-bold max-sm:col-span-full">
           Kind
           <select className="min-h-touch w-full rounded-md border-2 border-line bg-card px-2" value={draft.kind} onChange={(e) => setDraft({ ...draft, kind: e.target.value })}>
             {DOWNFLOODING_KINDS.map((k) => (

@@ -32,6 +32,8 @@ import { ReportButton } from '@client/components/report/report-button';
 import { ModelSection } from './model-section';
 import { SurveyReviewBar } from '@client/features/review-notes/components/survey-review-bar';
 import { SurveyInputs, type InputPart, type InputTarget } from '@client/features/survey-inputs/components/survey-inputs';
+import { changeSendsBackWarning } from '@shared/review/status';
+import { ReviewedGuard } from './reviewed-guard';
 
 const SECTIONS = [
   { id: 'ship', label: 'Ship' },
@@ -46,6 +48,8 @@ const SECTIONS = [
   { id: 'photos', label: 'Photos' },
 ] as const;
 type SectionId = (typeof SECTIONS)[number]['id'];
+/** Sections that only show results: readable while a reviewed survey's forms are locked. */
+const READ_ONLY_SECTIONS: ReadonlySet<SectionId> = new Set(['loads', 'model']);
 
 /** The input an item id of the address names (`?item=`), for the read-only view to open. */
 function inputTargetOf(survey: Survey, id: string): InputTarget | null {
@@ -75,6 +79,12 @@ export function Workspace({ surveyId }: { surveyId: string }) {
   const section = (SECTIONS.find((s) => s.id === params.get('s'))?.id ?? 'ship') as SectionId;
   const selectedId = params.get('item');
   const [editError, setEditError] = useState<string | null>(null);
+  // "Make changes" said for this survey in this status (a change of status asks again)
+  const [confirmedFor, setConfirmedFor] = useState<string | null>(null);
+  const pending = usePendingCount(surveyId) ?? 0;
+  const warning = local ? changeSendsBackWarning(local.status) : null;
+  // edits already waiting on this device mean the surveyor chose to change it (e.g. before a reload)
+  const locked = warning !== null && confirmedFor !== `${surveyId}:${local?.status}` && pending === 0;
   const survey = local?.doc;
   const { user } = useSession();
   // an engineer reviews a surveyor's survey on the desk: here its fields are shown, never editable
@@ -116,6 +126,10 @@ export function Workspace({ surveyId }: { surveyId: string }) {
         setEditError('Read-only: this survey’s figures are the surveyor’s. Comment on the review desk instead.');
         throw new Error('read-only');
       }
+      if (locked) {
+        setEditError('Choose “Make changes” first: this survey has been reviewed.');
+        throw new Error('locked until the surveyor chooses to make changes');
+      }
       try {
         await applyLocalChange(surveyId, op);
         setEditError(null);
@@ -124,7 +138,7 @@ export function Workspace({ surveyId }: { surveyId: string }) {
         throw err;
       }
     },
-    [surveyId, readOnly],
+    [surveyId, readOnly, locked],
   );
 
   if (local === undefined) return <p className="p-4 text-ink-soft">Opening the survey on this device…</p>;
@@ -221,6 +235,11 @@ export function Workspace({ surveyId }: { surveyId: string }) {
       <div className="mx-3 mt-2 sm:mx-5">
         <SurveyReviewBar surveyId={surveyId} survey={survey} />
       </div>
+      {warning && !readOnly && (
+        <div className="mx-3 mt-2 sm:mx-5">
+          <ReviewedGuard warning={warning} locked={locked} onConfirm={() => setConfirmedFor(`${surveyId}:${local.status}`)} />
+        </div>
+      )}
       {editError && (
         <p className="mx-3 mt-2 rounded-md border-2 border-danger bg-danger-soft p-2 font-bold sm:mx-5" role="alert">
           <span aria-hidden="true">▲ </span>
@@ -228,7 +247,12 @@ export function Workspace({ surveyId }: { surveyId: string }) {
         </p>
       )}
       <div className={`gap-6 px-3 pt-4 sm:px-5 ${sideResults ? 'lg:grid lg:grid-cols-[minmax(0,1fr)_minmax(0,26rem)]' : ''}`}>
-        <div className="min-w-0">{body[section]}</div>
+        <div className="min-w-0">
+          {/* disabled: every field and button of the forms at once, until "Make changes" */}
+          <fieldset disabled={locked && !readOnly && !READ_ONLY_SECTIONS.has(section)} className="m-0 min-w-0 border-0 p-0">
+            {body[section]}
+          </fieldset>
+        </div>
         {sideResults && wide && results && (
           <aside className="mt-6 space-y-3 lg:mt-0" aria-label="Loads at a glance">
             <h2 className="text-lg">Loads now</h2>

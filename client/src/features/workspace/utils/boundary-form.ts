@@ -61,6 +61,17 @@ export interface BoundaryForm {
   shores: ShoreForm[];
   capKind: 'none' | 'pressure' | 'force';
   capValue: string;
+  /** A rating with a direction (towards side A and/or side B); '' in a value = no rating that way. */
+  dirKind: 'none' | 'pressure' | 'force';
+  dirTowardsA: string;
+  dirTowardsB: string;
+  /** The plating check between stiffeners. */
+  plating: boolean;
+  plThick: string;
+  plCorrosion: string;
+  plYield: string;
+  plAllow: string;
+  plEdges: 'simply-supported' | 'fixed';
   notes: string;
   /** Not an input: the marks on this plate's figures (shared/schemas/marks.ts). */
   marks: Marks;
@@ -82,6 +93,9 @@ export function boundaryToForm(b: Boundary, system: UnitSystem): BoundaryForm {
   const p = ps ?? emptyPlaneShape();
   const st = b.stiffening;
   const cap = b.ratedCapacity;
+  const dir = b.directionalCapacity;
+  const dirMeasure = dir?.kind === 'force' ? 'force' : 'pressure';
+  const pl = b.plating;
   return {
     name: b.name,
     kind: b.kind,
@@ -132,6 +146,16 @@ export function boundaryToForm(b: Boundary, system: UnitSystem): BoundaryForm {
     })),
     capKind: cap?.kind ?? 'none',
     capValue: cap ? (cap.kind === 'pressure' ? showField(cap.pressurePa, 'pressure', system) : showField(cap.forceN, 'force', system)) : '',
+    dirKind: dir?.kind ?? 'none',
+    dirTowardsA: showField(dir?.towardsA, dirMeasure, system),
+    dirTowardsB: showField(dir?.towardsB, dirMeasure, system),
+    plating: pl !== undefined,
+    // new plating starts from typical mild-steel figures (marked assumed when switched on)
+    plThick: showField(pl?.thicknessM ?? 0.012, 'thickness', system),
+    plCorrosion: showField(pl?.corrosionAllowanceM ?? 0, 'thickness', system),
+    plYield: showField(pl?.yieldStressPa ?? 235e6, 'stress', system),
+    plAllow: showField(pl?.allowableStressPa ?? 0.6 * 235e6, 'stress', system),
+    plEdges: pl?.edges ?? 'simply-supported',
     notes: b.notes ?? '',
     marks: b.marks ?? {},
   };
@@ -225,6 +249,19 @@ export function formToBoundary(v: BoundaryForm, base: Boundary, system: UnitSyst
         : v.capKind === 'pressure'
           ? { kind: 'pressure', pressurePa: parseField(v.capValue, 'pressure', system) }
           : { kind: 'force', forceN: parseField(v.capValue, 'force', system) },
+    directionalCapacity:
+      v.dirKind === 'none'
+        ? undefined
+        : { kind: v.dirKind, towardsA: parseField(v.dirTowardsA, v.dirKind, system), towardsB: parseField(v.dirTowardsB, v.dirKind, system) },
+    plating: v.plating
+      ? {
+          thicknessM: parseField(v.plThick, 'thickness', system),
+          corrosionAllowanceM: parseField(v.plCorrosion, 'thickness', system),
+          yieldStressPa: stress(v.plYield),
+          allowableStressPa: stress(v.plAllow),
+          edges: v.plEdges,
+        }
+      : undefined,
     notes: v.notes.trim() === '' ? undefined : v.notes,
   };
   return { ...next, marks: settleMarks(v.marks, base, next) };
@@ -249,6 +286,8 @@ const MEASURES = byKey({
   failureStressPa: 'stress',
   pressurePa: 'pressure',
   forceN: 'force',
+  thicknessM: 'thickness',
+  corrosionAllowanceM: 'thickness',
   x: 'length',
   y: 'length',
   z: 'length',

@@ -10,12 +10,16 @@ import { formatNumber, fromSi, toSi, UNITS, type UnitId, type UnitSystem } from 
 import { unitOf } from '@client/lib/unit-system';
 import type { Dimension } from '@shared/units/units';
 
-/** What a number field measures; 'stress' is a pressure shown in MPa / ksi, 'ratio' has no unit. */
-export type Measure = Dimension | 'stress' | 'ratio';
+/**
+ * What a number field measures; 'stress' is a pressure shown in MPa / ksi, 'thickness' a length
+ * shown in mm / in (plate thickness, corrosion allowance), 'ratio' has no unit.
+ */
+export type Measure = Dimension | 'stress' | 'thickness' | 'ratio';
 
 export function measureUnit(measure: Measure, system: UnitSystem): UnitId | null {
   if (measure === 'ratio') return null;
   if (measure === 'stress') return system === 'us' ? 'ksi' : 'MPa';
+  if (measure === 'thickness') return system === 'us' ? 'in' : 'mm';
   return unitOf(measure, system);
 }
 
