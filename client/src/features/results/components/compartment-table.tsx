@@ -12,7 +12,7 @@ export function CompartmentTable({ results, system, onSelect }: { results: Surve
       <table className="w-full min-w-[34rem] border-collapse text-left text-sm" data-testid="compartment-results">
         <thead className="bg-sea-soft">
           <tr>
-            <th className="p-1.5">Compartment / layer</th>
+            <th className="p-1.5">Space / layer</th>
             <th className="p-1.5 text-right">Volume ({unitLabel('volume', system)})</th>
             <th className="p-1.5 text-right">Mass ({unitLabel('mass', system)})</th>
             <th className="p-1.5 text-right">Full</th>
