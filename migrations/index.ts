@@ -17,6 +17,9 @@ import * as rateLimits from './20261203001300_rate_limits';
 import * as surveyFormatV2 from './20261203001500_survey_format_v2';
 import * as commentResolution from './20261203001700_comment_resolution';
 import * as briefAcknowledgements from './20261203001750_brief_acknowledgements';
+import * as changedSinceReview from './20261204000100_changed_since_review';
+import * as deviceOwners from './20261204000200_device_owners';
+import * as endedSessions from './20261204000210_ended_sessions';
 
 const migrations: Record<string, Knex.Migration> = {
   '20261201000000_organisations_users': organisationsUsers,
@@ -32,6 +35,9 @@ const migrations: Record<string, Knex.Migration> = {
   '20261203001500_survey_format_v2': surveyFormatV2,
   '20261203001700_comment_resolution': commentResolution,
   '20261203001750_brief_acknowledgements': briefAcknowledgements,
+  '20261204000100_changed_since_review': changedSinceReview,
+  '20261204000200_device_owners': deviceOwners,
+  '20261204000210_ended_sessions': endedSessions,
 };
 
 export const migrationSource: Knex.MigrationSource<string> = {

@@ -15,6 +15,8 @@ import { fileURLToPath } from 'node:url';
 import { computeBoundaryDetail, computeSurvey, computeSurveySummary, floodWeightsFromResults, responseFromWeights, type SurveyResults } from '@shared/engine';
 import { SURVEY_SCHEMA_VERSION, type Boundary, type Compartment, type Contents, type Survey } from '@shared/schemas/survey';
 import { pascalPressure } from '../tests/support/pascal';
+import { leanOp, type Entity } from '@shared/sync/apply';
+import type { SurveyChange, SurveyOp } from '@shared/schemas/sync';
 
 const uuid = (n: number) => `be9c0000-0000-4000-8000-${n.toString(16).padStart(12, '0')}`;
 
@@ -239,6 +241,7 @@ export function main(opts: { timingOnly?: boolean } = {}): void {
   console.log(describeTimes('Engine computeBoundaryDetail (one boundary with its load diagram, as the detail view opens it)', one));
   const r = computeSurvey(survey);
   console.log(`  machine load average ${load1.toFixed(2)} on this run: on a shared machine the fastest run is the better guide to an idle one`);
+  benchPushBytes(survey);
   if (opts.timingOnly) return;
   const exact = r.boundaries.map((b) => b.net.forceN);
   const leanForces = computeSurveySummary(survey).boundaries.forceN;
@@ -283,6 +286,28 @@ export function main(opts: { timingOnly?: boolean } = {}): void {
   }
   console.log(`Engine target < 10 ms median (Node's default heap): ${engineMs < 10 ? 'met' : 'not met'} on this run (wall clock, load average ${load1.toFixed(2)}).`);
   benchShipResponse(survey, r);
+}
+
+/**
+ * The bytes of the push a one-sounding edit sends (#18 item 3), on the first 2,000 boundaries of the
+ * vessel: the lean patch the device store queues, against the whole condition the device used to send.
+ */
+export function benchPushBytes(vessel: Survey): void {
+  const survey = { ...vessel, boundaries: vessel.boundaries.slice(0, 2000) };
+  const before = survey.conditions[0];
+  const k = before.contents[7];
+  const layer = k.layers[0];
+  const level = layer.level;
+  if (level.kind !== 'sounding') throw new Error('the bench vessel’s layer is not a sounding');
+  const edited = { ...layer, level: { ...level, soundingM: (level.soundingM ?? 0) + 0.01 } };
+  const after = { ...before, contents: before.contents.map((c) => (c === k ? { ...k, layers: [edited, ...k.layers.slice(1)] } : c)) };
+  const body = (op: SurveyOp) => {
+    const change: SurveyChange = { id: crypto.randomUUID(), deviceId: crypto.randomUUID(), seq: 1234, surveyId: survey.id, baseRevision: 56, createdAt: new Date().toISOString(), op };
+    return new TextEncoder().encode(JSON.stringify({ changes: [change] })).length;
+  };
+  const whole = body({ kind: 'upsert', collection: 'conditions', entity: after, fields: ['contents'] });
+  const lean = body(leanOp(before as unknown as Entity, { kind: 'upsert', collection: 'conditions', entity: after }));
+  console.log(`Push of one sounding edit (2,000-boundary survey, ${before.contents.length} spaces with contents): ${lean} bytes as sent (goal < 2 KB: ${lean < 2048 ? 'met' : 'not met'}); the whole condition would be ${whole} bytes.`);
 }
 
 /**

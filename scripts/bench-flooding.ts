@@ -35,23 +35,30 @@ export function floodingVessel(): Survey {
 export function main(): void {
   const s = floodingVessel();
   const runs: number[] = [];
+  const cpu: number[] = [];
   let last = forecastFlooding(s);
   for (let k = 0; k < 3; k++) {
     const t0 = performance.now();
+    const c0 = process.cpuUsage();
     last = forecastFlooding(s);
+    const c = process.cpuUsage(c0);
     runs.push(performance.now() - t0);
+    cpu.push((c.user + c.system) / 1000);
   }
   runs.sort((a, b) => a - b);
+  cpu.sort((a, b) => a - b);
   const ms = runs[Math.floor(runs.length / 2)];
+  // on a shared, loaded host the wall time includes waiting for a core; the process's CPU time does not
+  const cpuMs = cpu[Math.floor(cpu.length / 2)];
   console.log(
     `Flooding forecast, ${s.compartments.length} spaces / ${s.boundaries.length} boundaries, 24 h: median ${ms.toFixed(0)} ms ` +
-      `(runs ${runs.map((r) => r.toFixed(0)).join(', ')} ms; load average ${loadavg()[0].toFixed(2)}).`,
+      `(runs ${runs.map((r) => r.toFixed(0)).join(', ')} ms; load average ${loadavg()[0].toFixed(2)}); CPU time median ${cpuMs.toFixed(0)} ms.`,
   );
   console.log(
     `  ${last.stats.steps} integrator steps, ${last.stats.evaluations} derivative evaluations, ${last.stats.loadRuns} load runs at ${last.times.length} output times; ` +
       `volume balance ${last.balance.balanceM3.toExponential(2)} m³ (${last.balance.relative.toExponential(2)} relative); ${last.limits.length} boundaries reach their limit.`,
   );
-  console.log(`Forecast target < 1 s: ${ms < 1000 ? 'met' : 'not met'} on this run.`);
+  console.log(`Forecast target < 1 s: ${ms < 1000 ? 'met' : 'not met'} on this run (wall time)${ms >= 1000 && cpuMs < 1000 ? '; met in CPU time, the host is loaded' : ''}.`);
 }
 
 if (process.argv[1]?.endsWith('bench-flooding.ts')) main();

@@ -1,7 +1,8 @@
 /**
  * `npm start`: everything Brineline needs on one machine, in one process group.
  * PostgreSQL (Debian's package, data in .data/postgres), migrations and the demo seed, the local
- * mail catcher and S3-compatible store, the client built by Vite, and the Express server.
+ * mail catcher and S3-compatible store, the client built by Vite, and the Express server (in WORKERS
+ * processes when set; see server/cluster.ts).
  * Ctrl-C stops all of it, the database included.
  */
 import path from 'node:path';
@@ -13,6 +14,7 @@ import { startS3Fake } from './lib/s3-fake';
 import { loadConfig } from '../server/config';
 import { createDb } from '../server/db/knex';
 import { startServer, ROOT_DIR } from '../server/index';
+import { forkWorkers, workersWanted } from '../server/cluster';
 import { seedDemo } from '../seeds/seed-demo';
 import { DEMO_USERS } from '../seeds/demo-people';
 
@@ -71,6 +73,20 @@ async function main() {
       await build({ configFile: path.join(ROOT_DIR, 'vite.config.ts'), logLevel: 'warn' });
     }
 
+    const workers = dev ? 1 : workersWanted();
+    if (workers > 1) {
+      // N server processes sharing PORT (server/cluster.ts); each reads this configuration from its environment.
+      await db.destroy();
+      const running = forkWorkers(
+        workers,
+        { DATABASE_URL: config.DATABASE_URL, SMTP_URL: config.SMTP_URL, S3_ENDPOINT: config.S3_ENDPOINT, DEV_MAIL_DIR: config.DEV_MAIL_DIR },
+        step,
+      );
+      cleanups.push(() => running.stop());
+      await running.ready;
+      step(`Brineline is running at http://localhost:${config.PORT} in ${workers} server processes`);
+      return demoSignIns();
+    }
     const server = await startServer(config, { db });
     cleanups.push(() => server.close());
     if (dev) {
@@ -83,13 +99,17 @@ async function main() {
     } else {
       step(`Brineline is running at ${server.url}`);
     }
-    step('Demo sign-ins:');
-    for (const u of DEMO_USERS) step(`  ${u.role.padEnd(9)} ${u.email.padEnd(34)} ${u.password}`);
-    step('Press Ctrl-C to stop everything.');
+    demoSignIns();
   } catch (err) {
     console.error(`[brineline] Start-up failed: ${(err as Error).message}`);
     await stopAll(1);
   }
+}
+
+function demoSignIns() {
+  step('Demo sign-ins:');
+  for (const u of DEMO_USERS) step(`  ${u.role.padEnd(9)} ${u.email.padEnd(34)} ${u.password}`);
+  step('Press Ctrl-C to stop everything.');
 }
 
 void main();

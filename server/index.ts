@@ -1,6 +1,6 @@
 /**
  * Production entry: reads the environment, connects to DATABASE_URL, runs pending migrations and
- * listens. `npm start` (scripts/start.ts) wraps the same `startServer` with its own local services.
+ * listens; with WORKERS > 1, in that many processes (server/cluster.ts). `npm start` (scripts/start.ts) wraps the same `startServer` with its own local services.
  */
 import http from 'node:http';
 import path from 'node:path';
@@ -11,6 +11,7 @@ import { createApp } from './app';
 import { loadConfig, type Config } from './config';
 import { createDb, type Db } from './db/knex';
 import { migrateLatest } from './db/migrate';
+import { forkWorkers, isServerWorker, workersWanted } from './cluster';
 
 export const ROOT_DIR = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..');
 
@@ -48,11 +49,37 @@ export async function startServer(config: Config, opts: { clientDir?: string; db
 const invokedDirectly = process.argv[1] && path.resolve(process.argv[1]) === fileURLToPath(import.meta.url);
 if (invokedDirectly) {
   const config = loadConfig();
-  const db = createDb(config.DATABASE_URL);
-  await migrateLatest(db);
-  const running = await startServer(config, { db });
-  console.log(`Brineline listening on ${running.url}`);
-  const shutdown = () => void running.close().then(() => process.exit(0));
+  if (isServerWorker()) {
+    // Forked by a primary (below or scripts/start.ts) that has run the migrations already.
+    await serveUntilSignalled(await startServer(config));
+  } else {
+    const db = createDb(config.DATABASE_URL);
+    await migrateLatest(db);
+    const workers = workersWanted();
+    if (workers > 1) {
+      await db.destroy();
+      const running = forkWorkers(workers, {}, (msg) => console.log(`[brineline] ${msg}`));
+      await running.ready;
+      console.log(`Brineline listening on ${config.publicUrl} (${workers} worker processes)`);
+      const shutdown = () => void running.stop().then(() => process.exit(0));
+      process.on('SIGINT', shutdown);
+      process.on('SIGTERM', shutdown);
+    } else {
+      const running = await startServer(config, { db });
+      console.log(`Brineline listening on ${running.url}`);
+      await serveUntilSignalled(running);
+    }
+  }
+}
+
+/** Closes the server and exits on SIGINT / SIGTERM (once, however many signals come). */
+async function serveUntilSignalled(running: RunningServer): Promise<void> {
+  let closing = false;
+  const shutdown = () => {
+    if (closing) return;
+    closing = true;
+    void running.close().then(() => process.exit(0));
+  };
   process.on('SIGINT', shutdown);
   process.on('SIGTERM', shutdown);
 }

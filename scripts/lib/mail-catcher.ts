@@ -19,6 +19,8 @@ export interface CaughtMail {
   html: string;
   /** The sending organisation, from Brineline's X-Brineline-Organisation header. */
   organisationId?: string;
+  /** The member who sent it (a brief's engineer, an invitation's admin), from X-Brineline-Sent-By. */
+  sentById?: string;
 }
 
 export interface MailCatcher {
@@ -47,6 +49,7 @@ export async function startMailCatcher(opts: { port: number; dir: string }): Pro
             text: parsed.text ?? '',
             html: typeof parsed.html === 'string' ? parsed.html : '',
             organisationId: headerText(parsed.headers.get('x-brineline-organisation')),
+            sentById: headerText(parsed.headers.get('x-brineline-sent-by')),
           };
           const name = `${Date.now()}-${mail.id}.json`;
           // Write then rename, so a reader never sees a half-written message.

@@ -18,6 +18,7 @@ import {
   verdictSeverity,
 } from '@shared/review/words';
 import { formatShipAndUtc } from '@shared/review/time-words';
+import { downfloodingSentences, forecastAttitudeWords } from '@shared/review/forecast-words';
 import { boundaryKindWords } from '@shared/review/plain-words';
 import { figureNotes, figureNoteSentence } from '@shared/review/assumptions';
 import { measurableLimit } from '@shared/review/measurable-limits';
@@ -25,10 +26,18 @@ import { structureCheckRows } from '@shared/review/structure-rows';
 import { html, type SafeHtml } from './html';
 
 export interface BriefPageData {
+  /** The document whose figures are shown: the accepted revision's while newer, unreviewed ones exist. */
   doc: Survey;
   results: SurveyResults | null;
   status: SurveyStatus;
+  /** The survey's current revision. */
   revision: number;
+  /** The revision of `doc` and `results` (defaults to `revision`). */
+  shownRevision?: number;
+  /** Set when the survey changed after the revision shown was accepted: the current, unreviewed revision. */
+  newerRevision?: number | null;
+  /** The accepted revision's document is not kept (changed before the rule existed): no figures shown. */
+  figuresWithheld?: boolean;
   /** Revision the link was issued on; a later one means the survey changed since. */
   issuedRevision: number;
   units: UnitSystem;
@@ -84,7 +93,7 @@ function sideLabel(results: SurveyResults, side: BoundaryResult['sideA']): strin
 }
 
 /** The nearest time-to-limit in plain words, with what it assumes (null when no forecast can be run). */
-export function nearestLimitWords(doc: Survey): { sentence: string; assumptions: string } | null {
+export function nearestLimitWords(doc: Survey): { sentence: string; assumptions: string; downflooding: string[]; attitude: string } | null {
   const utc = (iso: string | null) => formatShipAndUtc(iso, doc.vessel.shipTimeOffsetMin);
   let f;
   try {
@@ -100,18 +109,20 @@ export function nearestLimitWords(doc: Survey): { sentence: string; assumptions:
       ? `${first.name} is already past its limit.`
       : `${first.name} is expected to reach its limit at ${utc(new Date(Date.parse(f.readingsTime) + first.atS * 1000).toISOString())}, ${hmm(first.atS)} (h:mm) after the soundings.`;
   const assumptions = `This assumes the breaches, openings, pumps and pumping plan stay as entered, and ${f.attitude.note.charAt(0).toLowerCase()}${f.attitude.note.slice(1)} ${FORECAST_CAUTION} It rests on readings of ${utc(f.latestReadingTime)}.`;
-  return { sentence, assumptions };
+  return { sentence, assumptions, downflooding: downfloodingSentences(f, doc.vessel.shipTimeOffsetMin), attitude: forecastAttitudeWords(f) };
 }
 
 export function renderBriefPage(d: BriefPageData, opts: { ackError?: string } = {}): string {
-  const nearestLimit = nearestLimitWords(d.doc);
+  const withheld = d.figuresWithheld === true;
+  const shownRevision = d.shownRevision ?? d.revision;
+  const nearestLimit = withheld ? null : nearestLimitWords(d.doc);
   const q = (v: number, dim: Parameters<typeof formatQuantity>[1], digits = 3) => formatQuantity(v, dim, d.units, digits).text;
   const utc = (iso: string | null) => formatShipAndUtc(iso, d.doc.vessel.shipTimeOffsetMin);
   const names = namesFromSurvey(d.doc);
   const condition = d.doc.conditions.find((c) => c.id === d.doc.activeConditionId) ?? d.doc.conditions[0];
   const surveyVerdict = d.verdicts.find((v) => v.scope === 'survey');
   const boundaryVerdicts = new Map(d.verdicts.filter((v) => v.scope === 'boundary').map((v) => [v.boundaryId, v]));
-  const r = d.results;
+  const r = withheld ? null : d.results;
 
   const flooded = r ? r.compartments.filter((c) => c.liquid.volumeM3 > 1e-9) : [];
   const floodedRows = flooded.map(
@@ -136,6 +147,9 @@ ${checksTable(b, d.doc, d.units, { A: sideLabel(r!, b.sideA), B: sideLabel(r!, b
   });
 
   const response = r ? shipResponseOf(d.doc, r) : null;
+  const noFigures = withheld
+    ? html`<p class="muted">Not shown: the figures the engineer accepted are not kept on the server, and the newer ones are not reviewed.</p>`
+    : html`<p class="muted">The server has not worked out the loads for this survey yet.</p>`;
   const nearest = response && condition ? downfloodingFreeboards(d.doc, condition, response)[0] : undefined;
   const heelWords = (deg: number) => `${formatNumber(Math.abs(deg), 2)}° ${deg > 0.05 ? 'to starboard' : deg < -0.05 ? 'to port' : ''}`;
   const stability = response
@@ -143,13 +157,15 @@ ${checksTable(b, d.doc, d.units, { A: sideLabel(r!, b.sideA), B: sideLabel(r!, b
 <p>GM after free surface: <strong class="${response.gmFluidM <= 0 ? 'over' : ''}">${q(response.gmFluidM, 'length')}</strong>${nearest && nearest.predictedM !== null ? html` · nearest opening that would let water in: <strong>${nearest.name}</strong>, ${q(nearest.predictedM, 'length')} above the water` : ''}.</p>
 ${response.warnings.length ? html`<ul>${response.warnings.map((w) => html`<li class="${w.severity === 'danger' ? 'over' : ''}">${w.message}</li>`)}</ul>` : ''}
 <p class="muted">${STABILITY_CAUTION}</p>`
-    : html`<p class="muted">Not computed: the survey has no hydrostatic particulars for these readings.</p>`;
+    : withheld
+      ? noFigures
+      : html`<p class="muted">Not computed: the survey has no hydrostatic particulars for these readings.</p>`;
 
   const limitItems = d.limits.map((l) => {
     const measure = measurableLimit(l.rule, d.doc, d.units);
     return html`<li>${describeLimit(l, names, d.units)}${measure ? html`<div class="measure">${measure}</div>` : ''}</li>`;
   });
-  const notes = figureNotes(d.doc);
+  const notes = withheld ? [] : figureNotes(d.doc);
   const ack = d.acknowledgement;
   const ackSection = d.token
     ? html`<section aria-labelledby="h-ack" id="acknowledged" class="ack">
@@ -166,6 +182,23 @@ ${response.warnings.length ? html`<ul>${response.warnings.map((w) => html`<li cl
     : '';
   const sev = surveyVerdict ? verdictSeverity(surveyVerdict.verdict) : null;
   const changedSince = d.revision > d.issuedRevision;
+  const newer = d.newerRevision ?? null;
+  const unreviewed = !newer && d.status !== 'accepted' && d.status !== 'in_review';
+  const reviewNotice = newer
+    ? html`<p class="notice" data-notice="newer-figures">Newer figures exist. The survey was changed after the engineer accepted revision ${shownRevision}; it is now at revision ${newer} (“${STATUS_LABELS[d.status]}”). Nobody has reviewed those changes yet, so they are not shown here. ${
+        withheld ? 'The accepted figures cannot be shown either: ask the engineer.' : html`Everything below is revision ${shownRevision}, as accepted.`
+      } Ask the engineer before you act on any change made since.</p>`
+    : unreviewed
+      ? html`<p class="notice" data-notice="unreviewed">No engineer has reviewed these figures${d.status === 'changed_since_review' ? ': the survey changed after it was sent for review' : ''}. Treat every figure as unchecked.</p>`
+      : changedSince
+        ? html`<p class="notice">The survey has changed since this brief was sent. Ask the engineer for a fresh one before you act on it.</p>`
+        : '';
+  const reviewedLine =
+    d.reviewedBy && (d.status === 'accepted' || newer)
+      ? html`Accepted by <strong>${d.reviewedBy}</strong>${d.reviewedAt ? html` on ${utc(d.reviewedAt)}` : ''}: survey revision ${shownRevision}`
+      : d.reviewedBy && d.status === 'in_review'
+        ? html`Under review by <strong>${d.reviewedBy}</strong>${d.reviewedAt ? html` since ${utc(d.reviewedAt)}` : ''}: survey revision ${shownRevision}`
+        : html`Not reviewed: survey revision ${shownRevision}`;
 
   const body: SafeHtml = html`
 <header>
@@ -173,7 +206,7 @@ ${response.warnings.length ? html`<ul>${response.warnings.map((w) => html`<li cl
   <h1>${d.doc.vessel.name}${d.doc.vessel.imo ? html` <span class="muted">IMO ${d.doc.vessel.imo}</span>` : ''}</h1>
   <p class="sub">${d.doc.title}</p>
   <p class="when">Soundings taken <strong>${utc(condition?.time ?? null)}</strong> · review status: <strong>${STATUS_LABELS[d.status]}</strong></p>
-  ${changedSince ? html`<p class="notice">The survey has changed since this brief was sent. Ask the engineer for a fresh one before you act on it.</p>` : ''}
+  ${reviewNotice}
 </header>
 <section aria-labelledby="h-verdict">
   <h2 id="h-verdict">The engineer’s verdict</h2>
@@ -188,7 +221,8 @@ ${response.warnings.length ? html`<ul>${response.warnings.map((w) => html`<li cl
 ${nearestLimit ? html`<section aria-labelledby="h-nearest">
   <h2 id="h-nearest">Time to the nearest limit</h2>
   <p><strong>${nearestLimit.sentence}</strong></p>
-  <p class="muted">${nearestLimit.assumptions}</p>
+  ${nearestLimit.downflooding.length ? html`<ul>${nearestLimit.downflooding.map((t) => html`<li><strong>${t}</strong></li>`)}</ul>` : ''}
+  <p class="muted">${nearestLimit.attitude}: ${nearestLimit.assumptions}</p>
 </section>` : ''}
 <section aria-labelledby="h-flooded">
   <h2 id="h-flooded">What is flooded</h2>
@@ -197,7 +231,7 @@ ${nearestLimit ? html`<section aria-labelledby="h-nearest">
         r.summary.totalInflowM3S > 0 ? html` · inflow about <strong>${q(r.summary.totalInflowM3S, 'flow')}</strong>` : ''
       }</p>
 ${flooded.length ? html`<table><thead><tr><th scope="col">Space</th><th scope="col">Holds</th><th scope="col">Full</th></tr></thead><tbody>${floodedRows}</tbody></table>` : html`<p>No space holds liquid in this survey.</p>`}`
-    : html`<p class="muted">The server has not worked out the loads for this survey yet.</p>`}
+    : noFigures}
 </section>
 <section aria-labelledby="h-stability">
   <h2 id="h-stability">The ship’s response</h2>
@@ -205,7 +239,7 @@ ${flooded.length ? html`<table><thead><tr><th scope="col">Space</th><th scope="c
 </section>
 <section aria-labelledby="h-boundaries">
   <h2 id="h-boundaries">Boundaries that matter</h2>
-  ${boundaryItems.length ? html`<ul class="boundaries">${boundaryItems}</ul>` : html`<p class="muted">No boundary carries a net load.</p>`}
+  ${boundaryItems.length ? html`<ul class="boundaries">${boundaryItems}</ul>` : r ? html`<p class="muted">No boundary carries a net load.</p>` : noFigures}
 </section>
 ${notes.length ? html`<section aria-labelledby="h-notes">
   <h2 id="h-notes">Figures not measured</h2>
@@ -221,7 +255,7 @@ ${notes.length ? html`<section aria-labelledby="h-notes">
 </section>
 ${ackSection}
 <footer>
-  <p>Reviewed by <strong>${d.reviewedBy ?? 'nobody yet'}</strong>${d.reviewedAt ? html` on ${utc(d.reviewedAt)}` : ''} · ${d.organisationName} · survey revision ${d.revision}.</p>
+  <p data-testid="reviewed-line">${reviewedLine}${newer ? html` (the survey is now at revision ${newer}, not reviewed)` : ''} · ${d.organisationName}.</p>
   <p>This link stops working ${utc(d.expiresAt)} and may be withdrawn earlier. Do not forward it. Figures in ${d.units === 'us' ? 'US customary units' : 'SI units'}.</p>
 </footer>`;
 

@@ -5,12 +5,15 @@
  *   tsx server/cli/loads.ts path/to/survey.json [--units si|us] [--table] [--condition <id>]
  *
  * JSON output keeps the engine's field names, with unit suffixes renamed when --units us converts
- * them (forceN → forceKip, areaM2 → areaFt2, ...). Exit codes: 0 ok, 1 invalid input, 2 usage or file error.
+ * them (forceN → forceKip, areaM2 → areaFt2, ...), and `shipResponse` beside them (predicted drafts, trim, heel,
+ * GM, TPC and MCT 1 cm, or TPI and MTI with --units us; null without particulars). Exit codes: 0 ok, 1 invalid input, 2 usage or file error.
  */
 import { readFileSync } from 'node:fs';
 import { resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { computeSurvey, type SurveyResults } from '@shared/engine';
+import { computeSurvey, shipResponseOf, type SurveyResults } from '@shared/engine';
+import { STABILITY_CAUTION } from '@shared/api/cautions';
+import type { Survey } from '@shared/schemas/survey';
 import { formatIssueLines } from '@shared/api/format-issues';
 import { UpgradingSurveySchema } from '@shared/schemas/survey';
 import { pointWords, trimWords } from '@shared/units/point-words';
@@ -56,6 +59,11 @@ export function parseArgs(argv: readonly string[]): Args {
 
 /** Reads, validates and computes; throws CliError with a readable message. */
 export function runLoads(args: Args): SurveyResults {
+  return computeSurvey(readSurvey(args), { conditionId: args.conditionId });
+}
+
+/** Reads and validates the survey file; throws CliError with a readable message. */
+export function readSurvey(args: Args): Survey {
   let text: string;
   try {
     text = readFileSync(args.file, 'utf8');
@@ -77,7 +85,48 @@ export function runLoads(args: Args): SurveyResults {
   if (args.conditionId && !parsed.data.conditions.some((c) => c.id === args.conditionId)) {
     throw new CliError(`${args.file}: no condition with id ${args.conditionId}`, 1);
   }
-  return computeSurvey(parsed.data, { conditionId: args.conditionId });
+  return parsed.data;
+}
+
+/**
+ * The ship's response to the modelled contents in the chosen units, fields named by their unit
+ * (TPC in t/cm or TPI in LT/in, MCT 1 cm in t·m/cm or MTI in ft·LT/in); null without particulars.
+ */
+export function responseOutput(survey: Survey, r: SurveyResults, units: UnitSystem): Record<string, unknown> | null {
+  const resp = shipResponseOf(survey, r);
+  if (!resp) return null;
+  const a = resp.attitude;
+  const len = (v: number) => (units === 'us' ? fromSi(v, 'ft') : v);
+  const L = units === 'us' ? 'Ft' : 'M';
+  const tpc = r.frame.seaDensityKgM3 * resp.waterplaneAreaM2;
+  return {
+    [`draftAft${L}`]: len(a.draftAftM),
+    [`draftFore${L}`]: len(a.draftForeM),
+    [`meanDraft${L}`]: len(a.meanDraftM),
+    [`trim${L}`]: len(a.trimM),
+    heelDeg: a.heelDeg,
+    [`gmSolid${L}`]: len(resp.gmSolidM),
+    [`gmFluid${L}`]: len(resp.gmFluidM),
+    ...(units === 'us' ? { displacementLongTons: fromSi(resp.displacementKg, 'LT'), tpiLongTonsPerIn: fromSi(tpc, 'tpi'), mtiFtLongTonsPerIn: fromSi(resp.mctKgM, 'mt1in') } : { displacementT: resp.displacementKg / 1000, tpcTPerCm: fromSi(tpc, 'tpc'), mct1cmTMPerCm: fromSi(resp.mctKgM, 'mct1cm') }),
+    warnings: resp.warnings.map((w) => w.message),
+    caution: STABILITY_CAUTION,
+  };
+}
+
+/** The ship's response as lines for the table output. */
+function responseLines(survey: Survey, r: SurveyResults, units: UnitSystem): string[] {
+  const resp = shipResponseOf(survey, r);
+  if (!resp) return ["SHIP'S RESPONSE", '  Not computed: this condition has no hydrostatic particulars.'];
+  const q = (v: number, d: Dimension) => formatQuantity(v, d, units, 4).text;
+  const a = resp.attitude;
+  return [
+    "SHIP'S RESPONSE (predicted from the modelled contents)",
+    `  drafts aft ${q(a.draftAftM, 'length')}, forward ${q(a.draftForeM, 'length')}, mean ${q(a.meanDraftM, 'length')}; trim ${trimWords(a.trimM, units)}; heel ${formatNumber(a.heelDeg, 3)}° (starboard down +)`,
+    `  GM solid ${q(resp.gmSolidM, 'length')}, GM fluid ${q(resp.gmFluidM, 'length')}; displacement ${q(resp.displacementKg, 'mass')}`,
+    `  ${units === 'us' ? 'TPI' : 'TPC'} ${q(r.frame.seaDensityKgM3 * resp.waterplaneAreaM2, 'immersion')}, ${units === 'us' ? 'MTI' : 'MCT 1 cm'} ${q(resp.mctKgM, 'trimMoment')}`,
+    ...resp.warnings.map((w) => `  [${w.severity}] ${w.message}`),
+    `  ${STABILITY_CAUTION}`,
+  ];
 }
 
 // ---- unit conversion of the JSON output, by field-name suffix
@@ -150,7 +199,7 @@ function table(headers: string[], rows: string[][]): string {
   return [line(headers), widths.map((w) => '-'.repeat(w)).join('  '), ...rows.map(line)].join('\n');
 }
 
-export function renderTable(r: SurveyResults, units: UnitSystem): string {
+export function renderTable(r: SurveyResults, units: UnitSystem, survey?: Survey): string {
   const q = (v: number, d: Dimension) => formatQuantity(v, d, units, 4).text;
   const out: string[] = [];
   out.push(`Engine ${r.engineVersion}  condition ${r.conditionId} at ${r.conditionTime}`);
@@ -209,6 +258,10 @@ export function renderTable(r: SurveyResults, units: UnitSystem): string {
   out.push(agg('flood water', r.ship.floodWater));
   out.push(agg('oil', r.ship.oil));
   out.push(agg('all liquids', r.ship.allLiquids));
+  if (survey) {
+    out.push('');
+    out.push(...responseLines(survey, r, units));
+  }
   if (r.warnings.length > 0) {
     out.push('');
     out.push('WARNINGS');
@@ -222,9 +275,14 @@ export function renderTable(r: SurveyResults, units: UnitSystem): string {
 export function main(argv: readonly string[] = process.argv.slice(2)): number {
   try {
     const args = parseArgs(argv);
-    const results = runLoads(args);
-    if (args.table) process.stdout.write(`${renderTable(results, args.units)}\n`);
-    else process.stdout.write(`${JSON.stringify(args.units === 'us' ? convertUs(results) : results, null, 2)}\n`);
+    const survey = readSurvey(args);
+    const results = computeSurvey(survey, { conditionId: args.conditionId });
+    if (args.table) process.stdout.write(`${renderTable(results, args.units, survey)}\n`);
+    else {
+      // the ship's response rides beside the results, its fields already in the chosen units
+      const out = { ...((args.units === 'us' ? convertUs(results) : results) as object), shipResponse: responseOutput(survey, results, args.units) };
+      process.stdout.write(`${JSON.stringify(out, null, 2)}\n`);
+    }
     return 0;
   } catch (e) {
     if (e instanceof CliError) {

@@ -7,8 +7,19 @@ pg.types.setTypeParser(pg.types.builtins.NUMERIC, (v) => Number(v));
 
 export type Db = Knex;
 
+const urls = new WeakMap<Db, string>();
+
 export function createDb(url: string, pool = { min: 0, max: 10 }): Db {
-  return knexFactory({ client: 'pg', connection: url, pool });
+  const db = knexFactory({ client: 'pg', connection: url, pool });
+  urls.set(db, url);
+  return db;
+}
+
+/** The connection string a Db was made with (createDb), for a worker thread to open its own connection. */
+export function databaseUrlOf(db: Db): string {
+  const url = urls.get(db);
+  if (!url) throw new Error('This database handle was not made by createDb.');
+  return url;
 }
 
 /** Reports whether the database answers, within a short time. */

@@ -6,6 +6,11 @@ export interface AuthContext {
   orgId: string;
   role: Role;
   email: string;
+  /**
+   * The session (refresh-token family) the access token was issued in. Every verified token has one;
+   * a request is refused once that session is ended (sign-out, password reset, deactivation).
+   */
+  sessionId?: string;
 }
 
 declare module 'express-serve-static-core' {

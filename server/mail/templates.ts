@@ -1,12 +1,13 @@
 /** The account e-mails, each in plain text and HTML with the same words. */
 import type { Role } from '@shared/api/roles';
 import type { MailMessage } from './mailer';
+import { formatUtc } from '@shared/review/time-words';
 
 const escapeHtml = (s: string) =>
   s.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!);
 
-const when = (d: Date) =>
-  d.toLocaleString('en-GB', { dateStyle: 'long', timeStyle: 'short', timeZone: 'UTC' }) + ' UTC';
+// the one date-time style of every screen, the brief and the report
+const when = (d: Date) => formatUtc(d);
 
 function html(paragraphs: string[], link: { href: string; label: string }): string {
   const ps = paragraphs.map((p) => `<p style="margin:0 0 14px">${escapeHtml(p)}</p>`).join('\n');
@@ -42,6 +43,26 @@ export function invitationMail(m: {
     subject: `Join ${m.orgName} on Brineline`,
     text: `${lines[0]}\n\n${lines[1]}\n\n${lines[2]}\n\n${m.link}\n\n${lines[3]}\n`,
     html: html(lines, { href: m.link, label: 'Accept the invitation' }),
+  };
+}
+
+/**
+ * To an address that already has an account with another organisation, instead of an invitation
+ * link (one address belongs to one organisation). The inviting admin is answered exactly as for any
+ * invitation; only the address's owner learns why no link came.
+ */
+export function invitationElsewhereMail(m: { to: string; orgName: string; inviterName: string | null; signInLink: string }): Omit<MailMessage, 'orgId'> {
+  const who = m.inviterName ? `${m.inviterName} of ${m.orgName}` : `An administrator of ${m.orgName}`;
+  const lines = [
+    `${who} has invited this address to Brineline.`,
+    'This address already has a Brineline account with another organisation, and one address can belong to one organisation only, so no invitation link is sent. Nothing has changed for your account.',
+    `If you are to work with ${m.orgName}, ask them to invite another address of yours.`,
+  ];
+  return {
+    to: m.to,
+    subject: `About an invitation from ${m.orgName}`,
+    text: `${lines.join('\n\n')}\n\n${m.signInLink}\n`,
+    html: html(lines, { href: m.signInLink, label: 'Sign in to your account' }),
   };
 }
 

@@ -10,12 +10,12 @@ import { CAUTIONS } from '@shared/api/cautions';
 import { catalogueFluid } from '@shared/fluids/catalogue';
 import { defaultPermeability } from '@shared/schemas/space-types';
 import { STATUS_LABELS, type SurveyStatus } from '@shared/review/status';
-import { formatNumber, formatQuantity, type Dimension, type UnitSystem } from '@shared/units/units';
+import { formatNumber, formatQuantity, formatStress, type Dimension, type UnitSystem } from '@shared/units/units';
 import { boundaryVerdictLabel, boundaryVerdictMeaning, describeLimit, namesFromSurvey, surveyVerdictLabel } from '@shared/review/words';
 import { figureNotes, figureNoteSentence } from '@shared/review/assumptions';
-import { boundaryKindWords, SPACE_TYPE_WORDS } from '@shared/review/plain-words';
+import { boundaryKindWords, END_CONDITION_WORDS, SPACE_TYPE_WORDS } from '@shared/review/plain-words';
 import { formatShipAndUtc, formatUtc } from '@shared/review/time-words';
-import { structureCheckRows, stressWords } from '@shared/review/structure-rows';
+import { structureCheckRows } from '@shared/review/structure-rows';
 import { pointWords } from '@shared/units/point-words';
 import { html, type SafeHtml } from '../brief/html';
 
@@ -74,6 +74,7 @@ thead th{font-size:8.5pt;text-transform:uppercase;color:var(--soft)}
 .cautions{border:2px solid var(--care);padding:4px 10px;border-radius:6px;break-inside:avoid}
 .meta td{border:0;padding:1px 4px}
 @media (max-width:600px){.grid,.sign{grid-template-columns:1fr}}
+@media screen and (max-width:600px){.num{white-space:normal}th,td{padding:3px 2px}thead th{font-size:7.5pt;hyphens:auto;overflow-wrap:anywhere}}
 @media print{
   @page{margin:15mm 14mm 16mm}
   main{max-width:none;padding:0}
@@ -107,10 +108,12 @@ function extentWords(c: Compartment, q: (v: number, d: Dimension) => string): st
   return `section of ${g.section.length} corners between x ${q(g.xAftM, 'length')} and ${q(g.xForeM, 'length')}`;
 }
 
+const SHAPE_WORDS: Record<Boundary['geometry']['kind'], string> = { polygon: 'flat outline', rectangle: 'rectangle', circle: 'circle', faceted: 'curved, in flat facets' };
+
 export function renderReport(d: ReportData): string {
   const q = (v: number, dim: Dimension, digits = 4) => formatQuantity(v, dim, d.units, digits).text;
   // stresses in the unit the forms take them in (MPa or ksi), not as a pressure in kPa
-  const stress = (pa: number) => stressWords(pa, d.units, 4);
+  const stress = (pa: number) => formatStress(pa, d.units);
   const doc = d.doc;
   const r = d.results;
   const names = namesFromSurvey(doc);
@@ -123,6 +126,10 @@ export function renderReport(d: ReportData): string {
     return n ? html` <span class="mark">${n.mark}</span>` : '';
   };
   const sideWords = (s: Boundary['sideA']) => (s.kind === 'sea' ? 'the sea' : s.kind === 'air' ? 'open air' : names.compartment(s.compartmentId));
+  // A verdict given on an older revision of a survey not accepted or under review since: say so beside it.
+  const reviewedNow = d.status === 'accepted' || d.status === 'in_review';
+  const staleVerdict = (v: Verdict) =>
+    !reviewedNow && v.revision < d.revision ? html` <strong class="over">Given on revision ${v.revision}; the figures above (revision ${d.revision}) are not reviewed.</strong>` : '';
   const verdictOf = new Map(d.verdicts.filter((v) => v.scope === 'boundary').map((v) => [v.boundaryId, v]));
   const surveyVerdict = d.verdicts.find((v) => v.scope === 'survey');
   const resultOf = new Map((r?.boundaries ?? []).map((b) => [b.id, b]));
@@ -153,7 +160,7 @@ export function renderReport(d: ReportData): string {
     const st = b.stiffening;
     const inputs: SafeHtml[] = [
       html`<tr><th scope="row">Between</th><td>side A: ${sideWords(b.sideA)}; side B: ${sideWords(b.sideB)}</td></tr>`,
-      html`<tr><th scope="row">Shape</th><td>${b.geometry.kind}${b.parentBoundaryId ? html`, set in ${names.boundary(b.parentBoundaryId)}` : ''}</td></tr>`,
+      html`<tr><th scope="row">Shape</th><td>${SHAPE_WORDS[b.geometry.kind]}${b.parentBoundaryId ? html`, set in ${names.boundary(b.parentBoundaryId)}` : ''}</td></tr>`,
     ];
     if (st) {
       inputs.push(
@@ -163,7 +170,7 @@ export function renderReport(d: ReportData): string {
     (b.shores ?? []).forEach((s, i) => {
       const sec = s.section.kind === 'rectangular' ? `${q(s.section.widthM, 'length')} × ${q(s.section.depthM, 'length')}` : s.section.kind === 'tube' ? `tube ${q(s.section.outerDiameterM, 'length')} × ${q(s.section.wallThicknessM, 'length')}` : `area ${q(s.section.areaM2, 'area')}`;
       const design = s.design?.method === 'aisc-360-e3' ? `AISC 360 §E3, Fy ${stress(s.design.yieldStressPa)}` : s.design?.method === 'nds-3.7.1' ? `NDS §3.7.1, Fc* ${stress(s.design.adjustedCompressionPa)}, E′min ${stress(s.design.adjustedEMinPa)}` : s.design?.method === 'generic' ? `crushing ${stress(s.design.failureStressPa)} ÷ ${formatNumber(s.design.designFactor, 3)}` : 'no design method (Euler ÷ 2)';
-      inputs.push(html`<tr><th scope="row">Shore ${i + 1}</th><td>${sec}, length ${q(s.lengthM, 'length')}, stands on side ${s.side}, ${s.endCondition.replace('-', ' / ')}, head at ${pointWords(s.position, d.units)}; ${design}${chip(b.id, `shores.${s.id}.section`)}</td></tr>`);
+      inputs.push(html`<tr><th scope="row">Shore ${i + 1}</th><td>${sec}, length ${q(s.lengthM, 'length')}, stands on side ${s.side}, ${END_CONDITION_WORDS[s.endCondition]}, head at ${pointWords(s.position, d.units)}; ${design}${chip(b.id, `shores.${s.id}.section`)}</td></tr>`);
     });
     if (b.plating) {
       const pl = b.plating;
@@ -204,7 +211,7 @@ export function renderReport(d: ReportData): string {
 <h3>${b.name} <span class="muted">(${boundaryKindWords(b.kind)})</span></h3>
 <div class="grid"><div><p class="muted">Inputs</p><table><tbody>${inputs}</tbody></table></div><div><p class="muted">Results</p>${out}</div></div>
 ${res ? checksTable(res) : ''}
-<p>Reviewer: ${v ? html`<strong>${boundaryVerdictLabel(v.verdict)}</strong>: ${boundaryVerdictMeaning(v.verdict)}.${v.note ? html` ${v.note}` : ''}` : html`<span class="muted">no verdict</span>`}</p>
+<p>Reviewer: ${v ? html`<strong>${boundaryVerdictLabel(v.verdict)}</strong>: ${boundaryVerdictMeaning(v.verdict)}.${v.note ? html` ${v.note}` : ''}${staleVerdict(v)}` : html`<span class="muted">no verdict</span>`}</p>
 </section>`;
   }
 
@@ -247,7 +254,7 @@ ${r && r.warnings.length ? html`<ul>${r.warnings.map((w) => html`<li class="${w.
 ${assumed.length ? html`<p>Assumed (defaults not confirmed):</p><ul>${assumed.map((n) => html`<li>${figureNoteSentence(n)}</li>`)}</ul>` : html`<p class="muted">No assumed figures.</p>`}
 ${estimated.length ? html`<p>Estimated (judged, not measured):</p><ul>${estimated.map((n) => html`<li>${figureNoteSentence(n)}</li>`)}</ul>` : html`<p class="muted">No figures marked estimated.</p>`}
 <h2>Reviewer’s verdicts and limits</h2>
-<p>On the survey: ${surveyVerdict ? html`<strong>${surveyVerdictLabel(surveyVerdict.verdict)}</strong>${surveyVerdict.note ? html`: ${surveyVerdict.note}` : ''}` : html`<span class="muted">no verdict yet</span>`}</p>
+<p>On the survey: ${surveyVerdict ? html`<strong>${surveyVerdictLabel(surveyVerdict.verdict)}</strong>${surveyVerdict.note ? html`: ${surveyVerdict.note}` : ''}${staleVerdict(surveyVerdict)}` : html`<span class="muted">no verdict yet</span>`}</p>
 ${d.limits.length ? html`<ol>${d.limits.map((l) => html`<li>${describeLimit(l, names, d.units)}</li>`)}</ol>` : html`<p class="muted">No operating limits set.</p>`}
 <section class="cautions"><h2>Cautions</h2><ul>${CAUTIONS.map((c) => html`<li>${c}</li>`)}</ul></section>
 <section class="sign" aria-label="Signatures">

@@ -1,4 +1,7 @@
-/** Resolves the caller of a request from its Bearer access token, and checks the membership is still active. */
+/**
+ * Resolves the caller of a request from its Bearer access token, and checks on every request that the
+ * membership is still active and the token's session not ended.
+ */
 import type { Request } from 'express';
 import type { Role } from '@shared/api/roles';
 import type { AppDeps } from '../context';
@@ -6,6 +9,7 @@ import type { AuthContext } from '../http/auth-context';
 import type { AccessVerifier } from '../http/route';
 import { verifyAccessToken } from './tokens';
 import { runNamed } from '../db/knex';
+import { MEMBER_ROLE_SQL, memberParams } from '../db/repositories/survey-sql';
 
 export function createAccessVerifier(deps: Pick<AppDeps, 'db' | 'config'>): AccessVerifier {
   const token = async (req: Request): Promise<AuthContext | null> => {
@@ -13,13 +17,9 @@ export function createAccessVerifier(deps: Pick<AppDeps, 'db' | 'config'>): Acce
     if (!header?.startsWith('Bearer ')) return null;
     return verifyAccessToken(deps.config.JWT_SECRET, header.slice(7).trim());
   };
+  // One query: the membership, and that the token's session was not ended (signed out, password reset, deactivated).
   const activeRole = async (ctx: AuthContext): Promise<Role | null> => {
-    const { rows } = await runNamed<{ role: Role }>(
-      deps.db,
-      'bl_member_role',
-      `SELECT role FROM memberships WHERE user_id = ? AND organisation_id = ? AND status = 'active'`,
-      [ctx.userId, ctx.orgId],
-    );
+    const { rows } = await runNamed<{ role: Role | null }>(deps.db, 'bl_member_role', `SELECT ${MEMBER_ROLE_SQL} AS role`, memberParams(ctx));
     return rows[0]?.role ?? null;
   };
   const verify = async (req: Request): Promise<AuthContext | null> => {

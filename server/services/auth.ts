@@ -71,6 +71,7 @@ export function createAuthService(deps: AuthDeps) {
       orgId: me.organisation.id,
       role: me.role,
       email: me.email,
+      sessionId: familyId,
     });
     return { body: { accessToken, expiresIn: ACCESS_TTL_SECONDS, user: me }, refreshToken, refreshExpiresAt };
   }

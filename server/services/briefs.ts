@@ -5,7 +5,10 @@
  */
 import type { Knex } from 'knex';
 import type { BriefLink, IssueBrief } from '@shared/api/review';
-import type { SurveyResults } from '@shared/engine';
+import { ENGINE_VERSION, type SurveyResults } from '@shared/engine';
+import type { Survey } from '@shared/schemas/survey';
+import type { Verdict } from '@shared/api/review';
+import { standingAcceptance } from '@shared/review/reviewed';
 import { UpgradingSurveySchema } from '@shared/schemas/survey';
 import { BRIEFABLE_STATUSES, STATUS_LABELS } from '@shared/review/status';
 import type { Config } from '../config';
@@ -45,6 +48,7 @@ export function createBriefService(deps: { db: Knex; config: Pick<Config, 'publi
     await mailer.send({
       to: body.recipientEmail,
       orgId: auth.orgId,
+      sentBy: auth.userId,
       ...briefMail({
         url,
         vesselName: parsed.success ? parsed.data.vessel.name : 'the vessel',
@@ -73,8 +77,8 @@ export function createBriefService(deps: { db: Knex; config: Pick<Config, 'publi
     const s = await repo.findSurvey(db, link.orgId, link.surveyId);
     const parsed = s ? UpgradingSurveySchema.safeParse(s.doc) : null;
     if (!s || !parsed?.success) return null;
-    const [results, verdicts, limits, reviewed, organisationName, issuer, acknowledgement] = await Promise.all([
-      ensureResults(db, s.id, s.revision, parsed.data),
+    const [events, verdicts, limits, reviewed, organisationName, issuer, acknowledgement] = await Promise.all([
+      repo.listStatusEvents(db, s.id),
       repo.listVerdicts(db, [s.id]),
       repo.listLimits(db, [s.id]),
       repo.lastReviewEvent(db, s.id),
@@ -83,22 +87,57 @@ export function createBriefService(deps: { db: Knex; config: Pick<Config, 'publi
       repo.lastBriefAcknowledgement(db, link.id),
       meta.log === false ? Promise.resolve() : repo.logBriefOpening(db, link.id, meta.ip, meta.userAgent),
     ]);
+    const shown = await reviewedFigures(s.id, s.status, s.revision, parsed.data, events, verdicts);
     return {
-      doc: parsed.data,
-      results: (results.results as SurveyResults | null) ?? null,
+      ...shown,
       status: s.status,
       revision: s.revision,
       issuedRevision: link.revision,
       units: link.units,
-      verdicts,
       limits,
       organisationName,
-      reviewedBy: reviewed?.name ?? null,
-      reviewedAt: reviewed?.at ?? null,
+      reviewedBy: shown.acceptedBy ?? (s.status === 'in_review' ? (reviewed?.name ?? null) : null),
+      reviewedAt: shown.acceptedAt ?? (s.status === 'in_review' ? (reviewed?.at ?? null) : null),
       expiresAt: link.expiresAt,
       engineer: issuer,
       acknowledgement,
       token,
+    };
+  }
+
+  /**
+   * What the brief may show: never a verdict beside figures nobody reviewed.
+   * - An acceptance stands (no "returned" after it) for an older revision than the current one:
+   *   that revision's document (kept when the change came, review_snapshots) and its stored results,
+   *   with the verdicts that stood when it was accepted; `newerRevision` says newer figures exist.
+   *   Without the kept document (a survey changed before this rule), the figures are withheld.
+   * - The current revision is accepted, or under review: its figures and verdicts.
+   * - Otherwise (sent, changed since review, returned, draft): the current figures with no verdict.
+   */
+  async function reviewedFigures(surveyId: string, status: BriefPageData['status'], revision: number, doc: Survey, events: Awaited<ReturnType<typeof repo.listStatusEvents>>, verdicts: Verdict[]) {
+    const accepted = standingAcceptance(events);
+    const base = { acceptedBy: accepted?.actorName ?? null, acceptedAt: accepted?.at ?? null };
+    if (accepted && accepted.revision < revision) {
+      const kept = await repo.findSnapshot(db, surveyId, accepted.revision);
+      const keptDoc = kept ? UpgradingSurveySchema.safeParse(kept) : null;
+      const standing = verdicts.filter((v) => v.setAt <= accepted.at);
+      const common = { ...base, shownRevision: accepted.revision, newerRevision: revision, verdicts: standing };
+      if (!keptDoc?.success) return { ...common, doc, results: null, figuresWithheld: true };
+      const stored = (await repo.findResultsExact(db, surveyId, accepted.revision, ENGINE_VERSION)) ?? (await ensureResults(db, surveyId, accepted.revision, keptDoc.data));
+      return { ...common, doc: keptDoc.data, results: (stored.results as SurveyResults | null) ?? null, figuresWithheld: false };
+    }
+    const current = await ensureResults(db, surveyId, revision, doc);
+    const reviewedNow = status === 'accepted' || status === 'in_review';
+    // Under review with no acceptance: only verdicts given on this very revision.
+    const shownVerdicts = !reviewedNow ? [] : accepted ? verdicts : verdicts.filter((v) => v.revision === revision);
+    return {
+      ...(accepted ? base : { acceptedBy: null, acceptedAt: null }),
+      shownRevision: revision,
+      newerRevision: null,
+      verdicts: shownVerdicts,
+      doc,
+      results: (current.results as SurveyResults | null) ?? null,
+      figuresWithheld: false,
     };
   }
 

@@ -8,7 +8,7 @@ import os from 'node:os';
 import { fileURLToPath } from 'node:url';
 import { Piscina } from 'piscina';
 import type { Survey } from '@shared/schemas/survey';
-import type { EngineOutput } from './engine-worker';
+import type { EngineOutput, EngineTask, StoredOutcome } from './engine-worker';
 
 let pool: Piscina | undefined;
 
@@ -25,9 +25,18 @@ function enginePool(): Piscina {
   return pool;
 }
 
-/** The engine's results for a document, computed in a worker thread. */
+/** The engine's results for a document, computed in a worker thread (the document is copied to it). */
 export function computeInPool(doc: Survey): Promise<EngineOutput> {
-  return enginePool().run(doc) as Promise<EngineOutput>;
+  return enginePool().run({ kind: 'doc', doc } satisfies EngineTask) as Promise<EngineOutput>;
+}
+
+/**
+ * Computes and stores the results of a stored survey's current revision, if it has none yet for this
+ * engine version, entirely in a worker thread (it reads and writes PostgreSQL itself): nothing of
+ * the document or its results passes through this thread.
+ */
+export function recomputeStoredInPool(databaseUrl: string, surveyId: string, engineVersion: string): Promise<StoredOutcome> {
+  return enginePool().run({ kind: 'stored', databaseUrl, surveyId, engineVersion } satisfies EngineTask) as Promise<StoredOutcome>;
 }
 
 /** Stops the workers (shutdown, end of tests). */

@@ -10,7 +10,7 @@ import type { Config } from '../config';
 import type { Db } from '../db/knex';
 import type { AuthContext } from '../http/auth-context';
 import type { Mailer } from '../mail/mailer';
-import { invitationMail } from '../mail/templates';
+import { invitationElsewhereMail, invitationMail } from '../mail/templates';
 import { conflict, notFound } from '../errors';
 import * as accounts from '../db/repositories/accounts';
 import * as secrets from '../db/repositories/auth-tokens';
@@ -26,8 +26,14 @@ export function createInvitationService(deps: { db: Db; config: Config; logger: 
   const { db, config, logger, mailer, auth } = deps;
   const audit = createAudit(db, logger);
 
-  /** Creates a fresh invitation for a waiting membership (withdrawing older links) and e-mails it. */
+  /**
+   * Creates a fresh invitation for a waiting membership (withdrawing older links) and e-mails it. An
+   * address with an account in another organisation gets the same rows (so the members screen shows
+   * the same) but no usable link: its owner is told by mail instead, and the admin's answer is the
+   * same as for anyone else (F13: no oracle for another firm's addresses).
+   */
   async function sendInvitation(actor: AuthContext, userId: string, email: string, role: Role, meta: RequestMeta, resend: boolean) {
+    const elsewhere = await accounts.organisationElsewhere(db, userId, actor.orgId);
     const token = newSecret();
     const expiresAt = new Date(Date.now() + INVITATION_TTL_MS);
     await db.transaction(async (trx) => {
@@ -43,12 +49,14 @@ export function createInvitationService(deps: { db: Db; config: Config; logger: 
       });
     });
     const [org, inviterName] = await Promise.all([accounts.findOrganisation(db, actor.orgId), accounts.findUserName(db, actor.userId)]);
-    const link = `${config.publicUrl.replace(/\/$/, '')}/accept-invitation#${token}`;
+    const base = config.publicUrl.replace(/\/$/, '');
+    const orgName = org?.name ?? 'your organisation';
     try {
-      await mailer.send({
-        ...invitationMail({ to: email, orgName: org?.name ?? 'your organisation', inviterName: inviterName ?? null, role, link, expiresAt }),
-        orgId: actor.orgId,
-      });
+      await mailer.send(
+        elsewhere
+          ? { ...invitationElsewhereMail({ to: email, orgName, inviterName: inviterName ?? null, signInLink: `${base}/sign-in` }), orgId: elsewhere }
+          : { ...invitationMail({ to: email, orgName, inviterName: inviterName ?? null, role, link: `${base}/accept-invitation#${token}`, expiresAt }), orgId: actor.orgId },
+      );
     } catch (err) {
       logger.error({ err }, 'invitation e-mail failed');
       throw mailFailed('The invitation is saved, but not sent: use “Resend” on the members screen.');
@@ -63,9 +71,7 @@ export function createInvitationService(deps: { db: Db; config: Config; logger: 
         const member = await accounts.findMember(trx, actor.orgId, existing);
         if (member?.status === 'invited') throw conflict('This address has already been invited. Use “Resend” to send the link again.');
         if (member) throw conflict('This address already belongs to a member of your organisation.');
-        if (await accounts.hasAnyMembership(trx, existing)) {
-          throw conflict('This address already has a Brineline account with another organisation.');
-        }
+        // An account with another organisation is invited like anyone (see sendInvitation).
         await accounts.insertMembership(trx, { orgId: actor.orgId, userId: existing, role, status: 'invited' });
         return existing;
       }

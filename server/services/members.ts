@@ -46,8 +46,9 @@ export function createMemberService(deps: { db: Db; logger: Logger }) {
       if (member.role === 'admin' && member.status === 'active' && admins.length <= 1) throw lastAdmin();
       await accounts.updateMembership(trx, actor.orgId, userId, { status: 'deactivated' });
       await secrets.revokeOpenInvitations(trx, actor.orgId, userId);
-      // Access tokens stop at once (access.ts checks the membership); refresh tokens are revoked here.
-      await secrets.revokeAllForUser(trx, userId);
+      // Access tokens stop at once (access.ts checks the membership and the session); the sessions in
+      // this organisation end here, and only those (an invited address may have an account elsewhere).
+      await secrets.revokeAllForMembership(trx, userId, actor.orgId);
       return true;
     });
     if (changed) await audit('member_deactivated', meta, { orgId: actor.orgId, actorId: actor.userId, subjectId: userId });
@@ -60,7 +61,8 @@ export function createMemberService(deps: { db: Db; logger: Logger }) {
     if (member.status === 'invited') throw conflict('This person has not accepted their invitation yet; resend it instead.');
     if (member.status === 'deactivated') {
       // Someone deactivated before accepting goes back to waiting for an invitation.
-      const status = (await accounts.userHasPassword(db, userId)) ? 'active' : 'invited';
+      const joined = (await accounts.userHasPassword(db, userId)) && (await accounts.joinedOrganisation(db, actor.orgId, userId));
+      const status = joined ? 'active' : 'invited';
       await accounts.updateMembership(db, actor.orgId, userId, { status });
       await audit('member_reactivated', meta, { orgId: actor.orgId, actorId: actor.userId, subjectId: userId, details: { status } });
     }

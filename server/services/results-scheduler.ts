@@ -1,8 +1,7 @@
 /** Engine results computed after pushes, in the background, coalesced per survey. */
 import { ENGINE_VERSION } from '@shared/engine';
-import type { Db } from '../db/knex';
-import { docNeedingResults, insertResults } from '../db/repositories/surveys';
-import { runEngine } from './engine-results';
+import { databaseUrlOf, type Db } from '../db/knex';
+import { recomputeStoredInPool } from './engine-pool';
 
 export interface ResultsScheduler {
   /** Recompute this survey's latest revision soon (coalesced: one run for a burst of edits). */
@@ -14,7 +13,9 @@ export interface ResultsScheduler {
 /**
  * Recomputes results after pushes without holding up the push: each survey is computed at most
  * once per `delayMs`, always at its latest revision, one at a time, so a burst of edits costs one
- * engine run and the API stays responsive under load.
+ * engine run and the API stays responsive under load. The work (read, compute, store) runs in the
+ * engine pool's worker threads (`recomputeStoredInPool`). With several instances each may compute
+ * a survey it was told about; the stored results are keyed by revision, so the first one stands.
  */
 export function createResultsScheduler(db: Db, onError: (err: unknown) => void, delayMs = 2000): ResultsScheduler {
   const due = new Set<string>();
@@ -23,11 +24,12 @@ export function createResultsScheduler(db: Db, onError: (err: unknown) => void, 
   const run = async () => {
     timer = undefined;
     const ids = [...due];
+    const url = databaseUrlOf(db);
     due.clear();
     for (const id of ids) {
       try {
-        const row = await docNeedingResults(db, id, ENGINE_VERSION);
-        if (row) await insertResults(db, { surveyId: id, revision: row.revision, engineVersion: ENGINE_VERSION, ...(await runEngine(row.doc)) });
+        // Read, computed and stored in a worker thread: the request loop only waits.
+        await recomputeStoredInPool(url, id, ENGINE_VERSION);
       } catch (err) {
         onError(err);
       }

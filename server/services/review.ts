@@ -27,6 +27,9 @@ import type { AuthContext } from '../http/auth-context';
 import { conflict, forbidden, notFound, validationFailed } from '../errors';
 import * as repo from '../db/repositories/review';
 import { ensureResults } from './engine-results';
+import { sinceReviewBase } from '@shared/review/reviewed';
+import { MAX_CHANGE_LINES, surveyChangeLines } from '@shared/review/survey-changes';
+import { UpgradingSurveySchema } from '@shared/schemas/survey';
 
 const NO_SURVEY = 'No such survey in your organisation.';
 
@@ -95,7 +98,7 @@ export function createReviewService(deps: { db: Knex }) {
 
   async function bundle(auth: AuthContext, surveyId: string): Promise<ReviewBundle> {
     const s = await surveyOf(db, auth, surveyId);
-    const [results, comments, verdicts, limits, events, briefs, submittedById, organisationName] = await Promise.all([
+    const [results, comments, verdicts, limits, events, briefs, submittedById, organisationName, viewerWorkedOn] = await Promise.all([
       ensureResults(db, surveyId, s.revision, s.doc as Survey),
       repo.listComments(db, [surveyId]),
       repo.listVerdicts(db, [surveyId]),
@@ -104,6 +107,7 @@ export function createReviewService(deps: { db: Knex }) {
       repo.listBriefs(db, surveyId),
       repo.lastSubmitter(db, surveyId),
       repo.organisationName(db, auth.orgId),
+      repo.hasWorkedOn(db, surveyId, auth.userId),
     ]);
     return {
       surveyId,
@@ -118,10 +122,22 @@ export function createReviewService(deps: { db: Knex }) {
       verdicts: verdicts.map(({ surveyId: _s, ...v }) => v),
       limits: limits.map(({ surveyId: _s, ...l }) => l),
       events,
+      sinceReview: await sinceReview(surveyId, s.revision, s.doc as Survey, events),
       briefs: auth.role === 'surveyor' ? [] : briefs,
       viewer: { userId: auth.userId, role: auth.role },
+      viewerWorkedOn,
       organisationName,
     };
+  }
+
+  /** What changed since the revision the review rests on, when the survey changed after it (see ReviewBundle). */
+  async function sinceReview(surveyId: string, revision: number, doc: Survey, events: StatusEvent[]): Promise<ReviewBundle['sinceReview']> {
+    const base = sinceReviewBase(events, revision);
+    if (!base) return null;
+    const kept = await repo.findSnapshot(db, surveyId, base.revision);
+    const before = kept ? UpgradingSurveySchema.safeParse(kept) : null;
+    const lines = before?.success ? surveyChangeLines(before.data, doc) : [];
+    return { ...base, documentKept: Boolean(before?.success), lines: lines.slice(0, MAX_CHANGE_LINES), total: lines.length };
   }
 
   function targetExists(doc: Survey, kind: NewComment['target']['kind'], id: string): boolean {

@@ -12,10 +12,12 @@ export const ISSUER = 'brineline';
 export const ACCESS_AUDIENCE = 'brineline-api';
 export const ACCESS_TTL_SECONDS = 15 * 60;
 
+const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 const key = (secret: string) => new TextEncoder().encode(secret);
 
 export async function signAccessToken(secret: string, ctx: AuthContext, ttlSeconds = ACCESS_TTL_SECONDS): Promise<string> {
-  return new SignJWT({ org: ctx.orgId, role: ctx.role, email: ctx.email, typ: 'access' })
+  if (!ctx.sessionId) throw new Error('An access token needs the session it is issued in.');
+  return new SignJWT({ org: ctx.orgId, role: ctx.role, email: ctx.email, sid: ctx.sessionId, typ: 'access' })
     .setProtectedHeader({ alg: 'HS256', typ: 'JWT' })
     .setSubject(ctx.userId)
     .setIssuer(ISSUER)
@@ -30,7 +32,7 @@ export async function signAccessToken(secret: string, ctx: AuthContext, ttlSecon
  * every request for its 15 minutes, and the HMAC check through WebCrypto was the largest single cost
  * of a small request. Only tokens that passed every check are kept, keyed by their exact text, so a
  * changed byte misses the cache and is verified (and refused) in full; an expired one is dropped on
- * its next use. Membership is still checked in the database on every request (services/access.ts).
+ * its next use. Membership and session are still checked in the database on every request (services/access.ts).
  */
 interface Verifier {
   key: Uint8Array;
@@ -66,7 +68,9 @@ export async function verifyAccessToken(secret: string, token: string): Promise<
     if (payload.typ !== 'access' || typeof payload.sub !== 'string' || typeof payload.exp !== 'number') return null;
     const role = RoleSchema.safeParse(payload.role);
     if (!role.success || typeof payload.org !== 'string' || typeof payload.email !== 'string') return null;
-    const ctx: AuthContext = { userId: payload.sub, orgId: payload.org, role: role.data, email: payload.email };
+    // Every token names its session, so ending the session ends the token (services/access.ts).
+    if (typeof payload.sid !== 'string' || !UUID.test(payload.sid)) return null;
+    const ctx: AuthContext = { userId: payload.sub, orgId: payload.org, role: role.data, email: payload.email, sessionId: payload.sid };
     v.verified.set(token, { ctx, expiresAtMs: payload.exp * 1000 });
     return { ...ctx };
   } catch {

@@ -11,6 +11,8 @@ export const DevMailSchema = z.object({
   html: z.string(),
   /** The organisation that sent it (absent on mail from older versions). */
   organisationId: z.string().optional(),
+  /** The member who sent it, when a person did (a brief, an invitation); absent on resets and older mail. */
+  sentById: z.string().optional(),
 });
 export type DevMail = z.infer<typeof DevMailSchema>;
 

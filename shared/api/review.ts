@@ -5,6 +5,7 @@
  */
 import { z } from 'zod';
 import { SurveyStatusSchema } from '../review/status';
+import { ChangeLineSchema } from '../review/survey-changes';
 
 const Id = z.uuid();
 
@@ -193,8 +194,26 @@ export const ReviewBundleSchema = z.object({
   limits: z.array(OperatingLimitSchema),
   events: z.array(StatusEventSchema),
   briefs: z.array(z.lazy(() => BriefLinkSchema)),
+  /**
+   * Set when the survey changed after it was sent, under review or accepted (shared/review/reviewed.ts):
+   * the revision compared with and every change since it, in plain words. `lines` is empty with
+   * `documentKept` false when that revision's document is not kept (changed before the rule existed).
+   */
+  sinceReview: z
+    .object({
+      revision: z.number().int(),
+      reviewed: z.enum(['accepted', 'submitted', 'in_review']),
+      acceptedBy: z.string().nullable(),
+      acceptedAt: z.string().nullable(),
+      documentKept: z.boolean(),
+      lines: z.array(ChangeLineSchema),
+      total: z.number().int(),
+    })
+    .nullable(),
   /** Who is looking, so the desk offers only what the server will allow. */
   viewer: z.object({ userId: Id, role: z.enum(['admin', 'engineer', 'surveyor']) }),
+  /** The viewer made, edited or sent this survey at some revision, so may not accept it (the own-work rule). */
+  viewerWorkedOn: z.boolean(),
   organisationName: z.string(),
 });
 export type ReviewBundle = z.infer<typeof ReviewBundleSchema>;

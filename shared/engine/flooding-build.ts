@@ -36,7 +36,7 @@ export function openingShape(face: OpeningFace | undefined, size: OpeningSize | 
   return { shape: size.kind, halfHeightM: 0.5 * h * Math.abs(up[2]) };
 }
 
-export function buildFloodModel(survey: Survey, results: SurveyResults, frame: FloodFrame): BuiltModel {
+export function buildFloodModel(survey: Survey, results: Pick<SurveyResults, 'compartments'>, frame: FloodFrame): BuiltModel {
   const warnings: BuiltModel['warnings'] = [];
   const up = frame.up;
   const compResults = new Map(results.compartments.map((c) => [c.id, c]));

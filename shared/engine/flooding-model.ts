@@ -28,6 +28,7 @@
 import type { LevelTable } from './flooding-levels';
 import { levelOfVolume, surfaceAreaAt, volumeAt } from './flooding-levels';
 import type { V3 } from './vec';
+import type { Linearisation } from './flooding-ode';
 
 /** Sea-level pressure of the standard atmosphere, Pa (ISO 2533:1975; ICAO Doc 7488). */
 export const STANDARD_ATMOSPHERE_PA = 101_325;
@@ -201,63 +202,81 @@ function velocity(dp: number, rho: number, g: number): number {
 const GL_X = [-0.9602898564975363, -0.7966664774136267, -0.525532409916329, -0.1834346424956498, 0.1834346424956498, 0.525532409916329, 0.7966664774136267, 0.9602898564975363];
 const GL_W = [0.1012285362903763, 0.2223810344533745, 0.3137066458778873, 0.362683783378362, 0.362683783378362, 0.3137066458778873, 0.2223810344533745, 0.1012285362903763];
 
-const pieceBreaks: number[] = new Array<number>(16).fill(0);
+const pieceBreaks = new Float64Array(16);
+
+/**
+ * Flow through one opening, split by fluid: `out[slot]` receives q m³/s (positive from outside
+ * into inside) for each fluid with liquid upstream; `out` (length: the model's fluid count) is
+ * zeroed first. Returns the net flow. Written without closures: it runs for every opening at every
+ * derivative evaluation and Jacobian column of the forecast.
+ */
+export function openingSlotFlows(m: FloodModel, st: SpaceStack, op: FloodOpening, out: Float64Array): number {
+  out.fill(0);
+  const g = m.frame.g;
+  if (op.shape === 'point' || op.halfHeightM <= 0) {
+    const e = op.elevationM;
+    const dp = sidePressure(m, st, op.outside, e) - sidePressure(m, st, op.inside, e);
+    if (dp === 0) return 0;
+    const slot = dp > 0 ? sideFluid(m, st, op.outside, e) : sideFluid(m, st, op.inside, e);
+    if (slot < 0) return 0;
+    const q = op.cd * op.areaM2 * velocity(dp, m.fluids[slot].densityKgM3, g);
+    out[slot] += q;
+    return q;
+  }
+  const lo = op.elevationM - op.halfHeightM, hi = op.elevationM + op.halfHeightM;
+  // where either side's pressure changes slope, inside the opening (insertion-sorted, no allocation)
+  const nF = m.fluids.length;
+  let n = 0;
+  if (op.inside >= 0) for (let f = 0; f < nF; f++) n = addCut(st.tops[op.inside * nF + f], lo, hi, n);
+  if (op.outside < 0) n = addCut(m.frame.waterlineElevationM, lo, hi, n);
+  else for (let f = 0; f < nF; f++) n = addCut(st.tops[op.outside * nF + f], lo, hi, n);
+  let net = 0;
+  let a = lo;
+  let da = sidePressure(m, st, op.outside, a) - sidePressure(m, st, op.inside, a);
+  for (let k = 0; k <= n; k++) {
+    const b = k < n ? pieceBreaks[k] : hi;
+    if (b - a <= 1e-12) continue;
+    const db = sidePressure(m, st, op.outside, b) - sidePressure(m, st, op.inside, b);
+    if ((da > 0 && db < 0) || (da < 0 && db > 0)) {
+      const z = a + ((b - a) * da) / (da - db);
+      net += piece(m, st, op, a, z, da, 0, out);
+      net += piece(m, st, op, z, b, 0, db, out);
+    } else net += piece(m, st, op, a, b, da, db, out);
+    a = b;
+    da = db;
+  }
+  return net;
+}
+
+/** Inserts e into pieceBreaks[0..n) when it lies inside (lo, hi); returns the new count. */
+function addCut(e: number, lo: number, hi: number, n: number): number {
+  if (!(e > lo && e < hi)) return n;
+  let i = n;
+  while (i > 0 && pieceBreaks[i - 1] > e) {
+    pieceBreaks[i] = pieceBreaks[i - 1];
+    i--;
+  }
+  pieceBreaks[i] = e;
+  return n + 1;
+}
 
 /**
  * Flow through one opening, split by fluid: calls `take(slot, q)` with q m³/s (positive from
  * outside into inside) for each part with liquid upstream.
  */
 export function openingFlow(m: FloodModel, st: SpaceStack, op: FloodOpening, take: (slot: number, q: number) => void): void {
-  const g = m.frame.g;
-  if (op.shape === 'point' || op.halfHeightM <= 0) {
-    const e = op.elevationM;
-    const dp = sidePressure(m, st, op.outside, e) - sidePressure(m, st, op.inside, e);
-    if (dp === 0) return;
-    const slot = dp > 0 ? sideFluid(m, st, op.outside, e) : sideFluid(m, st, op.inside, e);
-    if (slot < 0) return;
-    take(slot, op.cd * op.areaM2 * velocity(dp, m.fluids[slot].densityKgM3, g));
-    return;
-  }
-  const lo = op.elevationM - op.halfHeightM, hi = op.elevationM + op.halfHeightM;
-  // where either side's pressure changes slope, inside the opening (insertion-sorted, no allocation)
-  const cuts = pieceBreaks;
-  let n = 0;
-  const addCut = (e: number) => {
-    if (!(e > lo && e < hi)) return;
-    let i = n++;
-    while (i > 0 && cuts[i - 1] > e) {
-      cuts[i] = cuts[i - 1];
-      i--;
-    }
-    cuts[i] = e;
-  };
-  const nF = m.fluids.length;
-  if (op.inside >= 0) for (let f = 0; f < nF; f++) addCut(st.tops[op.inside * nF + f]);
-  if (op.outside < 0) addCut(m.frame.waterlineElevationM);
-  else for (let f = 0; f < nF; f++) addCut(st.tops[op.outside * nF + f]);
-  let a = lo;
-  let da = sidePressure(m, st, op.outside, a) - sidePressure(m, st, op.inside, a);
-  for (let k = 0; k <= n; k++) {
-    const b = k < n ? cuts[k] : hi;
-    if (b - a <= 1e-12) continue;
-    const db = sidePressure(m, st, op.outside, b) - sidePressure(m, st, op.inside, b);
-    if ((da > 0 && db < 0) || (da < 0 && db > 0)) {
-      const z = a + ((b - a) * da) / (da - db);
-      piece(m, st, op, a, z, da, 0, take);
-      piece(m, st, op, z, b, 0, db, take);
-    } else piece(m, st, op, a, b, da, db, take);
-    a = b;
-    da = db;
-  }
+  const out = new Float64Array(m.fluids.length);
+  openingSlotFlows(m, st, op, out);
+  for (let f = 0; f < out.length; f++) if (out[f] !== 0) take(f, out[f]);
 }
 
-/** One piece of an opening, [a, b], over which Δp runs linearly from da to db without changing sign. */
-function piece(m: FloodModel, st: SpaceStack, op: FloodOpening, a: number, b: number, da: number, db: number, take: (slot: number, q: number) => void): void {
+/** One piece of an opening, [a, b], over which Δp runs linearly from da to db without changing sign; adds to `out`, returns the flow. */
+function piece(m: FloodModel, st: SpaceStack, op: FloodOpening, a: number, b: number, da: number, db: number, out: Float64Array): number {
   const mid = 0.5 * (a + b);
   const dm = 0.5 * (da + db);
-  if (dm === 0) return;
+  if (dm === 0) return 0;
   const slot = dm > 0 ? sideFluid(m, st, op.outside, mid) : sideFluid(m, st, op.inside, mid);
-  if (slot < 0) return;
+  if (slot < 0) return 0;
   const rho = m.fluids[slot].densityKgM3;
   const g = m.frame.g;
   const pLin = rho * g * HEAD_LINEAR_BELOW_M;
@@ -268,15 +287,14 @@ function piece(m: FloodModel, st: SpaceStack, op: FloodOpening, a: number, b: nu
     // the law changes where the head is HEAD_LINEAR_BELOW_M: integrate either side of it apart
     const z = a + ((b - a) * (pLin - pa)) / (pb - pa);
     const dz = Math.sign(dm) * pLin;
-    piece(m, st, op, a, z, da, dz, take);
-    piece(m, st, op, z, b, dz, db, take);
-    return;
+    return piece(m, st, op, a, z, da, dz, out) + piece(m, st, op, z, b, dz, db, out);
   }
   let integral: number; // ∫ w(e) v(e) de
   if (b - a >= 2 * h * (1 - 1e-12) && Math.abs(db - da) <= 1e-9 * Math.abs(dm)) {
     // the whole opening under one head (both sides the same liquid over it): the plain orifice law
-    take(slot, op.cd * op.areaM2 * velocity(dm, rho, g));
-    return;
+    const q = op.cd * op.areaM2 * velocity(dm, rho, g);
+    out[slot] += q;
+    return q;
   }
   if (op.shape === 'rectangular' && Math.max(pa, pb) <= pLin) {
     // linear law: the mean of a linear function
@@ -299,7 +317,9 @@ function piece(m: FloodModel, st: SpaceStack, op: FloodOpening, a: number, b: nu
     }
     integral *= 0.5 * Math.PI;
   }
-  take(slot, op.cd * integral);
+  const q = op.cd * integral;
+  out[slot] += q;
+  return q;
 }
 
 /** What a derivative evaluation adds up, besides dy: per-opening and per-pump flows. */
@@ -310,6 +330,56 @@ export interface FlowBreakdown {
   pump: Float64Array;
 }
 
+/** Spaces with an opening or a pump: the only ones whose contents ever change. */
+export function movingSpaces(m: FloodModel): Int32Array {
+  const touched = new Set<number>();
+  for (const op of m.openings) {
+    touched.add(op.inside);
+    if (op.outside >= 0) touched.add(op.outside);
+  }
+  for (const p of m.pumps) touched.add(p.space);
+  return Int32Array.from([...touched].sort((a, b) => a - b));
+}
+
+/**
+ * What pump k draws at `rate` m³/s from each fluid of its space, into `out[slot]` (zeroed
+ * first): the lowest layers above its suction first, falling away over its last PUMP_TAIL_S
+ * seconds of liquid above the suction. Returns the total drawn.
+ */
+export function pumpSlotFlows(m: FloodModel, st: SpaceStack, k: number, rate: number, out: Float64Array): number {
+  out.fill(0);
+  if (!(rate > 0)) return 0;
+  const nF = m.fluids.length;
+  const p = m.pumps[k];
+  const s = p.space;
+  const sp = m.spaces[s];
+  const tail = rate * PUMP_TAIL_S;
+  let left = rate;
+  let drawn = 0;
+  let bottom = sp.table.bottom;
+  for (let f = 0; f < nF && left > 0; f++) {
+    const top = st.tops[s * nF + f];
+    if (top > bottom && top > p.suctionElevationM) {
+      // this layer's liquid above the suction
+      const above = sp.permeability * (volumeAt(sp.table, top) - volumeAt(sp.table, Math.max(p.suctionElevationM, bottom)));
+      const q = left * Math.min(1, above / tail);
+      left -= q;
+      drawn += q;
+      out[f] = q;
+    }
+    bottom = Math.max(bottom, top);
+  }
+  return drawn;
+}
+
+/** Books pump k drawing q m³/s of fluid `slot`: out of its space (a held space refills from the sea) into the pumped total. */
+function bookPump(m: FloodModel, dy: Float64Array, k: number, slot: number, q: number, nF: number, nV: number): void {
+  const s = m.pumps[k].space;
+  if (m.spaces[s].held) dy[nV + SEA_IN] += q;
+  else dy[s * nF + slot] -= q;
+  dy[nV + PUMPED] += q;
+}
+
 /**
  * dy/dt for the state: `pumpRate[i]` is pump i's capacity while it runs (0 when stopped).
  * `breakdown`, if given, receives the flows.
@@ -318,56 +388,22 @@ export function floodDerivative(m: FloodModel, pumpRate: Float64Array, st: Space
   const nF = m.fluids.length;
   const nV = m.spaces.length * nF;
   // only spaces with an opening or a pump ever change: the others' surfaces are worked out once
-  const touched = new Set<number>();
-  for (const op of m.openings) {
-    touched.add(op.inside);
-    if (op.outside >= 0) touched.add(op.outside);
-  }
-  for (const p of m.pumps) touched.add(p.space);
-  const moving = Int32Array.from([...touched].sort((a, b) => a - b));
+  const moving = movingSpaces(m);
   let primed = false;
-  let target: Float64Array = new Float64Array(0);
-  let current: FloodOpening = m.openings[0];
-  let net = 0;
-  const take = (slot: number, q: number) => {
-    net += q;
-    move(m, target, current.outside, current.inside, slot, q, nF, nV);
-  };
+  const q = new Float64Array(nF);
   return (_t: number, y: Float64Array, dy: Float64Array, breakdown?: FlowBreakdown): void => {
     stackOf(m, y, st, primed ? moving : undefined);
     primed = true;
     dy.fill(0);
-    target = dy;
     for (let k = 0; k < m.openings.length; k++) {
-      current = m.openings[k];
-      net = 0;
-      openingFlow(m, st, current, take);
+      const op = m.openings[k];
+      const net = openingSlotFlows(m, st, op, q);
+      for (let f = 0; f < nF; f++) if (q[f] !== 0) move(m, dy, op.outside, op.inside, f, q[f], nF, nV);
       if (breakdown) breakdown.opening[k] = net;
     }
     for (let k = 0; k < m.pumps.length; k++) {
-      const p = m.pumps[k];
-      let left = pumpRate[k];
-      let drawn = 0;
-      if (left > 0) {
-        const s = p.space;
-        const sp = m.spaces[s];
-        const tail = pumpRate[k] * PUMP_TAIL_S;
-        let bottom = sp.table.bottom;
-        for (let f = 0; f < nF && left > 0; f++) {
-          const top = st.tops[s * nF + f];
-          if (top > bottom && top > p.suctionElevationM) {
-            // this layer's liquid above the suction
-            const above = sp.permeability * (volumeAt(sp.table, top) - volumeAt(sp.table, Math.max(p.suctionElevationM, bottom)));
-            const q = left * Math.min(1, above / tail);
-            left -= q;
-            drawn += q;
-            if (m.spaces[s].held) dy[nV + SEA_IN] += q;
-            else dy[s * nF + f] -= q;
-          }
-          bottom = Math.max(bottom, top);
-        }
-        dy[nV + PUMPED] += drawn;
-      }
+      const drawn = pumpSlotFlows(m, st, k, pumpRate[k], q);
+      for (let f = 0; f < nF; f++) if (q[f] !== 0) bookPump(m, dy, k, f, q[f], nF, nV);
       if (breakdown) breakdown.pump[k] = drawn;
     }
   };
@@ -410,4 +446,203 @@ export function levelRate(m: FloodModel, st: SpaceStack, s: number, dy: Float64A
   for (let f = 0; f < nF; f++) dv += dy[s * nF + f];
   const area = surfaceAreaAt(m.spaces[s].table, st.liquidTop[s]) * m.spaces[s].permeability;
   return area > 0 ? dv / area : 0;
+}
+
+/**
+ * The model's Jacobian and the solves a linearly implicit integrator needs (flooding-ode.ts
+ * rosenbrock23). Spaces joined by openings form groups (the sea and spaces held in balance with it
+ * join nothing); each group's block of J is dense and small, and every other space's row is zero,
+ * so W = I − γhJ is solved group by group with partial pivoting. The running totals (in, out,
+ * pumped) depend on nothing, so their rows are applied after the groups are solved.
+ *
+ * J is worked out by forward differences, one space's fluid at a time, through the openings and
+ * pumps of that space only. Each difference is booked like the flow itself (out of one side, into
+ * the other: move, bookPump), so every column of J sums to zero over the volume balance exactly as
+ * the flows do, and the integrator keeps the balance to rounding.
+ */
+export function floodLinearisation(m: FloodModel, pumpRate: Float64Array): Linearisation {
+  const nF = m.fluids.length;
+  const nS = m.spaces.length;
+  const nV = nS * nF;
+  const st = newStack(m);
+  const moving = movingSpaces(m);
+  const live = Array.from(moving).filter((s) => !m.spaces[s].held);
+  // groups of spaces joined by openings (union–find)
+  const parent = new Int32Array(nS).map((_, i) => i);
+  const root = (i: number): number => {
+    while (parent[i] !== i) i = parent[i] = parent[parent[i]];
+    return i;
+  };
+  const openingsOf: number[][] = Array.from({ length: nS }, () => []);
+  const pumpsOf: number[][] = Array.from({ length: nS }, () => []);
+  m.openings.forEach((op, k) => {
+    openingsOf[op.inside].push(k);
+    if (op.outside >= 0) {
+      openingsOf[op.outside].push(k);
+      if (!m.spaces[op.inside].held && !m.spaces[op.outside].held) parent[root(op.inside)] = root(op.outside);
+    }
+  });
+  m.pumps.forEach((p, k) => pumpsOf[p.space].push(k));
+  const byRoot = new Map<number, number[]>();
+  for (const s of live) byRoot.set(root(s), [...(byRoot.get(root(s)) ?? []), s]);
+  interface Group {
+    vars: Int32Array;
+    j: Float64Array;
+    /** The totals' rows of J over this group's columns (3 × size). */
+    jt: Float64Array;
+    lu: Float64Array;
+    piv: Int32Array;
+    gh: number;
+    x: Float64Array;
+  }
+  const groups: Group[] = [];
+  const localOf = new Int32Array(nV).fill(-1);
+  const groupOf = new Int32Array(nS).fill(-1);
+  for (const spaces of byRoot.values()) {
+    const size = spaces.length * nF;
+    const vars = new Int32Array(size);
+    spaces.forEach((s, a) => {
+      groupOf[s] = groups.length;
+      for (let f = 0; f < nF; f++) {
+        vars[a * nF + f] = s * nF + f;
+        localOf[s * nF + f] = a * nF + f;
+      }
+    });
+    groups.push({ vars, j: new Float64Array(size * size), jt: new Float64Array(3 * size), lu: new Float64Array(size * size), piv: new Int32Array(size), gh: NaN, x: new Float64Array(size) });
+  }
+  const baseQ = new Float64Array(m.openings.length * nF);
+  const baseP = new Float64Array(m.pumps.length * nF);
+  const q = new Float64Array(nF);
+  const col = new Float64Array(nV + 3);
+  const one = new Int32Array(1);
+  const saved = new Float64Array(nF);
+  const flowsOf = (s: number, sign: number) => {
+    for (const k of openingsOf[s]) {
+      const op = m.openings[k];
+      openingSlotFlows(m, st, op, q);
+      for (let f = 0; f < nF; f++) {
+        const d = sign * (q[f] - baseQ[k * nF + f]);
+        if (d !== 0) move(m, col, op.outside, op.inside, f, d, nF, nV);
+      }
+    }
+    for (const k of pumpsOf[s]) {
+      pumpSlotFlows(m, st, k, pumpRate[k], q);
+      for (let f = 0; f < nF; f++) {
+        const d = sign * (q[f] - baseP[k * nF + f]);
+        if (d !== 0) bookPump(m, col, k, f, d, nF, nV);
+      }
+    }
+  };
+  return {
+    jacobian(_t, y) {
+      stackOf(m, y, st, moving);
+      for (let k = 0; k < m.openings.length; k++) {
+        openingSlotFlows(m, st, m.openings[k], q);
+        baseQ.set(q, k * nF);
+      }
+      for (let k = 0; k < m.pumps.length; k++) {
+        pumpSlotFlows(m, st, k, pumpRate[k], q);
+        baseP.set(q, k * nF);
+      }
+      for (const g of groups) {
+        g.j.fill(0);
+        g.jt.fill(0);
+        g.gh = NaN;
+        const size = g.vars.length;
+        for (let c = 0; c < size; c++) {
+          const v = g.vars[c];
+          const s = (v - (v % nF)) / nF;
+          const room = m.spaces[s].permeability * m.spaces[s].table.total;
+          const yv = y[v];
+          const delta = 1.4901161193847656e-8 * Math.max(Math.abs(yv), 1e-3 * room, 1e-9);
+          // perturb, and put the space's surfaces back by copying rather than working them out again
+          saved.set(st.tops.subarray(s * nF, s * nF + nF));
+          const savedTop = st.liquidTop[s], savedGas = st.gasPa[s], savedVolume = st.liquidVolume[s];
+          y[v] = yv + delta;
+          const dInv = 1 / (y[v] - yv);
+          one[0] = s;
+          stackOf(m, y, st, one);
+          flowsOf(s, dInv);
+          y[v] = yv;
+          st.tops.set(saved, s * nF);
+          st.liquidTop[s] = savedTop;
+          st.gasPa[s] = savedGas;
+          st.liquidVolume[s] = savedVolume;
+          // gather the column (its rows lie in this group and the totals) and clear the scratch
+          for (let r = 0; r < size; r++) {
+            const i = g.vars[r];
+            g.j[r * size + c] = col[i];
+            col[i] = 0;
+          }
+          for (let r = 0; r < 3; r++) {
+            g.jt[r * size + c] = col[nV + r];
+            col[nV + r] = 0;
+          }
+        }
+      }
+    },
+    solve(gh, b) {
+      const t0 = b[nV + SEA_IN], t1 = b[nV + SEA_OUT], t2 = b[nV + PUMPED];
+      let a0 = 0, a1 = 0, a2 = 0;
+      for (const g of groups) {
+        const size = g.vars.length;
+        if (g.gh !== gh) {
+          factorise(g.j, gh, size, g.lu, g.piv);
+          g.gh = gh;
+        }
+        const x = g.x;
+        for (let r = 0; r < size; r++) x[r] = b[g.vars[r]];
+        luSolve(g.lu, g.piv, size, x);
+        for (let r = 0; r < size; r++) {
+          b[g.vars[r]] = x[r];
+          a0 += g.jt[r] * x[r];
+          a1 += g.jt[size + r] * x[r];
+          a2 += g.jt[2 * size + r] * x[r];
+        }
+      }
+      b[nV + SEA_IN] = t0 + gh * a0;
+      b[nV + SEA_OUT] = t1 + gh * a1;
+      b[nV + PUMPED] = t2 + gh * a2;
+    },
+  };
+}
+
+/** LU with partial pivoting of W = I − gh·J (row-major, size n), into lu and piv (Golub & Van Loan, Matrix Computations, Alg. 3.4.1). */
+function factorise(j: Float64Array, gh: number, n: number, lu: Float64Array, piv: Int32Array): void {
+  for (let i = 0; i < n * n; i++) lu[i] = -gh * j[i];
+  for (let i = 0; i < n; i++) lu[i * n + i] += 1;
+  for (let k = 0; k < n; k++) {
+    let p = k, best = Math.abs(lu[k * n + k]);
+    for (let i = k + 1; i < n; i++) {
+      const a = Math.abs(lu[i * n + k]);
+      if (a > best) {
+        best = a;
+        p = i;
+      }
+    }
+    piv[k] = p;
+    if (p !== k) for (let c = 0; c < n; c++) [lu[k * n + c], lu[p * n + c]] = [lu[p * n + c], lu[k * n + c]];
+    const d = lu[k * n + k];
+    if (d === 0) continue;
+    for (let i = k + 1; i < n; i++) {
+      const l = (lu[i * n + k] /= d);
+      if (l === 0) continue;
+      for (let c = k + 1; c < n; c++) lu[i * n + c] -= l * lu[k * n + c];
+    }
+  }
+}
+
+function luSolve(lu: Float64Array, piv: Int32Array, n: number, x: Float64Array): void {
+  // the rows were swapped whole while factorising (P W = L U): permute b first, then L, then U
+  for (let k = 0; k < n; k++) {
+    const p = piv[k];
+    if (p !== k) [x[k], x[p]] = [x[p], x[k]];
+  }
+  for (let k = 0; k < n; k++) for (let i = k + 1; i < n; i++) x[i] -= lu[i * n + k] * x[k];
+  for (let k = n - 1; k >= 0; k--) {
+    let s = x[k];
+    for (let c = k + 1; c < n; c++) s -= lu[k * n + c] * x[c];
+    const d = lu[k * n + k];
+    x[k] = d === 0 ? 0 : s / d;
+  }
 }

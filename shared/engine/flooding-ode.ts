@@ -30,6 +30,9 @@ export interface OdeOptions {
 /** y at time t inside the last accepted step (the continuous extension). */
 export type DenseOutput = (t: number, out: Float64Array) => void;
 
+/** Called after every accepted step; a time inside it stops the run there. */
+export type OdeEvent = (tOld: number, tNew: number, yNew: Float64Array, dense: DenseOutput) => number | null;
+
 export interface OdeRun {
   /** Time reached: t1, or the event time when `event` stopped the run. */
   t: number;
@@ -64,7 +67,7 @@ export function dormandPrince(
   y0: ArrayLike<number>,
   t1: number,
   opts: OdeOptions,
-  event?: (tOld: number, tNew: number, yNew: Float64Array, dense: DenseOutput) => number | null,
+  event?: OdeEvent,
 ): OdeRun {
   const n = y0.length;
   const y = Float64Array.from(y0);
@@ -138,15 +141,16 @@ export function dormandPrince(
     const fac = Math.min(10, Math.max(0.2, 0.9 * err ** -0.17 * errOld ** 0.04));
     errOld = Math.max(err, 1e-4);
     h *= err === 0 ? 10 : fac;
-    if (event) {
-      const te = event(tOld, t, y, dense);
-      if (te !== null) {
-        dense(te, y);
-        return { t: te, y, hNext: h, steps, rejected, evaluations, stoppedByEvent: true };
-      }
-    }
+    const te = event ? event(tOld, t, y, dense) : null;
+    if (te !== null) return finish(te, y, h, steps, rejected, evaluations, dense);
   }
   return { t, y, hNext: h, steps, rejected, evaluations, stoppedByEvent: false };
+}
+
+/** The run stopped by an event at te: y from the continuous extension there. */
+function finish(te: number, y: Float64Array<ArrayBuffer>, hNext: number, steps: number, rejected: number, evaluations: number, dense: DenseOutput): OdeRun {
+  dense(te, y);
+  return { t: te, y, hNext, steps, rejected, evaluations, stoppedByEvent: true };
 }
 
 /** Starting step from the size of y and y' (Hairer et al. §II.4, a simplified form). */
@@ -161,4 +165,117 @@ function initialStep(y: Float64Array, dy: Float64Array, opts: OdeOptions, hMax: 
   d1 = Math.sqrt(d1 / y.length);
   const h = d0 < 1e-5 || d1 < 1e-5 ? 1e-3 : 0.01 * (d0 / d1);
   return Math.min(Math.max(h, 1e-3), hMax);
+}
+
+/**
+ * The linear algebra a linearly implicit method needs from the problem: its Jacobian at a point,
+ * and solves with the iteration matrix W = I − γ·h·J. Kept with the problem so it can use its
+ * structure (the flooding model's is block-sparse: spaces joined by openings).
+ */
+export interface Linearisation {
+  /** Works out J = ∂f/∂y at (t, y), given fy = f(t, y). */
+  jacobian(t: number, y: Float64Array, fy: Float64Array): void;
+  /** Overwrites b with x solving (I − gh·J) x = b, for the J last worked out. */
+  solve(gh: number, b: Float64Array): void;
+}
+
+// Shampine & Reichelt's Rosenbrock pair (see rosenbrock23): d = 1/(2 + √2), e32 = 6 + √2.
+const RB_D = 1 / (2 + Math.SQRT2);
+const RB_E32 = 6 + Math.SQRT2;
+
+/**
+ * Integrates y' = f(y) from t0 to t1 (t1 > t0; f may not depend on t) with the L-stable,
+ * linearly implicit Rosenbrock pair of L. F. Shampine and M. W. Reichelt, "The MATLAB ODE
+ * Suite", SIAM J. Sci. Comput. 18 (1997) 1–22, §3 (the "ode23s" formulas): second order,
+ * with a third-order error estimate and a second-order continuous extension, one Jacobian and
+ * one factorisation per step, three evaluations of f (the last is the next step's first):
+ *
+ *   W = I − d h J,  F0 = f(y),  W k1 = F0,  F1 = f(y + h/2 k1),  W (k2 − k1) = F1 − k1,
+ *   y1 = y + h k2,  F2 = f(y1),  W k3 = F2 − e32 (k2 − F1) − 2 (k1 − F0),
+ *   error = h/6 (k1 − 2 k2 + k3),  y(t + s h) = y + h [s(1−s) k1 + s(s−2d) k2] / (1 − 2d).
+ *
+ * Being L-stable it steps over the fast, decaying exchanges between nearly balanced spaces
+ * (which hold an explicit method to steps of their time constant) at the pace the slow filling
+ * and pumping allow. Every stage is a linear combination of f values through W⁻¹, so a linear
+ * invariant c·y with c·f ≡ 0 and c·J ≡ 0 is kept to rounding (the flooding model's volume
+ * balance). Same events and result as dormandPrince.
+ */
+export function rosenbrock23(
+  f: Derivative,
+  lin: Linearisation,
+  t0: number, y0: ArrayLike<number>, t1: number, opts: OdeOptions, event?: OdeEvent): OdeRun {
+  const n = y0.length;
+  const y = Float64Array.from(y0);
+  const f0 = new Float64Array(n), f1 = new Float64Array(n), f2 = new Float64Array(n);
+  const k1 = new Float64Array(n), k2 = new Float64Array(n), k3 = new Float64Array(n);
+  const yt = new Float64Array(n), y1 = new Float64Array(n), yOld = new Float64Array(n);
+  const dk1 = new Float64Array(n), dk2 = new Float64Array(n);
+  const maxSteps = opts.maxSteps ?? 100_000;
+  const hMax = opts.hMax ?? t1 - t0;
+  let t = t0;
+  let evaluations = 1;
+  f(t, y, f0);
+  let h = opts.h0 ?? initialStep(y, f0, opts, hMax);
+  let steps = 0, rejected = 0;
+  let tOld = t;
+  let hOld = 0;
+  let needJacobian = true;
+  const dense: DenseOutput = (ts, out) => {
+    const s = hOld === 0 ? 0 : (ts - tOld) / hOld;
+    const a = (s * (1 - s)) / (1 - 2 * RB_D), b = (s * (s - 2 * RB_D)) / (1 - 2 * RB_D);
+    for (let i = 0; i < n; i++) out[i] = yOld[i] + hOld * (a * dk1[i] + b * dk2[i]);
+  };
+  while (t < t1) {
+    if (steps >= maxSteps) throw new Error(`rosenbrock23: more than ${maxSteps} steps between ${t0} s and ${t1} s`);
+    if (t + 1.01 * h >= t1) h = t1 - t;
+    h = Math.min(h, hMax);
+    if (needJacobian) {
+      lin.jacobian(t, y, f0);
+      needJacobian = false;
+    }
+    const gh = RB_D * h;
+    k1.set(f0);
+    lin.solve(gh, k1);
+    for (let i = 0; i < n; i++) yt[i] = y[i] + 0.5 * h * k1[i];
+    f(t + 0.5 * h, yt, f1);
+    for (let i = 0; i < n; i++) k2[i] = f1[i] - k1[i];
+    lin.solve(gh, k2);
+    for (let i = 0; i < n; i++) {
+      k2[i] += k1[i];
+      y1[i] = y[i] + h * k2[i];
+    }
+    f(t + h, y1, f2);
+    for (let i = 0; i < n; i++) k3[i] = f2[i] - RB_E32 * (k2[i] - f1[i]) - 2 * (k1[i] - f0[i]);
+    lin.solve(gh, k3);
+    evaluations += 2;
+    let err = 0;
+    for (let i = 0; i < n; i++) {
+      const sc = opts.atol + opts.rtol * Math.max(Math.abs(y[i]), Math.abs(y1[i]));
+      const e = ((h / 6) * (k1[i] - 2 * k2[i] + k3[i])) / sc;
+      err += e * e;
+    }
+    err = Math.sqrt(err / n);
+    if (!(err <= 1)) {
+      rejected++;
+      h *= Number.isFinite(err) ? Math.max(0.1, 0.8 * err ** (-1 / 3)) : 0.1;
+      if (h < 1e-9 * Math.max(1, Math.abs(t))) throw new Error(`rosenbrock23: step size underflow at t = ${t} s`);
+      continue;
+    }
+    steps++;
+    yOld.set(y);
+    dk1.set(k1);
+    dk2.set(k2);
+    tOld = t;
+    hOld = h;
+    t = t + h;
+    if (t1 - t < 1e-12 * Math.max(1, Math.abs(t1))) t = t1;
+    y.set(y1);
+    f0.set(f2);
+    needJacobian = true;
+    // the error is O(h³): grow by at most 5
+    h *= err === 0 ? 5 : Math.min(5, 0.8 * err ** (-1 / 3));
+    const te = event ? event(tOld, t, y, dense) : null;
+    if (te !== null) return finish(te, y, h, steps, rejected, evaluations, dense);
+  }
+  return { t, y, hNext: h, steps, rejected, evaluations, stoppedByEvent: false };
 }

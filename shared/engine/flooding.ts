@@ -10,17 +10,20 @@
  * every other pump runs as it is now (running unless marked stopped). A step stops at its stop
  * time, or when the level in its space falls to its "until" level, whichever comes first.
  *
- * Attitude: the ship's present attitude (drafts and heel as read) holds throughout the forecast.
+ * Attitude: with hydrostatic particulars the attitude follows the ship's response at every output
+ * time, plan start and stop (flooding-attitude.ts), then the levels, then the loads; without them
+ * the present attitude (drafts and heel as read) holds throughout, and `attitude` says which.
  */
-import type { Condition, Contents, Survey } from '../schemas/survey';
+import type { Condition, Survey } from '../schemas/survey';
 import type { PlanStep } from '../schemas/flooding';
-import { computeSurvey } from './compute-survey';
-import { earthFrame } from './frame';
+import { computeSurvey, computeSurveySummary } from './compute-survey';
+import { attitudeCoupling, conditionAt, downfloodingOverTime, firstWarnings, floodFrameOf, type DownfloodingForecast } from './flooding-attitude';
 import { buildFloodModel } from './flooding-build';
 import { levelOfVolume, volumeAt } from './flooding-levels';
 import {
   PUMP_TAIL_S,
   floodDerivative,
+  floodLinearisation,
   levelRate,
   newStack,
   stackOf,
@@ -29,9 +32,11 @@ import {
   type FloodPump,
   type FlowBreakdown,
 } from './flooding-model';
-import { dormandPrince } from './flooding-ode';
+import { rosenbrock23 } from './flooding-ode';
 import { soundingEvidence, type SoundingEvidence } from './flooding-soundings';
-import type { BoundaryResult, EngineWarning, SurveyResults } from './results';
+import type { BoundaryTable, EngineWarning, SurveySummary } from './results';
+import { measuredAttitude } from './stability-check';
+import type { ShipAttitude } from './stability';
 import { ENGINE_VERSION } from './version';
 
 export const DEFAULT_HORIZON_H = 24;
@@ -59,9 +64,11 @@ export interface ForecastOptions {
   variant?: FloodVariant;
   /** Run the condition's pumping plan (default true). */
   withPlan?: boolean;
-  /** Integrator tolerances (default rtol 1e-7, atol 1e-6 m³). */
+  /** Integrator tolerances (default rtol 1e-6, atol 1e-6 m³: levels within 0.1 mm of a run at 1e-9 on the bench vessel). */
   rtol?: number;
   atol?: number;
+  /** 'follow' (default): the attitude follows the ship's response when the condition has particulars; 'present': held as read. */
+  attitude?: 'follow' | 'present';
 }
 
 export interface SpaceForecast {
@@ -119,7 +126,14 @@ export interface FloodForecast {
   /** The latest sounding-log reading, if any is later than the condition. */
   latestReadingTime: string;
   horizonS: number;
-  attitude: { mode: 'present'; note: string };
+  /**
+   * Which attitude the levels and loads use: 'follows-response' (recomputed at every output time from
+   * the contents; `basis` says whether it starts from the readings) or 'present' (as read, held).
+   * `series` and `gmFluidM` give it at each output time (GM null when not computed).
+   */
+  attitude: { mode: 'present' | 'follows-response'; basis: 'readings' | 'prediction' | null; note: string; series: (ShipAttitude | null)[]; gmFluidM: (number | null)[] };
+  /** Every downflooding point's freeboard over time and when it first goes under. */
+  downflooding: DownfloodingForecast[];
   times: number[];
   spaces: SpaceForecast[];
   boundaries: BoundaryForecast[];
@@ -254,11 +268,13 @@ export function forecastFlooding(surveyIn: Survey, options: ForecastOptions = {}
   const outputSteps = Math.max(1, Math.round(options.outputSteps ?? DEFAULT_OUTPUT_STEPS));
   const warnings: EngineWarning[] = [];
 
-  const results0 = computeSurvey(survey, { conditionId, includeLoadDiagrams: false, includeInflow: false });
-  const ef = earthFrame(survey.vessel, condition);
-  const frame = { up: ef.up, waterlineElevationM: ef.waterlineElevation, seaDensityKgM3: ef.seaDensityKgM3, g: ef.g };
+  // the model needs only the spaces' contents: no boundary is worked out here (boundaryLoads does that once)
+  const results0 = computeSurvey({ ...survey, boundaries: [] }, { conditionId, includeLoadDiagrams: false, includeInflow: false });
+  const frame = floodFrameOf(survey.vessel, condition);
   const built = buildFloodModel(survey, results0, frame);
-  const { model, y0, index } = built;
+  const { y0, index } = built;
+  const model0 = built.model;
+  let model = model0;
   for (const w of built.warnings) warnings.push({ ...w, severity: 'info' });
   const { runs, steps } = pumpRuns(survey, options.withPlan === false ? [] : (settings.plan ?? []), model, index, horizonS);
   for (const st of steps) for (const p of st.problems) warnings.push({ code: 'plan-step', severity: 'warning', entityId: st.stepId, message: `Pumping plan: a step ${p}; left out` });
@@ -278,7 +294,8 @@ export function forecastFlooding(surveyIn: Survey, options: ForecastOptions = {}
     for (const r of runs) if (t >= r.startS && t < r.stopS && r.stoppedAtS === null) rate[r.pump] = model.pumps[r.pump].capacityM3S;
   };
   const stack = newStack(model);
-  const f = floodDerivative(model, rate, stack);
+  let f = floodDerivative(model, rate, stack);
+  let lin = floodLinearisation(model, rate);
 
   // spaces whose pumps we watch for the moment their suction uncovers
   const pumped = new Set(runs.map((r) => model.pumps[r.pump].space));
@@ -291,22 +308,39 @@ export function forecastFlooding(surveyIn: Survey, options: ForecastOptions = {}
     const sp = model.spaces[s];
     return levelOfVolume(sp.table, volumeAt(sp.table, suction) + tail / sp.permeability);
   };
-  const dryLimits = new Map([...pumped].map((s) => [s, dryLimit(s)]));
+  let dryLimits = new Map([...pumped].map((s) => [s, dryLimit(s)]));
 
-  const snapshots: { t: number; y: Float64Array }[] = [{ t: 0, y: Float64Array.from(y0) }];
-  let y = Float64Array.from(y0);
+  // the ship's response at each snapshot: re-frame the model at her new attitude, then carry on
+  const coupling = options.attitude === 'present' ? null : attitudeCoupling(survey, condition, results0);
+  const present = measuredAttitude(survey, condition);
+  type Snapshot = { t: number; y: Float64Array; m: FloodModel; condition: Condition; attitude: ShipAttitude | null; gmFluidM: number | null; warnings: { code: string; severity: EngineWarning['severity']; message: string }[] };
+  let y: Float64Array = Float64Array.from(y0);
+  const snapshot = (t: number): Snapshot => {
+    if (!coupling) return { t, y: Float64Array.from(y), m: model, condition, attitude: present, gmFluidM: null, warnings: [] };
+    const u = coupling.update(model, y);
+    y = u.y;
+    if (u.model !== model) {
+      for (const r of runs) if (r.untilElevationM > -Infinity) r.untilElevationM += u.model.spaces[model.pumps[r.pump].space].table.bottom - model.spaces[model.pumps[r.pump].space].table.bottom;
+      model = u.model;
+      f = floodDerivative(model, rate, stack);
+      lin = floodLinearisation(model, rate);
+      dryLimits = new Map([...pumped].map((s) => [s, dryLimit(s)]));
+    }
+    return { t, y: Float64Array.from(y), m: model, condition: u.condition, attitude: u.attitude, gmFluidM: u.response.gmFluidM, warnings: u.response.warnings };
+  };
+  const snapshots: Snapshot[] = [snapshot(0)];
   let t = 0;
   let stepsTaken = 0, evaluations = 0;
   let h: number | undefined;
   const scale = Math.max(1, ...model.spaces.map((s) => s.table.total * s.permeability));
-  const rtol = options.rtol ?? 1e-7, atol = options.atol ?? 1e-6 * Math.min(1, scale);
+  const rtol = options.rtol ?? 1e-6, atol = options.atol ?? 1e-6 * Math.min(1, scale);
   const tmp = new Float64Array(y.length);
   for (const tEnd of segmentEnds) {
     if (tEnd <= t) continue;
     while (t < tEnd) {
       setRates(t);
       const active = runs.filter((r) => rate[r.pump] > 0 && r.untilElevationM > -Infinity);
-      const run = dormandPrince(f, t, y, tEnd, { rtol, atol, h0: h, hMax: horizonS / 8 }, (tOld, tNew, yNew, dense) => {
+      const run = rosenbrock23(f, lin, t, y, tEnd, { rtol, atol, h0: h, hMax: horizonS / 8 }, (tOld, tNew, yNew, dense) => {
         // a space pumped dry: note the time, carry on
         for (const s of pumped) {
           if (dryAt.has(s)) continue;
@@ -337,10 +371,10 @@ export function forecastFlooding(surveyIn: Survey, options: ForecastOptions = {}
             }
           }
         }
-        snapshots.push({ t, y: Float64Array.from(y) });
+        snapshots.push(snapshot(t));
       }
     }
-    snapshots.push({ t, y: Float64Array.from(y) });
+    snapshots.push(snapshot(t));
   }
   for (const r of runs) if (r.step && r.step.stoppedBy === null) r.step.stoppedBy = r.stopS < horizonS ? 'time' : 'end';
 
@@ -350,11 +384,14 @@ export function forecastFlooding(surveyIn: Survey, options: ForecastOptions = {}
   const breakdown: FlowBreakdown = { opening: new Float64Array(model.openings.length), pump: new Float64Array(model.pumps.length) };
   const dy = new Float64Array(y.length);
   const spaceSeries = model.spaces.map(() => ({ level: [] as number[], volume: [] as number[], flow: [] as number[], gas: [] as number[], rate: [] as number[] }));
+  const derivatives = new Map<FloodModel, ReturnType<typeof floodDerivative>>();
   for (const snap of snapshots) {
     setRates(snap.t);
-    f(snap.t, snap.y, dy, breakdown);
+    const m = snap.m;
+    if (!derivatives.has(m)) derivatives.set(m, floodDerivative(m, rate, stack));
+    derivatives.get(m)!(snap.t, snap.y, dy, breakdown);
     for (let s = 0; s < nS; s++) {
-      const sp = model.spaces[s];
+      const sp = m.spaces[s];
       const ser = spaceSeries[s];
       let dv = 0;
       for (let k = 0; k < model.fluids.length; k++) dv += dy[s * model.fluids.length + k];
@@ -362,11 +399,11 @@ export function forecastFlooding(surveyIn: Survey, options: ForecastOptions = {}
       ser.volume.push(stack.liquidVolume[s]);
       ser.flow.push(dv);
       ser.gas.push(stack.gasPa[s]);
-      ser.rate.push(levelRate(model, stack, s, dy));
+      ser.rate.push(levelRate(m, stack, s, dy));
     }
   }
 
-  const loads = boundaryLoads(survey, condition, model, snapshots);
+  const loads = boundaryLoads(survey, snapshots);
   const spaceActive = new Set<number>();
   for (const op of model.openings) {
     spaceActive.add(op.inside);
@@ -395,9 +432,10 @@ export function forecastFlooding(surveyIn: Survey, options: ForecastOptions = {}
       comp,
       (soundingM) => {
         const log = comp.soundingLog!;
+        const sp0 = model0.spaces[s];
         const eta = frame.up[0] * log.pipe.x + frame.up[1] * log.pipe.y + frame.up[2] * (log.pipe.bottomZM + soundingM);
-        const v = volumeAt(sp.table, eta);
-        return v * sp.permeability;
+        const v = volumeAt(sp0.table, eta);
+        return v * sp0.permeability;
       },
       orificeNow,
       settings.disagreementFactor ?? 2,
@@ -444,6 +482,10 @@ export function forecastFlooding(surveyIn: Survey, options: ForecastOptions = {}
   });
 
   const balance = volumeBalance(model, y0, y);
+  for (const { atS, warning } of firstWarnings(snapshots.map((s) => ({ atS: s.t, warnings: s.warnings })))) {
+    if (atS === 0) continue;
+    warnings.push({ code: `forecast-${warning.code}`, severity: warning.severity, entityId: null, message: `From ${(atS / 3600).toFixed(1)} h after the readings: ${warning.message}` });
+  }
   const latest = survey.compartments.flatMap((c) => c.soundingLog?.readings.map((r) => r.time) ?? []).reduce((a, b) => (Date.parse(b) > Date.parse(a) ? b : a), condition.time);
   return {
     engineVersion: ENGINE_VERSION,
@@ -451,7 +493,20 @@ export function forecastFlooding(surveyIn: Survey, options: ForecastOptions = {}
     readingsTime: condition.time,
     latestReadingTime: latest,
     horizonS,
-    attitude: { mode: 'present', note: "The ship's present attitude (drafts and heel as read) is held throughout the forecast." },
+    attitude: {
+      mode: coupling ? 'follows-response' : 'present',
+      basis: coupling?.basis ?? null,
+      note: coupling
+        ? coupling.basis === 'readings'
+          ? "Draft, trim and heel follow the ship's response: from the readings, they change as the model predicts at every output time, and the levels and loads follow."
+          : "Draft, trim and heel follow the ship's response (drafts or heel not read: the predicted attitude throughout), and the levels and loads follow."
+        : options.attitude === 'present'
+          ? "The ship's present attitude (drafts and heel as read) is held throughout the forecast."
+          : "The ship's present attitude (drafts and heel as read) is held throughout: no hydrostatic particulars, so the response is not computed.",
+      series: snapshots.map((s) => s.attitude),
+      gmFluidM: snapshots.map((s) => s.gmFluidM),
+    },
+    downflooding: downfloodingOverTime(survey, snapshots.map((s) => s.m.frame), times),
     times,
     spaces,
     boundaries: loads.boundaries,
@@ -479,56 +534,41 @@ function bisect(a: number, b: number, past: (t: number) => boolean): number {
   return hi;
 }
 
-function governsOf(b: BoundaryResult): Governs | null {
-  if (b.maxUtilisation === null) return null;
-  const shoreMax = b.shores.reduce((m, s) => Math.max(m, s.utilisation), -Infinity);
-  if (b.capacity && b.capacity.utilisation === b.maxUtilisation) return 'rating';
-  if (b.capacities.some((c) => c.utilisation === b.maxUtilisation)) return 'rating';
-  if (b.stiffeners && b.stiffeners.maxUtilisation === b.maxUtilisation) return 'stiffeners';
-  if (b.plating && b.plating.maxUtilisation === b.maxUtilisation) return 'plating';
-  if (shoreMax === b.maxUtilisation) return 'shores';
+/** What governs row i of a summary table: the check whose utilisation is the maximum (a rating when several tie or none matches). */
+function governsOf(t: BoundaryTable, i: number): Governs | null {
+  const u = t.maxUtilisation[i];
+  if (Number.isNaN(u)) return null;
+  if (t.capacityUtilisation[i] === u) return 'rating';
+  if (t.stiffenerUtilisation[i] === u) return 'stiffeners';
+  if (t.platingUtilisation[i] === u) return 'plating';
+  if (t.shoreUtilisation[i] === u) return 'shores';
   return 'rating';
-}
-
-/** The condition with each space's liquids and gas as the state has them. */
-function conditionAt(condition: Condition, m: FloodModel, y: Float64Array): Condition {
-  const st = newStack(m);
-  stackOf(m, y, st);
-  const nF = m.fluids.length;
-  const up = m.frame.up;
-  const contents: Contents[] = m.spaces.map((sp, s) => {
-    const layers: Contents['layers'] = [];
-    for (let f = 0; f < nF; f++) {
-      if (!(y[s * nF + f] > 0)) continue;
-      const fl = m.fluids[f];
-      layers.push({ id: `${sp.id}:${f}`, fluidId: fl.fluidId, densityKgM3: fl.densityKgM3, level: { kind: 'point', point: { x: 0, y: 0, z: st.tops[s * nF + f] / up[2] } } });
-    }
-    const gp = st.gasPa[s];
-    return { compartmentId: sp.id, layers, gas: gp !== 0 ? { kind: 'pressurised', gaugePressurePa: gp } : { kind: 'vented' } };
-  });
-  return { ...condition, contents };
 }
 
 /**
  * Boundary utilisations at every snapshot: the first from the whole survey, later ones only for the
  * boundaries next to a space whose contents changed (with their parents and the openings set in them).
  */
-function boundaryLoads(survey: Survey, condition: Condition, m: FloodModel, snapshots: { t: number; y: Float64Array }[]) {
-  const nF = m.fluids.length;
+function boundaryLoads(survey: Survey, snapshots: { t: number; y: Float64Array; m: FloodModel; condition: Condition }[]) {
+  const m0 = snapshots[0].m;
+  const nF = m0.fluids.length;
   const y0 = snapshots[0].y;
-  const st = newStack(m);
-  const lastStack = newStack(m);
-  stackOf(m, y0, lastStack);
+  const st = newStack(m0);
+  const lastStack = newStack(m0);
+  stackOf(m0, y0, lastStack);
+  let lastModel = m0;
   const ids = survey.boundaries.map((b) => b.id);
   const pos = new Map(ids.map((id, i) => [id, i]));
   const u: (number | null)[][] = ids.map(() => []);
   const gov: (Governs | null)[][] = ids.map(() => []);
-  const fill = (r: SurveyResults, k: number) => {
-    for (const b of r.boundaries) {
-      const i = pos.get(b.id);
+  const fill = (r: SurveySummary, k: number) => {
+    const t = r.boundaries;
+    for (let row = 0; row < t.length; row++) {
+      const i = pos.get(t.id[row]);
       if (i === undefined) continue;
-      u[i][k] = b.maxUtilisation;
-      gov[i][k] = governsOf(b);
+      const v = t.maxUtilisation[row];
+      u[i][k] = Number.isNaN(v) ? null : v;
+      gov[i][k] = governsOf(t, row);
     }
   };
   let runs = 0;
@@ -545,18 +585,23 @@ function boundaryLoads(survey: Survey, condition: Condition, m: FloodModel, snap
   snapshots.forEach((snap, k) => {
     if (k === 0) {
       // the snapshot at 0 is the condition as read, recomputed from the model's layers so every time is alike
-      const r0 = computeSurvey({ ...survey, conditions: [conditionAt(condition, m, snap.y)], activeConditionId: condition.id }, { includeLoadDiagrams: false, includeInflow: false });
-      const hasU = new Set(r0.boundaries.filter((b) => b.maxUtilisation !== null).map((b) => b.id));
+      const r0 = computeSurveySummary({ ...survey, conditions: [conditionAt(snap.condition, m0, snap.y)], activeConditionId: snap.condition.id }, { includeInflow: false });
+      const hasU = new Set<string>();
+      for (let row = 0; row < r0.boundaries.length; row++) if (!Number.isNaN(r0.boundaries.maxUtilisation[row])) hasU.add(r0.boundaries.id[row]);
       rated = survey.boundaries.filter((b) => hasU.has(b.id));
       runs++;
       fill(r0, 0);
       return;
     }
-    // spaces whose surfaces moved by more than LOAD_LEVEL_STEP_M (or gas by 10 Pa) since their loads were last worked out
+    // spaces whose surfaces moved by more than LOAD_LEVEL_STEP_M (or gas by 10 Pa) since their loads were last worked out;
+    // a new attitude moves every surface and the sea: then every rated boundary
+    const m = snap.m;
+    const reframed = m !== lastModel;
+    lastModel = m;
     const changed = new Set<string>();
     stackOf(m, snap.y, st);
     m.spaces.forEach((sp, s) => {
-      let moved = Math.abs(st.gasPa[s] - lastStack.gasPa[s]) > 10;
+      let moved = reframed || Math.abs(st.gasPa[s] - lastStack.gasPa[s]) > 10;
       for (let f = 0; f < nF && !moved; f++) moved = Math.abs(st.tops[s * nF + f] - lastStack.tops[s * nF + f]) > LOAD_LEVEL_STEP_M;
       if (!moved) return;
       changed.add(sp.id);
@@ -566,7 +611,7 @@ function boundaryLoads(survey: Survey, condition: Condition, m: FloodModel, snap
     const keep = new Set<string>();
     for (const b of rated) {
       const touches = (sd: typeof b.sideA) => sd.kind === 'compartment' && changed.has(sd.compartmentId);
-      if (touches(b.sideA) || touches(b.sideB)) withFamily(b, keep);
+      if (reframed || touches(b.sideA) || touches(b.sideB)) withFamily(b, keep);
     }
     for (let i = 0; i < ids.length; i++) {
       if (keep.has(ids[i])) continue;
@@ -574,13 +619,19 @@ function boundaryLoads(survey: Survey, condition: Condition, m: FloodModel, snap
       gov[i][k] = gov[i][k - 1];
     }
     if (keep.size === 0) return;
+    // only the kept boundaries and the spaces on their sides: a boundary's loads come from its two sides alone
+    const boundaries = survey.boundaries.filter((b) => keep.has(b.id));
+    const sides = new Set<string>();
+    for (const b of boundaries) for (const sd of [b.sideA, b.sideB]) if (sd.kind === 'compartment') sides.add(sd.compartmentId);
+    const at = conditionAt(snap.condition, m, snap.y);
     const sub: Survey = {
       ...survey,
-      conditions: [conditionAt(condition, m, snap.y)],
-      activeConditionId: condition.id,
-      boundaries: survey.boundaries.filter((b) => keep.has(b.id)),
+      compartments: survey.compartments.filter((c) => sides.has(c.id)),
+      conditions: [{ ...at, contents: at.contents.filter((c) => sides.has(c.compartmentId)) }],
+      activeConditionId: snap.condition.id,
+      boundaries,
     };
-    fill(computeSurvey(sub, { includeLoadDiagrams: false, includeInflow: false }), k);
+    fill(computeSurveySummary(sub, { includeInflow: false }), k);
     runs++;
   });
   const times = snapshots.map((s) => s.t);
@@ -608,8 +659,8 @@ function boundaryLoads(survey: Survey, condition: Condition, m: FloodModel, snap
     return { utilisation: best, boundaryId: id };
   });
   // orifice inflow now, per opening (for the soundings comparison)
-  const rate = new Float64Array(m.pumps.length);
-  const breakdown: FlowBreakdown = { opening: new Float64Array(m.openings.length), pump: new Float64Array(m.pumps.length) };
-  floodDerivative(m, rate, st)(0, y0, new Float64Array(y0.length), breakdown);
+  const rate = new Float64Array(m0.pumps.length);
+  const breakdown: FlowBreakdown = { opening: new Float64Array(m0.openings.length), pump: new Float64Array(m0.pumps.length) };
+  floodDerivative(m0, rate, st)(0, y0, new Float64Array(y0.length), breakdown);
   return { boundaries, worst, runs, openingAt0: breakdown.opening };
 }

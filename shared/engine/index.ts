@@ -21,6 +21,7 @@ export { joinWords, levelReadingMissing, missingShipReadings, withheldSentence }
 export type * from './results';
 export {
   conditionAtAttitude,
+  floodWeightsAtLevels,
   floodWeightsFromResults,
   responseFromWeights,
   shipResponseOf,
@@ -53,3 +54,5 @@ export {
   type SpaceForecast,
 } from './flooding';
 export { soundingEvidence, type SoundingEvidence } from './flooding-soundings';
+export { ATTITUDE_STEP_M, conditionAtPredictedAttitude, type DownfloodingForecast } from './flooding-attitude';
+export { dormandPrince, rosenbrock23, type Linearisation } from './flooding-ode';

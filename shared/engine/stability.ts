@@ -17,6 +17,7 @@
  */
 import type { Condition, Survey } from '../schemas/survey';
 import { DEFAULT_PERMEABILITY } from '../schemas/space-types';
+import { levelOfVolume, levelTable, type LevelTable } from './flooding-levels';
 import { intactShip } from './hydrostatics';
 import { planeSection } from './mesh';
 import { compartmentSolid, volumeBelow, type Polyhedron } from './polyhedron';
@@ -385,17 +386,80 @@ export function floodWeightsFromResults(survey: Survey, results: Omit<SurveyResu
     const comp = compartments.get(r.id);
     const c = r.liquid.centroid;
     if (!comp || !c || !(r.liquid.massKg > 0)) continue;
-    const solid = solidOf(comp.geometry);
-    const layers = r.layers.filter((l) => l.volumeM3 > 0);
-    let fsm = 0;
-    layers.forEach((l, i) => {
-      const above = layers[i + 1]?.densityKgM3 ?? 0;
-      const contrast = l.densityKgM3 - above;
-      if (contrast <= 0) return;
-      const sec = sectionMoments(planeSection(solid, up, l.levelElevationM), up);
-      fsm += contrast * r.permeability * sec.iAlongM4;
-    });
+    const fsm = freeSurfaceMoment(solidOf(comp.geometry), up, r.permeability, r.layers);
     out.push({ spaceId: r.id, massKg: r.liquid.massKg, x: c.x, y: c.y, z: c.z, freeSurfaceMomentKgM2: fsm, openToSea: r.openToSea && inBalance(r.id) });
+  }
+  return out;
+}
+
+/** A liquid layer for the weights: its volume (permeability applied, m³) and its top's elevation along `up`, m. */
+export interface LevelledLayer {
+  densityKgM3: number;
+  volumeM3: number;
+  levelElevationM: number;
+}
+
+/** ρ·μ·i_T of every slack surface of a space's layers (bottom up), kg·m: see floodWeightsFromResults. */
+function freeSurfaceMoment(solid: Polyhedron, up: [number, number, number], permeability: number, layersIn: readonly LevelledLayer[]): number {
+  const layers = layersIn.filter((l) => l.volumeM3 > 0);
+  let fsm = 0;
+  layers.forEach((l, i) => {
+    const contrast = l.densityKgM3 - (layers[i + 1]?.densityKgM3 ?? 0);
+    if (contrast <= 0) return;
+    fsm += contrast * permeability * sectionMoments(planeSection(solid, up, l.levelElevationM), up).iAlongM4;
+  });
+  return fsm;
+}
+
+const uprightTables = new WeakMap<object, LevelTable>();
+function uprightTable(geometry: object & Parameters<typeof compartmentSolid>[0]): LevelTable {
+  let t = uprightTables.get(geometry);
+  if (!t) uprightTables.set(geometry, (t = levelTable(geometry, UP)));
+  return t;
+}
+
+/**
+ * FloodWeights of liquids given by their volumes and their level planes at the attitude `up`
+ * describes (a forecast's state at one moment). Each layer's weight acts where it would lie with the
+ * ship upright on an even keel (its volume's slice of the solid, found again with the upright level
+ * table: the exact volume below a plane), as the added-weight method places a weight; the liquid's
+ * shift as she heels is taken by the free-surface correction alone, from the actual surface polygons
+ * at `up` (ρ·μ·i_T, as floodWeightsFromResults), so it is never counted twice however far she has
+ * already heeled. Units: kg, m, kg·m; volumes with permeability applied.
+ */
+export function floodWeightsAtLevels(
+  survey: Survey,
+  up: readonly [number, number, number],
+  spaces: readonly { spaceId: string; permeability: number; openToSea: boolean; layers: readonly LevelledLayer[] }[],
+): FloodWeight[] {
+  const u: [number, number, number] = [up[0], up[1], up[2]];
+  const compartments = new Map(survey.compartments.map((c) => [c.id, c]));
+  const out: FloodWeight[] = [];
+  for (const sp of spaces) {
+    const comp = compartments.get(sp.spaceId);
+    if (!comp) continue;
+    const solid = solidOf(comp.geometry);
+    const table = uprightTable(comp.geometry);
+    const mu = sp.permeability > 0 ? sp.permeability : 1;
+    let mass = 0, mx = 0, my = 0, mz = 0, cum = 0;
+    let below = { volume: 0, mx: 0, my: 0, mz: 0 };
+    for (const l of sp.layers) {
+      if (!(l.volumeM3 > 0)) continue;
+      cum += l.volumeM3;
+      const v = volumeBelow(solid, UP, Math.min(levelOfVolume(table, cum / mu), table.top));
+      const slice = v.volume - below.volume;
+      const m = l.densityKgM3 * l.volumeM3;
+      // a layer pressed up above the top of its space (into its pipes) sits at the top
+      const c = slice > 1e-12 ? [(v.mx - below.mx) / slice, (v.my - below.my) / slice, (v.mz - below.mz) / slice] : [v.mx / Math.max(v.volume, 1e-12), v.my / Math.max(v.volume, 1e-12), table.top];
+      mass += m;
+      mx += m * c[0];
+      my += m * c[1];
+      mz += m * c[2];
+      below = v;
+    }
+    if (!(mass > 0)) continue;
+    const fsm = freeSurfaceMoment(solid, u, mu, sp.layers);
+    out.push({ spaceId: sp.spaceId, massKg: mass, x: mx / mass, y: my / mass, z: mz / mass, freeSurfaceMomentKgM2: fsm, openToSea: sp.openToSea });
   }
   return out;
 }

@@ -1,6 +1,7 @@
 /** Internal codes said as words, the same on every screen, the brief and the report. */
-import type { Boundary } from '../schemas/survey';
+import type { Boundary, SHORE_END_CONDITIONS } from '../schemas/survey';
 import type { SpaceType } from '../schemas/space-types';
+import { formatShipAndUtc } from './time-words';
 
 export const BOUNDARY_KIND_WORDS: Record<Boundary['kind'], string> = {
   bulkhead: 'bulkhead',
@@ -32,4 +33,22 @@ export function boundaryKindWords(kind: string): string {
 /** "1 edit", "2 edits". */
 export function countWords(n: number, one: string, many = `${one}s`): string {
   return `${n} ${n === 1 ? one : many}`;
+}
+
+/** A shore's end conditions as words (the plate form's choices and the history say the same). */
+export const END_CONDITION_WORDS: Record<(typeof SHORE_END_CONDITIONS)[number], string> = {
+  'pinned-pinned': 'pinned both ends',
+  'fixed-pinned': 'fixed one end, pinned other',
+  'fixed-fixed': 'fixed both ends',
+  'fixed-free': 'fixed one end, free other',
+};
+
+/** A set of readings by its name; an unnamed one (older documents) by when it was taken, in the one date style. */
+export function conditionName(c: { name?: string; time: string }, shipTimeOffsetMin?: number): string {
+  return c.name?.trim() || `Readings of ${formatShipAndUtc(c.time, shipTimeOffsetMin)}`;
+}
+
+/** A space type as words, for any string (older results carry the code). */
+export function spaceTypeWords(type: string): string {
+  return (SPACE_TYPE_WORDS as Record<string, string>)[type] ?? type.replace(/-/g, ' ');
 }

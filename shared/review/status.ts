@@ -7,8 +7,13 @@
  *   returned survey for review: the person who measured is not always the one with the link.
  * - Only an engineer starts a review, accepts, returns or reopens. The admin coordinates people, not
  *   structure: a verdict on a bulkhead belongs to a naval architect.
- * - Nobody reviews their own work: the engineer who sent a survey for review may not accept it.
+ * - Nobody reviews their own work: whoever made, edited or sent the survey at any revision may not
+ *   accept it (checked by the server, hasWorkedOn).
  * - An accepted survey can be reopened (back to "under review") when new soundings arrive.
+ * - Accepted means accepted: any edit applied to a survey that is sent, under review or accepted
+ *   moves it to "changed since review" (the database does it, in the same statement as the edit, so
+ *   no writer can skip it). It then needs review again: sent again by an editor, or taken up again
+ *   (or returned) by an engineer. The brief keeps showing the figures that were accepted.
  */
 import type { Role } from '../api/roles';
 import { SurveyStatusSchema, type SurveyStatus } from '../schemas/sync';
@@ -23,7 +28,18 @@ export const STATUS_LABELS: Record<SurveyStatus, string> = {
   in_review: 'Under review',
   accepted: 'Accepted',
   returned: 'Returned for changes',
+  changed_since_review: 'Changed since review',
 };
+
+/** Statuses in which an applied edit moves the survey to "changed since review" (mirrored by the migration's trigger). */
+export const CHANGE_SENDS_BACK: readonly SurveyStatus[] = ['submitted', 'in_review', 'accepted'];
+
+/** What the surveyor is told before editing a survey in one of CHANGE_SENDS_BACK. */
+export function changeSendsBackWarning(status: SurveyStatus): string | null {
+  if (!CHANGE_SENDS_BACK.includes(status)) return null;
+  const was = status === 'accepted' ? 'was accepted' : status === 'in_review' ? 'is under review' : 'has been sent for review';
+  return `This survey ${was}; a change sends it back for review.`;
+}
 
 export type StatusAction = 'submit' | 'start_review' | 'accept' | 'return' | 'reopen';
 
@@ -46,10 +62,13 @@ const REVIEWERS: readonly Role[] = ['engineer'];
 export const TRANSITIONS: readonly Transition[] = [
   { action: 'submit', from: 'draft', to: 'submitted', roles: EDITORS, label: 'Send for review', noteRequired: false, notBySubmitter: false },
   { action: 'submit', from: 'returned', to: 'submitted', roles: EDITORS, label: 'Send for review again', noteRequired: false, notBySubmitter: false },
+  { action: 'submit', from: 'changed_since_review', to: 'submitted', roles: EDITORS, label: 'Send for review again', noteRequired: false, notBySubmitter: false },
   { action: 'start_review', from: 'submitted', to: 'in_review', roles: REVIEWERS, label: 'Start review', noteRequired: false, notBySubmitter: false },
+  { action: 'start_review', from: 'changed_since_review', to: 'in_review', roles: REVIEWERS, label: 'Review the changes', noteRequired: false, notBySubmitter: false },
   { action: 'accept', from: 'in_review', to: 'accepted', roles: REVIEWERS, label: 'Accept', noteRequired: false, notBySubmitter: true },
   { action: 'return', from: 'submitted', to: 'returned', roles: REVIEWERS, label: 'Return for changes', noteRequired: true, notBySubmitter: false },
   { action: 'return', from: 'in_review', to: 'returned', roles: REVIEWERS, label: 'Return for changes', noteRequired: true, notBySubmitter: false },
+  { action: 'return', from: 'changed_since_review', to: 'returned', roles: REVIEWERS, label: 'Return for changes', noteRequired: true, notBySubmitter: false },
   { action: 'reopen', from: 'accepted', to: 'in_review', roles: REVIEWERS, label: 'Reopen review', noteRequired: true, notBySubmitter: false },
 ];
 
@@ -94,7 +113,7 @@ export function transitionsFor(from: SurveyStatus, role: Role): Transition[] {
 }
 
 /** Statuses that appear in the review queue. */
-export const QUEUE_STATUSES: readonly SurveyStatus[] = ['submitted', 'in_review'];
+export const QUEUE_STATUSES: readonly SurveyStatus[] = ['submitted', 'in_review', 'changed_since_review'];
 /** Statuses for which a master's brief may be issued. */
 export const BRIEFABLE_STATUSES: readonly SurveyStatus[] = ['in_review', 'accepted'];
 /** Verdicts and limits are set while a review is open; an accepted survey is reopened to change them. */

@@ -5,7 +5,7 @@
  */
 import type { Boundary } from '../schemas/survey';
 import type { BoundaryResult } from '../engine';
-import { formatNumber, formatQuantity, fromSi, type Dimension, type UnitSystem } from '../units/units';
+import { formatNumber, formatQuantity, formatStress, fromSi, type Dimension, type UnitSystem } from '../units/units';
 
 export interface CheckRow {
   /** What is checked, e.g. "Shore 2 in compression (ANSI/AWC NDS-2018 §3.7.1 …), on a stiffener". */
@@ -29,11 +29,6 @@ const BEARS_ON: Record<BoundaryResult['shores'][number]['bearsOn'], string> = {
   panel: 'on the plating between stiffeners',
   edge: 'at a held edge',
 };
-
-/** A stress in MPa or ksi, the units stresses are entered in. */
-export function stressWords(pa: number, units: UnitSystem, digits = 3): string {
-  return units === 'us' ? `${formatNumber(fromSi(pa, 'ksi'), digits)} ksi` : `${formatNumber(fromSi(pa, 'MPa'), digits)} MPa`;
-}
 
 const SHORT_METHOD: Record<BoundaryResult['shores'][number]['designMethod'], string> = {
   'aisc-360-e3': 'steel, AISC 360 §E3',
@@ -85,8 +80,8 @@ export function structureCheckRows(b: BoundaryResult, units: UnitSystem, sides: 
     rows.push({
       kind: 'plating',
       check: `Plating panel ${pl.governingIndex + 1} of ${pl.panels.length} in bending${opts.compact ? `, ${formatThickness(pl.netThicknessM, units)} net` : ''}`,
-      load: `${stressWords(p.stressPa, units)} under ${q(Math.abs(p.pressureMaxPa), 'pressure')} towards side ${p.pressureMaxPa >= 0 ? 'B' : 'A'}`,
-      capacity: `${stressWords(pl.allowableStressPa, units)} allowable`,
+      load: `${formatStress(p.stressPa, units, 3)} under ${q(Math.abs(p.pressureMaxPa), 'pressure')} towards side ${p.pressureMaxPa >= 0 ? 'B' : 'A'}`,
+      capacity: `${formatStress(pl.allowableStressPa, units, 3)} allowable`,
       utilisation: p.utilisation,
       note: opts.compact ? null : `${formatThickness(pl.netThicknessM, units)} net of corrosion allowance; ${pl.source}`,
     });

@@ -47,3 +47,12 @@ export function formatLocal(iso: string | Date | null | undefined): string {
   const offset = -d.getTimezoneOffset();
   return `${dayAndTime(new Date(d.getTime() + offset * 60_000))} (${utcOffsetWords(offset)})`;
 }
+
+/** A span in the one style: "14 Mar 2025 07:30 – 07:52 UTC" within a day, else both ends in full. */
+export function formatUtcSpan(from: string | Date, to: string | Date): string {
+  const a = formatUtc(from);
+  const b = formatUtc(to);
+  if (a === b) return a;
+  const [dayA, dayB] = [a.slice(0, a.lastIndexOf(' ', a.length - 5)), b.slice(0, b.lastIndexOf(' ', b.length - 5))];
+  return dayA === dayB ? `${a.slice(0, -4)} – ${b.slice(dayB.length + 1)}` : `${a} – ${b}`;
+}

@@ -77,7 +77,7 @@ export function namesFromSurvey(doc: { compartments: { id: string; name: string 
   const c = new Map(doc.compartments.map((x) => [x.id, x.name]));
   const b = new Map(doc.boundaries.map((x) => [x.id, x.name]));
   return {
-    compartment: (id) => c.get(id) ?? 'a compartment no longer in the survey',
+    compartment: (id) => c.get(id) ?? 'a space no longer in the survey',
     boundary: (id) => b.get(id) ?? 'a boundary no longer in the survey',
   };
 }

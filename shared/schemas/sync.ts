@@ -18,8 +18,12 @@ import {
 
 const shape = SurveySchema.shape;
 
-/** The lifecycle of a survey on the server; the review desk moves it along. */
-export const SurveyStatusSchema = z.enum(['draft', 'submitted', 'in_review', 'accepted', 'returned']);
+/**
+ * The lifecycle of a survey on the server; the review desk moves it along. `changed_since_review`:
+ * an edit was applied while the survey was sent, under review or accepted, so it needs review again
+ * (set by the database itself, migration 20261204000100_changed_since_review).
+ */
+export const SurveyStatusSchema = z.enum(['draft', 'submitted', 'in_review', 'accepted', 'returned', 'changed_since_review']);
 export type SurveyStatus = z.infer<typeof SurveyStatusSchema>;
 
 /** The top-level fields of a survey a `set` change may replace. */
@@ -86,6 +90,25 @@ export const UpsertOpSchema = z.discriminatedUnion('collection', [
   upsertOp('photos', PhotoRefSchema),
 ]);
 
+/** Most steps a patch's path may take into an entity (condition → contents → compartment → layers → layer → level → …). */
+export const MAX_PATCH_DEPTH = 12;
+
+/**
+ * One field of an entity changed in place: the lean form of an upsert that changed a single field
+ * (a layer's sounding, not the whole condition). `path` starts at the entity's field and walks down:
+ * an object's key, or, inside a list, the key of an item (its `id`, or a contents' `compartmentId`).
+ * `value` is the new value there; absent, the key is removed. The server applies it to its own copy
+ * of the entity and validates the whole survey after it, exactly as for an upsert; the merge tracks
+ * the entity's field (`path[0]`), as for an upsert.
+ */
+export const PatchOpSchema = z.object({
+  kind: z.literal('patch'),
+  collection: SurveyCollectionSchema,
+  entityId: z.string().min(1).max(200),
+  path: z.array(z.string().min(1).max(200)).min(1).max(MAX_PATCH_DEPTH),
+  value: z.unknown().optional(),
+});
+
 export const DeleteOpSchema = z.object({
   kind: z.literal('delete'),
   collection: SurveyCollectionSchema,
@@ -118,17 +141,27 @@ export const ResolveConflictOpSchema = z.object({
 
 export const CreateOpSchema = z.object({ kind: z.literal('create'), survey: UpgradingSurveySchema });
 
+/**
+ * "Send for review", queued on the device like any edit so it works offline and follows the edits
+ * made before it: the server moves the survey to "sent for review" when the push reaches it (the
+ * same rules as POST /api/surveys/:id/status). It changes nothing in the document.
+ */
+export const SubmitOpSchema = z.object({ kind: z.literal('submit') });
+
 export const SurveyOpSchema = z.discriminatedUnion('kind', [
   CreateOpSchema,
   SetOpSchema,
   UpsertOpSchema,
+  PatchOpSchema,
   DeleteOpSchema,
   ResolveConflictOpSchema,
+  SubmitOpSchema,
 ]);
 export type SurveyOp = z.infer<typeof SurveyOpSchema>;
 export type SetOp = z.infer<typeof SetOpSchema>;
 export type UpsertOp = z.infer<typeof UpsertOpSchema>;
 export type DeleteOp = z.infer<typeof DeleteOpSchema>;
+export type PatchOp = z.infer<typeof PatchOpSchema>;
 export type ResolveConflictOp = z.infer<typeof ResolveConflictOpSchema>;
 
 /** One edit made on a device. (deviceId, seq) and id are both idempotency keys. */

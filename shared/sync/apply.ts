@@ -4,7 +4,7 @@
  * never mutated; a new survey comes back.
  */
 import type { Survey } from '../schemas/survey';
-import type { ConflictTarget, SurveyCollection, SurveyOp } from '../schemas/sync';
+import { MAX_PATCH_DEPTH, type ConflictTarget, type PatchOp, type SurveyCollection, type SurveyOp, type UpsertOp } from '../schemas/sync';
 
 export class ApplyError extends Error {
   constructor(message: string) {
@@ -75,6 +75,83 @@ export function withEntityField(entity: Entity, field: string, value: unknown): 
   return next;
 }
 
+/** The key of a list item a patch path names: its `id`, or (contents of a condition) its `compartmentId`. */
+function itemKey(item: unknown): string | undefined {
+  if (typeof item !== 'object' || item === null) return undefined;
+  const o = item as { id?: unknown; compartmentId?: unknown };
+  if (typeof o.id === 'string') return o.id;
+  return typeof o.compartmentId === 'string' ? o.compartmentId : undefined;
+}
+
+const isPlainObject = (v: unknown): v is Record<string, unknown> => typeof v === 'object' && v !== null && !Array.isArray(v);
+
+/**
+ * `container` with the value at `path` replaced by `value` (removed when undefined), copied along the
+ * path only. Throws ApplyError when a step names nothing there (a list item deleted meanwhile).
+ */
+export function withValueAt(container: unknown, path: readonly string[], value: unknown): unknown {
+  if (path.length === 0) return value;
+  const [step, ...rest] = path;
+  if (Array.isArray(container)) {
+    const i = container.findIndex((item) => itemKey(item) === step);
+    if (i < 0) throw new ApplyError('The item this edit changes is no longer there.');
+    const next = container.slice();
+    next[i] = withValueAt(container[i], rest, value);
+    return next;
+  }
+  if (!isPlainObject(container)) throw new ApplyError('This edit names a place the item does not have.');
+  if (rest.length > 0 && !(step in container)) throw new ApplyError('This edit names a place the item does not have.');
+  const next: Record<string, unknown> = { ...container };
+  const inner = rest.length === 0 ? value : withValueAt(container[step], rest, value);
+  if (inner === undefined) delete next[step];
+  else next[step] = inner;
+  return next;
+}
+
+/** The entity with a patch applied. */
+export function patchedEntity(entity: Entity, op: Pick<PatchOp, 'path' | 'value'>): Entity {
+  const field = op.path[0];
+  if (field === 'id') throw new ApplyError('An edit cannot change an item’s id.');
+  return withEntityField(entity, field, withValueAt(entity[field], op.path.slice(1), op.value));
+}
+
+/**
+ * Where `before` and `after` differ, as one path and the value there: down through objects with
+ * one changed key and through lists of keyed items (same keys, same order) with one changed item.
+ * Null when they are equal.
+ */
+function changeAt(before: unknown, after: unknown, path: string[]): { path: string[]; value: unknown } | null {
+  if (deepEqual(before, after)) return null;
+  if (path.length < MAX_PATCH_DEPTH && isPlainObject(before) && isPlainObject(after)) {
+    const keys = changedFields(before, after);
+    if (keys.length === 1 && keys[0] in before && keys[0] in after) return changeAt(before[keys[0]], after[keys[0]], [...path, keys[0]]);
+  }
+  if (path.length < MAX_PATCH_DEPTH && Array.isArray(before) && Array.isArray(after) && before.length === after.length) {
+    const keys = before.map(itemKey);
+    const sameItems = keys.every((k, i) => k !== undefined && k === itemKey(after[i])) && new Set(keys).size === keys.length;
+    const changed = sameItems ? keys.flatMap((k, i) => (deepEqual(before[i], after[i]) ? [] : [i])) : [];
+    if (changed.length === 1) return changeAt(before[changed[0]], after[changed[0]], [...path, keys[changed[0]]!]);
+  }
+  return { path, value: after };
+}
+
+/**
+ * The lean form of an upsert of an existing entity that changed one field: a `patch` of the smallest
+ * part that changed (a layer's sounding pushes that sounding, not the whole condition). Anything else
+ * (a new entity, several fields) stays as it is. Applying either gives the same document.
+ */
+export function leanOp(before: Entity | undefined, op: UpsertOp): UpsertOp | PatchOp {
+  if (!before) return op;
+  const fields = changedFields(before, op.entity);
+  if (fields.length !== 1) return op;
+  const entity = op.entity as Entity;
+  const at = changeAt(before[fields[0]], entity[fields[0]], [fields[0]]);
+  if (!at) return op;
+  const patch: PatchOp = { kind: 'patch', collection: op.collection, entityId: entity.id, path: at.path };
+  if (at.value !== undefined) patch.value = at.value;
+  return patch;
+}
+
 /** Applies a chosen value to what a conflict is about. */
 export function applyTarget(survey: Survey, target: ConflictTarget, value: unknown): Survey {
   switch (target.kind) {
@@ -104,10 +181,17 @@ export function applyOp(survey: Survey | undefined, op: SurveyOp): Survey {
       return { ...survey, [op.path]: op.value } as Survey;
     case 'upsert':
       return withEntity(survey, op.collection, op.entity as Entity);
+    case 'patch': {
+      const current = findEntity(survey, op.collection, op.entityId);
+      if (!current) throw new ApplyError('The item this edit changes is no longer there.');
+      return withEntity(survey, op.collection, patchedEntity(current, op));
+    }
     case 'delete':
       return withoutEntity(survey, op.collection, op.entityId);
     case 'resolve-conflict':
       return applyTarget(survey, op.target, op.value);
+    case 'submit':
+      return survey;
   }
 }
 

@@ -20,6 +20,7 @@ import {
   changedFields,
   deepEqual,
   findEntity,
+  patchedEntity,
   withEntity,
   withEntityField,
   withoutEntity,
@@ -102,6 +103,10 @@ export function mergeChange(doc: Survey, revs: FieldRevisions, change: SurveyCha
       case 'create':
         return { status: 'rejected', reason: 'This survey already exists.' };
 
+      case 'submit':
+        // A status move, not an edit: the push plan carries it out (server/services/sync/plan.ts).
+        break;
+
       case 'set': {
         const key = fieldKey(op.path);
         const current = doc[op.path];
@@ -156,6 +161,28 @@ export function mergeChange(doc: Survey, revs: FieldRevisions, change: SurveyCha
           next = withEntity(doc, collection, merged);
           nextRevs[eKey] = mark;
         }
+        break;
+      }
+
+      case 'patch': {
+        // The server's own copy of the entity with the one field changed: then merged as an upsert of that field.
+        const { collection, entityId } = op;
+        const current = findEntity(doc, collection, entityId);
+        if (!current) return { status: 'rejected', reason: 'The item this edit changes is no longer on the server.' };
+        const field = op.path[0];
+        const before = current[field];
+        const after = patchedEntity(current, op)[field];
+        if (deepEqual(before, after)) break;
+        const eKey = entityKey(collection, entityId);
+        const key = entityFieldKey(collection, entityId, field);
+        if (collides(revs[key], change)) {
+          conflicts.push({ target: { kind: 'entity-field', collection, entityId, field }, proposed: after ?? null, kept: before ?? null, keptMark: revs[key] });
+          break;
+        }
+        next = withEntity(doc, collection, withEntityField(current, field, after));
+        nextRevs[key] = mark;
+        nextRevs[eKey] = mark;
+        changes.push({ entity: eKey, field, old: before ?? null, new: after ?? null });
         break;
       }
 

@@ -12,11 +12,15 @@ function len(valueM: number, system: UnitSystem, decimals: number): string {
 
 /** A ship-axes point in words, in the unit system's length unit. */
 export function pointWords(p: { x: number; y: number; z: number } | null, system: UnitSystem): string {
-  if (!p) return '—';
+  return p ? pointParts(p, system).join(', ') : '—';
+}
+
+/** The three parts of `pointWords` (along, across, up), for a view that keeps each on one line. */
+export function pointParts(p: { x: number; y: number; z: number }, system: UnitSystem): [string, string, string] {
   const x = p.x >= 0 ? `${len(p.x, system, 1)} fwd of AP` : `${len(p.x, system, 1)} aft of AP`;
   const y = Math.abs(p.y) < 0.005 ? 'on the centreline' : `${len(p.y, system, 2)} to ${p.y > 0 ? 'port' : 'stbd'}`;
   const z = p.z >= 0 ? `${len(p.z, system, 2)} above base` : `${len(p.z, system, 2)} below base`;
-  return `${x}, ${y}, ${z}`;
+  return [x, y, z];
 }
 
 /** Trim in words: positive trim (by the stern, the ship's convention) and negative (by the head). */

@@ -65,6 +65,12 @@ export const UNITS = {
   s: { dimension: 'time', toSi: 1, label: 's' },
   h: { dimension: 'time', toSi: 3600, label: 'h' },
   deg: { dimension: 'angle', toSi: Math.PI / 180, label: '°' },
+  // Immersion (mass per draft, kg/m): tonnes per centimetre, long tons per inch.
+  tpc: { dimension: 'immersion', toSi: 1000 / 0.01, label: 't/cm' },
+  tpi: { dimension: 'immersion', toSi: LONG_TON_KG / INCH_M, label: 'LT/in' },
+  // Moment to change trim (kg·m per m of trim): t·m per cm, foot-long-tons per inch.
+  mct1cm: { dimension: 'trimMoment', toSi: (1000 * 1) / 0.01, label: 't·m/cm' },
+  mt1in: { dimension: 'trimMoment', toSi: (LONG_TON_KG * FOOT_M) / INCH_M, label: 'ft·LT/in' },
   rad: { dimension: 'angle', toSi: 1, label: 'rad' },
 } as const;
 
@@ -86,11 +92,11 @@ export function toSi(value: number, unit: UnitId): number {
 export const DISPLAY_UNITS: Record<UnitSystem, Record<Dimension, UnitId>> = {
   si: {
     length: 'm', area: 'm2', volume: 'm3', mass: 't', force: 'kN', pressure: 'kPa', density: 'kgm3',
-    flow: 'm3h', moment: 'kNm', sectionModulus: 'cm3', time: 'h', angle: 'deg',
+    flow: 'm3h', moment: 'kNm', sectionModulus: 'cm3', time: 'h', angle: 'deg', immersion: 'tpc', trimMoment: 'mct1cm',
   },
   us: {
     length: 'ft', area: 'ft2', volume: 'ft3', mass: 'LT', force: 'kip', pressure: 'psi', density: 'lbft3',
-    flow: 'usgpm', moment: 'kipft', sectionModulus: 'in3', time: 'h', angle: 'deg',
+    flow: 'usgpm', moment: 'kipft', sectionModulus: 'in3', time: 'h', angle: 'deg', immersion: 'tpi', trimMoment: 'mt1in',
   },
 };
 
@@ -116,9 +122,20 @@ export function formatQuantity(valueSi: number, dimension: Dimension, system: Un
 /** Significant-figure formatting without exponent notation for everyday magnitudes. */
 export function formatNumber(value: number, digits = 4): string {
   if (!Number.isFinite(value)) return String(value);
-  if (value === 0) return '0';
+  // Below 1e-9 of any unit we show is round-off of a zero (a centroid on the centreline comes out
+  // as 1.5e-16), never a figure: say 0, not "1.53e-16".
+  if (Math.abs(value) < 1e-9) return '0';
   const magnitude = Math.floor(Math.log10(Math.abs(value)));
   if (magnitude >= 9 || magnitude < -4) return value.toExponential(digits - 1);
   const decimals = Math.max(0, digits - 1 - magnitude);
   return value.toFixed(decimals);
 }
+
+/** A stress in the unit the plate and shore forms take it in: MPa, or ksi in US customary ("160 MPa"). */
+export function formatStress(valuePa: number, system: UnitSystem, digits = 4, withUnit = true): string {
+  const n = formatNumber(system === 'us' ? valuePa / (1000 * PSI_PA) : valuePa / 1e6, digits);
+  return withUnit ? `${n} ${STRESS_UNIT[system]}` : n;
+}
+
+/** The label of the stress unit of each system. */
+export const STRESS_UNIT: Record<UnitSystem, string> = { si: 'MPa', us: 'ksi' };

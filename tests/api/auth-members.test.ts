@@ -102,13 +102,54 @@ describe('invitations', () => {
     expect((await call('POST', `/api/members/${org.surveyor.id}/resend-invitation`, admin)).status).toBe(409);
   });
 
-  it('refuses to invite an existing member or someone of another organisation', async () => {
+  it('refuses to invite an existing member', async () => {
     expect((await call('POST', '/api/members/invitations', admin, { email: org.engineer.email, role: 'surveyor' })).status).toBe(409);
-    expect((await call('POST', '/api/members/invitations', admin, { email: other.engineer.email, role: 'surveyor' })).status).toBe(409);
     const bad = await call('POST', '/api/members/invitations', admin, { email: 'not an address', role: 'captain' });
     expect(bad.status).toBe(400);
     const paths = (ErrorBodySchema.parse(await bad.json()).error.details as Array<{ path: string }>).map((d) => d.path);
     expect(paths).toEqual(expect.arrayContaining(['email', 'role']));
+  });
+
+  it('answers an address of another firm exactly like any invitation, and changes nothing for that account (F13)', async () => {
+    const foreign = await addMember(t.db, other.id, 'engineer');
+    const fresh = uniqueEmail('fresh');
+    const beforeMail = Date.now();
+    const a = await call('POST', '/api/members/invitations', admin, { email: fresh, role: 'surveyor' });
+    const b = await call('POST', '/api/members/invitations', admin, { email: foreign.email, role: 'surveyor' });
+    expect([a.status, b.status]).toEqual([201, 201]);
+    // The same headers that matter and the same body but for the person's own id, address and expiry time.
+    expect(b.headers.get('content-type')).toBe(a.headers.get('content-type'));
+    const shape = (m: Record<string, unknown>) => ({ ...m, userId: typeof m.userId, email: typeof m.email, invitationExpiresAt: typeof m.invitationExpiresAt });
+    const [ma, mb] = [MemberSchema.parse(await a.json()), MemberSchema.parse(await b.json())];
+    expect(shape(mb)).toEqual(shape(ma));
+    expect(mb).toMatchObject({ email: foreign.email, name: '', lastSignInAt: null, status: 'invited' });
+    expect(Math.abs(Date.parse(mb.invitationExpiresAt!) - Date.parse(ma.invitationExpiresAt!))).toBeLessThan(60_000);
+
+    // The members list shows both alike: no name, no last sign-in from the other firm.
+    const list = MembersResponseSchema.parse(await (await call('GET', '/api/members', admin)).json());
+    const row = (email: string) => list.members.find((m) => m.email === email)!;
+    expect(shape(row(foreign.email))).toEqual(shape(row(fresh)));
+    // Resending answers alike too.
+    const ra = await call('POST', `/api/members/${ma.userId}/resend-invitation`, admin);
+    const rb = await call('POST', `/api/members/${mb.userId}/resend-invitation`, admin);
+    expect([ra.status, rb.status]).toEqual([200, 200]);
+    expect(shape(MemberSchema.parse(await rb.json()))).toEqual(shape(MemberSchema.parse(await ra.json())));
+
+    // The address's owner is told why no link came; no mail carries a link to join.
+    const notice = await waitForMail(foreign.email, { after: beforeMail });
+    expect(notice.text).toMatch(/already has a Brineline account with another organisation/);
+    expect(mailTo(foreign.email).some((m) => m.text.includes('accept-invitation'))).toBe(false);
+
+    // Their account is untouched: they sign in to their own firm, and stay signed in when this firm
+    // withdraws the invitation; reactivating it does not let them in here.
+    const theirs = await signIn(t.url, foreign.email);
+    const me = await (await call('GET', '/api/me', theirs.accessToken)).json();
+    expect(me.organisation.id).toBe(other.id);
+    expect((await call('POST', `/api/members/${mb.userId}/deactivate`, admin)).status).toBe(200);
+    expect((await call('GET', '/api/me', theirs.accessToken)).status).toBe(200);
+    const back = MemberSchema.parse(await (await call('POST', `/api/members/${mb.userId}/reactivate`, admin)).json());
+    expect(back.status).toBe('invited');
+    expect(back).toMatchObject({ name: '', lastSignInAt: null });
   });
 
   it('a deactivated invitation can no longer be accepted', async () => {

@@ -1,3 +1,4 @@
+import { randomUUID } from 'node:crypto';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { SignJWT, UnsecuredJWT } from 'jose';
 import { MeSchema, SessionResponseSchema } from '@shared/api/auth';
@@ -5,6 +6,7 @@ import { ErrorBodySchema } from '@shared/api/errors';
 import { startTestApp, type TestApp } from '../support/app';
 import { addMember, authHeader, createOrgWithMembers, refreshCookieOf, signIn, TEST_PASSWORD, type TestOrg } from '../support/auth';
 import { linkIn, waitForMail } from '../support/mail';
+import { change, newSurvey } from '../support/surveys';
 import { signAccessToken, ACCESS_AUDIENCE, ISSUER } from '../../server/services/tokens';
 
 let t: TestApp;
@@ -216,28 +218,29 @@ describe('refresh tokens', () => {
 describe('access tokens', () => {
   const secret = () => t.config.JWT_SECRET;
   const key = () => new TextEncoder().encode(secret());
-  const claims = () => ({ org: org.id, role: 'admin', email: org.admin.email, typ: 'access' });
+  const claims = () => ({ org: org.id, role: 'admin', email: org.admin.email, sid: randomUUID(), typ: 'access' });
 
   it('accepts a good one', async () => {
-    const token = await signAccessToken(secret(), { userId: org.admin.id, orgId: org.id, role: 'admin', email: org.admin.email });
+    const token = await signAccessToken(secret(), { userId: org.admin.id, orgId: org.id, role: 'admin', email: org.admin.email, sessionId: randomUUID() });
     expect((await me(token)).status).toBe(200);
   });
 
-  it('refuses tampered, expired, alg none, wrong audience, wrong issuer, wrong key and wrong type', async () => {
-    const good = await signAccessToken(secret(), { userId: org.admin.id, orgId: org.id, role: 'admin', email: org.admin.email });
+  it('refuses tampered, expired, alg none, wrong audience, wrong issuer, wrong key, wrong type and no session', async () => {
+    const good = await signAccessToken(secret(), { userId: org.admin.id, orgId: org.id, role: 'admin', email: org.admin.email, sessionId: randomUUID() });
     const [h, p, s] = good.split('.');
     const payload = JSON.parse(Buffer.from(p, 'base64url').toString());
     const tamperedPayload = Buffer.from(JSON.stringify({ ...payload, sub: org.engineer.id })).toString('base64url');
     const tampered = `${h}.${tamperedPayload}.${s}`;
     const badSig = `${h}.${p}.${s.slice(0, -2)}${s.endsWith('AA') ? 'BB' : 'AA'}`;
-    const expired = await signAccessToken(secret(), { userId: org.admin.id, orgId: org.id, role: 'admin', email: org.admin.email }, -10);
+    const expired = await signAccessToken(secret(), { userId: org.admin.id, orgId: org.id, role: 'admin', email: org.admin.email, sessionId: randomUUID() }, -10);
     const none = new UnsecuredJWT(claims()).setSubject(org.admin.id).setIssuer(ISSUER).setAudience(ACCESS_AUDIENCE).setIssuedAt().setExpirationTime('5m').encode();
     const sign = (jwt: SignJWT, k = key()) => jwt.setProtectedHeader({ alg: 'HS256' }).setSubject(org.admin.id).setIssuedAt().setExpirationTime('5m').sign(k);
     const wrongAudience = await sign(new SignJWT(claims()).setIssuer(ISSUER).setAudience('someone-else'));
     const wrongIssuer = await sign(new SignJWT(claims()).setIssuer('not-brineline').setAudience(ACCESS_AUDIENCE));
     const wrongKey = await sign(new SignJWT(claims()).setIssuer(ISSUER).setAudience(ACCESS_AUDIENCE), new TextEncoder().encode('x'.repeat(48)));
     const wrongType = await sign(new SignJWT({ ...claims(), typ: 'refresh' }).setIssuer(ISSUER).setAudience(ACCESS_AUDIENCE));
-    const cases = { tampered, badSig, expired, none, wrongAudience, wrongIssuer, wrongKey, wrongType, garbage: 'not.a.jwt' };
+    const noSession = await sign(new SignJWT({ ...claims(), sid: undefined }).setIssuer(ISSUER).setAudience(ACCESS_AUDIENCE));
+    const cases = { tampered, badSig, expired, none, wrongAudience, wrongIssuer, wrongKey, wrongType, noSession, garbage: 'not.a.jwt' };
     for (const [name, token] of Object.entries(cases)) {
       const res = await me(token);
       expect([name, res.status]).toEqual([name, 401]);
@@ -248,7 +251,7 @@ describe('access tokens', () => {
   it('refuses a token it accepted before once it expires, and any altered copy of it', async () => {
     // Verified tokens are remembered until they expire (server/services/tokens.ts): the memory must
     // neither outlive the token nor cover a token that differs from it by one character.
-    const ctx = { userId: org.admin.id, orgId: org.id, role: 'admin' as const, email: org.admin.email };
+    const ctx = { userId: org.admin.id, orgId: org.id, role: 'admin' as const, email: org.admin.email, sessionId: randomUUID() };
     const shortLived = await signAccessToken(secret(), ctx, 2);
     expect((await me(shortLived)).status).toBe(200);
     expect((await me(shortLived)).status).toBe(200);
@@ -268,6 +271,60 @@ describe('access tokens', () => {
     await t.db('memberships').where({ user_id: m.id }).update({ role: 'surveyor' });
     const res = await fetch(`${t.url}/api/members`, { headers: authHeader(s.accessToken) });
     expect(res.status).toBe(403);
+  });
+});
+
+describe('access tokens end with their session (F11)', () => {
+  // Three kinds of request: the plain membership check, and two routes that fold it into their own query.
+  const surveys = (token: string) => fetch(`${t.url}/api/surveys`, { headers: authHeader(token) });
+  const push = (token: string) => {
+    const survey = newSurvey();
+    const changes = [change(randomUUID(), survey.id, { kind: 'create', survey })];
+    return fetch(`${t.url}/api/sync/push`, { method: 'POST', headers: { ...authHeader(token), 'content-type': 'application/json' }, body: JSON.stringify({ changes }) });
+  };
+  const statuses = async (token: string) => [(await me(token)).status, (await surveys(token)).status, (await push(token)).status];
+
+  it('sign-out ends that session’s access token at once, and only that session’s', async () => {
+    const m = await addMember(t.db, org.id, 'surveyor');
+    const phone = await signIn(t.url, m.email);
+    const laptop = await signIn(t.url, m.email);
+    expect(await statuses(phone.accessToken)).toEqual([200, 200, 200]);
+    expect((await fetch(`${t.url}/api/auth/sign-out`, { method: 'POST', headers: { cookie: phone.cookie } })).status).toBe(204);
+    expect(await statuses(phone.accessToken)).toEqual([401, 401, 401]);
+    expect(await statuses(laptop.accessToken)).toEqual([200, 200, 200]);
+  });
+
+  it('a password reset ends every access token of the person at once', async () => {
+    const m = await addMember(t.db, org.id, 'engineer');
+    const a = await signIn(t.url, m.email);
+    const b = await signIn(t.url, m.email);
+    await post('/api/auth/forgot-password', { email: m.email });
+    const { token } = linkIn(await waitForMail(m.email, { subject: 'password' }));
+    expect((await post('/api/auth/reset-password', { token, password: 'a-brand-new-password' })).status).toBe(204);
+    expect(await statuses(a.accessToken)).toEqual([401, 401, 401]);
+    expect(await statuses(b.accessToken)).toEqual([401, 401, 401]);
+  });
+
+  it('deactivation by an admin ends the access token at once', async () => {
+    const admin = await signIn(t.url, org.admin.email);
+    const m = await addMember(t.db, org.id, 'surveyor');
+    const s = await signIn(t.url, m.email);
+    const res = await fetch(`${t.url}/api/members/${m.id}/deactivate`, { method: 'POST', headers: authHeader(admin.accessToken) });
+    expect(res.status).toBe(200);
+    expect(await statuses(s.accessToken)).toEqual([401, 401, 401]);
+  });
+
+  it('a refresh token presented twice ends the access token of its session', async () => {
+    const m = await addMember(t.db, org.id, 'surveyor');
+    const s = await signIn(t.url, m.email);
+    const next = await refresh(s.cookie);
+    expect(next.status).toBe(200);
+    const { accessToken } = SessionResponseSchema.parse(await next.json());
+    // The new token is used, so the old cookie coming back is a copy: the family is revoked.
+    expect((await me(accessToken)).status).toBe(200);
+    expect((await refresh(refreshCookieOf(next))).status).toBe(200);
+    expect((await refresh(s.cookie)).status).toBe(401);
+    expect(await statuses(accessToken)).toEqual([401, 401, 401]);
   });
 });
 

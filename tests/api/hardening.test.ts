@@ -92,5 +92,13 @@ describe('development mailbox (F6)', () => {
     const theirs = DevMailListSchema.parse(await (await call('GET', '/api/dev/mail', tok.otherAdmin)).json()).messages.filter((m) => m.to.includes(master));
     expect(theirs.length).toBe(1);
     expect(theirs[0].subject).not.toContain('Join');
+    // The engineer who sent the brief finds it; an engineer finds only what they sent (not the admin's invitation).
+    const sent = DevMailListSchema.parse(await (await call('GET', '/api/dev/mail', tok.otherEngineer)).json()).messages.filter((m) => m.to.includes(master));
+    expect(sent.map((m) => m.id)).toEqual([theirs[0].id]);
+    expect((await call('GET', `/api/dev/mail/${theirs[0].id}`, tok.otherEngineer)).status).toBe(200);
+    const notSent = DevMailListSchema.parse(await (await call('GET', '/api/dev/mail', tok.engineer)).json()).messages.filter((m) => m.to.includes(master));
+    expect(notSent).toEqual([]);
+    expect((await call('GET', `/api/dev/mail/${ours[0]!.id}`, tok.engineer)).status).toBe(404);
+    expect((await call('GET', '/api/dev/mail', tok.surveyor)).status).toBe(403);
   });
 });

@@ -86,7 +86,8 @@ describe('issuing, opening and revoking a brief', () => {
     expect(html).toContain(`Keep the liquid level in ${compartment.name} above 10.0 ft over the baseline.`);
     expect(html).toContain('No hot work near the fore peak.');
     for (const c of CAUTIONS) expect(html).toContain(c.replaceAll('’', '’'));
-    expect(html).toMatch(/Reviewed by <strong>Test Engineer<\/strong>/);
+    // Under review (not yet accepted): who has it, and the revision those figures are.
+    expect(html).toMatch(/Under review by <strong>Test Engineer<\/strong>.*: survey revision 1/);
     expect(html).toMatch(/psi|kip/);
     expect(html.length).toBeLessThan(40_000);
 

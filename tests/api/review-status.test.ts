@@ -37,6 +37,9 @@ const ALLOWED: Record<string, Who[]> = {
   'in_review>returned': ['engineer'],
   'in_review>accepted': ['engineer'],
   'accepted>in_review': ['engineer'],
+  'changed_since_review>submitted': ['surveyor', 'engineer', 'admin'],
+  'changed_since_review>in_review': ['engineer'],
+  'changed_since_review>returned': ['engineer'],
 };
 
 async function move(token: string, surveyId: string, to: SurveyStatus, note?: string) {

@@ -81,11 +81,11 @@ async function openInvitation(ctx: MatrixContext): Promise<string> {
 
 /** A message in the catcher's folder addressed to a member of `ctx.org`. */
 /** A caught message as the mail catcher writes it, sent by `orgId` (the dev mailbox shows a firm only its own mail). */
-function caughtMailFor(to: string, orgId: string): string {
+function caughtMailFor(to: string, orgId: string, sentById?: string): string {
   const id = randomUUID();
   const dir = inject('testEnv').DEV_MAIL_DIR;
   fs.mkdirSync(dir, { recursive: true });
-  const mail = { id, receivedAt: new Date().toISOString(), from: 'Brineline <no-reply@brineline.invalid>', to: [to], subject: 'Matrix', text: 'x', html: '<p>x</p>', organisationId: orgId };
+  const mail = { id, receivedAt: new Date().toISOString(), from: 'Brineline <no-reply@brineline.invalid>', to: [to], subject: 'Matrix', text: 'x', html: '<p>x</p>', organisationId: orgId, sentById };
   fs.writeFileSync(path.join(dir, `${Date.now()}-${id}.json`), JSON.stringify(mail));
   return id;
 }
@@ -144,8 +144,9 @@ export const routeCases: Record<string, RouteCase> = {
     setup: async ({ t, org }) => ({ params: { userId: (await addMember(t.db, org.id, 'surveyor', { status: 'invited' })).id } }),
     expect: adminOnlyObject(200),
   },
-  'GET /api/dev/mail': { expect: adminOnly(200) },
-  'GET /api/dev/mail/:id': { setup: async ({ org }) => ({ params: { id: caughtMailFor(org.surveyor.email, org.id) } }), expect: adminOnlyObject(200) },
+  'GET /api/dev/mail': { expect: engineerOrAdmin(200) },
+  // a brief the engineer sent: the engineer and the admin see it
+  'GET /api/dev/mail/:id': { setup: async ({ org }) => ({ params: { id: caughtMailFor(org.surveyor.email, org.id, org.engineer.id) } }), expect: engineerOrAdminObject(200) },
 
   // ---- surveys and sync (issue #5) ----
   'GET /api/surveys': { expect: anyMember(200) },

@@ -4,14 +4,13 @@
  * forecast of the same document computed here. Bad input gets a field error that keeps what was typed.
  */
 import { afterAll, beforeAll, describe, expect, it, inject } from 'vitest';
-import type { Browser, Page } from 'playwright-core';
+import type { Browser } from 'playwright-core';
 import { launchBrowser, screenshotPath } from '../support/browser';
 import { forecastFlooding } from '@shared/engine';
 import { hmm } from '@shared/api/cautions';
-import { SurveySchema, type Survey } from '@shared/schemas/survey';
+import { DEMO, localDoc, signIn } from '../support/e2e';
 
 const baseUrl = inject('baseUrl');
-const SURVEYOR = { email: 'ines.achterberg@skerrow.example', password: 'brine-surveyor-2026' };
 const DEMO_SURVEY_ID = '5eed0000-0000-4000-8000-000000000001';
 const STEERING = '5eed0000-0000-4000-8000-000000000011';
 
@@ -23,33 +22,11 @@ afterAll(async () => {
   await browser?.close();
 });
 
-async function localDoc(page: Page, id: string): Promise<Survey> {
-  const doc = await page.evaluate(
-    (surveyId) =>
-      new Promise<unknown>((resolve, reject) => {
-        const open = indexedDB.open('brineline');
-        open.onerror = () => reject(open.error);
-        open.onsuccess = () => {
-          const get = open.result.transaction('surveys').objectStore('surveys').get(surveyId);
-          get.onsuccess = () => resolve((get.result as { doc: unknown }).doc);
-          get.onerror = () => reject(get.error);
-        };
-      }),
-    id,
-  );
-  return SurveySchema.parse(doc);
-}
-
 describe('flooding forecast on the phone, offline', () => {
   it('enters a breach and a pump and reads the time-to-limit the engine gives', async () => {
     const context = await browser.newContext({ viewport: { width: 390, height: 844 } });
     const page = await context.newPage();
-    await page.goto(`${baseUrl}/sign-in`);
-    await page.getByLabel('E-mail').waitFor({ timeout: 20_000 });
-    await page.getByLabel('E-mail').fill(SURVEYOR.email);
-    await page.getByLabel('Password').fill(SURVEYOR.password);
-    await page.getByRole('button', { name: 'Sign in' }).click();
-    await page.waitForURL((u) => !u.pathname.startsWith('/sign-in'));
+    await signIn(page, DEMO.surveyor);
     await page.goto(`${baseUrl}/surveys/${DEMO_SURVEY_ID}?s=flooding`);
     await page.getByTestId('flooding-section').waitFor({ timeout: 60_000 });
     // the app is held by its service worker, then the signal goes

@@ -14,6 +14,7 @@ import { DEMO_USERS } from '../../seeds/demo-people';
 import { launchBrowser, screenshotPath } from '../support/browser';
 import { newSurvey, tokenFor } from '../support/surveys';
 import { SimDevice } from '../support/sync-device';
+import { signIn } from '../support/e2e';
 
 const baseUrl = inject('baseUrl');
 const env = inject('testEnv');
@@ -39,14 +40,6 @@ async function surveyOnServer(base: string): Promise<{ survey: Survey; shore: Si
   shore.create(survey);
   await shore.sync();
   return { survey, shore };
-}
-
-async function signIn(page: Page, url: string) {
-  await page.goto(`${url}/sign-in`);
-  await page.getByLabel('E-mail').fill(SURVEYOR.email);
-  await page.getByLabel('Password', { exact: true }).fill(SURVEYOR.password);
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.waitForURL((u) => !u.pathname.startsWith('/sign-in'));
 }
 
 /** Waits for the service worker to be active, so a reload with no network is served from it. */
@@ -97,7 +90,7 @@ describe('working with no network', () => {
     const context = await browser.newContext({ viewport: { width: 390, height: 844 } });
     const page = await context.newPage();
     try {
-      await signIn(page, baseUrl);
+      await signIn(page, SURVEYOR);
       await waitForServiceWorker(page);
       await waitSynced(page);
       await page.goto(`${baseUrl}/surveys/${survey.id}`);
@@ -146,7 +139,7 @@ describe('working with no network', () => {
     const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
     const page = await context.newPage();
     try {
-      await signIn(page, baseUrl);
+      await signIn(page, SURVEYOR);
       await waitSynced(page);
       await page.goto(`${baseUrl}/surveys/${survey.id}`);
       await page.getByTestId('workspace').waitFor();
@@ -243,7 +236,7 @@ describe('a new version deployed during work', () => {
     try {
       context = await browser.newContext({ viewport: { width: 390, height: 844 } });
       const page = await context.newPage();
-      await signIn(page, proxy.url);
+      await signIn(page, SURVEYOR, undefined, proxy.url);
       await waitForServiceWorker(page);
       await waitSynced(page);
       await page.goto(`${proxy.url}/surveys/${survey.id}`);

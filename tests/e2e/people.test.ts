@@ -8,17 +8,18 @@ import { writeFileSync, mkdtempSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it, inject } from 'vitest';
-import type { Browser, Page } from 'playwright-core';
+import type { Browser } from 'playwright-core';
 import { launchBrowser, screenshotPath } from '../support/browser';
 import { createDb, type Db } from '../../server/db/knex';
 import { demoSurvey } from '../../seeds/demo-survey';
 import { DEMO_SUBMITTED_SURVEY_ID } from '../../seeds/demo-survey';
 import { issueSecret } from '../../server/services/secrets';
 import { DEMO_ORG, DEMO_USERS } from '../../seeds/demo-people';
+import { DEMO, section, signIn, waitSaved } from '../support/e2e';
 
 const baseUrl = inject('baseUrl');
-const SURVEYOR = { email: 'ines.achterberg@skerrow.example', password: 'brine-surveyor-2026' };
-const ENGINEER = { email: 'tomas.varga@skerrow.example', password: 'brine-engineer-2026' };
+const SURVEYOR = DEMO.surveyor;
+const ENGINEER = DEMO.engineer;
 const WIDTHS = [390, 1440] as const;
 
 let browser: Browser;
@@ -32,21 +33,6 @@ afterAll(async () => {
   await browser?.close();
   await db?.destroy();
 });
-
-async function signIn(page: Page, who: { email: string; password: string }) {
-  await page.goto(`${baseUrl}/sign-in`);
-  await page.getByLabel('E-mail').waitFor({ timeout: 30_000 });
-  await page.getByLabel('E-mail').fill(who.email);
-  await page.getByLabel('Password').fill(who.password);
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.waitForURL((u) => !u.pathname.startsWith('/sign-in'));
-}
-
-const section = (page: Page, name: string) => page.getByRole('navigation', { name: 'Workspace sections' }).getByRole('button', { name, exact: true }).click();
-async function waitSaved(page: Page) {
-  await page.waitForTimeout(300);
-  await page.getByTestId('save-state').filter({ hasText: 'Saved on this device' }).first().waitFor({ timeout: 10_000 });
-}
 
 describe.each(WIDTHS)('at %i px', (width) => {
   it('a new survey shows no loads until its readings are entered', async () => {

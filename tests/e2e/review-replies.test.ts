@@ -11,6 +11,7 @@ import { launchBrowser, screenshotPath } from '../support/browser';
 import { seriousA11yViolations } from '../support/axe';
 import { newSurvey, tokenFor } from '../support/surveys';
 import { SimDevice } from '../support/sync-device';
+import { signIn } from '../support/e2e';
 
 const baseUrl = inject('baseUrl');
 const env = inject('testEnv');
@@ -36,15 +37,6 @@ async function call(token: string, method: string, path: string, body?: unknown)
   const json = res.status === 204 ? null : await res.json();
   if (!res.ok) throw new Error(`${method} ${path}: ${res.status} ${JSON.stringify(json)}`);
   return json;
-}
-
-async function signIn(page: Page, who: { email: string; password: string }, next: string) {
-  await page.goto(`${baseUrl}/sign-in?next=${encodeURIComponent(next)}`);
-  await page.getByLabel('E-mail').fill(who.email);
-  await page.getByLabel('Password', { exact: true }).fill(who.password);
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.waitForURL((u) => !u.pathname.startsWith('/sign-in'));
-  if (new URL(page.url()).pathname !== next) await page.goto(`${baseUrl}${next}`);
 }
 
 const syncState = (page: Page) => page.getByTestId('sync-status').getAttribute('data-state');

@@ -8,10 +8,11 @@ import { afterAll, beforeAll, describe, expect, it, inject } from 'vitest';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { launchBrowser, screenshotPath } from '../support/browser';
 import { readCaughtMail } from '../../scripts/lib/mail-catcher';
+import { DEMO, signIn } from '../support/e2e';
 
 const baseUrl = inject('baseUrl');
-const SURVEYOR = { email: 'ines.achterberg@skerrow.example', password: 'brine-surveyor-2026' };
-const ENGINEER = { email: 'tomas.varga@skerrow.example', password: 'brine-engineer-2026' };
+const SURVEYOR = DEMO.surveyor;
+const ENGINEER = DEMO.engineer;
 const DEMO_SURVEY_ID = '5eed0000-0000-4000-8000-000000000001';
 const VESSEL = 'MV Corran Tide';
 const BOUNDARY = 'No. 2/3 hold bulkhead';
@@ -34,15 +35,6 @@ beforeAll(async () => {
 afterAll(async () => {
   await browser?.close();
 });
-
-async function signIn(page: Page, who: { email: string; password: string }, next: string) {
-  await page.goto(`${baseUrl}/sign-in?next=${encodeURIComponent(next)}`);
-  await page.getByLabel('E-mail').fill(who.email);
-  await page.getByLabel('Password').fill(who.password);
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.waitForURL((u) => !u.pathname.startsWith('/sign-in'));
-  if (new URL(page.url()).pathname !== next) await page.goto(`${baseUrl}${next}`);
-}
 
 const noSideScroll = (page: Page) => page.evaluate(() => document.documentElement.scrollWidth - window.innerWidth);
 

@@ -7,12 +7,12 @@
  * tan φ = w·y / (Δ·GM_fluid); standard ship-stability texts, e.g. Barrass & Derrett).
  */
 import { afterAll, beforeAll, describe, expect, it, inject } from 'vitest';
-import type { Browser, Page } from 'playwright-core';
+import type { Browser } from 'playwright-core';
 import { launchBrowser, screenshotPath } from '../support/browser';
 import { formatNumber } from '@shared/units/units';
+import { DEMO, offlineReady, section, signIn, waitSaved } from '../support/e2e';
 
 const baseUrl = inject('baseUrl');
-const SURVEYOR = { email: 'ines.achterberg@skerrow.example', password: 'brine-surveyor-2026' };
 
 let browser: Browser;
 beforeAll(async () => {
@@ -69,35 +69,11 @@ function expected() {
   return { T, gmFluid, heelDeg };
 }
 
-async function signIn(page: Page) {
-  await page.goto(`${baseUrl}/sign-in`);
-  await page.getByLabel('E-mail').waitFor({ timeout: 20_000 });
-  await page.getByLabel('E-mail').fill(SURVEYOR.email);
-  await page.getByLabel('Password').fill(SURVEYOR.password);
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.waitForURL((u) => !u.pathname.startsWith('/sign-in'));
-}
-
-async function offlineReady(page: Page) {
-  await page.evaluate(() => navigator.serviceWorker.ready.then(() => undefined));
-  await page.reload();
-  await expect.poll(() => page.evaluate(() => navigator.serviceWorker.controller !== null), { timeout: 30_000 }).toBe(true);
-}
-
-async function section(page: Page, name: string) {
-  await page.getByRole('navigation', { name: 'Workspace sections' }).getByRole('button', { name, exact: true }).click();
-}
-
-async function waitSaved(page: Page) {
-  await page.waitForTimeout(300);
-  await page.getByTestId('save-state').filter({ hasText: 'Saved on this device' }).first().waitFor({ timeout: 10_000 });
-}
-
 describe('the ship’s response on a phone, offline', () => {
   it('box barge particulars, a flooded wing tank, and draft, heel and GM as the closed forms give them', async () => {
     const context = await browser.newContext({ viewport: { width: 390, height: 844 } });
     const page = await context.newPage();
-    await signIn(page);
+    await signIn(page, DEMO.surveyor);
     await page.goto(`${baseUrl}/surveys`);
     await page.getByRole('heading', { name: 'Surveys' }).waitFor();
     await offlineReady(page);

@@ -4,17 +4,17 @@
  * photo, come back online and find survey and photo on the server.
  */
 import { afterAll, beforeAll, describe, expect, it, inject } from 'vitest';
-import type { Browser, Page } from 'playwright-core';
+import type { Browser } from 'playwright-core';
 import { launchBrowser, screenshotPath } from '../support/browser';
 import { createDb, type Db } from '../../server/db/knex';
 import { computeSurvey } from '@shared/engine';
-import { SurveySchema, type Survey } from '@shared/schemas/survey';
+import { SurveySchema } from '@shared/schemas/survey';
 import { formatNumber, fromSi } from '@shared/units/units';
 import { makePng } from '../support/photos';
 import { demoSurvey } from '../../seeds/demo-survey';
+import { DEMO, localDoc, offlineReady, section, signIn, waitSaved } from '../support/e2e';
 
 const baseUrl = inject('baseUrl');
-const SURVEYOR = { email: 'ines.achterberg@skerrow.example', password: 'brine-surveyor-2026' };
 
 let browser: Browser;
 let db: Db;
@@ -27,62 +27,6 @@ afterAll(async () => {
   await browser?.close();
   await db?.destroy();
 });
-
-async function signIn(page: Page) {
-  await page.goto(`${baseUrl}/sign-in`);
-  try {
-    await page.getByLabel('E-mail').waitFor({ timeout: 20_000 });
-  } catch (err) {
-    await page.screenshot({ path: screenshotPath('workspace-sign-in-failed') });
-    throw new Error(`no sign-in form: ${(await page.locator('body').innerText()).slice(0, 500)}`, { cause: err });
-  }
-  await page.getByLabel('E-mail').fill(SURVEYOR.email);
-  await page.getByLabel('Password').fill(SURVEYOR.password);
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.waitForURL((u) => !u.pathname.startsWith('/sign-in'));
-}
-
-/** The survey document as this device holds it (IndexedDB, read directly). */
-async function localDoc(page: Page, id: string): Promise<Survey> {
-  const doc = await page.evaluate(
-    (surveyId) =>
-      new Promise<unknown>((resolve, reject) => {
-        const open = indexedDB.open('brineline');
-        open.onerror = () => reject(open.error);
-        open.onsuccess = () => {
-          const get = open.result.transaction('surveys').objectStore('surveys').get(surveyId);
-          get.onsuccess = () => resolve((get.result as { doc: unknown }).doc);
-          get.onerror = () => reject(get.error);
-        };
-      }),
-    id,
-  );
-  return SurveySchema.parse(doc);
-}
-
-/** Waits until the service worker holds the app (every chunk precached) and controls the page, as after a first visit. */
-async function offlineReady(page: Page) {
-  // The app registers its own service worker at start-up; wait for it to be installed and active.
-  const ready = await page.evaluate(() =>
-    Promise.race([
-      navigator.serviceWorker.ready.then(() => 'ready'),
-      new Promise<string>((r) => setTimeout(() => r('the app did not register its service worker within 30 s'), 30_000)),
-    ]),
-  );
-  expect(ready).toBe('ready');
-  await page.reload();
-  await expect.poll(() => page.evaluate(() => navigator.serviceWorker.controller !== null), { timeout: 30_000 }).toBe(true);
-}
-
-async function section(page: Page, name: string) {
-  await page.getByRole('navigation', { name: 'Workspace sections' }).getByRole('button', { name, exact: true }).click();
-}
-
-/** Waits for the autosave of the form just edited to reach the device store. */
-async function waitSaved(page: Page) {
-  await page.waitForTimeout(300);
-  await page.getByTestId('save-state').filter({ hasText: 'Saved on this device' }).first().waitFor({ timeout: 10_000 });
-}
 
 async function pollUntil<T>(fn: () => Promise<T | undefined>, timeoutMs = 60_000): Promise<T> {
   const end = Date.now() + timeoutMs;
@@ -100,7 +44,7 @@ describe('the workspace, offline from the start', () => {
   it('builds a survey from nothing offline, matches the engine, renders 3D, takes a photo and syncs it all', async () => {
     const context = await browser.newContext({ viewport: { width: 360, height: 800 } });
     const page = await context.newPage();
-    await signIn(page);
+    await signIn(page, DEMO.surveyor);
     await page.goto(`${baseUrl}/surveys`);
     await page.getByRole('heading', { name: 'Surveys' }).waitFor();
     await offlineReady(page);
@@ -163,9 +107,9 @@ describe('the workspace, offline from the start', () => {
 
     // Plates: the bulkhead between them, from No. 1 hold's forward face
     step('Plates: the bulkhead');
-    await section(page, 'Plates');
+    await section(page, 'Boundaries');
     await page.getByLabel('Face', { exact: true }).selectOption('forward');
-    await page.getByLabel('Compartment of the face').selectOption({ label: 'No. 1 hold' });
+    await page.getByLabel('Space of the face').selectOption({ label: 'No. 1 hold' });
     await page.getByRole('button', { name: 'Create' }).click();
     await page.getByRole('button', { name: /Forward bulkhead of No\. 1 hold/ }).first().waitFor();
 
@@ -216,7 +160,7 @@ describe('the workspace, offline from the start', () => {
     // Photo, taken offline
     step('Photo, taken offline');
     await section(page, 'Photos');
-    await page.getByLabel('Of', { exact: true }).selectOption({ label: 'Plate: Forward bulkhead of No. 1 hold' });
+    await page.getByLabel('Of', { exact: true }).selectOption({ label: 'Boundary: Forward bulkhead of No. 1 hold' });
     await page.getByLabel('Caption').fill('Bulkhead seen from No. 1 hold');
     await page.getByTestId('photo-input').setInputFiles({ name: 'bulkhead.png', mimeType: 'image/png', buffer: makePng(64, 48) });
     await page.getByText('On this device, waiting to upload').waitFor();
@@ -262,7 +206,7 @@ describe('the workspace, offline from the start', () => {
         const u = new URL(r.url());
         if (u.pathname.startsWith('/api/')) calls.push(`${r.request().method()} ${u.pathname} ${r.status()}`);
       });
-      await signIn(page);
+      await signIn(page, DEMO.surveyor);
       await page.goto(`${baseUrl}/surveys`);
       const list = page.getByTestId('survey-list');
       await list.waitFor({ timeout: 60_000 }).catch(async (err: unknown) => {
@@ -276,14 +220,14 @@ describe('the workspace, offline from the start', () => {
       expect(demo, 'the demo survey is seeded').toBeTruthy();
       await page.goto(`${baseUrl}/surveys/${demo.id}`);
       await page.getByTestId('workspace').waitFor({ timeout: 30_000 });
-      for (const s of ['Ship', 'Readings', 'Spaces', 'Contents', 'Plates', 'Loads', '3D', 'Photos']) {
+      for (const s of ['Ship', 'Readings', 'Spaces', 'Contents', 'Boundaries', 'Loads', '3D', 'Photos']) {
         await section(page, s);
         if (s === '3D') {
           await page.getByTestId('model-canvas').locator('canvas').waitFor({ timeout: 60_000 });
           await page.waitForTimeout(1500);
         }
         if (s === 'Spaces') await page.getByRole('list', { name: 'Compartments' }).getByRole('button').first().click();
-        if (s === 'Plates') await page.getByRole('list', { name: 'Plates' }).getByRole('button').first().click();
+        if (s === 'Boundaries') await page.getByRole('list', { name: 'Boundaries' }).getByRole('button').first().click();
         if (s === 'Loads') await page.getByTestId('boundary-row').first().click();
         const overflow = await page.evaluate(() => document.documentElement.scrollWidth - window.innerWidth);
         expect(overflow, `${s} scrolls sideways at ${width} px`).toBeLessThanOrEqual(0);

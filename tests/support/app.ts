@@ -21,7 +21,7 @@ export interface TestApp {
 export async function startTestApp(overrides: Record<string, string> = {}, opts: { logger?: Logger; storage?: (config: Config) => PhotoStorage } = {}): Promise<TestApp> {
   const config = loadConfig({ ...inject('testEnv'), PORT: '0', ...overrides });
   const db = createDb(config.DATABASE_URL);
-  const app = createApp({ db, config, logger: opts.logger ?? pino({ level: 'silent' }), storage: opts.storage?.(config) });
+  const app = createApp({ db, config, logger: opts.logger ?? pino({ level: process.env.TEST_LOG ?? 'silent' }), storage: opts.storage?.(config) });
   const server = http.createServer(app);
   await new Promise<void>((resolve) => server.listen(0, '127.0.0.1', () => resolve()));
   const addr = server.address();

@@ -23,6 +23,12 @@ const PATH: Record<SurveyStatus, { to: SurveyStatus; by: 'surveyor' | 'engineer'
     { to: 'submitted', by: 'surveyor' },
     { to: 'returned', by: 'engineer', note: 'Add the soundings of No. 2 hold.' },
   ],
+  changed_since_review: [
+    { to: 'submitted', by: 'surveyor' },
+    { to: 'in_review', by: 'engineer' },
+    { to: 'accepted', by: 'engineer' },
+    { to: 'changed_since_review', by: 'surveyor' },
+  ],
 };
 
 /** Stores a new survey (made by the org's surveyor) and writes the status trail that leads to `status`. */

@@ -18,6 +18,11 @@ describe('nearest time-to-limit on the brief', () => {
     if (first.atS > 0) expect(words.sentence).toContain(hmm(first.atS));
     else expect(words.sentence).toContain('already past its limit');
     expect(words.assumptions).toContain('New soundings replace it');
-    expect(words.assumptions).toContain('present attitude');
-  });
+    // the demo has hydrostatic particulars: the forecast's attitude follows the ship's response, and the brief says so
+    expect(f.attitude.mode).toBe('follows-response');
+    expect(words.attitude).toBe('Attitude follows the ship’s response');
+    expect(words.assumptions).toContain(f.attitude.note.slice(1));
+    // every downflooding point is either named with its time or the brief says none goes under
+    expect(words.downflooding.length).toBeGreaterThan(0);
+  }, 60_000);
 });

@@ -82,7 +82,7 @@ describe('planRun: repeats', () => {
   it('answers a change already recorded as a duplicate with its first answer, and writes nothing for it', () => {
     const s = start();
     const c = change(s.doc.id, { kind: 'set', path: 'title', value: 'Again' });
-    const seen = new Map<string, ProcessedChange>([[c.id, { orgId: ORG, status: 'applied', revision: 5, reason: null, conflictIds: [] }]]);
+    const seen = new Map<string, ProcessedChange>([[c.id, { orgId: ORG, userId: USER, status: 'applied', revision: 5, reason: null, conflictIds: [] }]]);
     const p = planned(plan({ run: [c], survey: s, seen }));
     expect(p.results[0]).toMatchObject({ status: 'duplicate', firstStatus: 'applied', revision: 5 });
     expect(p.processed).toEqual([]);
@@ -92,9 +92,18 @@ describe('planRun: repeats', () => {
   it('refuses a change id another organisation already used', () => {
     const s = start();
     const c = change(s.doc.id, { kind: 'set', path: 'title', value: 'Mine' });
-    const seen = new Map<string, ProcessedChange>([[c.id, { orgId: 'org-2', status: 'applied', revision: 2, reason: null, conflictIds: [] }]]);
+    const seen = new Map<string, ProcessedChange>([[c.id, { orgId: 'org-2', userId: 'user-2', status: 'applied', revision: 2, reason: null, conflictIds: [] }]]);
     const p = planned(plan({ run: [c], survey: s, seen }));
     expect(p.results[0]).toMatchObject({ status: 'rejected', reason: 'This change id is already in use.' });
+  });
+
+  it('refuses a change id a colleague in the same organisation already used (never a duplicate of theirs)', () => {
+    const s = start();
+    const c = change(s.doc.id, { kind: 'set', path: 'title', value: 'Mine' });
+    const seen = new Map<string, ProcessedChange>([[c.id, { orgId: ORG, userId: 'colleague', status: 'applied', revision: 2, reason: null, conflictIds: [] }]]);
+    const p = planned(plan({ run: [c], survey: s, seen }));
+    expect(p.results[0]).toMatchObject({ status: 'rejected', reason: 'This change id is already in use.' });
+    expect(p.processed).toEqual([]);
   });
 
   it('applies a change repeated within one run once (same id, or same device and sequence)', () => {

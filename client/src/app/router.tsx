@@ -18,8 +18,12 @@ export const router = createBrowserRouter([
         element: <RequireRole roles={['admin']} />,
         children: [
           { path: paths.members, lazy: async () => ({ Component: (await import('./routes/members')).default }), errorElement: <RouteError /> },
-          { path: paths.devMail, lazy: async () => ({ Component: (await import('./routes/dev-mail')).default }), errorElement: <RouteError /> },
         ],
+      },
+      {
+        // admins read their firm's mail; engineers the briefs they sent
+        element: <RequireRole roles={['admin', 'engineer']} />,
+        children: [{ path: paths.devMail, lazy: async () => ({ Component: (await import('./routes/dev-mail')).default }), errorElement: <RouteError /> }],
       },
       {
         element: <RequireRole />,

@@ -23,10 +23,14 @@ export function describeOp(op: SurveyOp): string {
       return `Change the ${FIELD[op.path] ?? op.path}`;
     case 'upsert':
       return `Save ${NOUN[op.collection]}${nameOf(op.entity)}`;
+    case 'patch':
+      return `Change the ${op.path[0]} of a ${NOUN[op.collection]}`;
     case 'delete':
       return `Delete a ${NOUN[op.collection]}`;
     case 'resolve-conflict':
       return `Settle a conflict (${describeTarget(op.target)})`;
+    case 'submit':
+      return 'Send the survey for review';
   }
 }
 

@@ -47,6 +47,14 @@ export function usePendingCount(surveyId?: string): number | undefined {
   );
 }
 
+/** The "Send for review" of a survey waiting in the outbox (or refused by the server), if any: the latest. */
+export function useQueuedSubmit(surveyId: string): OutboxEntry | undefined | null {
+  return useLiveQuery(
+    async () => (await db.outbox.where('surveyId').equals(surveyId).filter((e) => e.op.kind === 'submit').sortBy('seq')).pop() ?? null,
+    [surveyId],
+  );
+}
+
 /** Changes the server refused, with its reason. */
 export function useRejectedChanges(): OutboxEntry[] | undefined {
   return useLiveQuery(() => db.outbox.where('state').equals('rejected').toArray(), []);

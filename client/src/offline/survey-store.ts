@@ -13,10 +13,11 @@ import {
   type SyncedSurvey,
   type UserRef,
 } from '@shared/schemas/sync';
-import { applyOp, changedFields, findEntity, replay } from '@shared/sync/apply';
+import { applyOp, changedFields, deepEqual, findEntity, leanOp, replay } from '@shared/sync/apply';
 import { formatZodIssues } from '@shared/api/format-issues';
 import { reportStorageError } from './storage';
 import { db, getDeviceId } from './db';
+import { noteUnsavedEdit, strikeUnsavedEdit, unsavedEdits } from './unsaved-edits';
 
 export {
   dismissRejectedChange,
@@ -106,12 +107,17 @@ export async function createLocalSurvey(survey: Survey, opts: { owner?: UserRef 
   return doc.id;
 }
 
-/** Fills in `fields` of an upsert: which fields of the entity this edit actually changed. */
-function withChangedFields(doc: Survey, op: SurveyOp): SurveyOp {
+/**
+ * What is queued for an edit: an upsert of an existing entity that changed one field goes as a lean
+ * `patch` of the part that changed (a sounding, not the whole condition); otherwise the upsert gets
+ * `fields`, the fields of the entity this edit actually changed (empty: nothing changed).
+ */
+function queuedOp(doc: Survey, op: SurveyOp): SurveyOp {
   if (op.kind !== 'upsert') return op;
   const before = findEntity(doc, op.collection, op.entity.id);
   if (!before) return { ...op, fields: undefined };
-  return { ...op, fields: changedFields(before, op.entity) };
+  const lean = leanOp(before, op);
+  return lean.kind === 'patch' ? lean : { ...op, fields: changedFields(before, op.entity) };
 }
 
 /**
@@ -126,6 +132,38 @@ export async function applyLocalChanges(surveyId: string, ops: SurveyOp[]): Prom
     if (r.data.kind === 'create') throw new LocalChangeError('Use createLocalSurvey to create a survey.');
     return r.data;
   });
+  // Noted before the first wait: a page closing now still keeps the edit (./unsaved-edits.ts).
+  const note = parsedOps.some((op) => op.kind === 'resolve-conflict') ? null : noteUnsavedEdit(surveyId, parsedOps);
+  try {
+    return await storeLocalChanges(surveyId, parsedOps);
+  } finally {
+    if (note !== null) strikeUnsavedEdit(note);
+  }
+}
+
+/**
+ * Applies the edits a page noted but could not store before it closed (see ./unsaved-edits.ts);
+ * called once at start, before the first sync. Returns how many were applied.
+ */
+export async function replayUnsavedEdits(): Promise<number> {
+  let applied = 0;
+  for (const e of unsavedEdits()) {
+    try {
+      applied += (await storeLocalChanges(e.surveyId, e.ops)).length;
+    } catch (err) {
+      // a broken store keeps the note for the next start; an edit the survey no longer takes is dropped
+      if (!(err instanceof LocalChangeError)) throw err;
+    }
+    strikeUnsavedEdit(e.n);
+  }
+  if (applied > 0) notify();
+  return applied;
+}
+
+/** A `set` to the value the survey already has changes nothing (so a replayed edit queues nothing). */
+const unchangedSet = (doc: Survey, op: SurveyOp) => op.kind === 'set' && deepEqual(doc[op.path], op.value);
+
+async function storeLocalChanges(surveyId: string, parsedOps: readonly SurveyOp[]): Promise<string[]> {
   const deviceId = await getDeviceId();
   const ids: string[] = [];
   await write(() => db.transaction('rw', db.surveys, db.outbox, async () => {
@@ -134,8 +172,8 @@ export async function applyLocalChanges(surveyId: string, ops: SurveyOp[]): Prom
     let doc = local.doc;
     const now = new Date().toISOString();
     for (const raw of parsedOps) {
-      const op = withChangedFields(doc, raw);
-      if (op.kind === 'upsert' && op.fields && op.fields.length === 0) continue; // nothing changed
+      const op = queuedOp(doc, raw);
+      if ((op.kind === 'upsert' && op.fields && op.fields.length === 0) || unchangedSet(doc, op)) continue; // nothing changed
       doc = validate(applyOp(doc, op));
       const id = crypto.randomUUID();
       ids.push(id);

@@ -9,13 +9,16 @@ import {
   MAX_PUSH_CHANGES,
   PullResponseSchema,
   PushResponseSchema,
+  UpsertOpSchema,
   type Conflict,
   type PushResponse,
   type SurveyChange,
 } from '@shared/schemas/sync';
+import type { Survey } from '@shared/schemas/survey';
+import { findEntity } from '@shared/sync/apply';
 import { ApiError, OfflineError, api, jsonBody } from '@client/lib/api-client';
 import { db, getMeta, META, setMeta, type OutboxEntry } from './db';
-import { mergeServerSurveys, rebaseLocalSurvey, subscribeLocalChanges } from './survey-store';
+import { mergeServerSurveys, rebaseLocalSurvey, replayUnsavedEdits, subscribeLocalChanges } from './survey-store';
 import { storeReviewNotes } from './review-notes';
 import { sendPendingReplies } from './replies';
 import { getEngineStatus, setEngineStatus } from './sync-state';
@@ -64,13 +67,38 @@ async function storeConflicts(conflicts: Conflict[]): Promise<void> {
   });
 }
 
-async function applyPushResponse(sent: OutboxEntry[], res: PushResponse): Promise<void> {
+/**
+ * A `patch` the server refused (the place it changes may be gone there: deleted on another device)
+ * is sent again as an upsert of the whole entity as this device has it, with a new id, so the merge
+ * can keep it as a conflict instead of losing it. False when this device no longer has the entity.
+ */
+async function requeueWhole(e: OutboxEntry): Promise<boolean> {
+  if (e.op.kind !== 'patch') return false;
+  const { collection, entityId, path } = e.op;
+  const doc: Survey | undefined = (await db.surveys.get(e.surveyId))?.doc;
+  const entity = doc && findEntity(doc, collection, entityId);
+  await db.outbox.delete(e.seq!);
+  if (!entity) return false;
+  const op = UpsertOpSchema.parse({ kind: 'upsert', collection, entity, fields: [path[0]] });
+  await db.outbox.add({ id: crypto.randomUUID(), deviceId: e.deviceId, surveyId: e.surveyId, baseRevision: e.baseRevision, createdAt: e.createdAt, op, state: 'pending' });
+  return true;
+}
+
+/** Returns whether a refused patch was queued again whole (to send at once). */
+async function applyPushResponse(sent: OutboxEntry[], res: PushResponse): Promise<boolean> {
+  let requeued = false;
   const bySeq = new Map(sent.map((e) => [e.id, e.seq!]));
+  const byId = new Map(sent.map((e) => [e.id, e]));
   const refused = new Set<string>();
-  await db.transaction('rw', db.outbox, async () => {
+  await db.transaction('rw', db.outbox, db.surveys, async () => {
     for (const r of res.results) {
       const seq = bySeq.get(r.changeId);
       if (seq === undefined) continue;
+      const wasRefused = r.status === 'rejected' || (r.status === 'duplicate' && r.firstStatus === 'rejected');
+      if (wasRefused && (await requeueWhole(byId.get(r.changeId)!))) {
+        requeued = true;
+        continue;
+      }
       if (r.status === 'rejected') {
         await db.outbox.update(seq, { state: 'rejected', reason: r.reason ?? 'The server refused this change.' });
         refused.add(r.surveyId);
@@ -81,6 +109,7 @@ async function applyPushResponse(sent: OutboxEntry[], res: PushResponse): Promis
   });
   await storeConflicts(res.conflicts);
   for (const surveyId of refused) await rebaseLocalSurvey(surveyId);
+  return requeued;
 }
 
 async function pushAll(): Promise<void> {
@@ -105,8 +134,8 @@ async function pushAll(): Promise<void> {
       }
       throw err;
     }
-    await applyPushResponse(batch, PushResponseSchema.parse(body));
-    if (batch.length < size) return;
+    const requeued = await applyPushResponse(batch, PushResponseSchema.parse(body));
+    if (batch.length < size && !requeued) return;
   }
 }
 
@@ -259,6 +288,9 @@ export function startSync(opts: { intervalMs?: number } = {}): () => void {
     unsubscribe();
     stopper = null;
   };
-  void syncNow();
+  // Edits a closing page noted but could not store go in first (./unsaved-edits.ts).
+  void replayUnsavedEdits()
+    .catch(() => 0)
+    .then(() => syncNow());
   return stopper;
 }

@@ -80,16 +80,42 @@ export async function insertMembership(db: Q, m: { orgId: string; userId: string
   await db('memberships').insert({ organisation_id: m.orgId, user_id: m.userId, role: m.role, status: m.status });
 }
 
-/** Whether this person belongs to any organisation at all (in any status). */
-export async function hasAnyMembership(db: Q, userId: string): Promise<boolean> {
-  return Boolean(await db('memberships').where({ user_id: userId }).first('id'));
+/** An organisation other than `orgId` this person has a membership in (any status), if any. */
+export async function organisationElsewhere(db: Q, userId: string, orgId: string): Promise<string | undefined> {
+  const row = await db('memberships').where({ user_id: userId }).whereNot({ organisation_id: orgId }).orderBy('created_at').first('organisation_id');
+  return row?.organisation_id;
 }
+
+/**
+ * Whether this person ever joined the organisation: a membership made active from the start (no
+ * invitation at all) or an accepted invitation. Someone invited but never joined is not let in by
+ * a reactivation, whatever password their account has elsewhere.
+ */
+export async function joinedOrganisation(db: Q, orgId: string, userId: string): Promise<boolean> {
+  const row = await db
+    .select(
+      db.raw(
+        `(NOT EXISTS (SELECT 1 FROM invitations WHERE organisation_id = ? AND user_id = ?)
+          OR EXISTS (SELECT 1 FROM invitations WHERE organisation_id = ? AND user_id = ? AND accepted_at IS NOT NULL)) AS joined`,
+        [orgId, userId, orgId, userId],
+      ),
+    )
+    .first();
+  return Boolean((row as { joined: boolean } | undefined)?.joined);
+}
+
+/**
+ * Someone whose membership here is not active and who has one in another organisation: their name
+ * and last sign-in belong to that other firm and are not shown here (an invitation of another
+ * firm's address looks like any other).
+ */
+const FROM_ELSEWHERE = `(m.status <> 'active' AND EXISTS (SELECT 1 FROM memberships x WHERE x.user_id = u.id AND x.organisation_id <> m.organisation_id))`;
 
 const memberColumns = (db: Q) => [
   'u.id as user_id',
-  'u.name',
+  db.raw(`CASE WHEN ${FROM_ELSEWHERE} THEN '' ELSE u.name END AS name`),
   'u.email',
-  'u.last_sign_in_at',
+  db.raw(`CASE WHEN ${FROM_ELSEWHERE} THEN NULL ELSE u.last_sign_in_at END AS last_sign_in_at`),
   'm.role',
   'm.status',
   db.raw(
@@ -123,7 +149,7 @@ export async function listMembers(db: Q, orgId: string): Promise<Member[]> {
   const rows: MemberRow[] = await db('memberships as m')
     .join('users as u', 'u.id', 'm.user_id')
     .where('m.organisation_id', orgId)
-    .orderByRaw("(m.status = 'deactivated'), lower(coalesce(nullif(u.name, ''), u.email))")
+    .orderByRaw(`(m.status = 'deactivated'), lower(coalesce(nullif(CASE WHEN ${FROM_ELSEWHERE} THEN '' ELSE u.name END, ''), u.email))`)
     .select(memberColumns(db));
   return rows.map(toMember);
 }

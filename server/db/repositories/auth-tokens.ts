@@ -78,6 +78,11 @@ export async function revokeFamily(db: Q, familyId: string): Promise<number> {
   return db('refresh_tokens').where({ family_id: familyId }).whereNull('revoked_at').update({ revoked_at: db.fn.now() });
 }
 
+/** Ends this person's sessions in one organisation (a deactivation there leaves their others alone). */
+export async function revokeAllForMembership(db: Q, userId: string, orgId: string): Promise<number> {
+  return db('refresh_tokens').where({ user_id: userId, organisation_id: orgId }).whereNull('revoked_at').update({ revoked_at: db.fn.now() });
+}
+
 export async function revokeAllForUser(db: Q, userId: string): Promise<number> {
   return db('refresh_tokens').where({ user_id: userId }).whereNull('revoked_at').update({ revoked_at: db.fn.now() });
 }

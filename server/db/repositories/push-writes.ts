@@ -8,7 +8,7 @@ import type { Survey } from '@shared/schemas/survey';
 import type { PushStatus, SurveyStatus } from '@shared/schemas/sync';
 import type { FieldRevisions } from '@shared/sync/merge';
 import { runNamed } from '../knex';
-import { json, MEMBER_ROLE_SQL, type MemberCheck, type Q, currentFormat } from './survey-sql';
+import { json, MEMBER_ROLE_SQL, memberParams, type MemberCheck, type Q, currentFormat } from './survey-sql';
 import { revisionRow, type RevisionRow, type SurveyColumns } from './surveys';
 
 export interface SurveyState {
@@ -60,7 +60,7 @@ export interface RunStart {
  */
 export async function lockForRun(
   trx: Q,
-  orgId: string,
+  caller: { orgId: string; userId: string },
   id: string,
   changes: { id: string; deviceId: string; seq: number }[],
   member?: MemberCheck,
@@ -74,25 +74,25 @@ export async function lockForRun(
          SELECT id, organisation_id, doc, revision, field_revisions, status, vessel_id
          FROM surveys WHERE id = ? AND organisation_id = ? ${opts.lock ? 'FOR UPDATE' : ''}
        )
-       SELECT (SELECT role FROM memberships WHERE user_id = ? AND organisation_id = ? AND status = 'active') AS member_role,
+       SELECT ${MEMBER_ROLE_SQL} AS member_role,
               (SELECT row_to_json(s) FROM s) AS survey,
               (SELECT json_agg(json_build_object('device_id', pc.device_id, 'seq', pc.seq, 'change_id', pc.change_id,
-                        'organisation_id', pc.organisation_id, 'status', pc.status, 'revision', pc.revision,
+                        'organisation_id', pc.organisation_id, 'user_id', pc.user_id, 'status', pc.status, 'revision', pc.revision,
                         'reason', pc.reason, 'conflict_ids', pc.conflict_ids))
-                 -- Two index look-ups (by device and sequence, and by change id), never a scan of the history.
-                 FROM (SELECT pc.device_id, pc.seq, pc.change_id, pc.organisation_id, pc.status, pc.revision, pc.reason, pc.conflict_ids
+                 -- Two index look-ups (by owner, device and sequence, and by change id), never a scan of the history.
+                 FROM (SELECT pc.device_id, pc.seq, pc.change_id, pc.organisation_id, pc.user_id, pc.status, pc.revision, pc.reason, pc.conflict_ids
                          FROM processed_changes pc JOIN unnest(?::uuid[], ?::int[]) AS k(device_id, seq)
-                           ON pc.device_id = k.device_id AND pc.seq = k.seq
+                           ON pc.user_id = ?::uuid AND pc.device_id = k.device_id AND pc.seq = k.seq
                        UNION
-                       SELECT pc.device_id, pc.seq, pc.change_id, pc.organisation_id, pc.status, pc.revision, pc.reason, pc.conflict_ids
+                       SELECT pc.device_id, pc.seq, pc.change_id, pc.organisation_id, pc.user_id, pc.status, pc.revision, pc.reason, pc.conflict_ids
                          FROM processed_changes pc WHERE pc.change_id = ANY(?::uuid[])) AS pc) AS seen`,
       [
         id,
-        orgId,
-        member?.userId ?? null,
-        member?.orgId ?? null,
+        caller.orgId,
+        ...memberParams(member),
         changes.map((c) => c.deviceId),
         changes.map((c) => c.seq),
+        caller.userId,
         changes.map((c) => c.id),
       ],
   );
@@ -100,12 +100,14 @@ export async function lockForRun(
   return {
     memberRole: member ? row.member_role : null,
     survey: row.survey ? toState(row.survey) : undefined,
-    seen: processedOf(changes, row.seen ?? []),
+    seen: processedOf(caller.userId, changes, row.seen ?? []),
   };
 }
 
 export interface ProcessedChange {
   orgId: string;
+  /** Who pushed it: a change id of someone else's is not a repeat of the caller's. */
+  userId: string;
   status: Exclude<PushStatus, 'duplicate'>;
   revision: number | null;
   reason: string | null;
@@ -117,20 +119,22 @@ interface ProcessedJsonRow {
   seq: number;
   change_id: string;
   organisation_id: string;
+  user_id: string;
   status: Exclude<PushStatus, 'duplicate'>;
   revision: number | null;
   reason: string | null;
   conflict_ids: string[] | null;
 }
 
-/** Which of `changes` the recorded rows cover (matched by id, or by device and sequence number). */
-function processedOf(changes: { id: string; deviceId: string; seq: number }[], rows: ProcessedJsonRow[]): Map<string, ProcessedChange> {
+/** Which of `changes` the recorded rows cover (matched by id, or by the caller's device and sequence number). */
+function processedOf(userId: string, changes: { id: string; deviceId: string; seq: number }[], rows: ProcessedJsonRow[]): Map<string, ProcessedChange> {
   const out = new Map<string, ProcessedChange>();
   for (const c of changes) {
-    const row = rows.find((r) => r.change_id === c.id || (r.device_id === c.deviceId && Number(r.seq) === c.seq));
+    const row = rows.find((r) => r.change_id === c.id || (r.user_id === userId && r.device_id === c.deviceId && Number(r.seq) === c.seq));
     if (row) {
       out.set(c.id, {
         orgId: row.organisation_id,
+        userId: row.user_id,
         status: row.status,
         revision: row.revision,
         reason: row.reason,
@@ -173,6 +177,12 @@ export interface RunWrites {
   processed: ProcessedRow[];
   survey?: { id: string; columns: SurveyColumns; docJson?: string };
   onlyAtRevision?: number;
+  /**
+   * With `onlyAtRevision`: the review status the run was planned with. A status move does not change
+   * the revision, and a run planned from a remembered state must not go ahead after one made by
+   * another request or instance.
+   */
+  onlyAtStatus?: SurveyStatus;
   /** With `onlyAtRevision`: the organisation the survey must belong to. */
   orgId?: string;
   /** With `onlyAtRevision`: write only while this caller is an active member with one of these roles. */
@@ -188,9 +198,11 @@ function runWritesSql(guarded: boolean): string {
   const when = guarded ? ' AND EXISTS (SELECT 1 FROM g)' : '';
   return `WITH g AS (
          SELECT id FROM surveys
-          WHERE id = ? AND organisation_id = ? AND revision = ?
+          WHERE id = ? AND organisation_id = ? AND revision = ? AND (?::text IS NULL OR status = ?::text)
             AND (?::uuid IS NULL OR EXISTS (SELECT 1 FROM memberships m WHERE m.user_id = ? AND m.organisation_id = ?
-                                              AND m.status = 'active' AND m.role = ANY(?::text[])))
+                                              AND m.status = 'active' AND m.role = ANY(?::text[])
+                                              AND NOT EXISTS (SELECT 1 FROM refresh_tokens t
+                                                               WHERE t.family_id = ?::uuid AND t.revoked_at IS NOT NULL)))
           FOR UPDATE
        ),
        r AS (
@@ -223,10 +235,13 @@ function runWritesParams(w: RunWrites, guarded: boolean): Knex.RawBinding[] {
     guarded ? surveyId : null,
     guarded ? (w.orgId ?? null) : null,
     w.onlyAtRevision ?? null,
+    w.onlyAtStatus ?? null,
+    w.onlyAtStatus ?? null,
     w.member?.userId ?? null,
     w.member?.userId ?? null,
     w.member?.orgId ?? null,
     w.member ? [...w.member.roles] : null,
+    w.member?.sessionId ?? null,
     JSON.stringify(w.revisions.map((r) => ({ ...revisionRow(r), changes: r.changes }))),
     c ? (w.survey?.docJson ?? json(c.doc)) : null,
     c?.revision ?? null,
@@ -238,8 +253,7 @@ function runWritesParams(w: RunWrites, guarded: boolean): Knex.RawBinding[] {
     w.survey?.id ?? null,
     Boolean(w.survey),
     JSON.stringify(w.processed.map((p) => ({ ...processedRow(p), conflict_ids: p.conflictIds }))),
-    w.member?.userId ?? null,
-    w.member?.orgId ?? null,
+    ...memberParams(w.member),
   ];
 }
 

@@ -238,17 +238,25 @@ export async function lastSubmitter(db: Q, surveyId: string): Promise<string | n
 }
 
 /**
- * Whether `userId` has had a hand in the survey at any revision: made it, sent it for review, or
- * wrote any revision of it. Such a person may not accept it (the own-work rule).
+ * Whether `userId` has had a hand in the survey at any revision: made it, sent it for review (at the
+ * desk or queued on a device), wrote any revision of it, or pushed any change to it that was not
+ * refused (an edit kept as a conflict included). Such a person may not accept it (the own-work rule).
  */
 export async function hasWorkedOn(db: Q, surveyId: string, userId: string): Promise<boolean> {
   const { rows } = await db.raw(
     `SELECT EXISTS (SELECT 1 FROM surveys WHERE id = ? AND created_by = ?)
          OR EXISTS (SELECT 1 FROM status_events WHERE survey_id = ? AND actor_id = ? AND to_status = 'submitted')
-         OR EXISTS (SELECT 1 FROM survey_revisions WHERE survey_id = ? AND user_id = ?) AS worked`,
-    [surveyId, userId, surveyId, userId, surveyId, userId],
+         OR EXISTS (SELECT 1 FROM survey_revisions WHERE survey_id = ? AND user_id = ?)
+         OR EXISTS (SELECT 1 FROM processed_changes WHERE survey_id = ? AND user_id = ? AND status <> 'rejected') AS worked`,
+    [surveyId, userId, surveyId, userId, surveyId, userId, surveyId, userId],
   );
   return Boolean((rows as { worked: boolean }[])[0]?.worked);
+}
+
+/** The document as it was at `revision`, kept when a change sent the survey back for review. */
+export async function findSnapshot(db: Q, surveyId: string, revision: number): Promise<unknown | undefined> {
+  const row = await db('review_snapshots').where({ survey_id: surveyId, revision }).first('doc');
+  return row?.doc;
 }
 
 /** The latest move to "accepted" or "under review", for the brief's "reviewed by". */

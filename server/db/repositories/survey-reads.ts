@@ -3,7 +3,7 @@ import type { Survey } from '@shared/schemas/survey';
 import type { Conflict, ListSurveysQuery, StoredResults, SurveyStatus, SurveySummary } from '@shared/schemas/sync';
 import type { Role } from '@shared/api/roles';
 import { runNamed } from '../knex';
-import { iso, isoSql, MEMBER_ROLE_SQL, type MemberCheck, type Q, currentFormat } from './survey-sql';
+import { iso, isoSql, MEMBER_ROLE_SQL, memberParams, type MemberCheck, type Q, currentFormat } from './survey-sql';
 import { toConflict, type ConflictRow } from './conflicts';
 
 const SUMMARY_COLUMNS = [
@@ -100,7 +100,7 @@ export async function listSurveysJson(
                         WHERE ${where}
                         ORDER BY ${order}
                         LIMIT ? OFFSET ?) AS p) AS items_json`,
-      [member?.userId ?? null, member?.orgId ?? null, ...filter, ...filter, q.pageSize, (q.page - 1) * q.pageSize],
+      [...memberParams(member), ...filter, ...filter, q.pageSize, (q.page - 1) * q.pageSize],
   );
   const row = rows[0] as { member_role: Role | null; total: number; items_json: string };
   return { itemsJson: row.items_json, total: Number(row.total), memberRole: member ? row.member_role : null };
@@ -174,7 +174,7 @@ export async function readSurveyRaw(
             ORDER BY revision DESC
             LIMIT 1
          ) AS r ON true`,
-      [member?.userId ?? null, member?.orgId ?? null, known.docRevision ?? -1, id, orgId, known.resultsRevision ?? -1, engineVersion],
+      [...memberParams(member), known.docRevision ?? -1, id, orgId, known.resultsRevision ?? -1, engineVersion],
   );
   const row = rows[0] as (SummaryRow & Record<string, unknown>) | undefined;
   const out: RawSurveyRead = { memberRole: member ? ((row?.member_role as Role | null) ?? null) : null, conflicts: [] };

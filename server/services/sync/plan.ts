@@ -12,6 +12,8 @@ import type { ConflictTarget, PushResult, SurveyChange, SurveyStatus } from '@sh
 import { deepEqual } from '@shared/sync/apply';
 import { mergeChange, type ConflictDraft, type FieldRevisions } from '@shared/sync/merge';
 import { formatIssueLines } from '@shared/api/format-issues';
+import type { Role } from '@shared/api/roles';
+import { checkTransition } from '@shared/review/status';
 import type { ProcessedChange, ProcessedRow } from '../../db/repositories/push-writes';
 import type { RevisionRow } from '../../db/repositories/surveys';
 import type { ConflictInsert } from '../../db/repositories/conflicts';
@@ -51,6 +53,16 @@ export interface PlanInput {
   conflicts?: ReadonlyMap<string, ConflictAtStart>;
   /** Ids for new conflicts. */
   newId: () => string;
+  /** The caller's role, for a `submit` change (the rules of shared/review/status.ts). */
+  role?: Role;
+}
+
+/** A status move a `submit` change makes (written after the run's edits, in its transaction). */
+export interface StatusMove {
+  changeId: string;
+  from: SurveyStatus;
+  to: SurveyStatus;
+  revision: number;
 }
 
 /** A conflict to store; `keptBy` undefined: the author of `keptRevision` is to be looked up. */
@@ -76,6 +88,8 @@ export interface RunPlan {
   final?: EndState;
   /** Anything for the results scheduler: a new revision or a new conflict. */
   touched: boolean;
+  /** Status moves made by `submit` changes, in order. */
+  statusMoves: StatusMove[];
 }
 
 export type PlanOutcome = RunPlan | { kind: 'needs-lock' } | { kind: 'check-each' };
@@ -116,10 +130,12 @@ const answerOf = (c: SurveyChange) => ({ changeId: c.id, deviceId: c.deviceId, s
 /** The run so far: the survey as the changes taken have left it, and everything to answer and write. */
 class RunPlanner {
   private state?: EndState & { dirty: boolean };
-  private readonly plan: RunPlan = { kind: 'planned', results: [], processed: [], revisions: [], conflicts: [], resolutions: [], touched: false };
+  private readonly plan: RunPlan = { kind: 'planned', results: [], processed: [], revisions: [], conflicts: [], resolutions: [], touched: false, statusMoves: [] };
   private readonly thisRun = new Map<string, ProcessedRow>();
+  private status: SurveyStatus;
 
   constructor(private readonly input: PlanInput) {
+    this.status = input.survey?.status ?? 'draft';
     if (input.mode === 'optimistic' && !input.survey) throw new Stop('needs-lock');
     const s = input.survey;
     if (s) this.state = { doc: s.doc, revision: s.revision, revs: s.revs, dirty: false };
@@ -136,6 +152,7 @@ class RunPlanner {
     if (this.input.mode === 'optimistic' && (op.kind === 'create' || op.kind === 'resolve-conflict')) throw new Stop('needs-lock');
     if (op.kind === 'create') return this.create(change, op.survey);
     if (!this.state) return this.reject(change, 'This survey is not on the server for your organisation.');
+    if (op.kind === 'submit') return this.submit(change, this.state);
     if (op.kind === 'resolve-conflict') {
       const refused = this.resolutionRefused(op.conflictId, op.target);
       if (refused) return this.reject(change, refused);
@@ -161,7 +178,8 @@ class RunPlanner {
   }
 
   private answerRepeat(change: SurveyChange, earlier: ProcessedChange): void {
-    if (earlier.orgId !== this.input.orgId) {
+    // Someone else's change id (another firm's, or a colleague's): never a repeat of this caller's change.
+    if (earlier.orgId !== this.input.orgId || earlier.userId !== this.input.userId) {
       this.plan.results.push({ ...answerOf(change), status: 'rejected', reason: 'This change id is already in use.' });
       return;
     }
@@ -213,6 +231,24 @@ class RunPlanner {
     }
     if (!deepEqual(c.target, target)) return 'The choice does not match what the conflict is about.';
     return null;
+  }
+
+  /**
+   * "Send for review" queued on a device. A push sends it in a run of its own (push.ts `runsOf`),
+   * so the status it starts from is the one the locked read found, after the edits before it.
+   */
+  private submit(change: SurveyChange, state: EndState): void {
+    if (this.input.mode === 'optimistic') throw new Stop('needs-lock');
+    const from = this.status;
+    if (from !== 'submitted') {
+      const check = checkTransition({ from, to: 'submitted', role: this.input.role ?? 'surveyor', isSubmitter: false });
+      if (!check.ok) return this.reject(change, check.message);
+      this.plan.statusMoves.push({ changeId: change.id, from, to: 'submitted', revision: state.revision });
+      this.status = 'submitted';
+    }
+    // Already sent (a second tap while offline): nothing more to do, and nothing refused.
+    this.record(change, { status: 'applied', revision: state.revision, reason: null, conflictIds: [] });
+    this.plan.results.push({ ...answerOf(change), status: 'applied', revision: state.revision });
   }
 
   private merge(change: SurveyChange, state: EndState): void {

@@ -1,6 +1,6 @@
 /**
  * Push: applies each device change exactly once. Changes are taken in order, in runs of consecutive
- * changes to the same survey; every change is recorded in `processed_changes` keyed by (device, seq),
+ * changes to the same survey; every change is recorded in `processed_changes` keyed by (owner, device, seq),
  * so a retried, duplicated or concurrent push finds the change already recorded and answers
  * `duplicate`. Each run climbs a ladder, each step writing nothing when it gives up: from the survey
  * as this server last wrote it (SurveyStateCache), else from a fresh read, else locked (run.ts). A
@@ -20,6 +20,7 @@ import type { ResultsScheduler } from '../results-scheduler';
 import { CheckEachChange, runFromKnown, runFromRead, runLocked, type ConfirmMembership, type RunAttempt } from './run';
 import { NeedsLock, type RunOutcome } from './writes';
 import type { KnownSurveyState, SurveyStateCache } from './state-cache';
+import type { DeviceOwners } from './device-owners';
 
 /** PostgreSQL errors worth retrying the whole run for: serialization failure, deadlock, a racing insert. */
 const RETRYABLE = new Set(['40001', '40P01', '23505']);
@@ -39,15 +40,25 @@ export interface PushOptions {
   roles?: readonly Role[];
   /** Surveys as this server last wrote them. */
   known?: SurveyStateCache;
+  /** Device owners: a push with another person's device id is refused before anything runs. */
+  devices?: DeviceOwners;
 }
 
-/** Splits changes into runs of consecutive changes to the same survey, keeping their order. */
+/**
+ * Splits changes into runs of consecutive changes to the same survey, keeping their order. A
+ * "Send for review" (`submit`) is a run of its own: it moves the status the edits before it left
+ * (the database moves a reviewed survey to "changed since review" as they are written), and edits
+ * after it start again from the status it set.
+ */
 export function runsOf(changes: SurveyChange[]): SurveyChange[][] {
   const runs: SurveyChange[][] = [];
+  let alone = false;
   for (const c of changes) {
     const last = runs[runs.length - 1];
-    if (last && last[0].surveyId === c.surveyId) last.push(c);
+    const submit = c.op.kind === 'submit';
+    if (last && !alone && !submit && last[0].surveyId === c.surveyId) last.push(c);
     else runs.push([c]);
+    alone = submit;
   }
   return runs;
 }
@@ -55,6 +66,7 @@ export function runsOf(changes: SurveyChange[]): SurveyChange[][] {
 export async function push(db: Db, auth: AuthContext, changes: SurveyChange[], opts: PushOptions = {}): Promise<PushOutcome> {
   const results: PushResult[] = [];
   const conflictIds: string[] = [];
+  if (changes.length) await opts.devices?.check(auth, changes.map((c) => c.deviceId));
   let confirm = opts.confirm;
   for (const run of runsOf(changes)) {
     const out = await pushRun(db, { auth, run, checkEach: false, confirm }, opts);

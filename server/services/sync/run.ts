@@ -46,7 +46,7 @@ const planOf = (a: RunAttempt, rest: Pick<PlanInput, 'survey' | 'seen' | 'mode'>
 export async function runFromKnown(db: Db, a: RunAttempt, known: KnownSurveyState, roles?: readonly Role[]): Promise<RunOutcome> {
   const plan = planOf(a, { survey: known, seen: new Map(), mode: 'optimistic' });
   const { auth, confirm } = a;
-  const member = confirm && roles ? { userId: auth.userId, orgId: auth.orgId, roles } : undefined;
+  const member = confirm && roles ? { userId: auth.userId, orgId: auth.orgId, sessionId: auth.sessionId, roles } : undefined;
   if (confirm && !member && (plan.processed.length || plan.revisions.length)) throw new NeedsLock();
   const { memberRole, ...out } = await writeOptimistic(db, auth, a.run[0].surveyId, known, plan, member);
   if (member && memberRole !== undefined) confirm?.(memberRole);
@@ -56,7 +56,7 @@ export async function runFromKnown(db: Db, a: RunAttempt, known: KnownSurveyStat
 /** From a fresh read (with `confirm`, the same query checks the caller's membership), without a transaction. */
 export async function runFromRead(db: Db, a: RunAttempt): Promise<RunOutcome> {
   const surveyId = a.run[0].surveyId;
-  const start = await lockForRun(db, a.auth.orgId, surveyId, a.run, a.confirm ? a.auth : undefined, { lock: false });
+  const start = await lockForRun(db, a.auth, surveyId, a.run, a.confirm ? a.auth : undefined, { lock: false });
   a.confirm?.(start.memberRole);
   if (!start.survey) throw new NeedsLock();
   const plan = planOf(a, { survey: start.survey, seen: start.seen, mode: 'optimistic' });
@@ -67,9 +67,10 @@ export async function runFromRead(db: Db, a: RunAttempt): Promise<RunOutcome> {
 export async function runLocked(db: Db, a: RunAttempt): Promise<RunOutcome> {
   return db.transaction(async (trx) => {
     const surveyId = a.run[0].surveyId;
-    const start = await lockForRun(trx, a.auth.orgId, surveyId, a.run, a.confirm ? a.auth : undefined, { lock: true });
+    const start = await lockForRun(trx, a.auth, surveyId, a.run, a.confirm ? a.auth : undefined, { lock: true });
     a.confirm?.(start.memberRole);
-    const plan = planOf(a, { survey: start.survey, seen: start.seen, mode: 'locked', ...(await lockedInputs(trx, a, start.survey)) });
+    const role = start.memberRole ?? a.auth.role;
+    const plan = planOf(a, { survey: start.survey, seen: start.seen, mode: 'locked', role, ...(await lockedInputs(trx, a, start.survey)) });
     return writeLocked(trx, a.auth, surveyId, start.survey, plan);
   });
 }

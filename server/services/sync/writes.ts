@@ -14,6 +14,7 @@ import type { AuthContext } from '../../http/auth-context';
 import { insertSurvey, revisionAuthor, type SurveyColumns } from '../../db/repositories/surveys';
 import { insertRunWrites } from '../../db/repositories/push-writes';
 import { insertConflict, markConflictResolved } from '../../db/repositories/conflicts';
+import { insertStatusEvent, setSurveyStatus } from '../../db/repositories/review';
 import type { MemberCheck } from '../../db/repositories/survey-sql';
 import { columnsOf } from '../survey-columns';
 import type { EndState, RunPlan, StartSurvey } from './plan';
@@ -65,7 +66,7 @@ function stateAfter(orgId: string, before: StartSurvey, final: EndState, written
 }
 
 /**
- * Writes an optimistic plan in one statement, only while the survey is still at `start.revision`
+ * Writes an optimistic plan in one statement, only while the survey is still at `start.revision` and `start.status`
  * (and, with `member`, while the caller is an active member with one of its roles).
  * `memberRole`: what that statement found, when it ran with `member`.
  */
@@ -85,6 +86,7 @@ export async function writeOptimistic(
     processed: plan.processed,
     survey: written ? { id: surveyId, ...written } : undefined,
     onlyAtRevision: start.revision,
+    onlyAtStatus: start.status,
     orgId: caller.orgId,
     member,
   });
@@ -115,6 +117,11 @@ export async function writeLocked(
   const out = await insertRunWrites(trx, { revisions: plan.revisions, processed: plan.processed, survey: written && { id: surveyId, ...written } });
   // Another transaction recorded one of these changes since our look-up: redo the run to answer 'duplicate'.
   if (out.inserted < plan.processed.length) throw Object.assign(new Error('change recorded concurrently'), { code: '23505' });
+  for (const m of plan.statusMoves) {
+    // The survey row is locked: the status the plan started from is still the stored one.
+    await setSurveyStatus(trx, surveyId, m.from, m.to);
+    await insertStatusEvent(trx, { surveyId, orgId: caller.orgId, from: m.from, to: m.to, note: null, actorId: caller.userId, revision: m.revision });
+  }
   const state = start && written && plan.final ? stateAfter(caller.orgId, start, plan.final, written) : undefined;
   return { ...answered(plan), written: state };
 }

@@ -38,6 +38,7 @@ export function Field({
   children,
   id,
   extra,
+  wide = false,
 }: {
   label: string;
   unit?: string;
@@ -47,9 +48,14 @@ export function Field({
   id: string;
   /** Shown under the field whatever its state (the figure's "assumed" / "estimated" mark). */
   extra?: ReactNode;
+  /**
+   * Takes a whole row of a grid on a phone: a select cannot wrap its option, so half a 390 px row
+   * would cut "No. 3 double-bottom fuel tank (P)" short.
+   */
+  wide?: boolean;
 }) {
   return (
-    <div className="min-w-0">
+    <div className={`min-w-0 ${wide ? 'max-sm:col-span-full' : ''}`}>
       <label htmlFor={id} className="block text-sm font-bold">
         {label}
         {unit ? <span className="font-normal text-ink-soft"> ({unit})</span> : null}
@@ -170,7 +176,7 @@ export function SelectInput<T extends FieldValues>({
   const id = useId();
   const err = errorAt(errors, name)?.message;
   return (
-    <Field label={label} error={err} hint={hint} id={id}>
+    <Field label={label} error={err} hint={hint} id={id} wide>
       <select id={id} className={inputCls} aria-invalid={err ? true : undefined} aria-describedby={describedBy(id, hint, err)} {...register(name)}>
         {options.map((o) => (
           <option key={o.value} value={o.value}>

@@ -5,6 +5,7 @@ import { ROLE_LABELS } from '@shared/api/role-labels';
 import { paths } from '@client/config/paths';
 import { changeUnitSystem, useSession } from '@client/lib/session';
 import { SignOutDialog } from './sign-out-dialog';
+import { useDevMailbox } from '@client/lib/dev-mailbox';
 
 const headerButton = 'inline-flex min-h-touch items-center rounded-lg px-3 font-bold hover:bg-hull-soft';
 
@@ -46,9 +47,12 @@ export function UserMenu() {
   const location = useLocation();
   const [signingOut, setSigningOut] = useState(false);
   const [open, setOpen] = useState(false);
+  // development servers only: the caught e-mail (an admin's firm's, an engineer's own briefs)
+  const devMailbox = useDevMailbox(user?.role === 'admin' || user?.role === 'engineer');
 
   if (!user) {
-    if (location.pathname === paths.signIn) return null;
+    // the sign-in page and the landing page (which has its own big button) need no second sign-in action
+    if (location.pathname === paths.signIn || location.pathname === paths.home) return null;
     return (
       <Link to={paths.signIn} className={`${headerButton} border-2 border-paper/60`}>
         Sign in
@@ -59,6 +63,11 @@ export function UserMenu() {
   const membersLink = user.role === 'admin' && (
     <Link to={paths.members} className={headerButton} onClick={() => setOpen(false)}>
       Members
+    </Link>
+  );
+  const mailLink = devMailbox && (
+    <Link to={paths.devMail} className={headerButton} onClick={() => setOpen(false)}>
+      Mailbox
     </Link>
   );
   const reviewLink = (user.role === 'engineer' || user.role === 'admin') && (
@@ -84,6 +93,7 @@ export function UserMenu() {
       <div className="hidden items-center gap-2 md:flex">
         {reviewLink}
         {membersLink}
+        {mailLink}
         <Who user={user} />
         <UnitToggle user={user} />
         {signOutButton}
@@ -94,7 +104,7 @@ export function UserMenu() {
           aria-expanded={open}
           aria-controls="account-panel"
           onClick={() => setOpen((o) => !o)}
-          className={`${headerButton} max-w-[10rem] border-2 border-paper/60`}
+          className={`${headerButton} max-w-[9rem] border-2 border-paper/60`}
         >
           <span className="truncate">{user.name || user.email}</span>
           <span aria-hidden="true" className="ml-1">
@@ -108,6 +118,7 @@ export function UserMenu() {
             <div className="flex flex-wrap gap-2">
               {reviewLink}
               {membersLink}
+              {mailLink}
               {signOutButton}
             </div>
           </div>

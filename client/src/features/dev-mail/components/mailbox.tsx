@@ -6,6 +6,8 @@ import { useState, type ReactNode } from 'react';
 import { ApiError } from '@client/lib/api-client';
 import { Button } from '@client/components/ui/button';
 import { useMail, useMailList } from '../api/get-mail';
+import { formatUtc } from '@shared/review/time-words';
+import { EmailText } from '@client/components/ui/email-text';
 
 /** Plain text with its addresses made clickable. */
 function Linked({ text }: { text: string }) {
@@ -33,7 +35,7 @@ function Message({ id }: { id: string }) {
     <article className="rounded-xl border border-line bg-card p-4" aria-label="Message">
       <h2 className="text-xl">{m.subject}</h2>
       <p className="text-sm text-ink-soft">
-        To {m.to.join(', ')} · from {m.from} · {new Date(m.receivedAt).toLocaleString()}
+        To {m.to.join(', ')} · from {m.from} · {formatUtc(m.receivedAt)}
       </p>
       <div className="mt-2 flex gap-2" role="group" aria-label="Show as">
         {(['text', 'html'] as const).map((v) => (
@@ -62,7 +64,7 @@ export function Mailbox() {
       <div className="flex flex-wrap items-end justify-between gap-2">
         <div>
           <h1 className="text-3xl">Development mailbox</h1>
-          <p className="text-ink-soft">E-mails the local mail catcher received for people of your organisation. Not available in production.</p>
+          <p className="text-ink-soft">E-mails the local mail catcher received from your firm: all of them for an admin, the master’s briefs you sent for an engineer. Not available in production.</p>
         </div>
         <Button tone="secondary" onClick={() => void list.refetch()}>
           Check again
@@ -83,8 +85,8 @@ export function Mailbox() {
                   className={`block min-h-touch w-full rounded-lg border-2 p-2 text-left ${selected === m.id ? 'border-hull bg-sea-soft' : 'border-line bg-card'}`}
                 >
                   <span className="block font-bold">{m.subject}</span>
-                  <span className="block break-all text-sm text-ink-soft">
-                    {m.to.join(', ')} · {new Date(m.receivedAt).toLocaleString()}
+                  <span className="block text-sm text-ink-soft">
+                    <EmailText email={m.to.join(', ')} /> · {formatUtc(m.receivedAt)}
                   </span>
                 </button>
               </li>

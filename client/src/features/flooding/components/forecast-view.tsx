@@ -7,12 +7,82 @@ import { lazy, Suspense, useEffect, useRef, useState } from 'react';
 import type { FloodForecast, Governs } from '@shared/engine';
 import type { Survey } from '@shared/schemas/survey';
 import type { UnitSystem } from '@shared/units/units';
-import { FORECAST_CAUTION, durationWords, hmm } from '@shared/api/cautions';
-import { fmt, percent } from '@client/lib/unit-system';
+import { FORECAST_CAUTION, STABILITY_CAUTION, durationWords, hmm } from '@shared/api/cautions';
+import { fmt, num, percent, unitLabel } from '@client/lib/unit-system';
+import { downfloodingSentences, forecastAttitudeWords } from '@shared/review/forecast-words';
 
 const ForecastChart = lazy(() => import('./forecast-chart'));
 
 const GOVERNS: Record<Governs, string> = { rating: 'rated capacity', stiffeners: 'stiffeners', plating: 'plating', shores: 'shores' };
+
+const heelWords = (deg: number) => `${Math.abs(deg).toFixed(1)}° ${deg > 0.05 ? 'stbd' : deg < -0.05 ? 'port' : ''}`.trim();
+
+/**
+ * Which attitude the levels and loads use, and how it goes: draft, trim, heel and GM at the
+ * readings, at every plan step's stop and at the end; then when each downflooding point goes under.
+ */
+function ForecastAttitude({ forecast, survey, system }: { forecast: FloodForecast; survey: Survey; system: UnitSystem }) {
+  const { attitude } = forecast;
+  const follows = attitude.mode === 'follows-response';
+  const moments = new Set<number>([0, forecast.times.length - 1]);
+  for (const st of forecast.plan) if (st.problems.length === 0) moments.add(forecast.times.findIndex((t) => t >= st.stopS - 1e-6));
+  const rows = [...moments].filter((k) => k >= 0 && attitude.series[k]).sort((a, b) => a - b);
+  const sentences = downfloodingSentences(forecast, survey.vessel.shipTimeOffsetMin);
+  const goesUnder = forecast.downflooding.some((d) => d.underAtS !== null);
+  return (
+    <section aria-labelledby="attitude-h" className={`space-y-2 rounded-lg border-2 p-3 ${follows ? 'border-hull' : 'border-line'} bg-card`} data-testid="forecast-attitude">
+      <h3 id="attitude-h" className="text-lg">
+        {forecastAttitudeWords(forecast)}
+      </h3>
+      <p className="text-sm" data-testid="forecast-attitude-note">
+        {attitude.note}
+      </p>
+      {follows && rows.length > 0 && (
+        <div className="overflow-x-auto" tabIndex={0} role="region" aria-label="Attitude over the forecast (scrolls sideways)">
+          <table className="w-full text-left text-sm tabular-nums" data-testid="forecast-attitude-table">
+            <thead>
+              <tr className="text-xs uppercase text-ink-soft">
+                <th scope="col">After (h:mm)</th>
+                <th scope="col">Mean draft ({unitLabel('length', system)})</th>
+                <th scope="col">Trim ({unitLabel('length', system)})</th>
+                <th scope="col">Heel</th>
+                <th scope="col">GM fluid ({unitLabel('length', system)})</th>
+              </tr>
+            </thead>
+            <tbody>
+              {rows.map((k) => {
+                const a = attitude.series[k]!;
+                const gm = attitude.gmFluidM[k];
+                return (
+                  <tr key={k} className="border-t border-line">
+                    <th scope="row">{k === 0 ? 'readings' : hmm(forecast.times[k])}</th>
+                    <td>{num(a.meanDraftM, 'length', system, 4)}</td>
+                    <td>
+                      {num(Math.abs(a.trimM), 'length', system, 2)} {a.trimM > 0.005 ? 'stern' : a.trimM < -0.005 ? 'head' : ''}
+                    </td>
+                    <td>{heelWords(a.heelDeg)}</td>
+                    <td className={gm !== null && gm <= 0 ? 'font-bold text-danger' : ''}>{gm === null ? '—' : num(gm, 'length', system, 3)}</td>
+                  </tr>
+                );
+              })}
+            </tbody>
+          </table>
+        </div>
+      )}
+      {sentences.length > 0 && (
+        <ul className={`space-y-1 text-sm ${goesUnder ? 'font-bold' : ''}`} aria-label="Downflooding points" data-testid="forecast-downflooding">
+          {sentences.map((t) => (
+            <li key={t} className={goesUnder ? 'text-danger' : ''}>
+              {goesUnder && <span aria-hidden="true">▲ </span>}
+              {t}
+            </li>
+          ))}
+        </ul>
+      )}
+      {follows && <p className="rounded-md border border-caution bg-caution-soft p-2 text-xs">{STABILITY_CAUTION}</p>}
+    </section>
+  );
+}
 
 /** Ship's time of a moment `s` seconds after the readings (UTC, as the readings are stored). */
 export function shipTime(readingsTime: string, s: number): string {
@@ -43,8 +113,9 @@ export function ForecastView({ forecast, survey, system, now = Date.now() }: { f
     <div className="space-y-4" data-testid="forecast">
       <p className="rounded-lg border-2 border-caution bg-caution-soft p-3 text-sm" data-testid="forecast-caution">
         <b>{FORECAST_CAUTION}</b> It rests on readings taken {shipTime(forecast.latestReadingTime, 0)}
-        {age > 0 ? `, ${durationWords(age)} ago` : ''}. {forecast.attitude.note}
+        {age > 0 ? `, ${durationWords(age)} ago` : ''}.
       </p>
+      <ForecastAttitude forecast={forecast} survey={survey} system={system} />
       <div ref={ref} className="min-w-0 overflow-hidden rounded-lg border-2 border-line bg-card p-2">
         <Suspense fallback={<p className="p-4 text-ink-soft">Drawing the timeline…</p>}>
           <ForecastChart forecast={forecast} width={w - 16} />

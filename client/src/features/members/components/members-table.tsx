@@ -12,6 +12,8 @@ import { ROLE_LABELS, type Member, type MembershipStatus } from '@shared/api/aut
 import { ROLES, type Role } from '@shared/api/roles';
 import { Button } from '@client/components/ui/button';
 import type { MemberAction } from '../api/update-member';
+import { formatUtc } from '@shared/review/time-words';
+import { EmailText } from '@client/components/ui/email-text';
 
 const STATUS: Record<MembershipStatus, { label: string; className: string }> = {
   active: { label: 'Active', className: 'border-ok bg-ok-soft text-ok' },
@@ -20,7 +22,7 @@ const STATUS: Record<MembershipStatus, { label: string; className: string }> = {
 };
 
 const dateTime = (iso: string | null) =>
-  iso ? new Date(iso).toLocaleString(undefined, { dateStyle: 'medium', timeStyle: 'short' }) : '—';
+  formatUtc(iso);
 
 function StatusChip({ status }: { status: MembershipStatus }) {
   const s = STATUS[status];
@@ -110,7 +112,7 @@ export function MembersTable({
           </span>
         ),
       }),
-      col.accessor('email', { header: 'E-mail', cell: (c) => <span className="break-all">{c.getValue()}</span> }),
+      col.accessor('email', { header: 'E-mail', cell: (c) => <EmailText email={c.getValue()} /> }),
       col.accessor('role', {
         header: 'Role',
         cell: (c) => <RoleSelect member={c.row.original} isSelf={c.row.original.userId === selfId} busy={busyId === c.row.original.userId} onAction={onAction} />,
@@ -174,7 +176,9 @@ export function MembersTable({
                     {m.name || <em className="font-normal text-ink-soft">name not yet chosen</em>}
                     {isSelf && <span className="font-normal text-ink-soft"> (you)</span>}
                   </p>
-                  <p className="break-all text-ink-soft">{m.email}</p>
+                  <p className="text-ink-soft">
+                    <EmailText email={m.email} />
+                  </p>
                 </div>
                 <StatusChip status={m.status} />
               </div>

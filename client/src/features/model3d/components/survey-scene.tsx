@@ -1,20 +1,23 @@
 /**
  * The survey in 3D: compartments as translucent solids, each liquid layer cut at its level plane for
- * the ship's heel and trim, plates coloured by their net pressure, the resultant drawn as an arrow at
- * the centre of pressure, shores as instanced struts, and the outside waterline. A thin view: every
- * number and shape comes from the engine (shared/engine, mesh.ts); this file only draws them.
- * Lazy default export, its own chunk.
+ * the ship's heel and trim, plates coloured by the size of their mean net pressure, the resultant
+ * drawn as an arrow at the centre of pressure, shores as instanced struts, the outside waterline as a
+ * plane, and a scale along the keel. It opens with the whole ship in view ("Fit to view" frames it
+ * again); a tap names the space or plate under the finger. A thin view: every number and shape comes
+ * from the engine (shared/engine, mesh.ts); this file only draws them. Lazy default export, its own chunk.
  */
 import { useEffect, useLayoutEffect, useMemo, useRef, useState } from 'react';
-import { Canvas, useThree, type ThreeEvent } from '@react-three/fiber';
-import { OrbitControls } from '@react-three/drei';
+import { Canvas, useFrame, useThree, type ThreeEvent } from '@react-three/fiber';
+import { Html, OrbitControls } from '@react-three/drei';
 import * as THREE from 'three';
 import type { BoundarySummary, SurveyLevelResults } from '@shared/engine';
 import type { Survey } from '@shared/schemas/survey';
 import type { UnitSystem } from '@shared/units/units';
 import { boundaryPolygons, compartmentSolid, liquidBody, type V3 } from '@shared/engine';
-import { fmt } from '@client/lib/unit-system';
-import { pressureRgb, rgbCss } from './pressure-colour';
+import { DISPLAY_UNITS, UNITS, fromSi } from '@shared/units/units';
+import { fmt, percent } from '@client/lib/unit-system';
+import { LIQUID_COLOUR, pressureRgb, rgbCss } from './pressure-colour';
+import { frameBox, hullBox, scaleStep, toThree, viewDirection, type View } from './framing';
 
 export interface SurveySceneProps {
   survey: Survey;
@@ -23,20 +26,18 @@ export interface SurveySceneProps {
   rows: readonly BoundarySummary[];
   system: UnitSystem;
   selectedId: string | null;
+  /** A tap on a space or plate: selects it here (the view stays). */
   onSelect: (id: string) => void;
+  /** The tapped item's label offers this (the workspace opens its form); none on a read-only view. */
+  onOpen?: (id: string) => void;
 }
 
-type View = 'three-quarter' | 'profile' | 'plan' | 'section';
 const VIEWS: { id: View; label: string }[] = [
-  { id: 'three-quarter', label: 'Oblique' },
+  { id: 'oblique', label: 'Oblique' },
   { id: 'profile', label: 'Profile' },
   { id: 'plan', label: 'Plan' },
   { id: 'section', label: 'Section' },
 ];
-
-/** Ship axes (x fwd, y port, z up) → three.js (y up): (x, z, −y). */
-const toThree = (p: { x: number; y: number; z: number } | V3): THREE.Vector3 =>
-  Array.isArray(p) ? new THREE.Vector3(p[0], p[2], -p[1]) : new THREE.Vector3(p.x, p.z, -p.y);
 
 /** Flat polygons (ship axes) → one triangulated geometry in three.js axes. */
 function polygonsGeometry(polys: V3[][]): THREE.BufferGeometry {
@@ -65,15 +66,14 @@ function polygonsGeometry(polys: V3[][]): THREE.BufferGeometry {
   return g;
 }
 
-const LAYER_COLOUR = { water: '#1f6fa3', oil: '#6b4a12', other: '#5b6670' } as const;
-
 interface Drawn {
   compartments: { id: string; solid: THREE.BufferGeometry; edges: THREE.EdgesGeometry; layers: { id: string; geometry: THREE.BufferGeometry; colour: string }[] }[];
   boundaries: { id: string; geometry: THREE.BufferGeometry; colour: THREE.Color; pressurePa: number }[];
   arrows: { id: string; origin: THREE.Vector3; dir: THREE.Vector3; length: number }[];
   shores: { from: THREE.Vector3; to: THREE.Vector3; radius: number }[];
   maxPressurePa: number;
-  centre: THREE.Vector3;
+  /** The whole ship: the hull's box grown to take in every modelled space. */
+  box: THREE.Box3;
   radius: number;
   waterline: { point: THREE.Vector3; normal: THREE.Vector3 };
 }
@@ -91,16 +91,14 @@ function useDrawn(survey: Survey, results: SurveyLevelResults, rows: readonly Bo
       const solid = polygonsGeometry(compartmentSolid(c.geometry));
       return { id: c.id, solid, edges: new THREE.EdgesGeometry(solid, 20) };
     });
-    // frame the spaces modelled (not the whole hull, which may be mostly empty of compartments)
-    const box = new THREE.Box3();
+    // frame the whole ship, and any space modelled beyond the main dimensions
+    const box = hullBox(vessel);
     for (const c of list) {
       c.solid.computeBoundingBox();
       if (c.solid.boundingBox) box.union(c.solid.boundingBox);
     }
-    if (box.isEmpty()) box.setFromPoints([toThree({ x: 0, y: -vessel.breadthM / 2, z: 0 }), toThree({ x: vessel.lbpM, y: vessel.breadthM / 2, z: vessel.depthM })]);
-    const centre = box.getCenter(new THREE.Vector3());
     const radius = Math.max(box.getSize(new THREE.Vector3()).length() / 2, 1);
-    return { list, centre, radius };
+    return { list, box, radius };
   }, [comps, vessel]);
   const plateGeometry = useMemo(() => new Map(plates.map((b) => [b.id, polygonsGeometry(boundaryPolygons(b.geometry))])), [plates]);
   const liquids = useMemo(() => {
@@ -115,7 +113,7 @@ function useDrawn(survey: Survey, results: SurveyLevelResults, rows: readonly Bo
               const top = l.levelElevationM;
               const geometry = polygonsGeometry(top > below ? liquidBody(c.geometry, up, below, top) : []);
               below = Math.max(below, top);
-              return { id: l.layerId, geometry, colour: LAYER_COLOUR[l.category] };
+              return { id: l.layerId, geometry, colour: LIQUID_COLOUR[l.category] };
             })
           : [];
         return [cr.id, layers] as const;
@@ -126,7 +124,7 @@ function useDrawn(survey: Survey, results: SurveyLevelResults, rows: readonly Bo
   useEffect(() => () => plateGeometry.forEach((g) => g.dispose()), [plateGeometry]);
   useEffect(() => () => liquids.forEach((ls) => ls.forEach((l) => l.geometry.dispose())), [liquids]);
   return useMemo<Drawn>(() => {
-    const { centre, radius } = solids;
+    const { box, radius } = solids;
     const mean = (b: BoundarySummary) => (b.areaM2 > 0 && b.geometryKind !== 'faceted' ? b.forceN / b.areaM2 : 0);
     let maxPressurePa = 1, maxF = 1;
     for (const b of rows) {
@@ -137,7 +135,7 @@ function useDrawn(survey: Survey, results: SurveyLevelResults, rows: readonly Bo
       const geometry = plateGeometry.get(br.id);
       if (!geometry) return [];
       const p = mean(br);
-      return [{ id: br.id, geometry, colour: new THREE.Color(...pressureRgb(p / maxPressurePa)), pressurePa: p }];
+      return [{ id: br.id, geometry, colour: new THREE.Color().setRGB(...pressureRgb(Math.abs(p) / maxPressurePa), THREE.SRGBColorSpace), pressurePa: p }];
     });
     const L = radius * 2;
     const arrows = rows.flatMap((br) => {
@@ -163,37 +161,44 @@ function useDrawn(survey: Survey, results: SurveyLevelResults, rows: readonly Bo
       arrows,
       shores,
       maxPressurePa,
-      centre,
+      box,
       radius,
       waterline: { point: toThree(results.frame.waterlinePoint), normal: toThree(results.frame.up).normalize() },
     };
   }, [solids, plateGeometry, liquids, rows, plates, results]);
 }
 
-function CameraRig({ view, centre, radius }: { view: View; centre: THREE.Vector3; radius: number }) {
-  const camera = useThree((s) => s.camera);
+/** Puts the camera where the whole ship is in view: on open, on a change of view, on "Fit to view". */
+function CameraRig({ view, box, fitKey }: { view: View; box: THREE.Box3; fitKey: number }) {
+  const camera = useThree((s) => s.camera) as THREE.PerspectiveCamera;
   const controls = useThree((s) => s.controls) as unknown as { target: THREE.Vector3; update: () => void } | null;
   const invalidate = useThree((s) => s.invalidate);
+  const width = useThree((s) => s.size.width);
+  const height = useThree((s) => s.size.height);
   useLayoutEffect(() => {
-    const r = radius * 1.9;
-    const offset =
-      view === 'profile'
-        ? new THREE.Vector3(0, 0, r)
-        : view === 'plan'
-          ? new THREE.Vector3(0, r, 0.001)
-          : view === 'section'
-            ? new THREE.Vector3(r, 0, 0)
-            : new THREE.Vector3(r * 0.55, r * 0.45, r * 0.75);
-    camera.position.copy(centre).add(offset);
-    camera.near = radius / 100;
-    camera.far = radius * 20;
+    if (width === 0 || height === 0) return;
+    const f = frameBox(box, viewDirection(view), camera.fov, width / height);
+    camera.position.copy(f.position);
+    camera.near = f.near;
+    camera.far = f.far;
     camera.updateProjectionMatrix();
     if (controls) {
-      controls.target.copy(centre);
+      controls.target.copy(f.target);
       controls.update();
-    } else camera.lookAt(centre);
+    } else camera.lookAt(f.target);
     invalidate();
-  }, [view, centre, radius, camera, controls, invalidate]);
+  }, [view, box, fitKey, width, height, camera, controls, invalidate]);
+  return null;
+}
+
+/** Marks the canvas once a frame has been drawn, so a test (or a person) knows the picture is there. */
+function DrawnFlag({ onDrawn }: { onDrawn: () => void }) {
+  const done = useRef(false);
+  useFrame(() => {
+    if (done.current) return;
+    done.current = true;
+    onDrawn();
+  });
   return null;
 }
 
@@ -231,18 +236,23 @@ function Arrow({ origin, dir, length, colour }: { origin: THREE.Vector3; dir: TH
   return <primitive object={arrow} raycast={() => null} />;
 }
 
-function Scene({ drawn, selectedId, onSelect }: { drawn: Drawn; selectedId: string | null; onSelect: (id: string) => void }) {
+/** What a tap landed on, and where, for its label. */
+interface Tapped {
+  id: string;
+  kind: 'compartment' | 'boundary';
+  point: THREE.Vector3;
+}
+
+function Scene({ drawn, highlightId, onTap }: { drawn: Drawn; highlightId: string | null; onTap: (t: Tapped) => void }) {
   const pick = (e: ThreeEvent<MouseEvent>) => {
     e.stopPropagation();
     // Plates sit on compartment faces: prefer a plate within a hair of the nearest hit.
     const hits = e.intersections.filter((h) => typeof h.object.userData.pickId === 'string');
     if (hits.length === 0) return;
     const nearest = hits[0].distance;
-    const plate = hits.find((h) => h.object.userData.kind === 'boundary' && h.distance - nearest < drawn.radius * 0.01);
-    onSelect(String((plate ?? hits[0]).object.userData.pickId));
+    const hit = hits.find((h) => h.object.userData.kind === 'boundary' && h.distance - nearest < drawn.radius * 0.01) ?? hits[0];
+    onTap({ id: String(hit.object.userData.pickId), kind: hit.object.userData.kind === 'boundary' ? 'boundary' : 'compartment', point: hit.point.clone() });
   };
-  const wl = drawn.waterline;
-  const wlQuat = useMemo(() => new THREE.Quaternion().setFromUnitVectors(new THREE.Vector3(0, 0, 1), wl.normal), [wl.normal]);
   return (
     <group onClick={pick}>
       <ambientLight intensity={0.8} />
@@ -251,10 +261,10 @@ function Scene({ drawn, selectedId, onSelect }: { drawn: Drawn; selectedId: stri
       {drawn.compartments.map((c) => (
         <group key={c.id}>
           <mesh geometry={c.solid} userData={{ pickId: c.id, kind: 'compartment' }}>
-            <meshStandardMaterial color={c.id === selectedId ? '#f2b705' : '#9fb3c4'} transparent opacity={c.id === selectedId ? 0.3 : 0.12} depthWrite={false} side={THREE.DoubleSide} />
+            <meshStandardMaterial color={c.id === highlightId ? '#f2b705' : '#9fb3c4'} transparent opacity={c.id === highlightId ? 0.3 : 0.12} depthWrite={false} side={THREE.DoubleSide} />
           </mesh>
           <lineSegments geometry={c.edges} raycast={() => null}>
-            <lineBasicMaterial color={c.id === selectedId ? '#b0004f' : '#0b2239'} />
+            <lineBasicMaterial color={c.id === highlightId ? '#b0004f' : '#0b2239'} />
           </lineSegments>
           {c.layers.map((l) => (
             <mesh key={l.id} geometry={l.geometry} userData={{ pickId: c.id, kind: 'compartment' }}>
@@ -269,66 +279,201 @@ function Scene({ drawn, selectedId, onSelect }: { drawn: Drawn; selectedId: stri
             color={b.colour}
             side={THREE.DoubleSide}
             transparent
-            opacity={0.85}
-            emissive={b.id === selectedId ? '#f2b705' : '#000000'}
-            emissiveIntensity={b.id === selectedId ? 0.6 : 0}
+            opacity={0.9}
+            emissive={b.id === highlightId ? '#f2b705' : '#000000'}
+            emissiveIntensity={b.id === highlightId ? 0.6 : 0}
             polygonOffset
             polygonOffsetFactor={-1}
           />
         </mesh>
       ))}
       {drawn.arrows.map((a) => (
-        <Arrow key={a.id} origin={a.origin} dir={a.dir} length={a.length} colour={a.id === selectedId ? '#f2b705' : '#0d1217'} />
+        <Arrow key={a.id} origin={a.origin} dir={a.dir} length={a.length} colour={a.id === highlightId ? '#f2b705' : '#0d1217'} />
       ))}
       <Shores shores={drawn.shores} />
-      <mesh position={wl.point} quaternion={wlQuat} raycast={() => null} renderOrder={-1}>
-        <planeGeometry args={[drawn.radius * 2.6, drawn.radius * 1.6]} />
-        <meshBasicMaterial color="#1f6fa3" transparent opacity={0.12} side={THREE.DoubleSide} depthWrite={false} />
-      </mesh>
+      <Waterline drawn={drawn} />
     </group>
   );
 }
 
-function Legend({ maxPressurePa, system }: { maxPressurePa: number; system: UnitSystem }) {
-  const stops = [-1, -0.5, 0, 0.5, 1];
-  const gradient = `linear-gradient(to right, ${stops.map((t) => rgbCss(pressureRgb(t))).join(', ')})`;
+/**
+ * The outside waterline: a plane through the waterline the readings give (heel and trim included),
+ * reaching well past the hull so the freeboard all round can be read against it, with its edge drawn.
+ */
+function Waterline({ drawn }: { drawn: Drawn }) {
+  const { box, waterline } = drawn;
+  const plane = useMemo(() => {
+    const n = waterline.normal;
+    const c = box.getCenter(new THREE.Vector3());
+    // the point of the plane nearest the ship's centre
+    const centre = c.clone().addScaledVector(n, waterline.point.clone().sub(c).dot(n));
+    const size = box.getSize(new THREE.Vector3());
+    const quaternion = new THREE.Quaternion().setFromUnitVectors(new THREE.Vector3(0, 0, 1), n);
+    const w = size.x * 1.3, h = Math.max(size.z * 3, size.x * 0.35);
+    const outline = new THREE.BufferGeometry().setFromPoints([
+      new THREE.Vector3(-w / 2, -h / 2, 0),
+      new THREE.Vector3(w / 2, -h / 2, 0),
+      new THREE.Vector3(w / 2, h / 2, 0),
+      new THREE.Vector3(-w / 2, h / 2, 0),
+    ]);
+    return { centre, quaternion, w, h, outline };
+  }, [box, waterline]);
+  useEffect(() => () => plane.outline.dispose(), [plane]);
   return (
-    <div className="rounded-lg border border-line bg-card p-2 text-sm" data-testid="pressure-legend">
-      <p className="font-bold">Mean net pressure on each plate</p>
-      <div className="mt-1 h-4 rounded" style={{ background: gradient }} aria-hidden="true" />
-      <div className="mt-0.5 flex justify-between tabular-nums">
-        <span>{fmt(-maxPressurePa, 'pressure', system, 3)}</span>
-        <span>0</span>
-        <span>{fmt(maxPressurePa, 'pressure', system, 3)}</span>
+    <group position={plane.centre} quaternion={plane.quaternion}>
+      <mesh raycast={() => null} renderOrder={-1}>
+        <planeGeometry args={[plane.w, plane.h]} />
+        <meshBasicMaterial color={LIQUID_COLOUR.water} transparent opacity={0.16} side={THREE.DoubleSide} depthWrite={false} />
+      </mesh>
+      <lineLoop geometry={plane.outline} raycast={() => null}>
+        <lineBasicMaterial color={LIQUID_COLOUR.water} />
+      </lineLoop>
+    </group>
+  );
+}
+
+/** A scale along the keel on the starboard side, from the aft perpendicular, in round steps of the user's length unit. */
+function KeelScale({ vessel, system }: { vessel: Survey['vessel']; system: UnitSystem }) {
+  const unit = DISPLAY_UNITS[system].length;
+  const marks = useMemo(() => {
+    const lengthInUnits = fromSi(vessel.lbpM, unit);
+    const step = scaleStep(lengthInUnits);
+    const perUnitM = vessel.lbpM / lengthInUnits;
+    const y = -vessel.breadthM / 2 - Math.max(vessel.breadthM * 0.08, 0.5);
+    const tick = Math.max(vessel.depthM * 0.08, 0.3);
+    const list: { x: number; label: string | null }[] = [];
+    for (let k = 0, v = 0; v <= lengthInUnits + 1e-9; k++, v = k * step) list.push({ x: v * perUnitM, label: k % 2 === 0 ? `${Number(v.toPrecision(6))} ${UNITS[unit].label}` : null });
+    const points: THREE.Vector3[] = [toThree({ x: 0, y, z: 0 }), toThree({ x: list[list.length - 1].x, y, z: 0 })];
+    for (const m of list) points.push(toThree({ x: m.x, y, z: 0 }), toThree({ x: m.x, y, z: m.label ? tick * 2 : tick }));
+    return { list, y, tick, geometry: new THREE.BufferGeometry().setFromPoints(points) };
+  }, [vessel, unit]);
+  useEffect(() => () => marks.geometry.dispose(), [marks]);
+  return (
+    <group>
+      <lineSegments geometry={marks.geometry} raycast={() => null}>
+        <lineBasicMaterial color="#0d1217" />
+      </lineSegments>
+      {marks.list.map((m) =>
+        m.label ? (
+          <Html key={m.x} position={toThree({ x: m.x, y: marks.y, z: marks.tick * 2 })} center zIndexRange={[5, 0]} pointerEvents="none">
+            <span className="whitespace-nowrap rounded bg-card px-1 text-xs font-bold text-ink" data-testid="scale-mark">
+              {m.label}
+            </span>
+          </Html>
+        ) : null,
+      )}
+    </group>
+  );
+}
+
+/** The name of what was tapped, with a figure or two, beside it in the model. */
+function TapLabel({ tapped, survey, results, rows, system, onOpen, onClose }: { tapped: Tapped; survey: Survey; results: SurveyLevelResults; rows: readonly BoundarySummary[]; system: UnitSystem; onOpen?: (id: string) => void; onClose: () => void }) {
+  let name = '', detail = '';
+  if (tapped.kind === 'compartment') {
+    const c = results.compartments.find((x) => x.id === tapped.id);
+    name = c?.name ?? survey.compartments.find((x) => x.id === tapped.id)?.name ?? '';
+    detail = c ? `${percent(c.fillFraction)} full · ${fmt(c.liquid.massKg, 'mass', system, 4)} of liquid` : '';
+  } else {
+    const b = rows.find((x) => x.id === tapped.id);
+    name = b?.name ?? survey.boundaries.find((x) => x.id === tapped.id)?.name ?? '';
+    const mean = b && b.areaM2 > 0 && b.geometryKind !== 'faceted' ? Math.abs(b.forceN / b.areaM2) : null;
+    detail = b ? [mean !== null ? `mean net pressure ${fmt(mean, 'pressure', system, 3)}` : null, b.maxUtilisation !== null ? `utilisation ${percent(b.maxUtilisation)}` : null].filter(Boolean).join(' · ') : '';
+  }
+  return (
+    <Html position={tapped.point} zIndexRange={[20, 10]}>
+      <div className="w-56 -translate-x-1/2 translate-y-2 rounded-lg border-2 border-hull bg-card p-2 text-sm text-ink shadow-lg" data-testid="model-label" role="group" aria-label={name}>
+        <div className="flex items-start justify-between gap-2">
+          <p className="font-bold">{name}</p>
+          <button type="button" onClick={onClose} aria-label="Close the label" className="-m-1 min-h-touch min-w-touch rounded font-bold text-hull">
+            ×
+          </button>
+        </div>
+        {detail && <p className="text-ink-soft">{detail}</p>}
+        {onOpen && (
+          <button type="button" onClick={() => onOpen(tapped.id)} className="mt-1 min-h-touch font-bold text-sea underline">
+            Open its form
+          </button>
+        )}
       </div>
-      <p className="text-xs text-ink-soft">Blue: pushed towards side A. Amber to magenta: pushed towards side B. Arrows: the resultant at the centre of pressure.</p>
+    </Html>
+  );
+}
+
+function Legend({ maxPressurePa, system }: { maxPressurePa: number; system: UnitSystem }) {
+  const stops = [0, 0.25, 0.5, 0.75, 1];
+  const gradient = `linear-gradient(to right, ${stops.map((t) => rgbCss(pressureRgb(t))).join(', ')})`;
+  const liquids: [keyof typeof LIQUID_COLOUR, string][] = [
+    ['water', 'Water'],
+    ['oil', 'Oil'],
+    ['other', 'Other liquid'],
+  ];
+  return (
+    <div className="grid gap-3 rounded-lg border border-line bg-card p-2 text-sm sm:grid-cols-[auto_minmax(0,1fr)]" data-testid="pressure-legend">
+      <div>
+        <p className="font-bold">Liquids</p>
+        <ul className="mt-1 flex flex-wrap gap-x-3 gap-y-1">
+          {liquids.map(([k, label]) => (
+            <li key={k} className="flex items-center gap-1">
+              <span aria-hidden="true" className="inline-block size-4 rounded-sm border border-line" style={{ background: LIQUID_COLOUR[k] }} />
+              {label}
+            </li>
+          ))}
+        </ul>
+      </div>
+      <div>
+        <p className="font-bold">Mean net pressure on each plate</p>
+        <div className="mt-1 h-4 rounded" style={{ background: gradient }} aria-hidden="true" />
+        <div className="mt-0.5 flex justify-between tabular-nums">
+          <span>0</span>
+          <span>{fmt(maxPressurePa / 2, 'pressure', system, 3)}</span>
+          <span>{fmt(maxPressurePa, 'pressure', system, 3)}</span>
+        </div>
+        <p className="text-xs text-ink-soft">Colour: how hard, either way. Arrows: which way the resultant pushes, at the centre of pressure. The blue plane is the outside waterline.</p>
+      </div>
     </div>
   );
 }
 
-export default function SurveyScene({ survey, results, rows, system, selectedId, onSelect }: SurveySceneProps) {
+export default function SurveyScene({ survey, results, rows, system, selectedId, onSelect, onOpen }: SurveySceneProps) {
   const drawn = useDrawn(survey, results, rows);
-  const [view, setView] = useState<View>('three-quarter');
+  const [view, setView] = useState<View>('oblique');
+  const [fitKey, setFitKey] = useState(0);
+  const [tapped, setTapped] = useState<Tapped | null>(null);
+  const [isDrawn, setIsDrawn] = useState(false);
+  const tap = (t: Tapped) => {
+    setTapped(t);
+    onSelect(t.id);
+  };
+  const button = (pressed: boolean) => `min-h-touch rounded-lg border-2 border-hull px-3 font-bold ${pressed ? 'bg-hull text-paper' : 'bg-card text-hull'}`;
   return (
     <div className="space-y-2">
-      <div role="group" aria-label="View" className="flex flex-wrap gap-1">
-        {VIEWS.map((v) => (
-          <button
-            key={v.id}
-            type="button"
-            aria-pressed={view === v.id}
-            onClick={() => setView(v.id)}
-            className={`min-h-touch rounded-lg border-2 border-hull px-3 font-bold ${view === v.id ? 'bg-hull text-paper' : 'bg-card text-hull'}`}
-          >
-            {v.label}
-          </button>
-        ))}
+      <div className="flex flex-wrap gap-1">
+        <div role="group" aria-label="View" className="flex flex-wrap gap-1">
+          {VIEWS.map((v) => (
+            <button key={v.id} type="button" aria-pressed={view === v.id} onClick={() => (setView(v.id), setFitKey((k) => k + 1))} className={button(view === v.id)}>
+              {v.label}
+            </button>
+          ))}
+        </div>
+        <button type="button" onClick={() => setFitKey((k) => k + 1)} className={button(false)}>
+          Fit to view
+        </button>
       </div>
-      <div className="h-[60vh] min-h-72 overflow-hidden rounded-lg border-2 border-hull bg-[#e9eef2]" data-testid="model-canvas">
-        <Canvas frameloop="demand" dpr={[1, 2]} gl={{ preserveDrawingBuffer: true, antialias: true }} camera={{ fov: 40, position: [0, 0, 100] }}>
-          <Scene drawn={drawn} selectedId={selectedId} onSelect={onSelect} />
+      <div className="relative h-[60vh] min-h-72 overflow-hidden rounded-lg border-2 border-hull bg-[#e9eef2]" data-testid="model-canvas" data-drawn={isDrawn ? 'true' : 'false'}>
+        <Canvas
+          frameloop="demand"
+          dpr={[1, 2]}
+          gl={{ preserveDrawingBuffer: true, antialias: true }}
+          camera={{ fov: 40, position: [0, 0, 100] }}
+          onPointerMissed={() => setTapped(null)}
+          aria-label={`3D model of ${survey.vessel.name}`}
+        >
+          <Scene drawn={drawn} highlightId={tapped?.id ?? selectedId} onTap={tap} />
+          <KeelScale vessel={survey.vessel} system={system} />
+          {tapped && <TapLabel tapped={tapped} survey={survey} results={results} rows={rows} system={system} onOpen={onOpen} onClose={() => setTapped(null)} />}
           <OrbitControls makeDefault enableDamping={false} />
-          <CameraRig view={view} centre={drawn.centre} radius={drawn.radius} />
+          <CameraRig view={view} box={drawn.box} fitKey={fitKey} />
+          <DrawnFlag onDrawn={() => setIsDrawn(true)} />
         </Canvas>
       </div>
       <Legend maxPressurePa={drawn.maxPressurePa} system={system} />

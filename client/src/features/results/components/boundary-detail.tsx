@@ -5,10 +5,12 @@ import { fmt, num, percent, unitLabel } from '@client/lib/unit-system';
 import { LoadDiagramChart } from './load-diagram-chart';
 import { StructureChecks } from './structure-checks';
 import { UtilisationBadge } from './utilisation';
-import { horizontalWords, pointWords } from '@shared/units/point-words';
+import { horizontalWords } from '@shared/units/point-words';
+import type { ReactNode } from 'react';
+import { PointText } from './point-text';
 import { sideName } from './side-name';
 
-function Row({ label, value, testId }: { label: string; value: string; testId?: string }) {
+function Row({ label, value, testId }: { label: string; value: ReactNode; testId?: string }) {
   return (
     <div className="flex justify-between gap-3 border-b border-line py-1">
       <dt className="text-ink-soft">{label}</dt>
@@ -40,13 +42,13 @@ export function BoundaryDetail({ boundary: b, results, system }: { boundary: Bou
           {b.net.nearlyCancels ? (
             <Row label="The two sides nearly cancel: couple about the centroid" value={fmt(b.net.coupleNm, 'moment', system)} testId="detail-couple" />
           ) : (
-            <Row label="Centre of pressure" value={pointWords(b.net.centreOfPressure, system)} testId="detail-cop" />
+            <Row label="Centre of pressure" value={<PointText point={b.net.centreOfPressure} system={system} />} testId="detail-cop" />
           )}
           {b.net.centreOfPressureAboveLowestM !== null && (
-            <Row label="Centre of pressure above the plate's lowest point" value={fmt(b.net.centreOfPressureAboveLowestM, 'length', system, 3)} />
+            <Row label="Centre of pressure above the boundary’s lowest point" value={fmt(b.net.centreOfPressureAboveLowestM, 'length', system, 3)} />
           )}
           <Row label="Peak net pressure (+ towards side B)" value={fmt(b.net.peak.pressurePa, 'pressure', system)} />
-          <Row label="Peak acts at" value={pointWords(b.net.peak.point, system)} />
+          <Row label="Peak acts at" value={<PointText point={b.net.peak.point} system={system} />} />
           <Row label="Loaded area" value={fmt(b.areaM2, 'area', system)} />
           {b.net.signChange && <Row label="Pressure reverses" value="yes — pushes both ways" />}
           {b.capacities.map((c, i) => (

@@ -1,5 +1,6 @@
 /**
- * Sortable table of every boundary's load; tap a row to open its detail. Reads summary rows
+ * Sortable table of every boundary's load; tap a row to open its detail. Utilisation comes right
+ * after the name, so a phone shows it without scrolling sideways. Reads summary rows
  * (computeSurveySummary's BoundaryTable as rows), and beyond a screenful renders only the rows in
  * view (TanStack Virtual), so a ship of thousands of boundaries stays a few hundred elements.
  */
@@ -18,8 +19,9 @@ import type { BoundarySummary, SurveyLevelResults } from '@shared/engine';
 import type { UnitSystem } from '@shared/units/units';
 import { num, unitLabel } from '@client/lib/unit-system';
 import { UtilisationBadge } from './utilisation';
-import { pointWords } from '@shared/units/point-words';
+import { PointText } from './point-text';
 import { sideName } from './side-name';
+import { boundaryKindWords, countWords } from '@shared/review/plain-words';
 
 const col = createColumnHelper<BoundarySummary>();
 
@@ -50,10 +52,23 @@ export function BoundaryResultsTable({
           <span>
             <span className="font-bold">{c.getValue()}</span>
             <span className="block text-xs text-ink-soft">
-              {c.row.original.kind} · {sideName(results, c.row.original.sideA)} | {sideName(results, c.row.original.sideB)}
+              {boundaryKindWords(c.row.original.kind)} · {sideName(results, c.row.original.sideA)} | {sideName(results, c.row.original.sideB)}
             </span>
           </span>
         ),
+      }),
+      col.accessor((b) => b.maxUtilisation ?? -1, {
+        id: 'utilisation',
+        header: 'Utilisation',
+        cell: (c) => {
+          const gov = governingWords(c.row.original);
+          return (
+            <span>
+              <UtilisationBadge value={c.row.original.maxUtilisation} compact />
+              {gov && <span className="block text-xs text-ink-soft">{gov.what}</span>}
+            </span>
+          );
+        },
       }),
       col.accessor((b) => b.forceN, {
         id: 'force',
@@ -70,21 +85,8 @@ export function BoundaryResultsTable({
         header: 'Centre of pressure',
         sortUndefined: 'last',
         cell: (c) => (
-          <span className="text-sm">{pointWords(copOf(c.row.original), system)}</span>
+          <span className="text-sm"><PointText point={copOf(c.row.original)} system={system} /></span>
         ),
-      }),
-      col.accessor((b) => b.maxUtilisation ?? -1, {
-        id: 'utilisation',
-        header: 'Utilisation',
-        cell: (c) => {
-          const gov = governingWords(c.row.original);
-          return (
-            <span>
-              <UtilisationBadge value={c.row.original.maxUtilisation} compact />
-              {gov && <span className="block text-xs text-ink-soft">{gov.what}</span>}
-            </span>
-          );
-        },
       }),
     ],
     [results, system],
@@ -117,7 +119,7 @@ export function BoundaryResultsTable({
       className={`overflow-x-auto rounded-lg border border-line bg-card ${virtual ? 'max-h-[70vh] overflow-y-auto' : ''}`}
       tabIndex={0}
       role="region"
-      aria-label={virtual ? `Loads on ${rows.length} plates (scrolls)` : 'Loads on each plate (scrolls sideways)'}
+      aria-label={virtual ? `Loads on ${countWords(rows.length, 'boundary', 'boundaries')} (scrolls)` : 'Loads on each boundary (scrolls sideways)'}
     >
       <table className="w-full min-w-[36rem] border-collapse text-left" data-testid="boundary-results">
         <thead className="bg-sea-soft">
@@ -135,7 +137,7 @@ export function BoundaryResultsTable({
                 data-testid="boundary-row"
               >
                 {row.getVisibleCells().map((cell, i) => (
-                  <td key={cell.id} className={`px-2 py-1.5 align-top ${i > 0 && i < 3 ? 'text-right tabular-nums' : ''}`}>
+                  <td key={cell.id} className={`px-2 py-1.5 align-top ${i === 2 || i === 3 ? 'text-right tabular-nums' : ''}`}>
                     {i === 0 && onSelect ? (
                       <button type="button" className="min-h-touch text-left underline-offset-2 hover:underline" onClick={(e) => { e.stopPropagation(); onSelect(row.original.id); }}>
                         {flexRender(cell.column.columnDef.cell, cell.getContext())}

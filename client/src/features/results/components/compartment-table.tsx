@@ -1,8 +1,9 @@
 /** Liquid in every compartment: each layer's volume (permeability applied), mass and level. */
 import type { SurveyLevelResults } from '@shared/engine';
 import type { UnitSystem } from '@shared/units/units';
-import { pointWords } from '@shared/units/point-words';
+import { PointText } from './point-text';
 import { num, percent, unitLabel } from '@client/lib/unit-system';
+import { spaceTypeWords } from '@shared/review/plain-words';
 
 export function CompartmentTable({ results, system, onSelect }: { results: SurveyLevelResults; system: UnitSystem; onSelect?: (id: string) => void }) {
   if (results.compartments.length === 0) return <p className="text-ink-soft">No compartments yet.</p>;
@@ -41,14 +42,14 @@ function CompartmentRows({ c, system, onSelect }: { c: SurveyLevelResults['compa
             c.name
           )}
           <span className="block text-xs font-normal text-ink-soft">
-            {c.spaceType} · permeability {c.permeability.toFixed(2)}
+            {spaceTypeWords(c.spaceType)} · permeability {c.permeability.toFixed(2)}
             {c.openToSea ? ' · open to sea' : ''}
           </span>
         </td>
         <td className="p-1.5 text-right tabular-nums">{num(c.liquid.volumeM3, 'volume', system)}</td>
         <td className="p-1.5 text-right tabular-nums">{num(c.liquid.massKg, 'mass', system)}</td>
         <td className="p-1.5 text-right tabular-nums">{percent(c.fillFraction)}</td>
-        <td className="p-1.5">{pointWords(c.liquid.centroid, system)}</td>
+        <td className="p-1.5"><PointText point={c.liquid.centroid} system={system} /></td>
       </tr>
       {c.layers.map((l) => (
         <tr key={l.layerId} className="border-t border-line">
@@ -62,7 +63,7 @@ function CompartmentRows({ c, system, onSelect }: { c: SurveyLevelResults['compa
           <td className="p-1.5 text-right tabular-nums">{num(l.volumeM3, 'volume', system)}</td>
           <td className="p-1.5 text-right tabular-nums">{num(l.massKg, 'mass', system)}</td>
           <td className="p-1.5" />
-          <td className="p-1.5">{pointWords(l.centroid, system)}</td>
+          <td className="p-1.5"><PointText point={l.centroid} system={system} /></td>
         </tr>
       ))}
     </>

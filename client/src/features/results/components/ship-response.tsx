@@ -65,7 +65,7 @@ export function ShipResponsePanel({ survey, results, system }: { survey: Survey;
   return (
     <section aria-label="Ship's response" className={`space-y-2 rounded-lg border-2 p-3 ${danger ? 'border-danger bg-danger-soft' : 'border-hull bg-card'}`} data-testid="ship-response">
       <h3 className="text-lg">Ship’s response</h3>
-      <div className="grid gap-3 sm:grid-cols-[minmax(0,1fr)_auto]">
+      <div className="grid gap-3 sm:grid-cols-[minmax(16rem,1fr)_auto]">
         <table className="w-full text-sm tabular-nums">
           <caption className="sr-only">Attitude: intact, predicted from the modelled contents, and as read</caption>
           <thead>
@@ -93,7 +93,7 @@ export function ShipResponsePanel({ survey, results, system }: { survey: Survey;
         </table>
         <AttitudeSketch survey={survey} attitude={response.attitude} measured={measured} />
       </div>
-      <dl className="grid grid-cols-2 gap-x-3 gap-y-1 text-sm sm:grid-cols-4">
+      <dl className="grid grid-cols-2 gap-x-3 gap-y-1 text-sm sm:grid-cols-3">
         <div>
           <dt className="text-xs font-bold uppercase text-ink-soft">GM fluid</dt>
           <dd className="text-lg font-bold tabular-nums" data-testid="gm-fluid">
@@ -113,6 +113,18 @@ export function ShipResponsePanel({ survey, results, system }: { survey: Survey;
         <div>
           <dt className="text-xs font-bold uppercase text-ink-soft">Displacement</dt>
           <dd className="tabular-nums">{fmt(response.displacementKg, 'mass', system, 5)}</dd>
+        </div>
+        <div>
+          <dt className="text-xs font-bold uppercase text-ink-soft">{system === 'us' ? 'TPI' : 'TPC'}</dt>
+          <dd className="tabular-nums" data-testid="response-tpc">
+            {fmt(results.frame.seaDensityKgM3 * response.waterplaneAreaM2, 'immersion', system, 4)}
+          </dd>
+        </div>
+        <div>
+          <dt className="text-xs font-bold uppercase text-ink-soft">{system === 'us' ? 'MTI' : 'MCT 1 cm'}</dt>
+          <dd className="tabular-nums" data-testid="response-mct">
+            {fmt(response.mctKgM, 'trimMoment', system, 4)}
+          </dd>
         </div>
       </dl>
       <p className="text-xs text-ink-soft">
@@ -180,7 +192,8 @@ export function AttitudeSketch({ survey, attitude, measured }: { survey: Survey;
   const p = side(attitude), e = end(attitude);
   const pm = measured ? side(measured) : null, em = measured ? end(measured) : null;
   return (
-    <figure className="flex flex-wrap gap-2">
+    // no wider than its two drawings: a long caption must not widen the figure over the table beside it
+    <figure className="flex max-w-[20.5rem] flex-wrap gap-2">
       <svg viewBox={`0 0 ${W} ${H}`} width="160" height="60" role="img" aria-label={`Side view: trim ${attitude.trimM.toFixed(2)} m`}>
         <rect x={sx(0)} y={sz(D)} width={sx(L) - sx(0)} height={sz(0) - sz(D)} fill="none" stroke="currentColor" strokeWidth="1.5" />
         <line x1={sx(0)} y1={p.y0} x2={sx(L)} y2={p.y1} stroke="#0369a1" strokeWidth="2" />
@@ -208,14 +221,44 @@ export function AttitudeSketch({ survey, attitude, measured }: { survey: Survey;
   );
 }
 
-/** Which attitude the loads use (the readings') beside the one the model predicts. */
-export function AttitudeInUse({ survey, results, system }: { survey: Survey; results: Omit<SurveyResults, 'boundaries'>; system: UnitSystem }) {
-  const { response } = useShipResponse(survey, results);
+/** Which attitude a set of loads uses: the readings', or the one the ship's response predicts. */
+export type LoadsAttitude = 'measured' | 'predicted';
+
+/** Which attitude the loads use, beside the other one. */
+export function AttitudeInUse({
+  survey,
+  results,
+  system,
+  mode = 'measured',
+  response: given,
+}: {
+  survey: Survey;
+  results: Omit<SurveyResults, 'boundaries'>;
+  system: UnitSystem;
+  mode?: LoadsAttitude;
+  response?: ShipResponse | null;
+}) {
+  const own = useShipResponse(survey, given === undefined ? results : null).response;
+  const response = given === undefined ? own : given;
   const f = results.frame;
   const trim = (m: number) => `${fmt(Math.abs(m), 'length', system, 2)} ${m > 0.005 ? 'by the stern' : m < -0.005 ? 'by the head' : ''}`.trim();
+  const measured = `heel ${heelText(f.heelDeg)}, trim ${trim(f.trimM)}`;
+  if (mode === 'predicted' && response) {
+    const a = response.attitude;
+    return (
+      <div className="space-y-1 rounded-md border-2 border-hull bg-card p-2 text-sm" data-testid="attitude-in-use" data-attitude="predicted">
+        <p>
+          <b>These loads use the PREDICTED attitude</b> (the ship’s response to the modelled contents): drafts aft {fmt(a.draftAftM, 'length', system, 3)}, forward{' '}
+          {fmt(a.draftForeM, 'length', system, 3)}, heel {heelText(a.heelDeg)}, trim {trim(a.trimM)}, GM fluid {fmt(response.gmFluidM, 'length', system, 3)}. Every liquid keeps its volume; spaces open to the sea
+          stand at the predicted waterline. The readings show {measured}.
+        </p>
+        <p className="rounded-md border border-caution bg-caution-soft p-2 text-xs">{STABILITY_CAUTION}</p>
+      </div>
+    );
+  }
   return (
-    <p className="rounded-md border-2 border-line bg-card p-2 text-sm" data-testid="attitude-in-use">
-      <b>These loads use the measured attitude</b> (the readings): heel {heelText(f.heelDeg)}, trim {trim(f.trimM)}.{' '}
+    <p className="rounded-md border-2 border-line bg-card p-2 text-sm" data-testid="attitude-in-use" data-attitude="measured">
+      <b>These loads use the measured attitude</b> (the readings): {measured}.{' '}
       {response
         ? `The model predicts heel ${heelText(response.attitude.heelDeg)}, trim ${trim(response.attitude.trimM)}, GM fluid ${fmt(response.gmFluidM, 'length', system, 3)}.`
         : 'Predicted attitude not computed: no hydrostatic particulars.'}

@@ -2,10 +2,11 @@
 import type { BoundarySummary, SurveyLevelResults } from '@shared/engine';
 import type { UnitSystem } from '@shared/units/units';
 import { fmt, num, unitLabel } from '@client/lib/unit-system';
-import { pointWords } from '@shared/units/point-words';
+import type { ReactNode } from 'react';
+import { PointText } from './point-text';
 import { UtilisationBadge } from './utilisation';
 
-function Tile({ label, value, sub, testId }: { label: string; value: string; sub?: string; testId?: string }) {
+function Tile({ label, value, sub, testId }: { label: string; value: string; sub?: ReactNode; testId?: string }) {
   return (
     <div className="rounded-lg border border-line bg-card p-2">
       <div className="text-xs font-bold uppercase tracking-wide text-ink-soft">{label}</div>
@@ -44,7 +45,7 @@ export function ShipTotals({ results, rows, system }: { results: SurveyLevelResu
         <Tile
           label={`All liquid centroid (${unitLabel('length', system)})`}
           value={ship.allLiquids.centroid ? `x ${L(ship.allLiquids.centroid.x)}` : '—'}
-          sub={pointWords(ship.allLiquids.centroid, system)}
+          sub={<PointText point={ship.allLiquids.centroid} system={system} />}
         />
         <Tile label="Sea density" value={fmt(frame.seaDensityKgM3, 'density', system)} />
         <div className="col-span-2 rounded-lg border border-line bg-card p-2">

@@ -3,10 +3,9 @@
  * the plating between stiffeners, with what the model assumes said in words.
  */
 import type { BoundaryResult } from '@shared/engine';
-import { formatNumber, fromSi, INCH_M, type UnitSystem } from '@shared/units/units';
+import { INCH_M, STRESS_UNIT, formatStress, type UnitSystem } from '@shared/units/units';
 import { fmt, num, percent, unitLabel } from '@client/lib/unit-system';
 import { UtilisationBadge } from './utilisation';
-import { stressWords } from '@shared/review/structure-rows';
 
 const BEARS_ON: Record<BoundaryResult['shores'][number]['bearsOn'], string> = {
   plate: 'plate',
@@ -26,7 +25,6 @@ function UtilCell({ value }: { value: number }) {
 }
 const td = 'p-1.5 text-right tabular-nums';
 
-const stressUnit = (system: UnitSystem) => (system === 'us' ? 'ksi' : 'MPa');
 const thicknessText = (m: number, system: UnitSystem) => (system === 'us' ? `${(m / INCH_M).toFixed(3)} in` : `${(m * 1000).toFixed(1)} mm`);
 
 export function StructureChecks({ boundary: b, system }: { boundary: BoundaryResult; system: UnitSystem }) {
@@ -94,7 +92,7 @@ export function StructureChecks({ boundary: b, system }: { boundary: BoundaryRes
         <div className="space-y-1">
           <p className="text-sm font-bold" data-testid="plating-heading">
             Plating {st && st.items.length > 0 ? 'between stiffeners' : '(the whole plate as one panel)'}: {thicknessText(b.plating.netThicknessM, system)} net of corrosion allowance, edges{' '}
-            {b.plating.edges === 'fixed' ? 'fixed' : 'simply supported'}, allowable {stressWords(b.plating.allowableStressPa, system)} (yield {stressWords(b.plating.yieldStressPa, system)})
+            {b.plating.edges === 'fixed' ? 'fixed' : 'simply supported'}, allowable {formatStress(b.plating.allowableStressPa, system, 3)} (yield {formatStress(b.plating.yieldStressPa, system, 3)})
             <span className="block font-normal">
               Coefficients: {b.plating.source}. {b.plating.notes.join('; ')}
             </span>
@@ -108,7 +106,7 @@ export function StructureChecks({ boundary: b, system }: { boundary: BoundaryRes
                 {st && st.offsetFromEdge && <th className={th}>Middle, from the {st.offsetFromEdge} ({u('length')})</th>}
                 <th className={th}>Long × short side ({u('length')})</th>
                 <th className={th}>Net pressure, least–greatest, + towards side B ({u('pressure')})</th>
-                <th className={th}>Bending stress ({stressUnit(system)})</th>
+                <th className={th}>Bending stress ({STRESS_UNIT[system]})</th>
                 <th className="p-1.5">Utilisation of allowable</th>
               </tr>
             </thead>
@@ -123,7 +121,7 @@ export function StructureChecks({ boundary: b, system }: { boundary: BoundaryRes
                   <td className={td}>
                     {num(p.pressureMinPa, 'pressure', system)} – {num(p.pressureMaxPa, 'pressure', system)}
                   </td>
-                  <td className={td}>{formatNumber(fromSi(p.stressPa, stressUnit(system)), 3)}</td>
+                  <td className={td}>{formatStress(p.stressPa, system, 4, false)}</td>
                   <UtilCell value={p.utilisation} />
                 </tr>
               ))}

@@ -17,8 +17,10 @@ import { threadState } from '@shared/review/threads';
 import { buttonClass } from '@client/components/ui/button';
 import { inputCls } from '@client/components/ui/fields';
 import { ThreadStateChip } from './thread-state-chip';
+import { formatUtc } from '@shared/review/time-words';
+import { conditionName } from '@shared/review/plain-words';
 
-const when = (iso: string) => new Date(iso).toLocaleString('en-GB', { dateStyle: 'medium', timeStyle: 'short', timeZone: 'UTC' }) + ' UTC';
+const when = formatUtc;
 const SEVERITY = ['border-ok bg-ok-soft', 'border-caution bg-caution-soft', 'border-danger bg-danger-soft', 'border-danger bg-danger-soft'];
 
 function itemName(survey: Survey | undefined, t: CommentTarget): string {
@@ -30,10 +32,10 @@ function itemName(survey: Survey | undefined, t: CommentTarget): string {
       return `Vessel ${survey.vessel.name}`;
     case 'condition': {
       const c = survey.conditions.find((x) => x.id === t.id);
-      return `Condition ${c?.name ?? c?.time ?? ''}`.trim();
+      return c ? `Readings “${conditionName(c, survey.vessel.shipTimeOffsetMin)}”` : 'Readings no longer in the survey';
     }
     case 'compartment':
-      return survey.compartments.find((x) => x.id === t.id)?.name ?? 'A compartment no longer in the survey';
+      return survey.compartments.find((x) => x.id === t.id)?.name ?? 'A space no longer in the survey';
     case 'boundary':
       return survey.boundaries.find((x) => x.id === t.id)?.name ?? 'A boundary no longer in the survey';
     case 'photo':

@@ -5,8 +5,13 @@ import { BRIEFABLE_STATUSES, type SurveyStatus } from '@shared/review/status';
 import { useIssueBrief, useRevokeBrief } from '../api/briefs';
 import { buttonClass } from '@client/components/ui/button';
 import { inputCls } from '@client/components/ui/fields';
+import { formatUtc } from '@shared/review/time-words';
+import { EmailText } from '@client/components/ui/email-text';
+import { Link } from 'react-router';
+import { paths } from '@client/config/paths';
+import { useDevMailbox } from '@client/lib/dev-mailbox';
 
-const when = (iso: string) => new Date(iso).toLocaleString('en-GB', { dateStyle: 'medium', timeStyle: 'short', timeZone: 'UTC' }) + ' UTC';
+const when = formatUtc;
 
 const EXPIRY_CHOICES = [
   { hours: 12, label: '12 hours' },
@@ -23,6 +28,7 @@ export function BriefPanel({ surveyId, status, briefs, canIssue, canRevoke }: { 
   const [hours, setHours] = useState(72);
   const [units, setUnits] = useState<'si' | 'us'>('si');
   const briefable = BRIEFABLE_STATUSES.includes(status);
+  const devMailbox = useDevMailbox(issue.isSuccess);
 
   const submit = (e: FormEvent) => {
     e.preventDefault();
@@ -70,6 +76,16 @@ export function BriefPanel({ surveyId, status, briefs, canIssue, canRevoke }: { 
               <a className="break-all font-mono" href={issue.data.url} target="_blank" rel="noreferrer noopener" data-testid="brief-url">
                 {issue.data.url}
               </a>
+              {devMailbox && (
+                <>
+                  {' '}
+                  On this development server the e-mail itself is in the{' '}
+                  <Link className="font-bold underline" to={paths.devMail}>
+                    development mailbox
+                  </Link>
+                  .
+                </>
+              )}
             </p>
           )}
           {issue.isError && <p role="alert" className="text-danger">{issue.error.message}</p>}
@@ -82,7 +98,9 @@ export function BriefPanel({ surveyId, status, briefs, canIssue, canRevoke }: { 
             const state = b.revokedAt ? 'withdrawn' : expired ? 'expired' : 'active';
             return (
               <li key={b.id} className="rounded border border-line p-2 text-sm" data-state={state}>
-                <p className="break-all font-bold">{b.recipientEmail}</p>
+                <p className="font-bold">
+                  <EmailText email={b.recipientEmail} />
+                </p>
                 <p className="text-ink-soft">
                   {state === 'withdrawn' ? `Withdrawn ${when(b.revokedAt!)}` : state === 'expired' ? `Expired ${when(b.expiresAt)}` : `Works until ${when(b.expiresAt)}`} · {b.units.toUpperCase()} · sent
                   by {b.createdByName} · opened {b.openings} {b.openings === 1 ? 'time' : 'times'}

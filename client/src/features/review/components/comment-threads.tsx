@@ -8,8 +8,9 @@ import { ThreadStateChip } from '@client/features/review-notes/components/thread
 import { targetKey, targetLabel, targetOptions } from './review-targets';
 import { buttonClass } from '@client/components/ui/button';
 import { inputCls } from '@client/components/ui/fields';
+import { formatUtc } from '@shared/review/time-words';
 
-const when = (iso: string) => new Date(iso).toLocaleString('en-GB', { dateStyle: 'medium', timeStyle: 'short', timeZone: 'UTC' }) + ' UTC';
+const when = formatUtc;
 
 function Reply({ surveyId, parent }: { surveyId: string; parent: ReviewComment }) {
   const [body, setBody] = useState('');

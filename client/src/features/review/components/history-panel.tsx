@@ -1,25 +1,52 @@
-/** Every revision with who changed what and when, and the comparison of any two revisions' results. */
-import { useState } from 'react';
-import type { FieldChange } from '@shared/api/review';
+/**
+ * The survey's history in plain words (shared/review/change-words.ts): each sitting of one person is one
+ * entry, its saves merged; each line links to the inputs it changed. Below it, the comparison of any two
+ * revisions' results.
+ */
+import { useMemo, useState } from 'react';
 import type { UnitSystem } from '@shared/units/units';
+import { changeLineText, changeWords, groupSittings, type ChangeLine, type Sitting } from '@shared/review/change-words';
+import { countWords } from '@shared/review/plain-words';
+import { formatUtcSpan } from '@shared/review/time-words';
 import { fmt } from '@client/lib/unit-system';
 import { UtilisationBadge } from '@client/features/results/components/utilisation';
 import { useCompare, useRevisions } from '../api/history';
 import { inputCls } from '@client/components/ui/fields';
+import type { InputTarget } from '@client/features/survey-inputs/components/survey-inputs';
 
-const when = (iso: string) => new Date(iso).toLocaleString('en-GB', { dateStyle: 'medium', timeStyle: 'short', timeZone: 'UTC' }) + ' UTC';
-
-function show(v: unknown): string {
-  if (v === null || v === undefined) return '—';
-  const s = typeof v === 'string' ? v : JSON.stringify(v);
-  return s.length > 60 ? `${s.slice(0, 57)}…` : s;
-}
-
-function ChangeRow({ c, names }: { c: FieldChange; names: Map<string, string> }) {
-  const who = c.entity === 'survey' || c.entity === 'vessel' ? c.entity : `${c.entity} ${names.get(c.entityId ?? '') ?? (c.entityId ?? '').slice(0, 8)}`;
+function SittingEntry({ s, words, onShowInput }: { s: Sitting; words: (s: Sitting) => ChangeLine[]; onShowInput?: (t: InputTarget) => void }) {
+  const lines = words(s);
+  const revisions = s.firstRevision === s.lastRevision ? `revision ${s.firstRevision}` : `revisions ${s.firstRevision}–${s.lastRevision}, ${countWords(s.revisionCount, 'save')}`;
   return (
-    <li className="break-words">
-      <span className="font-bold">{who}</span> · <span className="font-mono text-xs">{c.field}</span>: {show(c.old)} → <strong>{show(c.new)}</strong>
+    <li className="rounded-lg border border-line bg-card p-3" data-testid="history-entry">
+      <p className="font-bold">
+        {s.authorName ?? 'Someone no longer in the firm'} · {formatUtcSpan(s.from, s.to)}
+      </p>
+      <p className="text-xs text-ink-soft">{revisions}</p>
+      {lines.length === 0 ? (
+        <p className="text-sm text-ink-soft">Nothing changed in the end (edits undone in the same sitting).</p>
+      ) : (
+        <ul className="mt-1 space-y-0.5 text-sm">
+          {lines.slice(0, 40).map((l, i) => {
+            const t = l.target;
+            const linkable = onShowInput && t && t.id && (t.kind === 'compartment' || t.kind === 'boundary' || t.kind === 'condition');
+            return (
+              <li key={i} className="break-words">
+                {changeLineText(l)}
+                {linkable && (
+                  <>
+                    {' '}
+                    <button type="button" className="text-sea underline" onClick={() => onShowInput({ kind: t.kind as InputTarget['kind'], id: t.id! })}>
+                      see inputs
+                    </button>
+                  </>
+                )}
+              </li>
+            );
+          })}
+          {lines.length > 40 && <li className="text-ink-soft">…and {countWords(lines.length - 40, 'more change')}</li>}
+        </ul>
+      )}
     </li>
   );
 }
@@ -40,7 +67,14 @@ function RevisionSelect(props: { label: string; revisions: { revision: number }[
   );
 }
 
-export function HistoryPanel({ surveyId, names, system }: { surveyId: string; names: Map<string, string>; system: UnitSystem }) {
+export function HistoryPanel(props: {
+  surveyId: string;
+  names: ReadonlyMap<string, string>;
+  system: UnitSystem;
+  shipTimeOffsetMin?: number;
+  onShowInput?: (t: InputTarget) => void;
+}) {
+  const { surveyId, names, system, shipTimeOffsetMin, onShowInput } = props;
   const revisions = useRevisions(surveyId);
   const list = revisions.data?.revisions ?? [];
   const [a, setA] = useState<number | null>(null);
@@ -48,6 +82,8 @@ export function HistoryPanel({ surveyId, names, system }: { surveyId: string; na
   const ra = a ?? (list.length > 1 ? list[list.length - 2]!.revision : null);
   const rb = b ?? (list.length > 0 ? list[list.length - 1]!.revision : null);
   const compare = useCompare(surveyId, ra, rb);
+  const sittings = useMemo(() => groupSittings(revisions.data?.revisions ?? []), [revisions.data]);
+  const words = (st: Sitting) => st.changes.flatMap((c) => changeWords(c, { system, names, shipTimeOffsetMin }));
 
   return (
     <section aria-labelledby="history-h" className="space-y-3">
@@ -67,7 +103,7 @@ export function HistoryPanel({ surveyId, names, system }: { surveyId: string; na
           {compare.data && (
             <div className="mt-2 overflow-x-auto" data-testid="revision-compare" tabIndex={0} role="region" aria-label="Revision comparison (scrolls sideways)">
               <p className="text-sm text-ink-soft">
-                {compare.data.differenceCount} numbers differ. Engines: {compare.data.a.engineVersion ?? '—'} / {compare.data.b.engineVersion ?? '—'}.
+                {countWords(compare.data.differenceCount, 'number differs', 'numbers differ')}. Engines: {compare.data.a.engineVersion ?? '—'} / {compare.data.b.engineVersion ?? '—'}.
               </p>
               <table className="mt-1 w-full text-sm">
                 <thead>
@@ -94,22 +130,8 @@ export function HistoryPanel({ surveyId, names, system }: { surveyId: string; na
         </div>
       )}
       <ol className="space-y-2" data-testid="revision-list">
-        {[...list].reverse().map((r) => (
-          <li key={r.revision} className="rounded-lg border border-line bg-card p-3">
-            <p className="font-bold">
-              Revision {r.revision} · {r.authorName ?? 'unknown'} · {when(r.at)}
-            </p>
-            {r.changes.length === 0 ? (
-              <p className="text-sm text-ink-soft">No field changes recorded.</p>
-            ) : (
-              <ul className="mt-1 space-y-0.5 text-sm">
-                {r.changes.slice(0, 40).map((c, i) => (
-                  <ChangeRow key={i} c={c} names={names} />
-                ))}
-                {r.changes.length > 40 && <li className="text-ink-soft">…and {r.changes.length - 40} more</li>}
-              </ul>
-            )}
-          </li>
+        {[...sittings].reverse().map((st) => (
+          <SittingEntry key={st.firstRevision} s={st} words={words} onShowInput={onShowInput} />
         ))}
       </ol>
     </section>

@@ -7,6 +7,7 @@ import type { SurveyResults } from '@shared/engine';
 import { RELATIVE_TOLERANCE, type ResultsAgreement } from '@shared/review/compare';
 import type { UnitSystem } from '@shared/units/units';
 import { fmt } from '@client/lib/unit-system';
+import { countWords } from '@shared/review/plain-words';
 
 export interface DeviceNumbers {
   results: SurveyResults | null;
@@ -41,12 +42,13 @@ export function NumbersCheck({
       state: 'engine',
     };
   else if (stale) verdict = { cls: 'border-caution bg-caution-soft', icon: '◆', text: `The server’s results are for revision ${serverRevision}; the survey is at ${revision}.`, state: 'stale' };
-  else verdict = { cls: 'border-danger bg-danger-soft', icon: '▲', text: `${agreement?.mismatches.length ?? 0} numbers differ between device and server.`, state: 'differ' };
+  else verdict = { cls: 'border-danger bg-danger-soft', icon: '▲', text: `${countWords(agreement?.mismatches.length ?? 0, 'number differs', 'numbers differ')} between device and server.`, state: 'differ' };
 
   const rows = server?.boundaries.map((sb) => {
     const db = device.results?.boundaries.find((b) => b.id === sb.id);
     const differs = agreement?.mismatches.some((m) => m.path.startsWith(`boundaries[id=${sb.id}]`)) ?? false;
-    return { id: sb.id, name: sb.name, server: sb.net.resultantN, device: db?.net.resultantN ?? null, differs };
+    // signed as in the results table (+ towards side B), so the two never disagree in sign
+    return { id: sb.id, name: sb.name, server: sb.net.forceN, device: db?.net.forceN ?? null, differs };
   });
 
   return (
@@ -57,7 +59,7 @@ export function NumbersCheck({
         {verdict.text}
       </p>
       <p className="mt-1 text-xs text-ink-soft">
-        Tolerance {RELATIVE_TOLERANCE.toExponential(0)} relative. Server engine {server?.engineVersion ?? '—'}
+        Tolerance: 1 part in 10<sup>{Math.round(-Math.log10(RELATIVE_TOLERANCE))}</sup>. Server engine {server?.engineVersion ?? '—'}
         {serverRevision !== null ? `, revision ${serverRevision}` : ''}; this device {device.results?.engineVersion ?? '—'}.
       </p>
       {rows && rows.length > 0 && (
@@ -65,7 +67,7 @@ export function NumbersCheck({
           <table className="w-full text-sm">
             <thead>
               <tr className="text-left text-xs uppercase text-ink-soft">
-                <th className="py-1 pr-2">Net load</th>
+                <th className="py-1 pr-2">Net force, + towards side B</th>
                 <th className="py-1 pr-2 text-right">Server</th>
                 <th className="py-1 pr-2 text-right">Device</th>
                 <th className="py-1 text-right">
@@ -77,8 +79,8 @@ export function NumbersCheck({
               {rows.map((r) => (
                 <tr key={r.id} className={`border-t border-line ${r.differs ? 'bg-danger-soft font-bold' : ''}`} data-differs={r.differs}>
                   <td className="py-1 pr-2">{r.name}</td>
-                  <td className="py-1 pr-2 text-right tabular-nums">{fmt(r.server, 'force', system)}</td>
-                  <td className="py-1 pr-2 text-right tabular-nums">{fmt(r.device, 'force', system)}</td>
+                  <td className="whitespace-nowrap py-1 pr-2 text-right tabular-nums">{fmt(r.server, 'force', system)}</td>
+                  <td className="whitespace-nowrap py-1 pr-2 text-right tabular-nums">{fmt(r.device, 'force', system)}</td>
                   <td className="py-1 text-right">{r.differs ? <span title="differs">▲ differs</span> : <span aria-label="same">=</span>}</td>
                 </tr>
               ))}

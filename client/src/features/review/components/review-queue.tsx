@@ -4,9 +4,9 @@ import { UtilisationBadge } from '@client/features/results/components/utilisatio
 import { paths } from '@client/config/paths';
 import { useQueue } from '../api/get-queue';
 import { StatusChip } from './status-chip';
+import { formatUtc } from '@shared/review/time-words';
 
-const when = (iso: string | null) =>
-  iso ? new Date(iso).toLocaleString('en-GB', { dateStyle: 'medium', timeStyle: 'short', timeZone: 'UTC' }) + ' UTC' : '—';
+const when = formatUtc;
 
 export function ReviewQueue() {
   const queue = useQueue();

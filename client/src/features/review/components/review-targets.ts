@@ -1,6 +1,7 @@
 /** The items of a survey a comment can attach to, with plain names. */
 import type { CommentTarget } from '@shared/api/review';
 import type { Survey } from '@shared/schemas/survey';
+import { conditionName } from '@shared/review/plain-words';
 
 export interface TargetOption {
   key: string;
@@ -15,10 +16,10 @@ export function targetOptions(doc: Survey): TargetOption[] {
   return [
     opt({ kind: 'survey', id: doc.id }, `Whole survey`),
     opt({ kind: 'vessel', id: doc.id }, `Vessel: ${doc.vessel.name}`),
-    ...doc.conditions.map((c) => opt({ kind: 'condition', id: c.id }, `Condition: ${c.name ?? new Date(c.time).toISOString().slice(0, 16).replace('T', ' ')}`)),
-    ...doc.compartments.map((c) => opt({ kind: 'compartment', id: c.id }, `Compartment: ${c.name}`)),
+    ...doc.conditions.map((c) => opt({ kind: 'condition', id: c.id }, `Readings: ${conditionName(c, doc.vessel.shipTimeOffsetMin)}`)),
+    ...doc.compartments.map((c) => opt({ kind: 'compartment', id: c.id }, `Space: ${c.name}`)),
     ...doc.boundaries.map((b) => opt({ kind: 'boundary', id: b.id }, `Boundary: ${b.name}`)),
-    ...(doc.photos ?? []).map((p) => opt({ kind: 'photo', id: p.id }, `Photo: ${p.caption || p.id.slice(0, 8)}`)),
+    ...(doc.photos ?? []).map((p) => opt({ kind: 'photo', id: p.id }, `Photo: ${p.caption || 'no caption'}`)),
   ];
 }
 

@@ -82,7 +82,7 @@ export function StatusActions({
           {change.isError && <p role="alert" className="text-danger">{change.error.message}</p>}
         </div>
       )}
-      {isSubmitter && status === 'in_review' && <p className="mt-2 text-sm text-ink-soft">You sent this survey, so another engineer must accept it.</p>}
+      {isSubmitter && status === 'in_review' && <p className="mt-2 text-sm text-ink-soft">You made, edited or sent this survey, so another engineer must accept it.</p>}
       {events.length > 0 && (
         <details className="mt-2 text-sm">
           <summary className="cursor-pointer font-bold">Status history ({events.length})</summary>

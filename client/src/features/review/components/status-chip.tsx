@@ -7,6 +7,8 @@ const CLS: Record<SurveyStatus, string> = {
   in_review: 'border-caution bg-caution-soft text-ink',
   accepted: 'border-ok bg-ok-soft text-ink',
   returned: 'border-danger bg-danger-soft text-ink',
+  // an accepted survey changed afterwards: as loud as a return, it needs a person's eyes again
+  changed_since_review: 'border-danger bg-danger-soft text-ink border-dashed',
 };
 
 export function StatusChip({ status }: { status: SurveyStatus }) {

@@ -1,5 +1,5 @@
 /** The engineer's verdict on the survey as a whole and on each boundary. */
-import { useState } from 'react';
+import { useEffect, useRef, useState } from 'react';
 import {
   BOUNDARY_VERDICT_LABELS,
   BOUNDARY_VERDICTS,
@@ -17,14 +17,35 @@ import { inputCls } from '@client/components/ui/fields';
 
 const SEVERITY_CLS = ['border-ok bg-ok-soft', 'border-caution bg-caution-soft', 'border-danger bg-danger-soft', 'border-danger bg-danger-soft'];
 
+/**
+ * A field's text as typed, over the value the server holds. A newer server value replaces the text
+ * only while nothing was typed since the last one arrived, so a save that returns (or another
+ * reviewer's refresh) never wipes what was typed after it was sent.
+ */
+function useDraft(server: string): [string, (v: string) => void] {
+  const [draft, setDraft] = useState(server);
+  const [base, setBase] = useState(server);
+  if (server !== base) {
+    setBase(server);
+    if (draft === base) setDraft(server);
+  }
+  return [draft, setDraft];
+}
+
 function BoundaryVerdictRow({ surveyId, boundary, current, editable }: { surveyId: string; boundary: { id: string; name: string }; current?: Verdict; editable: boolean }) {
-  const set = useSetVerdict(surveyId);
-  const [note, setNote] = useState(current?.note ?? '');
-  const value = (current?.verdict ?? '') as BoundaryVerdictValue | '';
-  const choose = (v: string) => {
-    if (!v) return;
-    set.mutate({ scope: 'boundary', boundaryId: boundary.id, verdict: v as BoundaryVerdictValue, note: note || undefined });
+  const set = useSetVerdict(surveyId, boundary.id);
+  const [note, setNote] = useDraft(current?.note ?? '');
+  const [value, setValue] = useDraft(current?.verdict ?? '');
+  /** What was last sent, so a note is saved once, and saved when the row goes away before its blur. */
+  const sent = useRef({ verdict: current?.verdict ?? '', note: current?.note ?? '' });
+  const send = (verdict: string, text: string) => {
+    if (!verdict || (verdict === sent.current.verdict && text === sent.current.note)) return;
+    sent.current = { verdict, note: text };
+    set.mutate({ scope: 'boundary', boundaryId: boundary.id, verdict: verdict as BoundaryVerdictValue, note: text || undefined });
   };
+  const latest = useRef(() => {});
+  latest.current = () => send(value, note);
+  useEffect(() => () => latest.current(), []);
   return (
     <li className={`rounded border-2 p-2 ${current ? SEVERITY_CLS[verdictSeverity(current.verdict)] : 'border-line'}`} data-testid="boundary-verdict" data-boundary={boundary.name}>
       <label className="block font-bold" htmlFor={`bv-${boundary.id}`}>
@@ -35,8 +56,11 @@ function BoundaryVerdictRow({ surveyId, boundary, current, editable }: { surveyI
           id={`bv-${boundary.id}`}
           className={`${inputCls} flex-1`}
           value={value}
-          disabled={!editable || set.isPending}
-          onChange={(e) => choose(e.target.value)}
+          disabled={!editable}
+          onChange={(e) => {
+            setValue(e.target.value);
+            send(e.target.value, note);
+          }}
         >
           <option value="">No verdict</option>
           {BOUNDARY_VERDICTS.map((v) => (
@@ -53,7 +77,7 @@ function BoundaryVerdictRow({ surveyId, boundary, current, editable }: { surveyI
         value={note}
         disabled={!editable}
         onChange={(e) => setNote(e.target.value)}
-        onBlur={() => value && note !== (current?.note ?? '') && choose(value)}
+        onBlur={() => send(value, note)}
       />
       {set.isError && <p role="alert" className="text-sm text-danger">{set.error.message}</p>}
     </li>
@@ -61,10 +85,11 @@ function BoundaryVerdictRow({ surveyId, boundary, current, editable }: { surveyI
 }
 
 export function VerdictPanel({ surveyId, doc, verdicts, editable }: { surveyId: string; doc: Survey; verdicts: Verdict[]; editable: boolean }) {
-  const set = useSetVerdict(surveyId);
+  const set = useSetVerdict(surveyId, 'survey');
   const surveyVerdict = verdicts.find((v) => v.scope === 'survey');
-  const [note, setNote] = useState(surveyVerdict?.note ?? '');
-  const [choice, setChoice] = useState<SurveyVerdictValue | ''>((surveyVerdict?.verdict as SurveyVerdictValue) ?? '');
+  const [note, setNote] = useDraft(surveyVerdict?.note ?? '');
+  const [choiceText, setChoice] = useDraft(surveyVerdict?.verdict ?? '');
+  const choice = choiceText as SurveyVerdictValue | '';
   return (
     <section aria-labelledby="verdicts-h" className="rounded-lg border border-line bg-card p-3">
       <h2 id="verdicts-h" className="text-lg">
@@ -110,7 +135,7 @@ export function VerdictPanel({ surveyId, doc, verdicts, editable }: { surveyId: 
       <ul className="mt-2 space-y-2">
         {doc.boundaries.map((b) => (
           <BoundaryVerdictRow
-            key={`${b.id}:${verdicts.find((v) => v.boundaryId === b.id)?.setAt ?? ''}`}
+            key={b.id}
             surveyId={surveyId}
             boundary={b}
             current={verdicts.find((v) => v.scope === 'boundary' && v.boundaryId === b.id)}

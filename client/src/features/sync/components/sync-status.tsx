@@ -44,7 +44,7 @@ export function SyncStatus() {
   return (
     <details className="relative" data-testid="sync-status" data-state={s.state} data-pending={s.pending}>
       <summary
-        className={`flex min-h-touch cursor-pointer list-none items-center gap-1.5 rounded-full px-3 text-sm font-bold ${l.tone}`}
+        className={`flex min-h-touch cursor-pointer list-none items-center gap-1.5 whitespace-nowrap rounded-full px-3 text-sm font-bold ${l.tone}`}
         aria-label={`Sync: ${l.text}`}
       >
         <span aria-hidden="true">{l.icon}</span>

@@ -15,6 +15,7 @@ import { newId } from '../utils/new-entities';
 import { withMark, type FigureMark } from '@shared/schemas/marks';
 import { MarkChip } from './mark-chip';
 import { facetOrientation, reverseFacets } from '@shared/engine';
+import { BOUNDARY_KIND_WORDS, END_CONDITION_WORDS } from '@shared/review/plain-words';
 
 /** The chip under one of the plate's figures, kept in the form's `marks` value. */
 function PlateMark({ form, field, filled = true }: { form: UseFormReturn<BoundaryForm, unknown, Boundary>; field: string; filled?: boolean }) {
@@ -23,16 +24,8 @@ function PlateMark({ form, field, filled = true }: { form: UseFormReturn<Boundar
   return <MarkChip mark={marks[field]} onChange={set} canEstimate={filled} />;
 }
 
-export const KIND_LABEL: Record<Boundary['kind'], string> = {
-  bulkhead: 'Bulkhead',
-  deck: 'Deck',
-  'tank-top': 'Tank top',
-  'hatch-cover': 'Hatch cover',
-  door: 'Door',
-  manhole: 'Manhole cover',
-  shell: 'Shell plating',
-  patch: 'Patch',
-};
+/** Boundary kinds as the form shows them: the one table of words, capitalised. */
+export const KIND_LABEL = Object.fromEntries(Object.entries(BOUNDARY_KIND_WORDS).map(([k, w]) => [k, w[0]!.toUpperCase() + w.slice(1)])) as Record<Boundary['kind'], string>;
 
 const PLANE_LABEL = {
   transverse: 'Transverse (across the ship, at an x position)',
@@ -70,7 +63,7 @@ export function BoundaryEditor({ boundary, survey, apply, system }: { boundary: 
           name="parent"
           label="Set in (door or hatch)"
           errors={{ parent: errorAt(e, 'parentBoundaryId') }}
-          options={[{ value: '', label: 'Not set in another plate' }, ...parents.map((b) => ({ value: b.id, label: b.name }))]}
+          options={[{ value: '', label: 'Not set in another boundary' }, ...parents.map((b) => ({ value: b.id, label: b.name }))]}
         />
       </div>
       <div className="grid grid-cols-2 gap-3">
@@ -94,8 +87,8 @@ export function BoundaryEditor({ boundary, survey, apply, system }: { boundary: 
               label="Side A lies"
               errors={{}}
               options={[
-                { value: 'low', label: `${words.low} of the plate` },
-                { value: 'high', label: `${words.high} of the plate` },
+                { value: 'low', label: `${words.low} the boundary` },
+                { value: 'high', label: `${words.high} the boundary` },
               ]}
             />
           </div>
@@ -167,7 +160,7 @@ export function BoundaryEditor({ boundary, survey, apply, system }: { boundary: 
           />
           <NumberInput register={register} name="stSpacing" label="Spacing" unit={lu} errors={{ stSpacing: errorAt(e, 'stiffening.spacingM') }} />
           <NumberInput register={register} name="stFirst" label="First from edge" unit={lu} errors={{ stFirst: errorAt(e, 'stiffening.firstOffsetM') }} hint="empty: one spacing" />
-          <NumberInput register={register} name="stSpan" label="Span" unit={lu} errors={{ stSpan: errorAt(e, 'stiffening.spanM') }} hint="empty: across the plate" />
+          <NumberInput register={register} name="stSpan" label="Span" unit={lu} errors={{ stSpan: errorAt(e, 'stiffening.spanM') }} hint="empty: across the boundary" />
           <SelectInput
             register={register}
             name="stFix"
@@ -461,12 +454,7 @@ function ShoreFields({ form, system }: { form: UseFormReturn<BoundaryForm, unkno
               name={`shores.${i}.end`}
               label="Ends"
               errors={{}}
-              options={[
-                { value: 'pinned-pinned', label: 'Pinned both ends' },
-                { value: 'fixed-pinned', label: 'Fixed one end, pinned other' },
-                { value: 'fixed-fixed', label: 'Fixed both ends' },
-                { value: 'fixed-free', label: 'Fixed one end, free other' },
-              ]}
+              options={Object.entries(END_CONDITION_WORDS).map(([value, words]) => ({ value, label: words[0]!.toUpperCase() + words.slice(1) }))}
             />
             <SelectInput
               register={register}
@@ -478,7 +466,7 @@ function ShoreFields({ form, system }: { form: UseFormReturn<BoundaryForm, unkno
                 { value: 'A', label: 'A' },
               ]}
             />
-            <NumberInput register={register} name={`shores.${i}.angle`} label="Angle from square" unit="°" errors={{ shores: { [i]: { angle: err(i, 'angleFromNormalDeg') } } }} hint="empty: square to the plate" />
+            <NumberInput register={register} name={`shores.${i}.angle`} label="Angle from square" unit="°" errors={{ shores: { [i]: { angle: err(i, 'angleFromNormalDeg') } } }} hint="empty: square to the boundary" />
             <SelectInput
               register={register}
               name={`shores.${i}.method`}

@@ -15,6 +15,8 @@ import type { Survey } from '@shared/schemas/survey';
 import { settleMarks, withMark, type Marks } from '@shared/schemas/marks';
 import { MarkChip } from './mark-chip';
 import { withheldSentence } from '@shared/engine';
+import { formatShipAndUtc } from '@shared/review/time-words';
+import { conditionName } from '@shared/review/plain-words';
 
 type LevelKind = LevelSource['kind'];
 
@@ -292,7 +294,7 @@ export function ContentsSection({ survey, results, apply, system, selectedId, se
       <h2 id="contents-h" className="text-2xl">
         Contents
       </h2>
-      <p className="text-sm text-ink-soft">In the readings of {new Date(condition.time).toLocaleString()}. Layers from the bottom up; the top of each is where its level was read.</p>
+      <p className="text-sm text-ink-soft">In the readings “{conditionName(condition, survey.vessel.shipTimeOffsetMin)}”, taken {formatShipAndUtc(condition.time, survey.vessel.shipTimeOffsetMin)}. Layers from the bottom up; the top of each is where its level was read.</p>
       {survey.compartments.length === 0 ? (
         <p className="text-ink-soft">Add compartments under Spaces first.</p>
       ) : (

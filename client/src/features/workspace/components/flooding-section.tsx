@@ -17,6 +17,7 @@ import { measureLabel, parseField } from '../utils/form-units';
 import { activeCondition } from '../utils/new-entities';
 import { newId } from '../utils/new-entities';
 import type { Apply, SectionProps } from '../utils/types';
+import { formatUtc } from '@shared/review/time-words';
 
 type Errors = Record<string, string>;
 
@@ -30,7 +31,7 @@ function Input({ id, label, unit, value, onChange, error, type = 'text', inputMo
 
 function Select({ id, label, value, onChange, children, error }: { id: string; label: string; value: string; onChange: (v: string) => void; children: ReactNode; error?: string }) {
   return (
-    <Field id={id} label={label} error={error}>
+    <Field id={id} label={label} error={error} wide>
       <select id={id} className={inputCls} value={value} onChange={(e) => onChange(e.target.value)} aria-invalid={!!error} aria-describedby={describedBy(id, undefined, error)}>
         {children}
       </select>
@@ -183,7 +184,7 @@ function SoundingForm({ comp, system, apply }: { comp: Compartment; system: Unit
       <ul className="text-sm" aria-label="Sounding log">
         {readings.map((r) => (
           <li key={r.time}>
-            {new Date(r.time).toISOString().slice(0, 16).replace('T', ' ')} UTC: {fmt(r.soundingM, 'length', system, 3)}
+            {formatUtc(r.time)}: {fmt(r.soundingM, 'length', system, 3)}
             {r.pumpIds?.length ? ` · pumps ran: ${r.pumpIds.map((id) => comp.pumps?.find((q) => q.id === id)?.name ?? '?').join(', ')}` : ''}
           </li>
         ))}

@@ -2,36 +2,12 @@
 import { useEffect, useId, useMemo, useRef, useState } from 'react';
 import { useLiveQuery } from 'dexie-react-hooks';
 import { db, type LocalPhoto } from '@client/offline/db';
-import { apiFetch } from '@client/lib/api-client';
+import { ServerPhoto, useObjectUrl } from '@client/components/photos/server-photo';
 import type { PhotoRef } from '@shared/schemas/survey';
 import type { SectionProps } from '../utils/types';
 import { dangerBtn, inputCls, primaryBtn, secondaryBtn } from '@client/components/ui/fields';
 import { newId } from '../utils/new-entities';
 import { startPhotoUploads, uploadPhotosNow, usePhotoUploadStatus } from '../api/upload-photos';
-
-function useObjectUrl(blob: Blob | undefined): string | undefined {
-  const url = useMemo(() => (blob ? URL.createObjectURL(blob) : undefined), [blob]);
-  useEffect(() => () => (url ? URL.revokeObjectURL(url) : undefined), [url]);
-  return url;
-}
-
-function ServerPhoto({ id, alt }: { id: string; alt: string }) {
-  const [blob, setBlob] = useState<Blob | undefined>();
-  const [failed, setFailed] = useState(false);
-  useEffect(() => {
-    let live = true;
-    apiFetch(`/api/photos/${id}`)
-      .then((r) => r.blob())
-      .then((b) => live && setBlob(b))
-      .catch(() => live && setFailed(true));
-    return () => {
-      live = false;
-    };
-  }, [id]);
-  const url = useObjectUrl(blob);
-  if (failed) return <div className="grid h-32 place-items-center bg-paper text-sm text-ink-soft">On the server (connect to see it)</div>;
-  return url ? <img src={url} alt={alt} className="h-32 w-full object-cover" /> : <div className="h-32 bg-paper" />;
-}
 
 function LocalThumb({ photo, alt }: { photo: LocalPhoto; alt: string }) {
   const url = useObjectUrl(photo.blob);
@@ -44,7 +20,7 @@ export function PhotosSection({ survey, apply, selectedId }: SectionProps) {
   const targets = useMemo(
     () => [
       ...survey.compartments.map((c) => ({ value: `compartment:${c.id}`, label: `Space: ${c.name}` })),
-      ...survey.boundaries.map((b) => ({ value: `boundary:${b.id}`, label: `Plate: ${b.name}` })),
+      ...survey.boundaries.map((b) => ({ value: `boundary:${b.id}`, label: `Boundary: ${b.name}` })),
       { value: `survey:${survey.id}`, label: 'The survey as a whole' },
     ],
     [survey],

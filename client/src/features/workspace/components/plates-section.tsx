@@ -1,4 +1,4 @@
-/** "Plates": every boundary; one step from a compartment's face, doors and hatches set in a plate. */
+/** "Boundaries": every boundary; one step from a compartment's face, doors and hatches set in a plate. */
 import { useState } from 'react';
 import type { Boundary } from '@shared/schemas/survey';
 import type { SectionProps } from '../utils/types';
@@ -65,11 +65,11 @@ export function PlatesSection({ survey, rows, apply, system, selectedId, select 
   return (
     <section aria-labelledby="plates-h" className="space-y-4">
       <h2 id="plates-h" className="text-2xl">
-        Plates
+        Boundaries
       </h2>
       {survey.compartments.length > 0 && (
         <div className="rounded-lg border border-line bg-card p-3">
-          <p className="font-bold">New plate from a compartment’s face</p>
+          <p className="font-bold">New boundary from a space’s face</p>
           <div className="mt-1 grid gap-2 sm:grid-cols-[1fr_1fr_auto]">
             <label className="text-sm font-bold">
               Face
@@ -83,7 +83,7 @@ export function PlatesSection({ survey, rows, apply, system, selectedId, select 
             </label>
             <label className="text-sm font-bold">
               of
-              <select className={`${inputCls} mt-0.5`} value={compId} onChange={(e) => setFaceComp(e.target.value)} aria-label="Compartment of the face">
+              <select className={`${inputCls} mt-0.5`} value={compId} onChange={(e) => setFaceComp(e.target.value)} aria-label="Space of the face">
                 {survey.compartments.map((c) => (
                   <option key={c.id} value={c.id}>
                     {c.name}
@@ -95,13 +95,13 @@ export function PlatesSection({ survey, rows, apply, system, selectedId, select 
               Create
             </button>
           </div>
-          <p className="mt-1 text-xs text-ink-soft">Side A is the compartment; side B the space sharing that face, else the sea (sides and bottom) or open air.</p>
+          <p className="mt-1 text-xs text-ink-soft">Side A is that space; side B the space sharing that face, else the sea (sides and bottom) or open air.</p>
         </div>
       )}
       <button type="button" className={secondaryBtn} onClick={() => void create(newBoundary(survey))}>
-        + Plate by plane and outline
+        + Boundary by plane and outline
       </button>
-      <ul className="space-y-1" aria-label="Plates">
+      <ul className="space-y-1" aria-label="Boundaries">
         {survey.boundaries.map((b) => {
           const r = rowById.get(b.id);
           return (

@@ -13,6 +13,7 @@ import type { Apply, SectionProps } from '../utils/types';
 import { activeCondition, newCondition } from '../utils/new-entities';
 import { formatNumber } from '@shared/units/units';
 import { display, unitLabel } from '@client/lib/unit-system';
+import { formatShipAndUtc } from '@shared/review/time-words';
 
 interface ConditionForm {
   name: string;
@@ -124,7 +125,7 @@ export function ReadingsSection({ survey, apply, system }: SectionProps) {
   const active = activeCondition(survey);
   const sorted = [...survey.conditions].sort((a, b) => a.time.localeCompare(b.time));
   const addReading = async () => {
-    const c = newCondition(active);
+    const c = newCondition(active, `Readings ${survey.conditions.length + 1}`);
     await apply({ kind: 'upsert', collection: 'conditions', entity: c });
     await apply({ kind: 'set', path: 'activeConditionId', value: c.id });
   };
@@ -141,8 +142,8 @@ export function ReadingsSection({ survey, apply, system }: SectionProps) {
       <ul className="space-y-1" aria-label="Sets of readings">
         {sorted.map((c) => (
           <li key={c.id} className={`flex flex-wrap items-center gap-2 rounded-md border-2 p-2 ${c.id === active.id ? 'border-hull bg-sea-soft' : 'border-line bg-card'}`}>
-            <span className="font-bold">{c.name ?? 'Readings'}</span>
-            <span className="text-sm text-ink-soft">{new Date(c.time).toLocaleString()}</span>
+            <span className="font-bold">{c.name ?? 'Readings (no name)'}</span>
+            <span className="text-sm text-ink-soft">{formatShipAndUtc(c.time, survey.vessel.shipTimeOffsetMin)}</span>
             {c.id === active.id ? (
               <span className="ml-auto rounded bg-hull px-2 py-0.5 text-sm font-bold text-paper">used for loads</span>
             ) : (

@@ -261,7 +261,7 @@ function DeleteCompartment({ survey, compartment, apply, onDeleted }: { survey: 
   if (users.length > 0) {
     return (
       <p className="mt-2 text-sm text-ink-soft">
-        To delete {compartment.name}, first change or delete the plates that face it: {users.map((b) => b.name).join(', ')}.
+        To delete {compartment.name}, first change or delete the boundaries that face it: {users.map((b) => b.name).join(', ')}.
       </p>
     );
   }

@@ -24,10 +24,10 @@ type FigureKey =
 interface FigureSpec {
   key: FigureKey;
   label: string;
+  /** The name US users know it by (TPI, MTI), when it differs. */
+  usLabel?: string;
   measure: Measure;
-  /** Fixed unit label for the trade's metric booklet units. */
-  fixedUnit?: string;
-  /** Schema value = SI value × this (t for displacement). */
+  /** Schema value = SI value × this (t for displacement, t/cm for TPC, t·m/cm for MCT 1 cm); the field shows the user's unit. */
   scale?: number;
   required: boolean;
   hint?: string;
@@ -41,10 +41,10 @@ const BOOKLET: FigureSpec[] = [
   { key: 'lcgM', label: 'LCG', measure: 'length', required: true, hint: 'from the aft perpendicular' },
   { key: 'tcgM', label: 'TCG', measure: 'length', required: false, hint: 'to port; empty: centreline' },
   { key: 'lcbM', label: 'LCB', measure: 'length', required: false, hint: 'empty: even keel' },
-  { key: 'tpcT', label: 'TPC', measure: 'ratio', fixedUnit: 't/cm', required: false, hint: 'give TPC or waterplane area' },
+  { key: 'tpcT', label: 'TPC', usLabel: 'TPI (tons per inch)', measure: 'immersion', scale: 1e-5, required: false, hint: 'give TPC or waterplane area' },
   { key: 'waterplaneAreaM2', label: 'Waterplane area', measure: 'area', required: false, hint: 'give TPC or waterplane area' },
   { key: 'lcfM', label: 'LCF', measure: 'length', required: true, hint: 'from the aft perpendicular' },
-  { key: 'mct1cmTM', label: 'MCT 1 cm', measure: 'ratio', fixedUnit: 't·m/cm', required: true },
+  { key: 'mct1cmTM', label: 'MCT 1 cm', usLabel: 'MTI (moment to trim 1 inch)', measure: 'trimMoment', scale: 1e-5, required: true },
   { key: 'kmM', label: 'KM', measure: 'length', required: true },
 ];
 
@@ -64,6 +64,8 @@ interface StabilityForm {
   openSpaceMethod: 'lost-buoyancy' | 'added-weight';
   particulars: Partial<Record<FigureKey, FigureText>>;
 }
+
+const labelOf = (f: FigureSpec, system: UnitSystem) => (system === 'us' && f.usLabel ? f.usLabel : f.label);
 
 const MEASURES = byKey(Object.fromEntries([...BOOKLET, ...BOX].map((f) => [f.key, f.measure])));
 const specsOf = (kind: StabilityForm['kind']) => (kind === 'box' ? BOX : BOOKLET);
@@ -149,17 +151,17 @@ function ParticularsEditor({ condition, survey, apply, system }: { condition: Co
       <div className="grid gap-3 sm:grid-cols-2" key={kind}>
         {specsOf(kind).map((f) => (
           <fieldset key={f.key} className="space-y-1 rounded-md border border-line p-2">
-            <legend className="sr-only">{f.label}</legend>
+            <legend className="sr-only">{labelOf(f, system)}</legend>
             <NumberInput
               register={register}
               name={`particulars.${f.key}.value`}
-              label={f.label}
-              unit={f.fixedUnit ?? (f.scale ? 't' : measureLabel(f.measure, system))}
+              label={labelOf(f, system)}
+              unit={measureLabel(f.measure, system)}
               errors={formState.errors}
               hint={f.hint ?? (f.required ? undefined : 'optional')}
             />
             {kind === 'booklet' && (
-              <TextInput register={register} name={`particulars.${f.key}.from`} label={`${f.label} from`} errors={formState.errors} placeholder="e.g. booklet p. 34" />
+              <TextInput register={register} name={`particulars.${f.key}.from`} label={`${labelOf(f, system)} from`} errors={formState.errors} placeholder="e.g. booklet p. 34" />
             )}
           </fieldset>
         ))}
@@ -257,7 +259,7 @@ function DownfloodingEditor({ survey, apply, system }: { survey: SectionProps['s
           />
           {errors.name && <span className="block text-danger">▲ {errors.name}</span>}
         </label>
-        <label className="block text-sm font-bold">
+        <label className="block text-sm font-bold max-sm:col-span-full">
           Kind
           <select className="min-h-touch w-full rounded-md border-2 border-line bg-card px-2" value={draft.kind} onChange={(e) => setDraft({ ...draft, kind: e.target.value })}>
             {DOWNFLOODING_KINDS.map((k) => (

@@ -19,14 +19,11 @@ import { paths } from '@client/config/paths';
 import type { SurveyStatus } from '@shared/schemas/sync';
 import { inputCls, primaryBtn } from '@client/components/ui/fields';
 import { ImportButton } from './survey-file';
+import { formatLocal } from '@shared/review/time-words';
+import { STATUS_LABELS } from '@shared/review/status';
 
-const STATUS_LABEL: Record<SurveyStatus, string> = {
-  draft: 'Draft',
-  submitted: 'Submitted',
-  in_review: 'In review',
-  accepted: 'Accepted',
-  returned: 'Returned',
-};
+// the same words as the status chips on the desk and the device
+const STATUS_LABEL = STATUS_LABELS;
 
 interface Row {
   survey: LocalSurvey;
@@ -74,7 +71,7 @@ export function SurveyList() {
         ),
       }),
       col.accessor((r) => r.survey.status, { id: 'status', header: 'Status', cell: (c) => STATUS_LABEL[c.getValue()] }),
-      col.accessor((r) => r.survey.updatedAt, { id: 'updated', header: 'Last edit', cell: (c) => new Date(c.getValue()).toLocaleString() }),
+      col.accessor((r) => r.survey.updatedAt, { id: 'updated', header: 'Last edit', cell: (c) => formatLocal(c.getValue()) }),
       col.accessor((r) => r.pending, {
         id: 'sync',
         header: 'Sync',

@@ -31,13 +31,16 @@ import { ExportButton } from './survey-file';
 import { ReportButton } from '@client/components/report/report-button';
 import { ModelSection } from './model-section';
 import { SurveyReviewBar } from '@client/features/review-notes/components/survey-review-bar';
+import { SurveyInputs, type InputPart, type InputTarget } from '@client/features/survey-inputs/components/survey-inputs';
+import { changeSendsBackWarning } from '@shared/review/status';
+import { ReviewedGuard } from './reviewed-guard';
 
 const SECTIONS = [
   { id: 'ship', label: 'Ship' },
   { id: 'readings', label: 'Readings' },
   { id: 'spaces', label: 'Spaces' },
   { id: 'contents', label: 'Contents' },
-  { id: 'plates', label: 'Plates' },
+  { id: 'plates', label: 'Boundaries' },
   { id: 'loads', label: 'Loads' },
   { id: 'stability', label: 'Stability' },
   { id: 'flooding', label: 'Flooding' },
@@ -45,6 +48,16 @@ const SECTIONS = [
   { id: 'photos', label: 'Photos' },
 ] as const;
 type SectionId = (typeof SECTIONS)[number]['id'];
+/** Sections that only show results: readable while a reviewed survey's forms are locked. */
+const READ_ONLY_SECTIONS: ReadonlySet<SectionId> = new Set(['loads', 'model']);
+
+/** The input an item id of the address names (`?item=`), for the read-only view to open. */
+function inputTargetOf(survey: Survey, id: string): InputTarget | null {
+  if (survey.boundaries.some((b) => b.id === id)) return { kind: 'boundary', id };
+  if (survey.compartments.some((c) => c.id === id)) return { kind: 'compartment', id };
+  if (survey.conditions.some((c) => c.id === id)) return { kind: 'condition', id };
+  return null;
+}
 
 /** The lean results of every edit (computeSurveySummary) and their boundary rows. */
 function useResults(survey: Survey | undefined): { results: SurveySummary | null; rows: BoundarySummary[]; error: string | null } {
@@ -66,7 +79,16 @@ export function Workspace({ surveyId }: { surveyId: string }) {
   const section = (SECTIONS.find((s) => s.id === params.get('s'))?.id ?? 'ship') as SectionId;
   const selectedId = params.get('item');
   const [editError, setEditError] = useState<string | null>(null);
+  // "Make changes" said for this survey in this status (a change of status asks again)
+  const [confirmedFor, setConfirmedFor] = useState<string | null>(null);
+  const pending = usePendingCount(surveyId) ?? 0;
+  const warning = local ? changeSendsBackWarning(local.status) : null;
+  // edits already waiting on this device mean the surveyor chose to change it (e.g. before a reload)
+  const locked = warning !== null && confirmedFor !== `${surveyId}:${local?.status}` && pending === 0;
   const survey = local?.doc;
+  const { user } = useSession();
+  // an engineer reviews a surveyor's survey on the desk: here its fields are shown, never editable
+  const readOnly = user?.role === 'engineer' && !!local?.ownerUserId && local.ownerUserId !== user.id;
   const { results, rows, error } = useResults(survey);
   // the aside is for wide screens only: on a phone it is not rendered at all (not merely hidden)
   const wide = useMediaQuery(WIDE_SCREEN);
@@ -100,6 +122,14 @@ export function Workspace({ surveyId }: { surveyId: string }) {
   );
   const apply = useCallback(
     async (op: EditOp) => {
+      if (readOnly) {
+        setEditError('Read-only: this survey’s figures are the surveyor’s. Comment on the review desk instead.');
+        throw new Error('read-only');
+      }
+      if (locked) {
+        setEditError('Choose “Make changes” first: this survey has been reviewed.');
+        throw new Error('locked until the surveyor chooses to make changes');
+      }
       try {
         await applyLocalChange(surveyId, op);
         setEditError(null);
@@ -108,7 +138,7 @@ export function Workspace({ surveyId }: { surveyId: string }) {
         throw err;
       }
     },
-    [surveyId],
+    [surveyId, readOnly, locked],
   );
 
   if (local === undefined) return <p className="p-4 text-ink-soft">Opening the survey on this device…</p>;
@@ -137,6 +167,26 @@ export function Workspace({ surveyId }: { surveyId: string }) {
     model: <ModelSection {...props} open={open} />,
     photos: <PhotosSection {...props} />,
   };
+  if (readOnly) {
+    const focus = selectedId ? inputTargetOf(survey, selectedId) : null;
+    const view = (part: InputPart) => <SurveyInputs doc={survey} system={system} focus={focus} part={part} />;
+    const frozen = (node: ReactNode) => (
+      <fieldset disabled className="m-0 min-w-0 border-0 p-0">
+        <legend className="sr-only">Read-only</legend>
+        {node}
+      </fieldset>
+    );
+    Object.assign(body, {
+      ship: view('ship'),
+      readings: view('readings'),
+      spaces: view('spaces'),
+      contents: view('spaces'),
+      plates: view('boundaries'),
+      photos: view('photos'),
+      stability: frozen(body.stability),
+      flooding: frozen(body.flooding),
+    });
+  }
   const sideResults = section !== 'loads' && section !== 'model' && section !== 'flooding';
 
   return (
@@ -148,7 +198,7 @@ export function Workspace({ surveyId }: { surveyId: string }) {
         <h1 className="order-first min-w-0 basis-full truncate text-xl sm:order-none sm:basis-auto sm:flex-1 sm:text-2xl" title={survey.title}>
           {survey.vessel.name} <span className="font-normal text-ink-soft">· {survey.title}</span>
         </h1>
-        <SurveySyncChip surveyId={surveyId} />
+        <SurveySyncChip surveyId={surveyId} onServer={local.serverRevision > 0} />
         <UnitToggle />
         <ExportButton survey={survey} />
         <ReportButton surveyId={surveyId} />
@@ -171,10 +221,25 @@ export function Workspace({ surveyId }: { surveyId: string }) {
           ))}
         </ul>
       </nav>
+      {readOnly && (
+        <p className="mx-3 mt-2 rounded-md border-2 border-hull bg-sea-soft p-2 sm:mx-5" data-testid="read-only-notice">
+          <strong>Read-only for you.</strong> This is {local.createdBy?.name ?? 'the surveyor'}’s survey: as an engineer you can look at every
+          figure here, but not change them. Comment, set verdicts and limits on the{' '}
+          <Link className="font-bold underline" to={paths.reviewSurvey(surveyId)}>
+            review desk
+          </Link>
+          .
+        </p>
+      )}
       <StateStrip results={results} rows={rows} error={error} system={system} onOpen={() => go('loads')} />
       <div className="mx-3 mt-2 sm:mx-5">
         <SurveyReviewBar surveyId={surveyId} survey={survey} />
       </div>
+      {warning && !readOnly && (
+        <div className="mx-3 mt-2 sm:mx-5">
+          <ReviewedGuard warning={warning} locked={locked} onConfirm={() => setConfirmedFor(`${surveyId}:${local.status}`)} />
+        </div>
+      )}
       {editError && (
         <p className="mx-3 mt-2 rounded-md border-2 border-danger bg-danger-soft p-2 font-bold sm:mx-5" role="alert">
           <span aria-hidden="true">▲ </span>
@@ -182,7 +247,12 @@ export function Workspace({ surveyId }: { surveyId: string }) {
         </p>
       )}
       <div className={`gap-6 px-3 pt-4 sm:px-5 ${sideResults ? 'lg:grid lg:grid-cols-[minmax(0,1fr)_minmax(0,26rem)]' : ''}`}>
-        <div className="min-w-0">{body[section]}</div>
+        <div className="min-w-0">
+          {/* disabled: every field and button of the forms at once, until "Make changes" */}
+          <fieldset disabled={locked && !readOnly && !READ_ONLY_SECTIONS.has(section)} className="m-0 min-w-0 border-0 p-0">
+            {body[section]}
+          </fieldset>
+        </div>
         {sideResults && wide && results && (
           <aside className="mt-6 space-y-3 lg:mt-0" aria-label="Loads at a glance">
             <h2 className="text-lg">Loads now</h2>
@@ -274,10 +344,12 @@ function UnitToggle() {
   );
 }
 
-function SurveySyncChip({ surveyId }: { surveyId: string }) {
+function SurveySyncChip({ surveyId, onServer }: { surveyId: string; onServer: boolean }) {
   const pending = usePendingCount(surveyId) ?? 0;
   const sync = useSyncState();
-  const text = pending > 0 ? (sync.state === 'offline' ? `${pending} to sync (offline)` : `${pending} to sync`) : sync.state === 'offline' ? 'On this device' : 'Synced';
+  const offline = sync.state === 'offline';
+  // a survey whose every edit reached the server is synced, whether or not the link is up now
+  const text = pending > 0 ? (offline ? `${pending} to sync (offline)` : `${pending} to sync`) : !onServer ? 'Only on this device' : offline ? 'Synced (now offline)' : 'Synced';
   return (
     <span className={`rounded-md border-2 px-2 py-1 text-sm font-bold ${pending > 0 ? 'border-caution bg-caution-soft' : 'border-ok bg-ok-soft'}`} data-testid="survey-sync">
       {text}

@@ -1,6 +1,12 @@
 /**
  * Saves a form to the device store shortly after each change, once it validates: loads update as the
  * surveyor types, and a value that fails validation stays in the field (never lost, never saved).
+ *
+ * Nothing typed is lost to the pause: an edit still waiting for it is saved at once when the form goes
+ * away (the surveyor taps another section or item), when the page is hidden or closed (`pagehide`,
+ * `visibilitychange`: a phone may kill a hidden tab without another event) and when the link drops
+ * (`offline`: the surveyor may put the phone away next). Saves run one after another, in the order
+ * typed, so an older value never lands after a newer one.
  */
 import { useEffect, useRef, useState } from 'react';
 import type { FieldValues, UseFormReturn } from 'react-hook-form';
@@ -19,27 +25,57 @@ export function useAutosave<FV extends FieldValues, Out>(
   });
   useEffect(() => {
     let timer: ReturnType<typeof setTimeout> | undefined;
-    const sub = form.watch((_values, info) => {
-      if (!info.name) return;
-      setState('pending');
+    let waiting = false;
+    /** Edits seen so far; a save reports "saved" only if nothing was typed after it started. */
+    let edits = 0;
+    let chain: Promise<void> = Promise.resolve();
+    /** `now`: the page is going away; start at once (the device store notes the edit before its first wait), not after earlier saves. */
+    const saveNow = (now = false) => {
       clearTimeout(timer);
-      timer = setTimeout(() => {
-        void form.handleSubmit(
+      timer = undefined;
+      if (!waiting) return;
+      waiting = false;
+      const startedAt = edits;
+      const current = () => startedAt === edits;
+      const submit = () =>
+        form.handleSubmit(
           async (v) => {
             try {
               await saveRef.current(v);
-              setState('saved');
+              if (current()) setState('saved');
             } catch {
-              setState('error');
+              if (current()) setState('error');
             }
           },
-          () => setState('invalid'),
+          () => {
+            if (current()) setState('invalid');
+          },
         )();
-      }, delayMs);
-    });
-    return () => {
+      if (now) void submit();
+      else chain = chain.then(submit);
+    };
+    const saveSoon = () => saveNow();
+    const saveAtOnce = () => saveNow(true);
+    const sub = form.watch((_values, info) => {
+      if (!info.name) return;
+      edits += 1;
+      waiting = true;
+      setState('pending');
       clearTimeout(timer);
+      timer = setTimeout(saveSoon, delayMs);
+    });
+    const onVisibility = () => {
+      if (document.visibilityState === 'hidden') saveAtOnce();
+    };
+    window.addEventListener('pagehide', saveAtOnce);
+    window.addEventListener('offline', saveSoon);
+    document.addEventListener('visibilitychange', onVisibility);
+    return () => {
+      window.removeEventListener('pagehide', saveAtOnce);
+      window.removeEventListener('offline', saveSoon);
+      document.removeEventListener('visibilitychange', onVisibility);
       sub.unsubscribe();
+      saveSoon();
     };
   }, [form, delayMs]);
   return state;

@@ -7,10 +7,10 @@ import { SURVEY_SCHEMA_VERSION } from '@shared/schemas/survey';
 
 export const newId = (): string => crypto.randomUUID();
 
-export function newCondition(from?: Condition): Condition {
+export function newCondition(from?: Condition, name?: string): Condition {
   return {
     id: newId(),
-    name: undefined,
+    name,
     time: new Date().toISOString(),
     // readings start empty: a new set is read afresh, only the pipes and the fluids carry over
     drafts: {},
@@ -67,7 +67,7 @@ export function newBoundary(survey: Survey): Boundary {
   const b = survey.vessel.breadthM / 2;
   return {
     id: newId(),
-    name: `Plate ${survey.boundaries.length + 1}`,
+    name: `Boundary ${survey.boundaries.length + 1}`,
     kind: 'bulkhead',
     geometry: { kind: 'rectangle', origin: { x, y: -b, z: 0 }, edgeU: { x: 0, y: 2 * b, z: 0 }, edgeV: { x: 0, y: 0, z: survey.vessel.depthM } },
     sideA: c ? { kind: 'compartment', compartmentId: c.id } : { kind: 'sea' },

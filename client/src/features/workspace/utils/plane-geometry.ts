@@ -37,8 +37,8 @@ export const PLANE_AXES: Record<PlaneKind, { a: 'x' | 'y' | 'z'; b: 'x' | 'y' | 
 };
 
 export const SIDE_WORDS: Record<PlaneKind, { low: string; high: string }> = {
-  transverse: { low: 'aft', high: 'forward' },
-  longitudinal: { low: 'starboard', high: 'port' },
+  transverse: { low: 'aft of', high: 'forward of' },
+  longitudinal: { low: 'to starboard of', high: 'to port of' },
   horizontal: { low: 'below', high: 'above' },
 };
 

@@ -1,0 +1,54 @@
+/**
+ * A small write-ahead note of edits on their way into the device store. An edit saved as the page
+ * closes (the autosave's last flush) has only the page's last moments: localStorage is written at once,
+ * IndexedDB needs a few more. Each edit is noted here synchronously before its transaction starts and
+ * struck off when it commits; notes still here at the next start are applied then (`replayUnsavedEdits`).
+ * Applying one twice is harmless: an edit that changes nothing queues nothing.
+ */
+import type { SurveyOp } from '@shared/schemas/sync';
+
+const KEY = 'brineline:unsaved-edits';
+
+interface Note {
+  n: number;
+  surveyId: string;
+  ops: SurveyOp[];
+}
+
+function read(): Note[] {
+  try {
+    const raw = localStorage.getItem(KEY);
+    const list: unknown = raw ? JSON.parse(raw) : [];
+    return Array.isArray(list) ? (list as Note[]) : [];
+  } catch {
+    return [];
+  }
+}
+
+function write(list: Note[]): void {
+  try {
+    if (list.length === 0) localStorage.removeItem(KEY);
+    else localStorage.setItem(KEY, JSON.stringify(list));
+  } catch {
+    // storage full or blocked: the edit still goes to IndexedDB as before, only without this net
+  }
+}
+
+/** Notes an edit before it is written; returns its number, for `strikeUnsavedEdit`. */
+export function noteUnsavedEdit(surveyId: string, ops: SurveyOp[]): number {
+  const list = read();
+  const n = (list.length ? Math.max(...list.map((e) => e.n)) : 0) + 1;
+  write([...list, { n, surveyId, ops }]);
+  return n;
+}
+
+/** The edit is in the device store (or was refused): forget the note. */
+export function strikeUnsavedEdit(n: number): void {
+  const list = read();
+  if (list.some((e) => e.n === n)) write(list.filter((e) => e.n !== n));
+}
+
+/** The notes left by a page that closed before its edits were stored, oldest first. */
+export function unsavedEdits(): Note[] {
+  return read().sort((a, b) => a.n - b.n);
+}
