@@ -61,21 +61,19 @@ const MAX_BOUNDARIES = 8;
 
 const SEVERITY_CLASS = ['ok', 'care', 'warn', 'bad'] as const;
 
-/** Shores listed per boundary at most; the rest are summed up in one line (the brief stays short). */
-const MAX_SHORE_ROWS = 4;
-
-/** The boundary's structural checks as a compact table: what, load, allowed, use. */
+/** The boundary's structural checks as a compact table: what, load, allowed, use (sources are in the report). */
 function checksTable(b: BoundaryResult, doc: Survey, units: UnitSystem, sides: { A: string; B: string }): SafeHtml | '' {
-  const rows = structureCheckRows(b, units, sides, doc.boundaries.find((x) => x.id === b.id));
-  if (rows.length === 0) return '';
-  const shores = rows.filter((r) => r.kind === 'shore');
-  const shown = [...rows.filter((r) => r.kind !== 'shore'), ...shores.slice(0, MAX_SHORE_ROWS)];
-  const rest = shores.slice(MAX_SHORE_ROWS);
-  const worstRest = rest.reduce((m, r) => Math.max(m, r.utilisation ?? 0), 0);
+  // ratings by direction (which way a cover may be pushed matters on deck) and the most used shore
+  // always show; other checks under half used are left to the report, so the brief keeps to its pages
+  const rows = structureCheckRows(b, units, sides, doc.boundaries.find((x) => x.id === b.id), { compact: true }).filter(
+    (r) => (r.kind === 'rating' && r.direction !== 'either') || r.kind === 'shore' || r.utilisation === null || r.utilisation >= 0.5,
+  );
+  // one rating either way is already said in the line above the table
+  if (rows.length === 0 || (rows.length === 1 && rows[0].direction === 'either')) return '';
   const use = (u: number | null) => (u === null ? html`<span class="muted">—</span>` : html`<span class="${u > 1 ? 'over' : ''}">${u > 1 ? '▲ ' : ''}${formatNumber(u * 100, 3)} %</span>`);
-  return html`<table class="checks"><thead><tr><th scope="col">Check</th><th scope="col">Load</th><th scope="col">Allowed</th><th scope="col">Use</th></tr></thead><tbody>${shown.map(
+  return html`<table class="checks"><thead><tr><th scope="col">Check</th><th scope="col">Load</th><th scope="col">Allowed</th><th scope="col">Use</th></tr></thead><tbody>${rows.map(
     (r) => html`<tr><th scope="row">${r.check}${r.note ? html`<div class="note">${r.note}</div>` : ''}</th><td>${r.load}</td><td>${r.capacity}</td><td>${use(r.utilisation)}</td></tr>`,
-  )}${rest.length ? html`<tr><th scope="row" colspan="3">${rest.length} more shore${rest.length > 1 ? 's' : ''}, the highest at</th><td>${use(worstRest)}</td></tr>` : ''}</tbody></table>`;
+  )}</tbody></table>`;
 }
 
 function boundariesThatMatter(results: SurveyResults, verdicts: Verdict[]): BoundaryResult[] {
@@ -344,6 +342,8 @@ footer{margin-top:1.2em;font-size:.9rem;color:var(--soft)}
   .ack form{display:none}
   .verdict,.notice,.cautions{-webkit-print-color-adjust:exact;print-color-adjust:exact}
   .boundary,tr,.limits li,.cautions{break-inside:avoid}
+  .checks{font-size:8.5pt;margin-top:2pt} .checks .note{font-size:7.5pt} .checks th,.checks td{padding:1px 3px}
+  .boundary{padding:3pt 0} .figs{font-size:9.5pt} .checks thead{display:none}
   h2{break-after:avoid}
 }
 `;

@@ -822,7 +822,7 @@ function flatChecks(b: Boundary, plate: FlatPlate, it: PlateIntegration, net: Pr
   const structureModel = stiffened?.shores ? stiffeners!.model : hasShores ? SHORES_ONLY_MODEL_WORDS : stiffeners ? stiffeners.model : null;
   const plating = b.plating ? platingCheck(b.plating, platingPanels(plate, net, it.cuts, stiffened?.layout ?? plainLayout(plate))) : null;
   if (plating && plating.maxUtilisation !== null && plating.maxUtilisation > 1) {
-    warn('plating-overstressed', 'danger', b.id, `${b.name}: plating between stiffeners bent to ${(100 * plating.maxUtilisation).toFixed(0)} % of allowable`);
+    warn('plating-overstressed', 'danger', b.id, `${b.name}: plating ${stiffened?.layout ? 'between stiffeners' : '(the whole plate as one panel)'} bent to ${(100 * plating.maxUtilisation).toFixed(0)} % of its allowable stress`);
   }
   const capacities = capacitiesOf(b, netRes);
   const capacity = governingCapacity(capacities);

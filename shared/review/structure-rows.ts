@@ -19,6 +19,8 @@ export interface CheckRow {
   /** A secondary figure or a reason (the Euler load, "not checked: …"). */
   note: string | null;
   kind: 'rating' | 'stiffener' | 'plating' | 'shore';
+  /** Ratings: which way the rating holds. */
+  direction?: 'either' | 'towards-A' | 'towards-B';
 }
 
 const BEARS_ON: Record<BoundaryResult['shores'][number]['bearsOn'], string> = {
@@ -28,11 +30,20 @@ const BEARS_ON: Record<BoundaryResult['shores'][number]['bearsOn'], string> = {
   edge: 'at a held edge',
 };
 
+const SHORT_METHOD: Record<BoundaryResult['shores'][number]['designMethod'], string> = {
+  'aisc-360-e3': 'steel, AISC 360 §E3',
+  'nds-3.7.1': 'timber, NDS §3.7.1',
+  generic: 'by a design factor',
+  legacy: 'no design method: Euler ÷ 2',
+};
+
 /**
  * The checks of one boundary. `sides` names the spaces on side A and side B; `input` is the
- * boundary as surveyed (for the stiffeners' section modulus), when at hand.
+ * boundary as surveyed (for the stiffeners' section modulus), when at hand. `compact` (the
+ * master's brief) gives only the most used shore, with the count, and leaves the sources to the
+ * report.
  */
-export function structureCheckRows(b: BoundaryResult, units: UnitSystem, sides: { A: string; B: string }, input?: Boundary): CheckRow[] {
+export function structureCheckRows(b: BoundaryResult, units: UnitSystem, sides: { A: string; B: string }, input?: Boundary, opts: { compact?: boolean } = {}): CheckRow[] {
   const q = (v: number, dim: Dimension, digits = 3) => formatQuantity(v, dim, units, digits).text;
   const rows: CheckRow[] = [];
   for (const c of b.capacities) {
@@ -40,6 +51,7 @@ export function structureCheckRows(b: BoundaryResult, units: UnitSystem, sides: 
     const way = c.direction === 'either' ? 'either way' : c.direction === 'towards-B' ? `towards side B (${sides.B})` : `towards side A (${sides.A})`;
     rows.push({
       kind: 'rating',
+      direction: c.direction,
       check: `Rated ${c.kind} ${way}`,
       load: c.direction === 'either' ? `${q(c.actual, dim)} (greatest, either way)` : `${q(c.actual, dim)} pushing that way`,
       capacity: q(c.rated, dim),
@@ -56,7 +68,7 @@ export function structureCheckRows(b: BoundaryResult, units: UnitSystem, sides: 
     rows.push({
       kind: 'stiffener',
       check: `Stiffener ${st.governingIndex + 1} of ${st.items.length} in bending${s.shoreForcesN > 0 ? ', with the shores on it as supports' : ''}`,
-      load: `${q(s.maxMomentNm, 'moment')}, needs ${q(s.requiredModulusM3, 'sectionModulus')}`,
+      load: `bending moment ${q(Math.abs(s.maxMomentNm), 'moment')}, needs ${q(s.requiredModulusM3, 'sectionModulus')}`,
       capacity: `${q(given, 'sectionModulus')} section modulus`,
       utilisation: s.utilisation,
       note: null,
@@ -67,16 +79,29 @@ export function structureCheckRows(b: BoundaryResult, units: UnitSystem, sides: 
     const p = pl.panels[pl.governingIndex];
     rows.push({
       kind: 'plating',
-      check: `Plating panel ${pl.governingIndex + 1} of ${pl.panels.length} in bending`,
+      check: `Plating panel ${pl.governingIndex + 1} of ${pl.panels.length} in bending${opts.compact ? `, ${formatThickness(pl.netThicknessM, units)} net` : ''}`,
       load: `${formatStress(p.stressPa, units, 3)} under ${q(Math.abs(p.pressureMaxPa), 'pressure')} towards side ${p.pressureMaxPa >= 0 ? 'B' : 'A'}`,
       capacity: `${formatStress(pl.allowableStressPa, units, 3)} allowable`,
       utilisation: p.utilisation,
-      note: `${formatThickness(pl.netThicknessM, units)} net of corrosion allowance; ${pl.source}`,
+      note: opts.compact ? null : `${formatThickness(pl.netThicknessM, units)} net of corrosion allowance; ${pl.source}`,
     });
   } else if (pl) {
     rows.push({ kind: 'plating', check: 'Plating', load: '—', capacity: '—', utilisation: null, note: `not checked: ${pl.notes.join('; ') || 'no panel inside the plate'}` });
   }
-  b.shores.forEach((s, i) => {
+  let shores = b.shores.map((s, i) => ({ s, i }));
+  if (opts.compact && shores.length > 1) shores = [shores.reduce((m, x) => (x.s.utilisation > m.s.utilisation ? x : m))];
+  for (const { s, i } of shores) {
+    if (opts.compact) {
+      rows.push({
+        kind: 'shore',
+        check: `Shore ${i + 1}${b.shores.length > 1 ? ` (the most used of ${b.shores.length})` : ''} in compression, ${BEARS_ON[s.bearsOn]}; ${SHORT_METHOD[s.designMethod]}`,
+        load: s.loaded ? q(s.axialLoadN, 'force') : 'not loaded',
+        capacity: `${q(s.designCapacityN, 'force')} design capacity`,
+        utilisation: s.utilisation,
+        note: `Euler (elastic) buckling load ${q(s.eulerLoadN, 'force')}: not the capacity`,
+      });
+      continue;
+    }
     rows.push({
       kind: 'shore',
       check: `Shore ${i + 1} in compression, ${BEARS_ON[s.bearsOn]} (${s.designMethodLabel})`,
@@ -85,7 +110,7 @@ export function structureCheckRows(b: BoundaryResult, units: UnitSystem, sides: 
       utilisation: s.utilisation,
       note: `Euler (elastic) buckling load ${q(s.eulerLoadN, 'force')}, a secondary figure, not the capacity`,
     });
-  });
+  }
   return rows;
 }
 

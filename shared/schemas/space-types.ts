@@ -54,5 +54,8 @@ export const PERMEABILITY_SOURCE = 'SOLAS Chapter II-1, Regulation 7-3 (from mem
 export function defaultPermeability(spaceType: SpaceType, cargoState: CargoState | undefined): { value: number; source: string } {
   const byState = CARGO_PERMEABILITY[spaceType];
   if (byState && cargoState) return { value: byState[cargoState], source: `${PERMEABILITY_SOURCE}, ${spaceType} space ${cargoState}` };
-  return { value: DEFAULT_PERMEABILITY[spaceType], source: `${PERMEABILITY_SOURCE}, ${spaceType}${byState ? ' space loaded (its state not given)' : ''}` };
+  // SOLAS gives a tank "0 or 0.95, whichever is more severe": 0 stands for a full tank that takes in
+  // no flood water; a load survey holds the tank's own liquid as measured, so 0.95 applies to it
+  const why = spaceType === 'tank' ? ' (intended for liquids: 0 or 0.95, whichever is more severe; 0.95 for the liquid it holds)' : '';
+  return { value: DEFAULT_PERMEABILITY[spaceType], source: `${PERMEABILITY_SOURCE}, ${spaceType}${byState ? ' space loaded (its state not given)' : ''}${why}` };
 }

@@ -44,12 +44,15 @@ export function StructureChecks({ boundary: b, system }: { boundary: BoundaryRes
         </p>
       )}
       {st && st.items.length > 0 && (
+        <div className="space-y-1">
+          {/* said above the table, not in a caption, so a phone shows it without scrolling sideways */}
+          <p className="text-sm font-bold">
+            Stiffeners ({st.endFixity === 'fixed' ? 'fixed ends' : 'simply supported'}, {fmt(st.spacingM, 'length', system, 3)} apart; offsets from the {st.offsetFromEdge})
+            {st.edgeLoadN !== null && <span className="block font-normal">Taken straight by the plate&apos;s edges: {fmt(st.edgeLoadN, 'force', system)}</span>}
+          </p>
         <div className="overflow-x-auto" tabIndex={0} role="region" aria-label="Stiffeners (scrolls sideways)">
           <table className="w-full min-w-[40rem] border-collapse text-left text-sm" data-testid="stiffener-table">
-            <caption className="text-left font-bold">
-              Stiffeners ({st.endFixity === 'fixed' ? 'fixed ends' : 'simply supported'}, {fmt(st.spacingM, 'length', system, 3)} apart; offsets from the {st.offsetFromEdge})
-              {st.edgeLoadN !== null && <span className="block font-normal">Taken straight by the plate&apos;s edges: {fmt(st.edgeLoadN, 'force', system)}</span>}
-            </caption>
+            <caption className="sr-only">Stiffeners</caption>
             <thead className="bg-sea-soft">
               <tr>
                 <th className="p-1.5">No.</th>
@@ -82,18 +85,21 @@ export function StructureChecks({ boundary: b, system }: { boundary: BoundaryRes
             </tbody>
           </table>
         </div>
+        </div>
       )}
 
       {b.plating && (
+        <div className="space-y-1">
+          <p className="text-sm font-bold" data-testid="plating-heading">
+            Plating {st && st.items.length > 0 ? 'between stiffeners' : '(the whole plate as one panel)'}: {thicknessText(b.plating.netThicknessM, system)} net of corrosion allowance, edges{' '}
+            {b.plating.edges === 'fixed' ? 'fixed' : 'simply supported'}, allowable {formatStress(b.plating.allowableStressPa, system, 3)} (yield {formatStress(b.plating.yieldStressPa, system, 3)})
+            <span className="block font-normal">
+              Coefficients: {b.plating.source}. {b.plating.notes.join('; ')}
+            </span>
+          </p>
         <div className="overflow-x-auto" tabIndex={0} role="region" aria-label="Plating panels (scrolls sideways)">
           <table className="w-full min-w-[36rem] border-collapse text-left text-sm" data-testid="plating-table">
-            <caption className="text-left font-bold">
-              Plating {st && st.items.length > 0 ? 'between stiffeners' : '(the whole plate as one panel)'}: {thicknessText(b.plating.netThicknessM, system)} net of corrosion allowance, edges{' '}
-              {b.plating.edges === 'fixed' ? 'fixed' : 'simply supported'}, allowable {formatStress(b.plating.allowableStressPa, system, 3)} (yield {formatStress(b.plating.yieldStressPa, system, 3)})
-              <span className="block font-normal">
-                Coefficients: {b.plating.source}. {b.plating.notes.join('; ')}
-              </span>
-            </caption>
+            <caption className="sr-only">Plating panels</caption>
             <thead className="bg-sea-soft">
               <tr>
                 <th className="p-1.5">Panel</th>
@@ -121,6 +127,7 @@ export function StructureChecks({ boundary: b, system }: { boundary: BoundaryRes
               ))}
             </tbody>
           </table>
+        </div>
         </div>
       )}
 

@@ -1,6 +1,6 @@
 /** The form for one plate: its spaces, shape on a plane, stiffening, shores and rated capacity. */
 import { useFieldArray, useForm, type UseFormReturn } from 'react-hook-form';
-import { useId } from 'react';
+import { useEffect, useId, useRef } from 'react';
 import { BOUNDARY_KINDS, type Boundary, type Survey } from '@shared/schemas/survey';
 import type { UnitSystem } from '@shared/units/units';
 import { measureLabel, showField } from '../utils/form-units';
@@ -224,7 +224,8 @@ export function BoundaryEditor({ boundary, survey, apply, system }: { boundary: 
   );
 }
 
-const sideLabel = (options: { value: string; label: string }[], v: string) => options.find((o) => o.value === v)?.label ?? 'that side';
+/** A side's space in a few words for a label: its compartment's name, "the sea" or "open air". */
+const sideLabel = (options: { value: string; label: string }[], v: string) => (v === 'sea' ? 'the sea' : v === 'air' ? 'open air' : (options.find((o) => o.value === v)?.label ?? 'that side'));
 
 /**
  * A rating with a direction: a hatch cover on its cleats, a door on its dogs, a patch on its bolts
@@ -282,8 +283,18 @@ function DirectionalRatingFields({ form, system, sideAName, sideBName }: { form:
 function PlatingFields({ form, system, stiffened }: { form: UseFormReturn<BoundaryForm, unknown, Boundary>; system: UnitSystem; stiffened: boolean }) {
   const { register, formState, watch } = form;
   const e = formState.errors;
-  const on = watch('plating');
+  const [on, thick, allow] = watch(['plating', 'plThick', 'plAllow']);
   const id = useId();
+  // the typical figures a plating check starts from are assumed; a value typed over one is the surveyor's own
+  const typical = useRef<{ thick: string; allow: string } | null>(null);
+  useEffect(() => {
+    const t = typical.current;
+    if (!t) return;
+    let m = form.getValues('marks');
+    if (thick !== t.thick && m['plating.thicknessM'] === 'assumed') m = withMark(m, 'plating.thicknessM', undefined) ?? {};
+    if (allow !== t.allow && m['plating.allowableStressPa'] === 'assumed') m = withMark(m, 'plating.allowableStressPa', undefined) ?? {};
+    if (m !== form.getValues('marks')) form.setValue('marks', m, { shouldDirty: true });
+  }, [thick, allow, form]);
   const tu = measureLabel('thickness', system);
   const su = measureLabel('stress', system);
   return (
@@ -298,6 +309,7 @@ function PlatingFields({ form, system, stiffened }: { form: UseFormReturn<Bounda
             // switched on with typical figures: assumed until the surveyor measures or confirms them
             onChange: (ev: { target: { checked: boolean } }) => {
               if (!ev.target.checked) return;
+              typical.current = { thick: form.getValues('plThick'), allow: form.getValues('plAllow') };
               let m = withMark(form.getValues('marks'), 'plating.thicknessM', 'assumed');
               m = withMark(m, 'plating.allowableStressPa', 'assumed');
               form.setValue('marks', m ?? {});
@@ -337,16 +349,18 @@ function PlatingFields({ form, system, stiffened }: { form: UseFormReturn<Bounda
             hint="utilisation is against this"
             extra={<PlateMark form={form} field="plating.allowableStressPa" />}
           />
-          <SelectInput
-            register={register}
-            name="plEdges"
-            label="Panel edges"
-            errors={{}}
-            options={[
-              { value: 'simply-supported', label: 'Simply supported' },
-              { value: 'fixed', label: 'Fixed (plating continuous over stiffeners)' },
-            ]}
-          />
+          <div className="col-span-2 sm:col-span-1">
+            <SelectInput
+              register={register}
+              name="plEdges"
+              label="Panel edges"
+              errors={{}}
+              options={[
+                { value: 'simply-supported', label: 'Simply supported' },
+                { value: 'fixed', label: 'Fixed (plating continuous over stiffeners)' },
+              ]}
+            />
+          </div>
         </div>
       )}
     </fieldset>
