@@ -86,146 +86,154 @@ function collides(mark: FieldMark | undefined, change: SurveyChange): mark is Fi
   return mark !== undefined && mark.r > change.baseRevision && mark.d !== change.deviceId;
 }
 
+type Op = SurveyChange['op'];
+type OpOf<K extends Op['kind']> = Extract<Op, { kind: K }>;
+
+/** One merge in progress: the document so far, the marks to write, and what it changed or kept. */
+interface Merging {
+  doc: Survey;
+  readonly revs: FieldRevisions;
+  readonly nextRevs: FieldRevisions;
+  readonly changes: FieldChange[];
+  readonly conflicts: ConflictDraft[];
+  readonly change: SurveyChange;
+  readonly mark: FieldMark;
+}
+
+/** A step of one kind of edit; answers a reason when the edit is refused. */
+type MergeStep<K extends Op['kind']> = (m: Merging, op: OpOf<K>) => string | void;
+
+const mergeSet: MergeStep<'set'> = (m, op) => {
+  const key = fieldKey(op.path);
+  const current = m.doc[op.path];
+  if (deepEqual(current, op.value)) return;
+  if (collides(m.revs[key], m.change)) {
+    m.conflicts.push({ target: { kind: 'field', path: op.path }, proposed: op.value, kept: current ?? null, keptMark: m.revs[key] });
+    return;
+  }
+  m.doc = { ...m.doc, [op.path]: op.value } as Survey;
+  m.nextRevs[key] = m.mark;
+  m.changes.push({ entity: 'survey', field: op.path, old: current ?? null, new: op.value });
+};
+
+/** One field of an existing entity: merged unless another device changed it since the base revision. */
+function mergeEntityField(m: Merging, collection: SurveyCollection, entity: Entity, field: string, after: unknown): Entity {
+  const before = entity[field];
+  if (deepEqual(before, after)) return entity;
+  const key = entityFieldKey(collection, entity.id, field);
+  if (collides(m.revs[key], m.change)) {
+    m.conflicts.push({ target: { kind: 'entity-field', collection, entityId: entity.id, field }, proposed: after ?? null, kept: before ?? null, keptMark: m.revs[key] });
+    return entity;
+  }
+  m.nextRevs[key] = m.mark;
+  m.changes.push({ entity: entityKey(collection, entity.id), field, old: before ?? null, new: after ?? null });
+  return withEntityField(entity, field, after);
+}
+
+/** Puts the merged entity back into the document when any field of it changed. */
+function keepEntity(m: Merging, collection: SurveyCollection, current: Entity, merged: Entity): void {
+  if (merged === current) return;
+  m.doc = withEntity(m.doc, collection, merged);
+  m.nextRevs[entityKey(collection, merged.id)] = m.mark;
+}
+
+const mergeUpsert: MergeStep<'upsert'> = (m, op) => {
+  const { collection } = op;
+  const incoming = op.entity as Entity;
+  const eKey = entityKey(collection, incoming.id);
+  const current = findEntity(m.doc, collection, incoming.id);
+  if (!current) {
+    if (collides(m.revs[eKey], m.change)) {
+      // Deleted on another device since this device last saw it.
+      m.conflicts.push({ target: { kind: 'entity', collection, entityId: incoming.id }, proposed: incoming, kept: null, keptMark: m.revs[eKey] });
+      return;
+    }
+    m.doc = withEntity(m.doc, collection, incoming);
+    m.nextRevs[eKey] = m.mark;
+    m.changes.push({ entity: eKey, field: null, old: null, new: incoming });
+    return;
+  }
+  const fields = (op.fields ?? changedFields(current, incoming)).filter((f) => f !== 'id');
+  let merged = current;
+  for (const f of fields) merged = mergeEntityField(m, collection, merged, f, incoming[f]);
+  keepEntity(m, collection, current, merged);
+};
+
+const mergePatch: MergeStep<'patch'> = (m, op) => {
+  // The server's own copy of the entity with the one field changed: then merged as an upsert of that field.
+  const current = findEntity(m.doc, op.collection, op.entityId);
+  if (!current) return 'The item this edit changes is no longer on the server.';
+  const field = op.path[0];
+  keepEntity(m, op.collection, current, mergeEntityField(m, op.collection, current, field, patchedEntity(current, op)[field]));
+};
+
+const mergeDelete: MergeStep<'delete'> = (m, op) => {
+  const { collection, entityId } = op;
+  const eKey = entityKey(collection, entityId);
+  const current = findEntity(m.doc, collection, entityId);
+  if (!current) return;
+  if (collides(m.revs[eKey], m.change)) {
+    // Edited on another device since this device last saw it: keep the edit, record the delete.
+    m.conflicts.push({ target: { kind: 'entity', collection, entityId }, proposed: null, kept: current, keptMark: m.revs[eKey] });
+    return;
+  }
+  m.doc = withoutEntity(m.doc, collection, entityId);
+  m.nextRevs[eKey] = m.mark;
+  for (const k of Object.keys(m.nextRevs)) if (k.startsWith(`${eKey}.`)) delete m.nextRevs[k];
+  m.changes.push({ entity: eKey, field: null, old: current, new: null });
+};
+
+const mergeResolve: MergeStep<'resolve-conflict'> = (m, op) => {
+  const checked = checkTargetValue(op.target, op.value);
+  if (checked) return checked;
+  const old = targetValue(m.doc, op.target);
+  if (deepEqual(old, op.value ?? null)) return;
+  const t = op.target;
+  m.doc = applyTarget(m.doc, t, op.value ?? null);
+  m.nextRevs[targetKey(t)] = m.mark;
+  if (t.kind !== 'field') m.nextRevs[entityKey(t.collection, t.entityId)] = m.mark;
+  m.changes.push({
+    entity: t.kind === 'field' ? 'survey' : entityKey(t.collection, t.entityId),
+    field: t.kind === 'field' ? t.path : t.kind === 'entity-field' ? t.field : null,
+    old,
+    new: op.value ?? null,
+  });
+};
+
+function mergeOp(m: Merging, op: Op): string | void {
+  switch (op.kind) {
+    case 'create':
+      return 'This survey already exists.';
+    case 'submit':
+      // A status move, not an edit: the push plan carries it out (server/services/sync/plan.ts).
+      return;
+    case 'set':
+      return mergeSet(m, op);
+    case 'upsert':
+      return mergeUpsert(m, op);
+    case 'patch':
+      return mergePatch(m, op);
+    case 'delete':
+      return mergeDelete(m, op);
+    case 'resolve-conflict':
+      return mergeResolve(m, op);
+  }
+}
+
 /**
  * Merges `change` into `doc` (not a create: the caller handles those) as revision `revision`.
  * For a 'resolve-conflict' the caller has checked that the conflict is open and belongs to this survey.
  */
 export function mergeChange(doc: Survey, revs: FieldRevisions, change: SurveyChange, revision: number): MergeOutcome {
-  const op = change.op;
-  const mark: FieldMark = { r: revision, d: change.deviceId };
-  const nextRevs: FieldRevisions = { ...revs };
-  const changes: FieldChange[] = [];
-  const conflicts: ConflictDraft[] = [];
-  let next = doc;
-
+  const m: Merging = { doc, revs, nextRevs: { ...revs }, changes: [], conflicts: [], change, mark: { r: revision, d: change.deviceId } };
   try {
-    switch (op.kind) {
-      case 'create':
-        return { status: 'rejected', reason: 'This survey already exists.' };
-
-      case 'submit':
-        // A status move, not an edit: the push plan carries it out (server/services/sync/plan.ts).
-        break;
-
-      case 'set': {
-        const key = fieldKey(op.path);
-        const current = doc[op.path];
-        if (deepEqual(current, op.value)) break;
-        if (collides(revs[key], change)) {
-          conflicts.push({ target: { kind: 'field', path: op.path }, proposed: op.value, kept: current ?? null, keptMark: revs[key] });
-          break;
-        }
-        next = { ...doc, [op.path]: op.value } as Survey;
-        nextRevs[key] = mark;
-        changes.push({ entity: 'survey', field: op.path, old: current ?? null, new: op.value });
-        break;
-      }
-
-      case 'upsert': {
-        const { collection } = op;
-        const incoming = op.entity as Entity;
-        const eKey = entityKey(collection, incoming.id);
-        const current = findEntity(doc, collection, incoming.id);
-        if (!current) {
-          if (collides(revs[eKey], change)) {
-            // Deleted on another device since this device last saw it.
-            conflicts.push({ target: { kind: 'entity', collection, entityId: incoming.id }, proposed: incoming, kept: null, keptMark: revs[eKey] });
-            break;
-          }
-          next = withEntity(doc, collection, incoming);
-          nextRevs[eKey] = mark;
-          changes.push({ entity: eKey, field: null, old: null, new: incoming });
-          break;
-        }
-        const fields = (op.fields ?? changedFields(current, incoming)).filter((f) => f !== 'id');
-        let merged = current;
-        for (const f of fields) {
-          const before = current[f];
-          const after = incoming[f];
-          if (deepEqual(before, after)) continue;
-          const key = entityFieldKey(collection, incoming.id, f);
-          if (collides(revs[key], change)) {
-            conflicts.push({
-              target: { kind: 'entity-field', collection, entityId: incoming.id, field: f },
-              proposed: after ?? null,
-              kept: before ?? null,
-              keptMark: revs[key],
-            });
-            continue;
-          }
-          merged = withEntityField(merged, f, after);
-          nextRevs[key] = mark;
-          changes.push({ entity: eKey, field: f, old: before ?? null, new: after ?? null });
-        }
-        if (merged !== current) {
-          next = withEntity(doc, collection, merged);
-          nextRevs[eKey] = mark;
-        }
-        break;
-      }
-
-      case 'patch': {
-        // The server's own copy of the entity with the one field changed: then merged as an upsert of that field.
-        const { collection, entityId } = op;
-        const current = findEntity(doc, collection, entityId);
-        if (!current) return { status: 'rejected', reason: 'The item this edit changes is no longer on the server.' };
-        const field = op.path[0];
-        const before = current[field];
-        const after = patchedEntity(current, op)[field];
-        if (deepEqual(before, after)) break;
-        const eKey = entityKey(collection, entityId);
-        const key = entityFieldKey(collection, entityId, field);
-        if (collides(revs[key], change)) {
-          conflicts.push({ target: { kind: 'entity-field', collection, entityId, field }, proposed: after ?? null, kept: before ?? null, keptMark: revs[key] });
-          break;
-        }
-        next = withEntity(doc, collection, withEntityField(current, field, after));
-        nextRevs[key] = mark;
-        nextRevs[eKey] = mark;
-        changes.push({ entity: eKey, field, old: before ?? null, new: after ?? null });
-        break;
-      }
-
-      case 'delete': {
-        const { collection, entityId } = op;
-        const eKey = entityKey(collection, entityId);
-        const current = findEntity(doc, collection, entityId);
-        if (!current) break;
-        if (collides(revs[eKey], change)) {
-          // Edited on another device since this device last saw it: keep the edit, record the delete.
-          conflicts.push({ target: { kind: 'entity', collection, entityId }, proposed: null, kept: current, keptMark: revs[eKey] });
-          break;
-        }
-        next = withoutEntity(doc, collection, entityId);
-        nextRevs[eKey] = mark;
-        for (const k of Object.keys(nextRevs)) if (k.startsWith(`${eKey}.`)) delete nextRevs[k];
-        changes.push({ entity: eKey, field: null, old: current, new: null });
-        break;
-      }
-
-      case 'resolve-conflict': {
-        const checked = checkTargetValue(op.target, op.value);
-        if (checked) return { status: 'rejected', reason: checked };
-        const old = targetValue(doc, op.target);
-        if (deepEqual(old, op.value ?? null)) break;
-        next = applyTarget(doc, op.target, op.value ?? null);
-        nextRevs[targetKey(op.target)] = mark;
-        if (op.target.kind !== 'field') nextRevs[entityKey(op.target.collection, op.target.entityId)] = mark;
-        changes.push({
-          entity: op.target.kind === 'field' ? 'survey' : entityKey(op.target.collection, op.target.entityId),
-          field: op.target.kind === 'field' ? op.target.path : op.target.kind === 'entity-field' ? op.target.field : null,
-          old,
-          new: op.value ?? null,
-        });
-        break;
-      }
-    }
+    const refused = mergeOp(m, change.op);
+    if (refused) return { status: 'rejected', reason: refused };
   } catch (err) {
     if (err instanceof ApplyError) return { status: 'rejected', reason: err.message };
     throw err;
   }
-
-  return { status: conflicts.length > 0 ? 'conflict' : 'applied', doc: next, revs: nextRevs, changes, conflicts };
+  return { status: m.conflicts.length > 0 ? 'conflict' : 'applied', doc: m.doc, revs: m.nextRevs, changes: m.changes, conflicts: m.conflicts };
 }
 
 /** Checks a chosen value against the schema of what the conflict is about; returns a reason or null. */
