@@ -16,6 +16,7 @@ import type { Me, SessionResponse, UnitSystem } from '@shared/api/auth';
 import { api, jsonBody, setTokenSource } from './api-client';
 import { setProfileUnitSystem } from './unit-system';
 import { parseMe, parseSessionResponse } from './session-body';
+import { IDENTITY_KEY } from './identity';
 
 /** Syncs now (the engine is loaded on demand: it is not part of the first screen's JavaScript). */
 const syncNow = () => import('@client/offline/sync').then((m) => m.syncNow());
@@ -36,7 +37,6 @@ export interface Session {
   user: Me | null;
 }
 
-const IDENTITY_KEY = 'brineline.identity';
 const PENDING_SIGN_OUT_KEY = 'brineline.pendingSignOut';
 const PENDING_UNITS_KEY = 'brineline.pendingUnitSystem';
 

@@ -10,6 +10,7 @@ import type { Survey } from '@shared/schemas/survey';
 import type { CommentTarget, ReviewNotes } from '@shared/api/review';
 import { needsUpgrade, upgradeSurvey } from '@shared/schemas/upgrade';
 import type { Conflict, SurveyChange, SurveyStatus, UserRef } from '@shared/schemas/sync';
+import { rememberedUserId } from '@client/lib/identity';
 
 export interface LocalSurvey {
   id: string;
@@ -37,6 +38,8 @@ export interface OutboxEntry extends Omit<SurveyChange, 'seq'> {
   state: OutboxState;
   /** Why the server refused it, for the user. */
   reason?: string;
+  /** Who made it (absent on edits queued before authors were kept): only they may push it. */
+  userId?: string;
 }
 
 export interface LocalConflict extends Conflict {
@@ -151,6 +154,8 @@ export const db: BrinelineDb = openDb();
 /** Keys of `meta` rows. */
 export const META = {
   deviceId: 'deviceId',
+  /** Set once a person has taken the device id made before ids were per person. */
+  sharedDeviceIdTaken: 'sharedDeviceIdTaken',
   pullCursor: 'pullCursor',
   lastSyncedAt: 'lastSyncedAt',
 } as const;
@@ -163,13 +168,23 @@ export async function setMeta(key: string, value: unknown): Promise<void> {
   await db.meta.put({ key, value });
 }
 
-/** This device's id: made once, on the device, and kept with its data. */
-export async function getDeviceId(): Promise<string> {
+/**
+ * This device's id for the person signed in, made on the device and kept with its data. The server
+ * gives a device id to the first person who pushes with it and refuses it to anyone else, so each
+ * person who edits on a shared phone has their own. The id from before ids were per person goes to
+ * the first person who asks (on most phones the one who made it); nobody remembered: that id.
+ */
+export async function getDeviceId(userId: string | null = rememberedUserId()): Promise<string> {
   return db.transaction('rw', db.meta, async () => {
-    const existing = await getMeta<string>(META.deviceId);
-    if (existing) return existing;
-    const id = crypto.randomUUID();
-    await setMeta(META.deviceId, id);
+    const shared = await getMeta<string>(META.deviceId);
+    if (!userId && shared) return shared;
+    const key = userId ? `${META.deviceId}:${userId}` : META.deviceId;
+    const own = await getMeta<string>(key);
+    if (own) return own;
+    const adopt = userId && shared && !(await getMeta<boolean>(META.sharedDeviceIdTaken));
+    const id = adopt ? shared : crypto.randomUUID();
+    await setMeta(key, id);
+    if (adopt) await setMeta(META.sharedDeviceIdTaken, true);
     return id;
   });
 }

@@ -17,6 +17,7 @@ import { applyOp, changedFields, deepEqual, findEntity, leanOp, replay } from '@
 import { formatZodIssues } from '@shared/api/format-issues';
 import { reportStorageError } from './storage';
 import { db, getDeviceId } from './db';
+import { rememberedUserId } from '@client/lib/identity';
 import { noteUnsavedEdit, strikeUnsavedEdit, unsavedEdits } from './unsaved-edits';
 
 export {
@@ -77,7 +78,8 @@ async function write<T>(fn: () => Promise<T>): Promise<T> {
 /** Puts a new survey on this device and queues its creation on the server. */
 export async function createLocalSurvey(survey: Survey, opts: { owner?: UserRef } = {}): Promise<string> {
   const doc = validate(survey);
-  const deviceId = await getDeviceId();
+  const userId = rememberedUserId() ?? undefined;
+  const deviceId = await getDeviceId(userId ?? null);
   const now = new Date().toISOString();
   await write(() => db.transaction('rw', db.surveys, db.outbox, async () => {
     if (await db.surveys.get(doc.id)) throw new LocalChangeError('A survey with this id is already on this device.');
@@ -96,6 +98,7 @@ export async function createLocalSurvey(survey: Survey, opts: { owner?: UserRef 
     await db.outbox.add({
       id: crypto.randomUUID(),
       deviceId,
+      userId,
       surveyId: doc.id,
       baseRevision: 0,
       createdAt: now,
@@ -164,7 +167,8 @@ export async function replayUnsavedEdits(): Promise<number> {
 const unchangedSet = (doc: Survey, op: SurveyOp) => op.kind === 'set' && deepEqual(doc[op.path], op.value);
 
 async function storeLocalChanges(surveyId: string, parsedOps: readonly SurveyOp[]): Promise<string[]> {
-  const deviceId = await getDeviceId();
+  const userId = rememberedUserId() ?? undefined;
+  const deviceId = await getDeviceId(userId ?? null);
   const ids: string[] = [];
   await write(() => db.transaction('rw', db.surveys, db.outbox, async () => {
     const local = await db.surveys.get(surveyId);
@@ -180,6 +184,7 @@ async function storeLocalChanges(surveyId: string, parsedOps: readonly SurveyOp[
       await db.outbox.add({
         id,
         deviceId,
+        userId,
         surveyId,
         baseRevision: local.serverRevision,
         createdAt: now,

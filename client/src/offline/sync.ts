@@ -17,6 +17,7 @@ import {
 import type { Survey } from '@shared/schemas/survey';
 import { findEntity } from '@shared/sync/apply';
 import { ApiError, OfflineError, api, jsonBody } from '@client/lib/api-client';
+import { rememberedUserId } from '@client/lib/identity';
 import { db, getMeta, META, setMeta, type OutboxEntry } from './db';
 import { mergeServerSurveys, rebaseLocalSurvey, replayUnsavedEdits, subscribeLocalChanges } from './survey-store';
 import { storeReviewNotes } from './review-notes';
@@ -80,7 +81,7 @@ async function requeueWhole(e: OutboxEntry): Promise<boolean> {
   await db.outbox.delete(e.seq!);
   if (!entity) return false;
   const op = UpsertOpSchema.parse({ kind: 'upsert', collection, entity, fields: [path[0]] });
-  await db.outbox.add({ id: crypto.randomUUID(), deviceId: e.deviceId, surveyId: e.surveyId, baseRevision: e.baseRevision, createdAt: e.createdAt, op, state: 'pending' });
+  await db.outbox.add({ id: crypto.randomUUID(), deviceId: e.deviceId, userId: e.userId, surveyId: e.surveyId, baseRevision: e.baseRevision, createdAt: e.createdAt, op, state: 'pending' });
   return true;
 }
 
@@ -115,7 +116,11 @@ async function applyPushResponse(sent: OutboxEntry[], res: PushResponse): Promis
 async function pushAll(): Promise<void> {
   let size = PUSH_BATCH;
   for (;;) {
-    const batch = (await db.outbox.where('state').equals('pending').sortBy('seq')).slice(0, size);
+    // Only the signed-in person's own edits (and those queued before authors were kept): another
+    // person's wait for them, since the server takes a device id only from its owner.
+    const me = rememberedUserId();
+    const pending = await db.outbox.where('state').equals('pending').sortBy('seq');
+    const batch = pending.filter((e) => !me || !e.userId || e.userId === me).slice(0, size);
     if (batch.length === 0) return;
     let body: unknown;
     try {
