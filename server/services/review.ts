@@ -53,7 +53,7 @@ export function createReviewService(deps: { db: Knex }) {
   }
 
   async function changeStatus(auth: AuthContext, surveyId: string, body: StatusChangeRequest): Promise<{ surveyId: string; status: SurveyStatus; event: StatusEvent }> {
-    return db.transaction(async (trx) => {
+    const { moved, revision, doc } = await db.transaction(async (trx) => {
       const s = await surveyOf(trx, auth, surveyId, true);
       // The own-work rule: whoever made, edited or sent the survey at any revision may not accept it.
       const ownWork = body.to === 'accepted' && (await repo.hasWorkedOn(trx, surveyId, auth.userId));
@@ -75,8 +75,12 @@ export function createReviewService(deps: { db: Knex }) {
         actorId: auth.userId,
         revision: s.revision,
       });
-      return { surveyId, status: body.to, event };
+      return { moved: { surveyId, status: body.to, event }, revision: s.revision, doc: s.doc as Survey };
     });
+    // The accepted revision's figures are what the brief shows from now on, even after later edits:
+    // store them now rather than leave them to the background run, which computes only the latest.
+    if (body.to === 'accepted') await ensureResults(db, surveyId, revision, doc);
+    return moved;
   }
 
   async function queue(auth: AuthContext): Promise<QueueItem[]> {
