@@ -209,8 +209,8 @@ function ContentsEditor({ survey, condition, compartment, contents, apply, syste
                       label="How the ullage tape ran"
                       errors={{}}
                       options={[
-                        { value: 'along-pipe', label: "Along a pipe or the ship's side (heels with the ship)" },
-                        { value: 'plumb', label: 'Plumb: hanging straight down (corrected for heel and trim)' },
+                        { value: 'along-pipe', label: 'Along the pipe (slants with heel)' },
+                        { value: 'plumb', label: 'Plumb (hangs straight down)' },
                       ]}
                       hint={
                         l?.tape === 'plumb'

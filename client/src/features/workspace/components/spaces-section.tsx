@@ -178,8 +178,8 @@ function CompartmentEditor({ compartment, surveyId, apply, system }: { compartme
         label="Shape"
         errors={e}
         options={[
-          { value: 'box', label: 'Box (between two frames, side to side, floor to top)' },
-          { value: 'prism', label: 'Prism (a section shape between two frames)' },
+          { value: 'box', label: 'Box (side to side, floor to top)' },
+          { value: 'prism', label: 'Prism (a drawn section)' },
         ]}
       />
       <fieldset className="grid grid-cols-2 gap-3 sm:grid-cols-3">
