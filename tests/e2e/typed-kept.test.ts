@@ -11,7 +11,7 @@ import { createDb, type Db } from '../../server/db/knex';
 import { createOrgWithMembers, type TestOrg } from '../support/auth';
 import { storeSurvey } from '../support/surveys';
 import { surveyInStatus } from '../support/review';
-import { deviceDoc, signInPage } from '../support/sign-in-page';
+import { localDoc, signIn } from '../support/e2e';
 import type { Survey } from '@shared/schemas/survey';
 
 const baseUrl = inject('baseUrl');
@@ -55,7 +55,7 @@ async function typeThenTap(field: Locator, value: string, away: Locator): Promis
 const section = (page: Page, name: string) => page.getByRole('navigation', { name: 'Workspace sections' }).getByRole('button', { name, exact: true });
 
 async function docOnDevice(page: Page, id: string): Promise<Survey> {
-  return (await deviceDoc(page, id)) as Survey;
+  return localDoc(page, id);
 }
 
 const serverDoc = async (id: string): Promise<Survey> => (await db('surveys').where({ id }).first()).doc as Survey;
@@ -76,7 +76,7 @@ describe('nothing typed is lost', () => {
     survey = await storeSurvey(db, org.surveyor);
     ctx = await browser.newContext({ viewport: { width: 390, height: 844 } });
     page = await ctx.newPage();
-    await signInPage(page, baseUrl, org.surveyor, `/surveys/${survey.id}`);
+    await signIn(page, org.surveyor, `/surveys/${survey.id}`);
     await page.getByTestId('workspace').waitFor({ timeout: 60_000 });
   });
   afterAll(async () => {
@@ -135,7 +135,7 @@ describe('the verdict note on the desk', () => {
     survey = await surveyInStatus(db, org, 'in_review');
     ctx = await browser.newContext({ viewport: { width: 1280, height: 900 } });
     page = await ctx.newPage();
-    await signInPage(page, baseUrl, org.engineer, `/review/${survey.id}`);
+    await signIn(page, org.engineer, `/review/${survey.id}`);
     await page.getByTestId('review-desk').waitFor({ timeout: 60_000 });
   });
   afterAll(async () => {

@@ -8,27 +8,11 @@ import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { readCaughtMail } from '../../scripts/lib/mail-catcher';
 import { demoSurvey, DEMO_SUBMITTED_SURVEY_ID } from '../../seeds/demo-survey';
 import { screenshotPath } from './browser';
+import { DEMO, signIn } from './e2e';
 
 export interface Person {
   email: string;
   password: string;
-}
-
-/** The demo sign-ins (README.md). */
-export const DEMO_SIGN_INS = {
-  admin: { email: 'moira.lennox@skerrow.example', password: 'brine-admin-2026' },
-  engineer: { email: 'tomas.varga@skerrow.example', password: 'brine-engineer-2026' },
-  surveyor: { email: 'ines.achterberg@skerrow.example', password: 'brine-surveyor-2026' },
-} as const satisfies Record<string, Person>;
-
-/** Signs in through the sign-in screen and waits until the app has moved on. */
-export async function signInThroughForm(page: Page, baseUrl: string, who: Person, next?: string): Promise<void> {
-  await page.goto(`${baseUrl}/sign-in${next ? `?next=${encodeURIComponent(next)}` : ''}`);
-  await page.getByLabel('E-mail').waitFor({ timeout: 30_000 });
-  await page.getByLabel('E-mail').fill(who.email);
-  await page.getByLabel('Password').fill(who.password);
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.waitForURL((u) => !u.pathname.startsWith('/sign-in'), { timeout: 30_000 });
 }
 
 /** What the walk needs from its caller: where the app is, where caught mail lands, a brief link. */
@@ -102,11 +86,11 @@ export async function walkEveryScreen(browser: Browser, setup: WalkSetup, widths
     const context = await browser.newContext({ viewport: { width: widths[0], height: 900 } });
     contexts.push(context);
     const page = await context.newPage();
-    if (who) await signInThroughForm(page, baseUrl, who, next);
+    if (who) await signIn(page, who, next, baseUrl);
     return page;
   };
   try {
-    const [anon, surveyor, engineer, admin] = [await open(), await open(DEMO_SIGN_INS.surveyor), await open(DEMO_SIGN_INS.engineer), await open(DEMO_SIGN_INS.admin)];
+    const [anon, surveyor, engineer, admin] = [await open(), await open(DEMO.surveyor), await open(DEMO.engineer), await open(DEMO.admin)];
 
     // links that arrive by e-mail, asked for once through the screens that send them
     const invitee = `deckhand-${randomUUID().slice(0, 8)}@skerrow.example`;
@@ -115,10 +99,10 @@ export async function walkEveryScreen(browser: Browser, setup: WalkSetup, widths
     await admin.getByRole('button', { name: 'Send invitation', exact: true }).click();
     const invitationUrl = await waitForMail(setup.mailDir, invitee, '');
     await anon.goto(`${baseUrl}/forgot-password`);
-    await anon.getByLabel('E-mail').fill(DEMO_SIGN_INS.surveyor.email);
+    await anon.getByLabel('E-mail').fill(DEMO.surveyor.email);
     await anon.getByRole('button', { name: 'Send me a link' }).click();
     await anon.getByRole('status').or(anon.getByRole('alert')).first().waitFor();
-    const resetUrl = await waitForMail(setup.mailDir, DEMO_SIGN_INS.surveyor.email, 'password');
+    const resetUrl = await waitForMail(setup.mailDir, DEMO.surveyor.email, 'password');
 
     const surveyId = demoSurvey().id;
     const heading = (page: Page) => page.getByRole('heading', { level: 1 }).first().waitFor({ timeout: 30_000 });
