@@ -95,8 +95,8 @@ describe('plating and ratings by direction, on a phone, offline', () => {
     await page.getByTestId('import-input').setInputFiles({ name: 'hatch.json', mimeType: 'application/json', buffer: Buffer.from(JSON.stringify(doc)) });
     await page.getByTestId('workspace').waitFor();
 
-    await section(page, 'Plates');
-    await page.getByRole('list', { name: 'Plates' }).getByRole('button', { name: /Tank hatch/ }).click();
+    await section(page, 'Boundaries');
+    await page.getByRole('list', { name: 'Boundaries' }).getByRole('button', { name: /Tank hatch/ }).click();
     const form = page.getByRole('form', { name: 'Plate Tank hatch' });
 
     // plating: switched on, a mistyped thickness refused and kept, then the real one

@@ -92,7 +92,7 @@ describe('nothing typed is lost', () => {
 
     await section(page, 'Contents').click();
     await page.getByRole('button', { name: 'No. 2 hold', exact: true }).click();
-    gaps.push(await typeThenTap(page.getByLabel(/^Sounding \(/).first(), '4.15', section(page, 'Plates')));
+    gaps.push(await typeThenTap(page.getByLabel(/^Sounding \(/).first(), '4.15', section(page, 'Boundaries')));
     for (const gap of gaps) expect(gap).toBeLessThan(50);
 
     await expect.poll(async () => (await docOnDevice(page, survey.id)).title, { timeout: 10_000 }).toBe('Kept title one');
