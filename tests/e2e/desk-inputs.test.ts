@@ -5,13 +5,14 @@
  * surveyor's workspace sees the figures but no field to change them.
  */
 import { afterAll, beforeAll, describe, expect, it, inject } from 'vitest';
-import type { Browser, Page } from 'playwright-core';
+import type { Browser } from 'playwright-core';
 import { launchBrowser, screenshotPath } from '../support/browser';
 import { demoSurvey } from '../../seeds/demo-survey';
+import { DEMO, makeChangesIfAsked, signIn } from '../support/e2e';
 
 const baseUrl = inject('baseUrl');
-const SURVEYOR = { email: 'ines.achterberg@skerrow.example', password: 'brine-surveyor-2026' };
-const ENGINEER = { email: 'tomas.varga@skerrow.example', password: 'brine-engineer-2026' };
+const SURVEYOR = DEMO.surveyor;
+const ENGINEER = DEMO.engineer;
 const SURVEY_ID = demoSurvey().id;
 // each width types its own final sounding, so the two runs never depend on each other's order
 const CASES = [
@@ -27,15 +28,6 @@ afterAll(async () => {
   await browser?.close();
 });
 
-async function signIn(page: Page, who: { email: string; password: string }) {
-  await page.goto(`${baseUrl}/sign-in`);
-  await page.getByLabel('E-mail').waitFor({ timeout: 30_000 });
-  await page.getByLabel('E-mail').fill(who.email);
-  await page.getByLabel('Password').fill(who.password);
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.waitForURL((u) => !u.pathname.startsWith('/sign-in'));
-}
-
 describe.each(CASES)('at $width px', ({ width, final }) => {
   it('history in plain words, inputs beside the results, and a read-only workspace for the engineer', async () => {
     // The surveyor types the No. 2 hold sounding in three steps; each autosaves and syncs.
@@ -43,6 +35,7 @@ describe.each(CASES)('at $width px', ({ width, final }) => {
     const sp = await s.newPage();
     await signIn(sp, SURVEYOR);
     await sp.goto(`${baseUrl}/surveys/${SURVEY_ID}?s=contents`);
+    await makeChangesIfAsked(sp);
     await sp.getByRole('list', { name: 'Compartment' }).getByRole('button', { name: 'No. 2 hold' }).click();
     const sounding = sp.getByLabel(/^Sounding \(/).first();
     for (const v of ['4.9', '5.15', final]) {

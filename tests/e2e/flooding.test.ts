@@ -9,7 +9,7 @@ import { launchBrowser, screenshotPath } from '../support/browser';
 import { forecastFlooding } from '@shared/engine';
 import { hmm } from '@shared/api/cautions';
 import { formatShipTime } from '@shared/review/time-words';
-import { DEMO, localDoc, signIn } from '../support/e2e';
+import { DEMO, localDoc, makeChangesIfAsked, signIn } from '../support/e2e';
 
 const baseUrl = inject('baseUrl');
 const DEMO_SURVEY_ID = '5eed0000-0000-4000-8000-000000000001';
@@ -34,6 +34,7 @@ describe('flooding forecast on the phone, offline', () => {
     await expect.poll(() => page.evaluate(() => navigator.serviceWorker.ready.then(() => true)), { timeout: 30_000 }).toBe(true);
     await page.reload();
     await expect.poll(() => page.evaluate(() => navigator.serviceWorker.controller !== null), { timeout: 30_000 }).toBe(true);
+    await makeChangesIfAsked(page);
     await context.setOffline(true);
     await page.getByTestId('flooding-section').waitFor({ timeout: 30_000 });
 

@@ -9,11 +9,11 @@
 import { afterAll, beforeAll, describe, expect, it, inject } from 'vitest';
 import type { Browser, Page } from 'playwright-core';
 import { launchBrowser, screenshotPath } from '../support/browser';
+import { DEMO, section, signIn } from '../support/e2e';
 import { computeSurvey } from '@shared/engine';
 import { SurveySchema, type Survey } from '@shared/schemas/survey';
 
 const baseUrl = inject('baseUrl');
-const SURVEYOR = { email: 'ines.achterberg@skerrow.example', password: 'brine-surveyor-2026' };
 
 let browser: Browser;
 beforeAll(async () => {
@@ -58,19 +58,6 @@ function hatchSurvey(): Survey {
   });
 }
 
-async function signIn(page: Page) {
-  await page.goto(`${baseUrl}/sign-in`);
-  await page.getByLabel('E-mail').waitFor({ timeout: 20_000 });
-  await page.getByLabel('E-mail').fill(SURVEYOR.email);
-  await page.getByLabel('Password').fill(SURVEYOR.password);
-  await page.getByRole('button', { name: 'Sign in' }).click();
-  await page.waitForURL((u) => !u.pathname.startsWith('/sign-in'));
-}
-
-async function section(page: Page, name: string) {
-  await page.getByRole('navigation', { name: 'Workspace sections' }).getByRole('button', { name, exact: true }).click();
-}
-
 async function waitSaved(page: Page) {
   await page.waitForTimeout(300);
   await page.getByTestId('save-state').filter({ hasText: 'Saved on this device' }).first().waitFor({ timeout: 10_000 });
@@ -83,7 +70,7 @@ describe('plating and ratings by direction, on a phone, offline', () => {
   it('are entered with field errors that keep what was typed, and their utilisations match the engine', async () => {
     const context = await browser.newContext({ viewport: { width: 390, height: 844 } });
     const page = await context.newPage();
-    await signIn(page);
+    await signIn(page, DEMO.surveyor);
     await page.goto(`${baseUrl}/surveys`);
     await page.getByRole('heading', { name: 'Surveys' }).waitFor();
     await page.evaluate(() => navigator.serviceWorker.ready.then(() => undefined));

@@ -41,6 +41,17 @@ export async function signIn(page: Page, who: { email: string; password: string 
   if (next && new URL(page.url()).pathname !== next) await page.goto(`${baseUrl}${next}`);
 }
 
+/**
+ * On a survey already sent or reviewed (the browser tests share the demo casualty, which the review
+ * test sends and accepts), the forms wait for "Make changes": chooses it, as a surveyor who means to
+ * edit does. Call once the workspace shows.
+ */
+export async function makeChangesIfAsked(page: Page): Promise<void> {
+  await page.getByTestId('workspace').waitFor({ timeout: 60_000 });
+  const confirm = page.getByTestId('reviewed-guard-confirm');
+  if (await confirm.isVisible()) await confirm.click();
+}
+
 /** Opens a section of the surveyor's workspace by its tab. */
 export async function section(page: Page, name: string): Promise<void> {
   await page.getByRole('navigation', { name: 'Workspace sections' }).getByRole('button', { name, exact: true }).click();
