@@ -74,6 +74,7 @@ thead th{font-size:8.5pt;text-transform:uppercase;color:var(--soft)}
 .cautions{border:2px solid var(--care);padding:4px 10px;border-radius:6px;break-inside:avoid}
 .meta td{border:0;padding:1px 4px}
 @media (max-width:600px){.grid,.sign{grid-template-columns:1fr}}
+@media screen{.num{white-space:normal}td{overflow-wrap:anywhere}}
 @media screen and (max-width:600px){.num{white-space:normal}th,td{padding:3px 2px}thead th{font-size:7.5pt;hyphens:auto;overflow-wrap:anywhere}}
 @media print{
   @page{margin:15mm 14mm 16mm}
