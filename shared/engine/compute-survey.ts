@@ -248,7 +248,7 @@ function prepareCondition(survey: Survey, conditionIdIn: string | undefined, inc
       else addAcc(l.category === 'oil' ? ship.oil : ship.other, l.volumeM3, l.massKg, l.centroid);
     });
     const tankResult = room
-      ? tankResultOf({ comp, ownFluidName: ownFluidId ? fluids(ownFluidId).name : null, room, missingM3: split.missingM3, ownV, ownM, liquid, permeability }, warn)
+      ? tankResultOf({ comp, ownFluidName: ownFluidId ? fluids(ownFluidId).name : null, room, missingM3: split.missingM3, ownV, ownM, liquid, permeability, grossM3: gross.volume }, warn)
       : null;
     const profile = layeredProfile(levels, pGas, g);
     profiles.set(comp.id, profile);
@@ -581,7 +581,7 @@ function finishAcc(a: Acc): Aggregate {
  * own liquid leaves, and a permeability of 0 that leaves its own liquid no volume.
  */
 function tankResultOf(
-  t: { comp: Compartment; ownFluidName: string | null; room: TankRoom; missingM3: number; ownV: number; ownM: number; liquid: Acc; permeability: number },
+  t: { comp: Compartment; ownFluidName: string | null; room: TankRoom; missingM3: number; ownV: number; ownM: number; liquid: Acc; permeability: number; grossM3: number },
   warn: Warn,
 ): TankResult {
   const { comp, room } = t;
@@ -593,6 +593,10 @@ function tankResultOf(
   }
   if (comp.permeability === 0 && tank && tank.state !== 'empty') {
     warn('tank-permeability-zero', 'warning', comp.id, `${comp.name}: permeability 0 leaves its own liquid no volume; leave the permeability empty for a full tank (flood water then gets no room by its contents)`);
+  }
+  const capacity = t.permeability * t.grossM3;
+  if (tank?.state === 'part-full' && (tank.volumeM3 ?? 0) > capacity + tol) {
+    warn('tank-volume-over-capacity', 'warning', comp.id, `${comp.name}: its own liquid is stated as ${formatM3(tank.volumeM3 ?? 0)}, more than the ${formatM3(capacity)} it holds (${t.permeability.toFixed(2)} of ${formatM3(t.grossM3)}); taken as full`);
   }
   if (t.missingM3 > Math.max(tol, 0.02 * room.ownStatedM3)) {
     warn('tank-own-missing', 'warning', comp.id, `${comp.name}: ${formatM3(t.missingM3)} of its own ${t.ownFluidName?.toLowerCase() ?? 'liquid'} stated is not in the readings (gone to the sea or elsewhere, or the stated contents are wrong)`);

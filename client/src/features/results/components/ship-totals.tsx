@@ -42,6 +42,9 @@ export function ShipTotals({ results, rows, system }: { results: SurveyLevelResu
         />
         <Tile label="Flood water" value={fmt(ship.floodWater.massKg, 'mass', system)} sub={fmt(ship.floodWater.volumeM3, 'volume', system)} testId="total-flood-water" />
         <Tile label="Oil" value={fmt(ship.oil.massKg, 'mass', system)} sub={fmt(ship.oil.volumeM3, 'volume', system)} />
+        {ship.tankContents.massKg > 0 && (
+          <Tile label="Tanks’ own liquid" value={fmt(ship.tankContents.massKg, 'mass', system)} sub={`${fmt(ship.tankContents.volumeM3, 'volume', system)}, not flood water`} testId="total-tank-contents" />
+        )}
         <Tile
           label={`All liquid centroid (${unitLabel('length', system)})`}
           value={ship.allLiquids.centroid ? `x ${L(ship.allLiquids.centroid.x)}` : '—'}
