@@ -54,7 +54,7 @@ function CompartmentRows({ c, system, onSelect }: { c: SurveyLevelResults['compa
         </td>
         <td className="p-1.5 text-right tabular-nums">{num(c.liquid.volumeM3, 'volume', system)}</td>
         <td className="p-1.5 text-right tabular-nums">{num(c.liquid.massKg, 'mass', system)}</td>
-        <td className="p-1.5 text-right tabular-nums">{percent(c.fillFraction)}</td>
+        <td className="whitespace-nowrap p-1.5 text-right tabular-nums">{percent(c.fillFraction)}</td>
         <td className="p-1.5"><PointText point={c.liquid.centroid} system={system} /></td>
       </tr>
       {c.layers.map((l) => (
@@ -64,7 +64,7 @@ function CompartmentRows({ c, system, onSelect }: { c: SurveyLevelResults['compa
               aria-hidden="true"
               className={`mr-1 inline-block size-3 rounded-sm ${l.category === 'oil' ? 'bg-oil' : l.category === 'water' ? 'bg-sea' : 'bg-ink-soft'}`}
             />
-            {l.fluidName} <span className="text-ink-soft">({num(l.densityKgM3, 'density', system)} {unitLabel('density', system)})</span>
+            {l.fluidName} <span className="whitespace-nowrap text-ink-soft">({num(l.densityKgM3, 'density', system)} {unitLabel('density', system)})</span>
             {c.tank && l.ownVolumeM3 > 0 && (
               <span className="block text-xs text-ink-soft">
                 {l.ownVolumeM3 >= l.volumeM3 * (1 - 1e-9) ? 'the tank’s own' : `${fmt(l.ownVolumeM3, 'volume', system)} the tank’s own, the rest flood water`}
