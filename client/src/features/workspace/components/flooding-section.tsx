@@ -115,6 +115,20 @@ function PumpForm({ comp, system, apply }: { comp: Compartment; system: UnitSyst
   );
 }
 
+/** The survey's pumps to choose from, "—" first. */
+function PumpOptions({ pumps }: { pumps: { id: string; name: string }[] }) {
+  return (
+    <>
+      <option value="">—</option>
+      {pumps.map((p) => (
+        <option key={p.id} value={p.id}>
+          {p.name}
+        </option>
+      ))}
+    </>
+  );
+}
+
 /**
  * One stored step of the plan. A step whose pump or space was deleted since stays in the plan: its
  * field says so (an error that keeps the step) and offers the survey's pumps or spaces to choose again.
@@ -141,12 +155,7 @@ function PlanStepRow({ step, n, survey, pumps, condition, system, onChange, onRe
         <span className="mt-1 grid grid-cols-2 gap-2">
           {errors.pump && (
             <Select id={`${id}-pump`} label={`Pump of step ${n}`} value="" onChange={(t) => t && onChange({ ...step, pumpId: t })} error={errors.pump}>
-              <option value="">—</option>
-              {pumps.map((p) => (
-                <option key={p.id} value={p.id}>
-                  {p.name}
-                </option>
-              ))}
+              <PumpOptions pumps={pumps} />
             </Select>
           )}
           {errors.space && <SpaceSelect id={`${id}-space`} label={`Space of step ${n}`} compartments={survey.compartments} value="" onChange={(t) => t && onChange({ ...step, compartmentId: t })} error={errors.space} />}
@@ -201,12 +210,7 @@ function PlanEditor({ survey, condition, system, apply }: { survey: SectionProps
       </ol>
       <form className="grid grid-cols-2 gap-2 rounded-md border-2 border-line p-2 sm:grid-cols-5" onSubmit={(e) => (e.preventDefault(), void add())} noValidate aria-label="Add a plan step">
         <Select id="plan-pump" label="Pump" value={v.pump} onChange={(t) => setV({ ...v, pump: t })} error={errors.pump}>
-          <option value="">—</option>
-          {pumps.map((p) => (
-            <option key={p.id} value={p.id}>
-              {p.name}
-            </option>
-          ))}
+          <PumpOptions pumps={pumps} />
         </Select>
         <SpaceSelect id="plan-space" compartments={survey.compartments} value={v.space} onChange={(t) => setV({ ...v, space: t })} error={errors.space} />
         <Input id="plan-start" label="Start" unit="h from readings" value={v.start} onChange={(t) => setV({ ...v, start: t })} error={errors.start} />
