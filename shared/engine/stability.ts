@@ -364,15 +364,19 @@ function wallSidedHeel(gm: number, bm: number, a: number): number {
 
 /**
  * The FloodWeights of a computed condition: each space's liquids (permeability and density applied,
- * as computeSurvey found them) at their centroid, with the free-surface moment of every slack
- * surface: ρ·μ·i_T, i_T the exact second moment of the surface polygon (the compartment solid cut at
- * the level, at the condition's heel and trim) about its own axis along the ship. Between two
- * layers (oil on water) the interface counts with the difference of their densities; a surface
- * pressed up to the top of its space has no polygon and no free surface.
+ * as computeSurvey found them) as floodWeightsAtLevels places them: at their centroid with the ship
+ * upright on an even keel, with the free-surface moment of every slack surface ρ·μ·i_T, i_T the
+ * exact second moment of the surface polygon (the compartment solid cut at the level, at the
+ * condition's heel and trim) about its own axis along the ship. The liquid's shift to the low side
+ * of a ship the readings show heeled is in that free-surface correction alone; taking the heeled
+ * centroid as the weight's place as well would count it twice (Barrass & Derrett, chapters on free
+ * surface; checked in tests/reference/stability-heeled-readings.test.ts). Between two layers (oil on
+ * water) the interface counts with the difference of their densities; a surface pressed up to the
+ * top of its space has no polygon and no free surface. Units: kg, m, kg·m.
  */
 export function floodWeightsFromResults(survey: Survey, results: Omit<SurveyResults, 'boundaries'>): FloodWeight[] {
   const up: [number, number, number] = [results.frame.up.x, results.frame.up.y, results.frame.up.z];
-  const compartments = new Map(survey.compartments.map((c) => [c.id, c]));
+  const compartments = new Set(survey.compartments.map((c) => c.id));
   const condition = survey.conditions.find((k) => k.id === results.conditionId);
   const contents = new Map((condition?.contents ?? []).map((k) => [k.compartmentId, k]));
   // Open to the sea means in balance with it: no contents given (the engine floods it to the
@@ -381,15 +385,10 @@ export function floodWeightsFromResults(survey: Survey, results: Omit<SurveyResu
     const layers = contents.get(id)?.layers;
     return !layers || layers.length === 0 || layers[layers.length - 1].level.kind === 'openToSea';
   };
-  const out: FloodWeight[] = [];
-  for (const r of results.compartments) {
-    const comp = compartments.get(r.id);
-    const c = r.liquid.centroid;
-    if (!comp || !c || !(r.liquid.massKg > 0)) continue;
-    const fsm = freeSurfaceMoment(solidOf(comp.geometry), up, r.permeability, r.layers);
-    out.push({ spaceId: r.id, massKg: r.liquid.massKg, x: c.x, y: c.y, z: c.z, freeSurfaceMomentKgM2: fsm, openToSea: r.openToSea && inBalance(r.id) });
-  }
-  return out;
+  const spaces = results.compartments
+    .filter((r) => compartments.has(r.id) && r.liquid.centroid && r.liquid.massKg > 0)
+    .map((r) => ({ spaceId: r.id, permeability: r.permeability, openToSea: r.openToSea && inBalance(r.id), layers: r.layers }));
+  return floodWeightsAtLevels(survey, up, spaces);
 }
 
 /** A liquid layer for the weights: its volume (permeability applied, m³) and its top's elevation along `up`, m. */
