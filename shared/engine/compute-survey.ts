@@ -32,8 +32,8 @@ import {
   type PlateFrame,
   type PlateIntegration,
 } from './plate';
-import { compartmentSolid, elevationRange, volumeBelow, type VolumeMoments } from './polyhedron';
-import { constantProfile, differenceProfile, layeredProfile, type PressureProfile } from './profile';
+import { compartmentSolidInto, elevationRangeFlat, newFlatSolid, volumeBelowFlat, type VolumeMoments } from './polyhedron';
+import { constantProfile, differenceProfileInto, layeredProfile, type PressureProfile } from './profile';
 import type {
   Aggregate,
   BoundaryResult,
@@ -82,6 +82,12 @@ interface ResolvedFluid {
 
 const NULL_POINT_TOL = 1e-12;
 
+/** One compartment's solid, and the volumes below the levels asked of it (prepareCondition's compartment loop). */
+const scratchSolid = newFlatSolid();
+const memoKeys: number[] = [];
+const memoValues: VolumeMoments[] = [];
+let memoCount = 0;
+
 /**
  * Everything of one condition that the boundaries need: the earth frame, each compartment's
  * results and pressure profile, the flat plates of parents and their openings, and the warnings so
@@ -120,16 +126,23 @@ function prepareCondition(survey: Survey, conditionIdIn: string | undefined, inc
 
   for (const comp of survey.compartments) {
     if (withheld.compartments.has(comp.id)) continue;
-    const solid = compartmentSolid(comp.geometry);
-    const [eBottom, eTop] = elevationRange(solid, up);
-    const memo = new Map<number, VolumeMoments>();
+    // the solid in scratch space: only this compartment's computation reads it
+    const solid = compartmentSolidInto(comp.geometry, scratchSolid);
+    const [eBottom, eTop] = elevationRangeFlat(solid, up);
+    memoCount = 0;
     const below = (eta: number): VolumeMoments => {
       const key = eta <= eBottom ? -Infinity : eta >= eTop ? Infinity : eta;
-      let r = memo.get(key);
-      if (!r) {
-        r = key === -Infinity ? { volume: 0, mx: 0, my: 0, mz: 0 } : volumeBelow(solid, up, key);
-        memo.set(key, r);
+      // (keys compared as a Map compares them: 0 and −0 alike, NaN equal to NaN)
+      for (let i = 0; i < memoCount; i++) if (memoKeys[i] === key || (memoKeys[i] !== memoKeys[i] && key !== key)) return memoValues[i];
+      const r = key === -Infinity ? { volume: 0, mx: 0, my: 0, mz: 0 } : volumeBelowFlat(solid, up, key);
+      if (memoCount === memoKeys.length) {
+        memoKeys.push(key);
+        memoValues.push(r);
+      } else {
+        memoKeys[memoCount] = key;
+        memoValues[memoCount] = r;
       }
+      memoCount++;
       return r;
     };
     const gross = below(Infinity);
@@ -249,14 +262,15 @@ function prepareCondition(survey: Survey, conditionIdIn: string | undefined, inc
   const parentIds = new Set<string>();
   for (const b of survey.boundaries) if (b.parentBoundaryId) parentIds.add(b.parentBoundaryId);
   const plates = new Map<string, { plate: FlatPlate; pts: V3[] | null }>();
-  for (const b of survey.boundaries) {
+  // (with no openings, as in most surveys, the two passes below have nothing to do)
+  for (const b of parentIds.size > 0 ? survey.boundaries : []) {
     const geom = b.geometry;
     if (geom.kind === 'faceted' || !(b.parentBoundaryId || parentIds.has(b.id))) continue;
     const built = buildFlat(geom, up, !!b.parentBoundaryId);
     if (built) plates.set(b.id, built);
   }
   const openings = new Map<string, string[]>();
-  for (const b of survey.boundaries) {
+  for (const b of parentIds.size > 0 ? survey.boundaries : []) {
     if (!b.parentBoundaryId) continue;
     const parent = plates.get(b.parentBoundaryId);
     const child = plates.get(b.id);
@@ -276,15 +290,10 @@ function prepareCondition(survey: Survey, conditionIdIn: string | undefined, inc
     openings.set(b.parentBoundaryId, list);
   }
 
-  // boundaries between the same two spaces share one net profile
-  const netCache = new Map<PressureProfile, Map<PressureProfile, PressureProfile>>();
-  const netProfile = (pa: PressureProfile, pb: PressureProfile): PressureProfile => {
-    let byB = netCache.get(pa);
-    if (!byB) netCache.set(pa, (byB = new Map()));
-    let net = byB.get(pb);
-    if (!net) byB.set(pb, (net = differenceProfile(pa, pb)));
-    return net;
-  };
+  // the net profile of a boundary, merged into scratch space: valid until the next boundary's
+  // (merging two short lists costs less than looking a shared one up)
+  const scratchNet: PressureProfile = { breaks: [], a: [], b: [], liquidTop: -Infinity };
+  const netProfile = (pa: PressureProfile, pb: PressureProfile): PressureProfile => differenceProfileInto(pa, pb, scratchNet);
 
 
   return { survey, condition, frame, up, g, warnings, warn, withheld, compartmentResults, ship, totalInflow, totalPumps, sideProfile, netProfile, plates, openings };
@@ -393,8 +402,9 @@ export function computeSurveySummary(survey: Survey, options: Pick<ComputeOption
   const tally = utilisationTally(p.warn);
   const table = newBoundaryTable(survey.boundaries.length);
   let k = 0;
+  const withheld = p.withheld.boundaries, anyWithheld = withheld.size > 0, anyPlates = p.plates.size > 0;
   for (const b of survey.boundaries) {
-    if (p.withheld.boundaries.has(b.id)) continue;
+    if (anyWithheld && withheld.has(b.id)) continue;
     let written: boolean;
     if (b.geometry.kind === 'faceted') {
       const r = boundaryResultOf(p, b, false, p.warn);
@@ -402,7 +412,8 @@ export function computeSurveySummary(survey: Survey, options: Pick<ComputeOption
       written = r !== null;
     } else {
       const pa = p.sideProfile(b.sideA), pb = p.sideProfile(b.sideB);
-      written = flatSummary(b, p.plates.get(b.id)?.plate ?? scratchFlat(b.geometry, p.up) ?? undefined, pa, pb, p.netProfile(pa, pb), p.warn, table, k);
+      const plate = (anyPlates ? p.plates.get(b.id)?.plate : undefined) ?? scratchFlat(b.geometry, p.up) ?? undefined;
+      written = flatSummary(b, plate, pa, pb, p.netProfile(pa, pb), p.warn, table, k);
     }
     if (!written) continue;
     const u = table.maxUtilisation[k];
