@@ -8,6 +8,7 @@ import { CARGO_PERMEABILITY, defaultPermeability, PERMEABILITY_SOURCE } from '..
 import type { Boundary, BoundarySide, Compartment, LevelSource, Survey } from '../schemas/survey';
 import { earthFrame, HEEL_AGREEMENT_TOLERANCE_DEG, type EarthFrame } from './frame';
 import { balanceOpenToSea, spaceInflow } from './flooding-space';
+import { levelOfMouldedVolume, splitOwnLiquid, TANK_PERMEABILITY_SOURCE, tankFloodRoom, type TankRoom } from './tank-contents';
 import { soundingEvidence } from './flooding-soundings';
 import { timeToPumpOut } from './inflow';
 import { missingShipReadings, withheldItems, withheldSentence } from './readings';
@@ -51,6 +52,7 @@ import type {
   BoundaryTable,
   BoundarySummary,
   SurveyLevelResults,
+  TankResult,
 } from './results';
 import { facetOrientation } from './facets';
 import { newBoundaryTable, setBoundaryRow } from './boundary-table';
@@ -113,7 +115,7 @@ function prepareCondition(survey: Survey, conditionIdIn: string | undefined, inc
   // only the pressure profiles outlive the compartment loop
   const profiles = new Map<string, PressureProfile>();
   const compartmentResults: CompartmentResult[] = [];
-  const ship = { water: acc(), oil: acc(), other: acc() };
+  const ship = { water: acc(), oil: acc(), other: acc(), own: acc(), all: acc() };
   let totalInflow = 0;
   let totalPumps = 0;
 
@@ -139,10 +141,26 @@ function prepareCondition(survey: Survey, conditionIdIn: string | undefined, inc
       warn('cargo-state-unknown', 'info', comp.id, `${comp.name}: how loaded the space is was not given, so the loaded-space permeability ${defaultPerm.value.toFixed(2)} is used; empty it would be ${CARGO_PERMEABILITY[comp.spaceType]!.empty.toFixed(2)} (${PERMEABILITY_SOURCE})`);
     }
     const contents = contentsById.get(comp.id);
-    const layersIn = contents
+    // a tank's own liquid, told apart from flood water (tank-contents.ts)
+    const tank = comp.spaceType === 'tank' ? comp.tankContents : undefined;
+    const ownFluidId = tank && tank.state !== 'empty' ? tank.fluidId : undefined;
+    const room = comp.spaceType === 'tank' ? tankFloodRoom(gross.volume, permeability, tank) : null;
+    // open to the sea with no readings: sea water in balance, and a tank's own liquid (if not sea
+    // water itself) as a layer of its stated volume, on top of the sea water or under it by density
+    const ownLayer =
+      !contents && comp.openToSea && ownFluidId && ownFluidId !== 'sea-water' && room && room.ownStatedM3 > 0
+        ? { id: `${comp.id}-own`, fluidId: ownFluidId, level: { kind: 'point' as const, point: { x: 0, y: 0, z: 0 } } }
+        : null;
+    const seaLayer = { id: comp.id, fluidId: 'sea-water', densityKgM3: frame.seaDensityKgM3, level: { kind: 'openToSea' as const } };
+    const ownBelowSea = ownLayer !== null && fluids(ownLayer.fluidId).densityKgM3 > frame.seaDensityKgM3;
+    const layersIn: { id: string; fluidId: string; densityKgM3?: number; level: LevelSource }[] = contents
       ? contents.layers
       : comp.openToSea
-        ? [{ id: comp.id, fluidId: 'sea-water', densityKgM3: frame.seaDensityKgM3, level: { kind: 'openToSea' as const } }]
+        ? ownLayer
+          ? ownBelowSea
+            ? [ownLayer, seaLayer]
+            : [seaLayer, ownLayer]
+          : [seaLayer]
         : [];
     const pGas = contents?.gas?.kind === 'pressurised' ? contents.gas.gaugePressurePa : 0;
 
@@ -154,6 +172,12 @@ function prepareCondition(survey: Survey, conditionIdIn: string | undefined, inc
     const densityOf = (layer: (typeof layersIn)[number]) =>
       layer.densityKgM3 ?? (layer.fluidId === 'sea-water' && !survey.fluids.some((f) => f.id === 'sea-water') ? frame.seaDensityKgM3 : fluids(layer.fluidId).densityKgM3);
     let tops = layersIn.map((layer) => levelElevation(layer.level, frame));
+    if (ownLayer && room && permeability > 0) {
+      // the own liquid's moulded volume, measured from the bottom (balanceOpenToSea keeps the
+      // volume of a layer above the open one as entered, from the open one's entered top)
+      const ownTop = levelOfMouldedVolume((eta) => below(eta).volume, [eBottom, eTop], room.ownStatedM3 / permeability);
+      tops = ownBelowSea ? [ownTop, ownTop] : [eBottom, ownTop];
+    }
     const open = layersIn.findIndex((l) => l.level.kind === 'openToSea');
     if (open >= 0) {
       // in balance with the sea at the opening, any oil or gas on top included
@@ -204,13 +228,28 @@ function prepareCondition(survey: Survey, conditionIdIn: string | undefined, inc
         volumeM3: vol,
         massKg: mass,
         centroid: c,
+        ownVolumeM3: 0,
       });
-      if (c) {
-        addAcc(liquid, vol, mass, c);
-        addAcc(fluid.category === 'water' ? ship.water : fluid.category === 'oil' ? ship.oil : ship.other, vol, mass, c);
-      }
+      if (c) addAcc(liquid, vol, mass, c);
       prevTop = Math.max(prevTop, top);
     });
+    const split = splitOwnLiquid(layerResults, ownFluidId, room?.ownStatedM3 ?? 0);
+    let ownV = 0, ownM = 0;
+    layerResults.forEach((l, i) => {
+      l.ownVolumeM3 = split.ownM3[i];
+      const ownMass = l.volumeM3 > 0 ? (l.massKg * l.ownVolumeM3) / l.volumeM3 : 0;
+      ownV += l.ownVolumeM3;
+      ownM += ownMass;
+      if (!l.centroid) return;
+      addAcc(ship.all, l.volumeM3, l.massKg, l.centroid);
+      if (l.ownVolumeM3 > 0) addAcc(ship.own, l.ownVolumeM3, ownMass, l.centroid);
+      // flood water is what is not the tank's own; oil and other liquids are counted whole
+      if (l.category === 'water') addAcc(ship.water, l.volumeM3 - l.ownVolumeM3, l.massKg - ownMass, l.centroid);
+      else addAcc(l.category === 'oil' ? ship.oil : ship.other, l.volumeM3, l.massKg, l.centroid);
+    });
+    const tankResult = room
+      ? tankResultOf({ comp, ownFluidName: ownFluidId ? fluids(ownFluidId).name : null, room, missingM3: split.missingM3, ownV, ownM, liquid, permeability }, warn)
+      : null;
     const profile = layeredProfile(levels, pGas, g);
     profiles.set(comp.id, profile);
 
@@ -233,6 +272,7 @@ function prepareCondition(survey: Survey, conditionIdIn: string | undefined, inc
       liquid: finishAcc(liquid),
       fillFraction: permeableVolume > 0 ? Math.min(1, liquid.volume / permeableVolume) : 0,
       inflow,
+      tank: tankResult,
     });
   }
 
@@ -324,8 +364,6 @@ function utilisationTally(warn: Warn) {
 /** The survey-level parts shared by the full and the summary results. */
 function surveyLevel(p: Prepared, tally: ReturnType<typeof utilisationTally>): SurveyLevelResults {
   const { ship, frame, condition, survey } = p;
-  const all = acc();
-  for (const a of [ship.water, ship.oil, ship.other]) if (a.mass > 0) addAcc(all, a.volume, a.mass, { x: a.mx / a.mass, y: a.my / a.mass, z: a.mz / a.mass });
   return {
     engineVersion: ENGINE_VERSION,
     surveyId: survey.id,
@@ -344,7 +382,7 @@ function surveyLevel(p: Prepared, tally: ReturnType<typeof utilisationTally>): S
       missingReadings: missingShipReadings(condition),
     },
     compartments: p.compartmentResults,
-    ship: { floodWater: finishAcc(ship.water), oil: finishAcc(ship.oil), other: finishAcc(ship.other), allLiquids: finishAcc(all) },
+    ship: { floodWater: finishAcc(ship.water), oil: finishAcc(ship.oil), other: finishAcc(ship.other), tankContents: finishAcc(ship.own), allLiquids: finishAcc(ship.all) },
     summary: {
       maxUtilisation: tally.maxU,
       maxUtilisationBoundaryId: tally.maxUId,
@@ -535,6 +573,51 @@ function finishAcc(a: Acc): Aggregate {
     centroid: a.mass > 0 ? { x: a.mx / a.mass, y: a.my / a.mass, z: a.mz / a.mass } : null,
   };
 }
+
+/**
+ * A tank's own liquid and its flood water apart, with the notes that keep the split honest: a tank
+ * whose contents were not stated is taken as empty (flood water may take μ of it, the more severe
+ * of SOLAS's 0 or 0.95), stated liquid that is not found, flood water beyond the room the tank's
+ * own liquid leaves, and a permeability of 0 that leaves its own liquid no volume.
+ */
+function tankResultOf(
+  t: { comp: Compartment; ownFluidName: string | null; room: TankRoom; missingM3: number; ownV: number; ownM: number; liquid: Acc; permeability: number },
+  warn: Warn,
+): TankResult {
+  const { comp, room } = t;
+  const tank = comp.tankContents;
+  const floodV = Math.max(0, t.liquid.volume - t.ownV);
+  const tol = 1e-6 * Math.max(1, t.permeability * (room.ownStatedM3 + room.floodRoomM3));
+  if (!tank && (comp.openToSea || (comp.breaches ?? []).length > 0)) {
+    warn('tank-contents-unknown', 'info', comp.id, `${comp.name}: its own liquid was not stated, so it is taken as empty and flood water may take ${t.permeability.toFixed(2)} of it; full of its own liquid it would take none (${TANK_PERMEABILITY_SOURCE})`);
+  }
+  if (comp.permeability === 0 && tank && tank.state !== 'empty') {
+    warn('tank-permeability-zero', 'warning', comp.id, `${comp.name}: permeability 0 leaves its own liquid no volume; leave the permeability empty for a full tank (flood water then gets no room by its contents)`);
+  }
+  if (t.missingM3 > Math.max(tol, 0.02 * room.ownStatedM3)) {
+    warn('tank-own-missing', 'warning', comp.id, `${comp.name}: ${formatM3(t.missingM3)} of its own ${t.ownFluidName?.toLowerCase() ?? 'liquid'} stated is not in the readings (gone to the sea or elsewhere, or the stated contents are wrong)`);
+  }
+  if (floodV > room.floodRoomM3 + Math.max(tol, 0.02 * (room.ownStatedM3 + room.floodRoomM3))) {
+    warn('tank-flood-beyond-room', 'warning', comp.id, `${comp.name}: the readings show ${formatM3(floodV)} of flood water, more than the ${formatM3(room.floodRoomM3)} its own liquid leaves room for: some of its own liquid has gone, or the stated contents are wrong`);
+  }
+  const ownMissing = t.missingM3 > tol ? t.missingM3 : 0;
+  return {
+    state: tank?.state ?? 'not-stated',
+    ownFluidId: tank && tank.state !== 'empty' ? (tank.fluidId ?? null) : null,
+    ownFluidName: t.ownFluidName,
+    ownStatedM3: room.ownStatedM3,
+    ownVolumeM3: t.ownV,
+    ownMassKg: t.ownM,
+    ownMissingM3: ownMissing,
+    floodVolumeM3: floodV,
+    floodMassKg: Math.max(0, t.liquid.mass - t.ownM),
+    floodRoomM3: room.floodRoomM3,
+    floodPermeability: room.floodPermeability,
+    source: tank ? TANK_PERMEABILITY_SOURCE : `${TANK_PERMEABILITY_SOURCE}; its own liquid not stated, taken as empty`,
+  };
+}
+
+const formatM3 = (v: number): string => `${v < 10 ? v.toFixed(2) : v.toFixed(1)} m³`;
 
 function compartmentInflow(
   comp: Compartment,

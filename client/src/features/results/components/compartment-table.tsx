@@ -48,7 +48,7 @@ function CompartmentRows({ c, system, onSelect }: { c: SurveyLevelResults['compa
         </td>
         <td className="p-1.5 text-right tabular-nums">{num(c.liquid.volumeM3, 'volume', system)}</td>
         <td className="p-1.5 text-right tabular-nums">{num(c.liquid.massKg, 'mass', system)}</td>
-        <td className="p-1.5 text-right tabular-nums">{percent(c.fillFraction)}</td>
+        <td className="whitespace-nowrap p-1.5 text-right tabular-nums">{percent(c.fillFraction)}</td>
         <td className="p-1.5"><PointText point={c.liquid.centroid} system={system} /></td>
       </tr>
       {c.layers.map((l) => (

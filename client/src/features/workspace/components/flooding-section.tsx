@@ -9,6 +9,8 @@ import { forecastFlooding } from '@shared/engine';
 import type { Compartment, Condition } from '@shared/schemas/survey';
 import { OPENING_FACES, type OpeningFace, type PlanStep } from '@shared/schemas/flooding';
 import type { UnitSystem } from '@shared/units/units';
+import { openingWords } from '@shared/review/plain-words';
+import { pointWords } from '@shared/units/point-words';
 import { primaryBtn, dangerBtn } from '@client/components/ui/fields';
 import { heightOf, Input, need, Select, SpaceSelect, type Errors } from './flooding-fields';
 import { SoundingLog } from './sounding-log';
@@ -217,7 +219,7 @@ export function FloodingSection({ survey, apply, system }: SectionProps) {
           <ul className="text-sm">
             {(comp.breaches ?? []).map((b) => (
               <li key={b.id} className="flex items-center gap-2">
-                {fmt(b.areaM2, 'area', system, 3)} at z {fmt(b.position.z, 'length', system, 3)} {b.face ? `(${b.face})` : ''}
+                {openingWords(b, system)} at {pointWords(b.position, system)}{b.face ? ` (${b.face} side)` : ''}
                 <button type="button" className={dangerBtn} onClick={() => void remove({ breaches: comp.breaches!.filter((x) => x.id !== b.id) })}>
                   Remove
                 </button>
@@ -229,7 +231,7 @@ export function FloodingSection({ survey, apply, system }: SectionProps) {
           <ul className="text-sm">
             {(comp.openings ?? []).map((o) => (
               <li key={o.id} className="flex items-center gap-2">
-                {fmt(o.areaM2, 'area', system, 3)} to {survey.compartments.find((c) => c.id === o.toCompartmentId)?.name ?? 'a missing space'}
+                {openingWords(o, system)} to {survey.compartments.find((c) => c.id === o.toCompartmentId)?.name ?? 'a missing space'}
                 <button type="button" className={dangerBtn} onClick={() => void remove({ openings: comp.openings!.filter((x) => x.id !== o.id) })}>
                   Remove
                 </button>
