@@ -21,6 +21,12 @@ import type { BriefPageData } from '../brief/render-brief';
 import * as repo from '../db/repositories/review';
 import { ensureResults } from './engine-results';
 
+/** The revision a brief shows: the accepted one while an acceptance stands for an older revision, else the current one. */
+function shownRevision(events: Parameters<typeof standingAcceptance>[0], revision: number): number {
+  const accepted = standingAcceptance(events);
+  return accepted && accepted.revision < revision ? accepted.revision : revision;
+}
+
 interface BriefDeps {
   db: Knex;
   config: Pick<Config, 'publicUrl'>;
@@ -165,7 +171,8 @@ async function acceptedFigures(
 }
 
 /**
- * The master's "received and understood": logged with the revision it was read at. False for a
+ * The master's "received and understood": logged with the revision the brief shows (the accepted
+ * one while newer, unreviewed figures exist), the one the master read. False for a
  * token that is not live (the caller answers as for an unknown link).
  */
 async function acknowledge(db: Knex, token: string, name: string, meta: { ip: string | null; userAgent: string | null }): Promise<boolean> {
@@ -174,7 +181,8 @@ async function acknowledge(db: Knex, token: string, name: string, meta: { ip: st
   if (!link) return false;
   const s = await repo.findSurvey(db, link.orgId, link.surveyId);
   if (!s) return false;
-  await repo.insertBriefAcknowledgement(db, { briefId: link.id, name, revision: s.revision, ip: meta.ip, userAgent: meta.userAgent });
+  const revision = shownRevision(await repo.listStatusEvents(db, s.id), s.revision);
+  await repo.insertBriefAcknowledgement(db, { briefId: link.id, name, revision, ip: meta.ip, userAgent: meta.userAgent });
   return true;
 }
 

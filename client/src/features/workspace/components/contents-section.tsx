@@ -9,7 +9,7 @@ import { byKey, measureLabel, parseField, showField, unitResolver } from '../uti
 import { NumberInput, SelectInput, FormError, primaryBtn, secondaryBtn, dangerBtn, errorAt } from '@client/components/ui/fields';
 import { useAutosave } from '../hooks/use-autosave';
 import { SaveIndicator } from './save-indicator';
-import type { Apply, SectionProps } from '../utils/types';
+import type { Apply, EditOp, SectionProps } from '../utils/types';
 import { activeCondition, newId } from '../utils/new-entities';
 import { display, unitLabel, fmt } from '@client/lib/unit-system';
 import type { Survey } from '@shared/schemas/survey';
@@ -109,10 +109,9 @@ function ContentsEditor({ survey, condition, compartment, contents, apply, syste
     },
   });
   const { fields, append, remove, move } = useFieldArray({ control: form.control, name: 'layers', keyName: 'key' });
-  const save = (v: Contents) => {
-    const others = condition.contents.filter((k) => k.compartmentId !== compartment.id);
-    return apply({ kind: 'upsert', collection: 'conditions', entity: { ...condition, contents: [...others, v] } });
-  };
+  const others = condition.contents.filter((k) => k.compartmentId !== compartment.id);
+  const edit = (v: Contents): EditOp => ({ kind: 'upsert', collection: 'conditions', entity: { ...condition, contents: [...others, v] } });
+  const save = (v: Contents, base: Contents | undefined) => apply(edit(v), base && edit(base));
   const state = useAutosave(form, save);
   const { register, formState, watch } = form;
   const e = formState.errors;

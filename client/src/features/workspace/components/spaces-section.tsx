@@ -12,7 +12,7 @@ import { byKey, measureLabel, parseField, showField, unitResolver } from '../uti
 import { NumberInput, TextInput, SelectInput, FormError, primaryBtn, dangerBtn, secondaryBtn, inputCls, Field, errorAt } from '@client/components/ui/fields';
 import { useAutosave } from '../hooks/use-autosave';
 import { SaveIndicator } from './save-indicator';
-import type { Apply, SectionProps } from '../utils/types';
+import type { Apply, EditOp, SectionProps } from '../utils/types';
 import { newCompartment } from '../utils/new-entities';
 import { frameToX, parseFrameText, useFrameTable, type FrameTable } from '../utils/frames';
 import { parseX } from '../utils/parse-x';
@@ -143,7 +143,8 @@ function CompartmentEditor({ compartment, survey, apply, system }: { compartment
     resolver: unitResolver(schema, (v: CompartmentForm) => toModel(v, compartment, system, frames), system, MEASURES),
     defaultValues: defaults(compartment, system),
   });
-  const state = useAutosave(form, (v) => apply({ kind: 'upsert', collection: 'compartments', entity: v }));
+  const edit = (v: Compartment): EditOp => ({ kind: 'upsert', collection: 'compartments', entity: v });
+  const state = useAutosave(form, (v, base) => apply(edit(v), base && edit(base)));
   const { register, formState, watch, setValue } = form;
   const kind = watch('kind');
   const spaceType = watch('spaceType');

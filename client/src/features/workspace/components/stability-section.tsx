@@ -14,7 +14,7 @@ import { ShipResponsePanel } from '@client/features/results/components/ship-resp
 import { byKey, measureLabel, parseField, showField, unitResolver, type Measure } from '../utils/form-units';
 import { useAutosave } from '../hooks/use-autosave';
 import { activeCondition } from '../utils/new-entities';
-import type { Apply, SectionProps } from '../utils/types';
+import type { Apply, EditOp, SectionProps } from '../utils/types';
 import { SaveIndicator } from './save-indicator';
 
 type FigureKey =
@@ -122,7 +122,8 @@ function ParticularsEditor({ condition, survey, apply, system }: { condition: Co
     resolver: unitResolver(ConditionStabilitySchema, (v: StabilityForm) => toModel(v, system), system, MEASURES),
     defaultValues: toForm(condition.stability, survey, system),
   });
-  const state = useAutosave(form, (v) => apply({ kind: 'upsert', collection: 'conditions', entity: { ...latest.current, stability: v } }));
+  const edit = (v: ConditionStability): EditOp => ({ kind: 'upsert', collection: 'conditions', entity: { ...latest.current, stability: v } });
+  const state = useAutosave(form, (v, base) => apply(edit(v), base && edit(base)));
   const { register, formState } = form;
   const kind = useWatch({ control: form.control, name: 'kind' });
   const either = (k: 'kgM' | 'tpcT') => errorAt(formState.errors, `particulars.${k}`)?.message;
