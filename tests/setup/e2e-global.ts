@@ -11,6 +11,7 @@ import { loadConfig } from '../../server/config';
 import { startServer, type RunningServer } from '../../server/index';
 import { createDb } from '../../server/db/knex';
 import { seedDemo } from '../../seeds/seed-demo';
+import { createS3PhotoStorage } from '../../server/storage/photo-store';
 import { freePort } from '../support/free-port';
 
 let stack: TestStack | undefined;
@@ -33,7 +34,7 @@ export async function setup(project: TestProject) {
   const port = await freePort();
   const config = loadConfig({ ...stack.env, PORT: String(port), PUBLIC_URL: `http://localhost:${port}` });
   const db = createDb(config.DATABASE_URL);
-  await seedDemo(db, { bcryptCost: config.BCRYPT_COST });
+  await seedDemo(db, { bcryptCost: config.BCRYPT_COST, photos: createS3PhotoStorage(config) });
   server = await startServer(config, { db, clientDir });
   project.provide('testEnv', { ...stack.env, PUBLIC_URL: server.url });
   project.provide('baseUrl', server.url);

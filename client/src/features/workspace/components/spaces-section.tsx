@@ -139,7 +139,7 @@ function CompartmentEditor({ compartment, surveyId, apply, system }: { compartme
           unit=""
           errors={e}
           placeholder={perm.value.toFixed(2)}
-          hint={`empty: default ${perm.value.toFixed(2)} (${perm.source})`}
+          hint="empty: the usual value for this type of space (below)"
           extra={
             permeability.trim() === '' ? (
               <MarkChip
