@@ -16,6 +16,7 @@ import { createDb } from '../server/db/knex';
 import { startServer, ROOT_DIR } from '../server/index';
 import { forkWorkers, workersWanted } from '../server/cluster';
 import { seedDemo } from '../seeds/seed-demo';
+import { createS3PhotoStorage } from '../server/storage/photo-store';
 import { DEMO_USERS } from '../seeds/demo-people';
 
 const step = (msg: string) => console.log(`[brineline] ${msg}`);
@@ -64,7 +65,7 @@ async function main() {
     const db = createDb(config.DATABASE_URL);
     const applied = await migrateLatest(db);
     step(applied.length ? `Applied ${applied.length} migration(s).` : 'Database schema is up to date.');
-    const seeded = await seedDemo(db, { bcryptCost: config.BCRYPT_COST });
+    const seeded = await seedDemo(db, { bcryptCost: config.BCRYPT_COST, photos: createS3PhotoStorage(config) });
     step(seeded.created ? 'Seeded the demo firm and casualty.' : 'Demo data already present: kept as it is.');
 
     const dev = process.argv.includes('--dev');

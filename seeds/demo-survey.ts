@@ -69,6 +69,16 @@ const timberShore = (n: number, y: number, z: number, lengthM: number, sideM: nu
   design: { method: 'nds-3.7.1', adjustedCompressionPa: 6.3e6, adjustedEMinPa: 3.6e9, c: 0.8 },
 });
 
+/**
+ * The file of each demo photo (seeds/demo-photos/, an invented illustration of the scene its caption
+ * names), put in the photo store by seeds/seed-photos.ts.
+ */
+export const DEMO_PHOTO_FILES: Record<string, string> = {
+  [id(500)]: 'no-2-3-bulkhead-shoring.jpg',
+  // the same photo in the survey sent for review: a photo id names one stored photo
+  [id(501)]: 'no-2-3-bulkhead-shoring.jpg',
+};
+
 export function demoSurvey(): Survey {
   return {
     schemaVersion: SURVEY_SCHEMA_VERSION,
@@ -366,5 +376,6 @@ export function demoSubmittedSurvey(): Survey {
       'Surveyed for Skerrow Marine Salvage by Ines Achterberg (salvage surveyor), for review ashore by Tomas Varga (naval architect).',
     // 9×7 + 1×6 + 2×5 + 3×4 + 4×3 + 5×2 = 113: check digit 3
     vessel: { ...base.vessel, name: 'MV Lunga Sound', imo: '9123453' },
+    photos: (base.photos ?? []).map((p) => ({ ...p, id: id(501) })),
   };
 }

@@ -6,11 +6,15 @@ import bcrypt from 'bcryptjs';
 import type { Knex } from 'knex';
 import { DEMO_ORG, DEMO_USERS, OTHER_ORG } from './demo-people';
 import { seedSurveys } from './seed-surveys';
+import { seedPhotos } from './seed-photos';
+import type { PhotoStorage } from '../server/storage/photo-store';
 
-export async function seedDemo(db: Knex, opts: { bcryptCost: number }): Promise<{ created: boolean }> {
+/** `photos`: the store the server reads photos from; without it the demo photos get no files. */
+export async function seedDemo(db: Knex, opts: { bcryptCost: number; photos?: PhotoStorage }): Promise<{ created: boolean }> {
   const existing = await db('organisations').where({ id: DEMO_ORG.id }).first('id');
   if (existing) {
     await seedSurveys(db);
+    if (opts.photos) await seedPhotos(db, opts.photos);
     return { created: false };
   }
   await db.transaction(async (trx) => {
@@ -28,5 +32,6 @@ export async function seedDemo(db: Knex, opts: { bcryptCost: number }): Promise<
     }
   });
   await seedSurveys(db);
+  if (opts.photos) await seedPhotos(db, opts.photos);
   return { created: true };
 }

@@ -6,7 +6,7 @@ import type { Survey } from '@shared/schemas/survey';
 import { governingCheck, type BoundaryResult, type SurveyResults } from '@shared/engine';
 import type { OperatingLimit, Verdict } from '@shared/api/review';
 import { CAUTIONS, FORECAST_CAUTION, STABILITY_CAUTION, hmm } from '@shared/api/cautions';
-import { downfloodingFreeboards, forecastFlooding, shipResponseOf } from '@shared/engine';
+import { downfloodingFreeboards, forecastFlooding, measuredAttitude, readingsVersusModel, shipResponseOf } from '@shared/engine';
 import { STATUS_LABELS, type SurveyStatus } from '@shared/review/status';
 import { formatNumber, formatQuantity, type UnitSystem } from '@shared/units/units';
 import {
@@ -153,9 +153,15 @@ ${checksTable(b, d.doc, d.units, { A: sideLabel(r!, b.sideA), B: sideLabel(r!, b
     ? html`<p class="muted">Not shown: the figures the engineer accepted are not kept on the server, and the newer ones are not reviewed.</p>`
     : html`<p class="muted">The server has not worked out the loads for this survey yet.</p>`;
   const nearest = response && condition ? downfloodingFreeboards(d.doc, condition, response)[0] : undefined;
+  // the attitude the ship actually shows, beside the model's: a master must never read a predicted heel as the present one
+  const measured = response && condition ? measuredAttitude(d.doc, condition) : null;
+  const check = response && condition ? readingsVersusModel(d.doc, condition, response) : null;
+  const trimWords = (m: number) => `${q(Math.abs(m), 'length')} ${m > 0 ? 'by the stern' : m < 0 ? 'by the head' : ''}`.trim();
   const heelWords = (deg: number) => `${formatNumber(Math.abs(deg), 2)}° ${deg > 0.05 ? 'to starboard' : deg < -0.05 ? 'to port' : ''}`;
   const stability = response
-    ? html`<p>Predicted from the modelled flooding: drafts aft <strong>${q(response.attitude.draftAftM, 'length')}</strong>, forward <strong>${q(response.attitude.draftForeM, 'length')}</strong>, heel <strong>${heelWords(response.attitude.heelDeg)}</strong>, trim <strong>${q(Math.abs(response.attitude.trimM), 'length')} ${response.attitude.trimM > 0 ? 'by the stern' : response.attitude.trimM < 0 ? 'by the head' : ''}</strong>.</p>
+    ? html`${measured ? html`<p>The readings show: drafts aft <strong>${q(measured.draftAftM, 'length')}</strong>, forward <strong>${q(measured.draftForeM, 'length')}</strong>, heel <strong>${heelWords(measured.heelDeg)}</strong>, trim <strong>${trimWords(measured.trimM)}</strong>.</p>` : ''}
+<p>Predicted from the modelled flooding: drafts aft <strong>${q(response.attitude.draftAftM, 'length')}</strong>, forward <strong>${q(response.attitude.draftForeM, 'length')}</strong>, heel <strong>${heelWords(response.attitude.heelDeg)}</strong>, trim <strong>${trimWords(response.attitude.trimM)}</strong>.</p>
+${check && !check.agrees ? html`<p class="over">${check.message} Until that is explained, the readings, not the prediction, show how the ship lies.</p>` : ''}
 <p>GM after free surface: <strong class="${response.gmFluidM <= 0 ? 'over' : ''}">${q(response.gmFluidM, 'length')}</strong>${nearest && nearest.predictedM !== null ? html` · nearest opening that would let water in: <strong>${nearest.name}</strong>, ${q(nearest.predictedM, 'length')} above the water` : ''}.</p>
 ${response.warnings.length ? html`<ul>${response.warnings.map((w) => html`<li class="${w.severity === 'danger' ? 'over' : ''}">${w.message}</li>`)}</ul>` : ''}
 <p class="muted">${STABILITY_CAUTION}</p>`

@@ -13,7 +13,7 @@ import { STATUS_LABELS, type SurveyStatus } from '@shared/review/status';
 import { formatNumber, formatQuantity, formatStress, type Dimension, type UnitSystem } from '@shared/units/units';
 import { boundaryVerdictLabel, boundaryVerdictMeaning, describeLimit, namesFromSurvey, surveyVerdictLabel } from '@shared/review/words';
 import { figureNotes, figureNoteSentence } from '@shared/review/assumptions';
-import { boundaryKindWords, END_CONDITION_WORDS, SPACE_TYPE_WORDS } from '@shared/review/plain-words';
+import { boundaryKindWords, END_CONDITION_WORDS, openingWords, SPACE_TYPE_WORDS } from '@shared/review/plain-words';
 import { formatShipAndUtc, formatUtc } from '@shared/review/time-words';
 import { structureCheckRows } from '@shared/review/structure-rows';
 import { tankWords } from '@shared/review/tank-words';
@@ -78,7 +78,13 @@ thead th{font-size:8.5pt;text-transform:uppercase;color:var(--soft)}
 .meta td{border:0;padding:1px 4px}
 @media (max-width:600px){.grid,.sign{grid-template-columns:1fr}}
 @media screen{.num{white-space:normal}td{overflow-wrap:anywhere}}
-@media screen and (max-width:600px){.num{white-space:normal}th,td{padding:3px 2px}thead th{font-size:7.5pt;hyphens:auto;overflow-wrap:anywhere}}
+@media screen and (max-width:600px){.num{white-space:normal}th,td{padding:3px 2px}thead th{font-size:7.5pt;hyphens:auto;overflow-wrap:anywhere}
+  /* a wide table on a phone: one block per row, each figure under its column's name (no digit broken off) */
+  table.stack thead{position:absolute;width:1px;height:1px;overflow:hidden;clip:rect(0 0 0 0)}
+  table.stack tr{display:block;border-bottom:2px solid var(--line);padding:4px 0}
+  table.stack th,table.stack td{display:block;border:0;text-align:left;padding:2px 0;overflow-wrap:break-word}
+  table.stack td[data-label]::before{content:attr(data-label) ": ";font-weight:700;color:var(--soft)}
+}
 @media print{
   @page{margin:15mm 14mm 16mm}
   main{max-width:none;padding:0}
@@ -143,19 +149,29 @@ export function renderReport(d: ReportData): string {
   const dr = condition.drafts;
   const draft = (v: number | undefined, field: string) => (v === undefined ? html`<span class="muted">not read</span>` : html`${q(v, 'length')}${chip(condition.id, field)}`);
 
+  // what lets water in and out of a space: breaches, openings to other spaces, pumps (inputs of the flooding forecast)
+  const floodingInputs = (c: Compartment): SafeHtml | string => {
+    const lines = [
+      ...(c.breaches ?? []).map((b) => `Breach to the sea: ${openingWords(b, d.units)} at ${pointWords(b.position, d.units)}`),
+      ...(c.openings ?? []).map((o) => `Opening to ${doc.compartments.find((x) => x.id === o.toCompartmentId)?.name ?? 'a space since removed'}: ${openingWords(o, d.units)} at ${pointWords(o.position, d.units)}`),
+      ...(c.pumps ?? []).map((p) => `Pump ${p.name}: ${q(p.capacityM3S, 'flow')}${p.running === false ? ', stopped' : ''}`),
+    ];
+    return lines.length ? html`${lines.map((l) => html`<div class="muted">${l}</div>`)}` : '';
+  };
+
   const spaceRows = doc.compartments.map((c) => {
     const res = r?.compartments.find((x) => x.id === c.id);
     const k = condition.contents.find((x) => x.compartmentId === c.id);
     const layers = k?.layers ?? [];
     return html`<tr>
 <th scope="row">${c.name}<div class="muted">${SPACE_TYPE_WORDS[c.spaceType]}${c.openToSea ? ', open to the sea' : ''}</div></th>
-<td>${extentWords(c, q)}</td>
-<td class="num">${formatNumber(res?.permeability ?? c.permeability ?? defaultPermeability(c.spaceType, c.cargoState).value, 3)}${chip(c.id, 'permeability')}${c.permeability === undefined ? html`<div class="muted">${res?.permeabilitySource ?? defaultPermeability(c.spaceType, c.cargoState).source}</div>` : ''}</td>
-<td>${layers.length === 0 ? html`<span class="muted">${c.openToSea ? 'floods to the waterline' : 'dry'}</span>` : layers.map((l) => {
+<td data-label="Extent">${extentWords(c, q)}${floodingInputs(c)}</td>
+<td class="num" data-label="Permeability">${formatNumber(res?.permeability ?? c.permeability ?? defaultPermeability(c.spaceType, c.cargoState).value, 3)}${chip(c.id, 'permeability')}${c.permeability === undefined ? html`<div class="muted">${res?.permeabilitySource ?? defaultPermeability(c.spaceType, c.cargoState).source}</div>` : ''}</td>
+<td data-label="Contents">${layers.length === 0 ? html`<span class="muted">${c.openToSea ? 'floods to the waterline' : 'dry'}</span>` : layers.map((l) => {
       const fluid = doc.fluids.find((f) => f.id === l.fluidId)?.name ?? catalogueFluid(l.fluidId)?.name ?? l.fluidId;
       return html`<div>${fluid}: ${levelWords(l.level, q)}${chip(l.id, 'level')}${l.densityKgM3 !== undefined ? html`, density ${q(l.densityKgM3, 'density')}` : chip(l.id, 'densityKgM3')}</div>`;
     })}</td>
-<td class="num">${res ? html`${q(res.liquid.volumeM3, 'volume')}<br>${q(res.liquid.massKg, 'mass')}${res.tank ? html`<div class="muted">${tankWords(res.tank, d.units)}</div>` : ''}` : held.has(c.id) ? html`<span class="muted">not shown</span>` : '—'}</td>
+<td class="num" data-label="Liquid">${res ? html`${q(res.liquid.volumeM3, 'volume')}<br>${q(res.liquid.massKg, 'mass')}${res.tank ? html`<div class="muted">${tankWords(res.tank, d.units)}</div>` : ''}` : held.has(c.id) ? html`<span class="muted">not shown</span>` : '—'}</td>
 </tr>`;
   });
 
@@ -250,7 +266,7 @@ ${r && (r.frame.missingReadings ?? []).length === 0 ? html`<tr><th scope="row">H
 <h2>Methods and sources</h2>
 <ol>${METHODS.map((m) => html`<li>${m.what}. <span class="muted">Source: ${m.source}.</span></li>`)}</ol>
 <h2>Spaces and contents</h2>
-<table><thead><tr><th scope="col">Space</th><th scope="col">Extent</th><th scope="col" class="num">Permeability</th><th scope="col">Contents (readings)</th><th scope="col" class="num">Liquid</th></tr></thead><tbody>${spaceRows}</tbody></table>
+<table class="stack"><thead><tr><th scope="col">Space</th><th scope="col">Extent</th><th scope="col" class="num">Permeability</th><th scope="col">Contents (readings)</th><th scope="col" class="num">Liquid</th></tr></thead><tbody>${spaceRows}</tbody></table>
 ${r ? html`<p>Flood water aboard ${q(r.ship.floodWater.massKg, 'mass')}, oil ${q(r.ship.oil.massKg, 'mass')}${r.ship.tankContents.massKg > 0 ? html`, tanks' own liquid (not flood water) ${q(r.ship.tankContents.massKg, 'mass')}` : ''}.</p>` : ''}
 <h2>Boundaries (${doc.boundaries.length})</h2>
 ${boundarySections}

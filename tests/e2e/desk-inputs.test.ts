@@ -68,6 +68,11 @@ describe.each(CASES)('at $width px', ({ width, final }) => {
     await beside.waitFor();
     expect(await beside.innerText()).toContain(`Sounding ${final} m`);
     expect(await beside.locator('input, select, textarea').count()).toBe(0);
+    // The demo's photo of this bulkhead is on the server (the seed puts its file in the photo store): shown, not "connect to see it".
+    const photo = beside.getByRole('img', { name: 'Shoring on the No. 3 side of the No. 2/3 bulkhead' });
+    await photo.waitFor({ timeout: 15_000 });
+    await expect.poll(() => photo.evaluate((img) => (img as HTMLImageElement).naturalWidth)).toBe(800);
+    expect(await beside.getByTestId('photo-unavailable').count()).toBe(0);
     await beside.screenshot({ path: screenshotPath(`desk-result-inputs-${width}`) });
     await beside.getByRole('button', { name: 'No. 2 hold among all inputs' }).click();
     const card = page.getByTestId('survey-inputs').getByRole('region', { name: 'No. 2 hold', exact: true });

@@ -10,6 +10,7 @@ import { loadConfig } from '../../server/config';
 import { startServer, type RunningServer } from '../../server/index';
 import { createDb } from '../../server/db/knex';
 import { seedDemo } from '../../seeds/seed-demo';
+import { createS3PhotoStorage } from '../../server/storage/photo-store';
 import { freePort } from './free-port';
 
 export interface WholeApp {
@@ -35,7 +36,7 @@ export async function startWholeApp(name: string, { minify = true }: { minify?: 
   const port = await freePort();
   const config = loadConfig({ ...stack.env, PORT: String(port), PUBLIC_URL: `http://localhost:${port}` });
   const db = createDb(config.DATABASE_URL);
-  await seedDemo(db, { bcryptCost: config.BCRYPT_COST });
+  await seedDemo(db, { bcryptCost: config.BCRYPT_COST, photos: createS3PhotoStorage(config) });
   const server = await startServer(config, { db, clientDir });
   return {
     stack,

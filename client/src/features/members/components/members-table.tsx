@@ -71,15 +71,18 @@ function RowActions({ member, isSelf, busy, onAction }: ActionsProps) {
         <Button
           tone="danger-outline"
           disabled={busy}
-          aria-label={`Deactivate ${who}`}
+          aria-label={member.status === 'invited' ? `Withdraw the invitation to ${who}` : `Deactivate ${who}`}
           onClick={() => {
             const text = isSelf
               ? 'Deactivate your own account? You will be signed out everywhere.'
-              : `Deactivate ${who}? They are signed out at once and cannot sign in until reactivated. Their surveys stay with the organisation.`;
+              : member.status === 'invited'
+                ? `Withdraw the invitation to ${who}? Their link stops working; “Reactivate” and “Resend” invite them again.`
+                : `Deactivate ${who}? They are signed out at once and cannot sign in until reactivated. Their surveys stay with the organisation.`;
             if (window.confirm(text)) onAction({ kind: 'deactivate', userId: member.userId });
           }}
         >
-          Deactivate
+          {/* an invitation not yet taken up is withdrawn, not "deactivated": nobody has an account to stop */}
+          {member.status === 'invited' ? 'Withdraw' : 'Deactivate'}
         </Button>
       )}
     </div>

@@ -21,7 +21,7 @@ export function StorageStatus() {
       {error && (
         <div className="mt-2 rounded border border-danger bg-danger-soft p-2 text-ink" role="alert">
           <p>{error}</p>
-          <button type="button" className="mt-1 underline" onClick={clearStorageError}>
+          <button type="button" className="mt-1 min-h-touch px-1 underline" onClick={clearStorageError}>
             Dismiss
           </button>
         </div>

@@ -7,6 +7,7 @@ import { lazy, Suspense } from 'react';
 import { Link } from 'react-router';
 import { paths } from '@client/config/paths';
 import { useSyncState, type SyncState } from '@client/offline/sync-state';
+import { useSession } from '@client/lib/session';
 import { describeOp } from '@client/offline/describe';
 import { StorageStatus } from './storage-status';
 
@@ -40,6 +41,9 @@ function label(s: SyncState): { text: string; tone: string; icon: string } {
 
 export function SyncStatus() {
   const s = useSyncState();
+  const { user } = useSession();
+  // a visitor who is not signed in and has nothing on this device has nothing to sync
+  if (!user && s.pending === 0) return null;
   const l = label(s);
   return (
     <details className="relative" data-testid="sync-status" data-state={s.state} data-pending={s.pending}>
@@ -83,7 +87,7 @@ export function SyncStatus() {
                 <li key={r.seq} className="rounded border border-danger bg-danger-soft p-2">
                   <p>{describeOp(r.op)}</p>
                   <p className="text-ink-soft">{r.reason}</p>
-                  <button type="button" className="mt-1 underline" onClick={() => void dismissRejectedChange(r.seq!)}>
+                  <button type="button" className="mt-1 min-h-touch px-1 underline" onClick={() => void dismissRejectedChange(r.seq!)}>
                     Dismiss
                   </button>
                 </li>

@@ -16,7 +16,7 @@ import type { Survey } from '@shared/schemas/survey';
 import { settleMarks, withMark, type Marks } from '@shared/schemas/marks';
 import { MarkChip } from './mark-chip';
 import { VirtualList } from '@client/components/ui/virtual-list';
-import { withheldSentence } from '@shared/engine';
+import { DEFAULT_SEA_DENSITY_KG_M3, withheldSentence } from '@shared/engine';
 import { formatShipAndUtc } from '@shared/review/time-words';
 import { conditionName } from '@shared/review/plain-words';
 
@@ -164,7 +164,14 @@ function ContentsEditor({ survey, condition, compartment, contents, apply, syste
                   label="Measured density"
                   unit={unitLabel('density', system)}
                   errors={{ layers: { [i]: { density: layerErr(i, 'densityKgM3') } } }}
-                  placeholder={defaultDensity ? formatNumber(display(defaultDensity, 'density', system), 4) : ''}
+                  placeholder={
+                    // sea water left empty takes the readings' hydrometer figure, so that is what the field shows
+                    l?.fluidId === 'sea-water'
+                      ? formatNumber(display(condition.seaDensityKgM3 ?? DEFAULT_SEA_DENSITY_KG_M3, 'density', system), 4)
+                      : defaultDensity
+                        ? formatNumber(display(defaultDensity, 'density', system), 4)
+                        : ''
+                  }
                   hint={l?.fluidId === 'sea-water' ? 'empty: the sea water density of these readings' : undefined}
                   extra={
                     (l?.density ?? '').trim() === '' && defaultDensity && l?.fluidId !== 'sea-water' ? (

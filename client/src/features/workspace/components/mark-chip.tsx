@@ -6,7 +6,8 @@ import type { FigureMark } from '@shared/schemas/marks';
 
 const chip = 'rounded px-1.5 py-0.5 text-xs font-bold uppercase tracking-wide';
 // hull, not sea: the chip also sits on the pale blue of a layer's card, where sea blue falls below 4.5:1
-const link = 'min-h-8 px-1 text-xs font-bold text-hull underline';
+// a full 44 px tap target: tapped on deck, often in gloves
+const link = 'inline-flex min-h-touch items-center px-2 text-sm font-bold text-hull underline';
 
 export function MarkChip({
   mark,

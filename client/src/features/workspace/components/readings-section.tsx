@@ -13,7 +13,7 @@ import type { Apply, EditOp, SectionProps } from '../utils/types';
 import { activeCondition, newCondition } from '../utils/new-entities';
 import { formatNumber } from '@shared/units/units';
 import { display, unitLabel } from '@client/lib/unit-system';
-import { formatShipAndUtc } from '@shared/review/time-words';
+import { formatShipAndUtc, utcOffsetWords } from '@shared/review/time-words';
 
 interface ConditionForm {
   name: string;
@@ -27,17 +27,26 @@ interface ConditionForm {
 
 const MEASURES = byKey({ forwardM: 'length', aftM: 'length', midPortM: 'length', midStarboardM: 'length', heelDeg: 'ratio', seaDensityKgM3: 'density' });
 
-/** ISO time → the value of a datetime-local input (the device's local time). */
-function toLocalInput(iso: string): string {
+/**
+ * ISO time → the value of a datetime-local input: in ship's time when the ship's clock is given (the
+ * surveyor copies times from the ship's log), else in the device's own time.
+ */
+function toLocalInput(iso: string, shipOffsetMin: number | undefined): string {
   const d = new Date(iso);
   if (Number.isNaN(d.getTime())) return '';
-  const off = d.getTimezoneOffset();
-  return new Date(d.getTime() - off * 60000).toISOString().slice(0, 16);
+  const aheadMin = shipOffsetMin ?? -d.getTimezoneOffset();
+  return new Date(d.getTime() + aheadMin * 60000).toISOString().slice(0, 16);
 }
 
-function toModel(v: ConditionForm, base: Condition, system: UnitSystem): unknown {
+/** The input's "YYYY-MM-DDTHH:mm" back to an instant, read in the same clock as `toLocalInput` shows. */
+function fromLocalInput(text: string, shipOffsetMin: number | undefined): Date {
+  if (shipOffsetMin === undefined) return new Date(text);
+  return new Date(new Date(`${text}Z`).getTime() - shipOffsetMin * 60000);
+}
+
+function toModel(v: ConditionForm, base: Condition, system: UnitSystem, shipOffsetMin: number | undefined): unknown {
   const L = (t: string) => parseField(t, 'length', system);
-  const t = new Date(v.time);
+  const t = fromLocalInput(v.time, shipOffsetMin);
   const next = {
     ...base,
     name: v.name.trim() === '' ? undefined : v.name.trim(),
@@ -49,14 +58,14 @@ function toModel(v: ConditionForm, base: Condition, system: UnitSystem): unknown
   return { ...next, marks: settleMarks(v.marks, base, next) };
 }
 
-function ConditionEditor({ condition, apply, system }: { condition: Condition; apply: Apply; system: UnitSystem }) {
+function ConditionEditor({ condition, apply, system, shipOffsetMin }: { condition: Condition; apply: Apply; system: UnitSystem; shipOffsetMin: number | undefined }) {
   const S = (n: number | undefined) => showField(n, 'length', system);
   const form = useForm<ConditionForm, unknown, Condition>({
     mode: 'onChange',
-    resolver: unitResolver(ConditionSchema, (v: ConditionForm) => toModel(v, condition, system), system, MEASURES),
+    resolver: unitResolver(ConditionSchema, (v: ConditionForm) => toModel(v, condition, system, shipOffsetMin), system, MEASURES),
     defaultValues: {
       name: condition.name ?? '',
-      time: toLocalInput(condition.time),
+      time: toLocalInput(condition.time, shipOffsetMin),
       drafts: { forwardM: S(condition.drafts.forwardM), aftM: S(condition.drafts.aftM), midPortM: S(condition.drafts.midPortM), midStarboardM: S(condition.drafts.midStarboardM) },
       heelDeg: condition.heelDeg === undefined ? '' : String(condition.heelDeg),
       seaDensityKgM3: showField(condition.seaDensityKgM3, 'density', system),
@@ -79,7 +88,11 @@ function ConditionEditor({ condition, apply, system }: { condition: Condition; a
       <FormError errors={formState.errors} />
       <div className="grid gap-3 sm:grid-cols-2">
         <TextInput register={register} name="name" label="Name" errors={formState.errors} placeholder="e.g. Morning soundings" />
-        <Field label="Time of readings" id={timeId} error={formState.errors.time?.message}>
+        <Field
+          label={`Time of readings (${shipOffsetMin === undefined ? `this device’s clock, ${utcOffsetWords(-new Date().getTimezoneOffset())}` : `ship’s time, ${utcOffsetWords(shipOffsetMin)}`})`}
+          id={timeId}
+          error={formState.errors.time?.message}
+        >
           <input id={timeId} type="datetime-local" className={inputCls} {...register('time')} />
         </Field>
       </div>
@@ -160,7 +173,7 @@ export function ReadingsSection({ survey, apply, system }: SectionProps) {
           </li>
         ))}
       </ul>
-      <ConditionEditor key={`${active.id}-${system}`} condition={active} apply={apply} system={system} />
+      <ConditionEditor key={`${active.id}-${system}-${survey.vessel.shipTimeOffsetMin}`} condition={active} apply={apply} system={system} shipOffsetMin={survey.vessel.shipTimeOffsetMin} />
     </section>
   );
 }

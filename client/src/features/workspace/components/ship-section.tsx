@@ -1,8 +1,9 @@
 /** "Ship": the survey's title and casualty, the vessel's particulars, and the frame table for frame-number entry. */
 import { useForm } from 'react-hook-form';
 import { z } from 'zod';
-import { VesselSchema } from '@shared/schemas/survey';
+import { VesselSchema, type Vessel } from '@shared/schemas/survey';
 import { imoCheckDigitOk } from '@shared/schemas/marks';
+import { deepEqual } from '@shared/sync/apply';
 import type { UnitSystem } from '@shared/units/units';
 import { byKey, measureLabel, parseField, showField, unitResolver } from '../utils/form-units';
 import { NumberInput, TextInput, FormError, inputCls, secondaryBtn } from '@client/components/ui/fields';
@@ -11,13 +12,22 @@ import { SaveIndicator } from './save-indicator';
 import type { SectionProps } from '../utils/types';
 import { frameToX, saveFrameTable, useFrameTable, type FrameTable } from '../utils/frames';
 import { formatNumber } from '@shared/units/units';
-import { deepEqual } from '@shared/sync/apply';
+
+const CLOCK_ERROR = 'Write the ship’s clock as hours from UTC, between -14 and +14, e.g. +1 or -5:30.';
 
 const ShipFormSchema = z.object({
   title: z.string().trim().min(1),
   casualtyDescription: z.string(),
   // the check digit is asked of new entries only: a stored document with a bad number still opens
-  vessel: VesselSchema.refine((v) => v.imo === undefined || imoCheckDigitOk(v.imo), {
+  vessel: VesselSchema.extend({
+    // said in hours, as the field takes it (the stored minutes would confuse)
+    shipTimeOffsetMin: z
+      .number({ error: CLOCK_ERROR })
+      .int({ error: CLOCK_ERROR })
+      .min(-14 * 60, { error: CLOCK_ERROR })
+      .max(14 * 60, { error: CLOCK_ERROR })
+      .optional(),
+  }).refine((v) => v.imo === undefined || imoCheckDigitOk(v.imo), {
     path: ['imo'],
     message: 'This IMO number fails its check digit: check the seven digits.',
   }),
@@ -26,18 +36,38 @@ const ShipFormSchema = z.object({
 interface ShipForm {
   title: string;
   casualtyDescription: string;
-  vessel: { name: string; imo: string; lbpM: string; breadthM: string; depthM: string; draughtMarks: { forwardXM: string; aftXM: string; midshipXM: string } };
+  vessel: { name: string; imo: string; shipTimeOffsetMin: string; lbpM: string; breadthM: string; depthM: string; draughtMarks: { forwardXM: string; aftXM: string; midshipXM: string } };
+}
+
+/** "+1", "-5", "+5:30", "UTC+03:00" → minutes ahead of UTC; '' → undefined; NaN when unreadable (the schema then says so). */
+export function parseShipClock(text: string): number | undefined {
+  const t = text.trim().replace(/^UTC\s*/i, '').replace('−', '-');
+  if (t === '') return undefined;
+  const m = /^([+-]?)(\d{1,2})(?:[:.h](\d{2}))?$/.exec(t);
+  if (!m) return Number.NaN;
+  const minutes = Number(m[2]) * 60 + Number(m[3] ?? 0);
+  return m[1] === '-' ? -minutes : minutes;
+}
+
+/** Minutes ahead of UTC as the field shows them: "+01:00", "-05:30". */
+export function shipClockText(offsetMin: number | undefined): string {
+  if (offsetMin === undefined) return '';
+  const a = Math.abs(offsetMin);
+  return `${offsetMin < 0 ? '-' : '+'}${String(Math.floor(a / 60)).padStart(2, '0')}:${String(a % 60).padStart(2, '0')}`;
 }
 
 const MEASURES = byKey({ lbpM: 'length', breadthM: 'length', depthM: 'length', forwardXM: 'length', aftXM: 'length', midshipXM: 'length' });
 
-function toModel(v: ShipForm, system: UnitSystem) {
+function toModel(v: ShipForm, system: UnitSystem, base: Vessel) {
   const L = (t: string) => parseField(t, 'length', system);
   return {
     title: v.title,
     casualtyDescription: v.casualtyDescription,
     vessel: {
+      // what this form does not show (downflooding points, set under Stability) stays as it is
+      ...base,
       name: v.vessel.name,
+      shipTimeOffsetMin: parseShipClock(v.vessel.shipTimeOffsetMin),
       imo: v.vessel.imo.trim() === '' ? undefined : v.vessel.imo.trim(),
       lbpM: L(v.vessel.lbpM),
       breadthM: L(v.vessel.breadthM),
@@ -51,13 +81,14 @@ export function ShipSection({ survey, apply, system }: SectionProps) {
   const S = (n: number | undefined) => showField(n, 'length', system);
   const form = useForm<ShipForm, unknown, z.infer<typeof ShipFormSchema>>({
     mode: 'onChange',
-    resolver: unitResolver(ShipFormSchema, (v: ShipForm) => toModel(v, system), system, MEASURES),
+    resolver: unitResolver(ShipFormSchema, (v: ShipForm) => toModel(v, system, survey.vessel), system, MEASURES),
     defaultValues: {
       title: survey.title,
       casualtyDescription: survey.casualtyDescription,
       vessel: {
         name: survey.vessel.name,
         imo: survey.vessel.imo ?? '',
+        shipTimeOffsetMin: shipClockText(survey.vessel.shipTimeOffsetMin),
         lbpM: S(survey.vessel.lbpM),
         breadthM: S(survey.vessel.breadthM),
         depthM: S(survey.vessel.depthM),
@@ -87,6 +118,14 @@ export function ShipSection({ survey, apply, system }: SectionProps) {
           <TextInput register={register} name="title" label="Survey title" errors={formState.errors} />
           <TextInput register={register} name="vessel.name" label="Vessel name" errors={formState.errors} />
           <TextInput register={register} name="vessel.imo" label="IMO number" errors={formState.errors} hint="7 digits, the last a check digit; leave empty if unknown" />
+          <TextInput
+            register={register}
+            name="vessel.shipTimeOffsetMin"
+            label="Ship’s clock (hours from UTC)"
+            errors={formState.errors}
+            placeholder="e.g. +1 or -5:30"
+            hint="what the ship keeps: readings are entered and the master’s brief speaks in ship’s time; empty: UTC"
+          />
         </div>
         <TextInput register={register} name="casualtyDescription" label="What happened" errors={formState.errors} multiline />
         <fieldset className="grid grid-cols-2 gap-3 sm:grid-cols-3">

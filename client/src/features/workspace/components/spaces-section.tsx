@@ -176,7 +176,7 @@ function CompartmentEditor({ compartment, survey, apply, system }: { compartment
           unit=""
           errors={e}
           placeholder={perm.value.toFixed(2)}
-          hint={`empty: default ${perm.value.toFixed(2)} (${perm.source})`}
+          hint="empty: the usual value for this type of space (below)"
           extra={
             permeability.trim() === '' ? (
               <MarkChip

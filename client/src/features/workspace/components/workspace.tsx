@@ -61,6 +61,13 @@ function inputTargetOf(survey: Survey, id: string): InputTarget | null {
   return null;
 }
 
+/** The survey's title without the vessel's name it usually starts with ("MV Corran Tide — grounding…" → "grounding…"). */
+function titleAfterVessel(title: string, vessel: string): string {
+  if (!title.toLowerCase().startsWith(vessel.toLowerCase())) return title;
+  const rest = title.slice(vessel.length).replace(/^[\s—–:·,-]+/, '');
+  return rest || title;
+}
+
 export function Workspace({ surveyId }: { surveyId: string }) {
   const local = useLocalSurvey(surveyId);
   const system = useUnitSystem();
@@ -185,8 +192,8 @@ export function Workspace({ surveyId }: { surveyId: string }) {
         <Link to={paths.surveys} className="min-h-touch content-center text-sm font-bold underline">
           ← Surveys
         </Link>
-        <h1 className="order-first min-w-0 basis-full truncate text-xl sm:order-none sm:basis-auto sm:flex-1 sm:text-2xl" title={survey.title}>
-          {survey.vessel.name} <span className="font-normal text-ink-soft">· {survey.title}</span>
+        <h1 className="order-first min-w-0 basis-full text-xl line-clamp-2 sm:order-none sm:basis-auto sm:flex-1 sm:text-2xl" title={survey.title}>
+          {survey.vessel.name} <span className="font-normal text-ink-soft">· {titleAfterVessel(survey.title, survey.vessel.name)}</span>
         </h1>
         <SurveySyncChip surveyId={surveyId} onServer={local.serverRevision > 0} />
         <UnitToggle />
