@@ -200,7 +200,14 @@ export function demoSurvey(): Survey {
         },
       },
       { id: ID.hold3, name: 'No. 3 hold', spaceType: 'dry-cargo', cargoState: 'empty', geometry: { kind: 'box', min: P(38, -9, 1.2), max: P(62, 9, 11) } },
-      { id: ID.dbTank3, name: 'No. 3 double-bottom fuel tank (P)', spaceType: 'tank', geometry: { kind: 'box', min: P(38, 0, 0), max: P(62, 9, 1.2) } },
+      {
+        id: ID.dbTank3,
+        name: 'No. 3 double-bottom fuel tank (P)',
+        spaceType: 'tank',
+        // full of its own bunkers (pressed up into the sounding pipe): no room for flood water
+        tankContents: { state: 'full', fluidId: 'hfo-bunkers' },
+        geometry: { kind: 'box', min: P(38, 0, 0), max: P(62, 9, 1.2) },
+      },
       {
         id: ID.engineRoom,
         name: 'Engine room',
