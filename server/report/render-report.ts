@@ -19,6 +19,7 @@ import { structureCheckRows } from '@shared/review/structure-rows';
 import { tankWords } from '@shared/review/tank-words';
 import { pointWords } from '@shared/units/point-words';
 import { html, type SafeHtml } from '../brief/html';
+import { nearestLimitWords } from '../brief/render-brief';
 
 export interface ReportData {
   doc: Survey;
@@ -120,6 +121,8 @@ export function renderReport(d: ReportData): string {
   const doc = d.doc;
   const r = d.results;
   const names = namesFromSurvey(doc);
+  // the forecast as the master's brief words it, with its volume balance (only beside computed results)
+  const forecast = r ? nearestLimitWords(doc, d.units) : null;
   const condition = doc.conditions.find((c) => c.id === doc.activeConditionId) ?? doc.conditions[0]!;
   const offset = doc.vessel.shipTimeOffsetMin;
   const notes = figureNotes(doc);
@@ -251,6 +254,11 @@ ${r && (r.frame.missingReadings ?? []).length === 0 ? html`<tr><th scope="row">H
 ${r ? html`<p>Flood water aboard ${q(r.ship.floodWater.massKg, 'mass')}, oil ${q(r.ship.oil.massKg, 'mass')}${r.ship.tankContents.massKg > 0 ? html`, tanks' own liquid (not flood water) ${q(r.ship.tankContents.massKg, 'mass')}` : ''}.</p>` : ''}
 <h2>Boundaries (${doc.boundaries.length})</h2>
 ${boundarySections}
+${forecast ? html`<h2>Flooding forecast</h2>
+<p><strong>${forecast.sentence}</strong></p>
+${forecast.downflooding.length ? html`<ul>${forecast.downflooding.map((t) => html`<li>${t}</li>`)}</ul>` : ''}
+<p class="muted">${forecast.attitude}: ${forecast.assumptions}</p>
+<p>${forecast.balance}</p>` : ''}
 <h2>Warnings</h2>
 ${r && r.warnings.length ? html`<ul>${r.warnings.map((w) => html`<li class="${w.severity === 'danger' ? 'over' : ''}">${w.message}</li>`)}</ul>` : html`<p class="muted">None.</p>`}
 <h2>Assumptions and estimates</h2>

@@ -6,7 +6,7 @@
 import type { FloodForecast } from '../engine';
 import { hmm } from '../api/cautions';
 import { formatShipAndUtc } from './time-words';
-import { formatNumber, formatQuantity, type UnitSystem } from '../units/units';
+import { formatQuantity, formatVolumeBalance, type UnitSystem } from '../units/units';
 
 /** One sentence per downflooding point that is or goes under within the forecast, earliest first; or one saying none does (empty without points). */
 export function downfloodingSentences(f: Pick<FloodForecast, 'downflooding' | 'readingsTime' | 'horizonS'>, shipTimeOffsetMin: number | undefined): string[] {
@@ -34,8 +34,7 @@ export function flowWords(m3s: number, system: UnitSystem): string {
   return `${formatQuantity(Math.abs(m3s), 'flow', system, 3).text} ${m3s > 0 ? 'in' : 'out'}`;
 }
 
-/** The run's volume balance in the user's units, or that it closes to a part in a billion of what moved. */
-export function balanceWords(b: FloodForecast['balance'], system: UnitSystem): string {
-  if (b.relative < 1e-9) return 'closes to within one part in a billion of the largest volume in it';
-  return `${formatQuantity(b.balanceM3, 'volume', system, 2).text} (${formatNumber(b.relative * 100, 2)} % of the largest volume in it)`;
+/** The run's volume balance as a plain figure with its unit (the device, the desk, the brief and the report say it alike). */
+export function volumeBalanceSentence(f: Pick<FloodForecast, 'balance'>, system: UnitSystem): string {
+  return `Volume balance over the run (in − out − stored): ${formatVolumeBalance(f.balance.balanceM3, system)}.`;
 }

@@ -147,6 +147,22 @@ export function formatOpeningArea(areaM2: number, system: UnitSystem): string {
   return `${inSmall >= 10 ? Math.round(inSmall) : formatNumber(inSmall, 2)} ${UNITS[small].label}`;
 }
 
+/**
+ * A volume balance (in − out − stored, the round-off left by a run) as a plain figure: to the
+ * litre in m³ (0.01 ft³ in US customary), and "< 0.001 m³" when it rounds to nothing, never with
+ * an exponent ("1.2e-13 m³" reads as a figure nobody can judge).
+ */
+export function formatVolumeBalance(m3: number, system: UnitSystem): string {
+  const unit = DISPLAY_UNITS[system].volume;
+  const step = system === 'us' ? 0.01 : 0.001;
+  const v = fromSi(m3, unit);
+  const label = UNITS[unit].label;
+  if (!Number.isFinite(v)) return `${v} ${label}`;
+  if (Math.abs(v) < step / 2) return `< ${step} ${label}`;
+  const decimals = system === 'us' ? 2 : 3;
+  return `${v.toLocaleString('en-GB', { minimumFractionDigits: decimals, maximumFractionDigits: decimals })} ${label}`;
+}
+
 /** A stress in the unit the plate and shore forms take it in: MPa, or ksi in US customary ("160 MPa"). */
 export function formatStress(valuePa: number, system: UnitSystem, digits = 4, withUnit = true): string {
   const n = formatNumber(system === 'us' ? valuePa / (1000 * PSI_PA) : valuePa / 1e6, digits);

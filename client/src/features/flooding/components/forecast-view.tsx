@@ -9,7 +9,7 @@ import type { Survey } from '@shared/schemas/survey';
 import type { UnitSystem } from '@shared/units/units';
 import { FORECAST_CAUTION, STABILITY_CAUTION, durationWords, hmm } from '@shared/api/cautions';
 import { fmt, num, percent, unitLabel } from '@client/lib/unit-system';
-import { balanceWords, downfloodingSentences, flowWords, forecastAttitudeWords } from '@shared/review/forecast-words';
+import { downfloodingSentences, flowWords, forecastAttitudeWords, volumeBalanceSentence } from '@shared/review/forecast-words';
 import { formatShipTime, formatUtc, utcOffsetWords } from '@shared/review/time-words';
 
 const ForecastChart = lazy(() => import('./forecast-chart'));
@@ -258,7 +258,7 @@ export function ForecastView({ forecast, survey, system, now = Date.now() }: { f
         </p>
       )}
       <p className="text-xs text-ink-soft">
-        Volume balance over the run (in − out − stored): {balanceWords(forecast.balance, system)}. {forecast.stats.steps} integration steps.
+        <span data-testid="volume-balance">{volumeBalanceSentence(forecast, system)}</span> {forecast.stats.steps} integration steps.
       </p>
     </div>
   );
