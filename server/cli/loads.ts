@@ -108,6 +108,11 @@ export function responseOutput(survey: Survey, r: SurveyResults, units: UnitSyst
     [`gmSolid${L}`]: len(resp.gmSolidM),
     [`gmFluid${L}`]: len(resp.gmFluidM),
     ...(units === 'us' ? { displacementLongTons: fromSi(resp.displacementKg, 'LT'), tpiLongTonsPerIn: fromSi(tpc, 'tpi'), mtiFtLongTonsPerIn: fromSi(resp.mctKgM, 'mt1in') } : { displacementT: resp.displacementKg / 1000, tpcTPerCm: fromSi(tpc, 'tpc'), mct1cmTMPerCm: fromSi(resp.mctKgM, 'mct1cm') }),
+    ...(resp.ground && !resp.ground.afloat
+      ? units === 'us'
+        ? { groundReactionLongTons: fromSi(resp.ground.reactionKg, 'LT'), [`gmFluidAfloat${L}`]: len(resp.ground.free.gmFluidM) }
+        : { groundReactionT: resp.ground.reactionKg / 1000, [`gmFluidAfloat${L}`]: len(resp.ground.free.gmFluidM) }
+      : {}),
     warnings: resp.warnings.map((w) => w.message),
     caution: STABILITY_CAUTION,
   };

@@ -19,7 +19,7 @@
 import type { Condition, Survey } from '../schemas/survey';
 import { intactShip } from './hydrostatics';
 import type { SurveyResults } from './results';
-import { floodWeightsFromResults, responseFromWeights, type FloodWeight, type GroundState, type ShipResponse, type StabilityWarning } from './stability';
+import { floodWeightsFromResults, responseFromWeights, SMALL_ANGLE_LIMIT_DEG, type FloodWeight, type GroundState, type ShipResponse, type StabilityWarning } from './stability';
 import { measuredAttitude } from './stability-check';
 
 /** Draft at x m forward of the AP of a response, m (linear between the perpendiculars). */
@@ -35,18 +35,24 @@ function groundWarnings(r: ShipResponse, g: GroundState): StabilityWarning[] {
   const out: StabilityWarning[] = [];
   const f = g.free;
   const where = `${g.xM.toFixed(1)} m forward of the AP${g.yM !== 0 ? `, ${Math.abs(g.yM).toFixed(1)} m to ${g.yM > 0 ? 'port' : 'starboard'}` : ''}`;
-  const ifOff = `if she comes off she floats free at ${m(f.attitude.draftAftM)} aft, ${m(f.attitude.draftForeM)} forward, heel ${Math.abs(f.attitude.heelDeg).toFixed(1)}° to ${f.attitude.heelDeg >= 0 ? 'starboard' : 'port'}, GM fluid ${m(f.gmFluidM)}.`;
+  const ifOff = `if she comes off she floats free at ${m(f.attitude.draftAftM)} aft, ${m(f.attitude.draftForeM)} forward, heel ${Math.abs(f.attitude.heelDeg).toFixed(1)}° to ${f.attitude.heelDeg >= 0 ? 'starboard' : 'port'}, GM fluid ${m(f.gmFluidM)}`;
   if (g.afloat) {
     out.push({ code: 'aground-afloat', severity: 'warning', message: `Aground at ${where} by the survey, but the figures give no ground reaction: she floats free. Check the drafts, the soundings and the particulars.` });
-  } else {
-    out.push({
-      code: 'aground',
-      severity: 'info',
-      message: `Aground at ${where}: ground reaction ${t(g.reactionKg)} (the displacement lost at the drafts read). Resting there her GM fluid is ${m(r.gmFluidM)} (G risen virtually by R·KG/(Δ − R)); ${ifOff}`,
-    });
+    return out;
   }
-  if (!g.afloat && (f.gmFluidM <= 0 || f.warnings.some((w) => w.code === 'sinks' || w.code === 'heel-beyond-range' || w.code === 'deck-edge-immersed'))) {
-    out.push({ code: 'refloat-unsafe', severity: 'danger', message: `Do not refloat her as she is: ${ifOff} Lighten, pump out or restore stability first, and plan the refloating with a naval architect.` });
+  // what would go wrong afloat, in the words of the free response's own warnings
+  const dangers: string[] = [];
+  if (f.warnings.some((w) => w.code === 'sinks')) dangers.push('she would founder');
+  if (f.gmFluidM <= 0) dangers.push('she would be unstable upright');
+  if (f.warnings.some((w) => w.code === 'deck-edge-immersed')) dangers.push('her deck edge would go under');
+  if (f.warnings.some((w) => w.code === 'heel-beyond-range')) dangers.push(`she would heel beyond ${SMALL_ANGLE_LIMIT_DEG}°`);
+  out.push({
+    code: 'aground',
+    severity: 'info',
+    message: `Aground at ${where}: ground reaction ${t(g.reactionKg)} (the displacement lost at the drafts read). Resting there her GM fluid is ${m(r.gmFluidM)} (G risen virtually by R·KG/(Δ − R))${dangers.length ? '.' : `; ${ifOff}.`}`,
+  });
+  if (dangers.length) {
+    out.push({ code: 'refloat-unsafe', severity: 'danger', message: `Do not refloat her as she is: ${ifOff}, so ${dangers.join(' and ')}. Lighten, pump out or restore stability first, and plan the refloating with a naval architect.` });
   }
   return out;
 }

@@ -119,7 +119,10 @@ export function readingsVersusModel(survey: Survey, condition: Condition, respon
     const parts: string[] = [];
     if (Math.abs(dTrim) >= READING_TOLERANCE.trimM) parts.push(`${Math.abs(dTrim).toFixed(2)} m more trim by the ${dTrim > 0 ? 'stern' : 'head'}`);
     if (Math.abs(dHeel) >= READING_TOLERANCE.heelDeg) parts.push(`${Math.abs(dHeel).toFixed(1)}° more heel to ${dHeel > 0 ? 'starboard' : 'port'}`);
-    message = `The mean draft agrees, but the readings show ${parts.join(' and ')} than the model: weight has moved, or is placed differently from the model.`;
+    const g = response.ground && !response.ground.afloat ? response.ground : null;
+    message = g
+      ? `The mean draft agrees, but the readings show ${parts.join(' and ')} than the model aground at ${g.xM.toFixed(1)} m from the AP: she may bear on the ground elsewhere than entered, or weight is placed differently from the model.`
+      : `The mean draft agrees, but the readings show ${parts.join(' and ')} than the model: weight has moved, or is placed differently from the model.`;
   }
   return { measured, predicted, differenceKg: mass, x, y, agrees, message };
 }

@@ -73,10 +73,13 @@ describe('the ship’s response of the demo casualty, aground', () => {
         await warnings.getByText(/Do not refloat her as she is/).waitFor();
         await expect(page.getByTestId('stability-caution').textContent()).resolves.toBe(STABILITY_CAUTION);
         expect(await page.getByTestId('stability-caution').isVisible()).toBe(true);
+        // the grounding as entered, in the particulars form
+        const ground = page.getByRole('group', { name: 'Aground at' });
+        await expect(ground.getByLabel(/^x/).inputValue()).resolves.toBe('100');
+        await expect(ground.getByLabel(/^y/).inputValue()).resolves.toBe('0');
         await noSidewaysScroll(page);
-        await panel.scrollIntoViewIfNeeded();
-        await page.screenshot({ path: screenshotPath(`stability-demo-response-${width}`), fullPage: false });
-        await page.screenshot({ path: screenshotPath(`stability-demo-section-${width}`), fullPage: true });
+        await panel.screenshot({ path: screenshotPath(`stability-demo-response-${width}`) });
+        await ground.screenshot({ path: screenshotPath(`stability-demo-aground-form-${width}`) });
 
         await section(page, 'Loads');
         await page.getByTestId('loads-attitude-choice').getByLabel(/Predicted/).check();
@@ -87,9 +90,11 @@ describe('the ship’s response of the demo casualty, aground', () => {
         expect(words).toContain(`heel ${heel}`);
         expect(words).toMatch(/GM fluid \d+\.\d+ m/);
         expect(words).toContain(STABILITY_CAUTION);
+        // the totals at the predicted attitude say where their heel comes from
+        await page.getByRole('region', { name: 'Ship totals' }).getByText('predicted (ship’s response)').waitFor();
         await noSidewaysScroll(page);
-        await inUse.scrollIntoViewIfNeeded();
-        await page.screenshot({ path: screenshotPath(`stability-demo-loads-predicted-${width}`), fullPage: false });
+        await inUse.screenshot({ path: screenshotPath(`stability-demo-loads-predicted-${width}`) });
+        await page.getByRole('region', { name: 'Ship totals' }).screenshot({ path: screenshotPath(`stability-demo-loads-totals-${width}`) });
       } finally {
         await context.close();
       }

@@ -27,6 +27,10 @@ function ForecastAttitude({ forecast, survey, system }: { forecast: FloodForecas
   const follows = attitude.mode === 'follows-response';
   const moments = new Set<number>([0, forecast.times.length - 1]);
   for (const st of forecast.plan) if (st.problems.length === 0) moments.add(forecast.times.findIndex((t) => t >= st.stopS - 1e-6));
+  // aground: the reaction at each moment shown, and the moment she comes off
+  const reaction = attitude.groundReactionKg;
+  const aground = reaction.some((r) => r !== null && r > 0);
+  if (aground) moments.add(reaction.findIndex((r, k) => k > 0 && r === 0 && (reaction[k - 1] ?? 0) > 0));
   const rows = [...moments].filter((k) => k >= 0 && attitude.series[k]).sort((a, b) => a - b);
   const sentences = downfloodingSentences(forecast, survey.vessel.shipTimeOffsetMin);
   const goesUnder = forecast.downflooding.some((d) => d.underAtS !== null);
@@ -48,6 +52,7 @@ function ForecastAttitude({ forecast, survey, system }: { forecast: FloodForecas
                 <th scope="col">Trim ({unitLabel('length', system)})</th>
                 <th scope="col">Heel</th>
                 <th scope="col">GM fluid ({unitLabel('length', system)})</th>
+                {aground && <th scope="col">Ground reaction ({unitLabel('mass', system)})</th>}
               </tr>
             </thead>
             <tbody>
@@ -63,6 +68,7 @@ function ForecastAttitude({ forecast, survey, system }: { forecast: FloodForecas
                     </td>
                     <td>{heelWords(a.heelDeg)}</td>
                     <td className={gm !== null && gm <= 0 ? 'font-bold text-danger' : ''}>{gm === null ? '—' : num(gm, 'length', system, 3)}</td>
+                    {aground && <td data-testid="forecast-ground-reaction">{reaction[k] === 0 ? 'afloat' : num(reaction[k], 'mass', system, 4)}</td>}
                   </tr>
                 );
               })}

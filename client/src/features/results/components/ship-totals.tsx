@@ -18,7 +18,8 @@ function Tile({ label, value, sub, testId }: { label: string; value: string; sub
   );
 }
 
-export function ShipTotals({ results, rows, system }: { results: SurveyLevelResults; rows: readonly BoundarySummary[]; system: UnitSystem }) {
+/** `predicted`: the results are at the attitude the ship's response predicts, not the one read. */
+export function ShipTotals({ results, rows, system, predicted = false }: { results: SurveyLevelResults; rows: readonly BoundarySummary[]; system: UnitSystem; predicted?: boolean }) {
   const { frame, ship, summary } = results;
   const worst = rows.find((b) => b.id === summary.maxUtilisationBoundaryId);
   // where along the ship first ("244.6 ft fwd of AP"), then across and up, each with its unit and side
@@ -35,7 +36,7 @@ export function ShipTotals({ results, rows, system }: { results: SurveyLevelResu
         </p>
       )}
       <div className="grid grid-cols-2 gap-2 sm:grid-cols-4">
-        <Tile label="Heel" value={unread ? '—' : `${Math.abs(frame.heelDeg).toFixed(1)}° ${frame.heelDeg > 0.05 ? 'stbd' : frame.heelDeg < -0.05 ? 'port' : ''}`} sub={unread ? 'readings needed' : `from ${frame.heelSource}`} />
+        <Tile label="Heel" value={unread ? '—' : `${Math.abs(frame.heelDeg).toFixed(1)}° ${frame.heelDeg > 0.05 ? 'stbd' : frame.heelDeg < -0.05 ? 'port' : ''}`} sub={unread ? 'readings needed' : predicted ? 'predicted (ship’s response)' : `from ${frame.heelSource}`} />
         <Tile
           label="Trim"
           value={unread ? '—' : `${fmt(Math.abs(frame.trimM), 'length', system, 3)} ${frame.trimM > 0.0005 ? 'by stern' : frame.trimM < -0.0005 ? 'by head' : ''}`}

@@ -63,7 +63,7 @@ export function LoadsSection({ survey, results: measuredResults, rows: measuredR
       </fieldset>
       <AttitudeInUse survey={survey} results={measuredResults} system={system} mode={usePredicted ? 'predicted' : 'measured'} response={response} />
       <WithheldNotice results={results} />
-      <ShipTotals results={results} rows={rows} system={system} />
+      <ShipTotals results={results} rows={rows} system={system} predicted={usePredicted} />
       <EngineWarnings results={results} />
       <div className="space-y-2">
         <h3 className="text-xl">Boundaries</h3>
