@@ -21,7 +21,8 @@ const DetailQuery = z.object({ results: z.enum(['latest', 'current']).default('l
 /** Reports the role a handler's own query found (see `checksMembership`). */
 const confirmer = (req: Request) => (role: Role | null) => confirmMembership(req, role);
 
-export function surveyRoutes({ surveys, sync }: Pick<AppServices, 'surveys' | 'sync'>): RouteSpec[] {
+/** The survey list, one survey, and a survey made whole (an import, or a client online). */
+function surveyRecordRoutes({ surveys }: Pick<AppServices, 'surveys'>): RouteSpec[] {
   return [
     {
       method: 'get',
@@ -58,6 +59,12 @@ export function surveyRoutes({ surveys, sync }: Pick<AppServices, 'surveys' | 's
         res.status(201).json(await surveys.create(authOf(req), survey));
       },
     },
+  ];
+}
+
+/** The device's side of sync: push its changes, pull what changed. */
+function syncRoutes({ sync }: Pick<AppServices, 'sync'>): RouteSpec[] {
+  return [
     {
       method: 'post',
       path: '/sync/push',
@@ -84,4 +91,8 @@ export function surveyRoutes({ surveys, sync }: Pick<AppServices, 'surveys' | 's
       },
     },
   ];
+}
+
+export function surveyRoutes(services: Pick<AppServices, 'surveys' | 'sync'>): RouteSpec[] {
+  return [...surveyRecordRoutes(services), ...syncRoutes(services)];
 }

@@ -7,36 +7,24 @@ import { execFileSync } from 'node:child_process';
 import { writeFileSync, mkdtempSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
-import { afterAll, beforeAll, describe, expect, it, inject } from 'vitest';
-import type { Browser } from 'playwright-core';
-import { launchBrowser, screenshotPath } from '../support/browser';
-import { createDb, type Db } from '../../server/db/knex';
+import { describe, expect, it, inject } from 'vitest';
+import { screenshotPath } from '../support/browser';
 import { demoSurvey } from '../../seeds/demo-survey';
 import { DEMO_SUBMITTED_SURVEY_ID } from '../../seeds/demo-survey';
 import { issueSecret } from '../../server/services/secrets';
 import { DEMO_ORG, DEMO_USERS } from '../../seeds/demo-people';
-import { DEMO, section, signIn, waitSaved } from '../support/e2e';
+import { DEMO, section, signIn, startE2eFile, waitSaved } from '../support/e2e';
 
 const baseUrl = inject('baseUrl');
 const SURVEYOR = DEMO.surveyor;
 const ENGINEER = DEMO.engineer;
 const WIDTHS = [390, 1440] as const;
 
-let browser: Browser;
-let db: Db;
-
-beforeAll(async () => {
-  browser = await launchBrowser();
-  db = createDb(inject('testEnv').DATABASE_URL);
-});
-afterAll(async () => {
-  await browser?.close();
-  await db?.destroy();
-});
+const e2e = startE2eFile({ db: true });
 
 describe.each(WIDTHS)('at %i px', (width) => {
   it('a new survey shows no loads until its readings are entered', async () => {
-    const context = await browser.newContext({ viewport: { width, height: 900 } });
+    const context = await e2e.browser.newContext({ viewport: { width, height: 900 } });
     const page = await context.newPage();
     await signIn(page, SURVEYOR);
     await page.goto(`${baseUrl}/surveys`);
@@ -89,7 +77,7 @@ describe.each(WIDTHS)('at %i px', (width) => {
   });
 
   it('the calculation report prints to PDF with every boundary', async () => {
-    const context = await browser.newContext({ viewport: { width, height: 900 } });
+    const context = await e2e.browser.newContext({ viewport: { width, height: 900 } });
     const page = await context.newPage();
     await signIn(page, ENGINEER);
     await page.goto(`${baseUrl}/review/${DEMO_SUBMITTED_SURVEY_ID}`);
@@ -122,7 +110,7 @@ describe.each(WIDTHS)('at %i px', (width) => {
     // a link made as the desk makes one (token hashed), for the survey under review
     const { token, hash } = issueSecret();
     const engineer = DEMO_USERS.find((u) => u.email === ENGINEER.email)!;
-    await db('brief_links').insert({
+    await e2e.db('brief_links').insert({
       survey_id: DEMO_SUBMITTED_SURVEY_ID,
       organisation_id: DEMO_ORG.id,
       token_hash: hash,
@@ -132,7 +120,7 @@ describe.each(WIDTHS)('at %i px', (width) => {
       expires_at: new Date(Date.now() + 86_400_000),
       created_by: engineer.id,
     });
-    const master = await browser.newContext({ viewport: { width, height: 900 }, javaScriptEnabled: false });
+    const master = await e2e.browser.newContext({ viewport: { width, height: 900 }, javaScriptEnabled: false });
     const page = await master.newPage();
     await page.goto(`${baseUrl}/brief/${token}`);
     await page.getByText("ship's time (UTC+01:00)").first().waitFor();
@@ -143,7 +131,7 @@ describe.each(WIDTHS)('at %i px', (width) => {
     await page.screenshot({ path: screenshotPath(`people-brief-acknowledged-${width}`), fullPage: true });
     await master.close();
 
-    const context = await browser.newContext({ viewport: { width, height: 900 } });
+    const context = await e2e.browser.newContext({ viewport: { width, height: 900 } });
     const desk = await context.newPage();
     await signIn(desk, ENGINEER);
     await desk.goto(`${baseUrl}/review/${DEMO_SUBMITTED_SURVEY_ID}`);

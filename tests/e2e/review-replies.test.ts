@@ -4,14 +4,16 @@
  * (open, answered, resolved) on the phone at 390 px and at the desk at 1440 px.
  */
 import { randomUUID } from 'node:crypto';
-import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
-import type { Browser, Page } from 'playwright-core';
+import { z } from 'zod';
+import { describe, expect, inject, it } from 'vitest';
+import type { Page } from 'playwright-core';
 import { DEMO_USERS } from '../../seeds/demo-people';
-import { launchBrowser, screenshotPath } from '../support/browser';
+import { screenshotPath } from '../support/browser';
 import { seriousA11yViolations } from '../support/axe';
 import { newSurvey, tokenFor } from '../support/surveys';
 import { SimDevice } from '../support/sync-device';
-import { signIn } from '../support/e2e';
+import { call, callAs, signIn, startE2eFile } from '../support/e2e';
+import { ReviewCommentSchema } from '@shared/api/review';
 
 const baseUrl = inject('baseUrl');
 const env = inject('testEnv');
@@ -20,24 +22,10 @@ const ENGINEER = DEMO_USERS.find((u) => u.role === 'engineer')!;
 const QUESTION = 'What is the sounding in No. 2 hold now?';
 const ANSWER = `6.40 m at 0600, taken twice (${randomUUID().slice(0, 4)}).`;
 
-let browser: Browser;
-beforeAll(async () => {
-  browser = await launchBrowser();
-});
-afterAll(async () => {
-  await browser?.close();
-});
+const e2e = startE2eFile();
 
-async function call(token: string, method: string, path: string, body?: unknown) {
-  const res = await fetch(`${baseUrl}${path}`, {
-    method,
-    headers: { authorization: `Bearer ${token}`, ...(body ? { 'content-type': 'application/json' } : {}) },
-    body: body ? JSON.stringify(body) : undefined,
-  });
-  const json = res.status === 204 ? null : await res.json();
-  if (!res.ok) throw new Error(`${method} ${path}: ${res.status} ${JSON.stringify(json)}`);
-  return json;
-}
+
+const Comments = z.object({ comments: ReviewCommentSchema.pick({ body: true, parentId: true, authorName: true }).array() });
 
 const syncState = (page: Page) => page.getByTestId('sync-status').getAttribute('data-state');
 
@@ -52,11 +40,11 @@ describe('replies to the reviewer', () => {
     await device.sync();
     await call(surveyorToken, 'POST', `/api/surveys/${survey.id}/status`, { to: 'submitted' });
     await call(engineerToken, 'POST', `/api/surveys/${survey.id}/status`, { to: 'in_review' });
-    const question = await call(engineerToken, 'POST', `/api/review/surveys/${survey.id}/comments`, { target: { kind: 'survey', id: survey.id }, body: QUESTION });
+    const question = await callAs(ReviewCommentSchema.pick({ id: true }), engineerToken, 'POST', `/api/review/surveys/${survey.id}/comments`, { target: { kind: 'survey', id: survey.id }, body: QUESTION });
 
-    const phoneCtx = await browser.newContext({ viewport: { width: 390, height: 844 } });
+    const phoneCtx = await e2e.browser.newContext({ viewport: { width: 390, height: 844 } });
     const phone = await phoneCtx.newPage();
-    const deskCtx = await browser.newContext({ viewport: { width: 1440, height: 900 } });
+    const deskCtx = await e2e.browser.newContext({ viewport: { width: 1440, height: 900 } });
     const desk = await deskCtx.newPage();
     try {
       await signIn(phone, SURVEYOR, `/surveys/${survey.id}`);
@@ -79,7 +67,7 @@ describe('replies to the reviewer', () => {
       await expect.poll(() => phone.getByTestId('sync-status').getAttribute('data-pending')).toBe('1');
       await phone.screenshot({ path: screenshotPath('reply-offline-waiting-390'), fullPage: true });
       expect(await seriousA11yViolations(phone)).toEqual([]);
-      const before = (await call(engineerToken, 'GET', `/api/review/surveys/${survey.id}/comments`)).comments as { body: string }[];
+      const before = (await callAs(Comments, engineerToken, 'GET', `/api/review/surveys/${survey.id}/comments`)).comments;
       expect(before.map((c) => c.body)).not.toContain(ANSWER);
 
       // The link returns: the reply goes with the next sync and comes back as a comment.
@@ -87,7 +75,7 @@ describe('replies to the reviewer', () => {
       await expect.poll(() => syncState(phone), { timeout: 30_000 }).toBe('synced');
       await expect.poll(() => thread.getByTestId('local-reply').count(), { timeout: 30_000 }).toBe(0);
       await thread.getByText(ANSWER).waitFor();
-      const after = (await call(engineerToken, 'GET', `/api/review/surveys/${survey.id}/comments`)).comments as { body: string; parentId: string | null; authorName: string }[];
+      const after = (await callAs(Comments, engineerToken, 'GET', `/api/review/surveys/${survey.id}/comments`)).comments;
       expect(after.filter((c) => c.body === ANSWER)).toEqual([expect.objectContaining({ parentId: question.id, authorName: SURVEYOR.name })]);
 
       // At the desk: the thread reads "Answered"; the engineer resolves it.

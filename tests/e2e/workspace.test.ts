@@ -3,30 +3,18 @@
  * nothing, read the bulkhead load the engine gives for the same inputs, see the 3D model, attach a
  * photo, come back online and find survey and photo on the server.
  */
-import { afterAll, beforeAll, describe, expect, it, inject } from 'vitest';
-import type { Browser } from 'playwright-core';
-import { launchBrowser, screenshotPath } from '../support/browser';
-import { createDb, type Db } from '../../server/db/knex';
+import { describe, expect, it, inject } from 'vitest';
+import { screenshotPath } from '../support/browser';
 import { computeSurvey } from '@shared/engine';
 import { SurveySchema } from '@shared/schemas/survey';
 import { formatNumber, fromSi } from '@shared/units/units';
 import { makePng } from '../support/photos';
 import { demoSurvey } from '../../seeds/demo-survey';
-import { DEMO, localDoc, offlineReady, section, signIn, waitSaved } from '../support/e2e';
+import { DEMO, localDoc, offlineReady, section, signIn, startE2eFile, waitSaved } from '../support/e2e';
 
 const baseUrl = inject('baseUrl');
 
-let browser: Browser;
-let db: Db;
-
-beforeAll(async () => {
-  browser = await launchBrowser();
-  db = createDb(inject('testEnv').DATABASE_URL);
-});
-afterAll(async () => {
-  await browser?.close();
-  await db?.destroy();
-});
+const e2e = startE2eFile({ db: true });
 
 async function pollUntil<T>(fn: () => Promise<T | undefined>, timeoutMs = 60_000): Promise<T> {
   const end = Date.now() + timeoutMs;
@@ -42,7 +30,7 @@ describe('the workspace, offline from the start', () => {
   let surveyId = '';
 
   it('builds a survey from nothing offline, matches the engine, renders 3D, takes a photo and syncs it all', async () => {
-    const context = await browser.newContext({ viewport: { width: 360, height: 800 } });
+    const context = await e2e.browser.newContext({ viewport: { width: 360, height: 800 } });
     const page = await context.newPage();
     await signIn(page, DEMO.surveyor);
     await page.goto(`${baseUrl}/surveys`);
@@ -170,14 +158,14 @@ describe('the workspace, offline from the start', () => {
     // Back online: the survey, then the photo, reach the server
     step('Back online');
     await context.setOffline(false);
-    const row = await pollUntil(async () => (await db('surveys').where({ id: surveyId }).first()) ?? undefined);
+    const row = await pollUntil(async () => (await e2e.db('surveys').where({ id: surveyId }).first()) ?? undefined);
     const serverDoc = SurveySchema.parse(row.doc);
     await pollUntil(async () => {
-      const r = await db('surveys').where({ id: surveyId }).first();
+      const r = await e2e.db('surveys').where({ id: surveyId }).first();
       return SurveySchema.parse(r.doc).boundaries.length === 1 && (SurveySchema.parse(r.doc).photos?.length ?? 0) === 1 ? true : undefined;
     });
     expect(serverDoc.vessel.name).toBe('Test Carrier');
-    const photo = await pollUntil(async () => (await db('photos').where({ id: photoId }).first()) ?? undefined);
+    const photo = await pollUntil(async () => (await e2e.db('photos').where({ id: photoId }).first()) ?? undefined);
     expect(photo).toMatchObject({ survey_id: surveyId, entity_kind: 'boundary', entity_id: bulkhead.id, content_type: 'image/png' });
     await page.getByTestId('photo-state').filter({ hasText: 'Uploaded' }).waitFor({ timeout: 30_000 });
     await page.screenshot({ path: screenshotPath('workspace-new-photos-360'), fullPage: true });
@@ -191,7 +179,7 @@ describe('the workspace, offline from the start', () => {
     await ask.getByRole('button', { name: 'Remove photo' }).click();
     await page.getByText('No photos yet.').waitFor();
     await pollUntil(async () => {
-      const r = await db('surveys').where({ id: surveyId }).first();
+      const r = await e2e.db('surveys').where({ id: surveyId }).first();
       return (SurveySchema.parse(r.doc).photos?.length ?? 0) === 0 ? true : undefined;
     });
     await context.close();
@@ -199,7 +187,7 @@ describe('the workspace, offline from the start', () => {
 
   for (const width of [360, 1280]) {
     it(`shows every screen of the demo casualty at ${width} px without sideways scrolling`, async () => {
-      const context = await browser.newContext({ viewport: { width, height: 900 } });
+      const context = await e2e.browser.newContext({ viewport: { width, height: 900 } });
       const page = await context.newPage();
       const calls: string[] = [];
       page.on('response', (r) => {
@@ -216,7 +204,7 @@ describe('the workspace, offline from the start', () => {
         throw new Error(`No survey list. The page shows: ${body.slice(0, 600)}\nAPI calls: ${calls.join('; ')}`, { cause: err });
       });
       await page.screenshot({ path: screenshotPath(`workspace-list-${width}`), fullPage: true });
-      const demo = await db('surveys').where({ id: demoSurvey().id }).first('id');
+      const demo = await e2e.db('surveys').where({ id: demoSurvey().id }).first('id');
       expect(demo, 'the demo survey is seeded').toBeTruthy();
       await page.goto(`${baseUrl}/surveys/${demo.id}`);
       await page.getByTestId('workspace').waitFor({ timeout: 30_000 });

@@ -1,13 +1,16 @@
 /**
  * What the browser tests share: the demo people, signing in through the form, the workspace's
  * section strip, waiting for an autosave, the service worker taking over, and the survey as the
- * device holds it in IndexedDB. One copy here, so a change of the sign-in form or a label is made once.
+ * device holds it in IndexedDB, a file's browser and database, and calls to the API for set-up.
+ * One copy here, so a change of the sign-in form or a label is made once.
  */
-import { expect, inject } from 'vitest';
-import type { Page } from 'playwright-core';
+import { afterAll, beforeAll, expect, inject } from 'vitest';
+import type { Browser, Page } from 'playwright-core';
+import type { z } from 'zod';
 import { SurveySchema, type Survey } from '@shared/schemas/survey';
 import { DEMO_USERS, type DemoUser } from '../../seeds/demo-people';
-import { screenshotPath } from './browser';
+import { createDb, type Db } from '../../server/db/knex';
+import { launchBrowser, screenshotPath } from './browser';
 
 const demoUser = (email: string): DemoUser => {
   const user = DEMO_USERS.find((u) => u.email === email);
@@ -38,7 +41,7 @@ export async function signIn(page: Page, who: { email: string; password: string 
   await page.getByLabel('Password', { exact: true }).fill(who.password);
   await page.getByRole('button', { name: 'Sign in' }).click();
   await page.waitForURL((u) => !u.pathname.startsWith('/sign-in'));
-  if (next && new URL(page.url()).pathname !== next) await page.goto(`${baseUrl}${next}`);
+  if (next && new URL(page.url()).pathname !== new URL(next, baseUrl).pathname) await page.goto(`${baseUrl}${next}`);
 }
 
 /**
@@ -92,4 +95,58 @@ export async function localDoc(page: Page, id: string): Promise<Survey> {
     id,
   );
   return SurveySchema.parse(doc);
+}
+
+/** What a browser test file starts once: a browser and, when asked, a connection to the test database. */
+export interface E2eFile {
+  readonly browser: Browser;
+  readonly db: Db;
+}
+
+/**
+ * Starts the file's browser (and with `db`, a database connection for rows the test sets up) in
+ * `beforeAll` and closes them in `afterAll`. Call at the top of the file; read `browser` and `db`
+ * inside tests, once they exist.
+ */
+export function startE2eFile(opts: { db?: boolean } = {}): E2eFile {
+  let browser: Browser | undefined;
+  let db: Db | undefined;
+  beforeAll(async () => {
+    browser = await launchBrowser();
+    if (opts.db) db = createDb(inject('testEnv').DATABASE_URL);
+  });
+  afterAll(async () => {
+    await browser?.close();
+    await db?.destroy();
+  });
+  return {
+    get browser() {
+      if (!browser) throw new Error('the browser starts in beforeAll: use it inside a test');
+      return browser;
+    },
+    get db() {
+      if (!db) throw new Error(opts.db ? 'the database connection opens in beforeAll: use it inside a test' : 'startE2eFile was called without { db: true }');
+      return db;
+    },
+  };
+}
+
+/**
+ * Calls the API as the holder of `token`, as a test's set-up does through the real server; any
+ * answer but 2xx throws with its body. The body is unknown: read it through `callAs`.
+ */
+export async function call(token: string, method: string, path: string, body?: unknown, baseUrl: string = inject('baseUrl')): Promise<unknown> {
+  const res = await fetch(`${baseUrl}${path}`, {
+    method,
+    headers: { authorization: `Bearer ${token}`, ...(body ? { 'content-type': 'application/json' } : {}) },
+    body: body ? JSON.stringify(body) : undefined,
+  });
+  const json: unknown = res.status === 204 ? null : await res.json();
+  if (!res.ok) throw new Error(`${method} ${path}: ${res.status} ${JSON.stringify(json)}`);
+  return json;
+}
+
+/** `call`, with the answer parsed by `schema` (pick the fields a test reads from the shared response schema). */
+export async function callAs<S extends z.ZodType>(schema: S, token: string, method: string, path: string, body?: unknown): Promise<z.infer<S>> {
+  return schema.parse(await call(token, method, path, body));
 }
