@@ -43,8 +43,8 @@ export function bigSurvey(n: number): Survey {
 const ms = (t0: number) => `${(performance.now() - t0).toFixed(1)} ms`;
 
 async function startApp(env: Record<string, string>, port: number, secret: string, workers: number): Promise<ChildProcess> {
-  // With the young-generation size `npm start` gives the server (see DEVELOPERS.md).
-  const proc = spawn(process.execPath, ['--max-semi-space-size=128', '--min-semi-space-size=64', '--import', 'tsx', 'server/index.ts'], {
+  // As `npm start` runs the server: Node's default young generation (see DEVELOPERS.md, "flags").
+  const proc = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], {
     cwd: ROOT,
     // production settings (server/config.ts refuses development secrets and stores there); no photos are sent
     env: {

@@ -2,7 +2,8 @@
  * `npm run bench`: every benchmark in one run, each printing its own figures.
  * Targets: engine < 10 ms for 4,000 boundaries (Node defaults) and ≥ 5,000× faster than quadrature; API ≥ 1,000 req/s
  * with p99 < 150 ms; initial JavaScript for sign-in and survey list ≤ 170 KB gzipped.
- * `npm run bench -- engine` (or sync, bundle, loop, browser) runs one section. `browser`: the app in headless
+ * `npm run bench -- engine` (or sync, bundle, loop, browser, flags) runs one section. `flags`: the server's heavy
+ * paths (scripts/bench-flags.ts) with Node's default young generation and with the semi-space flags. `browser`: the app in headless
  * Chromium at 4× CPU throttle on the 2,000-boundary survey (scripts/bench-browser.ts). `loop`: /api/health p99 while the
  * largest allowed survey is recomputed, in the worker pool and (for comparison) on the request loop.
  *
@@ -26,6 +27,10 @@ const sections: Record<string, () => Promise<unknown> | unknown> = {
     node(['--import', 'tsx', 'scripts/bench-engine.ts']);
     console.log('-- for comparison, with --max-semi-space-size=128 (timing only):');
     node(['--max-semi-space-size=128', '--import', 'tsx', 'scripts/bench-engine.ts', '--timing-only']);
+  },
+  flags: () => {
+    node(['--import', 'tsx', 'scripts/bench-flags.ts']);
+    node(['--max-semi-space-size=128', '--min-semi-space-size=64', '--import', 'tsx', 'scripts/bench-flags.ts']);
   },
   flooding: () => {
     console.log('-- with Node defaults:');
