@@ -108,7 +108,9 @@ export function nearestLimitWords(doc: Survey): { sentence: string; assumptions:
     : first.atS === 0
       ? `${first.name} is already past its limit.`
       : `${first.name} is expected to reach its limit at ${utc(new Date(Date.parse(f.readingsTime) + first.atS * 1000).toISOString())}, ${hmm(first.atS)} (h:mm) after the soundings.`;
-  const assumptions = `This assumes the breaches, openings, pumps and pumping plan stay as entered, and ${f.attitude.note.charAt(0).toLowerCase()}${f.attitude.note.slice(1)} ${FORECAST_CAUTION} It rests on readings of ${utc(f.latestReadingTime)}.`;
+  // a plan step whose pump or space was deleted is left out of the run: the brief says so rather than assume it ran
+  const leftOut = f.warnings.filter((w) => w.code === 'plan-step').map((w) => ` ${w.message}`).join('');
+  const assumptions = `This assumes the breaches, openings, pumps and pumping plan stay as entered, and ${f.attitude.note.charAt(0).toLowerCase()}${f.attitude.note.slice(1)}${leftOut} ${FORECAST_CAUTION} It rests on readings of ${utc(f.latestReadingTime)}.`;
   return { sentence, assumptions, downflooding: downfloodingSentences(f, doc.vessel.shipTimeOffsetMin), attitude: forecastAttitudeWords(f) };
 }
 

@@ -151,12 +151,15 @@ export const PumpSchema = z.object({
 
 export const SoundingLogSchema = z.object({
   pipe: SoundingPipeSchema,
-  /** `pumpIds`: the pumps that ran between the reading before and this one. */
+  /**
+   * `pumpIds`: the pumps that ran between the reading before and this one. One reading is kept as
+   * soon as it is taken (its level and time stand alone); a rate of inflow needs two.
+   */
   readings: cappedArray(
     z.object({ time: z.iso.datetime({ offset: true }), soundingM: NonNegative, pumpIds: PumpsRunningSchema.optional() }),
     L.soundingReadings,
     'readings in one sounding log',
-  ).min(2),
+  ).min(1),
 });
 
 export const CompartmentGeometrySchema = z.discriminatedUnion('kind', [

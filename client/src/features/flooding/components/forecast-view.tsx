@@ -125,7 +125,8 @@ export function ForecastView({ forecast, survey, system, now = Date.now() }: { f
   const offsetMin = survey.vessel.shipTimeOffsetMin;
   const at = (sec: number) => shipTime(forecast.readingsTime, sec, offsetMin);
   const name = (id: string) => survey.compartments.find((c) => c.id === id)?.name ?? id;
-  const pumpName = (id: string) => survey.compartments.flatMap((c) => c.pumps ?? []).find((p) => p.id === id)?.name ?? 'missing pump';
+  const pumpName = (id: string) => survey.compartments.flatMap((c) => c.pumps ?? []).find((p) => p.id === id)?.name ?? 'Deleted pump';
+  const planLeftOut = forecast.warnings.filter((w) => w.code === 'plan-step');
   const age = now - Date.parse(forecast.latestReadingTime);
   const worst = forecast.worstMoment;
   return (
@@ -134,6 +135,16 @@ export function ForecastView({ forecast, survey, system, now = Date.now() }: { f
         <b>{FORECAST_CAUTION}</b> It rests on readings taken {shipTime(forecast.latestReadingTime, 0, offsetMin)}
         {age > 0 ? `, ${durationWords(age)} ago` : ''}.
       </p>
+      {planLeftOut.length > 0 && (
+        <div className="rounded-lg border-2 border-danger bg-card p-3 text-sm" role="alert" data-testid="forecast-plan-warning">
+          <b>▲ The pumping plan did not run as entered.</b>
+          <ul className="list-disc pl-5">
+            {planLeftOut.map((w) => (
+              <li key={`${w.entityId}`}>{w.message}</li>
+            ))}
+          </ul>
+        </div>
+      )}
       <ForecastAttitude forecast={forecast} survey={survey} system={system} />
       <ForecastTimeline forecast={forecast} offsetMin={offsetMin} />
       <section aria-labelledby="limits-h">
@@ -175,7 +186,7 @@ export function ForecastView({ forecast, survey, system, now = Date.now() }: { f
         </h3>
         <ul className="space-y-2">
           {forecast.spaces
-            .filter((s) => s.active || s.soundings)
+            .filter((s) => s.active || s.soundings || s.firstSounding)
             .map((s) => {
               const last = s.levelM.length - 1;
               return (
@@ -192,6 +203,12 @@ export function ForecastView({ forecast, survey, system, now = Date.now() }: { f
                           : s.pumps.verdict === 'holding'
                             ? 'hold the level; they do not gain.'
                             : 'do not keep up: the level rises.'}
+                    </span>
+                  )}
+                  {s.firstSounding && (
+                    <span className="block" data-testid="first-sounding-outcome">
+                      Soundings: one reading so far, {fmt(s.firstSounding.soundingM, 'length', system, 3)} on the pipe at {shipTime(s.firstSounding.time, 0, offsetMin)}: the level {fmt(s.firstSounding.levelM, 'length', system, 3)} above the
+                      space&apos;s lowest point, {fmt(s.firstSounding.volumeM3, 'volume', system, 3)} of liquid. A rate of inflow needs a second reading.
                     </span>
                   )}
                   {s.soundings && (
@@ -219,9 +236,11 @@ export function ForecastView({ forecast, survey, system, now = Date.now() }: { f
             {forecast.plan.map((st) => (
               <li key={st.stepId}>
                 {pumpName(st.pumpId)} on {name(st.compartmentId)}:{' '}
-                {st.problems.length > 0
-                  ? `left out (${st.problems.join('; ')})`
-                  : `${at(st.startS)} → ${at(st.stopS)}, ${hmm(st.startS)} → ${hmm(st.stopS)} after the readings (${st.stoppedBy === 'level' ? 'stopped at its level' : st.stoppedBy === 'time' ? 'stopped at its time' : 'to the end'}); level above its bottom ${fmt(st.atStart?.levelM, 'length', system, 3)} → ${fmt(st.atStop?.levelM, 'length', system, 3)}; worst load ${percent(st.atStart?.worstUtilisation)} → ${percent(st.atStop?.worstUtilisation)}`}
+                {st.problems.length > 0 ? (
+                  <b className="text-danger">▲ left out of this forecast: {st.problems.join('; ')}.</b>
+                ) : (
+                  `${at(st.startS)} → ${at(st.stopS)}, ${hmm(st.startS)} → ${hmm(st.stopS)} after the readings (${st.stoppedBy === 'level' ? 'stopped at its level' : st.stoppedBy === 'time' ? 'stopped at its time' : 'to the end'}); level above its bottom ${fmt(st.atStart?.levelM, 'length', system, 3)} → ${fmt(st.atStop?.levelM, 'length', system, 3)}; worst load ${percent(st.atStart?.worstUtilisation)} → ${percent(st.atStop?.worstUtilisation)}`
+                )}
               </li>
             ))}
           </ol>

@@ -1,15 +1,30 @@
-/** Liquid in every compartment: each layer's volume (permeability applied), mass and level. */
+/**
+ * Liquid in every compartment: each layer's volume (permeability applied), mass and level. Beyond a
+ * screenful of spaces only those in view are rendered (one `tbody` per space, measured as it shows).
+ */
 import type { SurveyLevelResults } from '@shared/engine';
 import type { UnitSystem } from '@shared/units/units';
 import { PointText } from './point-text';
 import { fmt, num, percent, unitLabel } from '@client/lib/unit-system';
-import { spaceTypeWords } from '@shared/review/plain-words';
+import { countWords, spaceTypeWords } from '@shared/review/plain-words';
 import { tankWords } from '@shared/review/tank-words';
+import { useVirtualWindow } from '@client/components/ui/use-virtual-window';
+
+/** A space's rows: its own, and one per layer (about one layer each). */
+const SPACE_ESTIMATE_PX = 96;
 
 export function CompartmentTable({ results, system, onSelect }: { results: SurveyLevelResults; system: UnitSystem; onSelect?: (id: string) => void }) {
-  if (results.compartments.length === 0) return <p className="text-ink-soft">No compartments yet.</p>;
+  const spaces = results.compartments;
+  const { scroller, virtual, indices, padTop, padBottom, measure } = useVirtualWindow<HTMLTableSectionElement>({ count: spaces.length, estimatePx: SPACE_ESTIMATE_PX, from: 40 });
+  if (spaces.length === 0) return <p className="text-ink-soft">No compartments yet.</p>;
   return (
-    <div className="overflow-x-auto rounded-lg border border-line bg-card" tabIndex={0} role="region" aria-label="Spaces and contents (scrolls sideways)">
+    <div
+      ref={scroller}
+      className={`overflow-x-auto rounded-lg border border-line bg-card ${virtual ? 'max-h-[70vh] overflow-y-auto' : ''}`}
+      tabIndex={0}
+      role="region"
+      aria-label={virtual ? `Contents of ${countWords(spaces.length, 'space')} (scrolls)` : 'Spaces and contents (scrolls sideways)'}
+    >
       <table className="w-full min-w-[34rem] border-collapse text-left text-sm" data-testid="compartment-results">
         <thead className="bg-sea-soft">
           <tr>
@@ -20,11 +35,21 @@ export function CompartmentTable({ results, system, onSelect }: { results: Surve
             <th className="p-1.5">Centroid ({unitLabel('length', system)})</th>
           </tr>
         </thead>
-        <tbody>
-          {results.compartments.map((c) => (
-            <CompartmentRows key={c.id} c={c} system={system} onSelect={onSelect} />
-          ))}
-        </tbody>
+        {padTop > 0 && (
+          <tbody aria-hidden="true">
+            <tr style={{ height: padTop }} />
+          </tbody>
+        )}
+        {indices.map((i) => (
+          <tbody key={spaces[i].id} ref={measure} data-index={i}>
+            <CompartmentRows c={spaces[i]} system={system} onSelect={onSelect} />
+          </tbody>
+        ))}
+        {padBottom > 0 && (
+          <tbody aria-hidden="true">
+            <tr style={{ height: padBottom }} />
+          </tbody>
+        )}
       </table>
     </div>
   );

@@ -15,6 +15,7 @@ import { display, unitLabel, fmt } from '@client/lib/unit-system';
 import type { Survey } from '@shared/schemas/survey';
 import { settleMarks, withMark, type Marks } from '@shared/schemas/marks';
 import { MarkChip } from './mark-chip';
+import { VirtualList } from '@client/components/ui/virtual-list';
 import { withheldSentence } from '@shared/engine';
 import { formatShipAndUtc } from '@shared/review/time-words';
 import { conditionName } from '@shared/review/plain-words';
@@ -294,15 +295,18 @@ export function ContentsSection({ survey, results, apply, system, selectedId, se
       {survey.compartments.length === 0 ? (
         <p className="text-ink-soft">Add compartments under Spaces first.</p>
       ) : (
-        <ul className="flex flex-wrap gap-2" aria-label="Compartment">
-          {survey.compartments.map((c) => (
-            <li key={c.id}>
-              <button type="button" className={c.id === compartment?.id ? primaryBtn : secondaryBtn} aria-pressed={c.id === compartment?.id} onClick={() => select(c.id)}>
-                {c.name}
-              </button>
-            </li>
-          ))}
-        </ul>
+        <VirtualList
+          items={survey.compartments}
+          itemKey={(c) => c.id}
+          label="Compartment"
+          className="flex flex-wrap gap-2"
+          active={compartment ? survey.compartments.indexOf(compartment) : -1}
+          render={(c) => (
+            <button type="button" className={c.id === compartment?.id ? primaryBtn : secondaryBtn} aria-pressed={c.id === compartment?.id} onClick={() => select(c.id)}>
+              {c.name}
+            </button>
+          )}
+        />
       )}
       {compartment && (
         <div className="rounded-lg border-2 border-hull bg-card p-3">

@@ -17,6 +17,7 @@ import { newCompartment } from '../utils/new-entities';
 import { frameToX, parseFrameText, useFrameTable, type FrameTable } from '../utils/frames';
 import { parseX } from '../utils/parse-x';
 import { fmt } from '@client/lib/unit-system';
+import { VirtualList } from '@client/components/ui/virtual-list';
 
 export const SPACE_TYPE_LABEL: Record<SpaceType, string> = {
   'dry-cargo': 'Dry cargo hold',
@@ -274,21 +275,24 @@ export function SpacesSection({ survey, apply, system, selectedId, select }: Sec
         </button>
       </div>
       {survey.compartments.length === 0 && <p className="text-ink-soft">No compartments yet: add the flooded holds, tanks and spaces next to them.</p>}
-      <ul className="flex flex-wrap gap-2" aria-label="Compartments">
-        {survey.compartments.map((c) => (
-          <li key={c.id}>
-            <button
-              type="button"
-              className={c.id === selectedId ? primaryBtn : secondaryBtn}
-              aria-pressed={c.id === selectedId}
-              onClick={() => select(c.id === selectedId ? null : c.id)}
-            >
-              {c.name}
-              {c.openToSea && <span className="text-xs font-normal">(open to sea)</span>}
-            </button>
-          </li>
-        ))}
-      </ul>
+      <VirtualList
+        items={survey.compartments}
+        itemKey={(c) => c.id}
+        label="Compartments"
+        className="flex flex-wrap gap-2"
+        active={selected ? survey.compartments.indexOf(selected) : -1}
+        render={(c) => (
+          <button
+            type="button"
+            className={c.id === selectedId ? primaryBtn : secondaryBtn}
+            aria-pressed={c.id === selectedId}
+            onClick={() => select(c.id === selectedId ? null : c.id)}
+          >
+            {c.name}
+            {c.openToSea && <span className="text-xs font-normal">(open to sea)</span>}
+          </button>
+        )}
+      />
       {selected && (
         <div className="rounded-lg border-2 border-hull bg-card p-3">
           <CompartmentEditor key={`${selected.id}-${system}`} compartment={selected} survey={survey} apply={apply} system={system} />
