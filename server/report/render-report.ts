@@ -112,10 +112,17 @@ function levelWords(level: LevelSource, q: (v: number, d: Dimension) => string):
   }
 }
 
-function extentWords(c: Compartment, q: (v: number, d: Dimension) => string): string {
+/**
+ * A compartment's extent with every coordinate in words, from where it is measured and which side:
+ * "box from 108 m to 118 m fwd of AP, from 6.00 m to stbd to 6.00 m to port, 0 m to 11.0 m above base".
+ */
+export function extentWords(c: Compartment, q: (v: number, d: Dimension) => string): string {
   const g = c.geometry;
-  if (g.kind === 'box') return `box, x ${q(g.min.x, 'length')} to ${q(g.max.x, 'length')}, y ${q(g.min.y, 'length')} to ${q(g.max.y, 'length')}, z ${q(g.min.z, 'length')} to ${q(g.max.z, 'length')}`;
-  return `section of ${g.section.length} corners between x ${q(g.xAftM, 'length')} and ${q(g.xForeM, 'length')}`;
+  const x = (v: number) => (v < 0 ? `${q(-v, 'length')} aft of AP` : `${q(v, 'length')} fwd of AP`);
+  const y = (v: number) => (Math.abs(v) < 0.005 ? 'the centreline' : `${q(Math.abs(v), 'length')} to ${v > 0 ? 'port' : 'stbd'}`);
+  const xs = (a: number, b: number) => (a < 0 === b < 0 ? `from ${q(Math.abs(a), 'length')} to ${x(b)}` : `from ${x(a)} to ${x(b)}`);
+  if (g.kind === 'box') return `box ${xs(g.min.x, g.max.x)}, from ${y(g.min.y)} to ${y(g.max.y)}, ${q(g.min.z, 'length')} to ${q(g.max.z, 'length')} above base`;
+  return `section of ${g.section.length} corners ${xs(g.xAftM, g.xForeM)}`;
 }
 
 const SHAPE_WORDS: Record<Boundary['geometry']['kind'], string> = { polygon: 'flat outline', rectangle: 'rectangle', circle: 'circle', faceted: 'curved, in flat facets' };

@@ -3,7 +3,7 @@
  * holds is refused and kept; the results then tell the tank's own oil from the flood water as the
  * engine does for the same survey, the ship totals carry a "Tanks' own liquid" tile, the all-liquid
  * centroid says where it is ("… ft fwd of AP"), and no fill percentage or density is split from its
- * unit. The figures themselves are checked by hand statics in tests/reference/tank-contents.test.ts.
+ * unit; the signed net force and peak net pressure say which way is positive. The figures themselves are checked by hand statics in tests/reference/tank-contents.test.ts.
  */
 import { afterAll, beforeAll, describe, expect, it, inject } from 'vitest';
 import type { Browser } from 'playwright-core';
@@ -39,7 +39,16 @@ function tankSurvey(): Survey {
       { id: tank, name: 'No. 1 DB tank', spaceType: 'tank', openToSea: true, geometry: { kind: 'box', min: { x: 0, y: -5, z: 0 }, max: { x: 10, y: 5, z: 4 } } },
       { id: voidSpace, name: 'Void', spaceType: 'void', geometry: { kind: 'box', min: { x: 10, y: -5, z: 0 }, max: { x: 20, y: 5, z: 4 } } },
     ],
-    boundaries: [],
+    boundaries: [
+      {
+        id: crypto.randomUUID(),
+        name: 'Tank end bulkhead',
+        kind: 'bulkhead',
+        geometry: { kind: 'polygon', vertices: [{ x: 10, y: -5, z: 0 }, { x: 10, y: 5, z: 0 }, { x: 10, y: 5, z: 4 }, { x: 10, y: -5, z: 4 }] },
+        sideA: { kind: 'compartment', compartmentId: tank },
+        sideB: { kind: 'compartment', compartmentId: voidSpace },
+      },
+    ],
   });
 }
 
@@ -87,6 +96,9 @@ describe("a tank's own liquid, on a phone, offline, in US units", () => {
     await expect(table.getByTestId('tank-split').textContent()).resolves.toBe(tankWords(tank, 'us'));
     await expect(page.getByTestId('total-tank-contents').textContent()).resolves.toMatch(/ LT$/);
     await expect(page.getByTestId('total-centroid').textContent()).resolves.toMatch(/^\d+(\.\d+)? ft fwd of AP$/);
+    // signed loads say which way + is: the net force and the peak net pressure both push towards side B
+    const heads = await page.getByTestId('boundary-results').locator('th').allTextContents();
+    expect(heads.filter((h) => /\+ towards side B/.test(h))).toEqual([expect.stringMatching(/^Net force, \+ towards side B \(kip\)/), expect.stringMatching(/^Peak net pressure, \+ towards side B \(psi\)/)]);
     // every percentage and density in the table sits on one line with its unit
     const split = await table.evaluate((el) =>
       [...el.querySelectorAll('td')]

@@ -77,7 +77,7 @@ export function BoundaryResultsTable({
       }),
       col.accessor((b) => b.peakPressurePa, {
         id: 'peak',
-        header: `Peak pressure (${unitLabel('pressure', system)})`,
+        header: `Peak net pressure, + towards side B (${unitLabel('pressure', system)})`,
         cell: (c) => num(c.getValue(), 'pressure', system),
       }),
       col.accessor((b) => b.copZ, {
