@@ -52,6 +52,8 @@ export default defineConfig({
       },
     }),
   ],
+  // the engine worker (features/workspace/worker) is a module worker, split into chunks like the page
+  worker: { format: 'es' },
   build: {
     outDir: path.join(root, 'dist', 'client'),
     emptyOutDir: true,

@@ -20,14 +20,18 @@ import type { SurveyChange, SurveyOp } from '@shared/schemas/sync';
 
 const uuid = (n: number) => `be9c0000-0000-4000-8000-${n.toString(16).padStart(12, '0')}`;
 
-/** 20 × 20 grid of boxes (x by y) along a 160 m ship, 10 boundaries each. */
-export function generateVessel(): Survey {
+/**
+ * A grid of boxes along a 160 m ship, 10 across, 10 boundaries each: 40 boxes along (the default)
+ * give 400 spaces and 4,000 boundaries; 20 give the 200 spaces and 2,000 boundaries of a cargo ship
+ * the browser bench and test use.
+ */
+export function generateVessel({ columns = 40 }: { columns?: number } = {}): Survey {
   let n = 1;
   const condId = uuid(n++);
   const compartments: Compartment[] = [];
   const boundaries: Boundary[] = [];
   const contents: Contents[] = [];
-  const NX = 40, NY = 10;
+  const NX = columns, NY = 10;
   const dx = 160 / NX, dy = 20 / NY;
   const ids: string[][] = [];
   for (let i = 0; i < NX; i++) {

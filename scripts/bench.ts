@@ -2,7 +2,8 @@
  * `npm run bench`: every benchmark in one run, each printing its own figures.
  * Targets: engine < 10 ms for 4,000 boundaries (Node defaults) and ≥ 5,000× faster than quadrature; API ≥ 1,000 req/s
  * with p99 < 150 ms; initial JavaScript for sign-in and survey list ≤ 170 KB gzipped.
- * `npm run bench -- engine` (or sync, bundle, loop) runs one section. `loop`: /api/health p99 while the
+ * `npm run bench -- engine` (or sync, bundle, loop, browser) runs one section. `browser`: the app in headless
+ * Chromium at 4× CPU throttle on the 2,000-boundary survey (scripts/bench-browser.ts). `loop`: /api/health p99 while the
  * largest allowed survey is recomputed, in the worker pool and (for comparison) on the request loop.
  *
  * The engine runs in child processes: with Node's default young generation (the figure that
@@ -33,6 +34,7 @@ const sections: Record<string, () => Promise<unknown> | unknown> = {
   sync: async () => (await import('./bench-sync')).main(),
   bundle: async () => (await import('./bench-bundle')).main(),
   loop: async () => (await import('./bench-loop')).main(),
+  browser: async () => (await import('./bench-browser')).main(),
 };
 
 const wanted = process.argv.slice(2).filter((a) => a in sections);

@@ -14,6 +14,9 @@ import { newSurvey, tokenFor } from '../support/surveys';
 import { SimDevice } from '../support/sync-device';
 import { freePort } from '../support/free-port';
 import { ROOT_DIR } from '../../server/index';
+import { ENGINE_VERSION } from '@shared/engine';
+import { createResultsScheduler } from '../../server/services/results-scheduler';
+import { docNeedingResults } from '../../server/db/repositories/surveys';
 
 let a: TestApp;
 let b: TestApp;
@@ -110,6 +113,41 @@ describe('two instances on one database', () => {
       const got = await read(app, survey.id);
       expect([got.revision, got.doc.title, got.doc.casualtyDescription]).toEqual([4, 'Set on B', 'Written again, on A']);
     }
+  });
+});
+
+describe('results computed after pushes, shared between instances', () => {
+  it('an instance leaves a survey whose results another stored less than a gap ago, and asks again later; a flush does not wait', async () => {
+    const survey = newSurvey({ title: 'Computed once per gap' });
+    const device = new SimDevice(a.url, surveyorToken);
+    device.create(survey);
+    await device.sync();
+    // Schedulers of our own, whose timers never fire in this test: only flush runs them.
+    const errors: unknown[] = [];
+    const onA = createResultsScheduler(a.db, (e) => errors.push(e), 600_000);
+    const onB = createResultsScheduler(b.db, (e) => errors.push(e), 600_000);
+    onA.schedule(survey.id);
+    await onA.flush();
+    const stored = async () => (await a.db('survey_results').where({ survey_id: survey.id, engine_version: ENGINE_VERSION }).pluck('revision')).sort();
+    expect(await stored()).toContain(1);
+
+    // A new revision, told to instance B: results were stored a moment ago, so within a gap B waits.
+    device.edit(survey.id, { kind: 'set', path: 'title', value: 'Edited through B' });
+    device.baseUrl = b.url;
+    expect((await device.push())?.results[0]).toMatchObject({ status: 'applied', revision: 2 });
+    const within = await docNeedingResults(b.db, survey.id, ENGINE_VERSION, 60_000);
+    expect(within && 'waitMs' in within && within.waitMs).toBeGreaterThan(0);
+    expect(within && 'waitMs' in within && within.waitMs).toBeLessThanOrEqual(60_000);
+    // With no gap asked for, the new revision is handed out to compute.
+    const now = await docNeedingResults(b.db, survey.id, ENGINE_VERSION, 0);
+    expect(now && 'revision' in now && [now.revision, now.doc.title]).toEqual([2, 'Edited through B']);
+
+    onB.schedule(survey.id);
+    await onB.flush();
+    expect(await stored()).toEqual(expect.arrayContaining([1, 2]));
+    // Once the current revision has results, nothing is handed out, gap or not.
+    expect(await docNeedingResults(a.db, survey.id, ENGINE_VERSION, 60_000)).toBeUndefined();
+    expect(errors).toEqual([]);
   });
 });
 

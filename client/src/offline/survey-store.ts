@@ -5,7 +5,7 @@
  * the document and append the edit to the outbox in ONE Dexie transaction — no network inside, so an edit is either fully kept or
  * not made at all, even if the phone dies mid-write. Sync (./sync.ts) does the rest.
  */
-import { SurveySchema, type Survey } from '@shared/schemas/survey';
+import { isValidEdit, SurveySchema, type Survey } from '@shared/schemas/survey';
 import {
   SurveyOpSchema,
   type ConflictTarget,
@@ -54,6 +54,15 @@ export function subscribeLocalChanges(fn: Listener): () => void {
 const notify = () => listeners.forEach((fn) => fn());
 /** For writes kept outside the survey (replies to reviewers): sync pushes them soon, as after any edit. */
 export const announceLocalChange = notify;
+
+/**
+ * The survey after an edit, if valid. Only what the edit changed is checked (isValidEdit, exact given
+ * that `prev` is valid, as every stored survey is): re-parsing a 2,000-boundary ship on every sounding
+ * held a phone's main thread for over a second. Where that check refuses, the full parse says why.
+ */
+function validEdit(prev: Survey, next: Survey): Survey {
+  return isValidEdit(prev, next) ? next : validate(next);
+}
 
 function validate(doc: Survey): Survey {
   const parsed = SurveySchema.safeParse(doc);
@@ -193,7 +202,7 @@ async function storeLocalChanges(surveyId: string, parsedOps: readonly SurveyOp[
     for (const [i, raw] of parsedOps.entries()) {
       const op = queuedOp(doc, rebasedOp(doc, raw, bases[i]));
       if ((op.kind === 'upsert' && op.fields && op.fields.length === 0) || unchangedSet(doc, op)) continue; // nothing changed
-      doc = validate(applyOp(doc, op));
+      doc = validEdit(doc, applyOp(doc, op));
       const id = crypto.randomUUID();
       ids.push(id);
       await db.outbox.add({

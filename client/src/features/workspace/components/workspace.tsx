@@ -4,9 +4,10 @@
  * a time under a strip that always shows the ship's state; on a wide screen the loads stay beside
  * the form.
  */
-import { useCallback, useMemo, useState, type ReactNode } from 'react';
+import { useCallback, useState, type ReactNode } from 'react';
 import { Link, useSearchParams } from 'react-router';
-import { boundaryRows, computeSurveySummary, type BoundarySummary, type SurveySummary } from '@shared/engine';
+import type { BoundarySummary, SurveySummary } from '@shared/engine';
+import { useSurveySummary } from '../hooks/use-survey-summary';
 import { useMediaQuery, WIDE_SCREEN } from '@client/lib/use-media-query';
 import type { Survey } from '@shared/schemas/survey';
 import { applyLocalChange, useLocalSurvey, usePendingCount } from '@client/offline/survey-store';
@@ -60,19 +61,6 @@ function inputTargetOf(survey: Survey, id: string): InputTarget | null {
   return null;
 }
 
-/** The lean results of every edit (computeSurveySummary) and their boundary rows. */
-function useResults(survey: Survey | undefined): { results: SurveySummary | null; rows: BoundarySummary[]; error: string | null } {
-  return useMemo(() => {
-    if (!survey) return { results: null, rows: [], error: null };
-    try {
-      const results = computeSurveySummary(survey);
-      return { results, rows: boundaryRows(results.boundaries), error: null };
-    } catch (err) {
-      return { results: null, rows: [], error: err instanceof Error ? err.message : 'The loads could not be computed.' };
-    }
-  }, [survey]);
-}
-
 export function Workspace({ surveyId }: { surveyId: string }) {
   const local = useLocalSurvey(surveyId);
   const system = useUnitSystem();
@@ -90,7 +78,8 @@ export function Workspace({ surveyId }: { surveyId: string }) {
   const { user } = useSession();
   // an engineer reviews a surveyor's survey on the desk: here its fields are shown, never editable
   const readOnly = !!user && reviewsOnly(user.role, user.id, local?.ownerUserId);
-  const { results, rows, error } = useResults(survey);
+  // off the main thread for a big ship (a Web Worker), in place for a small one
+  const { results, rows, error } = useSurveySummary(survey);
   // the aside is for wide screens only: on a phone it is not rendered at all (not merely hidden)
   const wide = useMediaQuery(WIDE_SCREEN);
 
