@@ -21,18 +21,18 @@ import type { BriefPageData } from '../brief/render-brief';
 import * as repo from '../db/repositories/review';
 import { ensureResults } from './engine-results';
 
-/** The revision a brief shows: the accepted one while an acceptance stands for an older revision, else the current one. */
-function shownRevision(events: Parameters<typeof standingAcceptance>[0], revision: number): number {
-  const accepted = standingAcceptance(events);
-  return accepted && accepted.revision < revision ? accepted.revision : revision;
-}
-
 interface BriefDeps {
   db: Knex;
   config: Pick<Config, 'publicUrl'>;
   mailer: Mailer;
 }
 type StatusEvents = Awaited<ReturnType<typeof repo.listStatusEvents>>;
+
+/** The revision a brief shows: the accepted one while an acceptance stands for an older revision, else the current one. */
+function shownRevision(events: StatusEvents, revision: number): number {
+  const accepted = standingAcceptance(events);
+  return accepted && accepted.revision < revision ? accepted.revision : revision;
+}
 
 async function issue({ db, config, mailer }: BriefDeps, auth: AuthContext, surveyId: string, body: IssueBrief): Promise<{ link: BriefLink; url: string }> {
   const s = await repo.findSurvey(db, auth.orgId, surveyId);
@@ -129,7 +129,7 @@ async function open(db: Knex, token: string, meta: { ip: string | null; userAgen
  */
 async function reviewedFigures(db: Knex, surveyId: string, status: BriefPageData['status'], revision: number, doc: Survey, events: StatusEvents, verdicts: Verdict[]) {
   const accepted = standingAcceptance(events);
-  if (accepted && accepted.revision < revision) return acceptedFigures(db, surveyId, accepted, revision, doc, verdicts);
+  if (accepted && shownRevision(events, revision) < revision) return acceptedFigures(db, surveyId, accepted, revision, doc, verdicts);
   const current = await ensureResults(db, surveyId, revision, doc);
   const reviewedNow = status === 'accepted' || status === 'in_review';
   // Under review with no acceptance: only verdicts given on this very revision.
