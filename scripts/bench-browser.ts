@@ -18,15 +18,14 @@
  */
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { build, type Rolldown } from 'vite';
 import type { BrowserContext, CDPSession, Page } from 'playwright-core';
 import { launchBrowser } from '../tests/support/browser';
 import { startWholeApp } from '../tests/support/whole-app';
 import { bigSurvey, elementCount, importSurvey, openContentsOf, SOUNDED_SPACE } from '../tests/support/big-survey';
 import { DEMO, section, signIn } from '../tests/support/e2e';
 import { generateVessel } from './bench-engine';
+import { engineBundle } from './lib/engine-bundle';
 
-const ROOT = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..');
 const PHONE = { width: 390, height: 844 };
 const THROTTLE = 4;
 const EDITS = 7;
@@ -112,15 +111,8 @@ const MODEL_READY = '[data-testid=model-canvas][data-drawn=true]';
 
 /** The engine in Chromium: the per-edit path on the 4,000-boundary vessel, bundled as the app bundles it. */
 async function benchEngineInChromium(context: BrowserContext): Promise<string> {
-  const out = (await build({
-    configFile: false,
-    logLevel: 'error',
-    resolve: { alias: { '@shared': path.join(ROOT, 'shared') } },
-    build: { write: false, minify: true, lib: { entry: path.join(ROOT, 'shared/engine/index.ts'), formats: ['iife'], name: 'BrinelineEngine' } },
-  })) as Rolldown.RolldownOutput[];
-  const code = out[0].output[0].code;
   const page = await context.newPage();
-  await page.addScriptTag({ content: `globalThis.__name = (f) => f;\n${code}` });
+  await page.addScriptTag({ content: await engineBundle() });
   const doc = JSON.stringify(generateVessel());
   const times = await page.evaluate((json) => {
     const survey = JSON.parse(json);

@@ -59,11 +59,13 @@ if (invokedDirectly) {
     if (workers > 1) {
       await db.destroy();
       const running = forkWorkers(workers, {}, (msg) => console.log(`[brineline] ${msg}`));
-      await running.ready;
-      console.log(`Brineline listening on ${config.publicUrl} (${workers} worker processes)`);
+      // Listen for the stop before the workers are up: a SIGTERM while one is still starting must
+      // stop them all, not kill this process and leave them behind.
       const shutdown = () => void running.stop().then(() => process.exit(0));
       process.on('SIGINT', shutdown);
       process.on('SIGTERM', shutdown);
+      await running.ready;
+      console.log(`Brineline listening on ${config.publicUrl} (${workers} worker processes)`);
     } else {
       const running = await startServer(config, { db });
       console.log(`Brineline listening on ${running.url}`);

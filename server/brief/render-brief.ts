@@ -18,7 +18,7 @@ import {
   verdictSeverity,
 } from '@shared/review/words';
 import { formatShipAndUtc } from '@shared/review/time-words';
-import { downfloodingSentences, forecastAttitudeWords } from '@shared/review/forecast-words';
+import { downfloodingSentences, forecastAttitudeWords, volumeBalanceSentence } from '@shared/review/forecast-words';
 import { boundaryKindWords } from '@shared/review/plain-words';
 import { figureNotes, figureNoteSentence } from '@shared/review/assumptions';
 import { measurableLimit } from '@shared/review/measurable-limits';
@@ -93,7 +93,7 @@ function sideLabel(results: SurveyResults, side: BoundaryResult['sideA']): strin
 }
 
 /** The nearest time-to-limit in plain words, with what it assumes (null when no forecast can be run). */
-export function nearestLimitWords(doc: Survey): { sentence: string; assumptions: string; downflooding: string[]; attitude: string } | null {
+export function nearestLimitWords(doc: Survey, units: UnitSystem = 'si'): { sentence: string; assumptions: string; downflooding: string[]; attitude: string; balance: string } | null {
   const utc = (iso: string | null) => formatShipAndUtc(iso, doc.vessel.shipTimeOffsetMin);
   let f;
   try {
@@ -108,14 +108,16 @@ export function nearestLimitWords(doc: Survey): { sentence: string; assumptions:
     : first.atS === 0
       ? `${first.name} is already past its limit.`
       : `${first.name} is expected to reach its limit at ${utc(new Date(Date.parse(f.readingsTime) + first.atS * 1000).toISOString())}, ${hmm(first.atS)} (h:mm) after the soundings.`;
-  const assumptions = `This assumes the breaches, openings, pumps and pumping plan stay as entered, and ${f.attitude.note.charAt(0).toLowerCase()}${f.attitude.note.slice(1)} ${FORECAST_CAUTION} It rests on readings of ${utc(f.latestReadingTime)}.`;
-  return { sentence, assumptions, downflooding: downfloodingSentences(f, doc.vessel.shipTimeOffsetMin), attitude: forecastAttitudeWords(f) };
+  // a plan step whose pump or space was deleted is left out of the run: the brief says so rather than assume it ran
+  const leftOut = f.warnings.filter((w) => w.code === 'plan-step').map((w) => ` ${w.message}`).join('');
+  const assumptions = `This assumes the breaches, openings, pumps and pumping plan stay as entered, and ${f.attitude.note.charAt(0).toLowerCase()}${f.attitude.note.slice(1)}${leftOut} ${FORECAST_CAUTION} It rests on readings of ${utc(f.latestReadingTime)}.`;
+  return { sentence, assumptions, downflooding: downfloodingSentences(f, doc.vessel.shipTimeOffsetMin), attitude: forecastAttitudeWords(f), balance: volumeBalanceSentence(f, units) };
 }
 
 export function renderBriefPage(d: BriefPageData, opts: { ackError?: string } = {}): string {
   const withheld = d.figuresWithheld === true;
   const shownRevision = d.shownRevision ?? d.revision;
-  const nearestLimit = withheld ? null : nearestLimitWords(d.doc);
+  const nearestLimit = withheld ? null : nearestLimitWords(d.doc, d.units);
   const q = (v: number, dim: Parameters<typeof formatQuantity>[1], digits = 3) => formatQuantity(v, dim, d.units, digits).text;
   const utc = (iso: string | null) => formatShipAndUtc(iso, d.doc.vessel.shipTimeOffsetMin);
   const names = namesFromSurvey(d.doc);
@@ -127,7 +129,7 @@ export function renderBriefPage(d: BriefPageData, opts: { ackError?: string } = 
   const flooded = r ? r.compartments.filter((c) => c.liquid.volumeM3 > 1e-9) : [];
   const floodedRows = flooded.map(
     (c) => html`<tr><th scope="row">${c.name}${c.openToSea ? html` <span class="tag">open to sea</span>` : ''}</th>
-<td>${c.layers.filter((l) => l.volumeM3 > 1e-9).map((l) => html`<div>${l.fluidName}: ${q(l.massKg, 'mass')}</div>`)}</td>
+<td>${c.layers.filter((l) => l.volumeM3 > 1e-9).map((l) => html`<div>${l.fluidName}: ${q(l.massKg, 'mass')}${c.tank && l.ownVolumeM3 > 0 ? html` <span class="muted">(${l.ownVolumeM3 >= l.volumeM3 * (1 - 1e-9) ? "the tank's own" : html`${q(l.ownVolumeM3, 'volume')} the tank's own`})</span>` : ''}</div>`)}</td>
 <td>${formatNumber(c.fillFraction * 100, 2)} %</td></tr>`,
   );
 
@@ -223,11 +225,12 @@ ${nearestLimit ? html`<section aria-labelledby="h-nearest">
   <p><strong>${nearestLimit.sentence}</strong></p>
   ${nearestLimit.downflooding.length ? html`<ul>${nearestLimit.downflooding.map((t) => html`<li><strong>${t}</strong></li>`)}</ul>` : ''}
   <p class="muted">${nearestLimit.attitude}: ${nearestLimit.assumptions}</p>
+  <p class="muted">${nearestLimit.balance}</p>
 </section>` : ''}
 <section aria-labelledby="h-flooded">
   <h2 id="h-flooded">What is flooded</h2>
   ${r
-    ? html`<p>Flood water aboard: <strong>${q(r.ship.floodWater.massKg, 'mass')}</strong> · oil: <strong>${q(r.ship.oil.massKg, 'mass')}</strong>${
+    ? html`<p>Flood water aboard: <strong>${q(r.ship.floodWater.massKg, 'mass')}</strong> · oil: <strong>${q(r.ship.oil.massKg, 'mass')}</strong>${r.ship.tankContents.massKg > 0 ? html` · tanks' own liquid (not flood water): <strong>${q(r.ship.tankContents.massKg, 'mass')}</strong>` : ''}${
         r.summary.totalInflowM3S > 0 ? html` · inflow about <strong>${q(r.summary.totalInflowM3S, 'flow')}</strong>` : ''
       }</p>
 ${flooded.length ? html`<table><thead><tr><th scope="col">Space</th><th scope="col">Holds</th><th scope="col">Full</th></tr></thead><tbody>${floodedRows}</tbody></table>` : html`<p>No space holds liquid in this survey.</p>`}`

@@ -27,7 +27,8 @@ const idParam = (req: Request, name: string, what: string): string => {
 };
 const surveyIdOf = (req: Request) => idParam(req, 'id', 'survey');
 
-export function reviewRoutes({ review, briefs, reports }: Pick<AppServices, 'review' | 'briefs' | 'reports'>): RouteSpec[] {
+/** The survey's own record: its report, status moves, revisions and their comparison. */
+function surveyRecordRoutes({ review, reports }: Pick<AppServices, 'review' | 'reports'>): RouteSpec[] {
   return [
     {
       method: 'get',
@@ -71,6 +72,12 @@ export function reviewRoutes({ review, briefs, reports }: Pick<AppServices, 'rev
         res.json(await review.compare(authOf(req), id, q.a, q.b));
       },
     },
+  ];
+}
+
+/** The desk's queue and one survey's review bundle. */
+function deskRoutes({ review }: Pick<AppServices, 'review'>): RouteSpec[] {
+  return [
     {
       method: 'get',
       path: '/review/queue',
@@ -87,6 +94,12 @@ export function reviewRoutes({ review, briefs, reports }: Pick<AppServices, 'rev
         res.json(await review.bundle(authOf(req), surveyIdOf(req)));
       },
     },
+  ];
+}
+
+/** Comment threads: the reviewer asks, the surveyor answers, the reviewer closes. */
+function commentRoutes({ review }: Pick<AppServices, 'review'>): RouteSpec[] {
+  return [
     {
       method: 'get',
       path: '/review/surveys/:id/comments',
@@ -115,6 +128,12 @@ export function reviewRoutes({ review, briefs, reports }: Pick<AppServices, 'rev
         res.json(await review.resolveComment(authOf(req), id, idParam(req, 'commentId', 'comment'), CommentResolutionSchema.parse(req.body)));
       },
     },
+  ];
+}
+
+/** What the engineer decides: verdicts and operating limits. */
+function verdictAndLimitRoutes({ review }: Pick<AppServices, 'review'>): RouteSpec[] {
+  return [
     {
       method: 'put',
       path: '/review/surveys/:id/verdicts',
@@ -143,6 +162,12 @@ export function reviewRoutes({ review, briefs, reports }: Pick<AppServices, 'rev
         res.status(204).end();
       },
     },
+  ];
+}
+
+/** The master's brief links: issued by the engineer, withdrawn by the engineer or an admin. */
+function briefLinkRoutes({ briefs }: Pick<AppServices, 'briefs'>): RouteSpec[] {
+  return [
     {
       method: 'post',
       path: '/review/surveys/:id/briefs',
@@ -160,5 +185,15 @@ export function reviewRoutes({ review, briefs, reports }: Pick<AppServices, 'rev
         res.json(await briefs.revoke(authOf(req), idParam(req, 'briefId', 'brief link')));
       },
     },
+  ];
+}
+
+export function reviewRoutes(services: Pick<AppServices, 'review' | 'briefs' | 'reports'>): RouteSpec[] {
+  return [
+    ...surveyRecordRoutes(services),
+    ...deskRoutes(services),
+    ...commentRoutes(services),
+    ...verdictAndLimitRoutes(services),
+    ...briefLinkRoutes(services),
   ];
 }

@@ -33,10 +33,11 @@ export function computeInPool(doc: Survey): Promise<EngineOutput> {
 /**
  * Computes and stores the results of a stored survey's current revision, if it has none yet for this
  * engine version, entirely in a worker thread (it reads and writes PostgreSQL itself): nothing of
- * the document or its results passes through this thread.
+ * the document or its results passes through this thread. With `minGapMs`, it leaves a survey whose
+ * results any instance stored less than that long ago, and says how long to wait.
  */
-export function recomputeStoredInPool(databaseUrl: string, surveyId: string, engineVersion: string): Promise<StoredOutcome> {
-  return enginePool().run({ kind: 'stored', databaseUrl, surveyId, engineVersion } satisfies EngineTask) as Promise<StoredOutcome>;
+export function recomputeStoredInPool(databaseUrl: string, surveyId: string, engineVersion: string, minGapMs = 0): Promise<StoredOutcome> {
+  return enginePool().run({ kind: 'stored', databaseUrl, surveyId, engineVersion, minGapMs } satisfies EngineTask) as Promise<StoredOutcome>;
 }
 
 /** Stops the workers (shutdown, end of tests). */

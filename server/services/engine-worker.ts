@@ -18,11 +18,15 @@ export interface EngineOutput {
 
 export type EngineTask =
   | { kind: 'doc'; doc: Survey }
-  | { kind: 'stored'; databaseUrl: string; surveyId: string; engineVersion: string };
+  | { kind: 'stored'; databaseUrl: string; surveyId: string; engineVersion: string; minGapMs?: number };
 
-/** What a stored task did: the revision it computed and stored, or null when it had results already. */
+/**
+ * What a stored task did: the revision it computed and stored, or null when it had results already
+ * or when results were stored less than `minGapMs` ago (then `waitMs` says how long to wait).
+ */
 export interface StoredOutcome {
   revision: number | null;
+  waitMs?: number;
 }
 
 function run(doc: Survey): EngineOutput {
@@ -39,8 +43,9 @@ const dbFor = (url: string) => pools.get(url) ?? pools.set(url, createDb(url, { 
 
 async function computeStored(task: Extract<EngineTask, { kind: 'stored' }>): Promise<StoredOutcome> {
   const db = dbFor(task.databaseUrl);
-  const row = await docNeedingResults(db, task.surveyId, task.engineVersion);
+  const row = await docNeedingResults(db, task.surveyId, task.engineVersion, task.minGapMs);
   if (!row) return { revision: null };
+  if ('waitMs' in row) return { revision: null, waitMs: row.waitMs };
   await insertResults(db, { surveyId: task.surveyId, revision: row.revision, engineVersion: task.engineVersion, ...run(row.doc) });
   return { revision: row.revision };
 }

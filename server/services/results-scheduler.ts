@@ -6,7 +6,7 @@ import { recomputeStoredInPool } from './engine-pool';
 export interface ResultsScheduler {
   /** Recompute this survey's latest revision soon (coalesced: one run for a burst of edits). */
   schedule: (surveyId: string) => void;
-  /** Runs everything scheduled now (tests, shutdown). */
+  /** Runs everything scheduled now, without waiting for other instances' gaps (tests, shutdown). */
   flush: () => Promise<void>;
 }
 
@@ -14,14 +14,20 @@ export interface ResultsScheduler {
  * Recomputes results after pushes without holding up the push: each survey is computed at most
  * once per `delayMs`, always at its latest revision, one at a time, so a burst of edits costs one
  * engine run and the API stays responsive under load. The work (read, compute, store) runs in the
- * engine pool's worker threads (`recomputeStoredInPool`). With several instances each may compute
- * a survey it was told about; the stored results are keyed by revision, so the first one stands.
+ * engine pool's worker threads (`recomputeStoredInPool`).
+ *
+ * Several instances share the gap through the stored results: an instance told of a survey whose
+ * results another stored less than most of a gap ago waits and asks again, so a survey edited
+ * through two instances is computed about once per gap, not twice. The stored results are keyed by
+ * revision, and the last edit's instance keeps asking until its revision has results.
  */
 export function createResultsScheduler(db: Db, onError: (err: unknown) => void, delayMs = 2000): ResultsScheduler {
   const due = new Set<string>();
   let timer: ReturnType<typeof setTimeout> | undefined;
   let running: Promise<void> = Promise.resolve();
-  const run = async () => {
+  // A little under the gap: this instance's own timer fires a gap after its last run began.
+  const sharedGapMs = Math.floor(delayMs * 0.9);
+  const run = async (minGapMs: number) => {
     timer = undefined;
     const ids = [...due];
     const url = databaseUrlOf(db);
@@ -29,25 +35,27 @@ export function createResultsScheduler(db: Db, onError: (err: unknown) => void, 
     for (const id of ids) {
       try {
         // Read, computed and stored in a worker thread: the request loop only waits.
-        await recomputeStoredInPool(url, id, ENGINE_VERSION);
+        const out = await recomputeStoredInPool(url, id, ENGINE_VERSION, minGapMs);
+        if (out.waitMs !== undefined) schedule(id);
       } catch (err) {
         onError(err);
       }
     }
   };
+  const schedule = (surveyId: string) => {
+    due.add(surveyId);
+    if (!timer) {
+      timer = setTimeout(() => {
+        running = running.then(() => run(sharedGapMs));
+      }, delayMs);
+      timer.unref?.();
+    }
+  };
   return {
-    schedule(surveyId) {
-      due.add(surveyId);
-      if (!timer) {
-        timer = setTimeout(() => {
-          running = running.then(run);
-        }, delayMs);
-        timer.unref?.();
-      }
-    },
+    schedule,
     async flush() {
       clearTimeout(timer);
-      running = running.then(run);
+      running = running.then(() => run(0));
       await running;
     },
   };

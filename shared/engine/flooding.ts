@@ -92,6 +92,11 @@ export interface SpaceForecast {
     dryAtS: number | null;
   } | null;
   soundings: SoundingEvidence | null;
+  /**
+   * A sounding log with one reading so far: its time, the sounding, the level above the space's
+   * lowest point (m) and the liquid volume it gives (m³). A rate needs a second reading.
+   */
+  firstSounding: { time: string; soundingM: number; levelM: number; volumeM3: number } | null;
 }
 
 export interface BoundaryForecast {
@@ -104,6 +109,13 @@ export interface BoundaryForecast {
   limitAtS: number | null;
   limitGoverns: Governs | null;
 }
+
+/** Why a plan step is left out of the run, in the words the forecast and its warnings use. */
+const PLAN_PROBLEMS = {
+  pumpMissing: 'its pump is no longer in the survey (deleted?)',
+  spaceMissing: 'its space is no longer in the survey (deleted?)',
+  stopsBeforeStart: 'it stops before it starts',
+} as const;
 
 export interface PlanStepForecast {
   stepId: string;
@@ -132,7 +144,15 @@ export interface FloodForecast {
    * the contents; `basis` says whether it starts from the readings) or 'present' (as read, held).
    * `series` and `gmFluidM` give it at each output time (GM null when not computed).
    */
-  attitude: { mode: 'present' | 'follows-response'; basis: 'readings' | 'prediction' | null; note: string; series: (ShipAttitude | null)[]; gmFluidM: (number | null)[] };
+  attitude: {
+    mode: 'present' | 'follows-response';
+    basis: 'readings' | 'prediction' | null;
+    note: string;
+    series: (ShipAttitude | null)[];
+    gmFluidM: (number | null)[];
+    /** The ground reaction at each output time, kg (0: afloat; null: not aground by the condition, or not computed). */
+    groundReactionKg: (number | null)[];
+  };
   /** Every downflooding point's freeboard over time and when it first goes under. */
   downflooding: DownfloodingForecast[];
   times: number[];
@@ -220,9 +240,10 @@ function pumpRuns(survey: Survey, plan: readonly PlanStep[], model: FloodModel, 
     const problems: string[] = [];
     const found = pumps.get(st.pumpId);
     const s = index.get(st.compartmentId);
-    if (!found) problems.push('no pump of the survey has this id');
-    if (s === undefined) problems.push('no compartment of the survey has this id');
-    if (st.stopH !== undefined && st.stopH <= st.startH) problems.push('stops before it starts');
+    // a pump or space deleted after the step was planned: the step is kept (and said), not dropped
+    if (!found) problems.push(PLAN_PROBLEMS.pumpMissing);
+    if (s === undefined) problems.push(PLAN_PROBLEMS.spaceMissing);
+    if (st.stopH !== undefined && st.stopH <= st.startH) problems.push(PLAN_PROBLEMS.stopsBeforeStart);
     const f: PlanStepForecast = {
       stepId: st.id,
       pumpId: st.pumpId,
@@ -279,7 +300,11 @@ export function forecastFlooding(surveyIn: Survey, options: ForecastOptions = {}
   let model = model0;
   for (const w of built.warnings) warnings.push({ ...w, severity: 'info' });
   const { runs, steps } = pumpRuns(survey, options.withPlan === false ? [] : (settings.plan ?? []), model, index, horizonS);
-  for (const st of steps) for (const p of st.problems) warnings.push({ code: 'plan-step', severity: 'warning', entityId: st.stepId, message: `Pumping plan: a step ${p}; left out` });
+  steps.forEach((st, i) => {
+    if (st.problems.length === 0) return;
+    const where = survey.compartments.find((c) => c.id === st.compartmentId)?.name;
+    warnings.push({ code: 'plan-step', severity: 'warning', entityId: st.stepId, message: `Pumping plan, step ${i + 1}${where ? ` (${where})` : ''}: ${st.problems.join('; ')}. The forecast leaves it out.` });
+  });
 
   // the times at which the state is reported: regular outputs, plan starts and stops
   const grid = new Set<number>();
@@ -315,10 +340,10 @@ export function forecastFlooding(surveyIn: Survey, options: ForecastOptions = {}
   // the ship's response at each snapshot: re-frame the model at her new attitude, then carry on
   const coupling = options.attitude === 'present' ? null : attitudeCoupling(survey, condition, results0);
   const present = measuredAttitude(survey, condition);
-  type Snapshot = { t: number; y: Float64Array; m: FloodModel; condition: Condition; attitude: ShipAttitude | null; gmFluidM: number | null; warnings: { code: string; severity: EngineWarning['severity']; message: string }[] };
+  type Snapshot = { t: number; y: Float64Array; m: FloodModel; condition: Condition; attitude: ShipAttitude | null; gmFluidM: number | null; groundReactionKg: number | null; warnings: { code: string; severity: EngineWarning['severity']; message: string }[] };
   let y: Float64Array = Float64Array.from(y0);
   const snapshot = (t: number): Snapshot => {
-    if (!coupling) return { t, y: Float64Array.from(y), m: model, condition, attitude: present, gmFluidM: null, warnings: [] };
+    if (!coupling) return { t, y: Float64Array.from(y), m: model, condition, attitude: present, gmFluidM: null, groundReactionKg: null, warnings: [] };
     const u = coupling.update(model, y);
     y = u.y;
     if (u.model !== model) {
@@ -328,7 +353,7 @@ export function forecastFlooding(surveyIn: Survey, options: ForecastOptions = {}
       lin = floodLinearisation(model, rate);
       dryLimits = new Map([...pumped].map((s) => [s, dryLimit(s)]));
     }
-    return { t, y: Float64Array.from(y), m: model, condition: u.condition, attitude: u.attitude, gmFluidM: u.response.gmFluidM, warnings: u.response.warnings };
+    return { t, y: Float64Array.from(y), m: model, condition: u.condition, attitude: u.attitude, gmFluidM: u.response.gmFluidM, groundReactionKg: u.response.ground?.reactionKg ?? null, warnings: u.response.warnings };
   };
   const snapshots: Snapshot[] = [snapshot(0)];
   let t = 0;
@@ -430,18 +455,21 @@ export function forecastFlooding(surveyIn: Survey, options: ForecastOptions = {}
       pumps = { capacityM3S: capacity, verdict, dryAtS: dry };
     }
     const orificeNow = model.openings.reduce((a, op, k) => a + (op.inside === s && op.outside < 0 ? loads.openingAt0[k] : 0), 0);
-    const soundings = soundingEvidence(
-      comp,
-      (soundingM) => {
-        const log = comp.soundingLog!;
-        const sp0 = model0.spaces[s];
-        const eta = frame.up[0] * log.pipe.x + frame.up[1] * log.pipe.y + frame.up[2] * (log.pipe.bottomZM + soundingM);
-        const v = volumeAt(sp0.table, eta);
-        return v * sp0.permeability;
-      },
-      orificeNow,
-      settings.disagreementFactor ?? 2,
-    );
+    const sp0 = model0.spaces[s];
+    // a sounding on the log's pipe as the elevation of the level plane through it
+    const planeAt = (soundingM: number) => {
+      const pipe = comp.soundingLog!.pipe;
+      return frame.up[0] * pipe.x + frame.up[1] * pipe.y + frame.up[2] * (pipe.bottomZM + soundingM);
+    };
+    const soundings = soundingEvidence(comp, (soundingM) => volumeAt(sp0.table, planeAt(soundingM)) * sp0.permeability, orificeNow, settings.disagreementFactor ?? 2);
+    // one reading gives the level and its volume at that time, but no rate yet
+    const only = comp.soundingLog?.readings.length === 1 ? comp.soundingLog.readings[0] : null;
+    const firstSounding = only && {
+      time: only.time,
+      soundingM: only.soundingM,
+      levelM: Math.max(0, planeAt(only.soundingM) - sp0.table.bottom),
+      volumeM3: volumeAt(sp0.table, planeAt(only.soundingM)) * sp0.permeability,
+    };
     if (soundings?.disagree) {
       warnings.push({
         code: 'inflow-disagrees',
@@ -461,6 +489,7 @@ export function forecastFlooding(surveyIn: Survey, options: ForecastOptions = {}
       active: spaceActive.has(s),
       pumps,
       soundings,
+      firstSounding,
     };
   });
 
@@ -499,14 +528,16 @@ export function forecastFlooding(surveyIn: Survey, options: ForecastOptions = {}
       mode: coupling ? 'follows-response' : 'present',
       basis: coupling?.basis ?? null,
       note: coupling
-        ? coupling.basis === 'readings'
+        ? (coupling.basis === 'readings'
           ? "Draft, trim and heel follow the ship's response: from the readings, they change as the model predicts at every output time, and the levels and loads follow."
           : "Draft, trim and heel follow the ship's response (drafts or heel not read: the predicted attitude throughout), and the levels and loads follow."
+        ) + (condition.stability?.aground ? ' She is aground: the ground holds her draft at the grounding point (tide taken as constant) while its reaction lasts, and she floats free once it falls to zero.' : '')
         : options.attitude === 'present'
           ? "The ship's present attitude (drafts and heel as read) is held throughout the forecast."
           : "The ship's present attitude (drafts and heel as read) is held throughout: no hydrostatic particulars, so the response is not computed.",
       series: snapshots.map((s) => s.attitude),
       gmFluidM: snapshots.map((s) => s.gmFluidM),
+      groundReactionKg: snapshots.map((s) => s.groundReactionKg),
     },
     downflooding: downfloodingOverTime(survey, snapshots.map((s) => s.m.frame), times),
     times,

@@ -65,6 +65,33 @@ export interface LayerResult {
   volumeM3: number;
   massKg: number;
   centroid: Point | null;
+  /** Tanks: the part of volumeM3 that is the tank's own liquid, m³ (the rest is flood water); 0 elsewhere. */
+  ownVolumeM3: number;
+}
+
+/**
+ * A tank's own liquid told apart from flood water (shared/engine/tank-contents.ts): flood water can
+ * take only the room the tank's own liquid leaves (SOLAS II-1/7-3: 0 for a full tank, 0.95 empty).
+ */
+export interface TankResult {
+  /** As the surveyor stated it; 'not-stated' is taken as empty (the more flood water, the worse). */
+  state: 'empty' | 'part-full' | 'full' | 'not-stated';
+  ownFluidId: string | null;
+  ownFluidName: string | null;
+  /** Own liquid as stated, m³ (permeability applied). */
+  ownStatedM3: number;
+  /** Own liquid found in the layers, m³, and its mass, kg. */
+  ownVolumeM3: number;
+  ownMassKg: number;
+  /** Stated own liquid not found in the layers, m³. */
+  ownMissingM3: number;
+  /** Flood water (every other liquid in the tank), m³ and kg. */
+  floodVolumeM3: number;
+  floodMassKg: number;
+  /** The room flood water can take, m³, and as a fraction of the moulded volume. */
+  floodRoomM3: number;
+  floodPermeability: number;
+  source: string;
 }
 
 export interface InflowResult {
@@ -112,6 +139,8 @@ export interface CompartmentResult {
   /** Fraction of the permeable volume filled with liquid. */
   fillFraction: number;
   inflow: InflowResult | null;
+  /** Tanks only: their own liquid and the flood water apart; null for every other space. */
+  tank: TankResult | null;
 }
 
 export interface SideResult {
@@ -322,9 +351,12 @@ export interface BoundaryResult {
 }
 
 export interface ShipTotals {
+  /** Water that came in: every water layer except a tank's own (its ballast or fresh water). */
   floodWater: Aggregate;
   oil: Aggregate;
   other: Aggregate;
+  /** Tanks' own liquids (fuel, ballast, fresh water they held before the casualty), of any kind. */
+  tankContents: Aggregate;
   allLiquids: Aggregate;
 }
 

@@ -87,6 +87,22 @@ export interface ShipResponse {
   /** Moment to change trim one metre, kg·m/m. */
   mctKgM: number;
   warnings: StabilityWarning[];
+  /** When the condition has her aground: the reaction, and her free-floating response (./grounding.ts). */
+  ground?: GroundState;
+}
+
+/** A ship aground at a point (./grounding.ts): where, the reaction, and how she would float without it. */
+export interface GroundState {
+  /** Where she bears on the ground, ship axes, m (on the baseline). */
+  xM: number;
+  yM: number;
+  /** The ground reaction as a mass, kg (0: afloat). */
+  reactionKg: number;
+  /** Draft the ground holds at the point, m (null when she was afloat at the readings). */
+  groundDraftM: number | null;
+  afloat: boolean;
+  /** Her response with no reaction: the attitude and GM she would have if she came off. */
+  free: ShipResponse;
 }
 
 /** Heel beyond which small-angle results are flagged, degrees (the common limit of the texts). */
@@ -132,7 +148,20 @@ function openSpacesAt(spaces: readonly OpenSpace[], T: number) {
  * particulars are for the ship with those spaces empty). Spaces open to the sea go by lost
  * buoyancy unless the condition chooses added weight. Units: kg, m, degrees.
  */
-export function responseFromWeights(survey: Survey, condition: Condition, weights: readonly FloodWeight[]): ShipResponse | null {
+/**
+ * A ground reaction (the ship aground at a point of her bottom): an upward force of `massKg` × g at
+ * (x, y) on the baseline, taken as a weight removed at the keel (the texts' "virtual rise of G"
+ * method for a ship aground or taking the blocks: KG rises by R·KG/(Δ − R) and the ship floats at
+ * the displacement Δ − R; Barrass & Derrett, "Ship Stability for Masters and Mates", ch. "Drydocking
+ * and grounding"; from memory). See ./grounding.ts.
+ */
+export interface GroundForce {
+  massKg: number;
+  x: number;
+  y: number;
+}
+
+export function responseFromWeights(survey: Survey, condition: Condition, weights: readonly FloodWeight[], ground?: GroundForce): ShipResponse | null {
   const ship = intactShip(survey, condition);
   if (!ship) return null;
   const warnings: StabilityWarning[] = [];
@@ -163,6 +192,13 @@ export function responseFromWeights(survey: Survey, condition: Condition, weight
       fsmAdded += w.freeSurfaceMomentKgM2;
       freeSurfaces.push({ spaceId: w.spaceId, momentKgM: w.freeSurfaceMomentKgM2 });
     }
+  }
+
+  if (ground && ground.massKg > 0) {
+    // the reaction at the keel (z = 0): a weight removed there
+    W -= ground.massKg;
+    Mx -= ground.massKg * ground.x;
+    My -= ground.massKg * ground.y;
   }
 
   const d0 = ship.displacementKg;
@@ -364,15 +400,19 @@ function wallSidedHeel(gm: number, bm: number, a: number): number {
 
 /**
  * The FloodWeights of a computed condition: each space's liquids (permeability and density applied,
- * as computeSurvey found them) at their centroid, with the free-surface moment of every slack
- * surface: ρ·μ·i_T, i_T the exact second moment of the surface polygon (the compartment solid cut at
- * the level, at the condition's heel and trim) about its own axis along the ship. Between two
- * layers (oil on water) the interface counts with the difference of their densities; a surface
- * pressed up to the top of its space has no polygon and no free surface.
+ * as computeSurvey found them) as floodWeightsAtLevels places them: at their centroid with the ship
+ * upright on an even keel, with the free-surface moment of every slack surface ρ·μ·i_T, i_T the
+ * exact second moment of the surface polygon (the compartment solid cut at the level, at the
+ * condition's heel and trim) about its own axis along the ship. The liquid's shift to the low side
+ * of a ship the readings show heeled is in that free-surface correction alone; taking the heeled
+ * centroid as the weight's place as well would count it twice (Barrass & Derrett, chapters on free
+ * surface; checked in tests/reference/stability-heeled-readings.test.ts). Between two layers (oil on
+ * water) the interface counts with the difference of their densities; a surface pressed up to the
+ * top of its space has no polygon and no free surface. Units: kg, m, kg·m.
  */
 export function floodWeightsFromResults(survey: Survey, results: Omit<SurveyResults, 'boundaries'>): FloodWeight[] {
   const up: [number, number, number] = [results.frame.up.x, results.frame.up.y, results.frame.up.z];
-  const compartments = new Map(survey.compartments.map((c) => [c.id, c]));
+  const compartments = new Set(survey.compartments.map((c) => c.id));
   const condition = survey.conditions.find((k) => k.id === results.conditionId);
   const contents = new Map((condition?.contents ?? []).map((k) => [k.compartmentId, k]));
   // Open to the sea means in balance with it: no contents given (the engine floods it to the
@@ -381,15 +421,10 @@ export function floodWeightsFromResults(survey: Survey, results: Omit<SurveyResu
     const layers = contents.get(id)?.layers;
     return !layers || layers.length === 0 || layers[layers.length - 1].level.kind === 'openToSea';
   };
-  const out: FloodWeight[] = [];
-  for (const r of results.compartments) {
-    const comp = compartments.get(r.id);
-    const c = r.liquid.centroid;
-    if (!comp || !c || !(r.liquid.massKg > 0)) continue;
-    const fsm = freeSurfaceMoment(solidOf(comp.geometry), up, r.permeability, r.layers);
-    out.push({ spaceId: r.id, massKg: r.liquid.massKg, x: c.x, y: c.y, z: c.z, freeSurfaceMomentKgM2: fsm, openToSea: r.openToSea && inBalance(r.id) });
-  }
-  return out;
+  const spaces = results.compartments
+    .filter((r) => compartments.has(r.id) && r.liquid.centroid && r.liquid.massKg > 0)
+    .map((r) => ({ spaceId: r.id, permeability: r.permeability, openToSea: r.openToSea && inBalance(r.id), layers: r.layers }));
+  return floodWeightsAtLevels(survey, up, spaces);
 }
 
 /** A liquid layer for the weights: its volume (permeability applied, m³) and its top's elevation along `up`, m. */
@@ -462,12 +497,6 @@ export function floodWeightsAtLevels(
     out.push({ spaceId: sp.spaceId, massKg: mass, x: mx / mass, y: my / mass, z: mz / mass, freeSurfaceMomentKgM2: fsm, openToSea: sp.openToSea });
   }
   return out;
-}
-
-/** The response of the ship to the contents of the computed condition (null without particulars). */
-export function shipResponseOf(survey: Survey, results: Omit<SurveyResults, 'boundaries'>): ShipResponse | null {
-  const condition = survey.conditions.find((c) => c.id === results.conditionId);
-  return condition ? responseFromWeights(survey, condition, floodWeightsFromResults(survey, results)) : null;
 }
 
 /** The condition with the drafts and heel of `attitude` (to compute levels and loads at it). */

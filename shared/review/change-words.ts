@@ -9,7 +9,7 @@
 import type { FieldChange, RevisionEntry } from '../api/review';
 import { catalogueFluid } from '../fluids/catalogue';
 import { pointWords } from '../units/point-words';
-import { formatNumber, formatQuantity, formatStress, INCH_M, type Dimension, type UnitSystem } from '../units/units';
+import { formatNumber, formatOpeningArea, formatQuantity, formatStress, INCH_M, type Dimension, type UnitSystem } from '../units/units';
 import { formatShipAndUtc } from './time-words';
 import { boundaryKindWords, END_CONDITION_WORDS, SPACE_TYPE_WORDS } from './plain-words';
 
@@ -71,6 +71,8 @@ export function figureWords(value: number, key: string, system: UnitSystem): str
   // thin things in millimetres (inches), stresses in MPa (ksi): the units the plate form takes them in
   if (/[tT]hickness|corrosionAllowance/.test(key)) return system === 'us' ? `${(value / INCH_M).toFixed(2)} in` : `${(value * 1000).toFixed(1)} mm`;
   if (STRESS_KEYS.has(key)) return formatStress(value, system);
+  // holes (breaches, openings) and shore sections: whole cm² or m² to two decimals, as measured
+  if (key === 'areaM2') return formatOpeningArea(value, system);
   const dim = dimensionOf(key);
   if (dim === 'percent') return `${formatNumber(value * 100, 3)} %`;
   if (dim === 'plain') return formatNumber(value, 4);

@@ -2,6 +2,8 @@
 import type { Boundary, SHORE_END_CONDITIONS } from '../schemas/survey';
 import type { SpaceType } from '../schemas/space-types';
 import { formatShipAndUtc } from './time-words';
+import type { OpeningSize } from '../schemas/flooding';
+import { formatOpeningArea, formatQuantity, type UnitSystem } from '../units/units';
 
 export const BOUNDARY_KIND_WORDS: Record<Boundary['kind'], string> = {
   bulkhead: 'bulkhead',
@@ -51,4 +53,20 @@ export function conditionName(c: { name?: string; time: string }, shipTimeOffset
 /** A space type as words, for any string (older results carry the code). */
 export function spaceTypeWords(type: string): string {
   return (SPACE_TYPE_WORDS as Record<string, string>)[type] ?? type.replace(/-/g, ' ');
+}
+
+/**
+ * A breach or an opening as measured: its sides (or diameter) when the surveyor gave them, and its
+ * area in the units a hole is measured in ("0.20 m × 0.20 m, 400 cm²"; "40 cm²").
+ */
+export function openingWords(o: { areaM2: number; size?: OpeningSize }, system: UnitSystem): string {
+  const area = formatOpeningArea(o.areaM2, system);
+  // sides as a tape reads them: two decimals ("0.20 m")
+  const side = (m: number) => {
+    const q = formatQuantity(m, 'length', system);
+    return `${q.value.toFixed(2)} ${q.label}`;
+  };
+  if (o.size?.kind === 'round') return `${side(o.size.diameterM)} across, ${area}`;
+  if (o.size?.kind === 'rectangular') return `${side(o.size.widthM)} × ${side(o.size.heightM)}, ${area}`;
+  return area;
 }

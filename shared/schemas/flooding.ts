@@ -66,3 +66,27 @@ export type FloodingSettings = z.infer<typeof FloodingSettingsSchema>;
 
 /** Pump ids listed on a sounding: the pumps that ran since the reading before. */
 export const PumpsRunningSchema = cappedArray(z.uuid(), SURVEY_LIMITS.pumps, 'pumps running');
+
+/** How much of its own liquid a tank held before the casualty. */
+export const TANK_STATES = ['empty', 'part-full', 'full'] as const;
+export const TankStateSchema = z.enum(TANK_STATES);
+export type TankState = z.infer<typeof TankStateSchema>;
+
+/**
+ * A tank's own liquid (its fuel, ballast or fresh water, from the sounding book, the loading
+ * condition or the tank tables), so the engine can tell it from flood water: flood water can take
+ * only the room the tank's own liquid leaves (SOLAS II-1/7-3's "0 or 0.95" for spaces intended for
+ * liquids: 0 for a full tank, 0.95 for an empty one). The liquid is required unless the tank was
+ * empty, the volume when part full (m³, as the tank tables give it: permeability applied).
+ */
+export const TankContentsSchema = z
+  .object({
+    state: TankStateSchema,
+    fluidId: boundedText(TEXT_LIMITS.key).min(1).optional(),
+    volumeM3: z.number().nonnegative().optional(),
+  })
+  .superRefine((t, ctx) => {
+    if (t.state !== 'empty' && t.fluidId === undefined) ctx.addIssue({ code: 'custom', path: ['fluidId'], message: 'Say which liquid the tank held' });
+    if (t.state === 'part-full' && t.volumeM3 === undefined) ctx.addIssue({ code: 'custom', path: ['volumeM3'], message: 'Give the volume of its own liquid (from the tank tables)' });
+  });
+export type TankContents = z.infer<typeof TankContentsSchema>;

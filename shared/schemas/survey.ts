@@ -9,7 +9,7 @@ import { catalogueFluid } from '../fluids/catalogue';
 import { CargoStateSchema, SpaceTypeSchema } from './space-types';
 import { SURVEY_LIMITS as L, TEXT_LIMITS, boundedText, capMessage, cappedArray } from './limits';
 import { ConditionStabilitySchema, DownfloodingPointSchema } from './stability';
-import { FloodingSettingsSchema, InternalOpeningSchema, OpeningFaceSchema, OpeningSizeSchema, PumpsRunningSchema } from './flooding';
+import { FloodingSettingsSchema, InternalOpeningSchema, OpeningFaceSchema, OpeningSizeSchema, PumpsRunningSchema, TankContentsSchema } from './flooding';
 import { MarksSchema } from './marks';
 import { DirectionalRatingSchema, PlatingSchema, ShoreDesignSchema } from './structure';
 import { SURVEY_SCHEMA_VERSION, upgradeSurvey } from './upgrade';
@@ -151,12 +151,15 @@ export const PumpSchema = z.object({
 
 export const SoundingLogSchema = z.object({
   pipe: SoundingPipeSchema,
-  /** `pumpIds`: the pumps that ran between the reading before and this one. */
+  /**
+   * `pumpIds`: the pumps that ran between the reading before and this one. One reading is kept as
+   * soon as it is taken (its level and time stand alone); a rate of inflow needs two.
+   */
   readings: cappedArray(
     z.object({ time: z.iso.datetime({ offset: true }), soundingM: NonNegative, pumpIds: PumpsRunningSchema.optional() }),
     L.soundingReadings,
     'readings in one sounding log',
-  ).min(2),
+  ).min(1),
 });
 
 export const CompartmentGeometrySchema = z.discriminatedUnion('kind', [
@@ -180,6 +183,8 @@ export const CompartmentSchema = z.object({
   permeability: z.number().min(0).max(1).optional(),
   /** Cargo spaces: how loaded the space is, which sets its default permeability. */
   cargoState: CargoStateSchema.optional(),
+  /** Tanks: their own liquid before the casualty, told apart from flood water (./flooding.ts). */
+  tankContents: TankContentsSchema.optional(),
   /** Open to the sea through a breach: unless the condition gives contents, it floods to the outside waterline. */
   openToSea: z.boolean().optional(),
   breaches: cappedArray(BreachSchema, L.breaches, 'breaches in one compartment').optional(),
@@ -368,6 +373,10 @@ function referenceIssues(s: SurveyObject, add: (issue: { path: (string | number)
   const compartmentIds = new Set(s.compartments.map((c) => c.id));
   const boundaryIds = new Set(s.boundaries.map((b) => b.id));
   const fluidIds = new Set(s.fluids.map((f) => f.id));
+  s.compartments.forEach((c, i) => {
+    const own = c.tankContents?.fluidId;
+    if (own !== undefined && !fluidIds.has(own) && !catalogueFluid(own)) add({ path: ['compartments', i, 'tankContents', 'fluidId'], message: `unknown fluid "${own}"` });
+  });
   if (!s.conditions.some((c) => c.id === s.activeConditionId)) {
     add({ path: ['activeConditionId'], message: 'no condition has this id' });
   }

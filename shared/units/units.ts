@@ -29,6 +29,7 @@ export const UNITS = {
   ft: { dimension: 'length', toSi: FOOT_M, label: 'ft' },
   in: { dimension: 'length', toSi: INCH_M, label: 'in' },
   m2: { dimension: 'area', toSi: 1, label: 'm²' },
+  cm2: { dimension: 'area', toSi: 1e-4, label: 'cm²' },
   ft2: { dimension: 'area', toSi: FOOT_M * FOOT_M, label: 'ft²' },
   in2: { dimension: 'area', toSi: INCH_M * INCH_M, label: 'in²' },
   m3: { dimension: 'volume', toSi: 1, label: 'm³' },
@@ -129,6 +130,37 @@ export function formatNumber(value: number, digits = 4): string {
   if (magnitude >= 9 || magnitude < -4) return value.toExponential(digits - 1);
   const decimals = Math.max(0, digits - 1 - magnitude);
   return value.toFixed(decimals);
+}
+
+/**
+ * The area of a hole (a breach, an opening between spaces, a shore's section) as a surveyor measures
+ * it: sides to the centimetre (the inch), so a small hole in whole cm² (in²) and a larger one in m²
+ * (ft²) to two decimals ("40 cm²", "0.35 m²"; "6 in²", "3.77 ft²"), never "0.004000 m²".
+ */
+export function formatOpeningArea(areaM2: number, system: UnitSystem): string {
+  const [small, large] = system === 'us' ? (['in2', 'ft2'] as const) : (['cm2', 'm2'] as const);
+  // below 0.1 m² (1 ft²) the large unit would say it in one or two significant figures
+  const inLarge = fromSi(areaM2, large);
+  if (inLarge >= (system === 'us' ? 1 : 0.1)) return `${inLarge.toFixed(2)} ${UNITS[large].label}`;
+  const inSmall = fromSi(areaM2, small);
+  // a pin-hole smaller than 10 cm² (10 in²) keeps one decimal, so it never reads as 0
+  return `${inSmall >= 10 ? Math.round(inSmall) : formatNumber(inSmall, 2)} ${UNITS[small].label}`;
+}
+
+/**
+ * A volume balance (in − out − stored, the round-off left by a run) as a plain figure: to the
+ * litre in m³ (0.01 ft³ in US customary), and "< 0.001 m³" when it rounds to nothing, never with
+ * an exponent ("1.2e-13 m³" reads as a figure nobody can judge).
+ */
+export function formatVolumeBalance(m3: number, system: UnitSystem): string {
+  const unit = DISPLAY_UNITS[system].volume;
+  const step = system === 'us' ? 0.01 : 0.001;
+  const v = fromSi(m3, unit);
+  const label = UNITS[unit].label;
+  if (!Number.isFinite(v)) return `${v} ${label}`;
+  if (Math.abs(v) < step / 2) return `< ${step} ${label}`;
+  const decimals = system === 'us' ? 2 : 3;
+  return `${v.toLocaleString('en-GB', { minimumFractionDigits: decimals, maximumFractionDigits: decimals })} ${label}`;
 }
 
 /** A stress in the unit the plate and shore forms take it in: MPa, or ksi in US customary ("160 MPa"). */

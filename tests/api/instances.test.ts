@@ -14,18 +14,22 @@ import { newSurvey, tokenFor } from '../support/surveys';
 import { SimDevice } from '../support/sync-device';
 import { freePort } from '../support/free-port';
 import { ROOT_DIR } from '../../server/index';
+import { ENGINE_VERSION } from '@shared/engine';
+import { createResultsScheduler } from '../../server/services/results-scheduler';
+import { docNeedingResults } from '../../server/db/repositories/surveys';
 
 let a: TestApp;
 let b: TestApp;
 let org: TestOrg;
 let surveyorToken: string;
-let engineerToken: string;
+/** A second editor of the surveyor's surveys (an engineer only reviews them: shared/review/editing.ts). */
+let adminToken: string;
 
 beforeAll(async () => {
   [a, b] = await Promise.all([startTestApp(), startTestApp()]);
   org = await createOrgWithMembers(a.db);
   surveyorToken = await tokenFor(a.config.JWT_SECRET, org.surveyor);
-  engineerToken = await tokenFor(a.config.JWT_SECRET, org.engineer);
+  adminToken = await tokenFor(a.config.JWT_SECRET, org.admin);
 });
 afterAll(async () => {
   await Promise.all([a?.close(), b?.close()]);
@@ -90,18 +94,18 @@ describe('two instances on one database', () => {
 
   it('an instance whose remembered state went stale writes nothing from it: both people’s edits are kept', async () => {
     const surveyor = new SimDevice(a.url, surveyorToken);
-    const engineer = new SimDevice(b.url, engineerToken);
+    const admin = new SimDevice(b.url, adminToken);
     const survey = newSurvey({ title: 'Shared' });
     surveyor.create(survey);
     await surveyor.sync();
     // Instance A now remembers the survey as it wrote it (revision 2 after this edit).
     surveyor.edit(survey.id, { kind: 'set', path: 'casualtyDescription', value: 'Written first, on A' });
     await surveyor.push();
-    engineer.cursor = '0';
-    await engineer.pull();
+    admin.cursor = '0';
+    await admin.pull();
     // Instance B writes revision 3; A does not know.
-    engineer.edit(survey.id, { kind: 'set', path: 'title', value: 'Set on B' });
-    expect((await engineer.push())?.results[0]).toMatchObject({ status: 'applied', revision: 3 });
+    admin.edit(survey.id, { kind: 'set', path: 'title', value: 'Set on B' });
+    expect((await admin.push())?.results[0]).toMatchObject({ status: 'applied', revision: 3 });
     // A push to A from the remembered revision 2 must not overwrite B's title.
     surveyor.edit(survey.id, { kind: 'set', path: 'casualtyDescription', value: 'Written again, on A' });
     expect((await surveyor.push())?.results[0]).toMatchObject({ status: 'applied', revision: 4 });
@@ -109,6 +113,41 @@ describe('two instances on one database', () => {
       const got = await read(app, survey.id);
       expect([got.revision, got.doc.title, got.doc.casualtyDescription]).toEqual([4, 'Set on B', 'Written again, on A']);
     }
+  });
+});
+
+describe('results computed after pushes, shared between instances', () => {
+  it('an instance leaves a survey whose results another stored less than a gap ago, and asks again later; a flush does not wait', async () => {
+    const survey = newSurvey({ title: 'Computed once per gap' });
+    const device = new SimDevice(a.url, surveyorToken);
+    device.create(survey);
+    await device.sync();
+    // Schedulers of our own, whose timers never fire in this test: only flush runs them.
+    const errors: unknown[] = [];
+    const onA = createResultsScheduler(a.db, (e) => errors.push(e), 600_000);
+    const onB = createResultsScheduler(b.db, (e) => errors.push(e), 600_000);
+    onA.schedule(survey.id);
+    await onA.flush();
+    const stored = async () => (await a.db('survey_results').where({ survey_id: survey.id, engine_version: ENGINE_VERSION }).pluck('revision')).sort();
+    expect(await stored()).toContain(1);
+
+    // A new revision, told to instance B: results were stored a moment ago, so within a gap B waits.
+    device.edit(survey.id, { kind: 'set', path: 'title', value: 'Edited through B' });
+    device.baseUrl = b.url;
+    expect((await device.push())?.results[0]).toMatchObject({ status: 'applied', revision: 2 });
+    const within = await docNeedingResults(b.db, survey.id, ENGINE_VERSION, 60_000);
+    expect(within && 'waitMs' in within && within.waitMs).toBeGreaterThan(0);
+    expect(within && 'waitMs' in within && within.waitMs).toBeLessThanOrEqual(60_000);
+    // With no gap asked for, the new revision is handed out to compute.
+    const now = await docNeedingResults(b.db, survey.id, ENGINE_VERSION, 0);
+    expect(now && 'revision' in now && [now.revision, now.doc.title]).toEqual([2, 'Edited through B']);
+
+    onB.schedule(survey.id);
+    await onB.flush();
+    expect(await stored()).toEqual(expect.arrayContaining([1, 2]));
+    // Once the current revision has results, nothing is handed out, gap or not.
+    expect(await docNeedingResults(a.db, survey.id, ENGINE_VERSION, 60_000)).toBeUndefined();
+    expect(errors).toEqual([]);
   });
 });
 

@@ -99,16 +99,36 @@ export async function latestResults(db: Q, surveyId: string, engineVersion: stri
 }
 
 /** The current document when its revision has no results of this engine version yet; undefined otherwise. */
-export async function docNeedingResults(db: Q, id: string, engineVersion: string): Promise<{ doc: Survey; revision: number } | undefined> {
-  const { rows } = await runNamed<{ doc: Survey; revision: number }>(
+/**
+ * The current document of a survey that has no results for its current revision and this engine
+ * version, or undefined when it has them. With `minGapMs`, a survey whose results (of any revision)
+ * were stored less than that long ago, by this instance or another, is not handed out: the answer
+ * says how long to wait instead, so several instances told of the same edits compute a survey about
+ * once per gap between them, not once each.
+ */
+export async function docNeedingResults(
+  db: Q,
+  id: string,
+  engineVersion: string,
+  minGapMs = 0,
+): Promise<{ doc: Survey; revision: number } | { waitMs: number } | undefined> {
+  const { rows } = await runNamed<{ doc: Survey | null; revision: number; since_ms: number | null }>(
     db,
     'bl_doc_needing_results',
-    `SELECT s.doc, s.revision FROM surveys s
+    `SELECT CASE WHEN l.since_ms IS NULL OR l.since_ms >= ? THEN s.doc END AS doc, s.revision, l.since_ms
+       FROM surveys s
+       LEFT JOIN LATERAL (
+         SELECT (extract(epoch FROM clock_timestamp() - max(r.computed_at)) * 1000)::float8 AS since_ms
+           FROM survey_results r WHERE r.survey_id = s.id AND r.engine_version = ?
+       ) l ON true
       WHERE s.id = ?
         AND NOT EXISTS (SELECT 1 FROM survey_results r WHERE r.survey_id = s.id AND r.revision = s.revision AND r.engine_version = ?)`,
-    [id, engineVersion],
+    [minGapMs, engineVersion, id, engineVersion],
   );
-  return rows[0] && { doc: currentFormat(rows[0].doc), revision: rows[0].revision };
+  const row = rows[0];
+  if (!row) return undefined;
+  if (!row.doc) return { waitMs: Math.max(1, Math.ceil(minGapMs - (row.since_ms ?? 0))) };
+  return { doc: currentFormat(row.doc), revision: row.revision };
 }
 
 export async function insertResults(

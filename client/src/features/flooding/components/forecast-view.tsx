@@ -9,7 +9,7 @@ import type { Survey } from '@shared/schemas/survey';
 import type { UnitSystem } from '@shared/units/units';
 import { FORECAST_CAUTION, STABILITY_CAUTION, durationWords, hmm } from '@shared/api/cautions';
 import { fmt, num, percent, unitLabel } from '@client/lib/unit-system';
-import { downfloodingSentences, forecastAttitudeWords } from '@shared/review/forecast-words';
+import { downfloodingSentences, flowWords, forecastAttitudeWords, volumeBalanceSentence } from '@shared/review/forecast-words';
 import { formatShipTime, formatUtc, utcOffsetWords } from '@shared/review/time-words';
 
 const ForecastChart = lazy(() => import('./forecast-chart'));
@@ -59,7 +59,7 @@ function ForecastAttitude({ forecast, survey, system }: { forecast: FloodForecas
                     <th scope="row">{k === 0 ? 'readings' : hmm(forecast.times[k])}</th>
                     <td>{num(a.meanDraftM, 'length', system, 4)}</td>
                     <td>
-                      {num(Math.abs(a.trimM), 'length', system, 2)} {a.trimM > 0.005 ? 'stern' : a.trimM < -0.005 ? 'head' : ''}
+                      {num(Math.abs(a.trimM), 'length', system, 2)} {a.trimM > 0.005 ? 'by stern' : a.trimM < -0.005 ? 'by head' : ''}
                     </td>
                     <td>{heelWords(a.heelDeg)}</td>
                     <td className={gm !== null && gm <= 0 ? 'font-bold text-danger' : ''}>{gm === null ? '—' : num(gm, 'length', system, 3)}</td>
@@ -125,7 +125,8 @@ export function ForecastView({ forecast, survey, system, now = Date.now() }: { f
   const offsetMin = survey.vessel.shipTimeOffsetMin;
   const at = (sec: number) => shipTime(forecast.readingsTime, sec, offsetMin);
   const name = (id: string) => survey.compartments.find((c) => c.id === id)?.name ?? id;
-  const pumpName = (id: string) => survey.compartments.flatMap((c) => c.pumps ?? []).find((p) => p.id === id)?.name ?? 'missing pump';
+  const pumpName = (id: string) => survey.compartments.flatMap((c) => c.pumps ?? []).find((p) => p.id === id)?.name ?? 'Deleted pump';
+  const planLeftOut = forecast.warnings.filter((w) => w.code === 'plan-step');
   const age = now - Date.parse(forecast.latestReadingTime);
   const worst = forecast.worstMoment;
   return (
@@ -134,6 +135,16 @@ export function ForecastView({ forecast, survey, system, now = Date.now() }: { f
         <b>{FORECAST_CAUTION}</b> It rests on readings taken {shipTime(forecast.latestReadingTime, 0, offsetMin)}
         {age > 0 ? `, ${durationWords(age)} ago` : ''}.
       </p>
+      {planLeftOut.length > 0 && (
+        <div className="rounded-lg border-2 border-danger bg-card p-3 text-sm" role="alert" data-testid="forecast-plan-warning">
+          <b>▲ The pumping plan did not run as entered.</b>
+          <ul className="list-disc pl-5">
+            {planLeftOut.map((w) => (
+              <li key={`${w.entityId}`}>{w.message}</li>
+            ))}
+          </ul>
+        </div>
+      )}
       <ForecastAttitude forecast={forecast} survey={survey} system={system} />
       <ForecastTimeline forecast={forecast} offsetMin={offsetMin} />
       <section aria-labelledby="limits-h">
@@ -175,13 +186,13 @@ export function ForecastView({ forecast, survey, system, now = Date.now() }: { f
         </h3>
         <ul className="space-y-2">
           {forecast.spaces
-            .filter((s) => s.active || s.soundings)
+            .filter((s) => s.active || s.soundings || s.firstSounding)
             .map((s) => {
               const last = s.levelM.length - 1;
               return (
                 <li key={s.id} className="rounded-md border-2 border-line bg-card p-2 text-sm" data-testid="forecast-space">
-                  <b>{s.name}</b>: level {fmt(s.levelM[0], 'length', system, 3)} now, {fmt(s.levelM[last], 'length', system, 3)} at the end; flow now{' '}
-                  {fmt(s.netFlowM3S[0], 'flow', system, 3)}. {s.equalisedAtS === null ? 'Still moving at the end.' : s.equalisedAtS === 0 ? 'Steady now.' : `Settles in ${hmm(s.equalisedAtS)}.`}
+                  <b>{s.name}</b>: level {fmt(s.levelM[0], 'length', system, 3)} above its bottom now, {fmt(s.levelM[last], 'length', system, 3)} at the end; flow now{' '}
+                  {flowWords(s.netFlowM3S[0], system)}. {s.equalisedAtS === null ? 'Still moving at the end.' : s.equalisedAtS === 0 ? 'Steady now.' : `Settles in ${hmm(s.equalisedAtS)}.`}
                   {s.pumps && (
                     <span className="block">
                       Pumps ({fmt(s.pumps.capacityM3S, 'flow', system, 3)}):{' '}
@@ -192,6 +203,12 @@ export function ForecastView({ forecast, survey, system, now = Date.now() }: { f
                           : s.pumps.verdict === 'holding'
                             ? 'hold the level; they do not gain.'
                             : 'do not keep up: the level rises.'}
+                    </span>
+                  )}
+                  {s.firstSounding && (
+                    <span className="block" data-testid="first-sounding-outcome">
+                      Soundings: one reading so far, {fmt(s.firstSounding.soundingM, 'length', system, 3)} on the pipe at {shipTime(s.firstSounding.time, 0, offsetMin)}: the level {fmt(s.firstSounding.levelM, 'length', system, 3)} above the
+                      space&apos;s lowest point, {fmt(s.firstSounding.volumeM3, 'volume', system, 3)} of liquid. A rate of inflow needs a second reading.
                     </span>
                   )}
                   {s.soundings && (
@@ -219,9 +236,11 @@ export function ForecastView({ forecast, survey, system, now = Date.now() }: { f
             {forecast.plan.map((st) => (
               <li key={st.stepId}>
                 {pumpName(st.pumpId)} on {name(st.compartmentId)}:{' '}
-                {st.problems.length > 0
-                  ? `left out (${st.problems.join('; ')})`
-                  : `${at(st.startS)} → ${at(st.stopS)}, ${hmm(st.startS)} → ${hmm(st.stopS)} after the readings (${st.stoppedBy === 'level' ? 'stopped at its level' : st.stoppedBy === 'time' ? 'stopped at its time' : 'to the end'}); level ${fmt(st.atStart?.levelM, 'length', system, 3)} → ${fmt(st.atStop?.levelM, 'length', system, 3)}; worst load ${percent(st.atStart?.worstUtilisation)} → ${percent(st.atStop?.worstUtilisation)}`}
+                {st.problems.length > 0 ? (
+                  <b className="text-danger">▲ left out of this forecast: {st.problems.join('; ')}.</b>
+                ) : (
+                  `${at(st.startS)} → ${at(st.stopS)}, ${hmm(st.startS)} → ${hmm(st.stopS)} after the readings (${st.stoppedBy === 'level' ? 'stopped at its level' : st.stoppedBy === 'time' ? 'stopped at its time' : 'to the end'}); level above its bottom ${fmt(st.atStart?.levelM, 'length', system, 3)} → ${fmt(st.atStop?.levelM, 'length', system, 3)}; worst load ${percent(st.atStart?.worstUtilisation)} → ${percent(st.atStop?.worstUtilisation)}`
+                )}
               </li>
             ))}
           </ol>
@@ -233,7 +252,7 @@ export function ForecastView({ forecast, survey, system, now = Date.now() }: { f
         </p>
       )}
       <p className="text-xs text-ink-soft">
-        Volume balance over the run (in − out − stored): {forecast.balance.balanceM3.toExponential(1)} m³. {forecast.stats.steps} integration steps.
+        <span data-testid="volume-balance">{volumeBalanceSentence(forecast, system)}</span> {forecast.stats.steps} integration steps.
       </p>
     </div>
   );

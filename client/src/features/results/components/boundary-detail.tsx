@@ -10,12 +10,15 @@ import type { ReactNode } from 'react';
 import { PointText } from './point-text';
 import { sideName } from './side-name';
 
+/** A figure never breaks between its number and its unit ("3374 kN", not "3374" over "kN"). */
+const keepUnits = (value: ReactNode): ReactNode => (typeof value === 'string' ? value.replace(/(\d) (?=[^\d\s])/g, '$1\u00a0') : value);
+
 function Row({ label, value, testId }: { label: string; value: ReactNode; testId?: string }) {
   return (
     <div className="flex justify-between gap-3 border-b border-line py-1">
       <dt className="text-ink-soft">{label}</dt>
       <dd className="text-right font-bold tabular-nums" data-testid={testId}>
-        {value}
+        {keepUnits(value)}
       </dd>
     </div>
   );

@@ -5,8 +5,9 @@
 import type { SurveyLevelResults } from '@shared/engine';
 import type { UnitSystem } from '@shared/units/units';
 import { PointText } from './point-text';
-import { num, percent, unitLabel } from '@client/lib/unit-system';
+import { fmt, num, percent, unitLabel } from '@client/lib/unit-system';
 import { countWords, spaceTypeWords } from '@shared/review/plain-words';
+import { tankWords } from '@shared/review/tank-words';
 import { useVirtualWindow } from '@client/components/ui/use-virtual-window';
 
 /** A space's rows: its own, and one per layer (about one layer each). */
@@ -70,10 +71,15 @@ function CompartmentRows({ c, system, onSelect }: { c: SurveyLevelResults['compa
             {spaceTypeWords(c.spaceType)} · permeability {c.permeability.toFixed(2)}
             {c.openToSea ? ' · open to sea' : ''}
           </span>
+          {c.tank && (
+            <span className="block text-xs font-normal text-ink-soft" data-testid="tank-split">
+              {tankWords(c.tank, system)}
+            </span>
+          )}
         </td>
         <td className="p-1.5 text-right tabular-nums">{num(c.liquid.volumeM3, 'volume', system)}</td>
         <td className="p-1.5 text-right tabular-nums">{num(c.liquid.massKg, 'mass', system)}</td>
-        <td className="p-1.5 text-right tabular-nums">{percent(c.fillFraction)}</td>
+        <td className="whitespace-nowrap p-1.5 text-right tabular-nums">{percent(c.fillFraction)}</td>
         <td className="p-1.5"><PointText point={c.liquid.centroid} system={system} /></td>
       </tr>
       {c.layers.map((l) => (
@@ -83,7 +89,12 @@ function CompartmentRows({ c, system, onSelect }: { c: SurveyLevelResults['compa
               aria-hidden="true"
               className={`mr-1 inline-block size-3 rounded-sm ${l.category === 'oil' ? 'bg-oil' : l.category === 'water' ? 'bg-sea' : 'bg-ink-soft'}`}
             />
-            {l.fluidName} <span className="text-ink-soft">({num(l.densityKgM3, 'density', system)} {unitLabel('density', system)})</span>
+            {l.fluidName} <span className="whitespace-nowrap text-ink-soft">({num(l.densityKgM3, 'density', system)} {unitLabel('density', system)})</span>
+            {c.tank && l.ownVolumeM3 > 0 && (
+              <span className="block text-xs text-ink-soft">
+                {l.ownVolumeM3 >= l.volumeM3 * (1 - 1e-9) ? 'the tank’s own' : `${fmt(l.ownVolumeM3, 'volume', system)} the tank’s own, the rest flood water`}
+              </span>
+            )}
           </td>
           <td className="p-1.5 text-right tabular-nums">{num(l.volumeM3, 'volume', system)}</td>
           <td className="p-1.5 text-right tabular-nums">{num(l.massKg, 'mass', system)}</td>

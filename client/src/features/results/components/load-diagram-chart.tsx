@@ -72,7 +72,7 @@ export function LoadDiagramChart({ points, system, title }: { points: LoadDiagra
           Net pressure ({pu}), + pushes towards side B
         </text>
         <text x={14} y={(M.t + H - M.b) / 2} textAnchor="middle" fontSize="12" fontWeight="bold" fill="var(--color-ink)" transform={`rotate(-90 14 ${(M.t + H - M.b) / 2})`}>
-          Height up the boundary ({lu})
+          Up the boundary ({lu})
         </text>
       </svg>
       {title && <figcaption className="text-sm text-ink-soft">{title}</figcaption>}

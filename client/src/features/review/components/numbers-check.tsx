@@ -8,6 +8,7 @@ import { RELATIVE_TOLERANCE, type ResultsAgreement } from '@shared/review/compar
 import type { UnitSystem } from '@shared/units/units';
 import { fmt } from '@client/lib/unit-system';
 import { countWords } from '@shared/review/plain-words';
+import { mismatchWords } from '@shared/review/mismatch-words';
 
 export interface DeviceNumbers {
   results: SurveyResults | null;
@@ -91,12 +92,15 @@ export function NumbersCheck({
       {agreement && agreement.mismatches.length > 0 && (
         <details className="mt-2 text-sm">
           <summary className="cursor-pointer font-bold">Every differing number ({agreement.mismatches.length})</summary>
-          <ul className="mt-1 max-h-60 overflow-auto font-mono text-xs">
-            {agreement.mismatches.map((m) => (
-              <li key={m.path} className="break-all">
-                {m.path}: server {m.a ?? 'missing'} · device {m.b ?? 'missing'}
-              </li>
-            ))}
+          <ul className="mt-1 max-h-60 space-y-1 overflow-auto text-sm" tabIndex={0} aria-label="Every differing number (scrolls)" data-testid="differing-numbers">
+            {agreement.mismatches.map((m) => {
+              const w = mismatchWords(m, server, device.results, system);
+              return (
+                <li key={m.path} className="break-words">
+                  <span className="font-bold">{w.where}</span>: {w.what}. Server <span className="tabular-nums">{w.a}</span>, device <span className="tabular-nums">{w.b}</span>
+                </li>
+              );
+            })}
           </ul>
         </details>
       )}

@@ -8,7 +8,7 @@ import { useEffect, useRef, type ReactNode } from 'react';
 import type { Boundary, Compartment, Condition, Layer, PhotoRef, Survey } from '@shared/schemas/survey';
 import type { UnitSystem } from '@shared/units/units';
 import { figureWords } from '@shared/review/change-words';
-import { boundaryKindWords, END_CONDITION_WORDS, SPACE_TYPE_WORDS, countWords } from '@shared/review/plain-words';
+import { boundaryKindWords, END_CONDITION_WORDS, SPACE_TYPE_WORDS, countWords, openingWords } from '@shared/review/plain-words';
 import { formatShipAndUtc, utcOffsetWords } from '@shared/review/time-words';
 import { markOf, type Marks } from '@shared/schemas/marks';
 import { catalogueFluid } from '@shared/fluids/catalogue';
@@ -161,7 +161,7 @@ function SpaceCard({ doc, s, condition, system, focused, anchored = true }: { do
         {s.openToSea && <Row label="Open to the sea">yes</Row>}
         {(s.breaches ?? []).map((b, i) => (
           <Row key={b.id} label={`Breach ${i + 1}`}>
-            {figureWords(b.areaM2, 'areaM2', system)} at {pointWords(b.position, system)}
+            {openingWords(b, system)} at {pointWords(b.position, system)}
           </Row>
         ))}
         {(s.pumps ?? []).map((p) => (
@@ -206,7 +206,7 @@ function BoundaryCard({ doc, b, system, focused, anchored = true }: { doc: Surve
         <Row label="Side B">{sideWords(doc, b.sideB)}</Row>
         <Row label="Outline">
           {b.geometry.kind === 'rectangle'
-            ? `rectangle from ${pointWords(b.geometry.origin, system)}`
+            ? `rectangle ${figureWords(Math.hypot(b.geometry.edgeU.x, b.geometry.edgeU.y, b.geometry.edgeU.z), 'widthM', system)} × ${figureWords(Math.hypot(b.geometry.edgeV.x, b.geometry.edgeV.y, b.geometry.edgeV.z), 'heightM', system)}, one corner at ${pointWords(b.geometry.origin, system)}`
             : b.geometry.kind === 'circle'
               ? `circle of radius ${figureWords(b.geometry.radiusM, 'radiusM', system)} at ${pointWords(b.geometry.centre, system)}`
               : b.geometry.kind === 'polygon'

@@ -1,14 +1,15 @@
 /** "Contents": what each compartment holds in the readings in use: layers bottom up, each level from a sounding, ullage or the sea, and the gas space. */
 import { useFieldArray, useForm } from 'react-hook-form';
 import { ContentsSchema, type Compartment, type Condition, type Contents, type LevelSource } from '@shared/schemas/survey';
-import { FLUID_CATALOGUE, catalogueFluid } from '@shared/fluids/catalogue';
+import { catalogueFluid } from '@shared/fluids/catalogue';
+import { fluidOptions } from '../utils/fluid-options';
 import type { UnitSystem } from '@shared/units/units';
 import { formatNumber } from '@shared/units/units';
 import { byKey, measureLabel, parseField, showField, unitResolver } from '../utils/form-units';
 import { NumberInput, SelectInput, FormError, primaryBtn, secondaryBtn, dangerBtn, errorAt } from '@client/components/ui/fields';
 import { useAutosave } from '../hooks/use-autosave';
 import { SaveIndicator } from './save-indicator';
-import type { Apply, SectionProps } from '../utils/types';
+import type { Apply, EditOp, SectionProps } from '../utils/types';
 import { activeCondition, newId } from '../utils/new-entities';
 import { display, unitLabel, fmt } from '@client/lib/unit-system';
 import type { Survey } from '@shared/schemas/survey';
@@ -97,11 +98,6 @@ function toModel(v: ContentsForm, compartmentId: string, system: UnitSystem, bef
   };
 }
 
-function fluidOptions(survey: Survey) {
-  const own = survey.fluids.filter((f) => !catalogueFluid(f.id)).map((f) => ({ value: f.id, label: `${f.name} (survey)` }));
-  return [...FLUID_CATALOGUE.map((f) => ({ value: f.id, label: f.name })), ...own];
-}
-
 function ContentsEditor({ survey, condition, compartment, contents, apply, system }: { survey: Survey; condition: Condition; compartment: Compartment; contents: Contents; apply: Apply; system: UnitSystem }) {
   const form = useForm<ContentsForm, unknown, Contents>({
     mode: 'onChange',
@@ -113,10 +109,9 @@ function ContentsEditor({ survey, condition, compartment, contents, apply, syste
     },
   });
   const { fields, append, remove, move } = useFieldArray({ control: form.control, name: 'layers', keyName: 'key' });
-  const save = (v: Contents) => {
-    const others = condition.contents.filter((k) => k.compartmentId !== compartment.id);
-    return apply({ kind: 'upsert', collection: 'conditions', entity: { ...condition, contents: [...others, v] } });
-  };
+  const others = condition.contents.filter((k) => k.compartmentId !== compartment.id);
+  const edit = (v: Contents): EditOp => ({ kind: 'upsert', collection: 'conditions', entity: { ...condition, contents: [...others, v] } });
+  const save = (v: Contents, base: Contents | undefined) => apply(edit(v), base && edit(base));
   const state = useAutosave(form, save);
   const { register, formState, watch } = form;
   const e = formState.errors;
@@ -162,7 +157,7 @@ function ContentsEditor({ survey, condition, compartment, contents, apply, syste
                 </span>
               </div>
               <div className="grid grid-cols-2 gap-3 sm:grid-cols-4">
-                <SelectInput register={register} name={`layers.${i}.fluidId`} label="Liquid" errors={{ layers: { [i]: { fluidId: layerErr(i, 'fluidId') } } }} options={fluidOptions(survey)} />
+                <SelectInput register={register} name={`layers.${i}.fluidId`} label="Liquid" errors={{ layers: { [i]: { fluidId: layerErr(i, 'fluidId') } } }} options={fluidOptions(survey.fluids)} />
                 <NumberInput
                   register={register}
                   name={`layers.${i}.density`}

@@ -9,6 +9,8 @@ import { forecastFlooding } from '@shared/engine';
 import type { Compartment, Condition } from '@shared/schemas/survey';
 import { OPENING_FACES, type OpeningFace, type PlanStep } from '@shared/schemas/flooding';
 import type { UnitSystem } from '@shared/units/units';
+import { openingWords } from '@shared/review/plain-words';
+import { pointWords } from '@shared/units/point-words';
 import { primaryBtn, dangerBtn } from '@client/components/ui/fields';
 import { heightOf, Input, need, Select, SpaceSelect, type Errors } from './flooding-fields';
 import { SoundingLog } from './sounding-log';
@@ -16,8 +18,8 @@ import { WhatIf } from './what-if';
 import { fmt } from '@client/lib/unit-system';
 import { ForecastView, shipTime } from '@client/features/flooding/components/forecast-view';
 import { measureLabel } from '../utils/form-units';
-import { activeCondition } from '../utils/new-entities';
-import { newId } from '../utils/new-entities';
+import { activeCondition, newId } from '../utils/new-entities';
+import { planStepErrors } from '../utils/plan-steps';
 import type { Apply, SectionProps } from '../utils/types';
 
 function OpeningForm({ comp, survey, system, apply, internal }: { comp: Compartment; survey: SectionProps['survey']; system: UnitSystem; apply: Apply; internal: boolean }) {
@@ -115,6 +117,61 @@ function PumpForm({ comp, system, apply }: { comp: Compartment; system: UnitSyst
   );
 }
 
+/** The survey's pumps to choose from, "—" first. */
+function PumpOptions({ pumps }: { pumps: { id: string; name: string }[] }) {
+  return (
+    <>
+      <option value="">—</option>
+      {pumps.map((p) => (
+        <option key={p.id} value={p.id}>
+          {p.name}
+        </option>
+      ))}
+    </>
+  );
+}
+
+/**
+ * One stored step of the plan. A step whose pump or space was deleted since stays in the plan: its
+ * field says so (an error that keeps the step) and offers the survey's pumps or spaces to choose again.
+ */
+function PlanStepRow({ step, n, survey, pumps, condition, system, onChange, onRemove }: { step: PlanStep; n: number; survey: SectionProps['survey']; pumps: { id: string; name: string }[]; condition: Condition; system: UnitSystem; onChange: (next: PlanStep) => void; onRemove: () => void }) {
+  const errors = planStepErrors(survey, step);
+  const offsetMin = survey.vessel.shipTimeOffsetMin;
+  const pumpName = pumps.find((p) => p.id === step.pumpId)?.name;
+  const spaceName = survey.compartments.find((c) => c.id === step.compartmentId)?.name;
+  const id = `plan-step-${step.id}`;
+  return (
+    <li className={errors.pump || errors.space || errors.stop ? 'rounded-md border-2 border-danger p-2' : ''} data-testid="plan-step">
+      <span className="flex flex-wrap items-center gap-2">
+        <span>
+          {pumpName ?? <b className="text-danger">deleted pump</b>} on {spaceName ?? <b className="text-danger">deleted space</b>} from {step.startH} h ({shipTime(condition.time, step.startH * 3600, offsetMin)})
+          {step.stopH !== undefined ? ` to ${step.stopH} h (${shipTime(condition.time, step.stopH * 3600, offsetMin)})` : ''}
+          {step.untilLevelM !== undefined ? ` or until ${fmt(step.untilLevelM, 'length', system, 3)}` : ''}
+        </span>
+        <button type="button" className={dangerBtn} onClick={onRemove}>
+          Remove
+        </button>
+      </span>
+      {(errors.pump || errors.space) && (
+        <span className="mt-1 grid grid-cols-2 gap-2">
+          {errors.pump && (
+            <Select id={`${id}-pump`} label={`Pump of step ${n}`} value="" onChange={(t) => t && onChange({ ...step, pumpId: t })} error={errors.pump}>
+              <PumpOptions pumps={pumps} />
+            </Select>
+          )}
+          {errors.space && <SpaceSelect id={`${id}-space`} label={`Space of step ${n}`} compartments={survey.compartments} value="" onChange={(t) => t && onChange({ ...step, compartmentId: t })} error={errors.space} />}
+        </span>
+      )}
+      {errors.stop && (
+        <b className="block text-danger" role="alert">
+          {errors.stop}
+        </b>
+      )}
+    </li>
+  );
+}
+
 function PlanEditor({ survey, condition, system, apply }: { survey: SectionProps['survey']; condition: Condition; system: UnitSystem; apply: Apply }) {
   const pumps = survey.compartments.flatMap((c) => (c.pumps ?? []).map((p) => ({ ...p, home: c.id })));
   const [v, setV] = useState({ pump: '', space: '', start: '0', stop: '', until: '' });
@@ -133,33 +190,29 @@ function PlanEditor({ survey, condition, system, apply }: { survey: SectionProps
     if (Object.keys(e).length > 0) return;
     await save([...plan, { id: newId(), pumpId: v.pump, compartmentId: v.space, startH: start!, stopH: stop, untilLevelM: until }]);
   };
-  const name = (id: string) => survey.compartments.find((c) => c.id === id)?.name ?? 'missing space';
-  const offsetMin = survey.vessel.shipTimeOffsetMin;
   return (
     <section aria-labelledby="plan-h" className="space-y-2">
       <h3 id="plan-h" className="text-lg">
         Pumping plan
       </h3>
-      <ol className="list-decimal pl-5 text-sm">
+      <ol className="list-decimal space-y-1 pl-5 text-sm" aria-label="Steps of the pumping plan">
         {plan.map((st, i) => (
-          <li key={st.id} className="flex flex-wrap items-center gap-2">
-            {pumps.find((p) => p.id === st.pumpId)?.name ?? <b className="text-danger">missing pump</b>} on {name(st.compartmentId)} from {st.startH} h ({shipTime(condition.time, st.startH * 3600, offsetMin)})
-            {st.stopH !== undefined ? ` to ${st.stopH} h (${shipTime(condition.time, st.stopH * 3600, offsetMin)})` : ''}
-            {st.untilLevelM !== undefined ? ` or until ${fmt(st.untilLevelM, 'length', system, 3)}` : ''}
-            <button type="button" className={dangerBtn} onClick={() => void save(plan.filter((_, j) => j !== i))}>
-              Remove
-            </button>
-          </li>
+          <PlanStepRow
+            key={st.id}
+            step={st}
+            n={i + 1}
+            survey={survey}
+            pumps={pumps}
+            condition={condition}
+            system={system}
+            onChange={(next) => void save(plan.map((x, j) => (j === i ? next : x)))}
+            onRemove={() => void save(plan.filter((_, j) => j !== i))}
+          />
         ))}
       </ol>
       <form className="grid grid-cols-2 gap-2 rounded-md border-2 border-line p-2 sm:grid-cols-5" onSubmit={(e) => (e.preventDefault(), void add())} noValidate aria-label="Add a plan step">
         <Select id="plan-pump" label="Pump" value={v.pump} onChange={(t) => setV({ ...v, pump: t })} error={errors.pump}>
-          <option value="">—</option>
-          {pumps.map((p) => (
-            <option key={p.id} value={p.id}>
-              {p.name}
-            </option>
-          ))}
+          <PumpOptions pumps={pumps} />
         </Select>
         <SpaceSelect id="plan-space" compartments={survey.compartments} value={v.space} onChange={(t) => setV({ ...v, space: t })} error={errors.space} />
         <Input id="plan-start" label="Start" unit="h from readings" value={v.start} onChange={(t) => setV({ ...v, start: t })} error={errors.start} />
@@ -217,7 +270,7 @@ export function FloodingSection({ survey, apply, system }: SectionProps) {
           <ul className="text-sm">
             {(comp.breaches ?? []).map((b) => (
               <li key={b.id} className="flex items-center gap-2">
-                {fmt(b.areaM2, 'area', system, 3)} at z {fmt(b.position.z, 'length', system, 3)} {b.face ? `(${b.face})` : ''}
+                {openingWords(b, system)} at {pointWords(b.position, system)}{b.face ? ` (${b.face} side)` : ''}
                 <button type="button" className={dangerBtn} onClick={() => void remove({ breaches: comp.breaches!.filter((x) => x.id !== b.id) })}>
                   Remove
                 </button>
@@ -229,7 +282,7 @@ export function FloodingSection({ survey, apply, system }: SectionProps) {
           <ul className="text-sm">
             {(comp.openings ?? []).map((o) => (
               <li key={o.id} className="flex items-center gap-2">
-                {fmt(o.areaM2, 'area', system, 3)} to {survey.compartments.find((c) => c.id === o.toCompartmentId)?.name ?? 'a missing space'}
+                {openingWords(o, system)} to {survey.compartments.find((c) => c.id === o.toCompartmentId)?.name ?? 'a missing space'}
                 <button type="button" className={dangerBtn} onClick={() => void remove({ openings: comp.openings!.filter((x) => x.id !== o.id) })}>
                   Remove
                 </button>

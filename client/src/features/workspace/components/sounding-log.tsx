@@ -2,7 +2,8 @@
  * A space's sounding log: where its pipe stands (editable), each reading in ship's time with the
  * pumps that ran before it (editable per reading), and a form for the next reading. A reading must
  * come after the last one; the forms keep what was typed and say what is wrong under the field.
- * The log needs two readings: the first waits on this screen until the second is entered.
+ * The first reading is saved at once: alone it gives the level and its time (said under the log);
+ * a rate of inflow needs a second reading.
  */
 import { useState } from 'react';
 import type { Compartment } from '@shared/schemas/survey';
@@ -53,13 +54,14 @@ function PipeForm({ comp, pipe, system, onSave }: { comp: Compartment; pipe: Log
 export function SoundingLog({ comp, system, apply, offsetMin }: { comp: Compartment; system: UnitSystem; apply: Apply; offsetMin: number | undefined }) {
   const h = heightOf(comp);
   const [v, setV] = useState({ time: '', sounding: '', pumps: [] as string[] });
-  const [pending, setPending] = useState<{ pipe: Log['pipe']; first: Reading | null }>({ pipe: comp.soundingLog?.pipe ?? { x: h.centre.x, y: h.centre.y, bottomZM: h.bottom }, first: null });
+  // the pipe chosen before the log has its first reading
+  const [pendingPipe, setPendingPipe] = useState<Log['pipe']>(comp.soundingLog?.pipe ?? { x: h.centre.x, y: h.centre.y, bottomZM: h.bottom });
   const [errors, setErrors] = useState<Errors>({});
   const log = comp.soundingLog;
-  const readings: Reading[] = log?.readings ?? (pending.first ? [pending.first] : []);
-  const pipe = log?.pipe ?? pending.pipe;
+  const readings: Reading[] = log?.readings ?? [];
+  const pipe = log?.pipe ?? pendingPipe;
   const clock = offsetMin === undefined ? 'UTC; the ship’s clock offset is not set' : `ship’s time, ${utcOffsetWords(offsetMin)}`;
-  const saveLog = (next: Log) => apply({ kind: 'upsert', collection: 'compartments', entity: { ...comp, soundingLog: next } });
+  const saveLog = (next: Log | undefined) => apply({ kind: 'upsert', collection: 'compartments', entity: { ...comp, soundingLog: next } });
   const add = async () => {
     const e: Errors = {};
     const iso = shipLocalToIso(v.time, offsetMin);
@@ -70,27 +72,21 @@ export function SoundingLog({ comp, system, apply, offsetMin }: { comp: Compartm
     if (s !== undefined && !e.sounding && pipe.bottomZM + s > h.top + 1e-9) e.sounding = `Above the top of the space (${fmt(h.top - pipe.bottomZM, 'length', system, 3)} up the pipe).`;
     setErrors(e);
     if (Object.keys(e).length > 0) return;
-    const reading: Reading = { time: iso!, soundingM: s!, pumpIds: v.pumps };
-    if (readings.length === 0) setPending({ ...pending, first: reading });
-    else {
-      await saveLog({ pipe, readings: [...readings, reading] });
-      setPending({ ...pending, first: null });
-    }
+    await saveLog({ pipe, readings: [...readings, { time: iso!, soundingM: s!, pumpIds: v.pumps }] });
     setV({ time: '', sounding: '', pumps: [] });
   };
-  const setPumpsOf = (i: number, pumpIds: string[]) => {
-    if (!log) setPending({ ...pending, first: pending.first && { ...pending.first, pumpIds } });
-    else void saveLog({ ...log, readings: log.readings.map((r, j) => (j === i ? { ...r, pumpIds } : r)) });
-  };
+  const setPumpsOf = (i: number, pumpIds: string[]) => log && void saveLog({ ...log, readings: log.readings.map((r, j) => (j === i ? { ...r, pumpIds } : r)) });
+  // removing the only reading removes the log (its pipe is kept on this screen for the next one)
   const remove = (i: number) => {
-    if (!log) setPending({ ...pending, first: null });
-    else if (log.readings.length > 2) void saveLog({ ...log, readings: log.readings.filter((_, j) => j !== i) });
+    if (!log) return;
+    if (log.readings.length === 1) setPendingPipe(log.pipe);
+    void saveLog(log.readings.length > 1 ? { ...log, readings: log.readings.filter((_, j) => j !== i) } : undefined);
   };
   const pumps = comp.pumps ?? [];
   const p = `sounding-${comp.id}`;
   return (
     <div className="space-y-2" data-testid="sounding-log">
-      <PipeForm key={`${pipe.x}:${pipe.y}:${pipe.bottomZM}`} comp={comp} pipe={pipe} system={system} onSave={(next) => (log ? saveLog({ ...log, pipe: next }) : setPending({ ...pending, pipe: next }))} />
+      <PipeForm key={`${pipe.x}:${pipe.y}:${pipe.bottomZM}`} comp={comp} pipe={pipe} system={system} onSave={(next) => (log ? saveLog({ ...log, pipe: next }) : setPendingPipe(next))} />
       <ol className="space-y-1 text-sm" aria-label="Sounding log">
         {readings.map((r, i) => (
           <li key={r.time} className="rounded-md border border-line p-2" data-testid="sounding-reading">
@@ -111,15 +107,18 @@ export function SoundingLog({ comp, system, apply, offsetMin }: { comp: Compartm
                 ))}
               </fieldset>
             )}
-            {(!log || log.readings.length > 2) && (
-              <button type="button" className={dangerBtn} onClick={() => remove(i)}>
-                Remove reading
-              </button>
-            )}
+            <button type="button" className={dangerBtn} onClick={() => remove(i)}>
+              Remove reading
+            </button>
           </li>
         ))}
-        {!log && pending.first && <li className="text-ink-soft">One more reading starts the log (the first is kept on this screen until then).</li>}
       </ol>
+      {readings.length === 1 && (
+        <p className="rounded-md border-2 border-line bg-card p-2 text-sm" data-testid="first-sounding">
+          One reading so far: the level stood at {fmt(readings[0].soundingM, 'length', system, 3)} on the pipe at {formatShipAndUtc(readings[0].time, offsetMin)}. A rate of inflow needs a second
+          reading; the forecast below gives the space&apos;s level and volume from it.
+        </p>
+      )}
       <form className="grid grid-cols-2 gap-2 rounded-md border-2 border-line p-2 sm:grid-cols-4" onSubmit={(e) => (e.preventDefault(), void add())} noValidate aria-label="Add a sounding">
         <Input id={`${p}-time`} label="Time of the reading" unit={clock} type="datetime-local" value={v.time} onChange={(t) => setV({ ...v, time: t })} error={errors.time} />
         <Input id={`${p}-s`} label="Sounding" unit={measureLabel('length', system)} value={v.sounding} onChange={(t) => setV({ ...v, sounding: t })} error={errors.sounding} />

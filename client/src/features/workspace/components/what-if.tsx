@@ -8,7 +8,8 @@
 import { useMemo, useState } from 'react';
 import { forecastFlooding, type FloodForecast, type FloodVariant } from '@shared/engine';
 import type { Survey } from '@shared/schemas/survey';
-import type { UnitSystem } from '@shared/units/units';
+import { formatOpeningArea, type UnitSystem } from '@shared/units/units';
+import { openingWords } from '@shared/review/plain-words';
 import { hmm } from '@shared/api/cautions';
 import { dangerBtn, primaryBtn } from '@client/components/ui/fields';
 import { fmt, percent } from '@client/lib/unit-system';
@@ -36,7 +37,7 @@ function changeWords(v: FloodVariant, survey: Survey, system: UnitSystem): strin
       const c = survey.compartments.find((x) => x.breaches?.some((b) => b.id === v.breachId));
       const b = c?.breaches?.find((x) => x.id === v.breachId);
       const name = c && b ? `breach ${c.breaches!.indexOf(b) + 1} of ${c.name}` : 'a missing breach';
-      return v.remainingFraction === 0 ? `${name} plugged` : `${name} reduced to ${fmt((b?.areaM2 ?? 0) * v.remainingFraction, 'area', system, 3)}`;
+      return v.remainingFraction === 0 ? `${name} plugged` : `${name} reduced to ${formatOpeningArea((b?.areaM2 ?? 0) * v.remainingFraction, system)}`;
     }
     case 'space-vented':
       return `${space(v.compartmentId)} vented`;
@@ -47,7 +48,7 @@ function ChangeForm({ survey, system, count, onAdd }: { survey: Survey; system: 
   const [v, setV] = useState({ kind: 'pump-added' as Kind, space: '', capacity: '', suction: '', pump: '', breach: '', area: '' });
   const [errors, setErrors] = useState<Errors>({});
   const pumps = survey.compartments.flatMap((c) => (c.pumps ?? []).map((p) => ({ ...p, space: c.name })));
-  const breaches = survey.compartments.flatMap((c) => (c.breaches ?? []).map((b, i) => ({ ...b, words: `breach ${i + 1} of ${c.name} (${fmt(b.areaM2, 'area', system, 3)})` })));
+  const breaches = survey.compartments.flatMap((c) => (c.breaches ?? []).map((b, i) => ({ ...b, words: `breach ${i + 1} of ${c.name} (${openingWords(b, system)})` })));
   const set = (k: keyof typeof v) => (t: string) => setV({ ...v, [k]: t });
   const add = () => {
     const e: Errors = {};
@@ -69,7 +70,7 @@ function ChangeForm({ survey, system, count, onAdd }: { survey: Survey; system: 
       const b = breaches.find((x) => x.id === v.breach);
       if (!b) e.breach = breaches.length === 0 ? 'No breach in the survey.' : 'Choose a breach.';
       const area = need(e, 'area', v.area, 'area', system, { min: 0 });
-      if (b && area !== undefined && !e.area && area > b.areaM2 * (1 + 1e-9)) e.area = `More than the breach: it is ${fmt(b.areaM2, 'area', system, 3)}.`;
+      if (b && area !== undefined && !e.area && area > b.areaM2 * (1 + 1e-9)) e.area = `More than the breach: it is ${formatOpeningArea(b.areaM2, system)}.`;
       if (b && area !== undefined && !e.area) change = { kind: 'breach-reduced', breachId: b.id, remainingFraction: area / b.areaM2 };
     } else {
       if (!survey.compartments.some((c) => c.id === v.space)) e.space = 'Choose the space to vent.';
