@@ -105,21 +105,25 @@ export function demoSurvey(): Survey {
         heelDeg: 4,
         seaDensityKgM3: 1024,
         // The departure condition before the grounding, every modelled space empty: a part-laden
-        // tween-decker (Δ ≈ 0.69·L·B·T·ρ) with her heavy cargo stowed low. She is aground forward,
-        // so the free-floating model of her flooded is not expected to match the draft readings.
+        // tween-decker (Δ ≈ 0.69·L·B·T·ρ) with her heavy cargo (steel) stowed low, so a stiff ship.
+        // She is aground forward under No. 1 hold: the ground's reaction (the displacement she has
+        // lost, about 1,340 t) holds her bow up against the water forward, which afloat would trim
+        // her some 6 m by the head. tests/reference/grounding.test.ts checks the demo's figures.
         stability: {
           particulars: {
             kind: 'booklet',
-            displacementT: { value: 6900, from: 'Corran Tide stability booklet p. 41, departure condition 3 (part cargo)' },
-            meanDraftM: { value: 4.6, from: 'Corran Tide stability booklet p. 41, condition 3' },
-            kgM: { value: 5.05, from: 'Corran Tide stability booklet p. 41, condition 3, KG corrected' },
-            lcgM: { value: 57.6, from: 'Corran Tide stability booklet p. 41, condition 3' },
-            lcbM: { value: 59.3, from: 'Corran Tide stability booklet p. 12, hydrostatic table at 4.60 m' },
-            tpcT: { value: 17.4, from: 'Corran Tide stability booklet p. 12, hydrostatic table at 4.60 m' },
-            lcfM: { value: 58.2, from: 'Corran Tide stability booklet p. 12, hydrostatic table at 4.60 m' },
-            mct1cmTM: { value: 125, from: 'Corran Tide stability booklet p. 12, hydrostatic table at 4.60 m' },
-            kmM: { value: 7.75, from: 'Corran Tide stability booklet p. 12, hydrostatic table at 4.60 m' },
+            displacementT: { value: 7800, from: 'Corran Tide stability booklet p. 41, departure condition 3 (part cargo)' },
+            meanDraftM: { value: 5.12, from: 'Corran Tide stability booklet p. 41, condition 3' },
+            kgM: { value: 3.8, from: 'Corran Tide stability booklet p. 41, condition 3, KG corrected' },
+            lcgM: { value: 55.5, from: 'Corran Tide stability booklet p. 41, condition 3' },
+            tcgM: { value: -0.18, from: "Master's statement: about 2½° list to starboard on departure (cargo stowage)" },
+            lcbM: { value: 59.3, from: 'Corran Tide stability booklet p. 12, hydrostatic table at 5.12 m' },
+            tpcT: { value: 17.4, from: 'Corran Tide stability booklet p. 12, hydrostatic table at 5.12 m' },
+            lcfM: { value: 58.2, from: 'Corran Tide stability booklet p. 12, hydrostatic table at 5.12 m' },
+            mct1cmTM: { value: 125, from: 'Corran Tide stability booklet p. 12, hydrostatic table at 5.12 m' },
+            kmM: { value: 7.75, from: 'Corran Tide stability booklet p. 12, hydrostatic table at 5.12 m' },
           },
+          aground: { position: { x: 100, y: 0 }, from: "Diver's survey: bottom set in and bearing on rock under No. 1 hold, on the keel line" },
         },
         contents: [
           {
@@ -196,7 +200,14 @@ export function demoSurvey(): Survey {
         },
       },
       { id: ID.hold3, name: 'No. 3 hold', spaceType: 'dry-cargo', cargoState: 'empty', geometry: { kind: 'box', min: P(38, -9, 1.2), max: P(62, 9, 11) } },
-      { id: ID.dbTank3, name: 'No. 3 double-bottom fuel tank (P)', spaceType: 'tank', geometry: { kind: 'box', min: P(38, 0, 0), max: P(62, 9, 1.2) } },
+      {
+        id: ID.dbTank3,
+        name: 'No. 3 double-bottom fuel tank (P)',
+        spaceType: 'tank',
+        // full of its own bunkers (pressed up into the sounding pipe): no room for flood water
+        tankContents: { state: 'full', fluidId: 'hfo-bunkers' },
+        geometry: { kind: 'box', min: P(38, 0, 0), max: P(62, 9, 1.2) },
+      },
       {
         id: ID.engineRoom,
         name: 'Engine room',

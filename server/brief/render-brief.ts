@@ -129,7 +129,7 @@ export function renderBriefPage(d: BriefPageData, opts: { ackError?: string } = 
   const flooded = r ? r.compartments.filter((c) => c.liquid.volumeM3 > 1e-9) : [];
   const floodedRows = flooded.map(
     (c) => html`<tr><th scope="row">${c.name}${c.openToSea ? html` <span class="tag">open to sea</span>` : ''}</th>
-<td>${c.layers.filter((l) => l.volumeM3 > 1e-9).map((l) => html`<div>${l.fluidName}: ${q(l.massKg, 'mass')}</div>`)}</td>
+<td>${c.layers.filter((l) => l.volumeM3 > 1e-9).map((l) => html`<div>${l.fluidName}: ${q(l.massKg, 'mass')}${c.tank && l.ownVolumeM3 > 0 ? html` <span class="muted">(${l.ownVolumeM3 >= l.volumeM3 * (1 - 1e-9) ? "the tank's own" : html`${q(l.ownVolumeM3, 'volume')} the tank's own`})</span>` : ''}</div>`)}</td>
 <td>${formatNumber(c.fillFraction * 100, 2)} %</td></tr>`,
   );
 
@@ -230,7 +230,7 @@ ${nearestLimit ? html`<section aria-labelledby="h-nearest">
 <section aria-labelledby="h-flooded">
   <h2 id="h-flooded">What is flooded</h2>
   ${r
-    ? html`<p>Flood water aboard: <strong>${q(r.ship.floodWater.massKg, 'mass')}</strong> · oil: <strong>${q(r.ship.oil.massKg, 'mass')}</strong>${
+    ? html`<p>Flood water aboard: <strong>${q(r.ship.floodWater.massKg, 'mass')}</strong> · oil: <strong>${q(r.ship.oil.massKg, 'mass')}</strong>${r.ship.tankContents.massKg > 0 ? html` · tanks' own liquid (not flood water): <strong>${q(r.ship.tankContents.massKg, 'mass')}</strong>` : ''}${
         r.summary.totalInflowM3S > 0 ? html` · inflow about <strong>${q(r.summary.totalInflowM3S, 'flow')}</strong>` : ''
       }</p>
 ${flooded.length ? html`<table><thead><tr><th scope="col">Space</th><th scope="col">Holds</th><th scope="col">Full</th></tr></thead><tbody>${floodedRows}</tbody></table>` : html`<p>No space holds liquid in this survey.</p>`}`

@@ -257,6 +257,7 @@ export function renderTable(r: SurveyResults, units: UnitSystem, survey?: Survey
   out.push('SHIP TOTALS');
   out.push(agg('flood water', r.ship.floodWater));
   out.push(agg('oil', r.ship.oil));
+  if (r.ship.tankContents.massKg > 0) out.push(agg('tanks\' own', r.ship.tankContents));
   out.push(agg('all liquids', r.ship.allLiquids));
   if (survey) {
     out.push('');

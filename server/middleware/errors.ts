@@ -46,10 +46,19 @@ const PG_BAD_VALUE = new Set(['22P05', '22021', '22003', '22P02', '22001']);
 /** Socket errors reaching PostgreSQL, its "shutting down / starting up / too many connections" answers, a pool timeout. */
 const DB_DOWN_CODES = new Set(['ECONNREFUSED', 'ECONNRESET', 'ENOTFOUND', 'ETIMEDOUT', 'EHOSTUNREACH', 'EPIPE', '57P01', '57P02', '57P03', '53300']);
 
+/**
+ * PostgreSQL's "protocol violation" (08P01) sits in the connection class but says the database was
+ * reached and refused what this server sent (more than 65,535 bind parameters, a malformed message):
+ * a bug here, answered 500 and logged as one, never dressed as an outage. Input that could cause it is
+ * capped before the database (MAX_PUSH_CHANGES, the survey caps, JSON arrays as one parameter).
+ */
+const PG_PROTOCOL_VIOLATION = '08P01';
+
 /** Whether `err` says the database could not be reached (not that a query was wrong). */
 export function isDatabaseUnavailable(err: unknown): boolean {
   const e = err as { code?: unknown; name?: unknown; message?: unknown } | null;
   if (!e || typeof e !== 'object') return false;
+  if (e.code === PG_PROTOCOL_VIOLATION) return false;
   if (typeof e.code === 'string' && (DB_DOWN_CODES.has(e.code) || e.code.startsWith('08'))) return true;
   if (e.name === 'KnexTimeoutError') return true;
   return typeof e.message === 'string' && /^Connection terminated|Client has encountered a connection error/.test(e.message);

@@ -16,6 +16,7 @@ import { figureNotes, figureNoteSentence } from '@shared/review/assumptions';
 import { boundaryKindWords, END_CONDITION_WORDS, SPACE_TYPE_WORDS } from '@shared/review/plain-words';
 import { formatShipAndUtc, formatUtc } from '@shared/review/time-words';
 import { structureCheckRows } from '@shared/review/structure-rows';
+import { tankWords } from '@shared/review/tank-words';
 import { pointWords } from '@shared/units/point-words';
 import { html, type SafeHtml } from '../brief/html';
 import { nearestLimitWords } from '../brief/render-brief';
@@ -43,6 +44,7 @@ const METHODS: { what: string; source: string }[] = [
   { what: 'Load on a flat plate: the net pressure is linear between level planes, so the plate is cut at them and each piece integrated exactly (area, first and second moments of a polygon)', source: 'Closed-form polygon moments (Green’s theorem); centre of pressure as the centroid of the load volume' },
   { what: 'Liquid volumes and centroids: each space clipped by the level planes, times permeability and density', source: 'Divergence theorem over the clipped polyhedron' },
   { what: 'Default permeabilities by space type', source: 'SOLAS Chapter II-1, Regulation 7-3' },
+  { what: "A tank's own liquid told apart from flood water: flood water takes only the room its own liquid leaves (none when full, 0.95 of the tank when empty)", source: 'SOLAS Chapter II-1, Regulation 7-3, spaces intended for liquids: 0 or 0.95' },
   { what: 'Stiffeners: each as a beam under its strip of the plate load, bending stress against the allowable', source: 'Beam theory; fixed-end and simply supported cases per AISC Steel Construction Manual, Table 3-23' },
   { what: 'Shores: as columns, steel by flexural buckling, timber by the column stability factor; the Euler load is shown as a secondary figure, never as the capacity', source: 'ANSI/AISC 360-16 Chapter E (E3); ANSI/AWC NDS-2018 §3.7.1' },
   { what: 'Shores and stiffeners together: a shore bearing on a stiffener is an intermediate support of that beam (indeterminate beam solved exactly); a shore between stiffeners passes its load to both', source: 'Force method of structural analysis (virtual work)' },
@@ -153,7 +155,7 @@ export function renderReport(d: ReportData): string {
       const fluid = doc.fluids.find((f) => f.id === l.fluidId)?.name ?? catalogueFluid(l.fluidId)?.name ?? l.fluidId;
       return html`<div>${fluid}: ${levelWords(l.level, q)}${chip(l.id, 'level')}${l.densityKgM3 !== undefined ? html`, density ${q(l.densityKgM3, 'density')}` : chip(l.id, 'densityKgM3')}</div>`;
     })}</td>
-<td class="num">${res ? html`${q(res.liquid.volumeM3, 'volume')}<br>${q(res.liquid.massKg, 'mass')}` : held.has(c.id) ? html`<span class="muted">not shown</span>` : '—'}</td>
+<td class="num">${res ? html`${q(res.liquid.volumeM3, 'volume')}<br>${q(res.liquid.massKg, 'mass')}${res.tank ? html`<div class="muted">${tankWords(res.tank, d.units)}</div>` : ''}` : held.has(c.id) ? html`<span class="muted">not shown</span>` : '—'}</td>
 </tr>`;
   });
 
@@ -249,7 +251,7 @@ ${r && (r.frame.missingReadings ?? []).length === 0 ? html`<tr><th scope="row">H
 <ol>${METHODS.map((m) => html`<li>${m.what}. <span class="muted">Source: ${m.source}.</span></li>`)}</ol>
 <h2>Spaces and contents</h2>
 <table><thead><tr><th scope="col">Space</th><th scope="col">Extent</th><th scope="col" class="num">Permeability</th><th scope="col">Contents (readings)</th><th scope="col" class="num">Liquid</th></tr></thead><tbody>${spaceRows}</tbody></table>
-${r ? html`<p>Flood water aboard ${q(r.ship.floodWater.massKg, 'mass')}, oil ${q(r.ship.oil.massKg, 'mass')}.</p>` : ''}
+${r ? html`<p>Flood water aboard ${q(r.ship.floodWater.massKg, 'mass')}, oil ${q(r.ship.oil.massKg, 'mass')}${r.ship.tankContents.massKg > 0 ? html`, tanks' own liquid (not flood water) ${q(r.ship.tankContents.massKg, 'mass')}` : ''}.</p>` : ''}
 <h2>Boundaries (${doc.boundaries.length})</h2>
 ${boundarySections}
 ${forecast ? html`<h2>Flooding forecast</h2>

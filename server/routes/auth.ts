@@ -34,47 +34,52 @@ export interface AuthEdge {
   resetLimits: RequestHandler;
 }
 
-export function authRoutes(services: Pick<AppServices, 'auth' | 'invitations' | 'members'>, edge: AuthEdge): RouteSpec[] {
-  const { auth, invitations, members } = services;
-  const { secure, origin, signInGuard, resetLimits } = edge;
+const cookieOptions = (secure: boolean) => ({ httpOnly: true, secure, sameSite: 'strict' as const, path: REFRESH_COOKIE_PATH });
 
-  const cookieOptions = { httpOnly: true, secure, sameSite: 'strict' as const, path: REFRESH_COOKIE_PATH };
-  const sendSession = (res: Response, session: IssuedSession) => {
-    res.cookie(REFRESH_COOKIE, session.refreshToken, { ...cookieOptions, expires: session.refreshExpiresAt });
-    res.setHeader('Cache-Control', 'no-store');
-    res.json(session.body);
-  };
-  const refreshCookie = (req: Request): string | undefined => {
-    const v = (req.cookies as Record<string, unknown> | undefined)?.[REFRESH_COOKIE];
-    return typeof v === 'string' && v.length > 0 ? v : undefined;
-  };
-  const tokenParam = (req: Request): string => {
-    const parsed = EmailTokenSchema.safeParse(req.params.token);
-    if (!parsed.success) throw notFound('This invitation link is not valid.');
-    return parsed.data;
-  };
+function sendSession(res: Response, session: IssuedSession, secure: boolean) {
+  res.cookie(REFRESH_COOKIE, session.refreshToken, { ...cookieOptions(secure), expires: session.refreshExpiresAt });
+  res.setHeader('Cache-Control', 'no-store');
+  res.json(session.body);
+}
 
-  return [
-    {
-      method: 'post',
-      path: '/auth/sign-in',
-      policy: PUBLIC,
-      before: [origin, signInGuard.check],
-      handler: async (req, res) => {
-        const body = SignInRequestSchema.parse(req.body);
-        const email = body.email.trim().toLowerCase();
-        let session: IssuedSession;
-        try {
-          session = await auth.signIn(body.email, body.password, requestMeta(req));
-        } catch (err) {
-          // Only wrong credentials count against the limits; a server fault (503) does not.
-          if (err instanceof DomainError && err.code === 'unauthorized') await signInGuard.failed(req, email);
-          throw err;
-        }
-        await signInGuard.succeeded(req, res, email, { secure, path: REFRESH_COOKIE_PATH });
-        sendSession(res, session);
-      },
+function refreshCookie(req: Request): string | undefined {
+  const v = (req.cookies as Record<string, unknown> | undefined)?.[REFRESH_COOKIE];
+  return typeof v === 'string' && v.length > 0 ? v : undefined;
+}
+
+/** A malformed invitation token is answered like an unknown one. */
+function tokenParam(req: Request): string {
+  const parsed = EmailTokenSchema.safeParse(req.params.token);
+  if (!parsed.success) throw notFound('This invitation link is not valid.');
+  return parsed.data;
+}
+
+/** Sign-in counts only wrong credentials against the limits; a server fault (503) does not. */
+function signInRoute({ auth }: Pick<AppServices, 'auth'>, { secure, origin, signInGuard }: AuthEdge): RouteSpec {
+  return {
+    method: 'post',
+    path: '/auth/sign-in',
+    policy: PUBLIC,
+    before: [origin, signInGuard.check],
+    handler: async (req, res) => {
+      const body = SignInRequestSchema.parse(req.body);
+      const email = body.email.trim().toLowerCase();
+      let session: IssuedSession;
+      try {
+        session = await auth.signIn(body.email, body.password, requestMeta(req));
+      } catch (err) {
+        if (err instanceof DomainError && err.code === 'unauthorized') await signInGuard.failed(req, email);
+        throw err;
+      }
+      await signInGuard.succeeded(req, res, email, { secure, path: REFRESH_COOKIE_PATH });
+      sendSession(res, session, secure);
     },
+  };
+}
+
+/** The refresh cookie's life after sign-in: rotated on refresh, cleared on sign-out or a refused refresh. */
+function sessionRoutes({ auth }: Pick<AppServices, 'auth'>, { secure, origin }: AuthEdge): RouteSpec[] {
+  return [
     {
       method: 'post',
       path: '/auth/refresh',
@@ -82,9 +87,9 @@ export function authRoutes(services: Pick<AppServices, 'auth' | 'invitations' | 
       before: [origin],
       handler: async (req, res) => {
         try {
-          sendSession(res, await auth.refresh(refreshCookie(req), requestMeta(req)));
+          sendSession(res, await auth.refresh(refreshCookie(req), requestMeta(req)), secure);
         } catch (err) {
-          res.clearCookie(REFRESH_COOKIE, cookieOptions);
+          res.clearCookie(REFRESH_COOKIE, cookieOptions(secure));
           throw err;
         }
       },
@@ -96,10 +101,15 @@ export function authRoutes(services: Pick<AppServices, 'auth' | 'invitations' | 
       before: [origin],
       handler: async (req, res) => {
         await auth.signOut(refreshCookie(req), requestMeta(req));
-        res.clearCookie(REFRESH_COOKIE, cookieOptions);
+        res.clearCookie(REFRESH_COOKIE, cookieOptions(secure));
         res.status(204).end();
       },
     },
+  ];
+}
+
+function passwordRoutes({ auth }: Pick<AppServices, 'auth'>, { origin, resetLimits }: AuthEdge): RouteSpec[] {
+  return [
     {
       method: 'post',
       path: '/auth/forgot-password',
@@ -126,6 +136,12 @@ export function authRoutes(services: Pick<AppServices, 'auth' | 'invitations' | 
         res.status(204).end();
       },
     },
+  ];
+}
+
+/** The caller's own profile. */
+function meRoutes({ members }: Pick<AppServices, 'members'>): RouteSpec[] {
+  return [
     {
       method: 'get',
       path: '/me',
@@ -143,6 +159,12 @@ export function authRoutes(services: Pick<AppServices, 'auth' | 'invitations' | 
         res.json(await members.updateMe(authOf(req), patch));
       },
     },
+  ];
+}
+
+/** The public side of an invitation: what it is for, and accepting it (which signs the new member in). */
+function invitationRoutes({ invitations }: Pick<AppServices, 'invitations'>, { secure, origin }: AuthEdge): RouteSpec[] {
+  return [
     {
       method: 'get',
       path: '/invitations/:token',
@@ -160,8 +182,18 @@ export function authRoutes(services: Pick<AppServices, 'auth' | 'invitations' | 
       handler: async (req, res) => {
         const token = tokenParam(req);
         const body = AcceptInvitationRequestSchema.parse(req.body);
-        sendSession(res, await invitations.accept(token, body.name, body.password, requestMeta(req)));
+        sendSession(res, await invitations.accept(token, body.name, body.password, requestMeta(req)), secure);
       },
     },
+  ];
+}
+
+export function authRoutes(services: Pick<AppServices, 'auth' | 'invitations' | 'members'>, edge: AuthEdge): RouteSpec[] {
+  return [
+    signInRoute(services, edge),
+    ...sessionRoutes(services, edge),
+    ...passwordRoutes(services, edge),
+    ...meRoutes(services),
+    ...invitationRoutes(services, edge),
   ];
 }

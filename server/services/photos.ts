@@ -11,6 +11,7 @@ import type { AuthContext } from '../http/auth-context';
 import { conflict, notFound, unsupportedMediaType } from '../errors';
 import { PHOTO_TYPES, type Photo, type PhotoUploadFields } from '@shared/api/photos';
 import type { PhotoStorage, StoredObject } from '../storage/photo-store';
+import { refuseReviewersEdits } from './editing';
 import { findPhoto, findPhotoAnyOrg, insertPhoto, listPhotos as listRows, publicPhoto, surveyInOrg } from '../db/repositories/photos';
 
 const unsupportedType = () =>
@@ -33,6 +34,7 @@ async function uploadPhoto(
     return { photo: publicPhoto(existing), created: false };
   }
   if (!(await surveyInOrg(db, auth.orgId, fields.surveyId))) throw notFound('No survey of your organisation has this id. Sync the survey first.');
+  await refuseReviewersEdits(db, auth, [fields.surveyId]);
   const ext = type.ext === 'jpg' ? 'jpg' : type.ext;
   const storageKey = `${auth.orgId}/${fields.surveyId}/${randomUUID()}.${ext}`;
   await storage.put(storageKey, bytes, type.mime);

@@ -44,36 +44,102 @@ export interface PointForce {
  * between); points: concentrated forces along the span.
  */
 export function solveBeam(s0: readonly number[], q0: readonly number[], fixity: EndFixity, points: readonly PointForce[] = []): BeamResult {
-  let s = s0, q = q0;
-  const pAt: number[] = [];
-  if (points.length > 0) {
+  const at = new Float64Array(points.length), f = new Float64Array(points.length);
+  for (let i = 0; i < points.length; i++) {
+    at[i] = points[i].atM;
+    f[i] = points[i].forceN;
+  }
+  const o = solveBeamInto(s0, q0, 0, s0.length, fixity, at, f, points.length, new Float64Array(BEAM_OUT));
+  return beamResultOf(o, 0);
+}
+
+/** Numbers solveBeamInto writes, in BeamResult's order. */
+export const BEAM_OUT = 8;
+
+/** The BeamResult of the numbers solveBeamInto wrote at out[off ..]. */
+export function beamResultOf(o: ArrayLike<number>, off: number): BeamResult {
+  return {
+    spanM: o[off],
+    totalLoadN: o[off + 1],
+    reactionStartN: o[off + 2],
+    reactionEndN: o[off + 3],
+    maxMomentNm: o[off + 4],
+    maxMomentAtM: o[off + 5],
+    endMomentStartNm: o[off + 6],
+    endMomentEndNm: o[off + 7],
+  };
+}
+
+// Scratch for the stations with the point forces put in (the engine is synchronous and never re-entered).
+let bs = new Float64Array(32), bq = new Float64Array(32), bp = new Float64Array(32);
+
+/**
+ * solveBeam without allocation: stations s0[from .. from + n0), loads q0 (the same indices), and nPts point forces (distance from
+ * the first station pointAt, force pointF) in the order given. Writes spanM, totalLoadN,
+ * reactionStartN, reactionEndN, maxMomentNm, maxMomentAtM, endMomentStartNm, endMomentEndNm to
+ * out[off .. off + 8) and returns out.
+ */
+export function solveBeamInto(
+  s0: ArrayLike<number>,
+  q0: ArrayLike<number>,
+  from: number,
+  n0: number,
+  fixity: EndFixity,
+  pointAt: ArrayLike<number>,
+  pointF: ArrayLike<number>,
+  nPts: number,
+  out: Float64Array,
+  off = 0,
+): Float64Array {
+  let s: ArrayLike<number> = s0, q: ArrayLike<number> = q0;
+  // s and q are read from index z on: `from` in the caller's arrays, 0 in the scratch copies
+  let z = from;
+  let n = n0;
+  const hasPoints = nPts > 0;
+  if (hasPoints) {
     // stations at the point forces, so the march applies each jump in shear at its station
-    const S = [...s0], Q = [...q0], P = s0.map(() => 0);
-    for (const p of points) {
-      const x = s0[0] + p.atM;
+    if (bs.length < n0 + nPts) {
+      bs = new Float64Array(2 * (n0 + nPts));
+      bq = new Float64Array(2 * (n0 + nPts));
+      bp = new Float64Array(2 * (n0 + nPts));
+    }
+    for (let i = 0; i < n0; i++) {
+      bs[i] = s0[from + i];
+      bq[i] = q0[from + i];
+      bp[i] = 0;
+    }
+    for (let k = 0; k < nPts; k++) {
+      const x = s0[from] + pointAt[k];
       let i = 0;
-      while (i < S.length && S[i] < x) i++;
-      if (i < S.length && S[i] === x) {
-        P[i] += p.forceN;
+      while (i < n && bs[i] < x) i++;
+      if (i < n && bs[i] === x) {
+        bp[i] += pointF[k];
         continue;
       }
-      if (i === 0 || i === S.length) continue;
-      const t = (x - S[i - 1]) / (S[i] - S[i - 1]);
-      S.splice(i, 0, x);
-      Q.splice(i, 0, Q[i - 1] + t * (Q[i] - Q[i - 1]));
-      P.splice(i, 0, p.forceN);
+      if (i === 0 || i === n) continue;
+      const t = (x - bs[i - 1]) / (bs[i] - bs[i - 1]);
+      const qx = bq[i - 1] + t * (bq[i] - bq[i - 1]);
+      for (let j = n; j > i; j--) {
+        bs[j] = bs[j - 1];
+        bq[j] = bq[j - 1];
+        bp[j] = bp[j - 1];
+      }
+      bs[i] = x;
+      bq[i] = qx;
+      bp[i] = pointF[k];
+      n++;
     }
-    s = S;
-    q = Q;
-    pAt.push(...P);
+    s = bs;
+    q = bq;
+    z = 0;
   }
-  const n = s.length;
-  const L = s[n - 1] - s[0];
+  const pAt = bp;
+  const L = s[z + n - 1] - s[z];
   let W = 0, Ms = 0, fa = 0, fb = 0;
   for (let i = 0; i + 1 < n; i++) {
-    const a = s[i] - s[0], b = s[i + 1] - s[0], h = b - a;
+    const a = s[z + i] - s[z], b = s[z + i + 1] - s[z], h = b - a;
     if (h <= 0) continue;
-    const qa = q[i], qb = q[i + 1];
+    const qa = q[z + i], qb = q[z + i + 1];
     W += ((qa + qb) / 2) * h;
     Ms += (h / 6) * (qa * (2 * a + b) + qb * (a + 2 * b));
     if (fixity === 'fixed') {
@@ -88,14 +154,16 @@ export function solveBeam(s0: readonly number[], q0: readonly number[], fixity: 
     }
   }
   let Wp = 0;
-  for (let i = 1; i + 1 < pAt.length; i++) {
-    if (pAt[i] === 0) continue;
-    const a = s[i] - s[0], b = L - a, P = pAt[i];
-    Wp += P;
-    Ms += P * a;
-    if (fixity === 'fixed') {
-      fa += P * a * b * b;
-      fb += P * a * a * b;
+  if (hasPoints) {
+    for (let i = 1; i + 1 < n; i++) {
+      if (pAt[i] === 0) continue;
+      const a = s[z + i] - s[z], b = L - a, P = pAt[i];
+      Wp += P;
+      Ms += P * a;
+      if (fixity === 'fixed') {
+        fa += P * a * b * b;
+        fb += P * a * a * b;
+      }
     }
   }
   const rbSs = L > 0 ? Ms / L : 0;
@@ -111,10 +179,10 @@ export function solveBeam(s0: readonly number[], q0: readonly number[], fixity: 
   let V = V0, M = M0;
   let best = M0, bestAt = 0;
   for (let i = 0; i + 1 < n; i++) {
-    if (i > 0 && pAt.length > 0) V -= pAt[i];
-    const a = s[i] - s[0], h = s[i + 1] - s[i];
+    if (i > 0 && hasPoints) V -= pAt[i];
+    const a = s[z + i] - s[z], h = s[z + i + 1] - s[z + i];
     if (h <= 0) continue;
-    const qa = q[i], m = (q[i + 1] - qa) / h;
+    const qa = q[z + i], m = (q[z + i + 1] - qa) / h;
     // V(ξ) = V − qa ξ − m ξ²/2 ; roots in (0, h)
     let r1 = NaN, r2 = NaN;
     if (Math.abs(m) > 1e-300) {
@@ -146,14 +214,13 @@ export function solveBeam(s0: readonly number[], q0: readonly number[], fixity: 
       bestAt = a + h;
     }
   }
-  return {
-    spanM: L,
-    totalLoadN: W,
-    reactionStartN: V0,
-    reactionEndN: -V,
-    maxMomentNm: best,
-    maxMomentAtM: bestAt,
-    endMomentStartNm: M0,
-    endMomentEndNm: fixity === 'fixed' ? ML : 0,
-  };
+  out[off] = L;
+  out[off + 1] = W;
+  out[off + 2] = V0;
+  out[off + 3] = -V;
+  out[off + 4] = best;
+  out[off + 5] = bestAt;
+  out[off + 6] = M0;
+  out[off + 7] = fixity === 'fixed' ? ML : 0;
+  return out;
 }

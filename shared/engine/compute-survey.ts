@@ -12,7 +12,6 @@ import { levelOfMouldedVolume, splitOwnLiquid, TANK_PERMEABILITY_SOURCE, tankFlo
 import { soundingEvidence } from './flooding-soundings';
 import { timeToPumpOut } from './inflow';
 import { missingShipReadings, withheldItems, withheldSentence } from './readings';
-import { clipHalfPlane } from './plane-integrals';
 import {
   childAsHole,
   circlePlate,
@@ -24,16 +23,18 @@ import {
   polygonPlate,
   newScratchPlate,
   polygonPlateXYZ,
-  regionAsPolygons,
-  regionNetForce,
+  addPolygonStrips,
+  RegionClip,
+  stripsArea,
+  stripsNetForce,
+  zeroRegionStrips,
   type FlatPlate,
   type PartLoad,
   type PlateFrame,
   type PlateIntegration,
-  type SignedShape,
 } from './plate';
-import { compartmentSolid, elevationRange, volumeBelow, type VolumeMoments } from './polyhedron';
-import { constantProfile, differenceProfile, layeredProfile, type PressureProfile } from './profile';
+import { compartmentSolidInto, elevationRangeFlat, newFlatSolid, volumeBelowFlat, type VolumeMoments } from './polyhedron';
+import { constantProfile, differenceProfileInto, layeredProfile, type PressureProfile } from './profile';
 import type {
   Aggregate,
   BoundaryResult,
@@ -57,9 +58,9 @@ import type {
 import { facetOrientation } from './facets';
 import { newBoundaryTable, setBoundaryRow } from './boundary-table';
 import { platingCheck } from './plating';
-import { capacitiesOf, governingCapacity } from './ratings';
-import { shoreResult } from './shore-check';
-import { plainLayout, platingPanels, stiffenedPlateLoads } from './shore-stiffener';
+import { capacitiesOf, governingCapacity, governingUtilisation } from './ratings';
+import { shoreResult, shoreUtilisation } from './shore-check';
+import { plainLayout, platingPanels, stiffenedPlateLean, stiffenedPlateLoads, type StiffenerLayout } from './shore-stiffener';
 import { add, cross, dot, fromPoint, norm, scale, sub, toPoint, unit, type V3 } from './vec';
 import { ENGINE_VERSION } from './version';
 
@@ -82,6 +83,12 @@ interface ResolvedFluid {
 }
 
 const NULL_POINT_TOL = 1e-12;
+
+/** One compartment's solid, and the volumes below the levels asked of it (prepareCondition's compartment loop). */
+const scratchSolid = newFlatSolid();
+const memoKeys: number[] = [];
+const memoValues: VolumeMoments[] = [];
+let memoCount = 0;
 
 /**
  * Everything of one condition that the boundaries need: the earth frame, each compartment's
@@ -121,16 +128,23 @@ function prepareCondition(survey: Survey, conditionIdIn: string | undefined, inc
 
   for (const comp of survey.compartments) {
     if (withheld.compartments.has(comp.id)) continue;
-    const solid = compartmentSolid(comp.geometry);
-    const [eBottom, eTop] = elevationRange(solid, up);
-    const memo = new Map<number, VolumeMoments>();
+    // the solid in scratch space: only this compartment's computation reads it
+    const solid = compartmentSolidInto(comp.geometry, scratchSolid);
+    const [eBottom, eTop] = elevationRangeFlat(solid, up);
+    memoCount = 0;
     const below = (eta: number): VolumeMoments => {
       const key = eta <= eBottom ? -Infinity : eta >= eTop ? Infinity : eta;
-      let r = memo.get(key);
-      if (!r) {
-        r = key === -Infinity ? { volume: 0, mx: 0, my: 0, mz: 0 } : volumeBelow(solid, up, key);
-        memo.set(key, r);
+      // (keys compared as a Map compares them: 0 and −0 alike, NaN equal to NaN)
+      for (let i = 0; i < memoCount; i++) if (memoKeys[i] === key || (memoKeys[i] !== memoKeys[i] && key !== key)) return memoValues[i];
+      const r = key === -Infinity ? { volume: 0, mx: 0, my: 0, mz: 0 } : volumeBelowFlat(solid, up, key);
+      if (memoCount === memoKeys.length) {
+        memoKeys.push(key);
+        memoValues.push(r);
+      } else {
+        memoKeys[memoCount] = key;
+        memoValues[memoCount] = r;
       }
+      memoCount++;
       return r;
     };
     const gross = below(Infinity);
@@ -248,7 +262,7 @@ function prepareCondition(survey: Survey, conditionIdIn: string | undefined, inc
       else addAcc(l.category === 'oil' ? ship.oil : ship.other, l.volumeM3, l.massKg, l.centroid);
     });
     const tankResult = room
-      ? tankResultOf({ comp, ownFluidName: ownFluidId ? fluids(ownFluidId).name : null, room, missingM3: split.missingM3, ownV, ownM, liquid, permeability }, warn)
+      ? tankResultOf({ comp, ownFluidName: ownFluidId ? fluids(ownFluidId).name : null, room, missingM3: split.missingM3, ownV, ownM, liquid, permeability, grossM3: gross.volume }, warn)
       : null;
     const profile = layeredProfile(levels, pGas, g);
     profiles.set(comp.id, profile);
@@ -288,14 +302,15 @@ function prepareCondition(survey: Survey, conditionIdIn: string | undefined, inc
   const parentIds = new Set<string>();
   for (const b of survey.boundaries) if (b.parentBoundaryId) parentIds.add(b.parentBoundaryId);
   const plates = new Map<string, { plate: FlatPlate; pts: V3[] | null }>();
-  for (const b of survey.boundaries) {
+  // (with no openings, as in most surveys, the two passes below have nothing to do)
+  for (const b of parentIds.size > 0 ? survey.boundaries : []) {
     const geom = b.geometry;
     if (geom.kind === 'faceted' || !(b.parentBoundaryId || parentIds.has(b.id))) continue;
     const built = buildFlat(geom, up, !!b.parentBoundaryId);
     if (built) plates.set(b.id, built);
   }
   const openings = new Map<string, string[]>();
-  for (const b of survey.boundaries) {
+  for (const b of parentIds.size > 0 ? survey.boundaries : []) {
     if (!b.parentBoundaryId) continue;
     const parent = plates.get(b.parentBoundaryId);
     const child = plates.get(b.id);
@@ -315,15 +330,10 @@ function prepareCondition(survey: Survey, conditionIdIn: string | undefined, inc
     openings.set(b.parentBoundaryId, list);
   }
 
-  // boundaries between the same two spaces share one net profile
-  const netCache = new Map<PressureProfile, Map<PressureProfile, PressureProfile>>();
-  const netProfile = (pa: PressureProfile, pb: PressureProfile): PressureProfile => {
-    let byB = netCache.get(pa);
-    if (!byB) netCache.set(pa, (byB = new Map()));
-    let net = byB.get(pb);
-    if (!net) byB.set(pb, (net = differenceProfile(pa, pb)));
-    return net;
-  };
+  // the net profile of a boundary, merged into scratch space: valid until the next boundary's
+  // (merging two short lists costs less than looking a shared one up)
+  const scratchNet: PressureProfile = { breaks: [], a: [], b: [], liquidTop: -Infinity };
+  const netProfile = (pa: PressureProfile, pb: PressureProfile): PressureProfile => differenceProfileInto(pa, pb, scratchNet);
 
 
   return { survey, condition, frame, up, g, warnings, warn, withheld, compartmentResults, ship, totalInflow, totalPumps, sideProfile, netProfile, plates, openings };
@@ -430,8 +440,9 @@ export function computeSurveySummary(survey: Survey, options: Pick<ComputeOption
   const tally = utilisationTally(p.warn);
   const table = newBoundaryTable(survey.boundaries.length);
   let k = 0;
+  const withheld = p.withheld.boundaries, anyWithheld = withheld.size > 0, anyPlates = p.plates.size > 0;
   for (const b of survey.boundaries) {
-    if (p.withheld.boundaries.has(b.id)) continue;
+    if (anyWithheld && withheld.has(b.id)) continue;
     let written: boolean;
     if (b.geometry.kind === 'faceted') {
       const r = boundaryResultOf(p, b, false, p.warn);
@@ -439,7 +450,8 @@ export function computeSurveySummary(survey: Survey, options: Pick<ComputeOption
       written = r !== null;
     } else {
       const pa = p.sideProfile(b.sideA), pb = p.sideProfile(b.sideB);
-      written = flatSummary(b, p.plates.get(b.id)?.plate ?? scratchFlat(b.geometry, p.up) ?? undefined, pa, pb, p.netProfile(pa, pb), p.warn, table, k);
+      const plate = (anyPlates ? p.plates.get(b.id)?.plate : undefined) ?? scratchFlat(b.geometry, p.up) ?? undefined;
+      written = flatSummary(b, plate, pa, pb, p.netProfile(pa, pb), p.warn, table, k);
     }
     if (!written) continue;
     const u = table.maxUtilisation[k];
@@ -581,7 +593,7 @@ function finishAcc(a: Acc): Aggregate {
  * own liquid leaves, and a permeability of 0 that leaves its own liquid no volume.
  */
 function tankResultOf(
-  t: { comp: Compartment; ownFluidName: string | null; room: TankRoom; missingM3: number; ownV: number; ownM: number; liquid: Acc; permeability: number },
+  t: { comp: Compartment; ownFluidName: string | null; room: TankRoom; missingM3: number; ownV: number; ownM: number; liquid: Acc; permeability: number; grossM3: number },
   warn: Warn,
 ): TankResult {
   const { comp, room } = t;
@@ -593,6 +605,10 @@ function tankResultOf(
   }
   if (comp.permeability === 0 && tank && tank.state !== 'empty') {
     warn('tank-permeability-zero', 'warning', comp.id, `${comp.name}: permeability 0 leaves its own liquid no volume; leave the permeability empty for a full tank (flood water then gets no room by its contents)`);
+  }
+  const capacity = t.permeability * t.grossM3;
+  if (tank?.state === 'part-full' && (tank.volumeM3 ?? 0) > capacity + tol) {
+    warn('tank-volume-over-capacity', 'warning', comp.id, `${comp.name}: its own liquid is stated as ${formatM3(tank.volumeM3 ?? 0)}, more than the ${formatM3(capacity)} it holds (${t.permeability.toFixed(2)} of ${formatM3(t.grossM3)}); taken as full`);
   }
   if (t.missingM3 > Math.max(tol, 0.02 * room.ownStatedM3)) {
     warn('tank-own-missing', 'warning', comp.id, `${comp.name}: ${formatM3(t.missingM3)} of its own ${t.ownFluidName?.toLowerCase() ?? 'liquid'} stated is not in the readings (gone to the sea or elsewhere, or the stated contents are wrong)`);
@@ -860,8 +876,8 @@ const scratchIntegration = newPlateIntegration();
 type Warn = (code: string, s: Severity, id: string | null, m: string) => void;
 
 /**
- * Integrates a flat boundary into the shared scratch integration, with the plate's warnings.
- * Null when the plate has no area.
+ * Integrates a flat boundary into the shared scratch integration (returned), with the plate's
+ * warnings. Null when the plate has no area.
  */
 function flatIntegration(
   b: Boundary,
@@ -870,7 +886,7 @@ function flatIntegration(
   pb: PressureProfile,
   net: PressureProfile,
   warn: Warn,
-): { plate: FlatPlate; it: PlateIntegration } | null {
+): PlateIntegration | null {
   if (!plate) {
     warn('degenerate', 'warning', b.id, `${b.name}: the plate has no area (zero normal); not computed`);
     return null;
@@ -887,7 +903,7 @@ function flatIntegration(
   if (it.positive.forceN !== 0 && it.negative.forceN !== 0) {
     warn('sign-change', 'info', b.id, `${b.name}: net pressure reverses across the plate (${(it.positive.forceN / 1000).toFixed(1)} kN towards side B, ${(-it.negative.forceN / 1000).toFixed(1)} kN towards side A)`);
   }
-  return { plate, it };
+  return it;
 }
 
 /** Net pressure of largest magnitude on a flat plate (the minimum when it is larger in magnitude). */
@@ -904,15 +920,58 @@ function flatChecks(b: Boundary, plate: FlatPlate, it: PlateIntegration, net: Pr
   const shores = stiffened?.shores ?? (hasShores ? shoreLoads(b, plate, net, it.cuts, warn) : []);
   const structureModel = stiffened?.shores ? stiffeners!.model : hasShores ? SHORES_ONLY_MODEL_WORDS : stiffeners ? stiffeners.model : null;
   const plating = b.plating ? platingCheck(b.plating, platingPanels(plate, net, it.cuts, stiffened?.layout ?? plainLayout(plate))) : null;
-  if (plating && plating.maxUtilisation !== null && plating.maxUtilisation > 1) {
-    warn('plating-overstressed', 'danger', b.id, `${b.name}: plating ${stiffened?.layout ? 'between stiffeners' : '(the whole plate as one panel)'} bent to ${(100 * plating.maxUtilisation).toFixed(0)} % of its allowable stress`);
-  }
+  if (plating && plating.maxUtilisation !== null && plating.maxUtilisation > 1) warnPlating(b, plating.maxUtilisation, !!stiffened?.layout, warn);
   const capacities = capacitiesOf(b, netRes);
   const capacity = governingCapacity(capacities);
   let maxU = maxOf(capacity ? capacity.utilisation : undefined, stiffeners?.maxUtilisation ?? undefined, null);
   maxU = maxOf(plating?.maxUtilisation ?? undefined, undefined, maxU);
   for (let i = 0; i < shores.length; i++) maxU = maxOf(shores[i].utilisation, undefined, maxU);
   return { stiffeners, plating, shores, structureModel, capacities, capacity, maxU };
+}
+
+/** What the summary keeps of a flat boundary's checks (flatChecksLean); null where the full result has none. */
+const leanChecks = { capacity: null as number | null, stiffeners: null as number | null, plating: null as number | null, shores: null as number | null, maxU: null as number | null };
+/** Each shore's utilisation, in the order of b.shores, for the boundary being summarised. */
+let shoreU = new Float64Array(8);
+
+/**
+ * flatChecks for the summary: the same checks, warnings (in the same order) and utilisations,
+ * without building the stiffener items or shore results. Fills leanChecks.
+ */
+function flatChecksLean(b: Boundary, plate: FlatPlate, it: PlateIntegration, net: PressureProfile, peak: number, warn: Warn): typeof leanChecks {
+  const nS = b.shores ? b.shores.length : 0;
+  if (shoreU.length < nS) shoreU = new Float64Array(2 * nS);
+  let stiffenerU: number | null = null;
+  let layout: StiffenerLayout | null = null;
+  let carried = false;
+  if (b.stiffening) {
+    const lean = stiffenedPlateLean(b, plate, net, it.cuts, warn, shoreU, !!b.plating);
+    stiffenerU = lean.maxUtilisation;
+    carried = lean.carriesShores;
+    layout = lean.layout;
+  }
+  if (!carried && nS > 0) shoreCells(b, plate, net, it.cuts, warn, null);
+  const plating = b.plating ? platingCheck(b.plating, platingPanels(plate, net, it.cuts, layout ?? plainLayout(plate))) : null;
+  if (plating && plating.maxUtilisation !== null && plating.maxUtilisation > 1) warnPlating(b, plating.maxUtilisation, layout !== null, warn);
+  const F = it.netForceN;
+  const capacity = governingUtilisation(b, F, Math.abs(F), it.peakMaxPa, it.peakMinPa, peak);
+  let maxU = maxOf(capacity ?? undefined, stiffenerU ?? undefined, null);
+  maxU = maxOf(plating?.maxUtilisation ?? undefined, undefined, maxU);
+  let shoreMax: number | null = null;
+  for (let i = 0; i < nS; i++) {
+    maxU = maxOf(shoreU[i], undefined, maxU);
+    shoreMax = maxOf(shoreU[i], undefined, shoreMax);
+  }
+  leanChecks.capacity = capacity;
+  leanChecks.stiffeners = stiffenerU;
+  leanChecks.plating = plating ? plating.maxUtilisation : null;
+  leanChecks.shores = shoreMax;
+  leanChecks.maxU = maxU;
+  return leanChecks;
+}
+
+function warnPlating(b: Boundary, u: number, betweenStiffeners: boolean, warn: Warn): void {
+  warn('plating-overstressed', 'danger', b.id, `${b.name}: plating ${betweenStiffeners ? 'between stiffeners' : '(the whole plate as one panel)'} bent to ${(100 * u).toFixed(0)} % of its allowable stress`);
 }
 
 function flatBoundary(
@@ -926,9 +985,9 @@ function flatBoundary(
   withDiagram: boolean,
   warn: Warn,
 ): BoundaryResult | null {
-  const flat = flatIntegration(b, plateIn, pa, pb, net, warn);
-  if (!flat) return null;
-  const { plate, it } = flat;
+  const it = flatIntegration(b, plateIn, pa, pb, net, warn);
+  if (!it) return null;
+  const plate = plateIn!;
   const netRes = flatNet(b, plate, it, frame.up, warn);
   const { stiffeners, plating, shores, structureModel, capacities, capacity, maxU } = flatChecks(b, plate, it, net, netRes, warn);
   const fr = plate.frame;
@@ -975,16 +1034,15 @@ function flatSummary(
   t: BoundaryTable,
   k: number,
 ): boolean {
-  const flat = flatIntegration(b, plateIn, pa, pb, net, warn);
-  if (!flat) return false;
-  const { plate, it } = flat;
+  const it = flatIntegration(b, plateIn, pa, pb, net, warn);
+  if (!it) return false;
+  const plate = plateIn!;
   const F = it.netForceN;
   const peak = peakOf(it);
   // As flatNet (and in its order, before the checks' warnings): when the two sides nearly cancel the load is a couple, with no point of action.
   const cancels = nearlyCancels(F, it.sideForceA, it.sideForceB);
   if (cancels) warnCancels(b, F, Math.hypot(it.netMomentU - F * it.centroidU, it.netMomentV - F * it.centroidV), warn);
-  const ratingInput = { forceN: F, resultantN: Math.abs(F), maxPressurePa: it.peakMaxPa, minPressurePa: it.peakMinPa, peak: { pressurePa: peak } };
-  const { stiffeners, plating, shores, capacity, maxU } = flatChecks(b, plate, it, net, ratingInput, warn);
+  const checks = flatChecksLean(b, plate, it, net, peak, warn);
   const fr = plate.frame, n = fr.n, o = fr.origin, U = fr.u, W = fr.v;
   const hasCop = F !== 0 && !cancels;
   const cu = it.netMomentU / F, cv = it.netMomentV / F;
@@ -1009,11 +1067,11 @@ function flatSummary(
   t.normalZ[k] = n[2];
   t.peakPressurePa[k] = peak;
   t.signChange[k] = it.positive.forceN !== 0 && it.negative.forceN !== 0 ? 1 : 0;
-  t.capacityUtilisation[k] = capacity ? capacity.utilisation : NaN;
-  t.stiffenerUtilisation[k] = stiffeners?.maxUtilisation ?? NaN;
-  t.platingUtilisation[k] = plating?.maxUtilisation ?? NaN;
-  t.shoreUtilisation[k] = maxShoreUtilisation(shores) ?? NaN;
-  t.maxUtilisation[k] = maxU ?? NaN;
+  t.capacityUtilisation[k] = checks.capacity ?? NaN;
+  t.stiffenerUtilisation[k] = checks.stiffeners ?? NaN;
+  t.platingUtilisation[k] = checks.plating ?? NaN;
+  t.shoreUtilisation[k] = checks.shores ?? NaN;
+  t.maxUtilisation[k] = checks.maxU ?? NaN;
   return true;
 }
 
@@ -1034,29 +1092,51 @@ export const SHORES_ONLY_MODEL_WORDS =
   'Each shore carries the net pressure on the part of the plate nearer to it than to any other shore; the plate\'s edges are taken to carry nothing (on the safe side for the shores).';
 
 function shoreLoads(b: Boundary, plate: FlatPlate, net: PressureProfile, cuts: readonly number[], warn: Warn): ShoreResult[] {
+  const out: ShoreResult[] = [];
+  shoreCells(b, plate, net, cuts, warn, out);
+  return out;
+}
+
+const cellClip = new RegionClip();
+let cellU = new Float64Array(8), cellV = new Float64Array(8);
+
+/**
+ * Each shore's nearest-shore cell, cut from the plate's region with half-planes, and its net force:
+ * the shore results pushed to `out`, or (out null) only their utilisations written to shoreU.
+ */
+function shoreCells(b: Boundary, plate: FlatPlate, net: PressureProfile, cuts: readonly number[], warn: Warn, out: ShoreResult[] | null): void {
   const shores = b.shores!;
-  const fr = plate.frame;
-  const polys = regionAsPolygons(plate.region);
-  const pos = shores.map((s) => {
-    const d = sub(fromPoint(s.position), fr.origin);
-    return [dot(d, fr.u), dot(d, fr.v)] as [number, number];
-  });
-  return shores.map((s, i) => {
-    const cell: SignedShape[] = [];
-    for (const poly of polys) {
-      let pts = poly.pts;
-      for (let j = 0; j < shores.length && pts.length > 0; j++) {
+  const n = shores.length;
+  const fr = plate.frame, o = fr.origin, U = fr.u, V = fr.v;
+  if (cellU.length < n) {
+    cellU = new Float64Array(2 * n);
+    cellV = new Float64Array(2 * n);
+  }
+  for (let i = 0; i < n; i++) {
+    const p = shores[i].position;
+    const dx = p.x - o[0], dy = p.y - o[1], dz = p.z - o[2];
+    cellU[i] = dx * U[0] + dy * U[1] + dz * U[2];
+    cellV[i] = dx * V[0] + dy * V[1] + dz * V[2];
+  }
+  for (let i = 0; i < n; i++) {
+    const strips = zeroRegionStrips(cuts);
+    for (let r = 0; r < plate.region.length; r++) {
+      cellClip.start(plate.region[r].shape);
+      for (let j = 0; j < n && cellClip.len > 0; j++) {
         if (j === i) continue;
-        const ax = pos[j][0] - pos[i][0], ay = pos[j][1] - pos[i][1];
+        const ax = cellU[j] - cellU[i], ay = cellV[j] - cellV[i];
         if (ax === 0 && ay === 0) continue;
-        const c = (ax * (pos[i][0] + pos[j][0])) / 2 + (ay * (pos[i][1] + pos[j][1])) / 2;
-        pts = clipHalfPlane(pts, ax, ay, c);
+        const c = (ax * (cellU[i] + cellU[j])) / 2 + (ay * (cellV[i] + cellV[j])) / 2;
+        cellClip.clip(ax, ay, c);
       }
-      if (pts.length > 0) cell.push({ shape: { kind: 'polygon', pts }, sign: poly.sign });
+      if (cellClip.len > 0) addPolygonStrips(cellClip.pts, cellClip.len, plate.region[r].sign, cuts, strips);
     }
-    const { forceN, areaM2 } = regionNetForce(plate, cell, net, cuts);
-    return shoreResult(b, s, s.side === 'B' ? forceN : -forceN, 'plate', areaM2, warn);
-  });
+    const forceN = stripsNetForce(plate, net, cuts, strips);
+    const s = shores[i];
+    const towards = s.side === 'B' ? forceN : -forceN;
+    if (out) out.push(shoreResult(b, s, towards, 'plate', stripsArea(cuts, strips), warn));
+    else shoreU[i] = shoreUtilisation(b, s, towards, warn);
+  }
 }
 
 /**

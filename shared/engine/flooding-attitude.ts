@@ -22,6 +22,7 @@ import { earthFrame } from './frame';
 import { buildFloodModel } from './flooding-build';
 import { volumeAt } from './flooding-levels';
 import { SEA_IN, SEA_OUT, newStack, stackOf, type FloodFrame, type FloodModel } from './flooding-model';
+import { groundedAt, groundedResponse } from './grounding';
 import { intactShip } from './hydrostatics';
 import type { SurveyResults } from './results';
 import { conditionAtAttitude, floodWeightsAtLevels, responseFromWeights, type ShipAttitude, type ShipResponse, type StabilityWarning } from './stability';
@@ -166,10 +167,31 @@ export function attitudeCoupling(survey: Survey, condition: Condition, results0:
   const measured = measuredAttitude(survey, condition);
   let offset: Offset | null = null;
   let current: ShipAttitude | null = measured;
+  // Aground: the first response finds the reaction from the readings and with it the ground's depth
+  // at the point; later ones keep her draft there while the reaction stays positive (./grounding.ts).
+  const aground = condition.stability?.aground;
+  let groundDraftM: number | null | undefined;
+  let wasAground = false;
+  const respond = (weights: ReturnType<typeof weightsOfState>): ShipResponse => {
+    if (!aground) return responseFromWeights(survey, condition, weights)!;
+    if (groundDraftM === undefined) {
+      const first = groundedResponse(survey, condition, weights)!;
+      groundDraftM = first.ground?.groundDraftM ?? null;
+      wasAground = first.ground?.afloat === false;
+      return first;
+    }
+    if (groundDraftM === null) return responseFromWeights(survey, condition, weights)!;
+    const r = groundedAt(survey, condition, weights, { x: aground.position.x, y: aground.position.y ?? 0 }, groundDraftM)!;
+    if (!wasAground || !r.ground?.afloat) return r;
+    // the reaction has fallen to zero: she refloats (the words of a free ship, and the moment she comes off)
+    const words = r.warnings.filter((w) => w.code !== 'aground-afloat');
+    const come = { code: 'refloats', severity: 'warning' as const, message: `The ground reaction falls to zero: she refloats and floats free, GM fluid ${r.gmFluidM.toFixed(2)} m, heel ${Math.abs(r.attitude.heelDeg).toFixed(1)}° to ${r.attitude.heelDeg >= 0 ? 'starboard' : 'port'}.` };
+    return { ...r, warnings: [come, ...words] };
+  };
   return {
     basis: measured ? 'readings' : 'prediction',
     update(model, y) {
-      const response = responseFromWeights(survey, condition, weightsOfState(survey, model, y))!;
+      const response = respond(weightsOfState(survey, model, y));
       const p = response.attitude;
       offset ??= measured
         ? { aft: measured.draftAftM - p.draftAftM, fore: measured.draftForeM - p.draftForeM, tanHeel: tanDeg(measured.heelDeg) - tanDeg(p.heelDeg), stiffness: response.displacementKg * response.gmFluidM }

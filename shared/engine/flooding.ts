@@ -146,7 +146,15 @@ export interface FloodForecast {
    * the contents; `basis` says whether it starts from the readings) or 'present' (as read, held).
    * `series` and `gmFluidM` give it at each output time (GM null when not computed).
    */
-  attitude: { mode: 'present' | 'follows-response'; basis: 'readings' | 'prediction' | null; note: string; series: (ShipAttitude | null)[]; gmFluidM: (number | null)[] };
+  attitude: {
+    mode: 'present' | 'follows-response';
+    basis: 'readings' | 'prediction' | null;
+    note: string;
+    series: (ShipAttitude | null)[];
+    gmFluidM: (number | null)[];
+    /** The ground reaction at each output time, kg (0: afloat; null: not aground by the condition, or not computed). */
+    groundReactionKg: (number | null)[];
+  };
   /** Every downflooding point's freeboard over time and when it first goes under. */
   downflooding: DownfloodingForecast[];
   times: number[];
@@ -334,10 +342,10 @@ export function forecastFlooding(surveyIn: Survey, options: ForecastOptions = {}
   // the ship's response at each snapshot: re-frame the model at her new attitude, then carry on
   const coupling = options.attitude === 'present' ? null : attitudeCoupling(survey, condition, results0);
   const present = measuredAttitude(survey, condition);
-  type Snapshot = { t: number; y: Float64Array; m: FloodModel; condition: Condition; attitude: ShipAttitude | null; gmFluidM: number | null; warnings: { code: string; severity: EngineWarning['severity']; message: string }[] };
+  type Snapshot = { t: number; y: Float64Array; m: FloodModel; condition: Condition; attitude: ShipAttitude | null; gmFluidM: number | null; groundReactionKg: number | null; warnings: { code: string; severity: EngineWarning['severity']; message: string }[] };
   let y: Float64Array = Float64Array.from(y0);
   const snapshot = (t: number): Snapshot => {
-    if (!coupling) return { t, y: Float64Array.from(y), m: model, condition, attitude: present, gmFluidM: null, warnings: [] };
+    if (!coupling) return { t, y: Float64Array.from(y), m: model, condition, attitude: present, gmFluidM: null, groundReactionKg: null, warnings: [] };
     const u = coupling.update(model, y);
     y = u.y;
     if (u.model !== model) {
@@ -347,7 +355,7 @@ export function forecastFlooding(surveyIn: Survey, options: ForecastOptions = {}
       lin = floodLinearisation(model, rate, { dense: options.denseLinearAlgebra });
       dryLimits = new Map([...pumped].map((s) => [s, dryLimit(s)]));
     }
-    return { t, y: Float64Array.from(y), m: model, condition: u.condition, attitude: u.attitude, gmFluidM: u.response.gmFluidM, warnings: u.response.warnings };
+    return { t, y: Float64Array.from(y), m: model, condition: u.condition, attitude: u.attitude, gmFluidM: u.response.gmFluidM, groundReactionKg: u.response.ground?.reactionKg ?? null, warnings: u.response.warnings };
   };
   const snapshots: Snapshot[] = [snapshot(0)];
   let t = 0;
@@ -522,14 +530,16 @@ export function forecastFlooding(surveyIn: Survey, options: ForecastOptions = {}
       mode: coupling ? 'follows-response' : 'present',
       basis: coupling?.basis ?? null,
       note: coupling
-        ? coupling.basis === 'readings'
+        ? (coupling.basis === 'readings'
           ? "Draft, trim and heel follow the ship's response: from the readings, they change as the model predicts at every output time, and the levels and loads follow."
           : "Draft, trim and heel follow the ship's response (drafts or heel not read: the predicted attitude throughout), and the levels and loads follow."
+        ) + (condition.stability?.aground ? ' She is aground: the ground holds her draft at the grounding point (tide taken as constant) while its reaction lasts, and she floats free once it falls to zero.' : '')
         : options.attitude === 'present'
           ? "The ship's present attitude (drafts and heel as read) is held throughout the forecast."
           : "The ship's present attitude (drafts and heel as read) is held throughout: no hydrostatic particulars, so the response is not computed.",
       series: snapshots.map((s) => s.attitude),
       gmFluidM: snapshots.map((s) => s.gmFluidM),
+      groundReactionKg: snapshots.map((s) => s.groundReactionKg),
     },
     downflooding: downfloodingOverTime(survey, snapshots.map((s) => s.m.frame), times),
     times,

@@ -24,7 +24,8 @@ export {
   floodWeightsAtLevels,
   floodWeightsFromResults,
   responseFromWeights,
-  shipResponseOf,
+  type GroundForce,
+  type GroundState,
   LARGE_TRIM_FRACTION,
   SMALL_ANGLE_LIMIT_DEG,
   type FloodWeight,
@@ -32,6 +33,7 @@ export {
   type ShipResponse,
   type StabilityWarning,
 } from './stability';
+export { draftAtX, groundedAt, groundedResponse, shipResponseOf } from './grounding';
 export { boxBmL, boxBmT, boxKb, intactShip, type IntactShip } from './hydrostatics';
 export {
   downfloodingFreeboards,
@@ -57,4 +59,4 @@ export { soundingEvidence, type SoundingEvidence } from './flooding-soundings';
 export { ATTITUDE_STEP_M, conditionAtPredictedAttitude, type DownfloodingForecast } from './flooding-attitude';
 export { dormandPrince, rosenbrock23, type Linearisation } from './flooding-ode';
 export { bandFactorise, bandPays, bandSolve, bandwidths, denseFactorise, denseSolve, newBandLu, reverseCuthillMcKee, type BandLu } from './sparse-band';
-export { levelOfMouldedVolume, splitOwnLiquid, tankFloodRoom, TANK_PERMEABILITY_SOURCE, type OwnSplit, type TankRoom } from './tank-contents';
+export { levelOfMouldedVolume, mouldedVolumeM3, splitOwnLiquid, tankFloodRoom, TANK_PERMEABILITY_SOURCE, type OwnSplit, type TankRoom } from './tank-contents';

@@ -115,19 +115,32 @@ export function splitAtVInto(p: ArrayLike<number>, n: number, c: number, below: 
 
 /** Keeps the part of a polygon where a·u + b·v ≤ c (Sutherland–Hodgman). */
 export function clipHalfPlane(p: readonly number[], a: number, b: number, c: number): number[] {
-  const out: number[] = [];
-  const n = p.length;
+  const out = new Float64Array(2 * p.length + 4);
+  const len = clipHalfPlaneInto(p, p.length, a, b, c, out);
+  return Array.from(out.subarray(0, len));
+}
+
+/**
+ * clipHalfPlane over the first n numbers of p, written into out (room for 2n + 4 numbers); returns
+ * the length written, 0 when fewer than 3 vertices are left. Allocation-free, for the hot loops.
+ */
+export function clipHalfPlaneInto(p: ArrayLike<number>, n: number, a: number, b: number, c: number, out: Float64Array): number {
+  let m = 0;
   for (let i = 0; i < n; i += 2) {
     const j = i + 2 < n ? i + 2 : 0;
     const x0 = p[i], y0 = p[i + 1], x1 = p[j], y1 = p[j + 1];
     const d0 = a * x0 + b * y0 - c, d1 = a * x1 + b * y1 - c;
-    if (d0 <= 0) out.push(x0, y0);
+    if (d0 <= 0) {
+      out[m++] = x0;
+      out[m++] = y0;
+    }
     if ((d0 < 0 && d1 > 0) || (d0 > 0 && d1 < 0)) {
       const t = d0 / (d0 - d1);
-      out.push(x0 + t * (x1 - x0), y0 + t * (y1 - y0));
+      out[m++] = x0 + t * (x1 - x0);
+      out[m++] = y0 + t * (y1 - y0);
     }
   }
-  return out.length >= 6 ? out : [];
+  return m >= 6 ? m : 0;
 }
 
 /** Total length of the chord(s) of a polygon along the line v = c. */

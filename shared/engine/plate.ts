@@ -8,6 +8,7 @@
 import {
   circleStripMomentsInto,
   circleWidthAtV,
+  clipHalfPlaneInto,
   polygonMoments,
   polygonMomentsInto,
   polygonWidthAtV,
@@ -283,28 +284,72 @@ export function stripMomentsInto(region: readonly SignedShape[], cuts: readonly 
         if (hi > lo) circleStripMomentsInto(shape.uc, shape.vc, shape.r, lo, hi, acc, 5 * i, sign);
       }
     } else {
-      let rest: ArrayLike<number> = shape.pts;
-      let restLen = shape.pts.length;
-      let useA = true;
-      for (let i = 0; i < nStrips && restLen > 0; i++) {
-        if (i === nStrips - 1) {
-          polygonMomentsInto(rest, restLen, acc, 5 * i, sign);
-        } else {
-          const need = 2 * restLen + 4;
-          splitBelow = grown(splitBelow, need);
-          let above: Float64Array;
-          if (useA) above = splitAboveA = grown(splitAboveA, need);
-          else above = splitAboveB = grown(splitAboveB, need);
-          splitAtVInto(rest, restLen, cuts[i + 1], splitBelow, above, splitLens);
-          if (splitLens[0] > 0) polygonMomentsInto(splitBelow, splitLens[0], acc, 5 * i, sign);
-          rest = above;
-          restLen = splitLens[1];
-          useA = !useA;
-        }
-      }
+      addPolygonStrips(shape.pts, shape.pts.length, sign, cuts, acc);
     }
   }
   return acc;
+}
+
+/**
+ * Adds sign × the moments of each strip of the polygon pts[0..len) between consecutive cuts into
+ * acc[5i .. 5i+5) (a, su, sv, suv, svv), as stripMomentsInto does for each polygon of a region.
+ */
+export function addPolygonStrips(pts: ArrayLike<number>, len: number, sign: number, cuts: readonly number[], acc: Float64Array): void {
+  const nStrips = cuts.length - 1;
+  let rest: ArrayLike<number> = pts;
+  let restLen = len;
+  let useA = true;
+  for (let i = 0; i < nStrips && restLen > 0; i++) {
+    if (i === nStrips - 1) {
+      polygonMomentsInto(rest, restLen, acc, 5 * i, sign);
+    } else {
+      const need = 2 * restLen + 4;
+      splitBelow = grown(splitBelow, need);
+      let above: Float64Array;
+      if (useA) above = splitAboveA = grown(splitAboveA, need);
+      else above = splitAboveB = grown(splitAboveB, need);
+      splitAtVInto(rest, restLen, cuts[i + 1], splitBelow, above, splitLens);
+      if (splitLens[0] > 0) polygonMomentsInto(splitBelow, splitLens[0], acc, 5 * i, sign);
+      rest = above;
+      restLen = splitLens[1];
+      useA = !useA;
+    }
+  }
+}
+
+/** Region strip moments for the callers that clip a region first (zeroed by zeroRegionStrips). */
+let regionStrips: Float64Array = new Float64Array(5 * 16);
+
+/** A zeroed strip-moment accumulator for the plate's cuts, valid until the next call. */
+export function zeroRegionStrips(cuts: readonly number[]): Float64Array {
+  const n = 5 * (cuts.length - 1);
+  regionStrips = grown(regionStrips, n);
+  regionStrips.fill(0, 0, n);
+  return regionStrips;
+}
+
+/** ∫p dA of the net pressure over strip moments accumulated for the plate's cuts, N (as regionNetForce). */
+export function stripsNetForce(plate: FlatPlate, net: PressureProfile, cuts: readonly number[], strips: Float64Array): number {
+  const fr = plate.frame;
+  let force = 0;
+  for (let k = 0; k + 1 < cuts.length; k++) {
+    const ma = strips[5 * k], msv = strips[5 * k + 2];
+    if (ma === 0) continue;
+    const jn = intervalAt(net, fr.e0 + fr.k * 0.5 * (cuts[k] + cuts[k + 1]));
+    force += (net.a[jn] + net.b[jn] * fr.e0) * ma + net.b[jn] * fr.k * msv;
+  }
+  return force;
+}
+
+/** The area of strip moments accumulated for the plate's cuts, m² (as regionNetForce). */
+export function stripsArea(cuts: readonly number[], strips: Float64Array): number {
+  let area = 0;
+  for (let k = 0; k + 1 < cuts.length; k++) {
+    const ma = strips[5 * k];
+    if (ma === 0) continue;
+    area += ma;
+  }
+  return area;
 }
 
 /** Net chord width of a region at v = c. */
@@ -467,14 +512,14 @@ export function integratePlate(
     }
   }
   const nInner = sortUniqueInPlace(cutBuf, nc, vMax - vMin);
-  // the cuts live in `out` (a scratch integration reuses its array: no allocation per plate)
-  // one small array per plate: the stiffener, shore and plating checks read the cuts after this returns
+  // the cuts live in `out`, whose array is rewritten in place (a scratch integration reuses it:
+  // no allocation per plate); the stiffener, shore and plating checks read them after this returns
   const nCuts = nInner + 2;
-  const cuts = new Array<number>(nCuts);
+  const cuts = out.cuts;
+  if (cuts.length > nCuts) cuts.length = nCuts;
   cuts[0] = vMin;
   for (let i = 0; i < nInner; i++) cuts[i + 1] = cutBuf[i];
   cuts[nCuts - 1] = vMax;
-  out.cuts = cuts;
   const nStrips = nInner + 1;
   const m = stripMomentsInto(plate.region, cuts);
 
@@ -631,17 +676,8 @@ export function loadDiagram(plate: FlatPlate, net: PressureProfile, cuts: readon
  * linear in v between consecutive cuts (the plate's cuts from integratePlate).
  */
 export function regionNetForce(plate: FlatPlate, region: readonly SignedShape[], net: PressureProfile, cuts: readonly number[]): { forceN: number; areaM2: number } {
-  const fr = plate.frame;
   const strips = stripMomentsInto(region, cuts);
-  let force = 0, area = 0;
-  for (let k = 0; k + 1 < cuts.length; k++) {
-    const ma = strips[5 * k], msv = strips[5 * k + 2];
-    if (ma === 0) continue;
-    area += ma;
-    const jn = intervalAt(net, fr.e0 + fr.k * 0.5 * (cuts[k] + cuts[k + 1]));
-    force += (net.a[jn] + net.b[jn] * fr.e0) * ma + net.b[jn] * fr.k * msv;
-  }
-  return { forceN: force, areaM2: area };
+  return { forceN: stripsNetForce(plate, net, cuts, strips), areaM2: stripsArea(cuts, strips) };
 }
 
 /** Sides of the inscribed polygon that stands for a circle where a region must be clipped (area error < 2.6e-5). */
@@ -651,11 +687,67 @@ export const CIRCLE_AS_POLYGON_SIDES = 512;
 export function regionAsPolygons(region: readonly SignedShape[]): { pts: number[]; sign: 1 | -1 }[] {
   return region.map(({ shape, sign }) => {
     if (shape.kind === 'polygon') return { pts: shape.pts, sign };
-    const pts: number[] = [];
-    for (let i = 0; i < CIRCLE_AS_POLYGON_SIDES; i++) {
-      const a = (2 * Math.PI * i) / CIRCLE_AS_POLYGON_SIDES;
-      pts.push(shape.uc + shape.r * Math.cos(a), shape.vc + shape.r * Math.sin(a));
-    }
-    return { pts, sign };
+    return { pts: Array.from(circleOutline(shape)), sign };
   });
+}
+
+/** cos and sin of the inscribed polygon's vertex angles (2π i / 512), worked out once. */
+const CIRCLE_COS = new Float64Array(CIRCLE_AS_POLYGON_SIDES);
+const CIRCLE_SIN = new Float64Array(CIRCLE_AS_POLYGON_SIDES);
+for (let i = 0; i < CIRCLE_AS_POLYGON_SIDES; i++) {
+  const a = (2 * Math.PI * i) / CIRCLE_AS_POLYGON_SIDES;
+  CIRCLE_COS[i] = Math.cos(a);
+  CIRCLE_SIN[i] = Math.sin(a);
+}
+const circleBuf = new Float64Array(2 * CIRCLE_AS_POLYGON_SIDES);
+
+/** A circle's inscribed 512-gon as a flat u, v list (scratch, valid until the next call). */
+function circleOutline(c: Extract<Shape2D, { kind: 'circle' }>): Float64Array {
+  for (let i = 0; i < CIRCLE_AS_POLYGON_SIDES; i++) {
+    circleBuf[2 * i] = c.uc + c.r * CIRCLE_COS[i];
+    circleBuf[2 * i + 1] = c.vc + c.r * CIRCLE_SIN[i];
+  }
+  return circleBuf;
+}
+
+/**
+ * One shape of a region as a polygon for clipping: a polygon's own points, or a circle's inscribed
+ * 512-gon in scratch space (valid until the next call). Its length is shapeOutlineLength(shape).
+ */
+export function shapeOutline(shape: Shape2D): ArrayLike<number> {
+  return shape.kind === 'polygon' ? shape.pts : circleOutline(shape);
+}
+
+export function shapeOutlineLength(shape: Shape2D): number {
+  return shape.kind === 'polygon' ? shape.pts.length : 2 * CIRCLE_AS_POLYGON_SIDES;
+}
+
+/**
+ * Clips one shape of a region by half-planes in turn without allocating: start(shape), then
+ * clip(a, b, c) keeps the part where a·u + b·v ≤ c (clipHalfPlane); the result is pts[0..len),
+ * len 0 once fewer than 3 vertices are left. Two buffers alternate, so a clip never reads what it
+ * writes; each caller keeps its own clipper, valid until its next start.
+ */
+export class RegionClip {
+  pts: ArrayLike<number> = [];
+  len = 0;
+  private bufA: Float64Array = new Float64Array(64);
+  private bufB: Float64Array = new Float64Array(64);
+  private useA = true;
+
+  start(shape: Shape2D): void {
+    this.pts = shapeOutline(shape);
+    this.len = shapeOutlineLength(shape);
+  }
+
+  clip(a: number, b: number, c: number): void {
+    if (this.len === 0) return;
+    const need = 2 * this.len + 4;
+    let out: Float64Array;
+    if (this.useA) out = this.bufA = grown(this.bufA, need);
+    else out = this.bufB = grown(this.bufB, need);
+    this.len = clipHalfPlaneInto(this.pts, this.len, a, b, c, out);
+    this.pts = out;
+    this.useA = !this.useA;
+  }
 }

@@ -65,16 +65,24 @@ export function pressureAt(p: PressureProfile, eta: number): number {
 
 /** side A − side B as one profile (a merge of the two ascending breakpoint lists). */
 export function differenceProfile(pa: PressureProfile, pb: PressureProfile): PressureProfile {
+  return differenceProfileInto(pa, pb, { breaks: [], a: [], b: [], liquidTop: -Infinity });
+}
+
+/** differenceProfile written into `out`, whose arrays are rewritten in place (a scratch profile: no allocation). */
+export function differenceProfileInto(pa: PressureProfile, pb: PressureProfile, out: PressureProfile): PressureProfile {
   const ba = pa.breaks, bb = pb.breaks;
   const na = ba.length, nb = bb.length;
-  const uniq: number[] = [];
+  const uniq = out.breaks;
+  let n = 0;
   for (let i = 0, j = 0; i < na || j < nb; ) {
     const e = j >= nb || (i < na && ba[i] <= bb[j]) ? ba[i++] : bb[j++];
-    if (uniq.length === 0 || e > uniq[uniq.length - 1]) uniq.push(e);
+    if (n === 0 || e > uniq[n - 1]) uniq[n++] = e;
   }
-  const n = uniq.length;
-  const a = new Array<number>(n + 1);
-  const b = new Array<number>(n + 1);
+  if (uniq.length > n) uniq.length = n;
+  const a = out.a;
+  const b = out.b;
+  if (a.length > n + 1) a.length = n + 1;
+  if (b.length > n + 1) b.length = n + 1;
   let ia = 0, ib = 0;
   for (let k = 0; k <= n; k++) {
     // interval below uniq[k]; indices ia, ib are the source intervals containing it
@@ -86,5 +94,6 @@ export function differenceProfile(pa: PressureProfile, pb: PressureProfile): Pre
       while (ib < nb && bb[ib] <= e) ib++;
     }
   }
-  return { breaks: uniq, a, b, liquidTop: Math.max(pa.liquidTop, pb.liquidTop) };
+  out.liquidTop = Math.max(pa.liquidTop, pb.liquidTop);
+  return out;
 }

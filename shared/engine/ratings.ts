@@ -15,22 +15,49 @@ export function capacitiesOf(
   const rc = b.ratedCapacity;
   if (rc) {
     const rated = rc.kind === 'pressure' ? rc.pressurePa : rc.forceN;
-    const actual = rc.kind === 'pressure' ? Math.abs(net.peak.pressurePa) : net.resultantN;
+    const actual = eitherWayActual(rc.kind, net.peak.pressurePa, net.resultantN);
     out.push({ kind: rc.kind, direction: 'either', rated, actual, utilisation: actual / rated });
   }
   const dc = b.directionalCapacity;
   if (dc) {
-    const towardsB = dc.kind === 'pressure' ? Math.max(0, net.maxPressurePa) : Math.max(0, net.forceN);
-    const towardsA = dc.kind === 'pressure' ? Math.max(0, -net.minPressurePa) : Math.max(0, -net.forceN);
+    const towardsB = towardsBActual(dc.kind, net.maxPressurePa, net.forceN);
+    const towardsA = towardsAActual(dc.kind, net.minPressurePa, net.forceN);
     if (dc.towardsB !== undefined) out.push({ kind: dc.kind, direction: 'towards-B', rated: dc.towardsB, actual: towardsB, utilisation: towardsB / dc.towardsB });
     if (dc.towardsA !== undefined) out.push({ kind: dc.kind, direction: 'towards-A', rated: dc.towardsA, actual: towardsA, utilisation: towardsA / dc.towardsA });
   }
   return out;
 }
 
+type RatingKind = CapacityResult['kind'];
+const eitherWayActual = (kind: RatingKind, peakPa: number, resultantN: number): number => (kind === 'pressure' ? Math.abs(peakPa) : resultantN);
+const towardsBActual = (kind: RatingKind, maxPa: number, forceN: number): number => (kind === 'pressure' ? Math.max(0, maxPa) : Math.max(0, forceN));
+const towardsAActual = (kind: RatingKind, minPa: number, forceN: number): number => (kind === 'pressure' ? Math.max(0, -minPa) : Math.max(0, -forceN));
+
 /** The rating with the highest utilisation, or null. */
 export function governingCapacity(list: readonly CapacityResult[]): CapacityResult | null {
   let best: CapacityResult | null = null;
   for (const c of list) if (best === null || c.utilisation > best.utilisation) best = c;
+  return best;
+}
+
+/**
+ * governingCapacity(capacitiesOf(b, net))?.utilisation ?? null from the net load's numbers, without
+ * building the list (the summary's path): N, N, Pa, Pa, Pa.
+ */
+export function governingUtilisation(b: Pick<Boundary, 'ratedCapacity' | 'directionalCapacity'>, forceN: number, resultantN: number, maxPressurePa: number, minPressurePa: number, peakPa: number): number | null {
+  let best: number | null = null;
+  const rc = b.ratedCapacity;
+  if (rc) best = eitherWayActual(rc.kind, peakPa, resultantN) / (rc.kind === 'pressure' ? rc.pressurePa : rc.forceN);
+  const dc = b.directionalCapacity;
+  if (dc) {
+    if (dc.towardsB !== undefined) {
+      const u = towardsBActual(dc.kind, maxPressurePa, forceN) / dc.towardsB;
+      if (best === null || u > best) best = u;
+    }
+    if (dc.towardsA !== undefined) {
+      const u = towardsAActual(dc.kind, minPressurePa, forceN) / dc.towardsA;
+      if (best === null || u > best) best = u;
+    }
+  }
   return best;
 }

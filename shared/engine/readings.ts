@@ -38,11 +38,19 @@ export function missingCompartmentReadings(survey: Survey, condition: Condition)
   const out = new Map<string, string[]>();
   for (const comp of survey.compartments) {
     const k = contents.get(comp.id);
-    const layers = k ? k.layers : comp.openToSea ? [{ level: { kind: 'openToSea' as const } }] : [];
-    if (layers.length === 0) continue;
-    const missing = [...ship];
-    for (const l of layers) if (levelReadingMissing(l.level)) missing.push(`${levelWord(l.level)} in ${comp.name}`);
-    if (missing.length > 0) out.set(comp.id, missing);
+    // an open-to-sea space's level is the sea's: no reading of its own
+    if (!k) {
+      if (comp.openToSea && ship.length > 0) out.set(comp.id, [...ship]);
+      continue;
+    }
+    let missing: string[] | null = null;
+    for (const l of k.layers) {
+      if (!levelReadingMissing(l.level)) continue;
+      missing ??= [...ship];
+      missing.push(`${levelWord(l.level)} in ${comp.name}`);
+    }
+    if (missing) out.set(comp.id, missing);
+    else if (ship.length > 0 && k.layers.length > 0) out.set(comp.id, [...ship]);
   }
   return out;
 }
@@ -78,13 +86,20 @@ export function withheldItems(survey: Survey, condition: Condition): { compartme
   const compartments = new Map<string, Withheld>();
   for (const [id, missing] of byComp) compartments.set(id, { entityId: id, kind: 'compartment', name: names.get(id)?.name ?? id, missing });
   const boundaries = new Map<string, Withheld>();
+  if (ship.length === 0 && byComp.size === 0) return { compartments, boundaries };
   for (const b of survey.boundaries) {
-    const missing = new Set<string>();
-    for (const side of [b.sideA, b.sideB]) {
-      if (side.kind === 'sea') ship.forEach((m) => missing.add(m));
-      else if (side.kind === 'compartment') byComp.get(side.compartmentId)?.forEach((m) => missing.add(m));
-    }
-    if (missing.size > 0) boundaries.set(b.id, { entityId: b.id, kind: 'boundary', name: b.name, missing: [...missing] });
+    const a = sideMissing(b.sideA, ship, byComp), c = sideMissing(b.sideB, ship, byComp);
+    if (!a && !c) continue;
+    const missing = new Set<string>(a);
+    if (c) for (const m of c) missing.add(m);
+    boundaries.set(b.id, { entityId: b.id, kind: 'boundary', name: b.name, missing: [...missing] });
   }
   return { compartments, boundaries };
+}
+
+/** The readings a boundary side rests on that are missing, or null (the sea rests on the ship's readings). */
+function sideMissing(side: Survey['boundaries'][number]['sideA'], ship: readonly string[], byComp: ReadonlyMap<string, string[]>): readonly string[] | null {
+  if (side.kind === 'sea') return ship.length > 0 ? ship : null;
+  if (side.kind === 'compartment') return byComp.get(side.compartmentId) ?? null;
+  return null;
 }

@@ -18,14 +18,12 @@
  */
 import type { Boundary } from '../schemas/survey';
 import { edgeWords } from '../units/point-words';
-import { solveBeam, type BeamResult, type EndFixity } from './beam';
-import { clipHalfPlane } from './plane-integrals';
-import { evalProfile, regionAsPolygons, regionNetForce, type FlatPlate, type SignedShape } from './plate';
+import { BEAM_OUT, beamResultOf, solveBeamInto, type EndFixity } from './beam';
+import { addPolygonStrips, evalProfile, RegionClip, stripsNetForce, zeroRegionStrips, type FlatPlate } from './plate';
 import type { PressureProfile } from './profile';
 import type { Severity, ShoreResult, StiffenerItem, StiffenerResult } from './results';
 import type { PanelInput } from './plating';
-import { shoreResult } from './shore-check';
-import { dot, fromPoint, sub } from './vec';
+import { shoreResult, shoreUtilisation } from './shore-check';
 
 type Warn = (code: string, s: Severity, id: string | null, m: string) => void;
 
@@ -41,30 +39,122 @@ export const STIFFENED_MODEL_WORDS =
 const GX = [-Math.sqrt(3 / 5), 0, Math.sqrt(3 / 5)];
 const GW = [5 / 9, 8 / 9, 5 / 9];
 
-interface Line {
-  /** Across-coordinate of the line, m (plate axes projected on the across direction). */
-  t: number;
-  /** Along-coordinate of the start and end, m. */
-  s0: number;
-  s1: number;
-  /** Tributary width, m. */
-  width: number;
-  stations: number[];
-  q: number[];
-  base: BeamResult;
+// ---- scratch (the engine is synchronous and never re-entered): every array grows, never shrinks
+function grownF(a: Float64Array<ArrayBuffer>, need: number): Float64Array<ArrayBuffer> {
+  if (a.length >= need) return a;
+  const b = new Float64Array(Math.max(need, 2 * a.length));
+  b.set(a);
+  return b;
+}
+function grownI(a: Int32Array<ArrayBuffer>, need: number): Int32Array<ArrayBuffer> {
+  if (a.length >= need) return a;
+  const b = new Int32Array(Math.max(need, 2 * a.length));
+  b.set(a);
+  return b;
 }
 
-/** Ship point to plate (u, v). */
-function toPlate(plate: FlatPlate, p: { x: number; y: number; z: number }): [number, number] {
-  const d = sub(fromPoint(p), plate.frame.origin);
-  return [dot(d, plate.frame.u), dot(d, plate.frame.v)];
+/**
+ * The model of the plate last solved (solveStiffened): the stiffener lines (across-coordinate t,
+ * span s0..s1, tributary width), each line's stations and loads (line k's are st[stOff[k] ..
+ * stOff[k + 1])), its beam without shores, its final beam, check and shore forces, and each shore's
+ * bearing (up to two parts: line, lever fraction, distance from the line's start) and reaction.
+ */
+const S = {
+  nL: 0,
+  lineT: new Float64Array(16),
+  lineS0: new Float64Array(16),
+  lineS1: new Float64Array(16),
+  lineW: new Float64Array(16),
+  /** Reaction at the start of the line's beam as simply supported (fixed ends only), NaN until needed. */
+  lineSsRa: new Float64Array(16),
+  stOff: new Int32Array(17),
+  st: new Float64Array(64),
+  q: new Float64Array(64),
+  base: new Float64Array(16 * BEAM_OUT),
+  item: new Float64Array(16 * BEAM_OUT),
+  itemRequired: new Float64Array(16),
+  itemU: new Float64Array(16),
+  itemShoreForces: new Float64Array(16),
+  nShores: 0,
+  /** 0 panel, 1 stiffener, 2 edge. */
+  bearsOn: new Int32Array(8),
+  nParts: new Int32Array(8),
+  partLine: new Int32Array(16),
+  partF: new Float64Array(16),
+  partX: new Float64Array(16),
+  partW0: new Float64Array(16),
+  edgeF: new Float64Array(8),
+  sigma: new Float64Array(8),
+  active: new Int32Array(8),
+  R: new Float64Array(8),
+  idx: new Int32Array(8),
+  A: new Float64Array(64),
+  rhs: new Float64Array(64),
+  aug: new Float64Array(72),
+  sol: new Float64Array(8),
+  pointAt: new Float64Array(8),
+  pointF: new Float64Array(8),
+  knots: new Float64Array(64),
+  tMin: 0,
+  tMax: 0,
+  pu: 0,
+  pv: 0,
+  du: 0,
+  dv: 0,
+  truncated: false,
+  best: -1,
+  bestU: 0,
+  edgeStrips: 0,
+  edgeLever: 0,
+};
+
+const BEARS_ON: readonly ShoreResult['bearsOn'][] = ['panel', 'stiffener', 'edge'];
+
+function ensureLines(n: number): void {
+  if (S.lineT.length >= n) return;
+  const m = 2 * n;
+  S.lineT = grownF(S.lineT, m);
+  S.lineS0 = grownF(S.lineS0, m);
+  S.lineS1 = grownF(S.lineS1, m);
+  S.lineW = grownF(S.lineW, m);
+  S.lineSsRa = grownF(S.lineSsRa, m);
+  S.stOff = grownI(S.stOff, m + 1);
+  S.base = grownF(S.base, m * BEAM_OUT);
+  S.item = grownF(S.item, m * BEAM_OUT);
+  S.itemRequired = grownF(S.itemRequired, m);
+  S.itemU = grownF(S.itemU, m);
+  S.itemShoreForces = grownF(S.itemShoreForces, m);
 }
 
-/** Moment at x (from the start) of a simply supported beam under the stations' load. */
-function ssMoment(st: readonly number[], q: readonly number[], ra: number, x: number): number {
+function ensureShores(n: number): void {
+  if (S.bearsOn.length < n) {
+    const m = 2 * n;
+    S.bearsOn = grownI(S.bearsOn, m);
+    S.nParts = grownI(S.nParts, m);
+    S.partLine = grownI(S.partLine, 2 * m);
+    S.partF = grownF(S.partF, 2 * m);
+    S.partX = grownF(S.partX, 2 * m);
+    S.partW0 = grownF(S.partW0, 2 * m);
+    S.edgeF = grownF(S.edgeF, m);
+    S.sigma = grownF(S.sigma, m);
+    S.active = grownI(S.active, m);
+    S.R = grownF(S.R, m);
+    S.idx = grownI(S.idx, m);
+    S.sol = grownF(S.sol, m);
+    S.pointAt = grownF(S.pointAt, 2 * m);
+    S.pointF = grownF(S.pointF, 2 * m);
+  }
+  S.A = grownF(S.A, n * n);
+  S.rhs = grownF(S.rhs, n);
+  S.aug = grownF(S.aug, n * (n + 1));
+}
+
+/** Moment at x (from the start) of line k as a simply supported beam under its stations' load, with start reaction ra. */
+function ssMoment(k: number, ra: number, x: number): number {
+  const st = S.st, q = S.q, lo = S.stOff[k], hi = S.stOff[k + 1];
   let m = ra * x;
-  const s0 = st[0];
-  for (let i = 0; i + 1 < st.length; i++) {
+  const s0 = st[lo];
+  for (let i = lo; i + 1 < hi; i++) {
     const a = st[i] - s0, b = Math.min(st[i + 1] - s0, x);
     if (b <= a) break;
     const h = st[i + 1] - st[i];
@@ -78,20 +168,42 @@ function ssMoment(st: readonly number[], q: readonly number[], ra: number, x: nu
   return m;
 }
 
-/** EI × deflection at x of the beam under its own distributed load (virtual work with the ss unit-load moment). */
-function distributedDeflection(line: Line, fixity: EndFixity, x: number): number {
-  const st = line.stations, s0 = st[0];
-  const L = st[st.length - 1] - s0;
-  const ra = fixity === 'fixed' ? solveBeam(st, line.q, 'simply-supported').reactionStartN : line.base.reactionStartN;
-  const MA = fixity === 'fixed' ? line.base.endMomentStartNm : 0, MB = fixity === 'fixed' ? line.base.endMomentEndNm : 0;
-  const knots = [...st.map((v) => v - s0), x].sort((a, b) => a - b);
+const ssOut = new Float64Array(BEAM_OUT);
+
+/** EI × deflection at x of line k's beam under its own distributed load (virtual work with the ss unit-load moment). */
+function distributedDeflection(k: number, fixity: EndFixity, x: number): number {
+  const st = S.st, lo = S.stOff[k], hi = S.stOff[k + 1], n = hi - lo;
+  const s0 = st[lo];
+  const L = st[hi - 1] - s0;
+  const base = k * BEAM_OUT;
+  let ra: number;
+  if (fixity === 'fixed') {
+    if (Number.isNaN(S.lineSsRa[k])) S.lineSsRa[k] = solveBeamInto(st, S.q, lo, n, 'simply-supported', ssOut, ssOut, 0, ssOut)[2];
+    ra = S.lineSsRa[k];
+  } else {
+    ra = S.base[base + 2];
+  }
+  const MA = fixity === 'fixed' ? S.base[base + 6] : 0, MB = fixity === 'fixed' ? S.base[base + 7] : 0;
+  // the knots: the stations from the start and x, ascending
+  S.knots = grownF(S.knots, n + 1);
+  const knots = S.knots;
+  let nk = 0, placed = false;
+  for (let i = lo; i < hi; i++) {
+    const v = st[i] - s0;
+    if (!placed && x < v) {
+      knots[nk++] = x;
+      placed = true;
+    }
+    knots[nk++] = v;
+  }
+  if (!placed) knots[nk++] = x;
   let sum = 0;
-  for (let i = 0; i + 1 < knots.length; i++) {
+  for (let i = 0; i + 1 < nk; i++) {
     const a = knots[i], b = knots[i + 1];
     if (b <= a) continue;
     for (let g = 0; g < 3; g++) {
       const s = a + 0.5 * (1 + GX[g]) * (b - a);
-      const M = ssMoment(st, line.q, ra, s) + MA * (1 - s / L) + MB * (s / L);
+      const M = ssMoment(k, ra, s) + MA * (1 - s / L) + MB * (s / L);
       const mbar = s <= x ? (s * (L - x)) / L : (x * (L - s)) / L;
       sum += GW[g] * 0.5 * (b - a) * M * mbar;
     }
@@ -107,40 +219,56 @@ export function pointDeflection(L: number, fixity: EndFixity, a: number, x: numb
   return (b * b * x * x * (3 * a * L - 3 * a * x - b * x)) / (6 * L * L * L);
 }
 
-/** Solves A r = rhs (small dense system, partial pivoting); null when singular. */
-function solveDense(A: number[][], rhs: number[]): number[] | null {
-  const n = rhs.length;
-  const M = A.map((row, i) => [...row, rhs[i]]);
-  const scale = Math.max(1e-300, ...A.map((r, i) => Math.abs(r[i])));
+/**
+ * Solves A r = rhs for the first n unknowns (A row-major n × n, small and dense, partial pivoting)
+ * into S.sol; false when singular.
+ */
+function solveDense(n: number): boolean {
+  const A = S.A, rhs = S.rhs, M = S.aug, w = n + 1;
+  let scale = 1e-300;
+  for (let i = 0; i < n; i++) {
+    M[i * w + n] = rhs[i];
+    for (let j = 0; j < n; j++) M[i * w + j] = A[i * n + j];
+    scale = Math.max(scale, Math.abs(A[i * n + i]));
+  }
   for (let c = 0; c < n; c++) {
     let p = c;
-    for (let r = c + 1; r < n; r++) if (Math.abs(M[r][c]) > Math.abs(M[p][c])) p = r;
-    if (Math.abs(M[p][c]) < 1e-12 * scale) return null;
-    [M[c], M[p]] = [M[p], M[c]];
+    for (let r = c + 1; r < n; r++) if (Math.abs(M[r * w + c]) > Math.abs(M[p * w + c])) p = r;
+    if (Math.abs(M[p * w + c]) < 1e-12 * scale) return false;
+    if (p !== c) {
+      for (let k = 0; k < w; k++) {
+        const t = M[c * w + k];
+        M[c * w + k] = M[p * w + k];
+        M[p * w + k] = t;
+      }
+    }
     for (let r = c + 1; r < n; r++) {
-      const f = M[r][c] / M[c][c];
-      for (let k = c; k <= n; k++) M[r][k] -= f * M[c][k];
+      const f = M[r * w + c] / M[c * w + c];
+      for (let k = c; k <= n; k++) M[r * w + k] -= f * M[c * w + k];
     }
   }
-  const x = new Array<number>(n).fill(0);
+  const x = S.sol;
   for (let r = n - 1; r >= 0; r--) {
-    let v = M[r][n];
-    for (let k = r + 1; k < n; k++) v -= M[r][k] * x[k];
-    x[r] = v / M[r][r];
+    let v = M[r * w + n];
+    for (let k = r + 1; k < n; k++) v -= M[r * w + k] * x[k];
+    x[r] = v / M[r * w + r];
   }
-  return x;
+  return true;
 }
+
+const bandClip = new RegionClip();
 
 /** Net force on the part of the plate with tLo ≤ t ≤ tHi (t = u pu + v pv), N, exact. */
 function stripForce(plate: FlatPlate, net: PressureProfile, cuts: readonly number[], pu: number, pv: number, tLo: number, tHi: number): number {
   if (!(tHi > tLo)) return 0;
-  const region: SignedShape[] = [];
-  for (const { pts: all, sign } of regionAsPolygons(plate.region)) {
-    let pts = clipHalfPlane(all, pu, pv, tHi);
-    pts = pts.length > 0 ? clipHalfPlane(pts, -pu, -pv, -tLo) : pts;
-    if (pts.length > 0) region.push({ shape: { kind: 'polygon', pts }, sign });
+  const strips = zeroRegionStrips(cuts);
+  for (let r = 0; r < plate.region.length; r++) {
+    bandClip.start(plate.region[r].shape);
+    bandClip.clip(pu, pv, tHi);
+    bandClip.clip(-pu, -pv, -tLo);
+    if (bandClip.len > 0) addPolygonStrips(bandClip.pts, bandClip.len, plate.region[r].sign, cuts, strips);
   }
-  return regionNetForce(plate, region, net, cuts).forceN;
+  return stripsNetForce(plate, net, cuts, strips);
 }
 
 /** Where the stiffener lines lie on the plate: across direction (pu, pv), along (du, dv), plate axes. */
@@ -208,26 +336,25 @@ export interface StiffenedPlateLoads {
   shores: ShoreResult[] | null;
 }
 
+type Status = StiffenerResult['status'];
+
+const NORMAL_NOTE = 'the stiffener run is normal to the plate, so no stiffener lies in it: no stiffener check';
+const NONE_NOTE = 'no stiffener line with a span falls inside the plate at this spacing and first offset: no stiffener check';
+
 /**
- * Loads on the stiffeners (and the shores with them) of one flat plate. Returns shores null when the
- * stiffeners cannot be built (run normal to the plate, no line inside it): the caller then shares
- * the plate among the shores alone.
+ * The stiffener and shore model of one flat plate, solved into S (every number of the result, no
+ * objects), with its warnings up to the stiffener check; the shores' own checks are the caller's.
+ * Returns the status: anything but 'ok' means no stiffener could be built.
  */
-export function stiffenedPlateLoads(b: Boundary, plate: FlatPlate, net: PressureProfile, cuts: readonly number[], warn: Warn): StiffenedPlateLoads {
+function solveStiffened(b: Boundary, plate: FlatPlate, net: PressureProfile, cuts: readonly number[], warn: Warn): Status {
   const st = b.stiffening!;
   const fr = plate.frame;
-  const empty = (status: StiffenerResult['status'], note: string): StiffenedPlateLoads => ({
-    stiffeners: { endFixity: st.endFixity, spacingM: st.spacingM, items: [], governingIndex: null, maxUtilisation: null, status, note, edgeLoadN: null, offsetFromEdge: '', truncated: false, model: STIFFENED_MODEL_WORDS },
-    shores: null,
-    layout: null,
-  });
-  const dShip = fromPoint(st.direction);
-  let du = dot(dShip, fr.u), dv = dot(dShip, fr.v);
+  const dir = st.direction;
+  let du = dir.x * fr.u[0] + dir.y * fr.u[1] + dir.z * fr.u[2], dv = dir.x * fr.v[0] + dir.y * fr.v[1] + dir.z * fr.v[2];
   const dl = Math.hypot(du, dv);
-  if (!(dl > 1e-6 * Math.max(1e-300, Math.hypot(...dShip)))) {
-    const note = 'the stiffener run is normal to the plate, so no stiffener lies in it: no stiffener check';
-    warn('stiffener-normal', 'danger', b.id, `${b.name}: ${note}. Give a run along the plate.`);
-    return empty('normal-to-plate', note);
+  if (!(dl > 1e-6 * Math.max(1e-300, Math.hypot(dir.x, dir.y, dir.z)))) {
+    warn('stiffener-normal', 'danger', b.id, `${b.name}: ${NORMAL_NOTE}. Give a run along the plate.`);
+    return 'normal-to-plate';
   }
   du /= dl;
   dv /= dl;
@@ -245,15 +372,21 @@ export function stiffenedPlateLoads(b: Boundary, plate: FlatPlate, net: Pressure
       tMax = Math.max(tMax, t);
     }
   }
+  S.pu = pu;
+  S.pv = pv;
+  S.du = du;
+  S.dv = dv;
+  S.tMin = tMin;
+  S.tMax = tMax;
   const first = st.firstOffsetM ?? st.spacingM;
   const tol = 1e-9 * Math.max(1, tMax - tMin);
-  const lines: Line[] = [];
+  let nL = 0;
   let truncated = false;
   let zeroSpan = 0;
   for (let k = 0; ; k++) {
     const t = tMin + first + k * st.spacingM;
     if (t >= tMax - tol) break;
-    if (lines.length >= MAX_STIFFENERS) {
+    if (nL >= MAX_STIFFENERS) {
       truncated = true;
       break;
     }
@@ -283,158 +416,298 @@ export function stiffenedPlateLoads(b: Boundary, plate: FlatPlate, net: Pressure
       zeroSpan++;
       continue;
     }
-    lines.push({ t, s0, s1, width: 0, stations: [], q: [], base: undefined as unknown as BeamResult });
+    ensureLines(nL + 1);
+    S.lineT[nL] = t;
+    S.lineS0[nL] = s0;
+    S.lineS1[nL] = s1;
+    nL++;
   }
+  S.nL = nL;
+  S.truncated = truncated;
   if (truncated) warn('stiffeners-truncated', 'danger', b.id, `${b.name}: more than ${MAX_STIFFENERS} stiffeners at this spacing; only the first ${MAX_STIFFENERS} are checked (is the spacing in the right unit?)`);
   if (zeroSpan > 0) warn('stiffener-zero-span', 'warning', b.id, `${b.name}: ${zeroSpan} stiffener line${zeroSpan > 1 ? 's have' : ' has'} no span inside the plate; not checked`);
-  if (lines.length === 0) {
-    const note = 'no stiffener line with a span falls inside the plate at this spacing and first offset: no stiffener check';
-    warn('stiffener-none', 'danger', b.id, `${b.name}: ${note}`);
-    return empty('none-inside', note);
+  if (nL === 0) {
+    warn('stiffener-none', 'danger', b.id, `${b.name}: ${NONE_NOTE}`);
+    return 'none-inside';
   }
-  // tributary widths: half way to the neighbours, or to the plate edge
-  for (let i = 0; i < lines.length; i++) {
-    const lo = i === 0 ? (tMin + lines[0].t) / 2 : (lines[i - 1].t + lines[i].t) / 2;
-    const hi = i === lines.length - 1 ? (lines[i].t + tMax) / 2 : (lines[i].t + lines[i + 1].t) / 2;
-    const L = lines[i];
-    L.width = hi - lo;
-    const v0 = L.t * pv;
-    const stations = [L.s0, L.s1];
+  const T = S.lineT;
+  // tributary widths: half way to the neighbours, or to the plate edge; each line's stations and loads
+  S.st = grownF(S.st, nL * (cuts.length + 2));
+  S.q = grownF(S.q, nL * (cuts.length + 2));
+  let off = 0;
+  for (let i = 0; i < nL; i++) {
+    const lo = i === 0 ? (tMin + T[0]) / 2 : (T[i - 1] + T[i]) / 2;
+    const hi = i === nL - 1 ? (T[i] + tMax) / 2 : (T[i] + T[i + 1]) / 2;
+    const width = hi - lo;
+    S.lineW[i] = width;
+    S.lineSsRa[i] = NaN;
+    const v0 = T[i] * pv;
+    const l0 = S.lineS0[i], l1 = S.lineS1[i];
+    const st0 = off;
+    S.st[off++] = l0;
+    S.st[off++] = l1;
     if (dv !== 0) {
-      for (const c of cuts) {
-        const s = (c - v0) / dv;
-        if (s > L.s0 && s < L.s1) stations.push(s);
+      for (let c = 0; c < cuts.length; c++) {
+        const s = (cuts[c] - v0) / dv;
+        if (s > l0 && s < l1) S.st[off++] = s;
       }
     }
-    stations.sort((x, y) => x - y);
-    L.stations = stations;
-    L.q = stations.map((s) => L.width * evalProfile(net, fr.e0 + fr.k * (v0 + s * dv)));
-    L.base = solveBeam(stations, L.q, st.endFixity);
+    // ascending (insertion sort: a handful of stations, stable like Array.prototype.sort)
+    for (let a = st0 + 1; a < off; a++) {
+      const x = S.st[a];
+      let j = a - 1;
+      while (j >= st0 && S.st[j] > x) {
+        S.st[j + 1] = S.st[j];
+        j--;
+      }
+      S.st[j + 1] = x;
+    }
+    for (let a = st0; a < off; a++) S.q[a] = width * evalProfile(net, fr.e0 + fr.k * (v0 + S.st[a] * dv));
+    S.stOff[i] = st0;
+    S.stOff[i + 1] = off;
+    solveBeamInto(S.st, S.q, st0, off - st0, st.endFixity, S.pointAt, S.pointF, 0, S.base, i * BEAM_OUT);
   }
-  const nL = lines.length;
-  const edgeStrips =
-    stripForce(plate, net, cuts, pu, pv, tMin - 1, (tMin + lines[0].t) / 2) + stripForce(plate, net, cuts, pu, pv, (lines[nL - 1].t + tMax) / 2, tMax + 1);
+  S.edgeStrips = stripForce(plate, net, cuts, pu, pv, tMin - 1, (tMin + T[0]) / 2) + stripForce(plate, net, cuts, pu, pv, (T[nL - 1] + tMax) / 2, tMax + 1);
 
   // shores: where each bears, and its share to each line
   const shores = b.shores ?? [];
+  const nS = shores.length;
+  S.nShores = nS;
+  ensureShores(nS);
   const onTol = ON_STIFFENER_FRACTION * st.spacingM;
-  interface Bearing { bearsOn: ShoreResult['bearsOn']; parts: { line: number; f: number; x: number }[]; edgeF: number; sigma: number }
-  const bearings: Bearing[] = shores.map((sh) => {
-    const [u, v] = toPlate(plate, sh.position);
+  const o = fr.origin, U = fr.u, V = fr.v;
+  for (let j = 0; j < nS; j++) {
+    const sh = shores[j];
+    const dx = sh.position.x - o[0], dy = sh.position.y - o[1], dz = sh.position.z - o[2];
+    const u = dx * U[0] + dy * U[1] + dz * U[2], v = dx * V[0] + dy * V[1] + dz * V[2];
     const t = u * pu + v * pv, s = u * du + v * dv;
-    const sigma = sh.side === 'B' ? 1 : -1;
-    const within = (k: number) => s > lines[k].s0 && s < lines[k].s1;
+    S.sigma[j] = sh.side === 'B' ? 1 : -1;
+    S.edgeF[j] = 0;
+    S.nParts[j] = 0;
     let nearest = -1;
-    for (let k = 0; k < nL; k++) if (Math.abs(lines[k].t - t) <= onTol && (nearest < 0 || Math.abs(lines[k].t - t) < Math.abs(lines[nearest].t - t))) nearest = k;
-    if (nearest >= 0 && within(nearest)) return { bearsOn: 'stiffener', parts: [{ line: nearest, f: 1, x: s - lines[nearest].s0 }], edgeF: 0, sigma };
+    for (let k = 0; k < nL; k++) if (Math.abs(T[k] - t) <= onTol && (nearest < 0 || Math.abs(T[k] - t) < Math.abs(T[nearest] - t))) nearest = k;
+    if (nearest >= 0 && s > S.lineS0[nearest] && s < S.lineS1[nearest]) {
+      S.bearsOn[j] = 1;
+      addPart(j, nearest, 1, s - S.lineS0[nearest]);
+      continue;
+    }
     let left = -1, right = -1;
     for (let k = 0; k < nL; k++) {
-      if (lines[k].t <= t) left = k;
+      if (T[k] <= t) left = k;
       else if (right < 0) right = k;
     }
-    const tl = left >= 0 ? lines[left].t : tMin, tr = right >= 0 ? lines[right].t : tMax;
+    const tl = left >= 0 ? T[left] : tMin, tr = right >= 0 ? T[right] : tMax;
     const gap = tr - tl;
     const c = gap > 0 ? Math.min(1, Math.max(0, (t - tl) / gap)) : 0;
-    const parts: Bearing['parts'] = [];
     let edgeF = 0;
-    if (left >= 0 && within(left)) parts.push({ line: left, f: 1 - c, x: s - lines[left].s0 });
-    else edgeF += 1 - c;
-    if (right >= 0 && within(right)) parts.push({ line: right, f: c, x: s - lines[right].s0 });
-    else edgeF += c;
-    const live = parts.filter((p) => p.f > 1e-9);
-    return { bearsOn: live.length > 0 ? 'panel' : 'edge', parts: live, edgeF, sigma };
-  });
+    // a part of no share (f ≤ 1e-9) is dropped
+    if (left >= 0 && s > S.lineS0[left] && s < S.lineS1[left]) {
+      if (1 - c > 1e-9) addPart(j, left, 1 - c, s - S.lineS0[left]);
+    } else edgeF += 1 - c;
+    if (right >= 0 && s > S.lineS0[right] && s < S.lineS1[right]) {
+      if (c > 1e-9) addPart(j, right, c, s - S.lineS0[right]);
+    } else edgeF += c;
+    S.edgeF[j] = edgeF;
+    S.bearsOn[j] = S.nParts[j] > 0 ? 0 : 2;
+  }
+  for (let j = 0; j < nS; j++) for (let p = 2 * j; p < 2 * j + S.nParts[j]; p++) S.partW0[p] = distributedDeflection(S.partLine[p], st.endFixity, S.partX[p]);
 
   // force method: unknown reactions of the shores in contact
-  const active = shores.map((_, j) => bearings[j].parts.length > 0);
-  let R = shores.map(() => 0);
-  const defl = new Map<string, number>();
-  const w0 = (k: number, x: number): number => {
-    const key = `${k}:${x}`;
-    let v = defl.get(key);
-    if (v === undefined) defl.set(key, (v = distributedDeflection(lines[k], st.endFixity, x)));
-    return v;
-  };
-  for (let pass = 0; pass <= shores.length; pass++) {
-    const idx = active.map((a, j) => (a ? j : -1)).filter((j) => j >= 0);
-    R = shores.map(() => 0);
-    if (idx.length === 0) break;
-    const A = idx.map((i) =>
-      idx.map((j) => {
-        let a = 0;
-        for (const pi of bearings[i].parts) for (const pj of bearings[j].parts) {
-          if (pi.line !== pj.line) continue;
-          const L = lines[pi.line].s1 - lines[pi.line].s0;
-          a += pi.f * pj.f * pointDeflection(L, st.endFixity, pj.x, pi.x);
+  const R = S.R, active = S.active, idx = S.idx, A = S.A, rhs = S.rhs, sol = S.sol;
+  for (let j = 0; j < nS; j++) {
+    active[j] = S.nParts[j] > 0 ? 1 : 0;
+    R[j] = 0;
+  }
+  for (let pass = 0; pass <= nS; pass++) {
+    let n = 0;
+    for (let j = 0; j < nS; j++) if (active[j]) idx[n++] = j;
+    R.fill(0, 0, nS);
+    if (n === 0) break;
+    for (let a = 0; a < n; a++) {
+      const i = idx[a];
+      for (let c = 0; c < n; c++) {
+        const j = idx[c];
+        let f = 0;
+        for (let pi = 2 * i; pi < 2 * i + S.nParts[i]; pi++) {
+          for (let pj = 2 * j; pj < 2 * j + S.nParts[j]; pj++) {
+            if (S.partLine[pi] !== S.partLine[pj]) continue;
+            const line = S.partLine[pi];
+            const L = S.lineS1[line] - S.lineS0[line];
+            f += S.partF[pi] * S.partF[pj] * pointDeflection(L, st.endFixity, S.partX[pj], S.partX[pi]);
+          }
         }
-        return bearings[i].sigma * bearings[j].sigma * a;
-      }),
-    );
-    const rhs = idx.map((i) => bearings[i].sigma * bearings[i].parts.reduce((acc, p) => acc + p.f * w0(p.line, p.x), 0));
-    const sol = solveDense(A, rhs);
-    if (!sol) {
+        A[a * n + c] = S.sigma[i] * S.sigma[j] * f;
+      }
+      let w = 0;
+      for (let p = 2 * i; p < 2 * i + S.nParts[i]; p++) w = w + S.partF[p] * S.partW0[p];
+      rhs[a] = S.sigma[i] * w;
+    }
+    if (!solveDense(n)) {
       // two shores where one would do (same point): the later one is left out
-      active[idx[idx.length - 1]] = false;
-      warn('shore-redundant', 'warning', shores[idx[idx.length - 1]].id, `${b.name}: a shore stands where another already holds the plate; it is taken as carrying nothing`);
+      active[idx[n - 1]] = 0;
+      warn('shore-redundant', 'warning', shores[idx[n - 1]].id, `${b.name}: a shore stands where another already holds the plate; it is taken as carrying nothing`);
       continue;
     }
     let worst = -1;
-    sol.forEach((r, n) => {
-      R[idx[n]] = r;
-      if (r < 0 && (worst < 0 || r < sol[worst])) worst = n;
-    });
+    for (let c = 0; c < n; c++) {
+      const r = sol[c];
+      R[idx[c]] = r;
+      if (r < 0 && (worst < 0 || r < sol[worst])) worst = c;
+    }
     if (worst < 0) break;
-    active[idx[worst]] = false;
+    active[idx[worst]] = 0;
   }
-  R = R.map((r) => Math.max(0, r));
+  for (let j = 0; j < nS; j++) R[j] = Math.max(0, R[j]);
 
   // final stiffener beams with the shore reactions as point forces
-  const items: StiffenerItem[] = [];
   let best = -1, bestU = 0;
   for (let k = 0; k < nL; k++) {
-    const L = lines[k];
-    const points: { atM: number; forceN: number }[] = [];
-    shores.forEach((_, j) => {
-      for (const p of bearings[j].parts) if (p.line === k && R[j] > 0) points.push({ atM: p.x, forceN: -bearings[j].sigma * p.f * R[j] });
-    });
-    const r = points.length > 0 ? solveBeam(L.stations, L.q, st.endFixity, points) : L.base;
-    const required = Math.abs(r.maxMomentNm) / st.allowableStressPa;
+    let np = 0;
+    let shoreForces = 0;
+    for (let j = 0; j < nS; j++) {
+      for (let p = 2 * j; p < 2 * j + S.nParts[j]; p++) {
+        if (S.partLine[p] === k && R[j] > 0) {
+          S.pointAt[np] = S.partX[p];
+          S.pointF[np] = -S.sigma[j] * S.partF[p] * R[j];
+          shoreForces = shoreForces - S.pointF[np];
+          np++;
+        }
+      }
+    }
+    const lo = S.stOff[k], hi = S.stOff[k + 1];
+    if (np > 0) solveBeamInto(S.st, S.q, lo, hi - lo, st.endFixity, S.pointAt, S.pointF, np, S.item, k * BEAM_OUT);
+    else for (let m = k * BEAM_OUT; m < (k + 1) * BEAM_OUT; m++) S.item[m] = S.base[m];
+    const required = Math.abs(S.item[k * BEAM_OUT + 4]) / st.allowableStressPa;
     const u = required / st.sectionModulusM3;
-    items.push({
-      ...r,
-      offsetM: L.t - tMin,
-      tributaryWidthM: L.width,
-      shoreForcesN: points.reduce((a, p) => a - p.forceN, 0),
-      requiredModulusM3: required,
-      utilisation: u,
-    });
+    S.itemRequired[k] = required;
+    S.itemU[k] = u;
+    S.itemShoreForces[k] = shoreForces;
     if (best < 0 || u > bestU) {
       best = k;
       bestU = u;
     }
   }
+  S.best = best;
+  S.bestU = bestU;
   if (bestU > 1) warn('stiffener-overstressed', 'danger', b.id, `${b.name}: stiffener bending at ${(100 * bestU).toFixed(0)} % of allowable`);
-  const edgeLever = shores.reduce((a, _, j) => a + bearings[j].sigma * bearings[j].edgeF * R[j], 0);
+  let edgeLever = 0;
+  for (let j = 0; j < nS; j++) edgeLever = edgeLever + S.sigma[j] * S.edgeF[j] * R[j];
+  S.edgeLever = edgeLever;
+  return 'ok';
+}
+
+function addPart(j: number, line: number, f: number, x: number): void {
+  const p = 2 * j + S.nParts[j]++;
+  S.partLine[p] = line;
+  S.partF[p] = f;
+  S.partX[p] = x;
+}
+
+/** The layout of the plate last solved, for the plating check. */
+function solvedLayout(): StiffenerLayout {
+  const lines: StiffenerLayout['lines'] = new Array(S.nL);
+  for (let k = 0; k < S.nL; k++) lines[k] = { t: S.lineT[k], s0: S.lineS0[k], s1: S.lineS1[k] };
+  return { pu: S.pu, pv: S.pv, du: S.du, dv: S.dv, tMin: S.tMin, tMax: S.tMax, lines };
+}
+
+function emptyLoads(b: Boundary, status: Status): StiffenedPlateLoads {
+  const st = b.stiffening!;
+  const note = status === 'normal-to-plate' ? NORMAL_NOTE : NONE_NOTE;
+  return {
+    stiffeners: { endFixity: st.endFixity, spacingM: st.spacingM, items: [], governingIndex: null, maxUtilisation: null, status, note, edgeLoadN: null, offsetFromEdge: '', truncated: false, model: STIFFENED_MODEL_WORDS },
+    shores: null,
+    layout: null,
+  };
+}
+
+/**
+ * Loads on the stiffeners (and the shores with them) of one flat plate. Returns shores null when the
+ * stiffeners cannot be built (run normal to the plate, no line inside it): the caller then shares
+ * the plate among the shores alone.
+ */
+export function stiffenedPlateLoads(b: Boundary, plate: FlatPlate, net: PressureProfile, cuts: readonly number[], warn: Warn): StiffenedPlateLoads {
+  const status = solveStiffened(b, plate, net, cuts, warn);
+  if (status !== 'ok') return emptyLoads(b, status);
+  const st = b.stiffening!;
+  const fr = plate.frame;
+  const items: StiffenerItem[] = new Array(S.nL);
+  for (let k = 0; k < S.nL; k++) {
+    const r = beamResultOf(S.item, k * BEAM_OUT);
+    items[k] = {
+      spanM: r.spanM,
+      totalLoadN: r.totalLoadN,
+      reactionStartN: r.reactionStartN,
+      reactionEndN: r.reactionEndN,
+      maxMomentNm: r.maxMomentNm,
+      maxMomentAtM: r.maxMomentAtM,
+      endMomentStartNm: r.endMomentStartNm,
+      endMomentEndNm: r.endMomentEndNm,
+      offsetM: S.lineT[k] - S.tMin,
+      tributaryWidthM: S.lineW[k],
+      shoreForcesN: S.itemShoreForces[k],
+      requiredModulusM3: S.itemRequired[k],
+      utilisation: S.itemU[k],
+    };
+  }
+  const shores = b.shores ?? [];
   const shoreResults = shores.map((sh, j) => {
-    const bg = bearings[j];
-    if (bg.bearsOn === 'edge') warn('shore-on-edge', 'info', sh.id, `${b.name}: a shore bears where the plate is held by its edge or a stiffener's end; in this model it carries nothing`);
-    return shoreResult(b, sh, R[j], bg.bearsOn, null, warn);
+    const on = BEARS_ON[S.bearsOn[j]];
+    if (on === 'edge') warn('shore-on-edge', 'info', sh.id, `${b.name}: a shore bears where the plate is held by its edge or a stiffener's end; in this model it carries nothing`);
+    return shoreResult(b, sh, S.R[j], on, null, warn);
   });
+  const { pu, pv } = S;
   return {
     stiffeners: {
       endFixity: st.endFixity,
       spacingM: st.spacingM,
       items,
-      governingIndex: best,
-      maxUtilisation: bestU,
+      governingIndex: S.best,
+      maxUtilisation: S.bestU,
       status: 'ok',
       note: null,
-      edgeLoadN: edgeStrips - edgeLever,
+      edgeLoadN: S.edgeStrips - S.edgeLever,
       offsetFromEdge: edgeWords({ x: pu * fr.u[0] + pv * fr.v[0], y: pu * fr.u[1] + pv * fr.v[1], z: pu * fr.u[2] + pv * fr.v[2] }),
-      truncated,
+      truncated: S.truncated,
       model: STIFFENED_MODEL_WORDS,
     },
     shores: shoreResults,
-    layout: { pu, pv, du, dv, tMin, tMax, lines: lines.map((l) => ({ t: l.t, s0: l.s0, s1: l.s1 })) },
+    layout: solvedLayout(),
   };
+}
+
+/** What the summary needs of a stiffened plate (stiffenedPlateLean). */
+export interface LeanStiffened {
+  /** The stiffeners' largest utilisation, or null when none could be built. */
+  maxUtilisation: number | null;
+  /** False when the stiffeners cannot be built: the caller shares the plate among the shores alone. */
+  carriesShores: boolean;
+  layout: StiffenerLayout | null;
+}
+
+const lean: LeanStiffened = { maxUtilisation: null, carriesShores: false, layout: null };
+
+/**
+ * The summary's view of stiffenedPlateLoads, with the same warnings in the same order: the
+ * stiffeners' largest utilisation, and each shore's utilisation written to shoreU (in the order of
+ * b.shores) when the stiffeners carry them. The layout is built only when `withLayout` (the
+ * plating check needs it). The returned record is reused by the next call.
+ */
+export function stiffenedPlateLean(b: Boundary, plate: FlatPlate, net: PressureProfile, cuts: readonly number[], warn: Warn, shoreU: Float64Array, withLayout: boolean): LeanStiffened {
+  const status = solveStiffened(b, plate, net, cuts, warn);
+  lean.layout = null;
+  if (status !== 'ok') {
+    lean.maxUtilisation = null;
+    lean.carriesShores = false;
+    return lean;
+  }
+  const shores = b.shores ?? [];
+  for (let j = 0; j < shores.length; j++) {
+    const sh = shores[j];
+    if (S.bearsOn[j] === 2) warn('shore-on-edge', 'info', sh.id, `${b.name}: a shore bears where the plate is held by its edge or a stiffener's end; in this model it carries nothing`);
+    shoreU[j] = shoreUtilisation(b, sh, S.R[j], warn);
+  }
+  lean.maxUtilisation = S.bestU;
+  lean.carriesShores = true;
+  if (withLayout) lean.layout = solvedLayout();
+  return lean;
 }

@@ -87,6 +87,22 @@ export interface ShipResponse {
   /** Moment to change trim one metre, kg·m/m. */
   mctKgM: number;
   warnings: StabilityWarning[];
+  /** When the condition has her aground: the reaction, and her free-floating response (./grounding.ts). */
+  ground?: GroundState;
+}
+
+/** A ship aground at a point (./grounding.ts): where, the reaction, and how she would float without it. */
+export interface GroundState {
+  /** Where she bears on the ground, ship axes, m (on the baseline). */
+  xM: number;
+  yM: number;
+  /** The ground reaction as a mass, kg (0: afloat). */
+  reactionKg: number;
+  /** Draft the ground holds at the point, m (null when she was afloat at the readings). */
+  groundDraftM: number | null;
+  afloat: boolean;
+  /** Her response with no reaction: the attitude and GM she would have if she came off. */
+  free: ShipResponse;
 }
 
 /** Heel beyond which small-angle results are flagged, degrees (the common limit of the texts). */
@@ -132,7 +148,20 @@ function openSpacesAt(spaces: readonly OpenSpace[], T: number) {
  * particulars are for the ship with those spaces empty). Spaces open to the sea go by lost
  * buoyancy unless the condition chooses added weight. Units: kg, m, degrees.
  */
-export function responseFromWeights(survey: Survey, condition: Condition, weights: readonly FloodWeight[]): ShipResponse | null {
+/**
+ * A ground reaction (the ship aground at a point of her bottom): an upward force of `massKg` × g at
+ * (x, y) on the baseline, taken as a weight removed at the keel (the texts' "virtual rise of G"
+ * method for a ship aground or taking the blocks: KG rises by R·KG/(Δ − R) and the ship floats at
+ * the displacement Δ − R; Barrass & Derrett, "Ship Stability for Masters and Mates", ch. "Drydocking
+ * and grounding"; from memory). See ./grounding.ts.
+ */
+export interface GroundForce {
+  massKg: number;
+  x: number;
+  y: number;
+}
+
+export function responseFromWeights(survey: Survey, condition: Condition, weights: readonly FloodWeight[], ground?: GroundForce): ShipResponse | null {
   const ship = intactShip(survey, condition);
   if (!ship) return null;
   const warnings: StabilityWarning[] = [];
@@ -163,6 +192,13 @@ export function responseFromWeights(survey: Survey, condition: Condition, weight
       fsmAdded += w.freeSurfaceMomentKgM2;
       freeSurfaces.push({ spaceId: w.spaceId, momentKgM: w.freeSurfaceMomentKgM2 });
     }
+  }
+
+  if (ground && ground.massKg > 0) {
+    // the reaction at the keel (z = 0): a weight removed there
+    W -= ground.massKg;
+    Mx -= ground.massKg * ground.x;
+    My -= ground.massKg * ground.y;
   }
 
   const d0 = ship.displacementKg;
@@ -461,12 +497,6 @@ export function floodWeightsAtLevels(
     out.push({ spaceId: sp.spaceId, massKg: mass, x: mx / mass, y: my / mass, z: mz / mass, freeSurfaceMomentKgM2: fsm, openToSea: sp.openToSea });
   }
   return out;
-}
-
-/** The response of the ship to the contents of the computed condition (null without particulars). */
-export function shipResponseOf(survey: Survey, results: Omit<SurveyResults, 'boundaries'>): ShipResponse | null {
-  const condition = survey.conditions.find((c) => c.id === results.conditionId);
-  return condition ? responseFromWeights(survey, condition, floodWeightsFromResults(survey, results)) : null;
 }
 
 /** The condition with the drafts and heel of `attitude` (to compute levels and loads at it). */

@@ -10,6 +10,8 @@
  * empty. Units: m³; permeabilities as fractions of the moulded volume.
  */
 import type { TankContents, TankState } from '../schemas/flooding';
+import type { CompartmentGeometry } from '../schemas/survey';
+import { compartmentSolid, volumeBelow } from './polyhedron';
 
 export const TANK_PERMEABILITY_SOURCE = 'SOLAS Chapter II-1, Regulation 7-3, spaces intended for liquids: 0 or 0.95 (from memory)';
 
@@ -73,4 +75,9 @@ export function levelOfMouldedVolume(below: (elevationM: number) => number, rang
     else hi = mid;
   }
   return 0.5 * (lo + hi);
+}
+
+/** The moulded volume of a compartment, m³ (the whole solid, no permeability). */
+export function mouldedVolumeM3(geometry: CompartmentGeometry): number {
+  return volumeBelow(compartmentSolid(geometry), [0, 0, 1], Infinity).volume;
 }

@@ -5,7 +5,7 @@
  * The workspace, the send-for-review screen, the desk, the report and the brief all list these.
  */
 import { catalogueFluid } from '../fluids/catalogue';
-import { DEFAULT_PERMEABILITY } from '../schemas/space-types';
+import { defaultPermeability } from '../schemas/space-types';
 import type { Marks } from '../schemas/marks';
 import type { Boundary, Condition, Survey } from '../schemas/survey';
 
@@ -81,7 +81,11 @@ export function figureNotes(survey: Survey, conditionId = survey.activeCondition
   if (condition) conditionNotes(survey, condition, out);
   for (const c of survey.compartments) {
     if (c.permeability === undefined) {
-      out.push({ entityId: c.id, field: 'permeability', mark: 'assumed', what: `Permeability of ${c.name}`, value: `${DEFAULT_PERMEABILITY[c.spaceType].toFixed(2)} (usual for a ${c.spaceType.replace('-', ' ')} space)` });
+      // a cargo space's default follows how loaded it is (space-types.ts)
+      out.push({ entityId: c.id, field: 'permeability', mark: 'assumed', what: `Permeability of ${c.name}`, value: `${defaultPermeability(c.spaceType, c.cargoState).value.toFixed(2)} (usual for a ${c.spaceType.replace('-', ' ')} space${c.cargoState ? `, ${c.cargoState}` : ''})` });
+    }
+    if (c.spaceType === 'tank' && !c.tankContents && (c.openToSea || (c.breaches ?? []).length > 0)) {
+      out.push({ entityId: c.id, field: 'tankContents', mark: 'assumed', what: `Own liquid of ${c.name}`, value: 'not stated, taken as empty (flood water may fill it)' });
     }
     marked(c.marks, (field, mark) => out.push({ entityId: c.id, field, mark, what: field === 'permeability' ? `Permeability of ${c.name}` : `${field} of ${c.name}`, value: null }));
   }

@@ -6,7 +6,7 @@
 import type { FloodForecast } from '../engine';
 import { hmm } from '../api/cautions';
 import { formatShipAndUtc } from './time-words';
-import { formatVolumeBalance, type UnitSystem } from '../units/units';
+import { formatQuantity, formatVolumeBalance, type UnitSystem } from '../units/units';
 
 /** One sentence per downflooding point that is or goes under within the forecast, earliest first; or one saying none does (empty without points). */
 export function downfloodingSentences(f: Pick<FloodForecast, 'downflooding' | 'readingsTime' | 'horizonS'>, shipTimeOffsetMin: number | undefined): string[] {
@@ -23,6 +23,15 @@ export function downfloodingSentences(f: Pick<FloodForecast, 'downflooding' | 'r
 /** Which attitude the forecast's levels and loads use, in a few words (a heading for the note). */
 export function forecastAttitudeWords(f: Pick<FloodForecast, 'attitude'>): string {
   return f.attitude.mode === 'follows-response' ? 'Attitude follows the ship’s response' : 'Attitude held as read';
+}
+
+/**
+ * A net flow into a space with its way said ("1137 US gal/min out"); below 1e-6 m³/s (3.6 litres an
+ * hour, under the solver's tolerance) it is no flow, never "3.24e-7".
+ */
+export function flowWords(m3s: number, system: UnitSystem): string {
+  if (!(Math.abs(m3s) >= 1e-6)) return 'none';
+  return `${formatQuantity(Math.abs(m3s), 'flow', system, 3).text} ${m3s > 0 ? 'in' : 'out'}`;
 }
 
 /** The run's volume balance as a plain figure with its unit (the device, the desk, the brief and the report say it alike). */

@@ -55,7 +55,8 @@ export function defaultPermeability(spaceType: SpaceType, cargoState: CargoState
   const byState = CARGO_PERMEABILITY[spaceType];
   if (byState && cargoState) return { value: byState[cargoState], source: `${PERMEABILITY_SOURCE}, ${spaceType} space ${cargoState}` };
   // SOLAS gives a tank "0 or 0.95, whichever is more severe": 0 stands for a full tank that takes in
-  // no flood water; a load survey holds the tank's own liquid as measured, so 0.95 applies to it
-  const why = spaceType === 'tank' ? ' (intended for liquids: 0 or 0.95, whichever is more severe; 0.95 for the liquid it holds)' : '';
+  // no flood water. Any liquid fills 0.95 of a tank's moulded volume; the engine gives flood water
+  // only the room the tank's own liquid leaves (shared/engine/tank-contents.ts), 0 when it is full
+  const why = spaceType === 'tank' ? ' (intended for liquids: 0 or 0.95; flood water takes only the room its own liquid leaves, none when full)' : '';
   return { value: DEFAULT_PERMEABILITY[spaceType], source: `${PERMEABILITY_SOURCE}, ${spaceType}${byState ? ' space loaded (its state not given)' : ''}${why}` };
 }

@@ -87,10 +87,28 @@ export type Particulars = z.infer<typeof ParticularsSchema>;
 /** How spaces open to the sea are treated: as lost buoyancy (the usual choice) or as added weight. */
 export const OPEN_SPACE_METHODS = ['lost-buoyancy', 'added-weight'] as const;
 
+/**
+ * The ship is aground, bearing on the ground at one point of her bottom (ship axes: x m forward of
+ * the AP, y m to port, 0 on the keel line). The ground holds her draft there as read; the reaction
+ * follows from the displacement she has lost (shared/engine/grounding.ts). The tide is taken as
+ * constant.
+ */
+export const GroundingSchema = z.object({
+  position: z.object({
+    x: z.number().gt(-1000, 'x must be within 1,000 m').lt(1000, 'x must be within 1,000 m'),
+    y: z.number().gt(-100, 'y must be within 100 m').lt(100, 'y must be within 100 m').optional(),
+  }),
+  /** How the position was found ("diver's survey: set-in plating under No. 1 hold, frames 152–160"). */
+  from: From,
+});
+export type Grounding = z.infer<typeof GroundingSchema>;
+
 /** The stability data of one condition. */
 export const ConditionStabilitySchema = z.object({
   particulars: ParticularsSchema,
   openSpaceMethod: z.enum(OPEN_SPACE_METHODS).optional(),
+  /** Aground at a point (absent: afloat). */
+  aground: GroundingSchema.optional(),
 });
 export type ConditionStability = z.infer<typeof ConditionStabilitySchema>;
 

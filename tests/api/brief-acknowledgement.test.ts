@@ -6,7 +6,8 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { startTestApp, type TestApp } from '../support/app';
 import { authHeader, createOrgWithMembers, type TestOrg } from '../support/auth';
-import { tokenFor } from '../support/surveys';
+import { randomUUID } from 'node:crypto';
+import { change, tokenFor } from '../support/surveys';
 import { briefLink, surveyInStatus } from '../support/review';
 
 let t: TestApp;
@@ -56,5 +57,27 @@ describe('the master acknowledges the brief', () => {
     const revoked = await briefLink(t.db, org, s.id, { revoked: true });
     expect((await acknowledge(revoked.token, 'name=Master')).status).toBe(404);
     expect(await t.db('brief_acknowledgements').where({ brief_link_id: revoked.id }).first()).toBeUndefined();
+  });
+
+  it('records the revision the brief showed: the accepted one, when the survey has changed since', async () => {
+    const s = await surveyInStatus(t.db, org, 'accepted');
+    const link = await briefLink(t.db, org, s.id);
+    // the surveyor changes the survey after acceptance: revision 2, unreviewed; the brief still shows revision 1
+    const surveyor = await tokenFor(t.config.JWT_SECRET, org.surveyor);
+    const pushed = await fetch(`${t.url}/api/sync/push`, {
+      method: 'POST',
+      headers: { ...authHeader(surveyor), 'content-type': 'application/json' },
+      body: JSON.stringify({ changes: [change(randomUUID(), s.id, { kind: 'set', path: 'title', value: 'Changed after acceptance' }, 1)] }),
+    });
+    expect(pushed.status).toBe(200);
+    expect(((await t.db('surveys').where({ id: s.id }).first('revision')) as { revision: number }).revision).toBe(2);
+    const page = await (await fetch(`${t.url}/brief/${link.token}`)).text();
+    expect(page).toMatch(/survey revision 1\b/);
+
+    expect((await acknowledge(link.token, 'name=J.+Okafor%2C+Master')).status).toBe(303);
+    const rows = await t.db('brief_acknowledgements').where({ brief_link_id: link.id });
+    expect(rows.map((r: { revision: number }) => r.revision)).toEqual([1]);
+    const after = await (await fetch(`${t.url}/brief/${link.token}`)).text();
+    expect(after).toContain('(survey revision 1)');
   });
 });

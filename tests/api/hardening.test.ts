@@ -56,9 +56,13 @@ describe('Cache-Control on authenticated JSON (F14)', () => {
 describe('own-work rule (F12)', () => {
   it('an engineer who edited a survey at any revision cannot accept it, even after an admin re-sends it', async () => {
     const s = await surveyInStatus(t.db, org, 'in_review');
-    // The engineer edits the survey (a revision of theirs), then returns it; the admin re-sends it.
+    // The engineer edited the survey while still a surveyor of the firm (an engineer only reviews a
+    // surveyor's survey: shared/review/editing.ts), then, an engineer again, returns it; the admin re-sends it.
+    const role = (r: string) => t.db('memberships').where({ user_id: org.engineer.id, organisation_id: org.id }).update({ role: r });
+    await role('surveyor');
     const engineerDevice = randomUUID();
     const pushed = await call('POST', '/api/sync/push', tok.engineer, { changes: [change(engineerDevice, s.id, { kind: 'set', path: 'title', value: 'Edited by the engineer' }, 1)] });
+    await role('engineer');
     expect(pushed.status).toBe(200);
     const status = async (to: string, token: string, note?: string) => (await call('POST', `/api/surveys/${s.id}/status`, token, { to, note })).status;
     const now = (await t.db('surveys').where({ id: s.id }).first('status')) as { status: string };

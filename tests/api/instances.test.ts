@@ -22,13 +22,14 @@ let a: TestApp;
 let b: TestApp;
 let org: TestOrg;
 let surveyorToken: string;
-let engineerToken: string;
+/** A second editor of the surveyor's surveys (an engineer only reviews them: shared/review/editing.ts). */
+let adminToken: string;
 
 beforeAll(async () => {
   [a, b] = await Promise.all([startTestApp(), startTestApp()]);
   org = await createOrgWithMembers(a.db);
   surveyorToken = await tokenFor(a.config.JWT_SECRET, org.surveyor);
-  engineerToken = await tokenFor(a.config.JWT_SECRET, org.engineer);
+  adminToken = await tokenFor(a.config.JWT_SECRET, org.admin);
 });
 afterAll(async () => {
   await Promise.all([a?.close(), b?.close()]);
@@ -93,18 +94,18 @@ describe('two instances on one database', () => {
 
   it('an instance whose remembered state went stale writes nothing from it: both people’s edits are kept', async () => {
     const surveyor = new SimDevice(a.url, surveyorToken);
-    const engineer = new SimDevice(b.url, engineerToken);
+    const admin = new SimDevice(b.url, adminToken);
     const survey = newSurvey({ title: 'Shared' });
     surveyor.create(survey);
     await surveyor.sync();
     // Instance A now remembers the survey as it wrote it (revision 2 after this edit).
     surveyor.edit(survey.id, { kind: 'set', path: 'casualtyDescription', value: 'Written first, on A' });
     await surveyor.push();
-    engineer.cursor = '0';
-    await engineer.pull();
+    admin.cursor = '0';
+    await admin.pull();
     // Instance B writes revision 3; A does not know.
-    engineer.edit(survey.id, { kind: 'set', path: 'title', value: 'Set on B' });
-    expect((await engineer.push())?.results[0]).toMatchObject({ status: 'applied', revision: 3 });
+    admin.edit(survey.id, { kind: 'set', path: 'title', value: 'Set on B' });
+    expect((await admin.push())?.results[0]).toMatchObject({ status: 'applied', revision: 3 });
     // A push to A from the remembered revision 2 must not overwrite B's title.
     surveyor.edit(survey.id, { kind: 'set', path: 'casualtyDescription', value: 'Written again, on A' });
     expect((await surveyor.push())?.results[0]).toMatchObject({ status: 'applied', revision: 4 });

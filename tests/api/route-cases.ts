@@ -155,12 +155,15 @@ export const routeCases: Record<string, RouteCase> = {
     expect: anyMemberObject(200),
   },
   'POST /api/surveys': { setup: async () => ({ body: { survey: newSurvey() } }), expect: anyMember(201) },
+  // an edit of the surveyor's survey: the engineer reviews it and may not change it (403,
+  // shared/review/editing.ts); another firm's push names no survey of theirs and is refused per
+  // change inside a 200 (tests/api/reviewer-read-only.test.ts and sync.test.ts cover the rest)
   'POST /api/sync/push': {
-    setup: async () => {
-      const survey = newSurvey();
-      return { body: { changes: [change(randomUUID(), survey.id, { kind: 'create', survey })] } };
+    setup: async ({ t, org }) => {
+      const survey = await storeSurvey(t.db, org.surveyor);
+      return { body: { changes: [change(randomUUID(), survey.id, { kind: 'set', path: 'title', value: 'Edited' }, 1)] } };
     },
-    expect: anyMember(200),
+    expect: { ...anyMember(200), engineer: 403 },
   },
   'GET /api/sync/pull': { expect: anyMember(200) },
 

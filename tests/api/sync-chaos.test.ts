@@ -92,7 +92,8 @@ describe('five devices syncing through a link that loses and repeats 30% of sync
     const org = await createOrgWithMembers(t.db);
     const proxy = await startLossyProxy(t.url, random);
     try {
-      const people = [org.surveyor, org.engineer, org.admin, await addMember(t.db, org.id, 'surveyor'), await addMember(t.db, org.id, 'surveyor')];
+      // editors of the survey the first one makes (an engineer only reviews a surveyor's survey: shared/review/editing.ts)
+      const people = [org.surveyor, org.admin, await addMember(t.db, org.id, 'surveyor'), await addMember(t.db, org.id, 'surveyor'), await addMember(t.db, org.id, 'surveyor')];
       const devices = await Promise.all(people.map(async (p) => new SimDevice(proxy.url, await tokenFor(t.config.JWT_SECRET, p))));
 
       const survey = newSurvey();

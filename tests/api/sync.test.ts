@@ -27,11 +27,13 @@ let org: TestOrg;
 let surveyorToken: string;
 let engineerToken: string;
 let otherToken: string;
+/** A second editor of the surveyor's surveys (an engineer only reviews them: shared/review/editing.ts). */
+let adminToken: string;
 
 beforeAll(async () => {
   const firms = await startWithTwoFirms();
   ({ t, org } = firms);
-  ({ surveyor: surveyorToken, engineer: engineerToken, otherAdmin: otherToken } = firms.tok);
+  ({ surveyor: surveyorToken, engineer: engineerToken, otherAdmin: otherToken, admin: adminToken } = firms.tok);
 });
 afterAll(async () => {
   await t?.close();
@@ -332,7 +334,7 @@ describe('POST /api/sync/push', () => {
 describe('merging edits from two devices', () => {
   async function twoDevices() {
     const a = new SimDevice(t.url, surveyorToken);
-    const b = new SimDevice(t.url, engineerToken);
+    const b = new SimDevice(t.url, adminToken);
     const survey = newSurvey();
     a.create(survey);
     await a.sync();
@@ -370,7 +372,7 @@ describe('merging edits from two devices', () => {
     expect(res!.conflicts).toHaveLength(2);
     const titleConflict = res!.conflicts.find((c) => c.target.kind === 'field')!;
     expect(titleConflict).toMatchObject({ proposed: 'Title from B', kept: 'Title from A', status: 'open' });
-    expect(titleConflict.proposedBy.id).toBe(org.engineer.id);
+    expect(titleConflict.proposedBy.id).toBe(org.admin.id);
     expect(titleConflict.keptBy?.id).toBe(org.surveyor.id);
     // Nothing silently overwritten: the server still has A's values…
     expect((await serverSurvey(survey.id)).doc.title).toBe('Title from A');
@@ -397,7 +399,7 @@ describe('merging edits from two devices', () => {
     expect(b.doc(survey.id)).toEqual(server.doc);
     const row = await t.db('survey_conflicts').where({ id: titleConflict.id }).first();
     expect(row.status).toBe('resolved');
-    expect(row.resolved_by).toBe(org.engineer.id);
+    expect(row.resolved_by).toBe(org.admin.id);
   });
 
   it('records an edit on one device against a delete on the other as a conflict', async () => {

@@ -32,24 +32,37 @@ afterAll(async () => {
 
 /**
  * Types `value` into `field` as a person does (Playwright's fill: focus, input events), the last
- * character in the page itself, followed by a tap on `away` in the same moment; returns the
- * milliseconds between that last input event and the tap, as the page saw them.
+ * character in the page itself, followed by a tap on `away` in the same moment (and on each of
+ * `then` one turn of the event loop later: a section left and reopened before its save can land);
+ * returns the milliseconds between that last input event and the tap, as the page saw them.
  */
-async function typeThenTap(field: Locator, value: string, away: Locator): Promise<number> {
+async function typeThenTap(field: Locator, value: string, away: Locator, ...then: Locator[]): Promise<number> {
   await field.fill(value.slice(0, -1));
-  await away.evaluate((b) => b.setAttribute('data-tap-away', ''));
-  return field.evaluate((el, v) => {
-    const button = document.querySelector<HTMLElement>('[data-tap-away]');
-    button?.removeAttribute('data-tap-away');
-    let tappedAt = NaN;
-    button?.addEventListener('click', () => (tappedAt = performance.now()), { once: true, capture: true });
-    const proto = el instanceof HTMLTextAreaElement ? HTMLTextAreaElement.prototype : HTMLInputElement.prototype;
-    Object.getOwnPropertyDescriptor(proto, 'value')?.set?.call(el, v);
-    el.dispatchEvent(new Event('input', { bubbles: true }));
-    const typedAt = performance.now();
-    button?.click();
-    return tappedAt - typedAt;
-  }, value);
+  for (const [i, target] of [away, ...then].entries()) await target.evaluate((b, n) => b.setAttribute(`data-tap-${n}`, ''), i);
+  return field.evaluate(
+    async (el, [v, taps]) => {
+      const buttons = Array.from({ length: taps }, (_, n) => {
+        const b = document.querySelector<HTMLElement>(`[data-tap-${n}]`);
+        b?.removeAttribute(`data-tap-${n}`);
+        return b;
+      });
+      let tappedAt = NaN;
+      buttons[0]?.addEventListener('click', () => (tappedAt = performance.now()), { once: true, capture: true });
+      const proto = el instanceof HTMLTextAreaElement ? HTMLTextAreaElement.prototype : HTMLInputElement.prototype;
+      Object.getOwnPropertyDescriptor(proto, 'value')?.set?.call(el, v);
+      el.dispatchEvent(new Event('input', { bubbles: true }));
+      const typedAt = performance.now();
+      buttons[0]?.click();
+      for (const b of buttons.slice(1)) {
+        // one turn of the event loop: React has drawn the first tap (its updates wait for a
+        // microtask), while the save it started is still on its way to IndexedDB
+        await new Promise((r) => setTimeout(r, 0));
+        b?.click();
+      }
+      return tappedAt - typedAt;
+    },
+    [value, 1 + then.length] as const,
+  );
 }
 
 const section = (page: Page, name: string) => page.getByRole('navigation', { name: 'Workspace sections' }).getByRole('button', { name, exact: true });
@@ -83,14 +96,12 @@ describe('nothing typed is lost', () => {
     await ctx?.close();
   });
 
-  // Skipped: this passed on its own branch but fails after the round's merges (the title typed just
-  // before tapping another section is not on the device 10 s later); the cause is not found yet.
-  // Issue #13 item 7 stays open until it passes again.
-  it.skip('keeps a title, a vessel name and a sounding typed just before tapping another section', async () => {
+  it('keeps a title, a vessel name and a sounding typed just before tapping another section', async () => {
     await section(page, 'Ship').click();
     const gaps: number[] = [];
-    gaps.push(await typeThenTap(page.getByLabel('Survey title'), 'Kept title one', section(page, 'Readings')));
-    await section(page, 'Ship').click();
+    // Ship left and reopened at once: the new form is filled from the copy the title's save has not
+    // reached yet, and saving the vessel name typed there must not put the old title back
+    gaps.push(await typeThenTap(page.getByLabel('Survey title'), 'Kept title one', section(page, 'Readings'), section(page, 'Ship')));
     gaps.push(await typeThenTap(page.getByLabel('Vessel name'), 'MV Kept Name', section(page, 'Spaces')));
 
     await section(page, 'Contents').click();

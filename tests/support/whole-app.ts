@@ -18,7 +18,8 @@ export interface WholeApp {
   stop: () => Promise<void>;
 }
 
-export async function startWholeApp(name: string): Promise<WholeApp> {
+/** `minify: false` keeps the client's function names (for reading a profile). */
+export async function startWholeApp(name: string, { minify = true }: { minify?: boolean } = {}): Promise<WholeApp> {
   const stack = await startTestStack(name);
   // Each run builds into its own folder, so parallel runs never overwrite each other's client.
   const clientDir = path.join(stack.workDir, 'client');
@@ -27,7 +28,7 @@ export async function startWholeApp(name: string): Promise<WholeApp> {
   const nodeEnv = process.env.NODE_ENV;
   process.env.NODE_ENV = 'production';
   try {
-    await build({ configFile: path.join(ROOT, 'vite.config.ts'), logLevel: 'error', mode: 'production', build: { outDir: clientDir, emptyOutDir: true } });
+    await build({ configFile: path.join(ROOT, 'vite.config.ts'), logLevel: 'error', mode: 'production', build: { outDir: clientDir, emptyOutDir: true, minify } });
   } finally {
     process.env.NODE_ENV = nodeEnv;
   }

@@ -5,7 +5,7 @@
  * the document and append the edit to the outbox in ONE Dexie transaction — no network inside, so an edit is either fully kept or
  * not made at all, even if the phone dies mid-write. Sync (./sync.ts) does the rest.
  */
-import { SurveySchema, type Survey } from '@shared/schemas/survey';
+import { isValidEdit, SurveySchema, type Survey } from '@shared/schemas/survey';
 import {
   SurveyOpSchema,
   type ConflictTarget,
@@ -19,6 +19,7 @@ import { reportStorageError } from './storage';
 import { db, getDeviceId } from './db';
 import { rememberedUserId } from '@client/lib/identity';
 import { noteUnsavedEdit, strikeUnsavedEdit, unsavedEdits } from './unsaved-edits';
+import { rebaseEdit } from './rebase-edit';
 
 export {
   dismissRejectedChange,
@@ -53,6 +54,15 @@ export function subscribeLocalChanges(fn: Listener): () => void {
 const notify = () => listeners.forEach((fn) => fn());
 /** For writes kept outside the survey (replies to reviewers): sync pushes them soon, as after any edit. */
 export const announceLocalChange = notify;
+
+/**
+ * The survey after an edit, if valid. Only what the edit changed is checked (isValidEdit, exact given
+ * that `prev` is valid, as every stored survey is): re-parsing a 2,000-boundary ship on every sounding
+ * held a phone's main thread for over a second. Where that check refuses, the full parse says why.
+ */
+function validEdit(prev: Survey, next: Survey): Survey {
+  return isValidEdit(prev, next) ? next : validate(next);
+}
 
 function validate(doc: Survey): Survey {
   const parsed = SurveySchema.safeParse(doc);
@@ -126,9 +136,11 @@ function queuedOp(doc: Survey, op: SurveyOp): SurveyOp {
 /**
  * Applies edits to a survey on this device and queues them for the server, all in one transaction.
  * Each edit must leave a valid survey (the server checks the same); on error nothing is written.
- * Returns the ids of the queued changes.
+ * `bases[i]`, when given, is edit i as its form started (or last saved): only what changed since is
+ * written over what the device holds by then (./rebase-edit.ts), so a form opened on an older copy
+ * never puts older values back. Returns the ids of the queued changes.
  */
-export async function applyLocalChanges(surveyId: string, ops: SurveyOp[]): Promise<string[]> {
+export async function applyLocalChanges(surveyId: string, ops: SurveyOp[], bases: readonly (SurveyOp | undefined)[] = []): Promise<string[]> {
   const parsedOps = ops.map((op) => {
     const r = SurveyOpSchema.safeParse(op);
     if (!r.success) throw new LocalChangeError('This change is not valid.', formatZodIssues(r.error));
@@ -136,9 +148,9 @@ export async function applyLocalChanges(surveyId: string, ops: SurveyOp[]): Prom
     return r.data;
   });
   // Noted before the first wait: a page closing now still keeps the edit (./unsaved-edits.ts).
-  const note = parsedOps.some((op) => op.kind === 'resolve-conflict') ? null : noteUnsavedEdit(surveyId, parsedOps);
+  const note = parsedOps.some((op) => op.kind === 'resolve-conflict') ? null : noteUnsavedEdit(surveyId, parsedOps, bases);
   try {
-    return await storeLocalChanges(surveyId, parsedOps);
+    return await storeLocalChanges(surveyId, parsedOps, bases);
   } finally {
     if (note !== null) strikeUnsavedEdit(note);
   }
@@ -152,7 +164,7 @@ export async function replayUnsavedEdits(): Promise<number> {
   let applied = 0;
   for (const e of unsavedEdits()) {
     try {
-      applied += (await storeLocalChanges(e.surveyId, e.ops)).length;
+      applied += (await storeLocalChanges(e.surveyId, e.ops, e.bases ?? [])).length;
     } catch (err) {
       // a broken store keeps the note for the next start; an edit the survey no longer takes is dropped
       if (!(err instanceof LocalChangeError)) throw err;
@@ -163,10 +175,22 @@ export async function replayUnsavedEdits(): Promise<number> {
   return applied;
 }
 
+/** `op` with only what changed since `base` put over the survey as it is now (see ./rebase-edit.ts). */
+function rebasedOp(doc: Survey, op: SurveyOp, base: SurveyOp | undefined): SurveyOp {
+  if (op.kind === 'set' && base?.kind === 'set' && base.path === op.path) {
+    return { ...op, value: rebaseEdit(doc[op.path], base.value, op.value) } as SurveyOp;
+  }
+  if (op.kind === 'upsert' && base?.kind === 'upsert' && base.collection === op.collection && base.entity.id === op.entity.id) {
+    const current = findEntity(doc, op.collection, op.entity.id);
+    if (current) return { ...op, entity: rebaseEdit(current, base.entity, op.entity) } as SurveyOp;
+  }
+  return op;
+}
+
 /** A `set` to the value the survey already has changes nothing (so a replayed edit queues nothing). */
 const unchangedSet = (doc: Survey, op: SurveyOp) => op.kind === 'set' && deepEqual(doc[op.path], op.value);
 
-async function storeLocalChanges(surveyId: string, parsedOps: readonly SurveyOp[]): Promise<string[]> {
+async function storeLocalChanges(surveyId: string, parsedOps: readonly SurveyOp[], bases: readonly (SurveyOp | undefined)[]): Promise<string[]> {
   const userId = rememberedUserId() ?? undefined;
   const deviceId = await getDeviceId(userId ?? null);
   const ids: string[] = [];
@@ -175,10 +199,10 @@ async function storeLocalChanges(surveyId: string, parsedOps: readonly SurveyOp[
     if (!local) throw new LocalChangeError('This survey is not on this device.');
     let doc = local.doc;
     const now = new Date().toISOString();
-    for (const raw of parsedOps) {
-      const op = queuedOp(doc, raw);
+    for (const [i, raw] of parsedOps.entries()) {
+      const op = queuedOp(doc, rebasedOp(doc, raw, bases[i]));
       if ((op.kind === 'upsert' && op.fields && op.fields.length === 0) || unchangedSet(doc, op)) continue; // nothing changed
-      doc = validate(applyOp(doc, op));
+      doc = validEdit(doc, applyOp(doc, op));
       const id = crypto.randomUUID();
       ids.push(id);
       await db.outbox.add({
@@ -200,9 +224,9 @@ async function storeLocalChanges(surveyId: string, parsedOps: readonly SurveyOp[
   return ids;
 }
 
-/** Applies one edit on this device and queues it (see applyLocalChanges). Returns the change id, or null if it changed nothing. */
-export async function applyLocalChange(surveyId: string, op: SurveyOp): Promise<string | null> {
-  const [id] = await applyLocalChanges(surveyId, [op]);
+/** Applies one edit on this device and queues it (see applyLocalChanges, also for `base`). Returns the change id, or null if it changed nothing. */
+export async function applyLocalChange(surveyId: string, op: SurveyOp, base?: SurveyOp): Promise<string | null> {
+  const [id] = await applyLocalChanges(surveyId, [op], [base]);
   return id ?? null;
 }
 

@@ -13,6 +13,8 @@ interface Note {
   n: number;
   surveyId: string;
   ops: SurveyOp[];
+  /** What each edit's form started from (see applyLocalChanges). */
+  bases?: (SurveyOp | undefined)[];
 }
 
 function read(): Note[] {
@@ -35,10 +37,10 @@ function write(list: Note[]): void {
 }
 
 /** Notes an edit before it is written; returns its number, for `strikeUnsavedEdit`. */
-export function noteUnsavedEdit(surveyId: string, ops: SurveyOp[]): number {
+export function noteUnsavedEdit(surveyId: string, ops: SurveyOp[], bases: readonly (SurveyOp | undefined)[] = []): number {
   const list = read();
   const n = (list.length ? Math.max(...list.map((e) => e.n)) : 0) + 1;
-  write([...list, { n, surveyId, ops }]);
+  write([...list, { n, surveyId, ops, ...(bases.some(Boolean) ? { bases: [...bases] } : {}) }]);
   return n;
 }
 

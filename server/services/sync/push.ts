@@ -21,6 +21,7 @@ import { CheckEachChange, runFromKnown, runFromRead, runLocked, type ConfirmMemb
 import { NeedsLock, type RunOutcome } from './writes';
 import type { KnownSurveyState, SurveyStateCache } from './state-cache';
 import type { DeviceOwners } from './device-owners';
+import { refuseReviewersEdits } from '../editing';
 
 /** PostgreSQL errors worth retrying the whole run for: serialization failure, deadlock, a racing insert. */
 const RETRYABLE = new Set(['40001', '40P01', '23505']);
@@ -67,6 +68,8 @@ export async function push(db: Db, auth: AuthContext, changes: SurveyChange[], o
   const results: PushResult[] = [];
   const conflictIds: string[] = [];
   if (changes.length) await opts.devices?.check(auth, changes.map((c) => c.deviceId));
+  // "Send for review" is no edit, and a new survey is the caller's own
+  await refuseReviewersEdits(db, auth, changes.filter((c) => c.op.kind !== 'submit' && c.op.kind !== 'create').map((c) => c.surveyId));
   let confirm = opts.confirm;
   for (const run of runsOf(changes)) {
     const out = await pushRun(db, { auth, run, checkEach: false, confirm }, opts);

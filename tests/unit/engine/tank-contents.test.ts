@@ -1,6 +1,9 @@
 /** The split of a tank's measured layers into its own liquid and flood water, and the room left. */
 import { describe, expect, it } from 'vitest';
-import { levelOfMouldedVolume, splitOwnLiquid, tankFloodRoom } from '@shared/engine';
+import { computeSurvey, levelOfMouldedVolume, mouldedVolumeM3, splitOwnLiquid, tankFloodRoom } from '@shared/engine';
+import { tankWords } from '@shared/review/tank-words';
+import { figureNotes } from '@shared/review/assumptions';
+import { baseSurvey, boxCompartment } from './fixtures';
 import { TankContentsSchema } from '@shared/schemas/flooding';
 
 describe('splitOwnLiquid', () => {
@@ -46,5 +49,33 @@ describe('TankContentsSchema', () => {
     expect(r.error!.issues.map((i) => i.path.join('.')).sort()).toEqual(['fluidId', 'volumeM3']);
     expect(TankContentsSchema.safeParse({ state: 'empty' }).success).toBe(true);
     expect(TankContentsSchema.safeParse({ state: 'full', fluidId: 'dma' }).success).toBe(true);
+  });
+});
+
+describe('mouldedVolumeM3', () => {
+  it('a box 10 × 10 × 4 m is 400 m³; a triangular prism ½ × 4 × 3 × 10 = 60 m³', () => {
+    expect(mouldedVolumeM3({ kind: 'box', min: { x: 0, y: -5, z: 0 }, max: { x: 10, y: 5, z: 4 } })).toBeCloseTo(400, 9);
+    expect(mouldedVolumeM3({ kind: 'prism', xAftM: 0, xForeM: 10, section: [{ y: 0, z: 0 }, { y: 4, z: 0 }, { y: 0, z: 3 }] })).toBeCloseTo(60, 9);
+  });
+});
+
+describe('a tank in words and in the assumptions', () => {
+  const survey = (tank: Parameters<typeof boxCompartment>[2]) => {
+    const s = baseSurvey({ aft: 3, fwd: 3 });
+    s.compartments.push(boxCompartment([0, -5, 0], [10, 5, 4], { spaceType: 'tank', name: 'DB tank', ...tank }));
+    return s;
+  };
+  it('names its own liquid, the flood water and the room left, with units in both systems', () => {
+    const r = computeSurvey(survey({ openToSea: true, tankContents: { state: 'full', fluidId: 'dma' } }));
+    expect(tankWords(r.compartments[0].tank!, 'si')).toMatch(/^own Marine distillate DMA 380 m³ \(full\) · flood water 0 m³ of the 0 m³ room its own liquid leaves \(0\.00 of the tank\)$/);
+    expect(tankWords(r.compartments[0].tank!, 'us')).toMatch(/ft³/);
+  });
+  it('a holed tank with its own liquid not stated is an assumed figure; a stated one is not', () => {
+    expect(figureNotes(survey({ openToSea: true })).some((n) => n.field === 'tankContents')).toBe(true);
+    expect(figureNotes(survey({ openToSea: true, tankContents: { state: 'empty' } })).some((n) => n.field === 'tankContents')).toBe(false);
+  });
+  it('a stated volume over what the tank holds is flagged, not dropped in silence', () => {
+    const r = computeSurvey(survey({ tankContents: { state: 'part-full', fluidId: 'dma', volumeM3: 500 } }));
+    expect(r.warnings.some((w) => w.code === 'tank-volume-over-capacity')).toBe(true);
   });
 });

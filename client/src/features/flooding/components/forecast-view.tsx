@@ -9,7 +9,7 @@ import type { Survey } from '@shared/schemas/survey';
 import type { UnitSystem } from '@shared/units/units';
 import { FORECAST_CAUTION, STABILITY_CAUTION, durationWords, hmm } from '@shared/api/cautions';
 import { fmt, num, percent, unitLabel } from '@client/lib/unit-system';
-import { downfloodingSentences, forecastAttitudeWords, volumeBalanceSentence } from '@shared/review/forecast-words';
+import { downfloodingSentences, flowWords, forecastAttitudeWords, volumeBalanceSentence } from '@shared/review/forecast-words';
 import { formatShipTime, formatUtc, utcOffsetWords } from '@shared/review/time-words';
 
 const ForecastChart = lazy(() => import('./forecast-chart'));
@@ -59,7 +59,7 @@ function ForecastAttitude({ forecast, survey, system }: { forecast: FloodForecas
                     <th scope="row">{k === 0 ? 'readings' : hmm(forecast.times[k])}</th>
                     <td>{num(a.meanDraftM, 'length', system, 4)}</td>
                     <td>
-                      {num(Math.abs(a.trimM), 'length', system, 2)} {a.trimM > 0.005 ? 'stern' : a.trimM < -0.005 ? 'head' : ''}
+                      {num(Math.abs(a.trimM), 'length', system, 2)} {a.trimM > 0.005 ? 'by stern' : a.trimM < -0.005 ? 'by head' : ''}
                     </td>
                     <td>{heelWords(a.heelDeg)}</td>
                     <td className={gm !== null && gm <= 0 ? 'font-bold text-danger' : ''}>{gm === null ? '—' : num(gm, 'length', system, 3)}</td>
@@ -191,8 +191,8 @@ export function ForecastView({ forecast, survey, system, now = Date.now() }: { f
               const last = s.levelM.length - 1;
               return (
                 <li key={s.id} className="rounded-md border-2 border-line bg-card p-2 text-sm" data-testid="forecast-space">
-                  <b>{s.name}</b>: level {fmt(s.levelM[0], 'length', system, 3)} now, {fmt(s.levelM[last], 'length', system, 3)} at the end; flow now{' '}
-                  {fmt(s.netFlowM3S[0], 'flow', system, 3)}. {s.equalisedAtS === null ? 'Still moving at the end.' : s.equalisedAtS === 0 ? 'Steady now.' : `Settles in ${hmm(s.equalisedAtS)}.`}
+                  <b>{s.name}</b>: level {fmt(s.levelM[0], 'length', system, 3)} above its bottom now, {fmt(s.levelM[last], 'length', system, 3)} at the end; flow now{' '}
+                  {flowWords(s.netFlowM3S[0], system)}. {s.equalisedAtS === null ? 'Still moving at the end.' : s.equalisedAtS === 0 ? 'Steady now.' : `Settles in ${hmm(s.equalisedAtS)}.`}
                   {s.pumps && (
                     <span className="block">
                       Pumps ({fmt(s.pumps.capacityM3S, 'flow', system, 3)}):{' '}
@@ -239,7 +239,7 @@ export function ForecastView({ forecast, survey, system, now = Date.now() }: { f
                 {st.problems.length > 0 ? (
                   <b className="text-danger">▲ left out of this forecast: {st.problems.join('; ')}.</b>
                 ) : (
-                  `${at(st.startS)} → ${at(st.stopS)}, ${hmm(st.startS)} → ${hmm(st.stopS)} after the readings (${st.stoppedBy === 'level' ? 'stopped at its level' : st.stoppedBy === 'time' ? 'stopped at its time' : 'to the end'}); level ${fmt(st.atStart?.levelM, 'length', system, 3)} → ${fmt(st.atStop?.levelM, 'length', system, 3)}; worst load ${percent(st.atStart?.worstUtilisation)} → ${percent(st.atStop?.worstUtilisation)}`
+                  `${at(st.startS)} → ${at(st.stopS)}, ${hmm(st.startS)} → ${hmm(st.stopS)} after the readings (${st.stoppedBy === 'level' ? 'stopped at its level' : st.stoppedBy === 'time' ? 'stopped at its time' : 'to the end'}); level above its bottom ${fmt(st.atStart?.levelM, 'length', system, 3)} → ${fmt(st.atStop?.levelM, 'length', system, 3)}; worst load ${percent(st.atStart?.worstUtilisation)} → ${percent(st.atStop?.worstUtilisation)}`
                 )}
               </li>
             ))}

@@ -5,8 +5,8 @@
  * view (TanStack Virtual), so a ship of thousands of boundaries stays a few hundred elements.
  */
 import { SortableHeaderRows } from '@client/components/ui/sortable-header';
-import { useMemo, useRef, useState } from 'react';
-import { useVirtualizer } from '@tanstack/react-virtual';
+import { useMemo, useState } from 'react';
+import { useVirtualWindow } from '@client/components/ui/use-virtual-window';
 import {
   createColumnHelper,
   flexRender,
@@ -101,13 +101,8 @@ export function BoundaryResultsTable({
   });
 
   const all = table.getRowModel().rows;
-  const virtual = all.length > VIRTUAL_FROM;
-  const scroller = useRef<HTMLDivElement>(null);
-  const v = useVirtualizer({ count: virtual ? all.length : 0, getScrollElement: () => scroller.current, estimateSize: () => ROW_ESTIMATE_PX, overscan: 8 });
-  const items = virtual ? v.getVirtualItems() : [];
-  const shown = virtual ? items.map((i) => all[i.index]) : all;
-  const padTop = virtual && items.length > 0 ? items[0].start : 0;
-  const padBottom = virtual && items.length > 0 ? v.getTotalSize() - items[items.length - 1].end : 0;
+  const { scroller, virtual, indices, padTop, padBottom } = useVirtualWindow({ count: all.length, estimatePx: ROW_ESTIMATE_PX, from: VIRTUAL_FROM });
+  const shown = indices.map((i) => all[i]);
 
   if (rows.length === 0) {
     return <p className="text-ink-soft">No boundaries yet. Add one under Plates to see its load.</p>;

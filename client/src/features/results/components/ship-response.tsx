@@ -95,7 +95,7 @@ export function ShipResponsePanel({ survey, results, system }: { survey: Survey;
       </div>
       <dl className="grid grid-cols-2 gap-x-3 gap-y-1 text-sm sm:grid-cols-3">
         <div>
-          <dt className="text-xs font-bold uppercase text-ink-soft">GM fluid</dt>
+          <dt className="text-xs font-bold uppercase text-ink-soft">{response.ground && !response.ground.afloat ? 'GM fluid aground' : 'GM fluid'}</dt>
           <dd className="text-lg font-bold tabular-nums" data-testid="gm-fluid">
             {L(response.gmFluidM, 4)}
           </dd>
@@ -110,6 +110,22 @@ export function ShipResponsePanel({ survey, results, system }: { survey: Survey;
           <dt className="text-xs font-bold uppercase text-ink-soft">Free surface</dt>
           <dd className="tabular-nums">−{L(response.freeSurfaceCorrectionM)}</dd>
         </div>
+        {response.ground && !response.ground.afloat && (
+          <>
+            <div>
+              <dt className="text-xs font-bold uppercase text-ink-soft">Ground reaction</dt>
+              <dd className="font-bold tabular-nums" data-testid="ground-reaction">
+                {fmt(response.ground.reactionKg, 'mass', system, 4)}
+              </dd>
+            </div>
+            <div>
+              <dt className="text-xs font-bold uppercase text-ink-soft">GM fluid afloat</dt>
+              <dd className="tabular-nums" data-testid="gm-afloat">
+                {L(response.ground.free.gmFluidM, 4)}
+              </dd>
+            </div>
+          </>
+        )}
         <div>
           <dt className="text-xs font-bold uppercase text-ink-soft">Displacement</dt>
           <dd className="tabular-nums">{fmt(response.displacementKg, 'mass', system, 5)}</dd>

@@ -1,9 +1,9 @@
 /** The whole ship at a glance: heel, trim, flood water, oil, their centroid, the worst utilisation. */
 import type { BoundarySummary, SurveyLevelResults } from '@shared/engine';
 import type { UnitSystem } from '@shared/units/units';
-import { fmt, num, unitLabel } from '@client/lib/unit-system';
+import { fmt } from '@client/lib/unit-system';
 import type { ReactNode } from 'react';
-import { PointText } from './point-text';
+import { pointParts } from '@shared/units/point-words';
 import { UtilisationBadge } from './utilisation';
 
 function Tile({ label, value, sub, testId }: { label: string; value: string; sub?: ReactNode; testId?: string }) {
@@ -21,7 +21,8 @@ function Tile({ label, value, sub, testId }: { label: string; value: string; sub
 export function ShipTotals({ results, rows, system }: { results: SurveyLevelResults; rows: readonly BoundarySummary[]; system: UnitSystem }) {
   const { frame, ship, summary } = results;
   const worst = rows.find((b) => b.id === summary.maxUtilisationBoundaryId);
-  const L = (v: number) => num(v, 'length', system, 3);
+  // where along the ship first ("244.6 ft fwd of AP"), then across and up, each with its unit and side
+  const centroid = ship.allLiquids.centroid ? pointParts(ship.allLiquids.centroid, system) : null;
   // heel and trim are only real once the drafts and the heel are read
   const unread = (frame.missingReadings ?? []).length > 0;
   return (
@@ -42,10 +43,14 @@ export function ShipTotals({ results, rows, system }: { results: SurveyLevelResu
         />
         <Tile label="Flood water" value={fmt(ship.floodWater.massKg, 'mass', system)} sub={fmt(ship.floodWater.volumeM3, 'volume', system)} testId="total-flood-water" />
         <Tile label="Oil" value={fmt(ship.oil.massKg, 'mass', system)} sub={fmt(ship.oil.volumeM3, 'volume', system)} />
+        {ship.tankContents.massKg > 0 && (
+          <Tile label="Tanks’ own liquid" value={fmt(ship.tankContents.massKg, 'mass', system)} sub={`${fmt(ship.tankContents.volumeM3, 'volume', system)}, not flood water`} testId="total-tank-contents" />
+        )}
         <Tile
-          label={`All liquid centroid (${unitLabel('length', system)})`}
-          value={ship.allLiquids.centroid ? `x ${L(ship.allLiquids.centroid.x)}` : '—'}
-          sub={<PointText point={ship.allLiquids.centroid} system={system} />}
+          label="All liquid centroid"
+          value={centroid ? centroid[0] : '—'}
+          sub={centroid ? centroid.slice(1).join(', ') : undefined}
+          testId="total-centroid"
         />
         <Tile label="Sea density" value={fmt(frame.seaDensityKgM3, 'density', system)} />
         <div className="col-span-2 rounded-lg border border-line bg-card p-2">

@@ -5,6 +5,7 @@
  */
 import { useMemo, useState } from 'react';
 import type { UnitSystem } from '@shared/units/units';
+import type { CompareResponse } from '@shared/api/review';
 import { changeLineText, changeWords, groupSittings, type ChangeLine, type Sitting } from '@shared/review/change-words';
 import { countWords } from '@shared/review/plain-words';
 import { formatUtcSpan } from '@shared/review/time-words';
@@ -12,6 +13,7 @@ import { fmt } from '@client/lib/unit-system';
 import { UtilisationBadge } from '@client/features/results/components/utilisation';
 import { useCompare, useRevisions } from '../api/history';
 import { inputCls } from '@client/components/ui/fields';
+import { useVirtualWindow } from '@client/components/ui/use-virtual-window';
 import type { InputTarget } from '@client/features/survey-inputs/components/survey-inputs';
 
 function SittingEntry({ s, words, onShowInput }: { s: Sitting; words: (s: Sitting) => ChangeLine[]; onShowInput?: (t: InputTarget) => void }) {
@@ -67,6 +69,41 @@ function RevisionSelect(props: { label: string; revisions: { revision: number }[
   );
 }
 
+/** Every boundary's net load in both revisions: a long ship's thousands of rows render only those in view. */
+function RevisionCompareTable({ compare, system }: { compare: CompareResponse; system: UnitSystem }) {
+  const rows = compare.boundaries;
+  const { scroller, virtual, indices, padTop, padBottom } = useVirtualWindow({ count: rows.length, estimatePx: 33 });
+  return (
+    <div ref={scroller} className={virtual ? 'max-h-[60vh] overflow-y-auto' : undefined} tabIndex={virtual ? 0 : undefined} role={virtual ? 'region' : undefined} aria-label={virtual ? `Net loads of ${countWords(rows.length, 'boundary', 'boundaries')} (scrolls)` : undefined}>
+      <table className="mt-1 w-full text-sm">
+        <thead>
+          <tr className="text-left text-xs uppercase text-ink-soft">
+            <th className="py-1 pr-2">Boundary</th>
+            <th className="py-1 pr-2 text-right">Net load {compare.a.revision}</th>
+            <th className="py-1 pr-2 text-right">Net load {compare.b.revision}</th>
+            <th className="py-1 text-right">Utilisation</th>
+          </tr>
+        </thead>
+        <tbody>
+          {padTop > 0 && <tr aria-hidden="true" style={{ height: padTop }} />}
+          {indices.map((i) => {
+            const row = rows[i];
+            return (
+              <tr key={row.boundaryId} className="border-t border-line">
+                <td className="py-1 pr-2">{row.name}</td>
+                <td className="py-1 pr-2 text-right tabular-nums">{row.a ? fmt(row.a.netForceN, 'force', system) : 'absent'}</td>
+                <td className="py-1 pr-2 text-right tabular-nums">{row.b ? fmt(row.b.netForceN, 'force', system) : 'absent'}</td>
+                <td className="py-1 text-right">{row.b ? <UtilisationBadge value={row.b.maxUtilisation} compact /> : '—'}</td>
+              </tr>
+            );
+          })}
+          {padBottom > 0 && <tr aria-hidden="true" style={{ height: padBottom }} />}
+        </tbody>
+      </table>
+    </div>
+  );
+}
+
 export function HistoryPanel(props: {
   surveyId: string;
   names: ReadonlyMap<string, string>;
@@ -105,26 +142,7 @@ export function HistoryPanel(props: {
               <p className="text-sm text-ink-soft">
                 {countWords(compare.data.differenceCount, 'number differs', 'numbers differ')}. Engines: {compare.data.a.engineVersion ?? '—'} / {compare.data.b.engineVersion ?? '—'}.
               </p>
-              <table className="mt-1 w-full text-sm">
-                <thead>
-                  <tr className="text-left text-xs uppercase text-ink-soft">
-                    <th className="py-1 pr-2">Boundary</th>
-                    <th className="py-1 pr-2 text-right">Net load {compare.data.a.revision}</th>
-                    <th className="py-1 pr-2 text-right">Net load {compare.data.b.revision}</th>
-                    <th className="py-1 text-right">Utilisation</th>
-                  </tr>
-                </thead>
-                <tbody>
-                  {compare.data.boundaries.map((row) => (
-                    <tr key={row.boundaryId} className="border-t border-line">
-                      <td className="py-1 pr-2">{row.name}</td>
-                      <td className="py-1 pr-2 text-right tabular-nums">{row.a ? fmt(row.a.netForceN, 'force', system) : 'absent'}</td>
-                      <td className="py-1 pr-2 text-right tabular-nums">{row.b ? fmt(row.b.netForceN, 'force', system) : 'absent'}</td>
-                      <td className="py-1 text-right">{row.b ? <UtilisationBadge value={row.b.maxUtilisation} compact /> : '—'}</td>
-                    </tr>
-                  ))}
-                </tbody>
-              </table>
+              <RevisionCompareTable compare={compare.data} system={system} />
             </div>
           )}
         </div>

@@ -7,7 +7,7 @@ import { measureLabel, showField } from '../utils/form-units';
 import { NumberInput, TextInput, SelectInput, FormError, secondaryBtn, dangerBtn, inputCls, Field, errorAt } from '@client/components/ui/fields';
 import { useAutosave } from '../hooks/use-autosave';
 import { SaveIndicator } from './save-indicator';
-import type { Apply } from '../utils/types';
+import type { Apply, EditOp } from '../utils/types';
 import { useFrameTable } from '../utils/frames';
 import { PLANE_AXES, SIDE_WORDS } from '../utils/plane-geometry';
 import { boundaryResolver, boundaryToForm, sideOptions, type BoundaryForm } from '../utils/boundary-form';
@@ -40,7 +40,8 @@ export function BoundaryEditor({ boundary, survey, apply, system }: { boundary: 
     resolver: boundaryResolver(boundary, system, frames),
     defaultValues: boundaryToForm(boundary, system),
   });
-  const state = useAutosave(form, (v) => apply({ kind: 'upsert', collection: 'boundaries', entity: v }));
+  const edit = (v: Boundary): EditOp => ({ kind: 'upsert', collection: 'boundaries', entity: v });
+  const state = useAutosave(form, (v, base) => apply(edit(v), base && edit(base)));
   const { register, formState, watch } = form;
   const e = formState.errors;
   const lu = measureLabel('length', system);

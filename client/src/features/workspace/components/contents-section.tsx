@@ -1,19 +1,21 @@
 /** "Contents": what each compartment holds in the readings in use: layers bottom up, each level from a sounding, ullage or the sea, and the gas space. */
 import { useFieldArray, useForm } from 'react-hook-form';
 import { ContentsSchema, type Compartment, type Condition, type Contents, type LevelSource } from '@shared/schemas/survey';
-import { FLUID_CATALOGUE, catalogueFluid } from '@shared/fluids/catalogue';
+import { catalogueFluid } from '@shared/fluids/catalogue';
+import { fluidOptions } from '../utils/fluid-options';
 import type { UnitSystem } from '@shared/units/units';
 import { formatNumber } from '@shared/units/units';
 import { byKey, measureLabel, parseField, showField, unitResolver } from '../utils/form-units';
 import { NumberInput, SelectInput, FormError, primaryBtn, secondaryBtn, dangerBtn, errorAt } from '@client/components/ui/fields';
 import { useAutosave } from '../hooks/use-autosave';
 import { SaveIndicator } from './save-indicator';
-import type { Apply, SectionProps } from '../utils/types';
+import type { Apply, EditOp, SectionProps } from '../utils/types';
 import { activeCondition, newId } from '../utils/new-entities';
 import { display, unitLabel, fmt } from '@client/lib/unit-system';
 import type { Survey } from '@shared/schemas/survey';
 import { settleMarks, withMark, type Marks } from '@shared/schemas/marks';
 import { MarkChip } from './mark-chip';
+import { VirtualList } from '@client/components/ui/virtual-list';
 import { withheldSentence } from '@shared/engine';
 import { formatShipAndUtc } from '@shared/review/time-words';
 import { conditionName } from '@shared/review/plain-words';
@@ -96,11 +98,6 @@ function toModel(v: ContentsForm, compartmentId: string, system: UnitSystem, bef
   };
 }
 
-function fluidOptions(survey: Survey) {
-  const own = survey.fluids.filter((f) => !catalogueFluid(f.id)).map((f) => ({ value: f.id, label: `${f.name} (survey)` }));
-  return [...FLUID_CATALOGUE.map((f) => ({ value: f.id, label: f.name })), ...own];
-}
-
 function ContentsEditor({ survey, condition, compartment, contents, apply, system }: { survey: Survey; condition: Condition; compartment: Compartment; contents: Contents; apply: Apply; system: UnitSystem }) {
   const form = useForm<ContentsForm, unknown, Contents>({
     mode: 'onChange',
@@ -112,10 +109,9 @@ function ContentsEditor({ survey, condition, compartment, contents, apply, syste
     },
   });
   const { fields, append, remove, move } = useFieldArray({ control: form.control, name: 'layers', keyName: 'key' });
-  const save = (v: Contents) => {
-    const others = condition.contents.filter((k) => k.compartmentId !== compartment.id);
-    return apply({ kind: 'upsert', collection: 'conditions', entity: { ...condition, contents: [...others, v] } });
-  };
+  const others = condition.contents.filter((k) => k.compartmentId !== compartment.id);
+  const edit = (v: Contents): EditOp => ({ kind: 'upsert', collection: 'conditions', entity: { ...condition, contents: [...others, v] } });
+  const save = (v: Contents, base: Contents | undefined) => apply(edit(v), base && edit(base));
   const state = useAutosave(form, save);
   const { register, formState, watch } = form;
   const e = formState.errors;
@@ -161,7 +157,7 @@ function ContentsEditor({ survey, condition, compartment, contents, apply, syste
                 </span>
               </div>
               <div className="grid grid-cols-2 gap-3 sm:grid-cols-4">
-                <SelectInput register={register} name={`layers.${i}.fluidId`} label="Liquid" errors={{ layers: { [i]: { fluidId: layerErr(i, 'fluidId') } } }} options={fluidOptions(survey)} />
+                <SelectInput register={register} name={`layers.${i}.fluidId`} label="Liquid" errors={{ layers: { [i]: { fluidId: layerErr(i, 'fluidId') } } }} options={fluidOptions(survey.fluids)} />
                 <NumberInput
                   register={register}
                   name={`layers.${i}.density`}
@@ -298,15 +294,18 @@ export function ContentsSection({ survey, results, apply, system, selectedId, se
       {survey.compartments.length === 0 ? (
         <p className="text-ink-soft">Add compartments under Spaces first.</p>
       ) : (
-        <ul className="flex flex-wrap gap-2" aria-label="Compartment">
-          {survey.compartments.map((c) => (
-            <li key={c.id}>
-              <button type="button" className={c.id === compartment?.id ? primaryBtn : secondaryBtn} aria-pressed={c.id === compartment?.id} onClick={() => select(c.id)}>
-                {c.name}
-              </button>
-            </li>
-          ))}
-        </ul>
+        <VirtualList
+          items={survey.compartments}
+          itemKey={(c) => c.id}
+          label="Compartment"
+          className="flex flex-wrap gap-2"
+          active={compartment ? survey.compartments.indexOf(compartment) : -1}
+          render={(c) => (
+            <button type="button" className={c.id === compartment?.id ? primaryBtn : secondaryBtn} aria-pressed={c.id === compartment?.id} onClick={() => select(c.id)}>
+              {c.name}
+            </button>
+          )}
+        />
       )}
       {compartment && (
         <div className="rounded-lg border-2 border-hull bg-card p-3">

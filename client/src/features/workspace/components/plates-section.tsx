@@ -8,6 +8,7 @@ import { FACES, faceBoundary, geometryToPlaneShape, planeShapeToGeometry, type F
 import { newBoundary, newId } from '../utils/new-entities';
 import { UtilisationBadge } from '@client/features/results/components/utilisation';
 import { fmt } from '@client/lib/unit-system';
+import { VirtualList } from '@client/components/ui/virtual-list';
 
 const FACE_LABEL: Record<Face, string> = {
   aft: 'Aft bulkhead',
@@ -101,26 +102,30 @@ export function PlatesSection({ survey, rows, apply, system, selectedId, select 
       <button type="button" className={secondaryBtn} onClick={() => void create(newBoundary(survey))}>
         + Boundary by plane and outline
       </button>
-      <ul className="space-y-1" aria-label="Boundaries">
-        {survey.boundaries.map((b) => {
+      <VirtualList
+        items={survey.boundaries}
+        itemKey={(b) => b.id}
+        label="Boundaries"
+        className="space-y-1"
+        estimatePx={56}
+        active={selected ? survey.boundaries.indexOf(selected) : -1}
+        render={(b) => {
           const r = rowById.get(b.id);
           return (
-            <li key={b.id}>
-              <button
-                type="button"
-                className={`flex min-h-touch flex-wrap items-center gap-2 rounded-md border-2 px-2 py-1 text-left ${b.id === selectedId ? 'border-hull bg-sea-soft' : 'border-line bg-card'} ${b.parentBoundaryId ? 'ml-4 w-[calc(100%-1rem)]' : 'w-full'}`}
-                aria-pressed={b.id === selectedId}
-                onClick={() => select(b.id === selectedId ? null : b.id)}
-              >
-                <span className="font-bold">{b.name}</span>
-                <span className="text-sm text-ink-soft">{KIND_LABEL[b.kind]}</span>
-                {r && <span className="ml-auto text-sm tabular-nums">{fmt(r.forceN, 'force', system)}</span>}
-                {r && <UtilisationBadge value={r.maxUtilisation} compact />}
-              </button>
-            </li>
+            <button
+              type="button"
+              className={`flex min-h-touch flex-wrap items-center gap-2 rounded-md border-2 px-2 py-1 text-left ${b.id === selectedId ? 'border-hull bg-sea-soft' : 'border-line bg-card'} ${b.parentBoundaryId ? 'ml-4 w-[calc(100%-1rem)]' : 'w-full'}`}
+              aria-pressed={b.id === selectedId}
+              onClick={() => select(b.id === selectedId ? null : b.id)}
+            >
+              <span className="font-bold">{b.name}</span>
+              <span className="text-sm text-ink-soft">{KIND_LABEL[b.kind]}</span>
+              {r && <span className="ml-auto text-sm tabular-nums">{fmt(r.forceN, 'force', system)}</span>}
+              {r && <UtilisationBadge value={r.maxUtilisation} compact />}
+            </button>
           );
-        })}
-      </ul>
+        }}
+      />
       {selected && (
         <div className="rounded-lg border-2 border-hull bg-card p-3">
           <BoundaryEditor key={`${selected.id}-${system}`} boundary={selected} survey={survey} apply={apply} system={system} />

@@ -9,7 +9,7 @@ import { byKey, measureLabel, parseField, showField, unitResolver } from '../uti
 import { NumberInput, TextInput, FormError, inputCls, primaryBtn, secondaryBtn, dangerBtn, Field } from '@client/components/ui/fields';
 import { useAutosave } from '../hooks/use-autosave';
 import { SaveIndicator } from './save-indicator';
-import type { Apply, SectionProps } from '../utils/types';
+import type { Apply, EditOp, SectionProps } from '../utils/types';
 import { activeCondition, newCondition } from '../utils/new-entities';
 import { formatNumber } from '@shared/units/units';
 import { display, unitLabel } from '@client/lib/unit-system';
@@ -64,7 +64,8 @@ function ConditionEditor({ condition, apply, system }: { condition: Condition; a
     },
   });
   // contents are edited under Contents; keep the latest ones when saving this form
-  const state = useAutosave(form, (v) => apply({ kind: 'upsert', collection: 'conditions', entity: { ...v, contents: condition.contents } }));
+  const edit = (v: Condition): EditOp => ({ kind: 'upsert', collection: 'conditions', entity: { ...v, contents: condition.contents } });
+  const state = useAutosave(form, (v, base) => apply(edit(v), base && edit(base)));
   const { register, formState, watch, setValue } = form;
   const lu = measureLabel('length', system);
   const du = unitLabel('density', system);

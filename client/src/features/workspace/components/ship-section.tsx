@@ -11,6 +11,7 @@ import { SaveIndicator } from './save-indicator';
 import type { SectionProps } from '../utils/types';
 import { frameToX, saveFrameTable, useFrameTable, type FrameTable } from '../utils/frames';
 import { formatNumber } from '@shared/units/units';
+import { deepEqual } from '@shared/sync/apply';
 
 const ShipFormSchema = z.object({
   title: z.string().trim().min(1),
@@ -64,10 +65,14 @@ export function ShipSection({ survey, apply, system }: SectionProps) {
       },
     },
   });
-  const state = useAutosave(form, async (v) => {
-    if (v.title !== survey.title) await apply({ kind: 'set', path: 'title', value: v.title });
-    if (v.casualtyDescription !== survey.casualtyDescription) await apply({ kind: 'set', path: 'casualtyDescription', value: v.casualtyDescription });
-    if (JSON.stringify(v.vessel) !== JSON.stringify(survey.vessel)) await apply({ kind: 'set', path: 'vessel', value: v.vessel });
+  // each part the person changed since the form opened (or last saved), over the device's copy as it is by then
+  const state = useAutosave(form, async (v, base) => {
+    const was = base ?? survey;
+    if (v.title !== was.title) await apply({ kind: 'set', path: 'title', value: v.title }, base && { kind: 'set', path: 'title', value: base.title });
+    if (v.casualtyDescription !== was.casualtyDescription) {
+      await apply({ kind: 'set', path: 'casualtyDescription', value: v.casualtyDescription }, base && { kind: 'set', path: 'casualtyDescription', value: base.casualtyDescription });
+    }
+    if (!deepEqual(v.vessel, was.vessel)) await apply({ kind: 'set', path: 'vessel', value: v.vessel }, base && { kind: 'set', path: 'vessel', value: base.vessel });
   });
   const { register, formState } = form;
   const lu = measureLabel('length', system);

@@ -1,19 +1,23 @@
 /** "Spaces": the compartments, as a box or a prism between two frames, with permeability and openness to the sea. */
 import { MarkChip } from './mark-chip';
 import { useForm } from 'react-hook-form';
-import { useId } from 'react';
-import { CompartmentSchema, type Compartment } from '@shared/schemas/survey';
+import { useId, useMemo } from 'react';
+import { CompartmentSchema, type Compartment, type Survey } from '@shared/schemas/survey';
+import type { TankState } from '@shared/schemas/flooding';
+import { mouldedVolumeM3, tankFloodRoom, TANK_PERMEABILITY_SOURCE } from '@shared/engine';
+import { fluidOptions } from '../utils/fluid-options';
 import { CARGO_PERMEABILITY, defaultPermeability, SPACE_TYPES, type CargoState, type SpaceType } from '@shared/schemas/space-types';
 import type { UnitSystem } from '@shared/units/units';
 import { byKey, measureLabel, parseField, showField, unitResolver } from '../utils/form-units';
 import { NumberInput, TextInput, SelectInput, FormError, primaryBtn, dangerBtn, secondaryBtn, inputCls, Field, errorAt } from '@client/components/ui/fields';
 import { useAutosave } from '../hooks/use-autosave';
 import { SaveIndicator } from './save-indicator';
-import type { Apply, SectionProps } from '../utils/types';
+import type { Apply, EditOp, SectionProps } from '../utils/types';
 import { newCompartment } from '../utils/new-entities';
 import { frameToX, parseFrameText, useFrameTable, type FrameTable } from '../utils/frames';
 import { parseX } from '../utils/parse-x';
 import { fmt } from '@client/lib/unit-system';
+import { VirtualList } from '@client/components/ui/virtual-list';
 
 export const SPACE_TYPE_LABEL: Record<SpaceType, string> = {
   'dry-cargo': 'Dry cargo hold',
@@ -31,6 +35,9 @@ interface CompartmentForm {
   spaceType: SpaceType;
   permeability: string;
   cargoState: CargoState | '';
+  tankState: TankState | '';
+  tankFluid: string;
+  tankVolume: string;
   openToSea: boolean;
   kind: 'box' | 'prism';
   xAft: string;
@@ -42,7 +49,7 @@ interface CompartmentForm {
   section: string;
 }
 
-const MEASURES = byKey({ x: 'length', y: 'length', z: 'length', xAftM: 'length', xForeM: 'length', permeability: 'ratio' });
+const MEASURES = byKey({ x: 'length', y: 'length', z: 'length', xAftM: 'length', xForeM: 'length', permeability: 'ratio', volumeM3: 'volume' });
 
 function parseSection(text: string, system: UnitSystem): { y: number | undefined; z: number | undefined }[] {
   return text
@@ -69,6 +76,14 @@ function toModel(v: CompartmentForm, base: Compartment, system: UnitSystem, fram
     spaceType: v.spaceType,
     permeability: v.permeability.trim() === '' ? undefined : Number(v.permeability.replace(',', '.')),
     cargoState: CARGO_PERMEABILITY[v.spaceType] && v.cargoState !== '' ? v.cargoState : undefined,
+    tankContents:
+      v.spaceType === 'tank' && v.tankState !== ''
+        ? {
+            state: v.tankState,
+            fluidId: v.tankState === 'empty' || v.tankFluid === '' ? undefined : v.tankFluid,
+            volumeM3: v.tankState === 'part-full' ? parseField(v.tankVolume, 'volume', system) : undefined,
+          }
+        : undefined,
     openToSea: v.openToSea || undefined,
     geometry,
   };
@@ -82,6 +97,9 @@ function defaults(c: Compartment, system: UnitSystem): CompartmentForm {
     spaceType: c.spaceType,
     permeability: c.permeability === undefined ? '' : String(c.permeability),
     cargoState: (c.cargoState ?? '') as CargoState | '',
+    tankState: (c.tankContents?.state ?? '') as TankState | '',
+    tankFluid: c.tankContents?.fluidId ?? '',
+    tankVolume: showField(c.tankContents?.volumeM3, 'volume', system),
     openToSea: c.openToSea ?? false,
   };
   if (g.kind === 'box') {
@@ -101,20 +119,39 @@ function defaults(c: Compartment, system: UnitSystem): CompartmentForm {
   };
 }
 
-function CompartmentEditor({ compartment, surveyId, apply, system }: { compartment: Compartment; surveyId: string; apply: Apply; system: UnitSystem }) {
-  const frames = useFrameTable(surveyId);
+/**
+ * The compartment's schema with one check the survey format cannot make alone: a part-full tank's own
+ * liquid must fit in what the tank holds (its permeability × its moulded volume).
+ */
+function formSchema(system: UnitSystem) {
+  return CompartmentSchema.superRefine((c, ctx) => {
+    const t = c.tankContents;
+    if (c.spaceType !== 'tank' || t?.state !== 'part-full' || t.volumeM3 === undefined) return;
+    const gross = mouldedVolumeM3(c.geometry);
+    const capacity = (c.permeability ?? defaultPermeability('tank', undefined).value) * gross;
+    if (t.volumeM3 > capacity * (1 + 1e-9)) {
+      ctx.addIssue({ code: 'custom', path: ['tankContents', 'volumeM3'], message: `More than the tank holds: ${fmt(capacity, 'volume', system)} (choose "Full")` });
+    }
+  });
+}
+
+function CompartmentEditor({ compartment, survey, apply, system }: { compartment: Compartment; survey: Survey; apply: Apply; system: UnitSystem }) {
+  const frames = useFrameTable(survey.id);
+  const schema = useMemo(() => formSchema(system), [system]);
   const form = useForm<CompartmentForm, unknown, Compartment>({
     mode: 'onChange',
-    resolver: unitResolver(CompartmentSchema, (v: CompartmentForm) => toModel(v, compartment, system, frames), system, MEASURES),
+    resolver: unitResolver(schema, (v: CompartmentForm) => toModel(v, compartment, system, frames), system, MEASURES),
     defaultValues: defaults(compartment, system),
   });
-  const state = useAutosave(form, (v) => apply({ kind: 'upsert', collection: 'compartments', entity: v }));
+  const edit = (v: Compartment): EditOp => ({ kind: 'upsert', collection: 'compartments', entity: v });
+  const state = useAutosave(form, (v, base) => apply(edit(v), base && edit(base)));
   const { register, formState, watch, setValue } = form;
   const kind = watch('kind');
   const spaceType = watch('spaceType');
   const cargoState = watch('cargoState');
   const perm = defaultPermeability(spaceType, cargoState === '' ? undefined : cargoState);
   const permeability = watch('permeability');
+  const tankState = watch('tankState');
   const xAft = watch('xAft');
   const xFore = watch('xFore');
   const lu = measureLabel('length', system);
@@ -164,6 +201,16 @@ function CompartmentEditor({ compartment, surveyId, apply, system }: { compartme
             { value: 'part-loaded', label: `Part loaded (${CARGO_PERMEABILITY[spaceType]!['part-loaded'].toFixed(2)})` },
             { value: 'loaded', label: `Loaded (${CARGO_PERMEABILITY[spaceType]!.loaded.toFixed(2)})` },
           ]}
+        />
+      )}
+      {spaceType === 'tank' && (
+        <TankContentsFields
+          compartment={compartment}
+          survey={survey}
+          form={form}
+          tankState={tankState}
+          permeability={permeability.trim() === '' ? perm.value : Number(permeability.replace(',', '.'))}
+          system={system}
         />
       )}
       <div className="flex items-center gap-2">
@@ -229,24 +276,27 @@ export function SpacesSection({ survey, apply, system, selectedId, select }: Sec
         </button>
       </div>
       {survey.compartments.length === 0 && <p className="text-ink-soft">No compartments yet: add the flooded holds, tanks and spaces next to them.</p>}
-      <ul className="flex flex-wrap gap-2" aria-label="Compartments">
-        {survey.compartments.map((c) => (
-          <li key={c.id}>
-            <button
-              type="button"
-              className={c.id === selectedId ? primaryBtn : secondaryBtn}
-              aria-pressed={c.id === selectedId}
-              onClick={() => select(c.id === selectedId ? null : c.id)}
-            >
-              {c.name}
-              {c.openToSea && <span className="text-xs font-normal">(open to sea)</span>}
-            </button>
-          </li>
-        ))}
-      </ul>
+      <VirtualList
+        items={survey.compartments}
+        itemKey={(c) => c.id}
+        label="Compartments"
+        className="flex flex-wrap gap-2"
+        active={selected ? survey.compartments.indexOf(selected) : -1}
+        render={(c) => (
+          <button
+            type="button"
+            className={c.id === selectedId ? primaryBtn : secondaryBtn}
+            aria-pressed={c.id === selectedId}
+            onClick={() => select(c.id === selectedId ? null : c.id)}
+          >
+            {c.name}
+            {c.openToSea && <span className="text-xs font-normal">(open to sea)</span>}
+          </button>
+        )}
+      />
       {selected && (
         <div className="rounded-lg border-2 border-hull bg-card p-3">
-          <CompartmentEditor key={`${selected.id}-${system}`} compartment={selected} surveyId={survey.id} apply={apply} system={system} />
+          <CompartmentEditor key={`${selected.id}-${system}`} compartment={selected} survey={survey} apply={apply} system={system} />
           <DeleteCompartment survey={survey} compartment={selected} apply={apply} onDeleted={() => select(null)} />
         </div>
       )}
@@ -279,5 +329,70 @@ function DeleteCompartment({ survey, compartment, apply, onDeleted }: { survey: 
     <button type="button" className={`${dangerBtn} mt-2`} onClick={() => void remove()}>
       Delete {compartment.name}
     </button>
+  );
+}
+
+/**
+ * A tank's own liquid before the casualty: the engine tells it from flood water, which takes only the
+ * room it leaves (SOLAS II-1/7-3 gives tanks 0 or 0.95: none when full, 0.95 of the tank when empty).
+ */
+function TankContentsFields({
+  compartment,
+  survey,
+  form,
+  tankState,
+  permeability,
+  system,
+}: {
+  compartment: Compartment;
+  survey: Survey;
+  form: ReturnType<typeof useForm<CompartmentForm, unknown, Compartment>>;
+  tankState: TankState | '';
+  permeability: number;
+  system: UnitSystem;
+}) {
+  const { register, formState } = form;
+  const e = formState.errors;
+  const gross = mouldedVolumeM3(compartment.geometry);
+  const mu = Number.isFinite(permeability) ? permeability : 0.95;
+  const volume = parseField(form.watch('tankVolume'), 'volume', system);
+  const room = tankFloodRoom(gross, mu, tankState === '' ? undefined : { state: tankState, volumeM3: volume });
+  return (
+    <fieldset className="grid gap-3 sm:grid-cols-3">
+      <legend className="mb-1 font-bold">Its own liquid before the casualty</legend>
+      <SelectInput
+        register={register}
+        name="tankState"
+        label="The tank held"
+        errors={e}
+        options={[
+          { value: '', label: 'Not stated (taken as empty)' },
+          { value: 'empty', label: 'Nothing: empty' },
+          { value: 'part-full', label: 'Part full' },
+          { value: 'full', label: 'Full' },
+        ]}
+        hint={`Flood water can take ${fmt(room.floodRoomM3, 'volume', system)} (${room.floodPermeability.toFixed(2)} of the tank): what its own liquid leaves, none when full (${TANK_PERMEABILITY_SOURCE})`}
+      />
+      {tankState !== '' && tankState !== 'empty' && (
+        <SelectInput
+          register={register}
+          name="tankFluid"
+          label="Its own liquid"
+          errors={{ tankFluid: errorAt(e, 'tankContents.fluidId') }}
+          options={[{ value: '', label: 'Choose the liquid' }, ...fluidOptions(survey.fluids)]}
+          hint="told apart from flood water in the results"
+        />
+      )}
+      {tankState === 'part-full' && (
+        <NumberInput
+          register={register}
+          name="tankVolume"
+          label="Volume of its own liquid"
+          unit={measureLabel('volume', system)}
+          errors={{ tankVolume: errorAt(e, 'tankContents.volumeM3') }}
+          hint={`from the tank tables; it holds ${fmt(mu * gross, 'volume', system)} full`}
+        />
+      )}
+    </fieldset>
   );
 }

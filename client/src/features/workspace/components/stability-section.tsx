@@ -14,7 +14,7 @@ import { ShipResponsePanel } from '@client/features/results/components/ship-resp
 import { byKey, measureLabel, parseField, showField, unitResolver, type Measure } from '../utils/form-units';
 import { useAutosave } from '../hooks/use-autosave';
 import { activeCondition } from '../utils/new-entities';
-import type { Apply, SectionProps } from '../utils/types';
+import type { Apply, EditOp, SectionProps } from '../utils/types';
 import { SaveIndicator } from './save-indicator';
 
 type FigureKey =
@@ -63,11 +63,13 @@ interface StabilityForm {
   kind: 'booklet' | 'box';
   openSpaceMethod: 'lost-buoyancy' | 'added-weight';
   particulars: Partial<Record<FigureKey, FigureText>>;
+  /** Where she is aground (both empty: afloat). */
+  aground: { position: { x: string; y: string }; from: string };
 }
 
 const labelOf = (f: FigureSpec, system: UnitSystem) => (system === 'us' && f.usLabel ? f.usLabel : f.label);
 
-const MEASURES = byKey(Object.fromEntries([...BOOKLET, ...BOX].map((f) => [f.key, f.measure])));
+const MEASURES = byKey({ ...Object.fromEntries([...BOOKLET, ...BOX].map((f) => [f.key, f.measure])), x: 'length', y: 'length' });
 const specsOf = (kind: StabilityForm['kind']) => (kind === 'box' ? BOX : BOOKLET);
 
 function toModel(v: StabilityForm, system: UnitSystem): unknown {
@@ -80,7 +82,12 @@ function toModel(v: StabilityForm, system: UnitSystem): unknown {
     const si = parseField(valueText, f.measure, system);
     particulars[f.key] = { value: si === undefined ? undefined : si * (f.scale ?? 1), from: from === '' ? undefined : from };
   }
-  return { particulars, openSpaceMethod: v.openSpaceMethod };
+  const { x, y } = v.aground.position;
+  const aground =
+    x.trim() === '' && y.trim() === ''
+      ? undefined
+      : { position: { x: parseField(x, 'length', system), y: y.trim() === '' ? undefined : parseField(y, 'length', system) }, from: v.aground.from.trim() || undefined };
+  return { particulars, openSpaceMethod: v.openSpaceMethod, aground };
 }
 
 function toForm(s: ConditionStability | undefined, survey: SectionProps['survey'], system: UnitSystem): StabilityForm {
@@ -96,7 +103,12 @@ function toForm(s: ConditionStability | undefined, survey: SectionProps['survey'
     texts.lengthM = { value: showField(survey.vessel.lbpM, 'length', system), from: '' };
     texts.breadthM = { value: showField(survey.vessel.breadthM, 'length', system), from: '' };
   }
-  return { kind, openSpaceMethod: s?.openSpaceMethod ?? 'lost-buoyancy', particulars: texts };
+  const g = s?.aground;
+  const aground = {
+    position: { x: g ? showField(g.position.x, 'length', system) : '', y: g?.position.y !== undefined ? showField(g.position.y, 'length', system) : '' },
+    from: g?.from ?? '',
+  };
+  return { kind, openSpaceMethod: s?.openSpaceMethod ?? 'lost-buoyancy', particulars: texts, aground };
 }
 
 function ParticularsEditor({ condition, survey, apply, system }: { condition: Condition; survey: SectionProps['survey']; apply: Apply; system: UnitSystem }) {
@@ -110,7 +122,8 @@ function ParticularsEditor({ condition, survey, apply, system }: { condition: Co
     resolver: unitResolver(ConditionStabilitySchema, (v: StabilityForm) => toModel(v, system), system, MEASURES),
     defaultValues: toForm(condition.stability, survey, system),
   });
-  const state = useAutosave(form, (v) => apply({ kind: 'upsert', collection: 'conditions', entity: { ...latest.current, stability: v } }));
+  const edit = (v: ConditionStability): EditOp => ({ kind: 'upsert', collection: 'conditions', entity: { ...latest.current, stability: v } });
+  const state = useAutosave(form, (v, base) => apply(edit(v), base && edit(base)));
   const { register, formState } = form;
   const kind = useWatch({ control: form.control, name: 'kind' });
   const either = (k: 'kgM' | 'tpcT') => errorAt(formState.errors, `particulars.${k}`)?.message;
@@ -166,6 +179,18 @@ function ParticularsEditor({ condition, survey, apply, system }: { condition: Co
           </fieldset>
         ))}
       </div>
+      <fieldset className="space-y-1 rounded-md border border-line p-2">
+        <legend className="text-sm font-bold">Aground at</legend>
+        <p className="text-xs text-ink-soft">
+          Where she bears on the ground, if she is aground: the ground reaction follows from the drafts read, and the forecast holds her draft there
+          until she comes off. Both empty: afloat.
+        </p>
+        <div className="grid gap-3 sm:grid-cols-3">
+          <NumberInput register={register} name="aground.position.x" label="x" unit={measureLabel('length', system)} errors={formState.errors} hint="from the aft perpendicular" />
+          <NumberInput register={register} name="aground.position.y" label="y" unit={measureLabel('length', system)} errors={formState.errors} hint="to port; empty: keel line" />
+          <TextInput register={register} name="aground.from" label="Aground from" errors={formState.errors} placeholder="e.g. diver's survey" />
+        </div>
+      </fieldset>
       <SaveIndicator state={state} />
     </form>
   );

@@ -35,6 +35,7 @@ import { SurveyReviewBar } from '@client/features/review-notes/components/survey
 import { SurveyInputs, type InputPart, type InputTarget } from '@client/features/survey-inputs/components/survey-inputs';
 import { changeSendsBackWarning } from '@shared/review/status';
 import { ReviewedGuard } from './reviewed-guard';
+import { reviewsOnly } from '@shared/review/editing';
 
 const SECTIONS = [
   { id: 'ship', label: 'Ship' },
@@ -76,7 +77,7 @@ export function Workspace({ surveyId }: { surveyId: string }) {
   const survey = local?.doc;
   const { user } = useSession();
   // an engineer reviews a surveyor's survey on the desk: here its fields are shown, never editable
-  const readOnly = user?.role === 'engineer' && !!local?.ownerUserId && local.ownerUserId !== user.id;
+  const readOnly = !!user && reviewsOnly(user.role, user.id, local?.ownerUserId);
   // off the main thread for a big ship (a Web Worker), in place for a small one
   const { results, rows, error } = useSurveySummary(survey);
   // the aside is for wide screens only: on a phone it is not rendered at all (not merely hidden)
@@ -110,7 +111,7 @@ export function Workspace({ surveyId }: { surveyId: string }) {
     [survey, go],
   );
   const apply = useCallback(
-    async (op: EditOp) => {
+    async (op: EditOp, base?: EditOp) => {
       if (readOnly) {
         setEditError('Read-only: this survey’s figures are the surveyor’s. Comment on the review desk instead.');
         throw new Error('read-only');
@@ -120,7 +121,7 @@ export function Workspace({ surveyId }: { surveyId: string }) {
         throw new Error('locked until the surveyor chooses to make changes');
       }
       try {
-        await applyLocalChange(surveyId, op);
+        await applyLocalChange(surveyId, op, base);
         setEditError(null);
       } catch (err) {
         setEditError(err instanceof Error ? err.message : 'This change could not be kept.');

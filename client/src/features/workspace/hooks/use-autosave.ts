@@ -7,15 +7,36 @@
  * `visibilitychange`: a phone may kill a hidden tab without another event) and when the link drops
  * (`offline`: the surveyor may put the phone away next). Saves run one after another, in the order
  * typed, so an older value never lands after a newer one.
+ *
+ * A form is filled from the survey as it was when it opened, which may be older than the device's
+ * copy by the time it saves (a section reopened before the save of the one just left had landed).
+ * So `save` gets, beside the value, its `base`: the form's starting values as the same resolver turns
+ * them into the model, then each value saved. Sections hand both to `apply`, and only what changed
+ * since `base` is written (client/src/offline/rebase-edit.ts): untouched fields never put older values back.
  */
 import { useEffect, useRef, useState } from 'react';
 import type { FieldValues, UseFormReturn } from 'react-hook-form';
+
+/**
+ * The form's default values as its resolver turns them into the model; undefined when they do not
+ * validate (a stored document the form's stricter rules refuse), and then the whole value is saved.
+ */
+async function resolvedDefaults<FV extends FieldValues, Out>(form: UseFormReturn<FV, unknown, Out>): Promise<Out | undefined> {
+  const { resolver, context } = form.control._options;
+  if (!resolver) return undefined;
+  try {
+    const r = await resolver(structuredClone(form.control._defaultValues) as unknown as FV, context, { fields: {}, names: [], criteriaMode: 'firstError', shouldUseNativeValidation: false });
+    return Object.keys(r.errors).length === 0 ? (r.values as Out) : undefined;
+  } catch {
+    return undefined;
+  }
+}
 
 export type SaveState = 'idle' | 'pending' | 'saved' | 'invalid' | 'error';
 
 export function useAutosave<FV extends FieldValues, Out>(
   form: UseFormReturn<FV, unknown, Out>,
-  save: (value: Out) => Promise<void> | void,
+  save: (value: Out, base: Out | undefined) => Promise<void> | void,
   delayMs = 250,
 ): SaveState {
   const [state, setState] = useState<SaveState>('idle');
@@ -29,6 +50,8 @@ export function useAutosave<FV extends FieldValues, Out>(
     /** Edits seen so far; a save reports "saved" only if nothing was typed after it started. */
     let edits = 0;
     let chain: Promise<void> = Promise.resolve();
+    /** What the device got from this form so far: its starting values, then each value saved. */
+    let base: Promise<Out | undefined> = resolvedDefaults(form);
     /** `now`: the page is going away; start at once (the device store notes the edit before its first wait), not after earlier saves. */
     const saveNow = (now = false) => {
       clearTimeout(timer);
@@ -41,7 +64,8 @@ export function useAutosave<FV extends FieldValues, Out>(
         form.handleSubmit(
           async (v) => {
             try {
-              await saveRef.current(v);
+              await saveRef.current(v, await base);
+              base = Promise.resolve(v);
               if (current()) setState('saved');
             } catch {
               if (current()) setState('error');

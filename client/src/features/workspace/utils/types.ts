@@ -5,7 +5,11 @@ import type { UnitSystem } from '@shared/units/units';
 
 /** An edit the workspace makes; every one goes through the device store (works offline). */
 export type EditOp = SetOp | UpsertOp | DeleteOp;
-export type Apply = (op: EditOp) => Promise<void>;
+/**
+ * Makes an edit. A form passes `base`, the same edit built from what the form started with (or last
+ * saved): only what changed since is written over the device's copy (`applyLocalChanges`).
+ */
+export type Apply = (op: EditOp, base?: EditOp) => Promise<void>;
 
 export interface SectionProps {
   survey: Survey;
