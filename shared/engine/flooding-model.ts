@@ -29,6 +29,7 @@ import type { LevelTable } from './flooding-levels';
 import { levelOfVolume, surfaceAreaAt, volumeAt } from './flooding-levels';
 import type { V3 } from './vec';
 import type { Linearisation } from './flooding-ode';
+import { bandFactorise, bandPays, bandSolve, bandwidths, denseFactorise, denseSolve, newBandLu, reverseCuthillMcKee, type BandLu } from './sparse-band';
 
 /** Sea-level pressure of the standard atmosphere, Pa (ISO 2533:1975; ICAO Doc 7488). */
 export const STANDARD_ATMOSPHERE_PA = 101_325;
@@ -451,16 +452,19 @@ export function levelRate(m: FloodModel, st: SpaceStack, s: number, dy: Float64A
 /**
  * The model's Jacobian and the solves a linearly implicit integrator needs (flooding-ode.ts
  * rosenbrock23). Spaces joined by openings form groups (the sea and spaces held in balance with it
- * join nothing); each group's block of J is dense and small, and every other space's row is zero,
- * so W = I − γhJ is solved group by group with partial pivoting. The running totals (in, out,
- * pumped) depend on nothing, so their rows are applied after the groups are solved.
+ * join nothing), and every other space's row is zero, so W = I − γhJ is solved group by group with
+ * partial pivoting. A group's spaces are put in reverse Cuthill–McKee order, so a large group (many
+ * spaces joined in a chain or a grid) has its nonzeros in a narrow band and is factorised as a band
+ * (sparse-band.ts); a small or densely joined one by the dense LU (`dense: true` forces that, for
+ * checks). The running totals (in, out, pumped) depend on nothing, so their rows are applied after
+ * the groups are solved.
  *
  * J is worked out by forward differences, one space's fluid at a time, through the openings and
  * pumps of that space only. Each difference is booked like the flow itself (out of one side, into
  * the other: move, bookPump), so every column of J sums to zero over the volume balance exactly as
  * the flows do, and the integrator keeps the balance to rounding.
  */
-export function floodLinearisation(m: FloodModel, pumpRate: Float64Array): Linearisation {
+export function floodLinearisation(m: FloodModel, pumpRate: Float64Array, opts: { dense?: boolean } = {}): Linearisation {
   const nF = m.fluids.length;
   const nS = m.spaces.length;
   const nV = nS * nF;
@@ -484,7 +488,26 @@ export function floodLinearisation(m: FloodModel, pumpRate: Float64Array): Linea
   });
   m.pumps.forEach((p, k) => pumpsOf[p.space].push(k));
   const byRoot = new Map<number, number[]>();
-  for (const s of live) byRoot.set(root(s), [...(byRoot.get(root(s)) ?? []), s]);
+  for (const s of live) {
+    const r = root(s);
+    const list = byRoot.get(r);
+    if (list) list.push(s);
+    else byRoot.set(r, [s]);
+  }
+  // each group's spaces in reverse Cuthill–McKee order of the openings joining them (narrow band)
+  for (const [r, spaces] of byRoot) {
+    if (spaces.length < 3) continue;
+    const at = new Map(spaces.map((s, a) => [s, a]));
+    const nb: number[][] = spaces.map(() => []);
+    for (const op of m.openings) {
+      const a = at.get(op.inside), b = op.outside >= 0 ? at.get(op.outside) : undefined;
+      if (a !== undefined && b !== undefined && a !== b) {
+        nb[a].push(b);
+        nb[b].push(a);
+      }
+    }
+    byRoot.set(r, Array.from(reverseCuthillMcKee(nb), (a) => spaces[a]));
+  }
   interface Group {
     vars: Int32Array;
     j: Float64Array;
@@ -492,6 +515,9 @@ export function floodLinearisation(m: FloodModel, pumpRate: Float64Array): Linea
     jt: Float64Array;
     lu: Float64Array;
     piv: Int32Array;
+    /** Set when the last Jacobian's band makes a band LU pay. */
+    band: BandLu | null;
+    useBand: boolean;
     gh: number;
     x: Float64Array;
   }
@@ -508,7 +534,7 @@ export function floodLinearisation(m: FloodModel, pumpRate: Float64Array): Linea
         localOf[s * nF + f] = a * nF + f;
       }
     });
-    groups.push({ vars, j: new Float64Array(size * size), jt: new Float64Array(3 * size), lu: new Float64Array(size * size), piv: new Int32Array(size), gh: NaN, x: new Float64Array(size) });
+    groups.push({ vars, j: new Float64Array(size * size), jt: new Float64Array(3 * size), lu: new Float64Array(0), piv: new Int32Array(size), band: null, useBand: false, gh: NaN, x: new Float64Array(size) });
   }
   const baseQ = new Float64Array(m.openings.length * nF);
   const baseP = new Float64Array(m.pumps.length * nF);
@@ -579,6 +605,11 @@ export function floodLinearisation(m: FloodModel, pumpRate: Float64Array): Linea
             col[nV + r] = 0;
           }
         }
+        // the band this Jacobian has (read off its nonzeros, so nothing outside it is ever dropped)
+        const { kl, ku } = size >= 24 && !opts.dense ? bandwidths(g.j, size) : { kl: size, ku: size };
+        g.useBand = !opts.dense && bandPays(size, kl, ku);
+        if (g.useBand) g.band = newBandLu(size, kl, ku, g.band ?? undefined);
+        else if (g.lu.length < size * size) g.lu = new Float64Array(size * size);
       }
     },
     solve(gh, b) {
@@ -587,12 +618,14 @@ export function floodLinearisation(m: FloodModel, pumpRate: Float64Array): Linea
       for (const g of groups) {
         const size = g.vars.length;
         if (g.gh !== gh) {
-          factorise(g.j, gh, size, g.lu, g.piv);
+          if (g.useBand) bandFactorise(g.j, gh, g.band!);
+          else denseFactorise(g.j, gh, size, g.lu, g.piv);
           g.gh = gh;
         }
         const x = g.x;
         for (let r = 0; r < size; r++) x[r] = b[g.vars[r]];
-        luSolve(g.lu, g.piv, size, x);
+        if (g.useBand) bandSolve(g.band!, x);
+        else denseSolve(g.lu, g.piv, size, x);
         for (let r = 0; r < size; r++) {
           b[g.vars[r]] = x[r];
           a0 += g.jt[r] * x[r];
@@ -605,44 +638,4 @@ export function floodLinearisation(m: FloodModel, pumpRate: Float64Array): Linea
       b[nV + PUMPED] = t2 + gh * a2;
     },
   };
-}
-
-/** LU with partial pivoting of W = I − gh·J (row-major, size n), into lu and piv (Golub & Van Loan, Matrix Computations, Alg. 3.4.1). */
-function factorise(j: Float64Array, gh: number, n: number, lu: Float64Array, piv: Int32Array): void {
-  for (let i = 0; i < n * n; i++) lu[i] = -gh * j[i];
-  for (let i = 0; i < n; i++) lu[i * n + i] += 1;
-  for (let k = 0; k < n; k++) {
-    let p = k, best = Math.abs(lu[k * n + k]);
-    for (let i = k + 1; i < n; i++) {
-      const a = Math.abs(lu[i * n + k]);
-      if (a > best) {
-        best = a;
-        p = i;
-      }
-    }
-    piv[k] = p;
-    if (p !== k) for (let c = 0; c < n; c++) [lu[k * n + c], lu[p * n + c]] = [lu[p * n + c], lu[k * n + c]];
-    const d = lu[k * n + k];
-    if (d === 0) continue;
-    for (let i = k + 1; i < n; i++) {
-      const l = (lu[i * n + k] /= d);
-      if (l === 0) continue;
-      for (let c = k + 1; c < n; c++) lu[i * n + c] -= l * lu[k * n + c];
-    }
-  }
-}
-
-function luSolve(lu: Float64Array, piv: Int32Array, n: number, x: Float64Array): void {
-  // the rows were swapped whole while factorising (P W = L U): permute b first, then L, then U
-  for (let k = 0; k < n; k++) {
-    const p = piv[k];
-    if (p !== k) [x[k], x[p]] = [x[p], x[k]];
-  }
-  for (let k = 0; k < n; k++) for (let i = k + 1; i < n; i++) x[i] -= lu[i * n + k] * x[k];
-  for (let k = n - 1; k >= 0; k--) {
-    let s = x[k];
-    for (let c = k + 1; c < n; c++) s -= lu[k * n + c] * x[c];
-    const d = lu[k * n + k];
-    x[k] = d === 0 ? 0 : s / d;
-  }
 }

@@ -68,6 +68,8 @@ export interface ForecastOptions {
   /** Integrator tolerances (default rtol 1e-6, atol 1e-6 m³: levels within 0.1 mm of a run at 1e-9 on the bench vessel). */
   rtol?: number;
   atol?: number;
+  /** Factorise every group of joined spaces densely, never as a band (for checking the band solver). */
+  denseLinearAlgebra?: boolean;
   /** 'follow' (default): the attitude follows the ship's response when the condition has particulars; 'present': held as read. */
   attitude?: 'follow' | 'present';
 }
@@ -322,7 +324,7 @@ export function forecastFlooding(surveyIn: Survey, options: ForecastOptions = {}
   };
   const stack = newStack(model);
   let f = floodDerivative(model, rate, stack);
-  let lin = floodLinearisation(model, rate);
+  let lin = floodLinearisation(model, rate, { dense: options.denseLinearAlgebra });
 
   // spaces whose pumps we watch for the moment their suction uncovers
   const pumped = new Set(runs.map((r) => model.pumps[r.pump].space));
@@ -350,7 +352,7 @@ export function forecastFlooding(surveyIn: Survey, options: ForecastOptions = {}
       for (const r of runs) if (r.untilElevationM > -Infinity) r.untilElevationM += u.model.spaces[model.pumps[r.pump].space].table.bottom - model.spaces[model.pumps[r.pump].space].table.bottom;
       model = u.model;
       f = floodDerivative(model, rate, stack);
-      lin = floodLinearisation(model, rate);
+      lin = floodLinearisation(model, rate, { dense: options.denseLinearAlgebra });
       dryLimits = new Map([...pumped].map((s) => [s, dryLimit(s)]));
     }
     return { t, y: Float64Array.from(y), m: model, condition: u.condition, attitude: u.attitude, gmFluidM: u.response.gmFluidM, groundReactionKg: u.response.ground?.reactionKg ?? null, warnings: u.response.warnings };

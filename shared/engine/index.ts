@@ -58,4 +58,5 @@ export {
 export { soundingEvidence, type SoundingEvidence } from './flooding-soundings';
 export { ATTITUDE_STEP_M, conditionAtPredictedAttitude, type DownfloodingForecast } from './flooding-attitude';
 export { dormandPrince, rosenbrock23, type Linearisation } from './flooding-ode';
+export { bandFactorise, bandPays, bandSolve, bandwidths, denseFactorise, denseSolve, newBandLu, reverseCuthillMcKee, type BandLu } from './sparse-band';
 export { levelOfMouldedVolume, mouldedVolumeM3, splitOwnLiquid, tankFloodRoom, TANK_PERMEABILITY_SOURCE, type OwnSplit, type TankRoom } from './tank-contents';
