@@ -9,12 +9,11 @@
  * selects show their whole option, and e-mail addresses and points wrap only between their parts.
  * Screenshots of every screen land in test-results/screenshots/screen-*.png, to be looked at.
  */
-import { afterAll, beforeAll, describe, expect, it, inject } from 'vitest';
-import type { Browser, Page } from 'playwright-core';
-import { launchBrowser } from '../support/browser';
+import { describe, expect, it, inject } from 'vitest';
+import type { Page } from 'playwright-core';
 import { seriousA11yViolations } from '../support/axe';
 import { walkEveryScreen } from '../support/screens';
-import { createDb, type Db } from '../../server/db/knex';
+import { startE2eFile } from '../support/e2e';
 import { issueSecret } from '../../server/services/secrets';
 import { DEMO_SUBMITTED_SURVEY_ID } from '../../seeds/demo-survey';
 import { DEMO_ORG, DEMO_USERS } from '../../seeds/demo-people';
@@ -25,21 +24,11 @@ const DESK = 1440;
 /** The height of a 390 px wide phone's screen in portrait (a common handset: 390 × 844 CSS px). */
 const PHONE_SCREEN_HEIGHT = 844;
 
-let browser: Browser;
-let db: Db;
-
-beforeAll(async () => {
-  browser = await launchBrowser();
-  db = createDb(inject('testEnv').DATABASE_URL);
-});
-afterAll(async () => {
-  await browser?.close();
-  await db?.destroy();
-});
+const e2e = startE2eFile({ db: true });
 
 async function briefLink(): Promise<string> {
   const { token, hash } = issueSecret();
-  await db('brief_links').insert({
+  await e2e.db('brief_links').insert({
     survey_id: DEMO_SUBMITTED_SURVEY_ID,
     organisation_id: DEMO_ORG.id,
     token_hash: hash,
@@ -95,7 +84,7 @@ describe('every screen', () => {
       problems[name] = [...(problems[name] ?? []), ...list];
       console.error(`${name}: ${list.join(' | ')}`); // shown even if the walk is cut short
     };
-    const walked = await walkEveryScreen(browser, { baseUrl, mailDir: inject('testEnv').DEV_MAIL_DIR, briefUrl: await briefLink() }, [width], async (page, name) => {
+    const walked = await walkEveryScreen(e2e.browser, { baseUrl, mailDir: inject('testEnv').DEV_MAIL_DIR, briefUrl: await briefLink() }, [width], async (page, name) => {
       note(name, await seriousA11yViolations(page));
       const sideways = await page.evaluate(() => document.documentElement.scrollWidth - window.innerWidth);
       if (sideways > 0) note(name, [`scrolls sideways by ${sideways} px`]);
