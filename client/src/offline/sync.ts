@@ -16,7 +16,7 @@ import {
 } from '@shared/schemas/sync';
 import type { Survey } from '@shared/schemas/survey';
 import { findEntity } from '@shared/sync/apply';
-import { ApiError, OfflineError, api, jsonBody } from '@client/lib/api-client';
+import { ApiError, OfflineError, api, currentAccessToken, jsonBody } from '@client/lib/api-client';
 import { rememberedUserId } from '@client/lib/identity';
 import { db, getMeta, META, setMeta, type OutboxEntry } from './db';
 import { mergeServerSurveys, rebaseLocalSurvey, replayUnsavedEdits, subscribeLocalChanges } from './survey-store';
@@ -205,6 +205,12 @@ function goneOffline(): void {
 }
 
 async function runOnce(): Promise<void> {
+  if (!rememberedUserId() && !currentAccessToken()) {
+    // Nobody has signed in on this device: nothing of theirs to send, and asking would only be
+    // answered 401 (a visitor on the landing or sign-in page makes no request that is refused).
+    setStatus({ needsSignIn: true });
+    return;
+  }
   if (typeof navigator !== 'undefined' && !navigator.onLine && Date.now() - reachedAt > PROBE_INTERVAL_MS * 4) {
     goneOffline();
     return;
