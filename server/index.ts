@@ -61,11 +61,20 @@ if (invokedDirectly) {
       const running = forkWorkers(workers, {}, (msg) => console.log(`[brineline] ${msg}`));
       // Listen for the stop before the workers are up: a SIGTERM while one is still starting must
       // stop them all, not kill this process and leave them behind.
-      const shutdown = () => void running.stop().then(() => process.exit(0));
+      let stopping = false;
+      const shutdown = () => {
+        stopping = true;
+        void running.stop().then(() => process.exit(0));
+      };
       process.on('SIGINT', shutdown);
       process.on('SIGTERM', shutdown);
-      await running.ready;
-      console.log(`Brineline listening on ${config.publicUrl} (${workers} worker processes)`);
+      try {
+        await running.ready;
+        console.log(`Brineline listening on ${config.publicUrl} (${workers} worker processes)`);
+      } catch (err) {
+        // a worker stopped on our own signal before it listened is no failure: the shutdown exits
+        if (!stopping) throw err;
+      }
     } else {
       const running = await startServer(config, { db });
       console.log(`Brineline listening on ${running.url}`);

@@ -218,9 +218,13 @@ describe('the own-work rule over every revision', () => {
     const second = await addMember(t.db, org.id, 'engineer');
     const secondTok = await tokenFor(t.config.JWT_SECRET, second);
     const { survey } = await acceptedSurvey();
-    // The second engineer corrects a figure after acceptance...
+    // The second engineer corrects a figure after acceptance, while still a surveyor of the firm (an
+    // engineer only reviews a surveyor's survey: shared/review/editing.ts)...
+    const role = (r: string) => t.db('memberships').where({ user_id: second.id, organisation_id: org.id }).update({ role: r });
+    await role('surveyor');
     const byEngineer = device(secondTok);
     await byEngineer(survey.id, 2, { kind: 'set', path: 'title', value: 'Engineer’s fix' });
+    await role('engineer');
     // ...then the surveyor edits and sends it again, and the review starts.
     await device(tok.surveyor)(survey.id, 3, { kind: 'set', path: 'title', value: 'Surveyor’s fix' });
     expect((await move(survey.id, tok.surveyor, 'submitted')).status).toBe(200);

@@ -60,10 +60,10 @@ describe('device ids are owned (F5)', () => {
     const device = randomUUID();
     expect((await pushed(f.tok.surveyor, [titleEdit(device, 1, survey.id, 'First')]))[0].status).toBe('applied');
 
-    // The engineer of the same firm guesses the device id and its next sequence number.
-    await refused(f.tok.engineer, [titleEdit(device, 2, survey.id, 'Squatted')]);
+    // The admin of the same firm (who may edit the survey) guesses the device id and its next sequence number.
+    await refused(f.tok.admin, [titleEdit(device, 2, survey.id, 'Squatted')]);
     expect(await titleOf(survey.id)).toBe('First');
-    expect(await f.t.db('processed_changes').where({ device_id: device, user_id: f.org.engineer.id })).toHaveLength(0);
+    expect(await f.t.db('processed_changes').where({ device_id: device, user_id: f.org.admin.id })).toHaveLength(0);
 
     const [real] = await pushed(f.tok.surveyor, [titleEdit(device, 2, survey.id, 'Second')]);
     expect(real.status).toBe('applied');
@@ -88,14 +88,15 @@ describe('device ids are owned (F5)', () => {
     const mine = randomUUID();
     const his = randomUUID();
     await pushed(f.tok.surveyor, [titleEdit(mine, 1, survey.id, 'Mine')]);
-    await pushed(f.tok.engineer, [titleEdit(his, 1, survey.id, 'His')]);
+    // the admin, who may edit a surveyor's survey (an engineer only reviews it: shared/review/editing.ts)
+    await pushed(f.tok.admin, [titleEdit(his, 1, survey.id, 'His')]);
     const owners = await f.t.db('devices').whereIn('id', [mine, his]).select('id', 'user_id', 'organisation_id');
     expect(Object.fromEntries(owners.map((o: { id: string; user_id: string }) => [o.id, o.user_id]))).toEqual({
       [mine]: f.org.surveyor.id,
-      [his]: f.org.engineer.id,
+      [his]: f.org.admin.id,
     });
     // Refused twice from the same server process: the owner it remembers still refuses.
-    await refused(f.tok.engineer, [titleEdit(mine, 2, survey.id, 'Not his')]);
+    await refused(f.tok.admin, [titleEdit(mine, 2, survey.id, 'Not his')]);
     await refused(f.tok.surveyor, [titleEdit(his, 2, survey.id, 'Not hers')]);
   });
 
