@@ -7,7 +7,7 @@
  * Timoshenko coefficient 0.2874 for a square panel) is in tests/reference/check-rows.test.ts.
  */
 import { afterAll, beforeAll, describe, expect, it, inject } from 'vitest';
-import type { Browser, Page } from 'playwright-core';
+import type { Browser, Locator, Page } from 'playwright-core';
 import { launchBrowser, screenshotPath } from '../support/browser';
 import { DEMO, section, signIn } from '../support/e2e';
 import { computeSurvey } from '@shared/engine';
@@ -132,9 +132,11 @@ describe('plating and ratings by direction, on a phone, offline', () => {
     await section(page, 'Loads');
     await page.getByTestId('boundary-results').getByRole('button', { name: /Tank hatch/ }).click();
     const detail = page.getByTestId('boundary-detail');
-    await expect(detail.getByTestId('plating-panel').first().textContent()).resolves.toContain(pct(plating));
-    await expect(detail.getByTestId('capacity-towards-B').textContent()).resolves.toContain(`(${pct(up.utilisation)})`);
-    await expect(detail.getByTestId('capacity-towards-A').textContent()).resolves.toContain('(0 %)');
+    // figures keep their unit on the line with a no-break space: compared as plain spaces
+    const plain = async (l: Locator) => ((await l.textContent()) ?? '').replace(/[\u00a0\u202f]/g, ' ');
+    await expect(plain(detail.getByTestId('plating-panel').first())).resolves.toContain(pct(plating));
+    await expect(plain(detail.getByTestId('capacity-towards-B'))).resolves.toContain(`(${pct(up.utilisation)})`);
+    await expect(plain(detail.getByTestId('capacity-towards-A'))).resolves.toContain('(0 %)');
     await detail.getByText('Rated pressure towards side B (Open air): pushing that way of rated').waitFor();
     await detail.getByText(/^Plating \(the whole plate as one panel\): 9\.0 mm net of corrosion allowance/).waitFor();
     await detail.getByTestId('plating-table').scrollIntoViewIfNeeded();
