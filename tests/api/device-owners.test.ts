@@ -8,7 +8,7 @@ import { randomUUID } from 'node:crypto';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { ErrorBodySchema } from '@shared/api/errors';
 import { PushResponseSchema, type SurveyChange } from '@shared/schemas/sync';
-import { startWithTwoFirms, type TwoFirms } from '../support/two-firms';
+import { pushAs, startWithTwoFirms, storedTitle, type TwoFirms } from '../support/two-firms';
 import { storeSurvey } from '../support/surveys';
 
 let f: TwoFirms;
@@ -19,12 +19,7 @@ afterAll(async () => {
   await f?.t.close();
 });
 
-const push = (token: string, changes: SurveyChange[]) =>
-  fetch(`${f.t.url}/api/sync/push`, {
-    method: 'POST',
-    headers: { authorization: `Bearer ${token}`, 'content-type': 'application/json' },
-    body: JSON.stringify({ changes }),
-  });
+const push = (token: string, changes: SurveyChange[]) => pushAs(f, token, changes);
 
 /** A title edit from `deviceId` with sequence number `seq`. */
 const titleEdit = (deviceId: string, seq: number, surveyId: string, title: string): SurveyChange => ({
@@ -52,7 +47,7 @@ async function refused(token: string, changes: SurveyChange[]) {
   return body;
 }
 
-const titleOf = async (id: string) => ((await f.t.db('surveys').where({ id }).first('doc')) as { doc: { title: string } }).doc.title;
+const titleOf = (id: string) => storedTitle(f, id);
 
 describe('device ids are owned (F5)', () => {
   it('refuses a colleague pushing with the surveyor’s device id; the surveyor’s real edit with that seq is applied', async () => {

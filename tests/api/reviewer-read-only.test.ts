@@ -9,7 +9,7 @@ import { randomUUID } from 'node:crypto';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { ErrorBodySchema } from '@shared/api/errors';
 import { PushResponseSchema, type SurveyChange } from '@shared/schemas/sync';
-import { startWithTwoFirms, type TwoFirms } from '../support/two-firms';
+import { pushAs, startWithTwoFirms, storedTitle, type TwoFirms } from '../support/two-firms';
 import { authHeader } from '../support/auth';
 import { change, newSurvey, storeSurvey } from '../support/surveys';
 import { makePng } from '../support/photos';
@@ -22,10 +22,9 @@ afterAll(async () => {
   await f?.t.close();
 });
 
-const push = (token: string, changes: SurveyChange[]) =>
-  fetch(`${f.t.url}/api/sync/push`, { method: 'POST', headers: { ...authHeader(token), 'content-type': 'application/json' }, body: JSON.stringify({ changes }) });
+const push = (token: string, changes: SurveyChange[]) => pushAs(f, token, changes);
 
-const titleOf = async (id: string) => ((await f.t.db('surveys').where({ id }).first('doc')) as { doc: { title: string } }).doc.title;
+const titleOf = (id: string) => storedTitle(f, id);
 
 async function expectRefused(res: Response): Promise<void> {
   expect(res.status).toBe(403);

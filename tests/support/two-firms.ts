@@ -2,6 +2,7 @@
  * The usual start of an API test file: the app, a firm with one member per role, a second firm,
  * and access tokens for them (made directly, without the sign-in route's rate limits).
  */
+import type { SurveyChange } from '@shared/schemas/sync';
 import { startTestApp, type TestApp } from './app';
 import { createOrgWithMembers, type TestOrg } from './auth';
 import { tokenFor } from './surveys';
@@ -26,4 +27,14 @@ export async function startWithTwoFirms(): Promise<TwoFirms> {
     otherEngineer: await tokenFor(secret, other.engineer),
   };
   return { t, org, other, tok };
+}
+
+/** A push of `changes` to the started app with `token`, answered as is (status and body unread). */
+export function pushAs(f: TwoFirms, token: string, changes: SurveyChange[]): Promise<Response> {
+  return fetch(`${f.t.url}/api/sync/push`, { method: 'POST', headers: { authorization: `Bearer ${token}`, 'content-type': 'application/json' }, body: JSON.stringify({ changes }) });
+}
+
+/** The stored title of a survey, read straight from PostgreSQL. */
+export async function storedTitle(f: TwoFirms, id: string): Promise<string> {
+  return ((await f.t.db('surveys').where({ id }).first('doc')) as { doc: { title: string } }).doc.title;
 }
