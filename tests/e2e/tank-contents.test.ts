@@ -5,23 +5,16 @@
  * centroid says where it is ("… ft fwd of AP"), and no fill percentage or density is split from its
  * unit; the signed net force and peak net pressure say which way is positive. The figures themselves are checked by hand statics in tests/reference/tank-contents.test.ts.
  */
-import { afterAll, beforeAll, describe, expect, it, inject } from 'vitest';
-import type { Browser } from 'playwright-core';
-import { launchBrowser, screenshotPath } from '../support/browser';
-import { DEMO, section, signIn, waitSaved } from '../support/e2e';
+import { describe, expect, it, inject } from 'vitest';
+import { screenshotPath } from '../support/browser';
+import { DEMO, section, signIn, startE2eFile, waitSaved } from '../support/e2e';
 import { computeSurvey } from '@shared/engine';
 import { tankWords } from '@shared/review/tank-words';
 import { SurveySchema, type Survey } from '@shared/schemas/survey';
 
 const baseUrl = inject('baseUrl');
 
-let browser: Browser;
-beforeAll(async () => {
-  browser = await launchBrowser();
-});
-afterAll(async () => {
-  await browser?.close();
-});
+const file = startE2eFile();
 
 /** A 10 × 10 × 4 m double-bottom tank open to the sea at 3 m draft, beside a dry void. */
 function tankSurvey(): Survey {
@@ -54,7 +47,7 @@ function tankSurvey(): Survey {
 
 describe("a tank's own liquid, on a phone, offline, in US units", () => {
   it('is entered with a field error that keeps what was typed, and the results split it from the flood water as the engine does', async () => {
-    const context = await browser.newContext({ viewport: { width: 390, height: 844 } });
+    const context = await file.browser.newContext({ viewport: { width: 390, height: 844 } });
     const page = await context.newPage();
     await signIn(page, DEMO.surveyor);
     await page.goto(`${baseUrl}/surveys`);
