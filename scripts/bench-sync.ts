@@ -44,7 +44,10 @@ const ms = (t0: number) => `${(performance.now() - t0).toFixed(1)} ms`;
 
 async function startApp(env: Record<string, string>, port: number, secret: string, workers: number): Promise<ChildProcess> {
   // As `npm start` runs the server: Node's default young generation (see DEVELOPERS.md, "flags").
-  const proc = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], {
+  // BENCH_PROFILE_DIR=<dir>: the app writes a V8 CPU profile there per process when it stops (for finding
+  // where a request's time goes; open the .cpuprofile in Chromium's DevTools or summarise it).
+  const profile = process.env.BENCH_PROFILE_DIR ? ['--cpu-prof', `--cpu-prof-dir=${path.resolve(process.env.BENCH_PROFILE_DIR)}`] : [];
+  const proc = spawn(process.execPath, [...profile, '--import', 'tsx', 'server/index.ts'], {
     cwd: ROOT,
     // production settings (server/config.ts refuses development secrets and stores there); no photos are sent
     env: {
