@@ -44,6 +44,12 @@ export const DEFAULT_HORIZON_H = 24;
 export const DEFAULT_OUTPUT_STEPS = 48;
 /** Loads are worked out again for a space's boundaries once its surfaces have moved this far, m (a sounding tape's resolution). */
 export const LOAD_LEVEL_STEP_M = 0.001;
+/**
+ * Accepted integrator steps one Jacobian serves (a rejected step brings a fresh one). On the bench
+ * vessels (400 spaces; 200 joined as a chain or a grid) 4 moved no level by more than 0.03 mm against
+ * a fresh Jacobian every step and took 1–4 % more steps, for a quarter of the differencing.
+ */
+export const JACOBIAN_STEPS = 4;
 /** A level moving slower than this is steady: 1 mm per hour, in m/s (common practice, no source). */
 export const STEADY_LEVEL_RATE_M_S = 0.001 / 3600;
 
@@ -369,7 +375,7 @@ export function forecastFlooding(surveyIn: Survey, options: ForecastOptions = {}
     while (t < tEnd) {
       setRates(t);
       const active = runs.filter((r) => rate[r.pump] > 0 && r.untilElevationM > -Infinity);
-      const run = rosenbrock23(f, lin, t, y, tEnd, { rtol, atol, h0: h, hMax: horizonS / 8 }, (tOld, tNew, yNew, dense) => {
+      const run = rosenbrock23(f, lin, t, y, tEnd, { rtol, atol, h0: h, hMax: horizonS / 8, jacobianSteps: JACOBIAN_STEPS }, (tOld, tNew, yNew, dense) => {
         // a space pumped dry: note the time, carry on
         for (const s of pumped) {
           if (dryAt.has(s)) continue;
