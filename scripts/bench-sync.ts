@@ -105,6 +105,8 @@ interface Window {
   appMs?: number;
   pgMs?: number;
   appBusy?: number;
+  /** Of appMs, the main threads' (the request loops): the rest is worker threads, zlib and GC helpers. */
+  mainMs?: number;
   /** CPU of this process (autocannon, the load generator) per request, ms. */
   loadMs: number;
 }
@@ -134,15 +136,17 @@ function benchRequests(headers: Record<string, string>, small: string[], change:
 
 /** One autocannon window at 50 connections with the CPU each party spent per request. */
 async function measuredWindow(base: string, requests: Requests, seconds: number, pids: number[]) {
-  const before = { app: cpuSeconds(pids), pg: cpuSeconds(postgresPids()), load: process.cpuUsage() };
+  const mains = pids.map((pid) => `${pid}/task/${pid}`);
+  const before = { app: cpuSeconds(pids), main: cpuSeconds(mains), pg: postgresCpuSeconds(), load: process.cpuUsage() };
   const result = await autocannon({ url: base, connections: 50, requests, duration: seconds });
-  const after = { app: cpuSeconds(pids), pg: cpuSeconds(postgresPids()), load: process.cpuUsage(before.load) };
+  const after = { app: cpuSeconds(pids), main: cpuSeconds(mains), pg: postgresCpuSeconds(), load: process.cpuUsage(before.load) };
   const perRequest = (a?: number, b?: number) => (a !== undefined && b !== undefined ? ((b - a) * 1000) / result.requests.total : undefined);
   const win: Window = {
     rps: result.requests.average,
     p99: result.latency.p99,
     non2xx: result.non2xx,
     appMs: perRequest(before.app, after.app),
+    mainMs: perRequest(before.main, after.main),
     pgMs: perRequest(before.pg, after.pg),
     appBusy: before.app !== undefined && after.app !== undefined ? ((after.app - before.app) / seconds) * 100 : undefined,
     loadMs: (after.load.user + after.load.system) / 1000 / result.requests.total,
@@ -152,7 +156,7 @@ async function measuredWindow(base: string, requests: Requests, seconds: number,
 
 const cpuWords = (win: Window) =>
   win.appMs !== undefined
-    ? `CPU per request: app ${win.appMs.toFixed(2)} ms, PostgreSQL ${win.pgMs?.toFixed(2) ?? '?'} ms, load generator ${win.loadMs.toFixed(2)} ms; app processes busy ${win.appBusy?.toFixed(0)} % of a core`
+    ? `CPU per request: app ${win.appMs.toFixed(2)} ms (main threads ${win.mainMs?.toFixed(2) ?? '?'}), PostgreSQL ${win.pgMs?.toFixed(2) ?? '?'} ms, load generator ${win.loadMs.toFixed(2)} ms; app processes busy ${win.appBusy?.toFixed(0)} % of a core`
     : 'CPU per request: not readable from /proc';
 
 /**
@@ -203,7 +207,7 @@ async function throughput(base: string, reqs: ReturnType<typeof benchRequests>, 
 }
 
 /** CPU seconds (user + system) used so far by these processes, from /proc; undefined where /proc cannot tell. */
-function cpuSeconds(pids: number[]): number | undefined {
+function cpuSeconds(pids: (number | string)[]): number | undefined {
   if (!pids.length) return undefined;
   try {
     let ticks = 0;
@@ -235,15 +239,32 @@ function hostSpeedCheck(): number {
   return rounds.sort((a, b) => a - b)[4];
 }
 
-/** The PostgreSQL server processes on this machine (the bench's cluster is the only one it starts). */
-function postgresPids(): number[] {
-  const res = spawnSync('pgrep', ['-x', 'postgres'], { encoding: 'utf8' });
-  return res.status === 0 ? res.stdout.trim().split('\n').filter(Boolean).map(Number) : [];
+/**
+ * CPU seconds used so far by the bench's own PostgreSQL: its postmaster (first line of postmaster.pid)
+ * with its reaped children, and its living children (backends, background workers), so a backend
+ * that starts or ends during a window is counted right. Never every `postgres` on the host: other
+ * engineers' clusters run there too, and counting them made the figure meaningless.
+ */
+let pgDataDir = '';
+function postgresCpuSeconds(): number | undefined {
+  try {
+    const postmaster = Number(fs.readFileSync(path.join(pgDataDir, 'postmaster.pid'), 'utf8').split('\n')[0]);
+    const fields = fs.readFileSync(`/proc/${postmaster}/stat`, 'utf8').split(') ')[1].split(' ');
+    const reaped = (Number(fields[13]) + Number(fields[14])) / 100;
+    const res = spawnSync('pgrep', ['-P', String(postmaster)], { encoding: 'utf8' });
+    const children = res.status === 0 ? res.stdout.trim().split('\n').filter(Boolean).map(Number) : [];
+    // a child may end between pgrep and the read: count the ones still there
+    const living = children.map((pid) => cpuSeconds([pid]) ?? 0).reduce((a, b) => a + b, 0);
+    return (cpuSeconds([postmaster]) ?? 0) + reaped + living;
+  } catch {
+    return undefined;
+  }
 }
 
 export async function main(): Promise<void> {
   const speedBefore = hostSpeedCheck();
   const stack = await startTestStack('bench-sync');
+  pgDataDir = stack.pg.dataDir;
   const db = createDb(stack.env.DATABASE_URL);
   let app: ChildProcess | undefined;
   try {
