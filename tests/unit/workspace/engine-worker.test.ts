@@ -6,7 +6,7 @@
  */
 import { afterAll, describe, expect, it } from 'vitest';
 import { expose, wrap } from 'comlink';
-import { computeSurveySummary, type SurveySummary } from '@shared/engine';
+import { computeSurveySummary, forecastFlooding, type SurveySummary } from '@shared/engine';
 import { SurveySchema, type Survey } from '@shared/schemas/survey';
 import { engineApi, type EngineApi } from '@client/features/workspace/worker/engine-api';
 import { demoSurvey } from '../../../seeds/demo-survey';
@@ -41,5 +41,12 @@ describe('the engine worker', () => {
     const there = await remote.summary(s);
     expect(there.boundaries.length).toBe(2000);
     expectIdentical(computeSurveySummary(s), there);
+  });
+  it('answers the demo flooding forecast exactly as the engine in place (the Flooding section shows the worker\'s)', { timeout: 60_000 }, async () => {
+    const s: Survey = SurveySchema.parse(demoSurvey());
+    const here = forecastFlooding(s);
+    const there = await remote.forecast(s);
+    expect(here.limits.length).toBeGreaterThan(0);
+    expect(there).toStrictEqual(here);
   });
 });

@@ -5,7 +5,6 @@
  * field; nothing is saved until it is right. Everything is computed on the device.
  */
 import { useMemo, useState } from 'react';
-import { forecastFlooding } from '@shared/engine';
 import type { Compartment, Condition } from '@shared/schemas/survey';
 import { OPENING_FACES, type OpeningFace, type PlanStep } from '@shared/schemas/flooding';
 import type { UnitSystem } from '@shared/units/units';
@@ -20,6 +19,7 @@ import { ForecastView, shipTime } from '@client/features/flooding/components/for
 import { measureLabel } from '../utils/form-units';
 import { activeCondition, newId } from '../utils/new-entities';
 import { planStepErrors } from '../utils/plan-steps';
+import { useForecast } from '../hooks/use-forecast';
 import type { Apply, SectionProps } from '../utils/types';
 
 function OpeningForm({ comp, survey, system, apply, internal }: { comp: Compartment; survey: SectionProps['survey']; system: UnitSystem; apply: Apply; internal: boolean }) {
@@ -228,13 +228,8 @@ export function FloodingSection({ survey, apply, system }: SectionProps) {
   const [horizon, setHorizon] = useState(String(condition.flooding?.horizonH ?? 24));
   const [horizonError, setHorizonError] = useState<string | null>(null);
   const comp = survey.compartments.find((c) => c.id === spaceId);
-  const base = useMemo(() => {
-    try {
-      return { f: forecastFlooding(survey), error: null };
-    } catch (err) {
-      return { f: null, error: err instanceof Error ? err.message : 'The forecast could not be run.' };
-    }
-  }, [survey]);
+  // worked out in a worker, started when the survey opened (use-forecast.ts)
+  const base = useForecast(survey);
   const saveHorizon = async (t: string) => {
     setHorizon(t);
     const h = Number(t);
@@ -310,13 +305,18 @@ export function FloodingSection({ survey, apply, system }: SectionProps) {
         <div className="grid grid-cols-2 gap-2">
           <Input id="flood-horizon" label="Hours ahead" value={horizon} onChange={(t) => void saveHorizon(t)} error={horizonError ?? undefined} />
         </div>
-        {base.error && (
+        {!base && (
+          <p role="status" data-testid="forecast-pending">
+            Working out the forecast…
+          </p>
+        )}
+        {base?.error && (
           <p className="font-bold text-danger" role="alert">
             Forecast not run: {base.error}
           </p>
         )}
-        {base.f && <ForecastView forecast={base.f} survey={survey} system={system} />}
-        {base.f && <WhatIf survey={survey} base={base.f} system={system} />}
+        {base?.f && <ForecastView forecast={base.f} survey={survey} system={system} />}
+        {base?.f && <WhatIf survey={survey} base={base.f} system={system} />}
       </section>
     </section>
   );

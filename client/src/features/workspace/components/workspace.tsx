@@ -4,10 +4,11 @@
  * a time under a strip that always shows the ship's state; on a wide screen the loads stay beside
  * the form.
  */
-import { useCallback, useMemo, useRef, useState, type ReactNode } from 'react';
+import { useCallback, useEffect, useMemo, useRef, useState, type ReactNode } from 'react';
 import { Link, useSearchParams } from 'react-router';
 import type { BoundarySummary, SurveySummary } from '@shared/engine';
 import { useSurveySummary } from '../hooks/use-survey-summary';
+import { warmForecast } from '../hooks/use-forecast';
 import { useMediaQuery, WIDE_SCREEN } from '@client/lib/use-media-query';
 import type { Survey } from '@shared/schemas/survey';
 import { applyLocalChange, useLocalSurvey, usePendingCount } from '@client/offline/survey-store';
@@ -101,6 +102,10 @@ export function Workspace({ surveyId }: { surveyId: string }) {
   const readOnly = !!user && reviewsOnly(user.role, user.id, local?.ownerUserId);
   // off the main thread for a big ship (a Web Worker), in place for a small one
   const { results, rows, error } = useSurveySummary(survey);
+  // the flooding forecast starts in its own worker as the survey opens, so Flooding finds it ready
+  useEffect(() => {
+    if (survey) void warmForecast(survey);
+  }, [survey]);
   // the aside is for wide screens only: on a phone it is not rendered at all (not merely hidden)
   const wide = useMediaQuery(WIDE_SCREEN);
 

@@ -9,10 +9,9 @@
  * numbers: the worker runs the same engine and its answer crosses by structured clone.
  */
 import { useEffect, useMemo, useState } from 'react';
-import { wrap, type Remote } from 'comlink';
 import { boundaryRows, computeSurveySummary, type BoundarySummary, type SurveySummary } from '@shared/engine';
 import type { Survey } from '@shared/schemas/survey';
-import type { EngineApi } from '../worker/engine-api';
+import { engineWorker, engineWorkerBroken } from '../worker/engine-client';
 
 export interface SurveyResults {
   results: SurveySummary | null;
@@ -41,36 +40,14 @@ function computeInPlace(survey: Survey): SurveyResults {
   }
 }
 
-/** One worker for the page, started on first need; null where workers are unavailable or it broke. */
-let engine: { remote: Remote<EngineApi>; broken: Promise<never> } | null | undefined;
-
-function engineWorker(): typeof engine {
-  if (engine !== undefined) return engine;
-  try {
-    const worker = new Worker(new URL('../worker/engine-worker.ts', import.meta.url), { type: 'module', name: 'engine' });
-    // a worker that cannot load (or dies) would leave its answers pending forever: say so instead
-    const broken = new Promise<never>((_, reject) => {
-      worker.addEventListener('error', (e) => {
-        engine = null;
-        reject(new Error(`engine worker failed: ${e.message}`));
-      });
-    });
-    broken.catch(() => undefined);
-    engine = { remote: wrap<EngineApi>(worker), broken };
-  } catch {
-    engine = null;
-  }
-  return engine;
-}
-
 async function computeOffThread(survey: Survey): Promise<SurveyResults> {
-  const e = engineWorker();
+  const e = engineWorker('engine');
   if (!e) return computeInPlace(survey);
   try {
     return withRows(await Promise.race([e.remote.summary(survey), e.broken]));
   } catch (err) {
     // the engine's own refusal (bad geometry…) is shown; a worker that broke is replaced by the main thread
-    if (engine === null) return computeInPlace(survey);
+    if (engineWorkerBroken('engine')) return computeInPlace(survey);
     return failed(err);
   }
 }
