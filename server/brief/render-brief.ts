@@ -158,13 +158,15 @@ ${checksTable(b, d.doc, d.units, sides)}
   // the attitude the ship actually shows, beside the model's: a master must never read a predicted heel as the present one
   const measured = response && condition ? measuredAttitude(d.doc, condition) : null;
   const check = response && condition ? readingsVersusModel(d.doc, condition, response) : null;
+  // aground, the figures are those of the ship resting on the ground (the same response as the device's Stability panel)
+  const ground = response?.ground && !response.ground.afloat ? response.ground : null;
   const trimWords = (m: number) => `${q(Math.abs(m), 'length')} ${m > 0 ? 'by the stern' : m < 0 ? 'by the head' : ''}`.trim();
   const heelWords = (deg: number) => `${formatNumber(Math.abs(deg), 2)}° ${deg > 0.05 ? 'to starboard' : deg < -0.05 ? 'to port' : ''}`;
   const stability = response
     ? html`${measured ? html`<p>The readings show: drafts aft <strong>${q(measured.draftAftM, 'length')}</strong>, forward <strong>${q(measured.draftForeM, 'length')}</strong>, heel <strong>${heelWords(measured.heelDeg)}</strong>, trim <strong>${trimWords(measured.trimM)}</strong>.</p>` : ''}
 <p>Predicted from the modelled flooding: drafts aft <strong>${q(response.attitude.draftAftM, 'length')}</strong>, forward <strong>${q(response.attitude.draftForeM, 'length')}</strong>, heel <strong>${heelWords(response.attitude.heelDeg)}</strong>, trim <strong>${trimWords(response.attitude.trimM)}</strong>.</p>
 ${check && !check.agrees ? html`<p class="over">${check.message} Until that is explained, the readings, not the prediction, show how the ship lies.</p>` : ''}
-<p>GM after free surface: <strong class="${response.gmFluidM <= 0 ? 'over' : ''}">${q(response.gmFluidM, 'length')}</strong>${nearest && nearest.predictedM !== null ? html` · nearest opening that would let water in: <strong>${nearest.name}</strong>, ${q(nearest.predictedM, 'length')} above the water` : ''}.</p>
+<p>GM after free surface${ground ? ', resting on the ground' : ''}: <strong class="${response.gmFluidM <= 0 ? 'over' : ''}">${q(response.gmFluidM, 'length')}</strong>${ground ? html` (ground reaction <strong>${q(ground.reactionKg, 'mass')}</strong>; afloat, if she came off: ${q(ground.free.gmFluidM, 'length')})` : ''}${nearest && nearest.predictedM !== null ? html` · nearest opening that would let water in: <strong>${nearest.name}</strong>, ${q(nearest.predictedM, 'length')} above the water` : ''}.</p>
 ${response.warnings.length ? html`<ul>${response.warnings.map((w) => html`<li class="${w.severity === 'danger' ? 'over' : ''}">${w.message}</li>`)}</ul>` : ''}
 <p class="muted">${STABILITY_CAUTION}</p>`
     : withheld
