@@ -51,6 +51,9 @@ const cutSelects = (page: Page) =>
       const cs = getComputedStyle(s);
       ctx.font = `${cs.fontWeight} ${cs.fontSize} ${cs.fontFamily}`;
       const text = s.selectedOptions[0]?.text ?? '';
+      // a select that writes its whole chosen name under itself (SelectInput) is read in full there
+      const shown = s.dataset.chosenShown ? document.getElementById(s.dataset.chosenShown) : null;
+      if (shown && shown.getBoundingClientRect().height > 0 && shown.textContent?.includes(text)) return [];
       // room for the text: the box less its padding, borders and the drop-down arrow (about 20 px)
       const room = r.width - parseFloat(cs.paddingLeft) - parseFloat(cs.paddingRight) - parseFloat(cs.borderLeftWidth) - parseFloat(cs.borderRightWidth) - 20;
       return ctx.measureText(text).width > room ? [`"${text}" in ${Math.round(r.width)} px`] : [];

@@ -5,7 +5,7 @@
  */
 import type { ReactNode } from 'react';
 import type { FieldError, FieldValues, Path, UseFormRegister } from 'react-hook-form';
-import { useId } from 'react';
+import { useCallback, useEffect, useId, useRef, useState } from 'react';
 import { buttonClass } from './button';
 
 /** The look of every text input, select and textarea in a form. */
@@ -175,9 +175,29 @@ export function SelectInput<T extends FieldValues>({
 }) {
   const id = useId();
   const err = errorAt(errors, name)?.message;
+  const { ref, onChange, ...field } = register(name);
+  const { box, cut, check } = useCutChoice();
+  const labels = options.map((o) => o.label).join('\n');
+  // a renamed or added option may change what the chosen one says
+  useEffect(check, [check, labels]);
   return (
-    <Field label={label} error={err} hint={hint} id={id} wide>
-      <select id={id} className={inputCls} aria-invalid={err ? true : undefined} aria-describedby={describedBy(id, hint, err)} {...register(name)}>
+    <Field label={label} error={err} hint={hint} id={id} wide extra={cut ? <p className="mt-0.5 text-sm break-words" id={`${id}-chosen`} data-testid="select-chosen">Chosen: {cut}</p> : undefined}>
+      <select
+        id={id}
+        className={inputCls}
+        aria-invalid={err ? true : undefined}
+        aria-describedby={describedBy(id, hint, err)}
+        data-chosen-shown={cut ? `${id}-chosen` : undefined}
+        {...field}
+        ref={(el) => {
+          ref(el);
+          box.current = el;
+        }}
+        onChange={(e) => {
+          void onChange(e);
+          check();
+        }}
+      >
         {options.map((o) => (
           <option key={o.value} value={o.value}>
             {o.label}
@@ -186,6 +206,40 @@ export function SelectInput<T extends FieldValues>({
       </select>
     </Field>
   );
+}
+
+let measureCtx: CanvasRenderingContext2D | null | undefined;
+
+/**
+ * A closed select shows its chosen option on one line and cuts a long one short ("HFO bunkers
+ * (from the delivery n…" on a phone), and no style makes it wrap. So when the chosen text is wider
+ * than the box (measured in the select's own font, less its padding and the drop-down arrow), the
+ * full name is written under it. Rechecked on change and when the box is resized.
+ */
+function useCutChoice() {
+  const box = useRef<HTMLSelectElement | null>(null);
+  const [cut, setCut] = useState('');
+  const check = useCallback(() => {
+    const s = box.current;
+    if (!s) return;
+    const text = s.selectedOptions[0]?.text ?? '';
+    if (measureCtx === undefined) measureCtx = typeof document === 'undefined' ? null : document.createElement('canvas').getContext('2d');
+    const cs = getComputedStyle(s);
+    const width = s.getBoundingClientRect().width;
+    if (!measureCtx || width === 0) return setCut('');
+    measureCtx.font = `${cs.fontWeight} ${cs.fontSize} ${cs.fontFamily}`;
+    const room = width - parseFloat(cs.paddingLeft) - parseFloat(cs.paddingRight) - parseFloat(cs.borderLeftWidth) - parseFloat(cs.borderRightWidth) - 24;
+    setCut(measureCtx.measureText(text).width > room ? text : '');
+  }, []);
+  useEffect(() => {
+    check();
+    const s = box.current;
+    if (!s || typeof ResizeObserver === 'undefined') return;
+    const ro = new ResizeObserver(check);
+    ro.observe(s);
+    return () => ro.disconnect();
+  }, [check]);
+  return { box, cut, check };
 }
 
 export function FormError({ errors }: { errors: Record<string, unknown> }) {

@@ -5,10 +5,15 @@
  * plane, and a scale along the keel. It opens with the whole ship in view ("Fit to view" frames it
  * again); a tap names the space or plate under the finger. A thin view: every number and shape comes
  * from the engine (shared/engine, mesh.ts); this file only draws them. Lazy default export, its own chunk.
+ *
+ * The words in the model (the keel scale's marks, the tapped item's label) are ordinary elements of
+ * this page laid over the canvas, moved to their points by the scene on every frame it draws
+ * (PinProjector). drei's Html put each one in a React root of its own inside the canvas's element,
+ * and taking the model off the page (another tab of the desk) then failed in React's removeChild.
  */
 import { useEffect, useLayoutEffect, useMemo, useRef, useState } from 'react';
 import { Canvas, useFrame, useThree, type ThreeEvent } from '@react-three/fiber';
-import { Html, OrbitControls } from '@react-three/drei';
+import { OrbitControls } from '@react-three/drei';
 import * as THREE from 'three';
 import type { BoundarySummary, SurveyLevelResults } from '@shared/engine';
 import type { Survey } from '@shared/schemas/survey';
@@ -332,8 +337,8 @@ function Waterline({ drawn }: { drawn: Drawn }) {
   );
 }
 
-/** A scale along the keel on the starboard side, from the aft perpendicular, in round steps of the user's length unit. */
-function KeelScale({ vessel, system }: { vessel: Survey['vessel']; system: UnitSystem }) {
+/** The keel scale's marks (ship axes, m) and their line, in round steps of the user's length unit from the aft perpendicular. */
+function useKeelMarks(vessel: Survey['vessel'], system: UnitSystem) {
   const unit = DISPLAY_UNITS[system].length;
   const marks = useMemo(() => {
     const lengthInUnits = fromSi(vessel.lbpM, unit);
@@ -341,29 +346,56 @@ function KeelScale({ vessel, system }: { vessel: Survey['vessel']; system: UnitS
     const perUnitM = vessel.lbpM / lengthInUnits;
     const y = -vessel.breadthM / 2 - Math.max(vessel.breadthM * 0.08, 0.5);
     const tick = Math.max(vessel.depthM * 0.08, 0.3);
-    const list: { x: number; label: string | null }[] = [];
-    for (let k = 0, v = 0; v <= lengthInUnits + 1e-9; k++, v = k * step) list.push({ x: v * perUnitM, label: k % 2 === 0 ? `${Number(v.toPrecision(6))} ${UNITS[unit].label}` : null });
+    const list: { x: number; label: string | null; at: THREE.Vector3 }[] = [];
+    for (let k = 0, v = 0; v <= lengthInUnits + 1e-9; k++, v = k * step) {
+      const x = v * perUnitM;
+      list.push({ x, label: k % 2 === 0 ? `${Number(v.toPrecision(6))} ${UNITS[unit].label}` : null, at: toThree({ x, y, z: tick * 2 }) });
+    }
     const points: THREE.Vector3[] = [toThree({ x: 0, y, z: 0 }), toThree({ x: list[list.length - 1].x, y, z: 0 })];
     for (const m of list) points.push(toThree({ x: m.x, y, z: 0 }), toThree({ x: m.x, y, z: m.label ? tick * 2 : tick }));
-    return { list, y, tick, geometry: new THREE.BufferGeometry().setFromPoints(points) };
+    return { list, geometry: new THREE.BufferGeometry().setFromPoints(points) };
   }, [vessel, unit]);
   useEffect(() => () => marks.geometry.dispose(), [marks]);
+  return marks;
+}
+
+/** A scale along the keel on the starboard side (its words are pinned over the canvas). */
+function KeelScale({ geometry }: { geometry: THREE.BufferGeometry }) {
   return (
-    <group>
-      <lineSegments geometry={marks.geometry} raycast={() => null}>
-        <lineBasicMaterial color="#0d1217" />
-      </lineSegments>
-      {marks.list.map((m) =>
-        m.label ? (
-          <Html key={m.x} position={toThree({ x: m.x, y: marks.y, z: marks.tick * 2 })} center zIndexRange={[5, 0]} pointerEvents="none">
-            <span className="whitespace-nowrap rounded bg-card px-1 text-xs font-bold text-ink" data-testid="scale-mark">
-              {m.label}
-            </span>
-          </Html>
-        ) : null,
-      )}
-    </group>
+    <lineSegments geometry={geometry} raycast={() => null}>
+      <lineBasicMaterial color="#0d1217" />
+    </lineSegments>
   );
+}
+
+/** Page elements that follow points of the model: the element and the point (three.js axes) it sits at. */
+type Pins = Map<string, { el: HTMLElement; at: THREE.Vector3 }>;
+
+/**
+ * Moves every pinned element to where its point is drawn, on each frame the scene draws (the camera
+ * moved, the canvas was resized), and once more when the set of pins changes (`version`).
+ */
+function PinProjector({ pins, version }: { pins: { current: Pins }; version: string }) {
+  const v = useMemo(() => new THREE.Vector3(), []);
+  const invalidate = useThree((st) => st.invalidate);
+  useEffect(() => invalidate(), [version, invalidate]);
+  useFrame(({ camera, size }) => {
+    for (const { el, at } of pins.current.values()) {
+      v.copy(at).project(camera);
+      const behind = v.z > 1 || v.z < -1;
+      el.style.visibility = behind ? 'hidden' : '';
+      el.style.transform = `translate3d(${(((v.x + 1) / 2) * size.width).toFixed(1)}px, ${(((1 - v.y) / 2) * size.height).toFixed(1)}px, 0)`;
+    }
+  });
+  return null;
+}
+
+/** A ref callback that pins an element to a point while it is on the page. */
+function pinTo(pins: { current: Pins }, key: string, at: THREE.Vector3) {
+  return (el: HTMLElement | null) => {
+    if (el) pins.current.set(key, { el, at });
+    else pins.current.delete(key);
+  };
 }
 
 /** The name of what was tapped, with a figure or two, beside it in the model. */
@@ -380,8 +412,7 @@ function TapLabel({ tapped, survey, results, rows, system, onOpen, onClose }: { 
     detail = b ? [mean !== null ? `mean net pressure ${fmt(mean, 'pressure', system, 3)}` : null, b.maxUtilisation !== null ? `utilisation ${percent(b.maxUtilisation)}` : null].filter(Boolean).join(' · ') : '';
   }
   return (
-    <Html position={tapped.point} zIndexRange={[20, 10]}>
-      <div className="w-56 -translate-x-1/2 translate-y-2 rounded-lg border-2 border-hull bg-card p-2 text-sm text-ink shadow-lg" data-testid="model-label" role="group" aria-label={name}>
+    <div className="pointer-events-auto w-56 -translate-x-1/2 translate-y-2 rounded-lg border-2 border-hull bg-card p-2 text-sm text-ink shadow-lg" data-testid="model-label" role="group" aria-label={name}>
         <div className="flex items-start justify-between gap-2">
           <p className="font-bold">{name}</p>
           <button type="button" onClick={onClose} aria-label="Close the label" className="-m-1 min-h-touch min-w-touch rounded font-bold text-hull">
@@ -394,8 +425,7 @@ function TapLabel({ tapped, survey, results, rows, system, onOpen, onClose }: { 
             Open its form
           </button>
         )}
-      </div>
-    </Html>
+    </div>
   );
 }
 
@@ -440,6 +470,9 @@ export default function SurveyScene({ survey, results, rows, system, selectedId,
   const [fitKey, setFitKey] = useState(0);
   const [tapped, setTapped] = useState<Tapped | null>(null);
   const [isDrawn, setIsDrawn] = useState(false);
+  const marks = useKeelMarks(survey.vessel, system);
+  const pins = useRef<Pins>(new Map());
+  const pinVersion = `${marks.list.length}:${system}:${tapped ? `${tapped.id}@${tapped.point.toArray().join(',')}` : ''}`;
   const tap = (t: Tapped) => {
     setTapped(t);
     onSelect(t.id);
@@ -469,12 +502,28 @@ export default function SurveyScene({ survey, results, rows, system, selectedId,
           aria-label={`3D model of ${survey.vessel.name}`}
         >
           <Scene drawn={drawn} highlightId={tapped?.id ?? selectedId} onTap={tap} />
-          <KeelScale vessel={survey.vessel} system={system} />
-          {tapped && <TapLabel tapped={tapped} survey={survey} results={results} rows={rows} system={system} onOpen={onOpen} onClose={() => setTapped(null)} />}
+          <KeelScale geometry={marks.geometry} />
           <OrbitControls makeDefault enableDamping={false} />
           <CameraRig view={view} box={drawn.box} fitKey={fitKey} />
           <DrawnFlag onDrawn={() => setIsDrawn(true)} />
+          <PinProjector pins={pins} version={pinVersion} />
         </Canvas>
+        <div className="pointer-events-none absolute inset-0 z-10">
+          {marks.list.map((m) =>
+            m.label ? (
+              <div key={`mark-${m.x}`} ref={pinTo(pins, `mark-${m.x}`, m.at)} className="absolute top-0 left-0" style={{ visibility: 'hidden' }}>
+                <span className="block -translate-x-1/2 -translate-y-1/2 whitespace-nowrap rounded bg-card px-1 text-xs font-bold text-ink" data-testid="scale-mark">
+                  {m.label}
+                </span>
+              </div>
+            ) : null,
+          )}
+          {tapped && (
+            <div key={`tap-${tapped.id}`} ref={pinTo(pins, 'tap', tapped.point)} className="absolute top-0 left-0 z-20" style={{ visibility: 'hidden' }}>
+              <TapLabel tapped={tapped} survey={survey} results={results} rows={rows} system={system} onOpen={onOpen} onClose={() => setTapped(null)} />
+            </div>
+          )}
+        </div>
       </div>
       <Legend maxPressurePa={drawn.maxPressurePa} system={system} />
     </div>
