@@ -3,7 +3,7 @@
  * inline style sheet. Readable on a 360 px phone and printable on one or two A4 pages.
  */
 import type { Survey } from '@shared/schemas/survey';
-import { governingCheck, type BoundaryResult, type SurveyResults } from '@shared/engine';
+import { type BoundaryResult, type SurveyResults } from '@shared/engine';
 import type { OperatingLimit, Verdict } from '@shared/api/review';
 import { CAUTIONS, FORECAST_CAUTION, STABILITY_CAUTION, hmm } from '@shared/api/cautions';
 import { downfloodingFreeboards, forecastFlooding, measuredAttitude, readingsVersusModel, shipResponseOf } from '@shared/engine';
@@ -23,6 +23,7 @@ import { boundaryKindWords } from '@shared/review/plain-words';
 import { figureNotes, figureNoteSentence } from '@shared/review/assumptions';
 import { measurableLimit } from '@shared/review/measurable-limits';
 import { structureCheckRows } from '@shared/review/structure-rows';
+import { governingCheckWords } from '@shared/review/rating-words';
 import { html, type SafeHtml } from './html';
 
 export interface BriefPageData {
@@ -137,14 +138,15 @@ export function renderBriefPage(d: BriefPageData, opts: { ackError?: string } = 
   const boundaryItems = important.map((b) => {
     const v = boundaryVerdicts.get(b.id);
     const sev = v ? verdictSeverity(v.verdict) : null;
-    const gov = governingCheck(b);
+    const sides = { A: sideLabel(r!, b.sideA), B: sideLabel(r!, b.sideB) };
+    const gov = governingCheckWords(b, d.units, sides);
     return html`<li class="boundary">
 <div class="bhead"><strong>${b.name}</strong> <span class="muted">(${boundaryKindWords(b.kind)}, between ${sideLabel(r!, b.sideA)} and ${sideLabel(r!, b.sideB)})</span></div>
 ${v ? html`<div class="verdict ${SEVERITY_CLASS[sev!]}"><strong>${boundaryVerdictLabel(v.verdict)}</strong>: ${boundaryVerdictMeaning(v.verdict)}.${v.note ? html` ${v.note}` : ''}</div>` : html`<div class="muted">No verdict given.</div>`}
 <div class="figs">Net load ${q(Math.abs(b.net.resultantN), 'force')} pushing towards ${sideLabel(r!, b.net.forceN >= 0 ? b.sideB : b.sideA)} · highest net pressure ${q(Math.abs(b.net.peak.pressurePa), 'pressure')} towards ${sideLabel(r!, b.net.peak.pressurePa >= 0 ? b.sideB : b.sideA)}${
       gov ? html` · <span class="${gov.utilisation > 1 ? 'over' : ''}">${gov.utilisation > 1 ? '▲ OVER CAPACITY: ' : ''}${formatNumber(gov.utilisation * 100, 3)} % of ${gov.what}</span>` : ''
     }</div>
-${checksTable(b, d.doc, d.units, { A: sideLabel(r!, b.sideA), B: sideLabel(r!, b.sideB) })}
+${checksTable(b, d.doc, d.units, sides)}
 </li>`;
   });
 

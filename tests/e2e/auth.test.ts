@@ -1,24 +1,17 @@
-import { afterAll, beforeAll, describe, expect, it, inject } from 'vitest';
-import type { Browser, Page } from 'playwright-core';
-import { launchBrowser, screenshotPath } from '../support/browser';
-import { createDb, type Db } from '../../server/db/knex';
+import { beforeAll, describe, expect, it, inject } from 'vitest';
+import type { Page } from 'playwright-core';
+import { screenshotPath } from '../support/browser';
 import { createOrgWithMembers, uniqueEmail, TEST_PASSWORD, type TestOrg } from '../support/auth';
 import { linkIn, waitForMail } from '../support/mail';
 import { DEMO_USERS } from '../../seeds/demo-people';
+import { startE2eFile } from '../support/e2e';
 
-let browser: Browser;
-let db: Db;
 let org: TestOrg;
 const baseUrl = inject('baseUrl');
 
+const file = startE2eFile({ db: true });
 beforeAll(async () => {
-  browser = await launchBrowser();
-  db = createDb(inject('testEnv').DATABASE_URL);
-  org = await createOrgWithMembers(db);
-});
-afterAll(async () => {
-  await browser?.close();
-  await db?.destroy();
+  org = await createOrgWithMembers(file.db);
 });
 
 async function signInThroughForm(page: Page, email: string, password: string) {
@@ -44,7 +37,7 @@ const noSideScroll = (page: Page) => page.evaluate(() => document.documentElemen
 describe('sign-in', () => {
   for (const width of [360, 1280]) {
     it(`signs in a demo person at ${width} px and shows them in the header`, async () => {
-      const ctx = await browser.newContext({ viewport: { width, height: 800 } });
+      const ctx = await file.browser.newContext({ viewport: { width, height: 800 } });
       const page = await ctx.newPage();
       await page.goto(`${baseUrl}/sign-in`);
       await page.getByRole('heading', { name: 'Sign in' }).waitFor();
@@ -77,7 +70,7 @@ describe('sign-in', () => {
   }
 
   it('keeps the person signed in across a reload (refresh on load) and signs out on request', async () => {
-    const ctx = await browser.newContext({ viewport: { width: 1280, height: 800 } });
+    const ctx = await file.browser.newContext({ viewport: { width: 1280, height: 800 } });
     const page = await ctx.newPage();
     await signInThroughForm(page, org.engineer.email, TEST_PASSWORD);
     await page.waitForURL(`${baseUrl}/surveys`);
@@ -93,7 +86,7 @@ describe('sign-in', () => {
   });
 
   it('stays signed in when the answer to a refresh is lost after the server rotated the token', async () => {
-    const ctx = await browser.newContext({ viewport: { width: 1280, height: 800 } });
+    const ctx = await file.browser.newContext({ viewport: { width: 1280, height: 800 } });
     const page = await ctx.newPage();
     await signInThroughForm(page, org.engineer.email, TEST_PASSWORD);
     await page.waitForURL(`${baseUrl}/surveys`);
@@ -116,7 +109,7 @@ describe('sign-in', () => {
   });
 
   it('works offline under the remembered identity, and asks to sign in again when the sign-in has ended', async () => {
-    const ctx = await browser.newContext({ viewport: { width: 360, height: 800 } });
+    const ctx = await file.browser.newContext({ viewport: { width: 360, height: 800 } });
     const page = await ctx.newPage();
     await signInThroughForm(page, org.surveyor.email, TEST_PASSWORD);
     await page.waitForURL(`${baseUrl}/surveys`);
@@ -129,7 +122,7 @@ describe('sign-in', () => {
 
     // The network is back but the sign-in ended (refresh revoked): a prompt, and the work stays.
     await page.unroute('**/api/**');
-    await db('refresh_tokens').where({ user_id: org.surveyor.id }).update({ revoked_at: new Date() });
+    await file.db('refresh_tokens').where({ user_id: org.surveyor.id }).update({ revoked_at: new Date() });
     await page.reload();
     await page.getByTestId('session-expired').waitFor();
     await expectCurrentUser(page, org.surveyor.name);
@@ -147,7 +140,7 @@ describe('sign-in', () => {
 
 describe('members and invitations', () => {
   it('an admin invites by e-mail; the invitation arrives and is accepted in the browser', async () => {
-    const adminCtx = await browser.newContext({ viewport: { width: 1280, height: 900 } });
+    const adminCtx = await file.browser.newContext({ viewport: { width: 1280, height: 900 } });
     const page = await adminCtx.newPage();
     await signInThroughForm(page, org.admin.email, TEST_PASSWORD);
     await page.waitForURL(`${baseUrl}/surveys`);
@@ -181,7 +174,7 @@ describe('members and invitations', () => {
     expect(await noSideScroll(page)).toBeLessThanOrEqual(0);
     await page.screenshot({ path: screenshotPath('auth-members-360'), fullPage: true });
 
-    const guestCtx = await browser.newContext({ viewport: { width: 360, height: 800 } });
+    const guestCtx = await file.browser.newContext({ viewport: { width: 360, height: 800 } });
     const guest = await guestCtx.newPage();
     await guest.goto(url);
     await guest.getByRole('heading', { name: `Join ${org.name}` }).waitFor();
@@ -211,7 +204,7 @@ describe('members and invitations', () => {
 
 describe('password reset', () => {
   it('asks for a link, follows it, sets a new password and signs in with it', async () => {
-    const ctx = await browser.newContext({ viewport: { width: 360, height: 800 } });
+    const ctx = await file.browser.newContext({ viewport: { width: 360, height: 800 } });
     const page = await ctx.newPage();
     await page.goto(`${baseUrl}/sign-in`);
     await page.getByRole('link', { name: 'Forgotten your password?' }).click();

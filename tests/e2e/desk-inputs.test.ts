@@ -4,11 +4,10 @@
  * boundary's loads rest on, read-only, and links to them among all inputs; an engineer opening the
  * surveyor's workspace sees the figures but no field to change them.
  */
-import { afterAll, beforeAll, describe, expect, it, inject } from 'vitest';
-import type { Browser } from 'playwright-core';
-import { launchBrowser, screenshotPath } from '../support/browser';
+import { describe, expect, it, inject } from 'vitest';
+import { screenshotPath } from '../support/browser';
 import { demoSurvey } from '../../seeds/demo-survey';
-import { DEMO, makeChangesIfAsked, signIn } from '../support/e2e';
+import { DEMO, makeChangesIfAsked, signIn, startE2eFile } from '../support/e2e';
 
 const baseUrl = inject('baseUrl');
 const SURVEYOR = DEMO.surveyor;
@@ -20,18 +19,12 @@ const CASES = [
   { width: 1440, final: '6.40' },
 ] as const;
 
-let browser: Browser;
-beforeAll(async () => {
-  browser = await launchBrowser();
-});
-afterAll(async () => {
-  await browser?.close();
-});
+const file = startE2eFile();
 
 describe.each(CASES)('at $width px', ({ width, final }) => {
   it('history in plain words, inputs beside the results, and a read-only workspace for the engineer', async () => {
     // The surveyor types the No. 2 hold sounding in three steps; each autosaves and syncs.
-    const s = await browser.newContext({ viewport: { width, height: 900 } });
+    const s = await file.browser.newContext({ viewport: { width, height: 900 } });
     const sp = await s.newPage();
     await signIn(sp, SURVEYOR);
     await sp.goto(`${baseUrl}/surveys/${SURVEY_ID}?s=contents`);
@@ -45,7 +38,7 @@ describe.each(CASES)('at $width px', ({ width, final }) => {
     await sp.getByTestId('survey-sync').filter({ hasText: /^Synced/ }).waitFor({ timeout: 30_000 });
     await s.close();
 
-    const e = await browser.newContext({ viewport: { width, height: 900 } });
+    const e = await file.browser.newContext({ viewport: { width, height: 900 } });
     const page = await e.newPage();
     await signIn(page, ENGINEER);
     await page.goto(`${baseUrl}/review/${SURVEY_ID}`);

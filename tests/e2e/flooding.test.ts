@@ -3,29 +3,22 @@
  * breach and a pump in the steering gear flat, and reads a time-to-limit that matches the engine's
  * forecast of the same document computed here. Bad input gets a field error that keeps what was typed.
  */
-import { afterAll, beforeAll, describe, expect, it, inject } from 'vitest';
-import type { Browser } from 'playwright-core';
-import { launchBrowser, screenshotPath } from '../support/browser';
+import { describe, expect, it, inject } from 'vitest';
+import { screenshotPath } from '../support/browser';
 import { forecastFlooding } from '@shared/engine';
 import { hmm } from '@shared/api/cautions';
 import { formatShipTime } from '@shared/review/time-words';
-import { DEMO, localDoc, makeChangesIfAsked, signIn } from '../support/e2e';
+import { DEMO, localDoc, makeChangesIfAsked, signIn, startE2eFile } from '../support/e2e';
 
 const baseUrl = inject('baseUrl');
 const DEMO_SURVEY_ID = '5eed0000-0000-4000-8000-000000000001';
 const STEERING = '5eed0000-0000-4000-8000-000000000011';
 
-let browser: Browser;
-beforeAll(async () => {
-  browser = await launchBrowser();
-});
-afterAll(async () => {
-  await browser?.close();
-});
+const file = startE2eFile();
 
 describe('flooding forecast on the phone, offline', () => {
   it('enters a breach and a pump and reads the time-to-limit the engine gives', async () => {
-    const context = await browser.newContext({ viewport: { width: 390, height: 844 } });
+    const context = await file.browser.newContext({ viewport: { width: 390, height: 844 } });
     const page = await context.newPage();
     await signIn(page, DEMO.surveyor);
     await page.goto(`${baseUrl}/surveys/${DEMO_SURVEY_ID}?s=flooding`);

@@ -6,21 +6,14 @@
  * box-barge closed forms worked out here (KB = T/2, BM = B²/12T, free surface ρ·l·b³/12,
  * tan φ = w·y / (Δ·GM_fluid); standard ship-stability texts, e.g. Barrass & Derrett).
  */
-import { afterAll, beforeAll, describe, expect, it, inject } from 'vitest';
-import type { Browser } from 'playwright-core';
-import { launchBrowser, screenshotPath } from '../support/browser';
+import { describe, expect, it, inject } from 'vitest';
+import { screenshotPath } from '../support/browser';
 import { formatNumber } from '@shared/units/units';
-import { DEMO, offlineReady, section, signIn, waitSaved } from '../support/e2e';
+import { DEMO, offlineReady, section, signIn, startE2eFile, waitSaved } from '../support/e2e';
 
 const baseUrl = inject('baseUrl');
 
-let browser: Browser;
-beforeAll(async () => {
-  browser = await launchBrowser();
-});
-afterAll(async () => {
-  await browser?.close();
-});
+const file = startE2eFile();
 
 // The barge: L = 60 m, B = 12 m, D = 5 m, floating at 2.00 m with KG 3.00 m in sea water of 1025 kg/m³.
 // The wing tank: x 20–30 m, 4 m wide from the starboard side (y −6 to −2 m), full depth, permeability 1.
@@ -71,7 +64,7 @@ function expected() {
 
 describe('the ship’s response on a phone, offline', () => {
   it('box barge particulars, a flooded wing tank, and draft, heel and GM as the closed forms give them', async () => {
-    const context = await browser.newContext({ viewport: { width: 390, height: 844 } });
+    const context = await file.browser.newContext({ viewport: { width: 390, height: 844 } });
     const page = await context.newPage();
     await signIn(page, DEMO.surveyor);
     await page.goto(`${baseUrl}/surveys`);

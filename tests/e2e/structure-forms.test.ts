@@ -6,22 +6,16 @@
  * the same survey computed here. The hand check of the same figures (ρ g h on the cover, Roark /
  * Timoshenko coefficient 0.2874 for a square panel) is in tests/reference/check-rows.test.ts.
  */
-import { afterAll, beforeAll, describe, expect, it, inject } from 'vitest';
-import type { Browser, Locator, Page } from 'playwright-core';
-import { launchBrowser, screenshotPath } from '../support/browser';
-import { DEMO, section, signIn } from '../support/e2e';
+import { describe, expect, it, inject } from 'vitest';
+import type { Locator, Page } from 'playwright-core';
+import { screenshotPath } from '../support/browser';
+import { DEMO, section, signIn, startE2eFile } from '../support/e2e';
 import { computeSurvey } from '@shared/engine';
 import { SurveySchema, type Survey } from '@shared/schemas/survey';
 
 const baseUrl = inject('baseUrl');
 
-let browser: Browser;
-beforeAll(async () => {
-  browser = await launchBrowser();
-});
-afterAll(async () => {
-  await browser?.close();
-});
+const file = startE2eFile();
 
 /** A 2 m × 2 m hatch cover at z = 2 m over a tank pressed up to 1 m of head in its pipe (water at z = 3 m). */
 function hatchSurvey(): Survey {
@@ -68,7 +62,7 @@ const pct = (u: number) => `${(u * 100).toFixed(0)} %`;
 
 describe('plating and ratings by direction, on a phone, offline', () => {
   it('are entered with field errors that keep what was typed, and their utilisations match the engine', async () => {
-    const context = await browser.newContext({ viewport: { width: 390, height: 844 } });
+    const context = await file.browser.newContext({ viewport: { width: 390, height: 844 } });
     const page = await context.newPage();
     await signIn(page, DEMO.surveyor);
     await page.goto(`${baseUrl}/surveys`);

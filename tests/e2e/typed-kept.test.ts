@@ -5,29 +5,21 @@
  * surveyor, at 1280 px for the engineer.
  */
 import { afterAll, beforeAll, describe, expect, it, inject } from 'vitest';
-import type { Browser, BrowserContext, Locator, Page } from 'playwright-core';
-import { launchBrowser, screenshotPath } from '../support/browser';
-import { createDb, type Db } from '../../server/db/knex';
+import type { BrowserContext, Locator, Page } from 'playwright-core';
+import { screenshotPath } from '../support/browser';
 import { createOrgWithMembers, type TestOrg } from '../support/auth';
 import { storeSurvey } from '../support/surveys';
 import { surveyInStatus } from '../support/review';
-import { localDoc, signIn } from '../support/e2e';
+import { localDoc, signIn, startE2eFile } from '../support/e2e';
 import type { Survey } from '@shared/schemas/survey';
 
 const baseUrl = inject('baseUrl');
 
-let browser: Browser;
-let db: Db;
 let org: TestOrg;
 
+const file = startE2eFile({ db: true });
 beforeAll(async () => {
-  browser = await launchBrowser();
-  db = createDb(inject('testEnv').DATABASE_URL);
-  org = await createOrgWithMembers(db);
-});
-afterAll(async () => {
-  await browser?.close();
-  await db?.destroy();
+  org = await createOrgWithMembers(file.db);
 });
 
 /**
@@ -71,7 +63,7 @@ async function docOnDevice(page: Page, id: string): Promise<Survey> {
   return localDoc(page, id);
 }
 
-const serverDoc = async (id: string): Promise<Survey> => (await db('surveys').where({ id }).first()).doc as Survey;
+const serverDoc = async (id: string): Promise<Survey> => (await file.db('surveys').where({ id }).first()).doc as Survey;
 
 function soundingOf(doc: Survey, compartmentName: string): number | undefined {
   const comp = doc.compartments.find((c) => c.name === compartmentName);
@@ -86,8 +78,8 @@ describe('nothing typed is lost', () => {
   let survey: Survey;
 
   beforeAll(async () => {
-    survey = await storeSurvey(db, org.surveyor);
-    ctx = await browser.newContext({ viewport: { width: 390, height: 844 } });
+    survey = await storeSurvey(file.db, org.surveyor);
+    ctx = await file.browser.newContext({ viewport: { width: 390, height: 844 } });
     page = await ctx.newPage();
     await signIn(page, org.surveyor, `/surveys/${survey.id}`);
     await page.getByTestId('workspace').waitFor({ timeout: 60_000 });
@@ -146,8 +138,8 @@ describe('the verdict note on the desk', () => {
   let survey: Survey;
 
   beforeAll(async () => {
-    survey = await surveyInStatus(db, org, 'in_review');
-    ctx = await browser.newContext({ viewport: { width: 1280, height: 900 } });
+    survey = await surveyInStatus(file.db, org, 'in_review');
+    ctx = await file.browser.newContext({ viewport: { width: 1280, height: 900 } });
     page = await ctx.newPage();
     await signIn(page, org.engineer, `/review/${survey.id}`);
     await page.getByTestId('review-desk').waitFor({ timeout: 60_000 });
@@ -170,7 +162,7 @@ describe('the verdict note on the desk', () => {
     await expect.poll(() => row.getAttribute('class')).toContain('border-caution');
     // the note was saved with the verdict, and the desk has read its saves back
     await expect
-      .poll(async () => (await db('review_verdicts').where({ survey_id: survey.id, boundary_id: survey.boundaries[0].id }).first())?.note, { timeout: 10_000 })
+      .poll(async () => (await file.db('review_verdicts').where({ survey_id: survey.id, boundary_id: survey.boundaries[0].id }).first())?.note, { timeout: 10_000 })
       .toBe('Shore at frame 62 first.');
     await page.waitForTimeout(1500);
     expect(await note.inputValue()).toBe('Shore at frame 62 first.');
