@@ -36,6 +36,7 @@ export function BoundaryResultsTable({
   system,
   selectedId,
   onSelect,
+  compact = false,
 }: {
   /** For the names of the spaces on each side. */
   results: SurveyLevelResults;
@@ -43,11 +44,14 @@ export function BoundaryResultsTable({
   system: UnitSystem;
   selectedId?: string | null;
   onSelect?: (id: string) => void;
+  /** A narrow side panel: boundary, utilisation and net force only, no minimum width (the full table is one tap away). */
+  compact?: boolean;
 }) {
   const [sorting, setSorting] = useState<SortingState>([{ id: 'utilisation', desc: true }]);
   const columns = useMemo(
     () => [
       col.accessor('name', {
+        id: 'name',
         header: 'Boundary',
         cell: (c) => (
           <span>
@@ -90,8 +94,8 @@ export function BoundaryResultsTable({
           <span className="text-sm"><PointText point={copOf(c.row.original)} system={system} /></span>
         ),
       }),
-    ],
-    [results, system],
+    ].filter((c) => !compact || COMPACT_COLUMNS.has(c.id ?? '')),
+    [results, system, compact],
   );
   const table = useReactTable({
     data: rows as BoundarySummary[],
@@ -118,7 +122,7 @@ export function BoundaryResultsTable({
       role="region"
       aria-label={virtual ? `Loads on ${countWords(rows.length, 'boundary', 'boundaries')} (scrolls)` : 'Loads on each boundary (scrolls sideways)'}
     >
-      <table className="w-full min-w-[36rem] border-collapse text-left" data-testid="boundary-results">
+      <table className={`w-full border-collapse text-left ${compact ? '' : 'min-w-[36rem]'}`} data-testid="boundary-results">
         <thead className="bg-sea-soft">
           <SortableHeaderRows table={table} />
         </thead>
@@ -153,6 +157,9 @@ export function BoundaryResultsTable({
     </div>
   );
 }
+
+/** The columns a narrow side panel keeps. */
+const COMPACT_COLUMNS = new Set(['name', 'utilisation', 'force']);
 
 const copOf = (b: BoundarySummary) => (b.copX === null || b.copY === null || b.copZ === null ? null : { x: b.copX, y: b.copY, z: b.copZ });
 

@@ -262,7 +262,7 @@ export function Workspace({ surveyId }: { surveyId: string }) {
           {editError}
         </p>
       )}
-      <div className={`gap-6 px-3 pt-4 sm:px-5 ${sideResults ? 'lg:grid lg:grid-cols-[minmax(0,1fr)_minmax(0,26rem)]' : ''}`}>
+      <div className={`gap-6 px-3 pt-4 sm:px-5 ${sideResults ? 'lg:grid lg:grid-cols-[minmax(0,1fr)_minmax(0,26rem)] xl:grid-cols-[minmax(0,1fr)_minmax(0,32rem)]' : ''}`}>
         <div className="min-w-0">
           {/* disabled: every field and button of the forms at once, until "Make changes" */}
           <fieldset disabled={locked && !readOnly && !READ_ONLY_SECTIONS.has(section)} className="m-0 min-w-0 border-0 p-0">
@@ -272,7 +272,7 @@ export function Workspace({ surveyId }: { surveyId: string }) {
         {sideResults && wide && results && (
           <aside className="mt-6 space-y-3 lg:mt-0" aria-label="Loads at a glance">
             <h2 className="text-lg">Loads now</h2>
-            <BoundaryResultsTable results={results} rows={rows} system={system} onSelect={(id) => go('loads', id)} />
+            <BoundaryResultsTable results={results} rows={rows} system={system} onSelect={(id) => go('loads', id)} compact />
             <Cautions compact />
           </aside>
         )}

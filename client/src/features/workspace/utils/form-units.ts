@@ -31,7 +31,8 @@ export function measureLabel(measure: Measure, system: UnitSystem): string {
 /** A typed string → SI number; '' → undefined (so the schema says it is required); junk → NaN. */
 export function parseField(text: string | undefined, measure: Measure, system: UnitSystem): number | undefined {
   if (text === undefined) return undefined;
-  const t = String(text).trim().replace(',', '.');
+  // a typographic minus (U+2212, as phones and pasted figures give it) is a minus
+  const t = String(text).trim().replace(',', '.').replace(/\u2212/g, '-');
   if (t === '') return undefined;
   const v = Number(t);
   if (!Number.isFinite(v)) return Number.NaN;
