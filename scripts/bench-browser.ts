@@ -12,7 +12,8 @@
  * - elements in the document on every screen (the Ship screen and the largest);
  * - the bytes the device pushed for the one-sounding edit.
  * Then, unthrottled: the engine's per-edit path (`computeSurveySummary`) in Chromium on the
- * 4,000-boundary bench vessel, and the sign-in page's transferred bytes on a first visit.
+ * 4,000-boundary bench vessel (scripts/bench-engine-browser.ts: on the page and through a Web Worker,
+ * wall clock and CPU time), and the sign-in page's transferred bytes on a first visit.
  *
  * Run: `npm run bench -- browser` (a few minutes: it builds the client).
  */
@@ -23,8 +24,7 @@ import { launchBrowser } from '../tests/support/browser';
 import { startWholeApp } from '../tests/support/whole-app';
 import { bigSurvey, elementCount, importSurvey, openContentsOf, SOUNDED_SPACE } from '../tests/support/big-survey';
 import { DEMO, section, signIn } from '../tests/support/e2e';
-import { generateVessel } from './bench-engine';
-import { engineBundle } from './lib/engine-bundle';
+import { benchEngineInChromium } from './bench-engine-browser';
 
 const PHONE = { width: 390, height: 844 };
 const THROTTLE = 4;
@@ -108,29 +108,6 @@ async function openSection(page: Page, name: string, ready: string): Promise<num
 
 const LOADS_READY = '[data-testid=boundary-results] [data-testid=boundary-row]';
 const MODEL_READY = '[data-testid=model-canvas][data-drawn=true]';
-
-/** The engine in Chromium: the per-edit path on the 4,000-boundary vessel, bundled as the app bundles it. */
-async function benchEngineInChromium(context: BrowserContext): Promise<string> {
-  const page = await context.newPage();
-  await page.addScriptTag({ content: await engineBundle() });
-  const doc = JSON.stringify(generateVessel());
-  const times = await page.evaluate((json) => {
-    const survey = JSON.parse(json);
-    const engine = (window as unknown as { BrinelineEngine: { computeSurveySummary: (s: unknown) => unknown } }).BrinelineEngine;
-    for (let i = 0; i < 10; i++) engine.computeSurveySummary(survey);
-    const t: number[] = [];
-    for (let i = 0; i < 40; i++) {
-      const t0 = performance.now();
-      engine.computeSurveySummary(survey);
-      t.push(performance.now() - t0);
-    }
-    return t;
-  }, doc);
-  await page.close();
-  const m = median(times);
-  const fastest = Math.min(...times);
-  return `Engine in Chromium, computeSurveySummary, 4,000 boundaries, unthrottled: median ${m.toFixed(2)} ms over ${times.length} runs (fastest ${fastest.toFixed(2)} ms; goal < 15 ms: ${verdict(m < 15)})`;
-}
 
 /** A first visit to the sign-in page: every byte on the wire for the page's own requests, and the service worker's precache after. */
 async function benchSignInBytes(context: BrowserContext, url: string): Promise<string[]> {
@@ -232,7 +209,7 @@ export async function main(): Promise<void> {
     await context.close();
 
     const plain = await browser.newContext();
-    say(await benchEngineInChromium(plain));
+    say(...(await benchEngineInChromium(browser, plain)));
     await plain.close();
     const fresh = await browser.newContext({ viewport: PHONE, isMobile: true });
     say(...(await benchSignInBytes(fresh, url)));

@@ -2,9 +2,10 @@
  * `npm run bench`: every benchmark in one run, each printing its own figures.
  * Targets: engine < 10 ms for 4,000 boundaries (Node defaults) and ≥ 5,000× faster than quadrature; API ≥ 1,000 req/s
  * with p99 < 150 ms; initial JavaScript for sign-in and survey list ≤ 170 KB gzipped.
- * `npm run bench -- engine` (or sync, bundle, loop, browser, flags) runs one section. `flags`: the server's heavy
+ * `npm run bench -- engine` (or sync, bundle, loop, browser, browser-engine, flags) runs one section. `flags`: the server's heavy
  * paths (scripts/bench-flags.ts) with Node's default young generation and with the semi-space flags. `browser`: the app in headless
- * Chromium at 4× CPU throttle on the 2,000-boundary survey (scripts/bench-browser.ts). `loop`: /api/health p99 while the
+ * Chromium at 4× CPU throttle on the 2,000-boundary survey (scripts/bench-browser.ts); `browser-engine`: only its
+ * engine part, the engine in Chromium on the page and through a Web Worker (scripts/bench-engine-browser.ts). `loop`: /api/health p99 while the
  * largest allowed survey is recomputed, in the worker pool and (for comparison) on the request loop.
  *
  * The engine runs in child processes: with Node's default young generation (the figure that
@@ -40,6 +41,7 @@ const sections: Record<string, () => Promise<unknown> | unknown> = {
   bundle: async () => (await import('./bench-bundle')).main(),
   loop: async () => (await import('./bench-loop')).main(),
   browser: async () => (await import('./bench-browser')).main(),
+  'browser-engine': async () => (await import('./bench-engine-browser')).main(),
 };
 
 const wanted = process.argv.slice(2).filter((a) => a in sections);

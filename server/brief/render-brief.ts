@@ -3,7 +3,7 @@
  * inline style sheet. Readable on a 360 px phone and printable on one or two A4 pages.
  */
 import type { Survey } from '@shared/schemas/survey';
-import { governingCheck, type BoundaryResult, type SurveyResults } from '@shared/engine';
+import { type BoundaryResult, type SurveyResults } from '@shared/engine';
 import type { OperatingLimit, Verdict } from '@shared/api/review';
 import { CAUTIONS, FORECAST_CAUTION, STABILITY_CAUTION, hmm } from '@shared/api/cautions';
 import { downfloodingFreeboards, forecastFlooding, measuredAttitude, readingsVersusModel, shipResponseOf } from '@shared/engine';
@@ -23,6 +23,7 @@ import { boundaryKindWords } from '@shared/review/plain-words';
 import { figureNotes, figureNoteSentence } from '@shared/review/assumptions';
 import { measurableLimit } from '@shared/review/measurable-limits';
 import { structureCheckRows } from '@shared/review/structure-rows';
+import { governingCheckWords } from '@shared/review/rating-words';
 import { html, type SafeHtml } from './html';
 
 export interface BriefPageData {
@@ -137,14 +138,15 @@ export function renderBriefPage(d: BriefPageData, opts: { ackError?: string } = 
   const boundaryItems = important.map((b) => {
     const v = boundaryVerdicts.get(b.id);
     const sev = v ? verdictSeverity(v.verdict) : null;
-    const gov = governingCheck(b);
+    const sides = { A: sideLabel(r!, b.sideA), B: sideLabel(r!, b.sideB) };
+    const gov = governingCheckWords(b, d.units, sides);
     return html`<li class="boundary">
 <div class="bhead"><strong>${b.name}</strong> <span class="muted">(${boundaryKindWords(b.kind)}, between ${sideLabel(r!, b.sideA)} and ${sideLabel(r!, b.sideB)})</span></div>
 ${v ? html`<div class="verdict ${SEVERITY_CLASS[sev!]}"><strong>${boundaryVerdictLabel(v.verdict)}</strong>: ${boundaryVerdictMeaning(v.verdict)}.${v.note ? html` ${v.note}` : ''}</div>` : html`<div class="muted">No verdict given.</div>`}
 <div class="figs">Net load ${q(Math.abs(b.net.resultantN), 'force')} pushing towards ${sideLabel(r!, b.net.forceN >= 0 ? b.sideB : b.sideA)} · highest net pressure ${q(Math.abs(b.net.peak.pressurePa), 'pressure')} towards ${sideLabel(r!, b.net.peak.pressurePa >= 0 ? b.sideB : b.sideA)}${
       gov ? html` · <span class="${gov.utilisation > 1 ? 'over' : ''}">${gov.utilisation > 1 ? '▲ OVER CAPACITY: ' : ''}${formatNumber(gov.utilisation * 100, 3)} % of ${gov.what}</span>` : ''
     }</div>
-${checksTable(b, d.doc, d.units, { A: sideLabel(r!, b.sideA), B: sideLabel(r!, b.sideB) })}
+${checksTable(b, d.doc, d.units, sides)}
 </li>`;
   });
 
@@ -156,13 +158,15 @@ ${checksTable(b, d.doc, d.units, { A: sideLabel(r!, b.sideA), B: sideLabel(r!, b
   // the attitude the ship actually shows, beside the model's: a master must never read a predicted heel as the present one
   const measured = response && condition ? measuredAttitude(d.doc, condition) : null;
   const check = response && condition ? readingsVersusModel(d.doc, condition, response) : null;
+  // aground, the figures are those of the ship resting on the ground (the same response as the device's Stability panel)
+  const ground = response?.ground && !response.ground.afloat ? response.ground : null;
   const trimWords = (m: number) => `${q(Math.abs(m), 'length')} ${m > 0 ? 'by the stern' : m < 0 ? 'by the head' : ''}`.trim();
   const heelWords = (deg: number) => `${formatNumber(Math.abs(deg), 2)}° ${deg > 0.05 ? 'to starboard' : deg < -0.05 ? 'to port' : ''}`;
   const stability = response
     ? html`${measured ? html`<p>The readings show: drafts aft <strong>${q(measured.draftAftM, 'length')}</strong>, forward <strong>${q(measured.draftForeM, 'length')}</strong>, heel <strong>${heelWords(measured.heelDeg)}</strong>, trim <strong>${trimWords(measured.trimM)}</strong>.</p>` : ''}
 <p>Predicted from the modelled flooding: drafts aft <strong>${q(response.attitude.draftAftM, 'length')}</strong>, forward <strong>${q(response.attitude.draftForeM, 'length')}</strong>, heel <strong>${heelWords(response.attitude.heelDeg)}</strong>, trim <strong>${trimWords(response.attitude.trimM)}</strong>.</p>
 ${check && !check.agrees ? html`<p class="over">${check.message} Until that is explained, the readings, not the prediction, show how the ship lies.</p>` : ''}
-<p>GM after free surface: <strong class="${response.gmFluidM <= 0 ? 'over' : ''}">${q(response.gmFluidM, 'length')}</strong>${nearest && nearest.predictedM !== null ? html` · nearest opening that would let water in: <strong>${nearest.name}</strong>, ${q(nearest.predictedM, 'length')} above the water` : ''}.</p>
+<p>GM after free surface${ground ? ', resting on the ground' : ''}: <strong class="${response.gmFluidM <= 0 ? 'over' : ''}">${q(response.gmFluidM, 'length')}</strong>${ground ? html` (ground reaction <strong>${q(ground.reactionKg, 'mass')}</strong>; afloat, if she came off: ${q(ground.free.gmFluidM, 'length')})` : ''}${nearest && nearest.predictedM !== null ? html` · nearest opening that would let water in: <strong>${nearest.name}</strong>, ${q(nearest.predictedM, 'length')} above the water` : ''}.</p>
 ${response.warnings.length ? html`<ul>${response.warnings.map((w) => html`<li class="${w.severity === 'danger' ? 'over' : ''}">${w.message}</li>`)}</ul>` : ''}
 <p class="muted">${STABILITY_CAUTION}</p>`
     : withheld

@@ -54,6 +54,30 @@ const DB_DOWN_CODES = new Set(['ECONNREFUSED', 'ECONNRESET', 'ENOTFOUND', 'ETIME
  */
 const PG_PROTOCOL_VIOLATION = '08P01';
 
+/**
+ * Errors that say a connection which was open broke, or that PostgreSQL itself cannot tell
+ * (08007, transaction resolution unknown): a statement or COMMIT already sent may have been carried
+ * out, so a write's outcome is unknown. The other outage errors happen before anything is sent (no
+ * connection made: refused, no host, too many connections, starting up, the pool's wait).
+ */
+const OUTCOME_UNKNOWN_CODES = new Set(['08007', '08006', '08003', '08000', 'ECONNRESET', 'EPIPE', 'ETIMEDOUT', '57P01', '57P02']);
+// node-postgres's words for a broken connection; knex puts the statement before them ("COMMIT; - Connection terminated…").
+const OUTCOME_UNKNOWN_MESSAGE = /Connection terminated unexpectedly|Client has encountered a connection error/;
+const CONNECTION_LOST_MESSAGE = /Connection terminated|Client has encountered a connection error/;
+
+const NOTHING_CHANGED = 'The database cannot be reached just now. Nothing was changed; try again shortly.';
+const MAY_HAVE_CHANGED =
+  'The link to the database broke before it confirmed this change, so the change may or may not have been stored. ' +
+  'A device keeps its edits and sends them again, and a change sent twice is stored once; anything else, check whether it was stored before repeating it.';
+
+/** Whether a request that met an outage may have changed something (a write whose connection broke mid-way). */
+export function outageOutcomeUnknown(err: unknown, method: string): boolean {
+  if (method === 'GET' || method === 'HEAD' || method === 'OPTIONS') return false;
+  const e = err as { code?: unknown; message?: unknown } | null;
+  if (typeof e?.code === 'string' && OUTCOME_UNKNOWN_CODES.has(e.code)) return true;
+  return typeof e?.message === 'string' && OUTCOME_UNKNOWN_MESSAGE.test(e.message);
+}
+
 /** Whether `err` says the database could not be reached (not that a query was wrong). */
 export function isDatabaseUnavailable(err: unknown): boolean {
   const e = err as { code?: unknown; name?: unknown; message?: unknown } | null;
@@ -61,7 +85,7 @@ export function isDatabaseUnavailable(err: unknown): boolean {
   if (e.code === PG_PROTOCOL_VIOLATION) return false;
   if (typeof e.code === 'string' && (DB_DOWN_CODES.has(e.code) || e.code.startsWith('08'))) return true;
   if (e.name === 'KnexTimeoutError') return true;
-  return typeof e.message === 'string' && /^Connection terminated|Client has encountered a connection error/.test(e.message);
+  return typeof e.message === 'string' && CONNECTION_LOST_MESSAGE.test(e.message);
 }
 
 export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
@@ -92,7 +116,9 @@ export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
     req.log?.warn({ err }, 'database unavailable');
     status = 503;
     res.setHeader('Retry-After', '5');
-    body = { code: 'db_unavailable', message: 'The database cannot be reached just now. Nothing was changed; try again shortly.', requestId };
+    body = outageOutcomeUnknown(err, req.method)
+      ? { code: 'db_unavailable', message: MAY_HAVE_CHANGED, details: { outcome: 'unknown' }, requestId }
+      : { code: 'db_unavailable', message: NOTHING_CHANGED, requestId };
   } else if (typeof (err as PgError)?.code === 'string' && PG_BAD_VALUE.has((err as PgError).code!)) {
     // A value the request carried that PostgreSQL cannot hold: the checks before the query should
     // have refused it (and are the bug to fix), but the answer is still the client's 400.

@@ -19,6 +19,8 @@ export function newBoundaryTable(capacity: number): BoundaryTable {
     sideA: new Array<BoundarySummary['sideA']>(capacity),
     sideB: new Array<BoundarySummary['sideB']>(capacity),
     signChange: new Uint8Array(capacity),
+    capacityDirection: new Array<BoundarySummary['capacityDirection']>(capacity),
+    capacityKind: new Array<BoundarySummary['capacityKind']>(capacity),
     areaM2: f(),
     forceN: f(),
     resultantN: f(),
@@ -33,6 +35,8 @@ export function newBoundaryTable(capacity: number): BoundaryTable {
     normalZ: f(),
     peakPressurePa: f(),
     capacityUtilisation: f(),
+    capacityRated: f(),
+    capacityActual: f(),
     stiffenerUtilisation: f(),
     platingUtilisation: f(),
     shoreUtilisation: f(),
@@ -53,6 +57,8 @@ export function setBoundaryRow(t: BoundaryTable, i: number, r: BoundarySummary):
   t.sideA[i] = r.sideA;
   t.sideB[i] = r.sideB;
   t.signChange[i] = r.signChange ? 1 : 0;
+  t.capacityDirection[i] = r.capacityDirection;
+  t.capacityKind[i] = r.capacityKind;
   for (const f of BOUNDARY_NUMBER_FIELDS) t[f][i] = nan(r[f]);
 }
 
@@ -67,6 +73,8 @@ export function boundaryRow(t: BoundaryTable, i: number): BoundarySummary {
     sideA: t.sideA[i],
     sideB: t.sideB[i],
     signChange: t.signChange[i] === 1,
+    capacityDirection: t.capacityDirection[i],
+    capacityKind: t.capacityKind[i],
   } as BoundarySummary;
   for (const f of BOUNDARY_NUMBER_FIELDS) (row as Record<typeof f, number | null>)[f] = nullable(t[f][i]);
   return row;

@@ -52,13 +52,14 @@ import type {
   SurveySummary,
   BoundaryTable,
   BoundarySummary,
+  CapacityResult,
   SurveyLevelResults,
   TankResult,
 } from './results';
 import { facetOrientation } from './facets';
 import { newBoundaryTable, setBoundaryRow } from './boundary-table';
 import { platingCheck } from './plating';
-import { capacitiesOf, governingCapacity, governingUtilisation } from './ratings';
+import { capacitiesOf, governingCapacity, governingRatingLean } from './ratings';
 import { shoreResult, shoreUtilisation } from './shore-check';
 import { plainLayout, platingPanels, stiffenedPlateLean, stiffenedPlateLoads, type StiffenerLayout } from './shore-stiffener';
 import { add, cross, dot, fromPoint, norm, scale, sub, toPoint, unit, type V3 } from './vec';
@@ -504,6 +505,10 @@ export function summariseBoundary(r: BoundaryResult, b: Pick<Boundary, 'sideA' |
     peakPressurePa: n.peak.pressurePa,
     signChange: n.signChange,
     capacityUtilisation: r.capacity ? r.capacity.utilisation : null,
+    capacityDirection: r.capacity ? r.capacity.direction : null,
+    capacityKind: r.capacity ? r.capacity.kind : null,
+    capacityRated: r.capacity ? r.capacity.rated : null,
+    capacityActual: r.capacity ? r.capacity.actual : null,
     stiffenerUtilisation: r.stiffeners ? r.stiffeners.maxUtilisation : null,
     platingUtilisation: r.plating ? r.plating.maxUtilisation : null,
     shoreUtilisation: maxShoreUtilisation(r.shores),
@@ -930,7 +935,7 @@ function flatChecks(b: Boundary, plate: FlatPlate, it: PlateIntegration, net: Pr
 }
 
 /** What the summary keeps of a flat boundary's checks (flatChecksLean); null where the full result has none. */
-const leanChecks = { capacity: null as number | null, stiffeners: null as number | null, plating: null as number | null, shores: null as number | null, maxU: null as number | null };
+const leanChecks = { capacity: null as number | null, rating: null as Readonly<CapacityResult> | null, stiffeners: null as number | null, plating: null as number | null, shores: null as number | null, maxU: null as number | null };
 /** Each shore's utilisation, in the order of b.shores, for the boundary being summarised. */
 let shoreU = new Float64Array(8);
 
@@ -954,7 +959,8 @@ function flatChecksLean(b: Boundary, plate: FlatPlate, it: PlateIntegration, net
   const plating = b.plating ? platingCheck(b.plating, platingPanels(plate, net, it.cuts, layout ?? plainLayout(plate))) : null;
   if (plating && plating.maxUtilisation !== null && plating.maxUtilisation > 1) warnPlating(b, plating.maxUtilisation, layout !== null, warn);
   const F = it.netForceN;
-  const capacity = governingUtilisation(b, F, Math.abs(F), it.peakMaxPa, it.peakMinPa, peak);
+  const rating = governingRatingLean(b, F, Math.abs(F), it.peakMaxPa, it.peakMinPa, peak);
+  const capacity = rating ? rating.utilisation : null;
   let maxU = maxOf(capacity ?? undefined, stiffenerU ?? undefined, null);
   maxU = maxOf(plating?.maxUtilisation ?? undefined, undefined, maxU);
   let shoreMax: number | null = null;
@@ -963,6 +969,7 @@ function flatChecksLean(b: Boundary, plate: FlatPlate, it: PlateIntegration, net
     shoreMax = maxOf(shoreU[i], undefined, shoreMax);
   }
   leanChecks.capacity = capacity;
+  leanChecks.rating = rating;
   leanChecks.stiffeners = stiffenerU;
   leanChecks.plating = plating ? plating.maxUtilisation : null;
   leanChecks.shores = shoreMax;
@@ -1068,6 +1075,11 @@ function flatSummary(
   t.peakPressurePa[k] = peak;
   t.signChange[k] = it.positive.forceN !== 0 && it.negative.forceN !== 0 ? 1 : 0;
   t.capacityUtilisation[k] = checks.capacity ?? NaN;
+  const rating = checks.rating;
+  t.capacityDirection[k] = rating ? rating.direction : null;
+  t.capacityKind[k] = rating ? rating.kind : null;
+  t.capacityRated[k] = rating ? rating.rated : NaN;
+  t.capacityActual[k] = rating ? rating.actual : NaN;
   t.stiffenerUtilisation[k] = checks.stiffeners ?? NaN;
   t.platingUtilisation[k] = checks.plating ?? NaN;
   t.shoreUtilisation[k] = checks.shores ?? NaN;

@@ -72,8 +72,9 @@ function weightsOfState(survey: Survey, m: FloodModel, y: Float64Array) {
       spaceId: sp.id,
       permeability: sp.permeability,
       openToSea: sp.held,
-      layers: m.fluids.map((fl, f) => ({ densityKgM3: fl.densityKgM3, volumeM3: Math.max(0, y[s * nF + f]), levelElevationM: st.tops[s * nF + f] })),
+      layers: m.fluids.map((fl, f) => ({ densityKgM3: fl.densityKgM3, volumeM3: Math.max(0, y[s * nF + f]), levelElevationM: st.tops[s * nF + f], sea: f === m.seaSlot })),
     })),
+    m.frame.waterlineElevationM,
   );
 }
 

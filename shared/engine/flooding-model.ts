@@ -29,7 +29,7 @@ import type { LevelTable } from './flooding-levels';
 import { levelOfVolume, surfaceAreaAt, volumeAt } from './flooding-levels';
 import type { V3 } from './vec';
 import type { Linearisation } from './flooding-ode';
-import { bandFactorise, bandPays, bandSolve, bandwidths, denseFactorise, denseSolve, newBandLu, reverseCuthillMcKee, type BandLu } from './sparse-band';
+import { bandFactorise, bandPays, bandSolve, denseFactorise, denseSolve, newBandLu, reverseCuthillMcKee, type BandLu } from './sparse-band';
 
 /** Sea-level pressure of the standard atmosphere, Pa (ISO 2533:1975; ICAO Doc 7488). */
 export const STANDARD_ATMOSPHERE_PA = 101_325;
@@ -510,6 +510,9 @@ export function floodLinearisation(m: FloodModel, pumpRate: Float64Array, opts: 
   }
   interface Group {
     vars: Int32Array;
+    /** Per space of the group (in order), the local rows its columns can touch: its own and those of the spaces its openings join, sorted. */
+    rows: Int32Array[];
+    /** Row-major size × size; only the entries in `rows` are ever written, so the rest stay zero. */
     j: Float64Array;
     /** The totals' rows of J over this group's columns (3 × size). */
     jt: Float64Array;
@@ -534,7 +537,37 @@ export function floodLinearisation(m: FloodModel, pumpRate: Float64Array, opts: 
         localOf[s * nF + f] = a * nF + f;
       }
     });
-    groups.push({ vars, j: new Float64Array(size * size), jt: new Float64Array(3 * size), lu: new Float64Array(0), piv: new Int32Array(size), band: null, useBand: false, gh: NaN, x: new Float64Array(size) });
+    // a column of space s has nonzeros only in s and the spaces its openings join (move() books nothing else
+    // but the totals): the Jacobian's pattern, known before any difference is taken
+    const rows = spaces.map((s) => {
+      const joined = new Set<number>([s]);
+      for (const k of openingsOf[s]) for (const side of [m.openings[k].inside, m.openings[k].outside]) if (side >= 0 && !m.spaces[side].held) joined.add(side);
+      const local: number[] = [];
+      for (const o of joined) for (let f = 0; f < nF; f++) local.push(localOf[o * nF + f]);
+      return Int32Array.from(local.sort((a, b) => a - b));
+    });
+    // the band of that pattern (every entry that can be nonzero lies inside it, so nothing is ever dropped)
+    let kl = 0, ku = 0;
+    rows.forEach((r, a) => {
+      for (let f = 0; f < nF; f++) {
+        const c = a * nF + f;
+        kl = Math.max(kl, r[r.length - 1] - c);
+        ku = Math.max(ku, c - r[0]);
+      }
+    });
+    const useBand = !opts.dense && bandPays(size, kl, ku);
+    groups.push({
+      vars,
+      rows,
+      j: new Float64Array(size * size),
+      jt: new Float64Array(3 * size),
+      lu: new Float64Array(useBand ? 0 : size * size),
+      piv: new Int32Array(size),
+      band: useBand ? newBandLu(size, kl, ku) : null,
+      useBand,
+      gh: NaN,
+      x: new Float64Array(size),
+    });
   }
   const baseQ = new Float64Array(m.openings.length * nF);
   const baseP = new Float64Array(m.pumps.length * nF);
@@ -571,8 +604,6 @@ export function floodLinearisation(m: FloodModel, pumpRate: Float64Array, opts: 
         baseP.set(q, k * nF);
       }
       for (const g of groups) {
-        g.j.fill(0);
-        g.jt.fill(0);
         g.gh = NaN;
         const size = g.vars.length;
         for (let c = 0; c < size; c++) {
@@ -594,8 +625,10 @@ export function floodLinearisation(m: FloodModel, pumpRate: Float64Array, opts: 
           st.liquidTop[s] = savedTop;
           st.gasPa[s] = savedGas;
           st.liquidVolume[s] = savedVolume;
-          // gather the column (its rows lie in this group and the totals) and clear the scratch
-          for (let r = 0; r < size; r++) {
+          // gather the column from the rows it can touch (the pattern) and the totals, and clear the scratch
+          const touched = g.rows[(c - (c % nF)) / nF];
+          for (let k = 0; k < touched.length; k++) {
+            const r = touched[k];
             const i = g.vars[r];
             g.j[r * size + c] = col[i];
             col[i] = 0;
@@ -605,11 +638,6 @@ export function floodLinearisation(m: FloodModel, pumpRate: Float64Array, opts: 
             col[nV + r] = 0;
           }
         }
-        // the band this Jacobian has (read off its nonzeros, so nothing outside it is ever dropped)
-        const { kl, ku } = size >= 24 && !opts.dense ? bandwidths(g.j, size) : { kl: size, ku: size };
-        g.useBand = !opts.dense && bandPays(size, kl, ku);
-        if (g.useBand) g.band = newBandLu(size, kl, ku, g.band ?? undefined);
-        else if (g.lu.length < size * size) g.lu = new Float64Array(size * size);
       }
     },
     solve(gh, b) {

@@ -25,6 +25,11 @@ export interface OdeOptions {
   hMax?: number;
   /** Give up after this many steps (default 100,000). */
   maxSteps?: number;
+  /**
+   * rosenbrock23 only: accepted steps one Jacobian serves (default 1, a fresh one every step). Above 1
+   * the Jacobian is kept while steps are accepted and worked out again after a rejected step.
+   */
+  jacobianSteps?: number;
 }
 
 /** y at time t inside the last accepted step (the continuous extension). */
@@ -199,6 +204,12 @@ const RB_E32 = 6 + Math.SQRT2;
  * and pumping allow. Every stage is a linear combination of f values through W⁻¹, so a linear
  * invariant c·y with c·f ≡ 0 and c·J ≡ 0 is kept to rounding (the flooding model's volume
  * balance). Same events and result as dormandPrince.
+ *
+ * With `jacobianSteps` > 1 one Jacobian serves several accepted steps (W is still factorised
+ * afresh for each step size), and a rejected step brings a fresh one: the stages then use an
+ * approximate J, as a W-method does, and the step size control, which compares the second- and
+ * third-order results, answers for the error. The balance is kept either way (an older J still has
+ * c·J ≡ 0).
  */
 export function rosenbrock23(
   f: Derivative,
@@ -220,6 +231,8 @@ export function rosenbrock23(
   let tOld = t;
   let hOld = 0;
   let needJacobian = true;
+  let jacobianAge = 0;
+  const jacobianSteps = Math.max(1, Math.floor(opts.jacobianSteps ?? 1));
   const dense: DenseOutput = (ts, out) => {
     const s = hOld === 0 ? 0 : (ts - tOld) / hOld;
     const a = (s * (1 - s)) / (1 - 2 * RB_D), b = (s * (s - 2 * RB_D)) / (1 - 2 * RB_D);
@@ -232,6 +245,7 @@ export function rosenbrock23(
     if (needJacobian) {
       lin.jacobian(t, y, f0);
       needJacobian = false;
+      jacobianAge = 0;
     }
     const gh = RB_D * h;
     k1.set(f0);
@@ -257,6 +271,8 @@ export function rosenbrock23(
     err = Math.sqrt(err / n);
     if (!(err <= 1)) {
       rejected++;
+      // a rejection with an older Jacobian: work it out afresh before shrinking further on its account
+      if (jacobianAge > 0) needJacobian = true;
       h *= Number.isFinite(err) ? Math.max(0.1, 0.8 * err ** (-1 / 3)) : 0.1;
       if (h < 1e-9 * Math.max(1, Math.abs(t))) throw new Error(`rosenbrock23: step size underflow at t = ${t} s`);
       continue;
@@ -271,7 +287,7 @@ export function rosenbrock23(
     if (t1 - t < 1e-12 * Math.max(1, Math.abs(t1))) t = t1;
     y.set(y1);
     f0.set(f2);
-    needJacobian = true;
+    if (++jacobianAge >= jacobianSteps) needJacobian = true;
     // the error is O(h³): grow by at most 5
     h *= err === 0 ? 5 : Math.min(5, 0.8 * err ** (-1 / 3));
     const te = event ? event(tOld, t, y, dense) : null;

@@ -40,24 +40,33 @@ export function governingCapacity(list: readonly CapacityResult[]): CapacityResu
   return best;
 }
 
+/** The governing rating as governingLean leaves it (one object, rewritten on every call). */
+const leanRating: CapacityResult = { kind: 'pressure', direction: 'either', rated: 0, actual: 0, utilisation: 0 };
+
+function offer(kind: RatingKind, direction: CapacityResult['direction'], rated: number, actual: number, best: CapacityResult | null): CapacityResult | null {
+  const u = actual / rated;
+  if (best !== null && !(u > best.utilisation)) return best;
+  leanRating.kind = kind;
+  leanRating.direction = direction;
+  leanRating.rated = rated;
+  leanRating.actual = actual;
+  leanRating.utilisation = u;
+  return leanRating;
+}
+
 /**
- * governingCapacity(capacitiesOf(b, net))?.utilisation ?? null from the net load's numbers, without
- * building the list (the summary's path): N, N, Pa, Pa, Pa.
+ * governingCapacity(capacitiesOf(b, net)) from the net load's numbers, without building the list
+ * (the summary's path): N, N, Pa, Pa, Pa. The answer is a scratch object rewritten by the next
+ * call, so read it at once; null when the boundary has no rating.
  */
-export function governingUtilisation(b: Pick<Boundary, 'ratedCapacity' | 'directionalCapacity'>, forceN: number, resultantN: number, maxPressurePa: number, minPressurePa: number, peakPa: number): number | null {
-  let best: number | null = null;
+export function governingRatingLean(b: Pick<Boundary, 'ratedCapacity' | 'directionalCapacity'>, forceN: number, resultantN: number, maxPressurePa: number, minPressurePa: number, peakPa: number): Readonly<CapacityResult> | null {
+  let best: CapacityResult | null = null;
   const rc = b.ratedCapacity;
-  if (rc) best = eitherWayActual(rc.kind, peakPa, resultantN) / (rc.kind === 'pressure' ? rc.pressurePa : rc.forceN);
+  if (rc) best = offer(rc.kind, 'either', rc.kind === 'pressure' ? rc.pressurePa : rc.forceN, eitherWayActual(rc.kind, peakPa, resultantN), best);
   const dc = b.directionalCapacity;
   if (dc) {
-    if (dc.towardsB !== undefined) {
-      const u = towardsBActual(dc.kind, maxPressurePa, forceN) / dc.towardsB;
-      if (best === null || u > best) best = u;
-    }
-    if (dc.towardsA !== undefined) {
-      const u = towardsAActual(dc.kind, minPressurePa, forceN) / dc.towardsA;
-      if (best === null || u > best) best = u;
-    }
+    if (dc.towardsB !== undefined) best = offer(dc.kind, 'towards-B', dc.towardsB, towardsBActual(dc.kind, maxPressurePa, forceN), best);
+    if (dc.towardsA !== undefined) best = offer(dc.kind, 'towards-A', dc.towardsA, towardsAActual(dc.kind, minPressurePa, forceN), best);
   }
   return best;
 }

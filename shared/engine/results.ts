@@ -418,6 +418,15 @@ export interface BoundarySummary {
   peakPressurePa: number;
   signChange: boolean;
   capacityUtilisation: number | null;
+  /**
+   * The governing rating (capacity.direction, .kind, .rated, .actual), so a row can say which way
+   * the rating holds and what it is: null when the boundary has none. Rated and actual are Pa for
+   * a pressure rating, N for a force rating.
+   */
+  capacityDirection: CapacityResult['direction'] | null;
+  capacityKind: CapacityResult['kind'] | null;
+  capacityRated: number | null;
+  capacityActual: number | null;
   /** stiffeners.maxUtilisation. */
   stiffenerUtilisation: number | null;
   /** plating.maxUtilisation. */
@@ -443,6 +452,8 @@ export const BOUNDARY_NUMBER_FIELDS = [
   'normalZ',
   'peakPressurePa',
   'capacityUtilisation',
+  'capacityRated',
+  'capacityActual',
   'stiffenerUtilisation',
   'platingUtilisation',
   'shoreUtilisation',
@@ -466,6 +477,8 @@ export type BoundaryTable = {
   sideB: BoundarySide[];
   /** 1 where the net pressure reverses across the plate. */
   signChange: Uint8Array;
+  capacityDirection: (CapacityResult['direction'] | null)[];
+  capacityKind: (CapacityResult['kind'] | null)[];
 } & Record<BoundaryNumberField, Float64Array>;
 
 /** computeSurveySummary's output: SurveyResults with the boundaries as a BoundaryTable. */

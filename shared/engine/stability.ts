@@ -39,6 +39,15 @@ export interface FloodWeight {
   z: number;
   freeSurfaceMomentKgM2: number;
   openToSea: boolean;
+  /**
+   * A space open to the sea holding a liquid of its own that floats on the sea water inside (a holed
+   * fuel tank's oil): that liquid stays part of the ship (sea water replaced only what flowed out),
+   * so it is a weight riding on the sea water, and only the sea water below it is lost buoyancy.
+   * `massKg` kg and `volumeM3` m³ (permeability applied) of that liquid; `interfaceDepthM`, how far
+   * its underside (the interface with the sea water) lies below the outside waterline, m: held as the
+   * ship sinks or rises, as the oil column's weight is carried by the sea water's pressure there.
+   */
+  kept?: { massKg: number; volumeM3: number; interfaceDepthM: number };
 }
 
 /**
@@ -74,8 +83,8 @@ export interface ShipResponse {
   freeSurfaceCorrectionM: number;
   /** Each slack space's free-surface moment, kg·m. */
   freeSurfaces: { spaceId: string; momentKgM: number }[];
-  /** Which spaces each method took. */
-  methods: { addedWeight: string[]; lostBuoyancy: string[] };
+  /** Which spaces each method took; `ownLiquidKept`: spaces open to the sea whose own liquid (oil) stays aboard as a weight. */
+  methods: { addedWeight: string[]; lostBuoyancy: string[]; ownLiquidKept: string[] };
   /** 'small-angle' (tan φ = Σw·y/(Δ·GM)) or 'loll' (GM fluid ≤ 0: wall-sided formula, a rough figure). */
   heelBy: 'small-angle' | 'loll';
   /** Least height of the deck edge above the water at this attitude, m. */
@@ -121,21 +130,28 @@ function solidOf(geometry: object & Parameters<typeof compartmentSolid>[0]): Pol
 interface OpenSpace {
   spaceId: string;
   solid: Polyhedron;
+  geometry: Parameters<typeof compartmentSolid>[0] & object;
   permeability: number;
+  kept?: FloodWeight['kept'];
 }
 
-/** Volume, centroid and waterplane of the open spaces' permeable part below the level z = T. */
+/**
+ * Volume, centroid and waterplane of the open spaces' permeable part below the sea water's surface
+ * inside them with the ship at the level z = T: the waterline itself, or the interface under a
+ * liquid of their own kept aboard, its depth below the waterline held.
+ */
 function openSpacesAt(spaces: readonly OpenSpace[], T: number) {
   return spaces.map((s) => {
-    const v = volumeBelow(s.solid, UP, T);
-    const sec = sectionMoments(planeSection(s.solid, UP, T), UP);
+    const z = T - (s.kept?.interfaceDepthM ?? 0);
+    const v = volumeBelow(s.solid, UP, z);
+    const sec = sectionMoments(planeSection(s.solid, UP, z), UP);
     const mu = s.permeability;
     return {
       spaceId: s.spaceId,
       volumeM3: mu * v.volume,
-      centroid: v.volume > 1e-12 ? [v.mx / v.volume, v.my / v.volume, v.mz / v.volume] : [0, 0, T],
+      centroid: v.volume > 1e-12 ? [v.mx / v.volume, v.my / v.volume, v.mz / v.volume] : [0, 0, z],
       areaM2: mu * sec.areaM2,
-      areaCentroid: sec.centroid ?? [0, 0, T],
+      areaCentroid: sec.centroid ?? [0, 0, z],
       iAlongM4: mu * sec.iAlongM4,
       iAcrossM4: mu * sec.iAcrossM4,
     };
@@ -178,7 +194,10 @@ export function responseFromWeights(survey: Survey, condition: Condition, weight
   for (const w of weights) {
     const comp = w.openToSea ? compartments.get(w.spaceId) : undefined;
     if (comp) {
-      open.push({ spaceId: w.spaceId, solid: solidOf(comp.geometry), permeability: comp.permeability ?? DEFAULT_PERMEABILITY[comp.spaceType] });
+      const kept = w.kept && w.kept.massKg > 0 && w.kept.volumeM3 > 0 ? w.kept : undefined;
+      open.push({ spaceId: w.spaceId, solid: solidOf(comp.geometry), geometry: comp.geometry, permeability: comp.permeability ?? DEFAULT_PERMEABILITY[comp.spaceType], kept });
+      // the liquid kept aboard weighs on the ship wherever it rides (its place once the waterline is found)
+      if (kept) W += kept.massKg;
       continue;
     }
     if (w.openToSea) warn('open-space-unknown', 'warning', `Space ${w.spaceId} is open to the sea but not in the survey; taken as an added weight.`);
@@ -239,6 +258,33 @@ export function responseFromWeights(survey: Survey, condition: Condition, weight
   }
   const os = openSpacesAt(open, Tf);
   const lostVolume = os.reduce((s, o) => s + o.volumeM3, 0);
+  // each kept liquid rides on its space's sea water: its slice above the interface, and its free
+  // surfaces ρ·μ·(i_top − i_interface) (the layered free surface of the texts; the sea water's own
+  // surface, the interface, is taken by the lost waterplane or, by added weight, as sea water)
+  const kept: string[] = [];
+  for (const o of open) {
+    if (!o.kept) continue;
+    const mu = o.permeability > 0 ? o.permeability : 1;
+    const table = uprightTable(o.geometry);
+    const zi = Tf - o.kept.interfaceDepthM;
+    const below = volumeBelow(o.solid, UP, zi);
+    const zt = Math.min(levelOfVolume(table, below.volume + o.kept.volumeM3 / mu), table.top);
+    const upto = volumeBelow(o.solid, UP, zt);
+    const slice = upto.volume - below.volume;
+    const c = slice > 1e-12 ? [(upto.mx - below.mx) / slice, (upto.my - below.my) / slice, (upto.mz - below.mz) / slice] : [upto.mx / Math.max(upto.volume, 1e-12), upto.my / Math.max(upto.volume, 1e-12), zt];
+    const m = o.kept.massKg;
+    Mx += m * c[0];
+    My += m * c[1];
+    Mz += m * c[2];
+    kept.push(o.spaceId);
+    const rhoKept = o.kept.massKg / o.kept.volumeM3;
+    const iTop = zt < table.top ? sectionMoments(planeSection(o.solid, UP, zt), UP).iAlongM4 : 0;
+    const fsmKept = rhoKept * mu * (iTop - sectionMoments(planeSection(o.solid, UP, zi), UP).iAlongM4);
+    if (Math.abs(fsmKept) > 1e-9) {
+      fsmAdded += fsmKept;
+      freeSurfaces.push({ spaceId: o.spaceId, momentKgM: fsmKept });
+    }
+  }
 
   let disp: number, kg: number, lcg: number, tcg: number, km: number, kb: number, lcb: number, tcb: number, mct: number, lcf: number, area: number;
   let fsm = fsmAdded;
@@ -367,6 +413,7 @@ export function responseFromWeights(survey: Survey, condition: Condition, weight
     methods: {
       addedWeight: openMethod === 'added-weight' ? [...added, ...open.map((o) => o.spaceId)] : added,
       lostBuoyancy: openMethod === 'added-weight' ? [] : open.map((o) => o.spaceId),
+      ownLiquidKept: kept,
     },
     heelBy,
     deckEdgeFreeboardM: deckEdge,
@@ -423,8 +470,8 @@ export function floodWeightsFromResults(survey: Survey, results: Omit<SurveyResu
   };
   const spaces = results.compartments
     .filter((r) => compartments.has(r.id) && r.liquid.centroid && r.liquid.massKg > 0)
-    .map((r) => ({ spaceId: r.id, permeability: r.permeability, openToSea: r.openToSea && inBalance(r.id), layers: r.layers }));
-  return floodWeightsAtLevels(survey, up, spaces);
+    .map((r) => ({ spaceId: r.id, permeability: r.permeability, openToSea: r.openToSea && inBalance(r.id), layers: r.layers.map((l) => ({ ...l, sea: l.fluidId === 'sea-water' })) }));
+  return floodWeightsAtLevels(survey, up, spaces, results.frame.waterlineElevationM);
 }
 
 /** A liquid layer for the weights: its volume (permeability applied, m³) and its top's elevation along `up`, m. */
@@ -432,6 +479,8 @@ export interface LevelledLayer {
   densityKgM3: number;
   volumeM3: number;
   levelElevationM: number;
+  /** Sea water (of a space open to the sea: the sea's own water, in communication with it). */
+  sea?: boolean;
 }
 
 /** ρ·μ·i_T of every slack surface of a space's layers (bottom up), kg·m: see floodWeightsFromResults. */
@@ -461,11 +510,18 @@ function uprightTable(geometry: object & Parameters<typeof compartmentSolid>[0])
  * shift as she heels is taken by the free-surface correction alone, from the actual surface polygons
  * at `up` (ρ·μ·i_T, as floodWeightsFromResults), so it is never counted twice however far she has
  * already heeled. Units: kg, m, kg·m; volumes with permeability applied.
+ *
+ * A space open to the sea whose sea water (`sea` layers) carries lighter liquids of its own (a holed
+ * fuel tank's oil) gets them as `kept`, with the depth of their underside below the outside
+ * waterline at elevation `waterlineElevationM` (along `up`): they stay aboard as a weight, and only
+ * the sea water is lost buoyancy. Without the waterline, or with no sea water in the space, the
+ * space is taken as before (open: all of it lost buoyancy; no sea water: an added weight).
  */
 export function floodWeightsAtLevels(
   survey: Survey,
   up: readonly [number, number, number],
   spaces: readonly { spaceId: string; permeability: number; openToSea: boolean; layers: readonly LevelledLayer[] }[],
+  waterlineElevationM?: number,
 ): FloodWeight[] {
   const u: [number, number, number] = [up[0], up[1], up[2]];
   const compartments = new Map(survey.compartments.map((c) => [c.id, c]));
@@ -494,7 +550,23 @@ export function floodWeightsAtLevels(
     }
     if (!(mass > 0)) continue;
     const fsm = freeSurfaceMoment(solid, u, mu, sp.layers);
-    out.push({ spaceId: sp.spaceId, massKg: mass, x: mx / mass, y: my / mass, z: mz / mass, freeSurfaceMomentKgM2: fsm, openToSea: sp.openToSea });
+    const weight: FloodWeight = { spaceId: sp.spaceId, massKg: mass, x: mx / mass, y: my / mass, z: mz / mass, freeSurfaceMomentKgM2: fsm, openToSea: sp.openToSea };
+    if (sp.openToSea && waterlineElevationM !== undefined) {
+      const present = sp.layers.filter((l) => l.volumeM3 > 0);
+      const lastSea = present.findLastIndex((l) => l.sea);
+      const above = present.slice(lastSea + 1);
+      if (lastSea < 0) {
+        // no sea water inside: nothing is lost, the space's liquid is a weight like any other
+        weight.openToSea = false;
+      } else if (above.length > 0) {
+        weight.kept = {
+          massKg: above.reduce((a, l) => a + l.densityKgM3 * l.volumeM3, 0),
+          volumeM3: above.reduce((a, l) => a + l.volumeM3, 0),
+          interfaceDepthM: waterlineElevationM - present[lastSea].levelElevationM,
+        };
+      }
+    }
+    out.push(weight);
   }
   return out;
 }

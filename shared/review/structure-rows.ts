@@ -5,6 +5,7 @@
  */
 import type { Boundary } from '../schemas/survey';
 import type { BoundaryResult } from '../engine';
+import { ratingWayWords } from './rating-words';
 import { formatNumber, formatQuantity, formatStress, fromSi, type Dimension, type UnitSystem } from '../units/units';
 
 export interface CheckRow {
@@ -48,7 +49,7 @@ export function structureCheckRows(b: BoundaryResult, units: UnitSystem, sides: 
   const rows: CheckRow[] = [];
   for (const c of b.capacities) {
     const dim: Dimension = c.kind === 'pressure' ? 'pressure' : 'force';
-    const way = c.direction === 'either' ? 'either way' : c.direction === 'towards-B' ? `towards side B (${sides.B})` : `towards side A (${sides.A})`;
+    const way = ratingWayWords(c.direction, sides);
     rows.push({
       kind: 'rating',
       direction: c.direction,

@@ -3,57 +3,26 @@
  * answers do not count against the sign-in limits. The app reaches PostgreSQL through a loopback
  * TCP proxy the test can cut and restore.
  */
-import net from 'node:net';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { inject } from 'vitest';
 import { ErrorBodySchema } from '@shared/api/errors';
-import { startTestApp, type TestApp } from '../support/app';
-import { authHeader, createOrgWithMembers, TEST_PASSWORD, type TestOrg } from '../support/auth';
+import type { TestApp } from '../support/app';
+import { authHeader, TEST_PASSWORD, type TestOrg } from '../support/auth';
 import { storeSurvey, tokenFor } from '../support/surveys';
-import { createDb, type Db } from '../../server/db/knex';
+import type { Db } from '../../server/db/knex';
+import { startAppThroughProxy, type PgProxy } from '../support/pg-proxy';
 
 let t: TestApp;
 let direct: Db;
 let org: TestOrg;
-let proxy: net.Server;
-let up = true;
-const sockets = new Set<net.Socket>();
+let proxy: PgProxy;
+let close: () => Promise<void>;
 
 beforeAll(async () => {
-  const url = new URL(inject('testEnv').DATABASE_URL);
-  const pgPort = Number(url.port);
-  direct = createDb(inject('testEnv').DATABASE_URL);
-  proxy = net.createServer((client) => {
-    if (!up) return void client.destroy();
-    const server = net.connect(pgPort, '127.0.0.1');
-    sockets.add(client).add(server);
-    client.pipe(server).pipe(client);
-    const end = () => {
-      client.destroy();
-      server.destroy();
-    };
-    client.on('error', end).on('close', end);
-    server.on('error', end).on('close', end);
-  });
-  await new Promise<void>((r) => proxy.listen(0, '127.0.0.1', () => r()));
-  const port = (proxy.address() as net.AddressInfo).port;
-  url.searchParams.delete('host');
-  url.host = `127.0.0.1:${port}`;
-  t = await startTestApp({ DATABASE_URL: url.toString(), RATE_LIMIT_PER_EMAIL: '3', RATE_LIMIT_PER_IP: '6', RATE_LIMIT_PER_ACCOUNT: '3' });
-  org = await createOrgWithMembers(direct);
+  ({ t, direct, org, proxy, close } = await startAppThroughProxy({ RATE_LIMIT_PER_EMAIL: '3', RATE_LIMIT_PER_IP: '6', RATE_LIMIT_PER_ACCOUNT: '3' }));
 });
 afterAll(async () => {
-  up = true;
-  await t?.close();
-  await direct?.destroy();
-  await new Promise((r) => proxy?.close(r));
+  await close?.();
 });
-
-const cut = () => {
-  up = false;
-  for (const s of sockets) s.destroy();
-  sockets.clear();
-};
 
 describe('PostgreSQL down', () => {
   it('every route answers 503 db_unavailable, and sign-in failures are not counted', async () => {
@@ -62,7 +31,7 @@ describe('PostgreSQL down', () => {
     // Up: the app answers from the database.
     expect((await fetch(`${t.url}/api/surveys`, { headers: authHeader(token) })).status).toBe(200);
 
-    cut();
+    proxy.cut();
     const json = { 'content-type': 'application/json', 'x-forwarded-for': '203.0.113.77' };
     const calls: [string, string, RequestInit][] = [
       ['GET', '/api/surveys', { headers: authHeader(token) }],
@@ -85,7 +54,7 @@ describe('PostgreSQL down', () => {
     expect((await fetch(`${t.url}/api/health`)).status).toBe(503);
 
     // Back up: the six failed attempts above were not held against the person.
-    up = true;
+    proxy.restore();
     const res = await fetch(`${t.url}/api/auth/sign-in`, { method: 'POST', headers: json, body: JSON.stringify({ email: org.surveyor.email, password: TEST_PASSWORD }) });
     expect(res.status).toBe(200);
   });

@@ -4,8 +4,9 @@
  * every rating with its direction.
  */
 import { describe, expect, it } from 'vitest';
-import { computeSurvey } from '@shared/engine';
+import { boundaryRows, computeSurvey, computeSurveySummary } from '@shared/engine';
 import { structureCheckRows } from '@shared/review/structure-rows';
+import { governingCheckWords, ratingFigureWords } from '@shared/review/rating-words';
 import { baseSurvey, boxCompartment, contents, polygonBoundary } from '../unit/engine/fixtures';
 
 const G = 9.80665; // standard gravity, 3rd CGPM (1901)
@@ -66,6 +67,44 @@ describe('ratings by direction, as the brief words them', () => {
     // 58.84 kPa = 8.534 psi (1 psi = 6,894.757 Pa, NIST SP 811)
     expect(rows[0].load).toBe('8.53 psi pushing that way');
     expect(rows[0].capacity).toBe('14.5 psi');
+  });
+});
+
+describe('the governing rating in the results table row and the brief line', () => {
+  const PSI = 6894.757; // Pa per psi, NIST SP 811
+  it('a wall rated 45 kPa towards side B (open air) under 6 m of fresh water: the row names the direction, value and side; peak ρ g h (hand statics)', () => {
+    const s = wall();
+    s.boundaries[0].directionalCapacity = { kind: 'pressure', towardsB: 45e3, towardsA: 80e3 };
+    const row = boundaryRows(computeSurveySummary(s).boundaries)[0];
+    expect(row.capacityDirection).toBe('towards-B');
+    expect(row.capacityKind).toBe('pressure');
+    expect(row.capacityRated).toBe(45e3);
+    expect(row.capacityActual!).toBeCloseTo(RHO * G * 6, 6); // 58.84 kPa at the foot
+    expect(row.capacityUtilisation!).toBeCloseTo((RHO * G * 6) / 45e3, 9);
+    const sides = { A: 'Hold', B: 'open air' };
+    expect(ratingFigureWords({ kind: row.capacityKind!, direction: row.capacityDirection!, rated: row.capacityRated! }, 'si', sides)).toBe('45.0\u00a0kPa towards side B (open air)');
+    expect(governingCheckWords(computeSurvey(s).boundaries[0], 'si', sides)!.what).toBe('its rating, 45.0\u00a0kPa towards side B (open air)');
+  });
+  it('the same wall with the water on side B: the rating towards side A governs, in psi for US units', () => {
+    const s = wall();
+    const b = s.boundaries[0];
+    [b.sideA, b.sideB] = [b.sideB, b.sideA];
+    b.directionalCapacity = { kind: 'pressure', towardsB: 10e3, towardsA: 45e3 };
+    const row = boundaryRows(computeSurveySummary(s).boundaries)[0];
+    expect(row.capacityDirection).toBe('towards-A');
+    expect(row.capacityActual!).toBeCloseTo(RHO * G * 6, 6);
+    // 45 kPa / 6,894.757 Pa per psi = 6.527 psi
+    expect(ratingFigureWords({ kind: row.capacityKind!, direction: row.capacityDirection!, rated: row.capacityRated! }, 'us', { A: 'open air', B: 'Hold' })).toBe(`${(45e3 / PSI).toFixed(2)}\u00a0psi towards side A (open air)`);
+  });
+  it('a rating either way says so, and a boundary with no rating has no direction', () => {
+    const s = wall();
+    s.boundaries[0].ratedCapacity = { kind: 'force', forceN: 2000e3 };
+    const row = boundaryRows(computeSurveySummary(s).boundaries)[0];
+    expect(row.capacityDirection).toBe('either');
+    expect(row.capacityActual!).toBeCloseTo((RHO * G * 6 * 6 * 10) / 2, 3); // ρ g h² / 2 × width
+    expect(ratingFigureWords({ kind: 'force', direction: 'either', rated: 2000e3 }, 'si', { A: 'Hold', B: 'open air' })).toBe('2000\u00a0kN either way');
+    const bare = boundaryRows(computeSurveySummary(wall()).boundaries)[0];
+    expect([bare.capacityDirection, bare.capacityKind, bare.capacityRated, bare.capacityActual]).toEqual([null, null, null, null]);
   });
 });
 

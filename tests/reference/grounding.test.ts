@@ -10,7 +10,8 @@
  * Box barge closed forms as in stability.test.ts: KB = T/2, BM = B²/12T, BM_L = L²/12T.
  */
 import { describe, expect, it } from 'vitest';
-import { computeSurvey, forecastFlooding, readingsVersusModel, shipResponseOf } from '@shared/engine';
+import { computeSurvey, conditionAtPredictedAttitude, forecastFlooding, readingsVersusModel, shipResponseOf } from '@shared/engine';
+import { renderBriefPage } from '../../server/brief/render-brief';
 import type { Compartment, Condition, Survey } from '@shared/schemas/survey';
 import { demoSurvey } from '../../seeds/demo-survey';
 import { baseSurvey, boxCompartment, tid } from '../unit/engine/fixtures';
@@ -77,6 +78,14 @@ describe('box barge aground on a pinnacle 40 m forward of the LCF (worked by han
     expect(ro.attitude.heelDeg).toBeCloseTo(3.851, 2);
   });
 
+  it('loads at the predicted attitude use her attitude aground (5.2909 / 4.3091 m by hand), not the free one (5.000 m level)', () => {
+    const results = computeSurvey(s);
+    const at = conditionAtPredictedAttitude(s, results, shipResponseOf(s, results))!;
+    expect(at.drafts.aftM).toBeCloseTo(5.29089, 4);
+    expect(at.drafts.forwardM).toBeCloseTo(4.30911, 4);
+    expect(at.heelDeg).toBeCloseTo(0, 9);
+  });
+
   it('drafts deeper than afloat: no reaction, she floats free, and the survey is told', () => {
     const deep = barge(5, 6, { aft: 5.1, fwd: 5.1 }, { x: 90 });
     const rd = shipResponseOf(deep, computeSurvey(deep))!;
@@ -140,6 +149,18 @@ describe('the demo casualty, aground under No. 1 hold', () => {
     // aground at the drafts read: the mean draft agrees within reading accuracy
     expect(readingsVersusModel(demo, demo.conditions[0], r)!.message).toMatch(/^The mean draft agrees, but .* than the model aground at 100\.0 m from the AP: she may bear on the ground elsewhere/);
     expect(r.warnings.map((w) => w.code)).toEqual(expect.arrayContaining(['aground', 'refloat-unsafe']));
+  });
+
+  it('the master’s brief gives her GM resting on the ground, the reaction and GM afloat: the Stability panel’s figures', () => {
+    const brief = renderBriefPage({ doc: demo, results: computeSurvey(demo), status: 'accepted', revision: 1, issuedRevision: 1, units: 'si', verdicts: [], limits: [], organisationName: 'Demo', reviewedBy: null, reviewedAt: null, expiresAt: '2030-01-01T00:00:00Z' });
+    const text = brief.replace(/<[^>]+>/g, '');
+    expect(r.gmFluidM).toBeGreaterThan(0);
+    const m = /GM after free surface, resting on the ground: ([\d.]+) m \(ground reaction ([\d,]+) t; afloat, if she came off: ([\d.]+) m\)/.exec(text);
+    expect(m, 'the brief says her GM aground').not.toBeNull();
+    expect(Number(m![1])).toBeCloseTo(r.gmFluidM, 3);
+    expect(Math.abs(Number(m![2].replace(/,/g, '')) - r.ground!.reactionKg / 1000)).toBeLessThan(1);
+    expect(Number(m![3])).toBeCloseTo(r.ground!.free.gmFluidM, 2);
+    expect(text).toContain(`heel ${Math.abs(r.attitude.heelDeg).toFixed(1)}° to starboard`);
   });
 
   it('the forecast keeps her within the small-angle range while the plan pumps No. 2 hold, the reaction falling', () => {

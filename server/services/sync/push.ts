@@ -21,7 +21,7 @@ import { CheckEachChange, runFromKnown, runFromRead, runLocked, type ConfirmMemb
 import { NeedsLock, type RunOutcome } from './writes';
 import type { KnownSurveyState, SurveyStateCache } from './state-cache';
 import type { DeviceOwners } from './device-owners';
-import { refuseReviewersEdits } from '../editing';
+import { refuseReviewersEdits, type SurveyMakers } from '../editing';
 
 /** PostgreSQL errors worth retrying the whole run for: serialization failure, deadlock, a racing insert. */
 const RETRYABLE = new Set(['40001', '40P01', '23505']);
@@ -43,6 +43,8 @@ export interface PushOptions {
   known?: SurveyStateCache;
   /** Device owners: a push with another person's device id is refused before anything runs. */
   devices?: DeviceOwners;
+  /** Who made each survey, for the reviewer's read-only rule. */
+  makers?: SurveyMakers;
 }
 
 /**
@@ -69,7 +71,7 @@ export async function push(db: Db, auth: AuthContext, changes: SurveyChange[], o
   const conflictIds: string[] = [];
   if (changes.length) await opts.devices?.check(auth, changes.map((c) => c.deviceId));
   // "Send for review" is no edit, and a new survey is the caller's own
-  await refuseReviewersEdits(db, auth, changes.filter((c) => c.op.kind !== 'submit' && c.op.kind !== 'create').map((c) => c.surveyId));
+  await refuseReviewersEdits(db, auth, changes.filter((c) => c.op.kind !== 'submit' && c.op.kind !== 'create').map((c) => c.surveyId), opts.makers);
   let confirm = opts.confirm;
   for (const run of runsOf(changes)) {
     const out = await pushRun(db, { auth, run, checkEach: false, confirm }, opts);

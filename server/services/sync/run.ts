@@ -16,6 +16,7 @@ import { lockConflicts } from '../../db/repositories/conflicts';
 import { planRun, type PlanInput, type PlanOutcome, type RunPlan, type StartSurvey } from './plan';
 import { NeedsLock, writeLocked, writeOptimistic, type RunOutcome } from './writes';
 import type { KnownSurveyState } from './state-cache';
+import { unauthorized } from '../../errors';
 
 /** The run's final document is invalid: do it again checking every change on its own. */
 export class CheckEachChange extends Error {}
@@ -67,10 +68,11 @@ export async function runFromRead(db: Db, a: RunAttempt): Promise<RunOutcome> {
 export async function runLocked(db: Db, a: RunAttempt): Promise<RunOutcome> {
   return db.transaction(async (trx) => {
     const surveyId = a.run[0].surveyId;
-    const start = await lockForRun(trx, a.auth, surveyId, a.run, a.confirm ? a.auth : undefined, { lock: true });
+    // The role the plan judges a move by is the stored membership's (read in the same statement), never the token's.
+    const start = await lockForRun(trx, a.auth, surveyId, a.run, a.auth, { lock: true });
     a.confirm?.(start.memberRole);
-    const role = start.memberRole ?? a.auth.role;
-    const plan = planOf(a, { survey: start.survey, seen: start.seen, mode: 'locked', role, ...(await lockedInputs(trx, a, start.survey)) });
+    if (!start.memberRole) throw unauthorized();
+    const plan = planOf(a, { survey: start.survey, seen: start.seen, mode: 'locked', role: start.memberRole, ...(await lockedInputs(trx, a, start.survey)) });
     return writeLocked(trx, a.auth, surveyId, start.survey, plan);
   });
 }

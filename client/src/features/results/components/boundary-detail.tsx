@@ -9,6 +9,7 @@ import { horizontalWords } from '@shared/units/point-words';
 import type { ReactNode } from 'react';
 import { PointText } from './point-text';
 import { sideName } from './side-name';
+import { ratingWayWords } from '@shared/review/rating-words';
 
 /** A figure never breaks between its number and its unit ("3374 kN", not "3374" over "kN"). */
 const keepUnits = (value: ReactNode): ReactNode => (typeof value === 'string' ? value.replace(/(\d) (?=[^\d\s])/g, '$1\u00a0') : value);
@@ -57,7 +58,7 @@ export function BoundaryDetail({ boundary: b, results, system }: { boundary: Bou
           {b.capacities.map((c, i) => (
             <Row
               key={i}
-              label={`Rated ${c.kind} ${c.direction === 'either' ? 'either way' : c.direction === 'towards-B' ? `towards side B (${sideName(results, b.sideB)})` : `towards side A (${sideName(results, b.sideA)})`}: ${c.direction === 'either' ? 'greatest' : 'pushing that way'} of rated`}
+              label={`Rated ${c.kind} ${ratingWayWords(c.direction, { A: sideName(results, b.sideA), B: sideName(results, b.sideB) })}: ${c.direction === 'either' ? 'greatest' : 'pushing that way'} of rated`}
               value={`${fmt(c.actual, c.kind === 'pressure' ? 'pressure' : 'force', system)} of ${fmt(c.rated, c.kind === 'pressure' ? 'pressure' : 'force', system)} (${percent(c.utilisation)})`}
               testId={`capacity-${c.direction}`}
             />

@@ -22,6 +22,7 @@ import { UtilisationBadge } from './utilisation';
 import { PointText } from './point-text';
 import { sideName } from './side-name';
 import { boundaryKindWords, countWords } from '@shared/review/plain-words';
+import { ratingFigureWords } from '@shared/review/rating-words';
 
 const col = createColumnHelper<BoundarySummary>();
 
@@ -61,11 +62,12 @@ export function BoundaryResultsTable({
         id: 'utilisation',
         header: 'Utilisation',
         cell: (c) => {
-          const gov = governingWords(c.row.original);
+          const b = c.row.original;
+          const gov = governingWords(b, { A: sideName(results, b.sideA), B: sideName(results, b.sideB) }, system);
           return (
             <span>
-              <UtilisationBadge value={c.row.original.maxUtilisation} compact />
-              {gov && <span className="block text-xs text-ink-soft">{gov.what}</span>}
+              <UtilisationBadge value={b.maxUtilisation} compact />
+              {gov && <span className="block text-xs text-ink-soft" data-testid={`governs-${b.id}`}>{gov.what}</span>}
             </span>
           );
         },
@@ -154,10 +156,17 @@ export function BoundaryResultsTable({
 
 const copOf = (b: BoundarySummary) => (b.copX === null || b.copY === null || b.copZ === null ? null : { x: b.copX, y: b.copY, z: b.copZ });
 
-/** Which check sets the row's utilisation, in words (the detail view names the stiffener, panel or shore). */
-function governingWords(b: BoundarySummary): { what: string } | null {
+/**
+ * Which check sets the row's utilisation, in words (the detail view names the stiffener, panel or
+ * shore); a rating with its value, unit and the side it holds towards.
+ */
+function governingWords(b: BoundarySummary, sides: { A: string; B: string }, system: UnitSystem): { what: string } | null {
+  const rating =
+    b.capacityDirection && b.capacityKind && b.capacityRated != null
+      ? `rated ${ratingFigureWords({ kind: b.capacityKind, direction: b.capacityDirection, rated: b.capacityRated }, system, sides)}`
+      : 'its rating';
   const cands: [number | null, string][] = [
-    [b.capacityUtilisation, 'its rating'],
+    [b.capacityUtilisation, rating],
     [b.stiffenerUtilisation, 'a stiffener in bending'],
     [b.platingUtilisation, 'plating in bending'],
     [b.shoreUtilisation, 'a shore'],

@@ -180,6 +180,11 @@ function methodsText(survey: Survey, r: ShipResponse): string {
   const parts: string[] = [];
   if (r.methods.addedWeight.length) parts.push(`Added weight: ${r.methods.addedWeight.map(name).join(', ')}.`);
   if (r.methods.lostBuoyancy.length) parts.push(`Lost buoyancy: ${r.methods.lostBuoyancy.map(name).join(', ')}.`);
+  if (r.methods.ownLiquidKept.length) {
+    parts.push(
+      `Open to the sea with liquid of its own: ${r.methods.ownLiquidKept.map(name).join(', ')}. Its own liquid left aboard, floating on the sea water that came in, stays a weight of the ship (sea water replaced only what flowed out); only the sea water below it is taken by the method above.`,
+    );
+  }
   return parts.length ? parts.join(' ') : 'No liquids modelled: the intact condition.';
 }
 
