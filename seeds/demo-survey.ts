@@ -379,3 +379,22 @@ export function demoSubmittedSurvey(): Survey {
     photos: (base.photos ?? []).map((p) => ({ ...p, id: id(501) })),
   };
 }
+
+/**
+ * The demo with its readings moved in time so that the latest was taken about an hour before `now`
+ * (on a quarter hour): the invented casualty reads as happening when the demo is seeded, not as
+ * readings hundreds of days old. Only the times move; every interval between readings stays, so
+ * every figure computed from the survey is the same.
+ */
+export function demoAsOf(doc: Survey, now: Date): Survey {
+  const times = [...doc.conditions.map((c) => c.time), ...doc.compartments.flatMap((c) => c.soundingLog?.readings.map((r) => r.time) ?? [])].map(Date.parse);
+  const QUARTER = 15 * 60_000;
+  const target = Math.floor((now.getTime() - 60 * 60_000) / QUARTER) * QUARTER;
+  const shiftMs = target - Math.max(...times);
+  const moved = (iso: string) => new Date(Date.parse(iso) + shiftMs).toISOString();
+  return {
+    ...doc,
+    conditions: doc.conditions.map((c) => ({ ...c, time: moved(c.time) })),
+    compartments: doc.compartments.map((c) => (c.soundingLog ? { ...c, soundingLog: { ...c.soundingLog, readings: c.soundingLog.readings.map((r) => ({ ...r, time: moved(r.time) })) } } : c)),
+  };
+}

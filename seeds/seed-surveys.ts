@@ -1,16 +1,17 @@
 /**
  * Puts the demo casualty surveys (seeds/demo-survey.ts: one draft, one sent for review) on the server for the demo firm, made by the
- * demo surveyor, as revision 1. Idempotent: fixed ids, and nothing is written when it is already there.
+ * demo surveyor, as revision 1, with their readings taken about an hour before the seeding (`demoAsOf`).
+ * Idempotent: fixed ids, and nothing is written when it is already there.
  */
 import type { Knex } from 'knex';
 import { computeSurvey, ENGINE_VERSION } from '@shared/engine';
 import { SurveySchema } from '@shared/schemas/survey';
 import { DEMO_ORG, DEMO_USERS } from './demo-people';
-import { demoSubmittedSurvey, demoSurvey } from './demo-survey';
+import { demoAsOf, demoSubmittedSurvey, demoSurvey } from './demo-survey';
 
-export async function seedSurveys(db: Knex): Promise<{ created: boolean }> {
-  const created = await seedOne(db, demoSurvey(), 'draft');
-  await seedOne(db, demoSubmittedSurvey(), 'submitted');
+export async function seedSurveys(db: Knex, now: Date = new Date()): Promise<{ created: boolean }> {
+  const created = await seedOne(db, demoAsOf(demoSurvey(), now), 'draft');
+  await seedOne(db, demoAsOf(demoSubmittedSurvey(), now), 'submitted');
   return created;
 }
 

@@ -20,7 +20,7 @@ export const badRequest = (message: string, details?: unknown) => new DomainErro
 export const validationFailed = (message: string, details?: unknown) => new DomainError('validation_failed', message, details);
 export const unauthorized = (message = 'Sign in to continue.') => new DomainError('unauthorized', message);
 export const forbidden = (message = 'Your role does not allow this.') => new DomainError('forbidden', message);
-export const notFound = (message = 'Not found.') => new DomainError('not_found', message);
+export const notFound = (message = 'Not found.', details?: unknown) => new DomainError('not_found', message, details);
 export const conflict = (message: string, details?: unknown) => new DomainError('conflict', message, details);
 export const tooLarge = (message: string) => new DomainError('payload_too_large', message);
 export const unsupportedMediaType = (message: string) => new DomainError('unsupported_media_type', message);

@@ -71,7 +71,8 @@ async function readPhoto(db: Db, storage: PhotoStorage, auth: AuthContext, id: s
   const p = await findPhoto(db, auth.orgId, id);
   if (!p) throw notFound('No such photo.');
   const object = await storage.get(p.storageKey);
-  if (!object) throw notFound('The photo’s file is missing from storage.');
+  // the row says it was uploaded: the device can tell this from a photo not uploaded yet
+  if (!object) throw notFound('The photo’s file is missing from storage.', { reason: 'file_missing' });
   return { photo: publicPhoto(p), object };
 }
 

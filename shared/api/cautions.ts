@@ -17,13 +17,6 @@ export const STABILITY_CAUTION =
 export const FORECAST_CAUTION =
   'A forecast is an estimate from the readings it rests on, run forward under the openings, pumps and plan entered. New soundings replace it.';
 
-/** "3 h 20 min" from milliseconds. */
-export function durationWords(ms: number): string {
-  const min = Math.max(0, Math.round(ms / 60000));
-  const h = Math.floor(min / 60), m = min % 60;
-  return h > 0 ? `${h} h ${m} min` : `${m} min`;
-}
-
 /** "h:mm" from seconds. */
 export function hmm(seconds: number): string {
   const min = Math.max(0, Math.round(seconds / 60));

@@ -15,7 +15,8 @@
 import type { Plating } from '../schemas/structure';
 import type { PlatingPanelResult, PlatingResult } from './results';
 
-export const ROARK_SOURCE = "Roark's Formulas for Stress and Strain, 8th ed., Table 11.4 (ν = 0.3), coefficients from memory";
+// shown to the user, so it names the table only (the coefficients are from memory: see above and the tests)
+export const ROARK_SOURCE = "Roark's Formulas for Stress and Strain, 8th ed., Table 11.4 (ν = 0.3)";
 
 interface Table {
   ratio: readonly number[];

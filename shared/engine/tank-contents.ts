@@ -13,7 +13,8 @@ import type { TankContents, TankState } from '../schemas/flooding';
 import type { CompartmentGeometry } from '../schemas/survey';
 import { compartmentSolid, volumeBelow } from './polyhedron';
 
-export const TANK_PERMEABILITY_SOURCE = 'SOLAS Chapter II-1, Regulation 7-3, spaces intended for liquids: 0 or 0.95 (from memory)';
+// shown to the user, so it names the rule only (quoted from memory: see above and the tests)
+export const TANK_PERMEABILITY_SOURCE = 'SOLAS Chapter II-1, Regulation 7-3, spaces intended for liquids: 0 or 0.95';
 
 export interface TankRoom {
   /** The tank's own liquid as stated, m³ (permeability applied; a full tank holds μ·V). */

@@ -56,3 +56,17 @@ export function formatUtcSpan(from: string | Date, to: string | Date): string {
   const [dayA, dayB] = [a.slice(0, a.lastIndexOf(' ', a.length - 5)), b.slice(0, b.lastIndexOf(' ', b.length - 5))];
   return dayA === dayB ? `${a.slice(0, -4)} – ${b.slice(dayB.length + 1)}` : `${a} – ${b}`;
 }
+
+/**
+ * How long ago, in words that stay readable however old a reading is: "under a minute", "25 min",
+ * "3 h 20 min" up to two days, then whole days ("628 days"), never thousands of hours.
+ */
+export function ageWords(ms: number): string {
+  const min = Math.floor(Math.max(0, ms) / 60_000);
+  if (min < 1) return 'under a minute';
+  if (min < 60) return `${min} min`;
+  const h = Math.floor(min / 60);
+  if (h < 48) return min % 60 === 0 ? `${h} h` : `${h} h ${min % 60} min`;
+  const days = Math.floor(h / 24);
+  return `${days} days`;
+}

@@ -48,15 +48,29 @@ export const CARGO_PERMEABILITY: Partial<Record<SpaceType, Record<CargoState, nu
   'ro-ro': { empty: 0.95, 'part-loaded': 0.9, loaded: 0.9 },
 };
 
-export const PERMEABILITY_SOURCE = 'SOLAS Chapter II-1, Regulation 7-3 (from memory)';
+// The standard as the user reads it; that its values are quoted from memory is said in the comments
+// above and beside the tests that check them, never in a screen or report.
+export const PERMEABILITY_SOURCE = 'SOLAS Chapter II-1, Regulation 7-3';
+
+const SPACE_WORDS: Record<SpaceType, string> = {
+  'dry-cargo': 'dry cargo space',
+  container: 'container space',
+  'ro-ro': 'ro-ro space',
+  stores: 'stores space',
+  accommodation: 'accommodation space',
+  machinery: 'machinery space',
+  void: 'void space',
+  tank: 'space intended for liquids',
+};
 
 /** The default permeability of a space and where it comes from (cargo spaces by their loading, when given). */
 export function defaultPermeability(spaceType: SpaceType, cargoState: CargoState | undefined): { value: number; source: string } {
   const byState = CARGO_PERMEABILITY[spaceType];
-  if (byState && cargoState) return { value: byState[cargoState], source: `${PERMEABILITY_SOURCE}, ${spaceType} space ${cargoState}` };
+  const what = SPACE_WORDS[spaceType];
+  if (byState && cargoState) return { value: byState[cargoState], source: `${PERMEABILITY_SOURCE}: standard value for a ${what}, ${cargoState.replace('-', ' ')}` };
   // SOLAS gives a tank "0 or 0.95, whichever is more severe": 0 stands for a full tank that takes in
   // no flood water. Any liquid fills 0.95 of a tank's moulded volume; the engine gives flood water
   // only the room the tank's own liquid leaves (shared/engine/tank-contents.ts), 0 when it is full
-  const why = spaceType === 'tank' ? ' (intended for liquids: 0 or 0.95; flood water takes only the room its own liquid leaves, none when full)' : '';
-  return { value: DEFAULT_PERMEABILITY[spaceType], source: `${PERMEABILITY_SOURCE}, ${spaceType}${byState ? ' space loaded (its state not given)' : ''}${why}` };
+  const why = spaceType === 'tank' ? ' (0 or 0.95; flood water takes only the room its own liquid leaves, none when full)' : '';
+  return { value: DEFAULT_PERMEABILITY[spaceType], source: `${PERMEABILITY_SOURCE}: standard value for a ${what}${byState ? ', loaded (how loaded was not given)' : ''}${why}` };
 }

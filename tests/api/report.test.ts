@@ -26,6 +26,12 @@ describe('GET /api/surveys/:id/report', () => {
     expect(s.boundaries.length).toBeGreaterThan(3);
     expect(text).toContain('Methods and sources');
     expect(text).toContain('SOLAS Chapter II-1, Regulation 7-3');
+    // a default permeability names its standard and basis in plain words; "from memory" is a note
+    // for the tests and comments, never for the signed report
+    // (the demo's spaces all take the default)
+    expect(s.compartments.some((c) => c.permeability === undefined)).toBe(true);
+    expect(text).toMatch(/Regulation 7-3: standard value for a [a-z -]+space/);
+    expect(text).not.toMatch(/from memory/i);
     expect(text).toContain('Engine version');
     expect(text).toContain('Signature and date');
     expect(text).not.toContain('<script');

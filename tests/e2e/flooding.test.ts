@@ -33,6 +33,9 @@ describe('flooding forecast on the phone, offline', () => {
 
     await page.getByLabel('Space', { exact: true }).first().selectOption(STEERING);
     const breach = page.getByRole('form', { name: 'Add a breach' });
+    // a new breach starts empty (nothing that could pass for a reading): every field is typed
+    expect(await breach.getByLabel('Centre x').inputValue()).toBe('');
+    await breach.getByLabel('Centre x').fill('8');
     await breach.getByLabel('Centre y').fill('-8');
     await breach.getByLabel('Centre z').fill('3.5');
     // a negative size is refused under its field, and what was typed stays
@@ -100,20 +103,23 @@ describe('flooding forecast on the phone, offline', () => {
     expect(await page.evaluate(() => document.documentElement.scrollWidth - window.innerWidth)).toBeLessThanOrEqual(0);
     await page.screenshot({ path: screenshotPath('flooding-390'), fullPage: true });
 
-    // soundings out of time order are refused (No. 2 hold's log ends 07:30 UTC)
+    // soundings out of time order are refused (No. 2 hold's log ends about an hour before the demo was seeded)
     await page.getByLabel('Space', { exact: true }).first().selectOption('5eed0000-0000-4000-8000-00000000000d');
     const sounding = page.getByRole('form', { name: 'Add a sounding' });
+    const hold = () => localDoc(page, DEMO_SURVEY_ID).then((d) => d.compartments.find((c) => c.id === '5eed0000-0000-4000-8000-00000000000d')!.soundingLog!);
+    const lastReading = Date.parse((await hold()).readings.at(-1)!.time);
     await sounding.getByLabel(/Time of the reading/).fill('2025-03-14T01:00');
     await sounding.getByLabel(/Sounding/).fill('3.7');
     await sounding.getByRole('button', { name: '+ Add sounding' }).click();
     await sounding.getByText(/Out of time order/).waitFor({ timeout: 10_000 });
     expect(await sounding.getByLabel(/Sounding/).inputValue()).toBe('3.7');
     expect(await sounding.getByLabel(/Time of the reading/).inputValue()).toBe('2025-03-14T01:00');
-    // a later ship's time (UTC+01:00) is taken, and stored as UTC
-    await sounding.getByLabel(/Time of the reading/).fill('2025-03-14T09:45');
+    // a later ship's time (UTC+01:00), typed as the ship's log writes it (24 h), is taken and stored as UTC
+    const nextReading = new Date(lastReading + 75 * 60_000);
+    const shipClock = new Date(nextReading.getTime() + 60 * 60_000).toISOString();
+    await sounding.getByLabel(/Time of the reading/).fill(`${shipClock.slice(0, 10)} ${shipClock.slice(11, 16)}`);
     await sounding.getByRole('button', { name: '+ Add sounding' }).click();
-    const hold = () => localDoc(page, DEMO_SURVEY_ID).then((d) => d.compartments.find((c) => c.id === '5eed0000-0000-4000-8000-00000000000d')!.soundingLog!);
-    await expect.poll(async () => (await hold()).readings.at(-1)?.time).toBe('2025-03-14T08:45:00.000Z');
+    await expect.poll(async () => (await hold()).readings.at(-1)?.time).toBe(nextReading.toISOString());
     // the pipe is editable; a bottom outside the space is refused and kept
     const pipe = page.getByRole('form', { name: 'Sounding pipe' });
     await pipe.getByLabel(/Pipe bottom z/).fill('-30');

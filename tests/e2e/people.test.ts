@@ -1,9 +1,13 @@
 /**
  * The people around the numbers, in Chromium at 390 px and 1440 px: a new survey shows no loads
  * until its readings are entered; the calculation report prints to PDF with every boundary; the
- * master acknowledges the brief on a page with no script, and the engineer sees it on the desk.
+ * master acknowledges the brief on a page with no script, and the engineer sees it on the desk. On a
+ * German-language phone: times typed in one style whatever the locale, units in their true case,
+ * downflooding points in words, old readings' age in days, an empty new breach, and a photo whose
+ * file the server lost said as such.
  */
 import { execFileSync } from 'node:child_process';
+import { randomUUID } from 'node:crypto';
 import { writeFileSync, mkdtempSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
@@ -14,6 +18,9 @@ import { DEMO_SUBMITTED_SURVEY_ID } from '../../seeds/demo-survey';
 import { issueSecret } from '../../server/services/secrets';
 import { DEMO_ORG, DEMO_USERS } from '../../seeds/demo-people';
 import { DEMO, section, signIn, startE2eFile, waitSaved } from '../support/e2e';
+import { seriousA11yViolations } from '../support/axe';
+import { storeSurvey } from '../support/surveys';
+import { insertPhoto } from '../../server/db/repositories/photos';
 
 const baseUrl = inject('baseUrl');
 const SURVEYOR = DEMO.surveyor;
@@ -141,4 +148,66 @@ describe.each(WIDTHS)('at %i px', (width) => {
     await desk.screenshot({ path: screenshotPath(`people-desk-${width}`), fullPage: true });
     await context.close();
   });
+});
+
+describe('on a German-language phone at 390 px', () => {
+  it('types times in the ship’s clock, says points, units and ages plainly, starts a breach empty and names a lost photo file', async () => {
+    // a copy of the demo (readings of 14 Mar 2025, ship's clock UTC+01:00) with a photo whose file is gone
+    const photoId = randomUUID();
+    const bulkhead = demoSurvey().boundaries[0];
+    const survey = await storeSurvey(e2e.db, SURVEYOR, {
+      title: `Locale check ${photoId.slice(0, 6)}`,
+      photos: [{ id: photoId, entity: { kind: 'boundary', id: bulkhead.id }, caption: 'Lost file', contentType: 'image/jpeg' }],
+    });
+    await insertPhoto(e2e.db, { id: photoId, orgId: SURVEYOR.orgId, surveyId: survey.id, entityKind: 'boundary', entityId: bulkhead.id, caption: 'Lost file', contentType: 'image/jpeg', sizeBytes: 1234, sha256: '0'.repeat(64), storageKey: `${SURVEYOR.orgId}/${survey.id}/never-stored.jpg`, uploadedBy: SURVEYOR.id });
+
+    const context = await e2e.browser.newContext({ viewport: { width: 390, height: 844 }, locale: 'de-DE', timezoneId: 'Europe/Berlin' });
+    context.setDefaultTimeout(60_000);
+    const page = await context.newPage();
+    await signIn(page, SURVEYOR, `/surveys/${survey.id}?s=readings`);
+    await page.getByTestId('workspace').waitFor();
+
+    // Readings: a text field in ship's time, 24 h, ISO-like, never the browser's German date picker
+    const time = page.getByLabel(/^Time of readings \(ship’s time, UTC\+01:00\)/);
+    await expect(time.getAttribute('type')).resolves.toBe('text');
+    await expect(time.inputValue()).resolves.toBe('2025-03-14 08:30');
+    await time.fill('14.03.2025, 09:45');
+    await page.getByText('Enter the date and time as YYYY-MM-DD HH:MM (24 h)').waitFor();
+    await expect(time.inputValue()).resolves.toBe('14.03.2025, 09:45');
+    await time.fill('2025-03-14 09:45');
+    await waitSaved(page);
+    await expect.poll(async () => (await e2e.db('surveys').where({ id: survey.id }).first()).doc.conditions[0].time as string, { timeout: 60_000 }).toBe('2025-03-14T08:45:00.000Z');
+    await page.screenshot({ path: screenshotPath('people-readings-de-390'), fullPage: true });
+    expect(await seriousA11yViolations(page)).toEqual([]);
+
+    // Stability: headers keep their units' case; downflooding points in words
+    await section(page, 'Stability');
+    const response = page.getByTestId('ship-response');
+    await response.waitFor();
+    const shouting = await response.evaluate((el) => [...el.querySelectorAll('*')].filter((e) => getComputedStyle(e).textTransform === 'uppercase').map((e) => e.textContent));
+    expect(shouting).toEqual([]);
+    const where = page.getByTestId('downflooding-position').first();
+    await expect(where.textContent()).resolves.toMatch(/^\d+\.\d m (fwd|aft) of AP, (\d+\.\d+ m to (port|stbd)|on the centreline), \d+\.\d+ m (above|below) base$/);
+    await page.screenshot({ path: screenshotPath('people-stability-de-390'), fullPage: true });
+
+    // Flooding: readings 600-odd days old are said in days; a new breach starts with no figures in it
+    await section(page, 'Flooding');
+    const caution = page.getByTestId('forecast-caution');
+    await caution.waitFor();
+    await expect(caution.textContent()).resolves.toMatch(/, \d+ days ago\./);
+    const breach = page.getByRole('form', { name: 'Add a breach' }).first();
+    for (const label of ['Centre x', 'Centre y', 'Centre z']) await expect(breach.getByLabel(label).inputValue()).resolves.toBe('');
+    await breach.getByRole('button', { name: '+ Add breach' }).click();
+    await expect.poll(() => breach.getByText('Enter a number.').count()).toBeGreaterThanOrEqual(3);
+    await page.screenshot({ path: screenshotPath('people-flooding-de-390'), fullPage: true });
+
+    // Photos: the server has the row but not the file, and the card says so with what to do
+    await section(page, 'Photos');
+    const state = page.getByTestId('photo-state').filter({ hasText: /File missing on the server/ });
+    await state.waitFor();
+    await expect(state.textContent()).resolves.toContain('attach the photo again');
+    await page.screenshot({ path: screenshotPath('people-photos-missing-390'), fullPage: true });
+    expect(await seriousA11yViolations(page)).toEqual([]);
+    await context.close();
+  }, 300_000);
 });

@@ -7,10 +7,10 @@ import { lazy, Suspense, useEffect, useRef, useState } from 'react';
 import type { FloodForecast, Governs } from '@shared/engine';
 import type { Survey } from '@shared/schemas/survey';
 import type { UnitSystem } from '@shared/units/units';
-import { FORECAST_CAUTION, STABILITY_CAUTION, durationWords, hmm } from '@shared/api/cautions';
+import { FORECAST_CAUTION, STABILITY_CAUTION, hmm } from '@shared/api/cautions';
 import { fmt, num, percent, unitLabel } from '@client/lib/unit-system';
 import { downfloodingSentences, flowWords, forecastAttitudeWords, volumeBalanceSentence } from '@shared/review/forecast-words';
-import { formatShipTime, formatUtc, utcOffsetWords } from '@shared/review/time-words';
+import { ageWords, formatShipTime, formatUtc, utcOffsetWords } from '@shared/review/time-words';
 
 const ForecastChart = lazy(() => import('./forecast-chart'));
 
@@ -46,7 +46,7 @@ function ForecastAttitude({ forecast, survey, system }: { forecast: FloodForecas
         <div className="overflow-x-auto" tabIndex={0} role="region" aria-label="Attitude over the forecast (scrolls sideways)">
           <table className="w-full text-left text-sm tabular-nums [&_td]:pr-3 [&_th]:pr-3" data-testid="forecast-attitude-table">
             <thead>
-              <tr className="text-xs uppercase text-ink-soft">
+              <tr className="text-xs font-bold text-ink-soft">
                 <th scope="col">After (h:mm)</th>
                 <th scope="col">Mean draft ({unitLabel('length', system)})</th>
                 <th scope="col">Trim ({unitLabel('length', system)})</th>
@@ -139,7 +139,7 @@ export function ForecastView({ forecast, survey, system, now = Date.now() }: { f
     <div className="space-y-4" data-testid="forecast">
       <p className="rounded-lg border-2 border-caution bg-caution-soft p-3 text-sm" data-testid="forecast-caution">
         <b>{FORECAST_CAUTION}</b> It rests on readings taken {shipTime(forecast.latestReadingTime, 0, offsetMin)}
-        {age > 0 ? `, ${durationWords(age)} ago` : ''}.
+        {age > 0 ? `, ${ageWords(age)} ago` : ''}.
       </p>
       {planLeftOut.length > 0 && (
         <div className="rounded-lg border-2 border-danger bg-card p-3 text-sm" role="alert" data-testid="forecast-plan-warning">

@@ -69,7 +69,7 @@ export function ShipResponsePanel({ survey, results, system }: { survey: Survey;
         <table className="w-full text-sm tabular-nums">
           <caption className="sr-only">Attitude: intact, predicted from the modelled contents, and as read</caption>
           <thead>
-            <tr className="text-left text-xs uppercase text-ink-soft">
+            <tr className="text-left text-xs font-bold text-ink-soft">
               <th scope="col">{unitLabel('length', system)}</th>
               <th scope="col">Intact</th>
               <th scope="col">Predicted</th>
@@ -95,31 +95,31 @@ export function ShipResponsePanel({ survey, results, system }: { survey: Survey;
       </div>
       <dl className="grid grid-cols-2 gap-x-3 gap-y-1 text-sm sm:grid-cols-3">
         <div>
-          <dt className="text-xs font-bold uppercase text-ink-soft">{response.ground && !response.ground.afloat ? 'GM fluid aground' : 'GM fluid'}</dt>
+          <dt className="text-xs font-bold text-ink-soft">{response.ground && !response.ground.afloat ? 'GM fluid aground' : 'GM fluid'}</dt>
           <dd className="text-lg font-bold tabular-nums" data-testid="gm-fluid">
             {L(response.gmFluidM, 4)}
           </dd>
         </div>
         <div>
-          <dt className="text-xs font-bold uppercase text-ink-soft">GM solid</dt>
+          <dt className="text-xs font-bold text-ink-soft">GM solid</dt>
           <dd className="tabular-nums" data-testid="gm-solid">
             {L(response.gmSolidM, 4)}
           </dd>
         </div>
         <div>
-          <dt className="text-xs font-bold uppercase text-ink-soft">Free surface</dt>
+          <dt className="text-xs font-bold text-ink-soft">Free surface</dt>
           <dd className="tabular-nums">−{L(response.freeSurfaceCorrectionM)}</dd>
         </div>
         {response.ground && !response.ground.afloat && (
           <>
             <div>
-              <dt className="text-xs font-bold uppercase text-ink-soft">Ground reaction</dt>
+              <dt className="text-xs font-bold text-ink-soft">Ground reaction</dt>
               <dd className="font-bold tabular-nums" data-testid="ground-reaction">
                 {fmt(response.ground.reactionKg, 'mass', system, 4)}
               </dd>
             </div>
             <div>
-              <dt className="text-xs font-bold uppercase text-ink-soft">GM fluid afloat</dt>
+              <dt className="text-xs font-bold text-ink-soft">GM fluid afloat</dt>
               <dd className="tabular-nums" data-testid="gm-afloat">
                 {L(response.ground.free.gmFluidM, 4)}
               </dd>
@@ -127,17 +127,17 @@ export function ShipResponsePanel({ survey, results, system }: { survey: Survey;
           </>
         )}
         <div>
-          <dt className="text-xs font-bold uppercase text-ink-soft">Displacement</dt>
+          <dt className="text-xs font-bold text-ink-soft">Displacement</dt>
           <dd className="tabular-nums">{fmt(response.displacementKg, 'mass', system, 5)}</dd>
         </div>
         <div>
-          <dt className="text-xs font-bold uppercase text-ink-soft">{system === 'us' ? 'TPI' : 'TPC'}</dt>
+          <dt className="text-xs font-bold text-ink-soft">{system === 'us' ? 'TPI' : 'TPC'}</dt>
           <dd className="tabular-nums" data-testid="response-tpc">
             {fmt(results.frame.seaDensityKgM3 * response.waterplaneAreaM2, 'immersion', system, 4)}
           </dd>
         </div>
         <div>
-          <dt className="text-xs font-bold uppercase text-ink-soft">{system === 'us' ? 'MTI' : 'MCT 1 cm'}</dt>
+          <dt className="text-xs font-bold text-ink-soft">{system === 'us' ? 'MTI' : 'MCT 1 cm'}</dt>
           <dd className="tabular-nums" data-testid="response-mct">
             {fmt(response.mctKgM, 'trimMoment', system, 4)}
           </dd>

@@ -12,10 +12,10 @@ import { parseField } from '../utils/form-units';
 
 export type Errors = Record<string, string>;
 
-export function Input({ id, label, unit, value, onChange, error, type = 'text', inputMode = 'decimal' }: { id: string; label: string; unit?: string; value: string; onChange: (v: string) => void; error?: string; type?: string; inputMode?: 'decimal' | 'text' }) {
+export function Input({ id, label, unit, value, onChange, error, type = 'text', inputMode = 'decimal', placeholder }: { id: string; label: string; unit?: string; value: string; onChange: (v: string) => void; error?: string; type?: string; inputMode?: 'decimal' | 'text'; placeholder?: string }) {
   return (
     <Field id={id} label={label} unit={unit} error={error}>
-      <input id={id} type={type} inputMode={type === 'text' ? inputMode : undefined} className={inputCls} value={value} onChange={(e) => onChange(e.target.value)} aria-invalid={!!error} aria-describedby={describedBy(id, undefined, error)} />
+      <input id={id} type={type} inputMode={type === 'text' ? inputMode : undefined} className={inputCls} value={value} placeholder={placeholder} onChange={(e) => onChange(e.target.value)} aria-invalid={!!error} aria-describedby={describedBy(id, undefined, error)} />
     </Field>
   );
 }
@@ -50,23 +50,6 @@ export function heightOf(c: Compartment): { bottom: number; top: number; centre:
   return { bottom: Math.min(...zs), top: Math.max(...zs), centre: { x: (g.xAftM + g.xForeM) / 2, y: (Math.min(...ys) + Math.max(...ys)) / 2 } };
 }
 
-
-/**
- * A `datetime-local` value read as ship's time (the ship's clock, `offsetMin` minutes ahead of UTC;
- * UTC when the offset is not set), as an ISO instant; null when it is not a time.
- */
-export function shipLocalToIso(local: string, offsetMin: number | undefined): string | null {
-  if (!/^\d{4}-\d{2}-\d{2}T\d{2}:\d{2}(:\d{2})?$/.test(local.trim())) return null;
-  const utc = Date.parse(`${local.trim()}Z`);
-  if (Number.isNaN(utc)) return null;
-  return new Date(utc - (offsetMin ?? 0) * 60_000).toISOString();
-}
-
-/** An ISO instant as the `datetime-local` value of the ship's clock. */
-export function isoToShipLocal(iso: string, offsetMin: number | undefined): string {
-  const d = new Date(Date.parse(iso) + (offsetMin ?? 0) * 60_000);
-  return d.toISOString().slice(0, 16);
-}
 
 /**
  * A choice of one of the survey's spaces ("—" first, for none yet, unless `placeholder` is null). A big

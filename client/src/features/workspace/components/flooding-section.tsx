@@ -23,8 +23,9 @@ import { useForecast } from '../hooks/use-forecast';
 import type { Apply, SectionProps } from '../utils/types';
 
 function OpeningForm({ comp, survey, system, apply, internal }: { comp: Compartment; survey: SectionProps['survey']; system: UnitSystem; apply: Apply; internal: boolean }) {
-  const h = heightOf(comp);
-  const [v, setV] = useState({ face: 'starboard' as OpeningFace, x: String(h.centre.x), y: String(h.centre.y), z: String(h.bottom + 1), kind: 'round', d: '', w: '', hgt: '', to: '' });
+  // a new breach starts empty: a position filled in for the surveyor would read as one they measured
+  const empty = { x: '', y: '', z: '', d: '', w: '', hgt: '' };
+  const [v, setV] = useState({ face: 'starboard' as OpeningFace, kind: 'round', to: '', ...empty });
   const [errors, setErrors] = useState<Errors>({});
   const lu = measureLabel('length', system);
   const set = (k: keyof typeof v) => (t: string) => setV({ ...v, [k]: t });
@@ -44,6 +45,7 @@ function OpeningForm({ comp, survey, system, apply, internal }: { comp: Compartm
     const base = { id: newId(), position: { x: x!, y: y!, z: z! }, areaM2, face: v.face, size };
     const next = internal ? { ...comp, openings: [...(comp.openings ?? []), { ...base, toCompartmentId: v.to }] } : { ...comp, breaches: [...(comp.breaches ?? []), base] };
     await apply({ kind: 'upsert', collection: 'compartments', entity: next });
+    setV({ ...v, ...empty });
   };
   return (
     <form className="grid grid-cols-2 gap-2 rounded-md border-2 border-line p-2 sm:grid-cols-4" onSubmit={(e) => (e.preventDefault(), void save())} noValidate aria-label={internal ? 'Add an opening to another space' : 'Add a breach'}>
@@ -57,15 +59,15 @@ function OpeningForm({ comp, survey, system, apply, internal }: { comp: Compartm
           </option>
         ))}
       </Select>
-      <Input id={`${prefix}-x`} label="Centre x" unit={lu} value={v.x} onChange={set('x')} error={errors.x} />
-      <Input id={`${prefix}-y`} label="Centre y" unit={lu} value={v.y} onChange={set('y')} error={errors.y} />
-      <Input id={`${prefix}-z`} label="Centre z" unit={lu} value={v.z} onChange={set('z')} error={errors.z} />
+      <Input id={`${prefix}-x`} label="Centre x" unit={lu} placeholder="fwd of AP" value={v.x} onChange={set('x')} error={errors.x} />
+      <Input id={`${prefix}-y`} label="Centre y" unit={lu} placeholder="+ port / − stbd" value={v.y} onChange={set('y')} error={errors.y} />
+      <Input id={`${prefix}-z`} label="Centre z" unit={lu} placeholder="above base" value={v.z} onChange={set('z')} error={errors.z} />
       <Select id={`${prefix}-kind`} label="Shape" value={v.kind} onChange={set('kind')}>
         <option value="round">round</option>
         <option value="rectangular">width × height</option>
       </Select>
       {v.kind === 'round' ? (
-        <Input id={`${prefix}-d`} label="Diameter" unit={lu} value={v.d} onChange={set('d')} error={errors.d} />
+        <Input id={`${prefix}-d`} label="Diameter" unit={lu} placeholder="across the hole" value={v.d} onChange={set('d')} error={errors.d} />
       ) : (
         <>
           <Input id={`${prefix}-w`} label="Width" unit={lu} value={v.w} onChange={set('w')} error={errors.w} />

@@ -1,8 +1,8 @@
 /** "Photos": attach photos to a space or plate, offline; they upload when the survey has synced. */
-import { useEffect, useId, useMemo, useRef, useState } from 'react';
+import { useCallback, useEffect, useId, useMemo, useRef, useState } from 'react';
 import { useLiveQuery } from 'dexie-react-hooks';
 import { db, type LocalPhoto } from '@client/offline/db';
-import { ServerPhoto, useObjectUrl } from '@client/components/photos/server-photo';
+import { ServerPhoto, useObjectUrl, type ServerPhotoState } from '@client/components/photos/server-photo';
 import type { PhotoRef } from '@shared/schemas/survey';
 import type { SectionProps } from '../utils/types';
 import { dangerBtn, inputCls, primaryBtn, secondaryBtn } from '@client/components/ui/fields';
@@ -14,6 +14,16 @@ function LocalThumb({ photo, alt }: { photo: LocalPhoto; alt: string }) {
   const url = useObjectUrl(photo.blob);
   return <img src={url} alt={alt} className="h-32 w-full object-cover" />;
 }
+
+/** The card's line under a photo only the server holds, by how fetching it went. */
+const SERVER_STATE_WORDS: Record<ServerPhotoState, string> = {
+  loading: 'On the server (loading)',
+  shown: 'On the server',
+  offline: 'On the server (connect to see it)',
+  'file-missing': 'File missing on the server: attach the photo again from the phone or camera that holds it, then remove this entry.',
+  'not-uploaded': 'Not on the server yet: it uploads when the device that took it next syncs.',
+  failed: 'The server could not send it: try again later.',
+};
 
 export function PhotosSection({ survey, apply, selectedId }: SectionProps) {
   const local = useLiveQuery(() => db.photos.where('surveyId').equals(survey.id).toArray(), [survey.id]);
@@ -31,6 +41,9 @@ export function PhotosSection({ survey, apply, selectedId }: SectionProps) {
   const [caption, setCaption] = useState('');
   const [error, setError] = useState<string | null>(null);
   const [confirming, setConfirming] = useState<string | null>(null);
+  /** How each photo that only the server holds came back, so its card says the truth about it. */
+  const [serverStates, setServerStates] = useState<Record<string, ServerPhotoState>>({});
+  const onServerState = useCallback((id: string, st: ServerPhotoState) => setServerStates((m) => (m[id] === st ? m : { ...m, [id]: st })), []);
   const fileRef = useRef<HTMLInputElement>(null);
   const ids = { target: useId(), caption: useId(), file: useId() };
   useEffect(() => startPhotoUploads(), []);
@@ -143,14 +156,14 @@ export function PhotosSection({ survey, apply, selectedId }: SectionProps) {
                   : st?.progress !== undefined
                     ? `Uploading ${Math.round(st.progress * 100)} %`
                     : (st?.retrying ?? 'On this device, waiting to upload')
-              : 'On the server';
+              : SERVER_STATE_WORDS[serverStates[r.id] ?? 'loading'];
             return (
               <li key={r.id} className="overflow-hidden rounded-lg border border-line bg-card" data-testid="photo-card" data-uploaded={lp ? String(lp.uploaded === 1) : 'true'}>
-                {lp ? <LocalThumb photo={lp} alt={alt} /> : <ServerPhoto id={r.id} alt={alt} />}
+                {lp ? <LocalThumb photo={lp} alt={alt} /> : <ServerPhoto id={r.id} alt={alt} onState={onServerState} />}
                 <div className="p-2 text-sm">
                   <p className="font-bold">{nameOf(r.entity) ?? 'Survey'}</p>
                   {r.caption && <p>{r.caption}</p>}
-                  <p className={st?.error ? 'font-bold text-danger' : 'text-ink-soft'} data-testid="photo-state">
+                  <p className={st?.error || (!lp && serverStates[r.id] === 'file-missing') ? 'font-bold text-danger' : 'text-ink-soft'} data-testid="photo-state" data-state={lp ? undefined : serverStates[r.id]}>
                     {state}
                   </p>
                   {st?.progress !== undefined && (

@@ -6,7 +6,8 @@ import { DEFAULT_SEA_DENSITY_KG_M3, HEEL_AGREEMENT_TOLERANCE_DEG } from '@shared
 import { settleMarks, withMark, type FigureMark, type Marks } from '@shared/schemas/marks';
 import { MarkChip } from './mark-chip';
 import { byKey, measureLabel, parseField, showField, unitResolver } from '../utils/form-units';
-import { NumberInput, TextInput, FormError, inputCls, primaryBtn, secondaryBtn, dangerBtn, Field } from '@client/components/ui/fields';
+import { NumberInput, TextInput, FormError, inputCls, primaryBtn, secondaryBtn, dangerBtn, Field, describedBy } from '@client/components/ui/fields';
+import { deviceOffsetAt, parseShipTimeEntry, shipTimeEntry, SHIP_TIME_FORMAT } from '../utils/ship-time-entry';
 import { useAutosave } from '../hooks/use-autosave';
 import { SaveIndicator } from './save-indicator';
 import type { Apply, EditOp, SectionProps } from '../utils/types';
@@ -28,29 +29,19 @@ interface ConditionForm {
 const MEASURES = byKey({ forwardM: 'length', aftM: 'length', midPortM: 'length', midStarboardM: 'length', heelDeg: 'ratio', seaDensityKgM3: 'density' });
 
 /**
- * ISO time → the value of a datetime-local input: in ship's time when the ship's clock is given (the
- * surveyor copies times from the ship's log), else in the device's own time.
+ * The clock the time of readings is typed in: the ship's when her clock is set (the surveyor copies
+ * times from the ship's log), else this device's own, at about the time typed (summer time counts).
  */
-function toLocalInput(iso: string, shipOffsetMin: number | undefined): string {
-  const d = new Date(iso);
-  if (Number.isNaN(d.getTime())) return '';
-  const aheadMin = shipOffsetMin ?? -d.getTimezoneOffset();
-  return new Date(d.getTime() + aheadMin * 60000).toISOString().slice(0, 16);
-}
-
-/** The input's "YYYY-MM-DDTHH:mm" back to an instant, read in the same clock as `toLocalInput` shows. */
-function fromLocalInput(text: string, shipOffsetMin: number | undefined): Date {
-  if (shipOffsetMin === undefined) return new Date(text);
-  return new Date(new Date(`${text}Z`).getTime() - shipOffsetMin * 60000);
-}
+const clockOffset = (shipOffsetMin: number | undefined, at: { iso?: string; text?: string }): number =>
+  shipOffsetMin ?? (at.text !== undefined ? deviceOffsetAt(at.text) : -new Date(at.iso ?? Date.now()).getTimezoneOffset());
 
 function toModel(v: ConditionForm, base: Condition, system: UnitSystem, shipOffsetMin: number | undefined): unknown {
   const L = (t: string) => parseField(t, 'length', system);
-  const t = fromLocalInput(v.time, shipOffsetMin);
+  const t = parseShipTimeEntry(v.time, clockOffset(shipOffsetMin, { text: v.time }));
   const next = {
     ...base,
     name: v.name.trim() === '' ? undefined : v.name.trim(),
-    time: Number.isNaN(t.getTime()) ? v.time : t.toISOString(),
+    time: t ?? v.time,
     drafts: { forwardM: L(v.drafts.forwardM), aftM: L(v.drafts.aftM), midPortM: L(v.drafts.midPortM), midStarboardM: L(v.drafts.midStarboardM) },
     heelDeg: parseField(v.heelDeg, 'ratio', system),
     seaDensityKgM3: parseField(v.seaDensityKgM3, 'density', system),
@@ -65,7 +56,7 @@ function ConditionEditor({ condition, apply, system, shipOffsetMin }: { conditio
     resolver: unitResolver(ConditionSchema, (v: ConditionForm) => toModel(v, condition, system, shipOffsetMin), system, MEASURES),
     defaultValues: {
       name: condition.name ?? '',
-      time: toLocalInput(condition.time, shipOffsetMin),
+      time: shipTimeEntry(condition.time, clockOffset(shipOffsetMin, { iso: condition.time })),
       drafts: { forwardM: S(condition.drafts.forwardM), aftM: S(condition.drafts.aftM), midPortM: S(condition.drafts.midPortM), midStarboardM: S(condition.drafts.midStarboardM) },
       heelDeg: condition.heelDeg === undefined ? '' : String(condition.heelDeg),
       seaDensityKgM3: showField(condition.seaDensityKgM3, 'density', system),
@@ -92,8 +83,27 @@ function ConditionEditor({ condition, apply, system, shipOffsetMin }: { conditio
           label={`Time of readings (${shipOffsetMin === undefined ? `this device’s clock, ${utcOffsetWords(-new Date().getTimezoneOffset())}` : `ship’s time, ${utcOffsetWords(shipOffsetMin)}`})`}
           id={timeId}
           error={formState.errors.time?.message}
+          hint={SHIP_TIME_FORMAT}
         >
-          <input id={timeId} type="datetime-local" className={inputCls} {...register('time')} />
+          <input
+            id={timeId}
+            type="text"
+            autoComplete="off"
+            spellCheck={false}
+            placeholder="YYYY-MM-DD HH:MM"
+            className={inputCls}
+            aria-invalid={formState.errors.time ? true : undefined}
+            aria-describedby={describedBy(timeId, SHIP_TIME_FORMAT, formState.errors.time)}
+            {...register('time')}
+          />
+          <button
+            type="button"
+            className={secondaryBtn}
+            aria-label={`Now, in ${shipOffsetMin === undefined ? 'this device’s clock' : 'ship’s time'}`}
+            onClick={() => setValue('time', shipTimeEntry(new Date().toISOString(), clockOffset(shipOffsetMin, {})), { shouldDirty: true, shouldValidate: true })}
+          >
+            Now
+          </button>
         </Field>
       </div>
       <fieldset className="grid grid-cols-2 gap-3 sm:grid-cols-4">

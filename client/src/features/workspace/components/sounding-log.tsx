@@ -13,7 +13,8 @@ import { primaryBtn, dangerBtn, secondaryBtn } from '@client/components/ui/field
 import { display, fmt } from '@client/lib/unit-system';
 import { measureLabel } from '../utils/form-units';
 import type { Apply } from '../utils/types';
-import { heightOf, Input, need, shipLocalToIso, type Errors } from './flooding-fields';
+import { heightOf, Input, need, type Errors } from './flooding-fields';
+import { parseShipTimeEntry, SHIP_TIME_FORMAT } from '../utils/ship-time-entry';
 
 type Reading = { time: string; soundingM: number; pumpIds?: string[] };
 type Log = NonNullable<Compartment['soundingLog']>;
@@ -64,8 +65,8 @@ export function SoundingLog({ comp, system, apply, offsetMin }: { comp: Compartm
   const saveLog = (next: Log | undefined) => apply({ kind: 'upsert', collection: 'compartments', entity: { ...comp, soundingLog: next } });
   const add = async () => {
     const e: Errors = {};
-    const iso = shipLocalToIso(v.time, offsetMin);
-    if (iso === null) e.time = 'Enter the ship’s time of the reading.';
+    const iso = parseShipTimeEntry(v.time, offsetMin ?? 0);
+    if (iso === null) e.time = `Enter the ship’s time of the reading as ${SHIP_TIME_FORMAT}.`;
     else if (readings.length > 0 && Date.parse(iso) <= Date.parse(readings[readings.length - 1].time))
       e.time = `Out of time order: the last reading was at ${formatShipAndUtc(readings[readings.length - 1].time, offsetMin)}; enter a later time.`;
     const s = need(e, 'sounding', v.sounding, 'length', system, { min: 0 });
@@ -120,7 +121,7 @@ export function SoundingLog({ comp, system, apply, offsetMin }: { comp: Compartm
         </p>
       )}
       <form className="grid grid-cols-2 gap-2 rounded-md border-2 border-line p-2 sm:grid-cols-4" onSubmit={(e) => (e.preventDefault(), void add())} noValidate aria-label="Add a sounding">
-        <Input id={`${p}-time`} label="Time of the reading" unit={clock} type="datetime-local" value={v.time} onChange={(t) => setV({ ...v, time: t })} error={errors.time} />
+        <Input id={`${p}-time`} label="Time of the reading" unit={clock} inputMode="text" placeholder="YYYY-MM-DD HH:MM" value={v.time} onChange={(t) => setV({ ...v, time: t })} error={errors.time} />
         <Input id={`${p}-s`} label="Sounding" unit={measureLabel('length', system)} value={v.sounding} onChange={(t) => setV({ ...v, sounding: t })} error={errors.sounding} />
         {pumps.length > 0 && (
           <fieldset className="col-span-2 text-sm">

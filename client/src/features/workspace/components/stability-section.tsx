@@ -9,6 +9,7 @@ import { useForm, useWatch } from 'react-hook-form';
 import { ConditionStabilitySchema, DOWNFLOODING_KINDS, DownfloodingPointSchema, type ConditionStability, type Particulars } from '@shared/schemas/stability';
 import type { Condition } from '@shared/schemas/survey';
 import type { UnitSystem } from '@shared/units/units';
+import { pointWords } from '@shared/units/point-words';
 import { FormError, NumberInput, SelectInput, TextInput, dangerBtn, errorAt, secondaryBtn } from '@client/components/ui/fields';
 import { ShipResponsePanel } from '@client/features/results/components/ship-response';
 import { byKey, measureLabel, parseField, showField, unitResolver, type Measure } from '../utils/form-units';
@@ -255,7 +256,7 @@ function DownfloodingEditor({ survey, apply, system }: { survey: SectionProps['s
           <li key={p.id} className="flex flex-wrap items-center gap-2 rounded-md border border-line bg-card p-2 text-sm">
             <b>{p.name}</b>
             <span className="text-ink-soft">
-              {p.kind.replace('-', ' ')} · x {showField(p.position.x, 'length', system)}, y {showField(p.position.y, 'length', system)}, z {showField(p.position.z, 'length', system)} {lu}
+              {p.kind.replace('-', ' ')} · <span data-testid="downflooding-position">{pointWords(p.position, system)}</span>
             </span>
             <button type="button" className={`${secondaryBtn} ml-auto`} aria-label={`Edit ${p.name}`} onClick={() => edit(p)}>
               Edit

@@ -72,6 +72,8 @@ function plainError(system: UnitSystem, measureOf: MeasureLookup) {
       case 'too_big':
         return iss.inclusive ? `Must be at most ${bound(iss.maximum as number)}.` : `Must be less than ${bound(iss.maximum as number)}.`;
       case 'invalid_format':
+        // a time typed in the fields' one style (utils/ship-time-entry.ts)
+        if ((iss as { format?: string }).format === 'datetime') return 'Enter the date and time as YYYY-MM-DD HH:MM (24 h), for example 2026-03-14 09:45.';
         return 'This is not in the expected format.';
       default:
         return undefined;
