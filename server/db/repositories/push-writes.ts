@@ -175,7 +175,8 @@ const processedRow = (p: ProcessedRow) => ({
 export interface RunWrites {
   revisions: RevisionRow[];
   processed: ProcessedRow[];
-  survey?: { id: string; columns: SurveyColumns; docJson?: string };
+  /** `docJson` / `revsJson`: the document's and field revisions' JSON text when the caller has it already. */
+  survey?: { id: string; columns: SurveyColumns; docJson?: string; revsJson?: string };
   onlyAtRevision?: number;
   /**
    * With `onlyAtRevision`: the review status the run was planned with. A status move does not change
@@ -245,7 +246,7 @@ function runWritesParams(w: RunWrites, guarded: boolean): Knex.RawBinding[] {
     JSON.stringify(w.revisions.map((r) => ({ ...revisionRow(r), changes: r.changes }))),
     c ? (w.survey?.docJson ?? json(c.doc)) : null,
     c?.revision ?? null,
-    c ? json(c.revs) : null,
+    c ? (w.survey?.revsJson ?? json(c.revs)) : null,
     c?.title ?? null,
     c?.vesselName ?? null,
     c?.vesselId ?? null,

@@ -42,16 +42,19 @@ const linkOf = (s: StartSurvey | Survey, vesselId: string | null): Linked => ({
 /** The run's answers, before anything it wrote. */
 const answered = (plan: RunPlan): RunOutcome => ({ results: plan.results, conflictIds: plan.conflicts.map((c) => c.id), touched: plan.touched });
 
-/** The survey's new columns and the document's JSON text, when the run changed the document. */
+/**
+ * The survey's new columns and the JSON text of its document and field revisions, when the run changed
+ * the document: each serialised once, for the write and for the state the run leaves (stateAfter).
+ */
 async function newColumns(q: Db | Knex.Transaction, orgId: string, final: EndState | undefined, linked: Linked | undefined) {
   if (!final) return undefined;
   const columns = await columnsOf(q, orgId, final.doc, final.revision, final.revs, linked);
-  return { columns, docJson: JSON.stringify(columns.doc) };
+  return { columns, docJson: JSON.stringify(columns.doc), revsJson: JSON.stringify(columns.revs) };
 }
 
 /** The survey as a run left it: the document as parsed back from the text written, so equal to a fresh read. */
-function stateAfter(orgId: string, before: StartSurvey, final: EndState, written: { columns: SurveyColumns; docJson: string }): RunOutcome['written'] {
-  const revsJson = JSON.stringify(final.revs);
+function stateAfter(orgId: string, before: StartSurvey, final: EndState, written: { columns: SurveyColumns; docJson: string; revsJson: string }): RunOutcome['written'] {
+  const { revsJson } = written;
   return {
     state: {
       orgId,
