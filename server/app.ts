@@ -62,6 +62,54 @@ function pageGroups(s: AppServices): RouteSpec[][] {
   return [briefPageRoutes(s.briefs)];
 }
 
+/** The /api router: no-store answers, the JSON body parser, compression, every API route group, a JSON 404. */
+function apiRouter(services: AppServices, deps: AppContext, registry: RegisteredRoute[]): Router {
+  const api = Router();
+  // API answers are for one caller at one moment: no cache (a shared proxy, the browser's disk) may
+  // keep them. Routes that serve bytes meant to be cached (photos) set their own header.
+  api.use((_req, res, next) => {
+    res.setHeader('Cache-Control', 'no-store');
+    next();
+  });
+  api.use(jsonBody({ limit: '5mb' }));
+  // JSON answers above 1 KB go gzip- or brotli-compressed when the client accepts it (a survey read is
+  // tens of KB; an answer of a few bytes gains nothing from a compression header)
+  api.use(compression({ threshold: API_COMPRESSION_THRESHOLD_BYTES }));
+  for (const group of routeGroups(services, deps)) defineRoutes(api, '/api', group, services.access, registry);
+  api.use(apiNotFound);
+  return api;
+}
+
+/** The built client, when there is one: its precompressed files, and index.html for every other page. */
+function serveClient(app: BrinelineApp, clientDir: string | undefined): void {
+  if (!clientDir || !fs.existsSync(path.join(clientDir, 'index.html'))) return;
+  // brotli and gzip copies are made at build time (vite-plugin-compression2): the server only picks one
+  app.use(
+    expressStaticGzip(clientDir, {
+      enableBrotli: true,
+      orderPreference: ['br', 'gzip'],
+      index: false,
+      serveStatic: {
+        index: false,
+        setHeaders: (res, served) => {
+          const file = served.replace(/\.(br|gz)$/, '');
+          if (file.endsWith('sw.js') || file.endsWith('index.html') || file.endsWith('.webmanifest')) {
+            res.setHeader('Cache-Control', 'no-cache');
+          } else if (file.includes(`${path.sep}assets${path.sep}`)) {
+            // hashed names: a changed file is a new name, so a year is safe
+            res.setHeader('Cache-Control', 'public, max-age=31536000, immutable');
+          }
+        },
+      },
+    }),
+  );
+  app.get(/^\/(?!api\/).*/, (_req, res) => {
+    res.setHeader('Cache-Control', 'no-cache');
+    // `root` keeps send's dot-folder check to the part below clientDir (tests build into .tmp/…).
+    res.sendFile('index.html', { root: clientDir });
+  });
+}
+
 /** The composition root: resolves the optional dependencies, builds every service once, registers the routes. */
 export function createApp(given: AppDeps): BrinelineApp {
   const deps: AppContext = { ...given, mailer: given.mailer ?? createMailer(given.config), storage: given.storage ?? createS3PhotoStorage(given.config) };
@@ -78,55 +126,12 @@ export function createApp(given: AppDeps): BrinelineApp {
   app.use(securityHeaders());
   // Only the refresh cookie is read, and browsers send it to /api/auth alone (REFRESH_COOKIE_PATH).
   app.use(REFRESH_COOKIE_PATH, cookieParser());
-
-  const verify = services.access;
-  const api = Router();
-  // API answers are for one caller at one moment: no cache (a shared proxy, the browser's disk) may
-  // keep them. Routes that serve bytes meant to be cached (photos) set their own header.
-  api.use((_req, res, next) => {
-    res.setHeader('Cache-Control', 'no-store');
-    next();
-  });
-  api.use(jsonBody({ limit: '5mb' }));
-  // JSON answers above 1 KB go gzip- or brotli-compressed when the client accepts it (a survey read is
-  // tens of KB; an answer of a few bytes gains nothing from a compression header)
-  api.use(compression({ threshold: API_COMPRESSION_THRESHOLD_BYTES }));
-  for (const group of routeGroups(services, deps)) defineRoutes(api, '/api', group, verify, app.locals.routes);
-  api.use(apiNotFound);
-  app.use('/api', api);
+  app.use('/api', apiRouter(services, deps, app.locals.routes));
 
   const pages = Router();
-  for (const group of pageGroups(services)) defineRoutes(pages, '', group, verify, app.locals.routes);
+  for (const group of pageGroups(services)) defineRoutes(pages, '', group, services.access, app.locals.routes);
   app.use(pages);
-
-  if (deps.clientDir && fs.existsSync(path.join(deps.clientDir, 'index.html'))) {
-    const clientDir = deps.clientDir;
-    // brotli and gzip copies are made at build time (vite-plugin-compression2): the server only picks one
-    app.use(
-      expressStaticGzip(clientDir, {
-        enableBrotli: true,
-        orderPreference: ['br', 'gzip'],
-        index: false,
-        serveStatic: {
-          index: false,
-          setHeaders: (res, served) => {
-            const file = served.replace(/\.(br|gz)$/, '');
-            if (file.endsWith('sw.js') || file.endsWith('index.html') || file.endsWith('.webmanifest')) {
-              res.setHeader('Cache-Control', 'no-cache');
-            } else if (file.includes(`${path.sep}assets${path.sep}`)) {
-              // hashed names: a changed file is a new name, so a year is safe
-              res.setHeader('Cache-Control', 'public, max-age=31536000, immutable');
-            }
-          },
-        },
-      }),
-    );
-    app.get(/^\/(?!api\/).*/, (_req, res) => {
-      res.setHeader('Cache-Control', 'no-cache');
-      // `root` keeps send's dot-folder check to the part below clientDir (tests build into .tmp/…).
-      res.sendFile('index.html', { root: clientDir });
-    });
-  }
+  serveClient(app, deps.clientDir);
 
   app.use(errorHandler);
   return app;

@@ -115,27 +115,37 @@ export function nearestLimitWords(doc: Survey, units: UnitSystem = 'si'): { sent
   return { sentence, assumptions, downflooding: downfloodingSentences(f, doc.vessel.shipTimeOffsetMin), attitude: forecastAttitudeWords(f), balance: volumeBalanceSentence(f, units) };
 }
 
-export function renderBriefPage(d: BriefPageData, opts: { ackError?: string } = {}): string {
+/** What every part of the brief needs: what is shown, unit and time formatting, the condition. */
+function briefContext(d: BriefPageData) {
   const withheld = d.figuresWithheld === true;
-  const shownRevision = d.shownRevision ?? d.revision;
-  const nearestLimit = withheld ? null : nearestLimitWords(d.doc, d.units);
-  const q = (v: number, dim: Parameters<typeof formatQuantity>[1], digits = 3) => formatQuantity(v, dim, d.units, digits).text;
-  const utc = (iso: string | null) => formatShipAndUtc(iso, d.doc.vessel.shipTimeOffsetMin);
-  const names = namesFromSurvey(d.doc);
-  const condition = d.doc.conditions.find((c) => c.id === d.doc.activeConditionId) ?? d.doc.conditions[0];
-  const surveyVerdict = d.verdicts.find((v) => v.scope === 'survey');
-  const boundaryVerdicts = new Map(d.verdicts.filter((v) => v.scope === 'boundary').map((v) => [v.boundaryId, v]));
-  const r = withheld ? null : d.results;
+  return {
+    d,
+    withheld,
+    shownRevision: d.shownRevision ?? d.revision,
+    q: (v: number, dim: Parameters<typeof formatQuantity>[1], digits = 3) => formatQuantity(v, dim, d.units, digits).text,
+    utc: (iso: string | null) => formatShipAndUtc(iso, d.doc.vessel.shipTimeOffsetMin),
+    condition: d.doc.conditions.find((c) => c.id === d.doc.activeConditionId) ?? d.doc.conditions[0],
+    r: withheld ? null : d.results,
+    noFigures: withheld
+      ? html`<p class="muted">Not shown: the figures the engineer accepted are not kept on the server, and the newer ones are not reviewed.</p>`
+      : html`<p class="muted">The server has not worked out the loads for this survey yet.</p>`,
+  };
+}
+type BriefContext = ReturnType<typeof briefContext>;
 
+function floodedRows({ r, q }: BriefContext): SafeHtml[] {
   const flooded = r ? r.compartments.filter((c) => c.liquid.volumeM3 > 1e-9) : [];
-  const floodedRows = flooded.map(
+  return flooded.map(
     (c) => html`<tr><th scope="row">${c.name}${c.openToSea ? html` <span class="tag">open to sea</span>` : ''}</th>
 <td>${c.layers.filter((l) => l.volumeM3 > 1e-9).map((l) => html`<div>${l.fluidName}: ${q(l.massKg, 'mass')}${c.tank && l.ownVolumeM3 > 0 ? html` <span class="muted">(${l.ownVolumeM3 >= l.volumeM3 * (1 - 1e-9) ? "the tank's own" : html`${q(l.ownVolumeM3, 'volume')} the tank's own`})</span>` : ''}</div>`)}</td>
 <td>${formatNumber(c.fillFraction * 100, 2)} %</td></tr>`,
   );
+}
 
+function boundaryItems({ d, r, q }: BriefContext): SafeHtml[] {
+  const boundaryVerdicts = new Map(d.verdicts.filter((v) => v.scope === 'boundary').map((v) => [v.boundaryId, v]));
   const important = r ? boundariesThatMatter(r, d.verdicts) : [];
-  const boundaryItems = important.map((b) => {
+  return important.map((b) => {
     const v = boundaryVerdicts.get(b.id);
     const sev = v ? verdictSeverity(v.verdict) : null;
     const sides = { A: sideLabel(r!, b.sideA), B: sideLabel(r!, b.sideB) };
@@ -149,37 +159,32 @@ ${v ? html`<div class="verdict ${SEVERITY_CLASS[sev!]}"><strong>${boundaryVerdic
 ${checksTable(b, d.doc, d.units, sides)}
 </li>`;
   });
+}
 
+/** The ship's response: the attitude read beside the one predicted, GM, the nearest downflooding point. */
+function stabilityHtml({ d, r, q, condition, withheld, noFigures }: BriefContext): SafeHtml {
   const response = r ? shipResponseOf(d.doc, r) : null;
-  const noFigures = withheld
-    ? html`<p class="muted">Not shown: the figures the engineer accepted are not kept on the server, and the newer ones are not reviewed.</p>`
-    : html`<p class="muted">The server has not worked out the loads for this survey yet.</p>`;
-  const nearest = response && condition ? downfloodingFreeboards(d.doc, condition, response)[0] : undefined;
+  if (!response) return withheld ? noFigures : html`<p class="muted">Not computed: the survey has no hydrostatic particulars for these readings.</p>`;
+  const nearest = condition ? downfloodingFreeboards(d.doc, condition, response)[0] : undefined;
   // the attitude the ship actually shows, beside the model's: a master must never read a predicted heel as the present one
-  const measured = response && condition ? measuredAttitude(d.doc, condition) : null;
-  const check = response && condition ? readingsVersusModel(d.doc, condition, response) : null;
+  const measured = condition ? measuredAttitude(d.doc, condition) : null;
+  const check = condition ? readingsVersusModel(d.doc, condition, response) : null;
   // aground, the figures are those of the ship resting on the ground (the same response as the device's Stability panel)
-  const ground = response?.ground && !response.ground.afloat ? response.ground : null;
+  const ground = response.ground && !response.ground.afloat ? response.ground : null;
   const trimWords = (m: number) => `${q(Math.abs(m), 'length')} ${m > 0 ? 'by the stern' : m < 0 ? 'by the head' : ''}`.trim();
   const heelWords = (deg: number) => `${formatNumber(Math.abs(deg), 2)}° ${deg > 0.05 ? 'to starboard' : deg < -0.05 ? 'to port' : ''}`;
-  const stability = response
-    ? html`${measured ? html`<p>The readings show: drafts aft <strong>${q(measured.draftAftM, 'length')}</strong>, forward <strong>${q(measured.draftForeM, 'length')}</strong>, heel <strong>${heelWords(measured.heelDeg)}</strong>, trim <strong>${trimWords(measured.trimM)}</strong>.</p>` : ''}
+  return html`${measured ? html`<p>The readings show: drafts aft <strong>${q(measured.draftAftM, 'length')}</strong>, forward <strong>${q(measured.draftForeM, 'length')}</strong>, heel <strong>${heelWords(measured.heelDeg)}</strong>, trim <strong>${trimWords(measured.trimM)}</strong>.</p>` : ''}
 <p>Predicted from the modelled flooding: drafts aft <strong>${q(response.attitude.draftAftM, 'length')}</strong>, forward <strong>${q(response.attitude.draftForeM, 'length')}</strong>, heel <strong>${heelWords(response.attitude.heelDeg)}</strong>, trim <strong>${trimWords(response.attitude.trimM)}</strong>.</p>
 ${check && !check.agrees ? html`<p class="over">${check.message} Until that is explained, the readings, not the prediction, show how the ship lies.</p>` : ''}
 <p>GM after free surface${ground ? ', resting on the ground' : ''}: <strong class="${response.gmFluidM <= 0 ? 'over' : ''}">${q(response.gmFluidM, 'length')}</strong>${ground ? html` (ground reaction <strong>${q(ground.reactionKg, 'mass')}</strong>; afloat, if she came off: ${q(ground.free.gmFluidM, 'length')})` : ''}${nearest && nearest.predictedM !== null ? html` · nearest opening that would let water in: <strong>${nearest.name}</strong>, ${q(nearest.predictedM, 'length')} above the water` : ''}.</p>
 ${response.warnings.length ? html`<ul>${response.warnings.map((w) => html`<li class="${w.severity === 'danger' ? 'over' : ''}">${w.message}</li>`)}</ul>` : ''}
-<p class="muted">${STABILITY_CAUTION}</p>`
-    : withheld
-      ? noFigures
-      : html`<p class="muted">Not computed: the survey has no hydrostatic particulars for these readings.</p>`;
+<p class="muted">${STABILITY_CAUTION}</p>`;
+}
 
-  const limitItems = d.limits.map((l) => {
-    const measure = measurableLimit(l.rule, d.doc, d.units);
-    return html`<li>${describeLimit(l, names, d.units)}${measure ? html`<div class="measure">${measure}</div>` : ''}</li>`;
-  });
-  const notes = withheld ? [] : figureNotes(d.doc);
+/** The master's "received and understood" form, with the latest acknowledgement (only on the link's own page). */
+function ackSection({ d, utc }: BriefContext, opts: BriefPageOptions): SafeHtml | '' {
   const ack = d.acknowledgement;
-  const ackSection = d.token
+  return d.token
     ? html`<section aria-labelledby="h-ack" id="acknowledged" class="ack">
   <h2 id="h-ack">Received and understood</h2>
   ${ack ? html`<p class="done">Acknowledged by <strong>${ack.name}</strong>, ${utc(ack.at)} (survey revision ${ack.revision}).</p>` : ''}
@@ -192,11 +197,14 @@ ${response.warnings.length ? html`<ul>${response.warnings.map((w) => html`<li cl
   <p class="muted">The engineer sees your name and the time. It records that you have read this brief, nothing more.</p>
 </section>`
     : '';
-  const sev = surveyVerdict ? verdictSeverity(surveyVerdict.verdict) : null;
+}
+
+/** Whether the figures shown were reviewed, and what changed since the link was sent. */
+function reviewNotice({ d, withheld, shownRevision }: BriefContext): SafeHtml | '' {
   const changedSince = d.revision > d.issuedRevision;
   const newer = d.newerRevision ?? null;
   const unreviewed = !newer && d.status !== 'accepted' && d.status !== 'in_review';
-  const reviewNotice = newer
+  return newer
     ? html`<p class="notice" data-notice="newer-figures">Newer figures exist. The survey was changed after the engineer accepted revision ${shownRevision}; it is now at revision ${newer} (“${STATUS_LABELS[d.status]}”). Nobody has reviewed those changes yet, so they are not shown here. ${
         withheld ? 'The accepted figures cannot be shown either: ask the engineer.' : html`Everything below is revision ${shownRevision}, as accepted.`
       } Ask the engineer before you act on any change made since.</p>`
@@ -205,20 +213,34 @@ ${response.warnings.length ? html`<ul>${response.warnings.map((w) => html`<li cl
       : changedSince
         ? html`<p class="notice">The survey has changed since this brief was sent. Ask the engineer for a fresh one before you act on it.</p>`
         : '';
-  const reviewedLine =
-    d.reviewedBy && (d.status === 'accepted' || newer)
-      ? html`Accepted by <strong>${d.reviewedBy}</strong>${d.reviewedAt ? html` on ${utc(d.reviewedAt)}` : ''}: survey revision ${shownRevision}`
-      : d.reviewedBy && d.status === 'in_review'
-        ? html`Under review by <strong>${d.reviewedBy}</strong>${d.reviewedAt ? html` since ${utc(d.reviewedAt)}` : ''}: survey revision ${shownRevision}`
-        : html`Not reviewed: survey revision ${shownRevision}`;
+}
 
-  const body: SafeHtml = html`
+function reviewedLine({ d, utc, shownRevision }: BriefContext): SafeHtml {
+  const newer = d.newerRevision ?? null;
+  return d.reviewedBy && (d.status === 'accepted' || newer)
+    ? html`Accepted by <strong>${d.reviewedBy}</strong>${d.reviewedAt ? html` on ${utc(d.reviewedAt)}` : ''}: survey revision ${shownRevision}`
+    : d.reviewedBy && d.status === 'in_review'
+      ? html`Under review by <strong>${d.reviewedBy}</strong>${d.reviewedAt ? html` since ${utc(d.reviewedAt)}` : ''}: survey revision ${shownRevision}`
+      : html`Not reviewed: survey revision ${shownRevision}`;
+}
+
+/** The top of the brief: the vessel, when the soundings were taken, the review notice, the verdict and the limits. */
+function briefTop(ctx: BriefContext): SafeHtml {
+  const { d, utc, condition } = ctx;
+  const names = namesFromSurvey(d.doc);
+  const surveyVerdict = d.verdicts.find((v) => v.scope === 'survey');
+  const sev = surveyVerdict ? verdictSeverity(surveyVerdict.verdict) : null;
+  const limitItems = d.limits.map((l) => {
+    const measure = measurableLimit(l.rule, d.doc, d.units);
+    return html`<li>${describeLimit(l, names, d.units)}${measure ? html`<div class="measure">${measure}</div>` : ''}</li>`;
+  });
+  return html`
 <header>
   <p class="kicker">Flooding brief · read only</p>
   <h1>${d.doc.vessel.name}${d.doc.vessel.imo ? html` <span class="muted">IMO ${d.doc.vessel.imo}</span>` : ''}</h1>
   <p class="sub">${d.doc.title}</p>
   <p class="when">Soundings taken <strong>${utc(condition?.time ?? null)}</strong> · review status: <strong>${STATUS_LABELS[d.status]}</strong></p>
-  ${reviewNotice}
+  ${reviewNotice(ctx)}
 </header>
 <section aria-labelledby="h-verdict">
   <h2 id="h-verdict">The engineer’s verdict</h2>
@@ -229,8 +251,16 @@ ${response.warnings.length ? html`<ul>${response.warnings.map((w) => html`<li cl
 <section aria-labelledby="h-limits">
   <h2 id="h-limits">Operating limits</h2>
   ${limitItems.length ? html`<ol class="limits">${limitItems}</ol>` : html`<p class="muted">The engineer set no limits.</p>`}
-</section>
-${nearestLimit ? html`<section aria-labelledby="h-nearest">
+</section>`;
+}
+
+/** The figures: time to the nearest limit, what is flooded, the ship's response, the boundaries that matter. */
+function briefFigures(ctx: BriefContext): SafeHtml {
+  const { d, r, q, withheld, noFigures } = ctx;
+  const nearestLimit = withheld ? null : nearestLimitWords(d.doc, d.units);
+  const flooded = floodedRows(ctx);
+  const items = boundaryItems(ctx);
+  return html`${nearestLimit ? html`<section aria-labelledby="h-nearest">
   <h2 id="h-nearest">Time to the nearest limit</h2>
   <p><strong>${nearestLimit.sentence}</strong></p>
   ${nearestLimit.downflooding.length ? html`<ul>${nearestLimit.downflooding.map((t) => html`<li><strong>${t}</strong></li>`)}</ul>` : ''}
@@ -243,17 +273,30 @@ ${nearestLimit ? html`<section aria-labelledby="h-nearest">
     ? html`<p>Flood water aboard: <strong>${q(r.ship.floodWater.massKg, 'mass')}</strong> · oil: <strong>${q(r.ship.oil.massKg, 'mass')}</strong>${r.ship.tankContents.massKg > 0 ? html` · tanks' own liquid (not flood water): <strong>${q(r.ship.tankContents.massKg, 'mass')}</strong>` : ''}${
         r.summary.totalInflowM3S > 0 ? html` · inflow about <strong>${q(r.summary.totalInflowM3S, 'flow')}</strong>` : ''
       }</p>
-${flooded.length ? html`<table><thead><tr><th scope="col">Space</th><th scope="col">Holds</th><th scope="col">Full</th></tr></thead><tbody>${floodedRows}</tbody></table>` : html`<p>No space holds liquid in this survey.</p>`}`
+${flooded.length ? html`<table><thead><tr><th scope="col">Space</th><th scope="col">Holds</th><th scope="col">Full</th></tr></thead><tbody>${flooded}</tbody></table>` : html`<p>No space holds liquid in this survey.</p>`}`
     : noFigures}
 </section>
 <section aria-labelledby="h-stability">
   <h2 id="h-stability">The ship’s response</h2>
-  ${stability}
+  ${stabilityHtml(ctx)}
 </section>
 <section aria-labelledby="h-boundaries">
   <h2 id="h-boundaries">Boundaries that matter</h2>
-  ${boundaryItems.length ? html`<ul class="boundaries">${boundaryItems}</ul>` : r ? html`<p class="muted">No boundary carries a net load.</p>` : noFigures}
-</section>
+  ${items.length ? html`<ul class="boundaries">${items}</ul>` : r ? html`<p class="muted">No boundary carries a net load.</p>` : noFigures}
+</section>`;
+}
+
+export interface BriefPageOptions {
+  /** The acknowledgement form's field error. */
+  ackError?: string;
+}
+
+export function renderBriefPage(d: BriefPageData, opts: BriefPageOptions = {}): string {
+  const ctx = briefContext(d);
+  const newer = d.newerRevision ?? null;
+  const notes = ctx.withheld ? [] : figureNotes(d.doc);
+  const body: SafeHtml = html`${briefTop(ctx)}
+${briefFigures(ctx)}
 ${notes.length ? html`<section aria-labelledby="h-notes">
   <h2 id="h-notes">Figures not measured</h2>
   <ul>${notes.map((n) => html`<li>${figureNoteSentence(n)}</li>`)}</ul>
@@ -266,10 +309,10 @@ ${notes.length ? html`<section aria-labelledby="h-notes">
   <h2 id="h-contact">Your engineer</h2>
   ${d.engineer ? html`<p><strong>${d.engineer.name}</strong>, ${d.organisationName}: <a href="mailto:${d.engineer.email}">${d.engineer.email}</a></p>` : html`<p class="muted">Ask ${d.organisationName} for the engineer on duty.</p>`}
 </section>
-${ackSection}
+${ackSection(ctx, opts)}
 <footer>
-  <p data-testid="reviewed-line">${reviewedLine}${newer ? html` (the survey is now at revision ${newer}, not reviewed)` : ''} · ${d.organisationName}.</p>
-  <p>This link stops working ${utc(d.expiresAt)} and may be withdrawn earlier. Do not forward it. Figures in ${d.units === 'us' ? 'US customary units' : 'SI units'}.</p>
+  <p data-testid="reviewed-line">${reviewedLine(ctx)}${newer ? html` (the survey is now at revision ${newer}, not reviewed)` : ''} · ${d.organisationName}.</p>
+  <p>This link stops working ${ctx.utc(d.expiresAt)} and may be withdrawn earlier. Do not forward it. Figures in ${d.units === 'us' ? 'US customary units' : 'SI units'}.</p>
 </footer>`;
 
   return `<!doctype html>

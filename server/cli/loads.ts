@@ -204,73 +204,75 @@ function table(headers: string[], rows: string[][]): string {
   return [line(headers), widths.map((w) => '-'.repeat(w)).join('  '), ...rows.map(line)].join('\n');
 }
 
+type Q = (v: number, d: Dimension) => string;
+const percent = (u: number) => `${(100 * u).toFixed(0)} %${u > 1 ? ' OVER' : ''}`;
+
+function boundaryTable(r: SurveyResults, q: Q): string {
+  return table(
+    ['name', 'kind', 'area', 'net force (+ towards B)', 'peak net p', 'CoP height above lowest point', 'vertical (+ up)', 'horizontal', 'utilisation'],
+    r.boundaries.map((b) => [
+      b.name,
+      b.kind,
+      q(b.areaM2, 'area'),
+      q(b.net.forceN, 'force'),
+      q(b.net.peak.pressurePa, 'pressure'),
+      b.net.nearlyCancels ? `couple ${q(b.net.coupleNm ?? 0, 'moment')}` : b.net.centreOfPressureAboveLowestM !== null ? q(b.net.centreOfPressureAboveLowestM, 'length') : '-',
+      q(b.net.verticalN, 'force'),
+      q(b.net.horizontalN, 'force'),
+      b.maxUtilisation === null ? '-' : percent(b.maxUtilisation),
+    ]),
+  );
+}
+
+/** The shores as columns, or no lines when no boundary is shored. */
+function shoreLines(r: SurveyResults, q: Q): string[] {
+  const shored = r.boundaries.filter((b) => b.shores.length > 0);
+  if (shored.length === 0) return [];
+  const rows = shored.flatMap((b) =>
+    b.shores.map((s, i) => [b.name, String(i + 1), s.bearsOn, q(s.axialLoadN, 'force'), q(s.designCapacityN, 'force'), s.designMethodLabel, q(s.eulerLoadN, 'force'), percent(s.utilisation)]),
+  );
+  return ['', 'SHORES (checked as columns)', table(['boundary', 'no.', 'bears on', 'axial load', 'design capacity', 'method', 'Euler (elastic) buckling load', 'utilisation'], rows)];
+}
+
+function compartmentTable(r: SurveyResults, q: Q): string {
+  return table(
+    ['name', 'permeability', 'liquid volume', 'liquid mass', 'layers (top z at centroid)', 'inflow', 'pump-out'],
+    r.compartments.map((c) => [
+      c.name,
+      c.permeability.toFixed(2),
+      q(c.liquid.volumeM3, 'volume'),
+      q(c.liquid.massKg, 'mass'),
+      c.layers.map((l) => `${l.fluidName} ${q(l.levelPoint.z, 'length')}`).join('; ') || '-',
+      c.inflow ? q(c.inflow.inflowUsedM3S, 'flow') : '-',
+      c.inflow ? (c.inflow.timeToPumpOutS === null ? (c.inflow.pumpCapacityM3S > 0 ? 'pumps behind' : '-') : q(c.inflow.timeToPumpOutS, 'time')) : '-',
+    ]),
+  );
+}
+
+function shipTotalLines(r: SurveyResults, units: UnitSystem, q: Q): string[] {
+  const agg = (name: string, a: SurveyResults['ship']['floodWater']) =>
+    `${pad(name, 12)} ${q(a.massKg, 'mass')}  ${q(a.volumeM3, 'volume')}  centroid ${pointWords(a.centroid, units)}`;
+  return [
+    'SHIP TOTALS',
+    agg('flood water', r.ship.floodWater),
+    agg('oil', r.ship.oil),
+    ...(r.ship.tankContents.massKg > 0 ? [agg('tanks\' own', r.ship.tankContents)] : []),
+    agg('all liquids', r.ship.allLiquids),
+  ];
+}
+
 export function renderTable(r: SurveyResults, units: UnitSystem, survey?: Survey): string {
-  const q = (v: number, d: Dimension) => formatQuantity(v, d, units, 4).text;
+  const q: Q = (v, d) => formatQuantity(v, d, units, 4).text;
   const out: string[] = [];
   out.push(`Engine ${r.engineVersion}  condition ${r.conditionId} at ${r.conditionTime}`);
   out.push(`Heel ${formatNumber(r.frame.heelDeg, 3)}° (starboard down +), trim ${trimWords(r.frame.trimM, units)} (${formatNumber(r.frame.trimDeg, 3)}°), sea ${q(r.frame.seaDensityKgM3, 'density')}`);
-  out.push('');
-  out.push('BOUNDARIES');
-  out.push(
-    table(
-      ['name', 'kind', 'area', 'net force (+ towards B)', 'peak net p', 'CoP height above lowest point', 'vertical (+ up)', 'horizontal', 'utilisation'],
-      r.boundaries.map((b) => [
-        b.name,
-        b.kind,
-        q(b.areaM2, 'area'),
-        q(b.net.forceN, 'force'),
-        q(b.net.peak.pressurePa, 'pressure'),
-        b.net.nearlyCancels ? `couple ${q(b.net.coupleNm ?? 0, 'moment')}` : b.net.centreOfPressureAboveLowestM !== null ? q(b.net.centreOfPressureAboveLowestM, 'length') : '-',
-        q(b.net.verticalN, 'force'),
-        q(b.net.horizontalN, 'force'),
-        b.maxUtilisation === null ? '-' : `${(100 * b.maxUtilisation).toFixed(0)} %${b.maxUtilisation > 1 ? ' OVER' : ''}`,
-      ]),
-    ),
-  );
-  const shored = r.boundaries.filter((b) => b.shores.length > 0);
-  if (shored.length > 0) {
-    out.push('');
-    out.push('SHORES (checked as columns)');
-    out.push(
-      table(
-        ['boundary', 'no.', 'bears on', 'axial load', 'design capacity', 'method', 'Euler (elastic) buckling load', 'utilisation'],
-        shored.flatMap((b) =>
-          b.shores.map((s, i) => [b.name, String(i + 1), s.bearsOn, q(s.axialLoadN, 'force'), q(s.designCapacityN, 'force'), s.designMethodLabel, q(s.eulerLoadN, 'force'), `${(100 * s.utilisation).toFixed(0)} %${s.utilisation > 1 ? ' OVER' : ''}`]),
-        ),
-      ),
-    );
-  }
-  out.push('');
-  out.push('COMPARTMENTS');
-  out.push(
-    table(
-      ['name', 'permeability', 'liquid volume', 'liquid mass', 'layers (top z at centroid)', 'inflow', 'pump-out'],
-      r.compartments.map((c) => [
-        c.name,
-        c.permeability.toFixed(2),
-        q(c.liquid.volumeM3, 'volume'),
-        q(c.liquid.massKg, 'mass'),
-        c.layers.map((l) => `${l.fluidName} ${q(l.levelPoint.z, 'length')}`).join('; ') || '-',
-        c.inflow ? q(c.inflow.inflowUsedM3S, 'flow') : '-',
-        c.inflow ? (c.inflow.timeToPumpOutS === null ? (c.inflow.pumpCapacityM3S > 0 ? 'pumps behind' : '-') : q(c.inflow.timeToPumpOutS, 'time')) : '-',
-      ]),
-    ),
-  );
-  out.push('');
-  const agg = (name: string, a: SurveyResults['ship']['floodWater']) =>
-    `${pad(name, 12)} ${q(a.massKg, 'mass')}  ${q(a.volumeM3, 'volume')}  centroid ${pointWords(a.centroid, units)}`;
-  out.push('SHIP TOTALS');
-  out.push(agg('flood water', r.ship.floodWater));
-  out.push(agg('oil', r.ship.oil));
-  if (r.ship.tankContents.massKg > 0) out.push(agg('tanks\' own', r.ship.tankContents));
-  out.push(agg('all liquids', r.ship.allLiquids));
-  if (survey) {
-    out.push('');
-    out.push(...responseLines(survey, r, units));
-  }
+  out.push('', 'BOUNDARIES', boundaryTable(r, q));
+  out.push(...shoreLines(r, q));
+  out.push('', 'COMPARTMENTS', compartmentTable(r, q));
+  out.push('', ...shipTotalLines(r, units, q));
+  if (survey) out.push('', ...responseLines(survey, r, units));
   if (r.warnings.length > 0) {
-    out.push('');
-    out.push('WARNINGS');
+    out.push('', 'WARNINGS');
     for (const w of r.warnings) out.push(`  [${w.severity}] ${w.message}`);
   }
   out.push('');

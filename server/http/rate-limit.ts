@@ -70,16 +70,12 @@ export interface SignInGuard {
   succeeded: (req: Request, res: Response, email: string, cookieOptions: { secure: boolean; path: string }) => Promise<void>;
 }
 
-export function createSignInGuard(db: Db, config: LimitConfig): SignInGuard {
-  const window = config.RATE_LIMIT_WINDOW_MINUTES * 60;
-  const perIp = limiter(db, 'signin-ip', config.RATE_LIMIT_PER_IP, window);
-  const perEmail = limiter(db, 'signin-email-ip', config.RATE_LIMIT_PER_EMAIL, window);
-  // Failures per account (or per known device of it), remembered for a day; the wait is a block.
-  const failures = limiter(db, 'signin-account', 1_000_000, ACCOUNT_MEMORY_SECONDS);
-  const waits = limiter(db, 'signin-account-wait', 1, MAX_ACCOUNT_DELAY_SECONDS);
-
-  const sign = (email: string, nonce: string) => createHmac('sha256', config.JWT_SECRET).update(`device:${email}:${nonce}`).digest('base64url');
-  /** The account counter this request falls under: its known device's own, or the shared one. */
+/**
+ * The signed `brineline_device` cookie: `accountKey` says which account counter a request falls under
+ * (its known device's own, or the account's shared one), `issue` makes a new device's cookie value.
+ */
+function deviceCookies(secret: string) {
+  const sign = (email: string, nonce: string) => createHmac('sha256', secret).update(`device:${email}:${nonce}`).digest('base64url');
   const accountKey = (req: Request, email: string): string => {
     const raw = (req.cookies as Record<string, unknown> | undefined)?.[DEVICE_COOKIE];
     if (typeof raw === 'string') {
@@ -92,6 +88,21 @@ export function createSignInGuard(db: Db, config: LimitConfig): SignInGuard {
     }
     return email;
   };
+  const issue = (email: string): string => {
+    const nonce = randomBytes(16).toString('base64url');
+    return `${nonce}.${sign(email, nonce)}`;
+  };
+  return { accountKey, issue };
+}
+
+export function createSignInGuard(db: Db, config: LimitConfig): SignInGuard {
+  const window = config.RATE_LIMIT_WINDOW_MINUTES * 60;
+  const perIp = limiter(db, 'signin-ip', config.RATE_LIMIT_PER_IP, window);
+  const perEmail = limiter(db, 'signin-email-ip', config.RATE_LIMIT_PER_EMAIL, window);
+  // Failures per account (or per known device of it), remembered for a day; the wait is a block.
+  const failures = limiter(db, 'signin-account', 1_000_000, ACCOUNT_MEMORY_SECONDS);
+  const waits = limiter(db, 'signin-account-wait', 1, MAX_ACCOUNT_DELAY_SECONDS);
+  const { accountKey, issue } = deviceCookies(config.JWT_SECRET);
 
   return {
     check: async (req, res, next) => {
@@ -121,8 +132,7 @@ export function createSignInGuard(db: Db, config: LimitConfig): SignInGuard {
         await Promise.all([failures.delete(key), waits.delete(key)]);
         return;
       }
-      const nonce = randomBytes(16).toString('base64url');
-      res.cookie(DEVICE_COOKIE, `${nonce}.${sign(email, nonce)}`, {
+      res.cookie(DEVICE_COOKIE, issue(email), {
         httpOnly: true,
         sameSite: 'strict',
         ...cookieOptions,

@@ -127,106 +127,126 @@ export function extentWords(c: Compartment, q: (v: number, d: Dimension) => stri
 
 const SHAPE_WORDS: Record<Boundary['geometry']['kind'], string> = { polygon: 'flat outline', rectangle: 'rectangle', circle: 'circle', faceted: 'curved, in flat facets' };
 
-export function renderReport(d: ReportData): string {
-  const q = (v: number, dim: Dimension, digits = 4) => formatQuantity(v, dim, d.units, digits).text;
-  // stresses in the unit the forms take them in (MPa or ksi), not as a pressure in kPa
-  const stress = (pa: number) => formatStress(pa, d.units);
+type Q = (v: number, dim: Dimension, digits?: number) => string;
+
+/** What every part of the report needs: unit formatting, names, marks, the condition, verdicts and results by id. */
+function reportContext(d: ReportData) {
+  const q: Q = (v, dim, digits = 4) => formatQuantity(v, dim, d.units, digits).text;
   const doc = d.doc;
   const r = d.results;
   const names = namesFromSurvey(doc);
-  // the forecast as the master's brief words it, with its volume balance (only beside computed results)
-  const forecast = r ? nearestLimitWords(doc, d.units) : null;
-  const condition = doc.conditions.find((c) => c.id === doc.activeConditionId) ?? doc.conditions[0]!;
-  const offset = doc.vessel.shipTimeOffsetMin;
   const notes = figureNotes(doc);
   const markOn = (entityId: string, field: string) => notes.find((n) => n.entityId === entityId && n.field === field);
   const chip = (entityId: string, field: string) => {
     const n = markOn(entityId, field);
     return n ? html` <span class="mark">${n.mark}</span>` : '';
   };
-  const sideWords = (s: Boundary['sideA']) => (s.kind === 'sea' ? 'the sea' : s.kind === 'air' ? 'open air' : names.compartment(s.compartmentId));
   // A verdict given on an older revision of a survey not accepted or under review since: say so beside it.
   const reviewedNow = d.status === 'accepted' || d.status === 'in_review';
   const staleVerdict = (v: Verdict) =>
     !reviewedNow && v.revision < d.revision ? html` <strong class="over">Given on revision ${v.revision}; the figures above (revision ${d.revision}) are not reviewed.</strong>` : '';
-  const verdictOf = new Map(d.verdicts.filter((v) => v.scope === 'boundary').map((v) => [v.boundaryId, v]));
-  const surveyVerdict = d.verdicts.find((v) => v.scope === 'survey');
-  const resultOf = new Map((r?.boundaries ?? []).map((b) => [b.id, b]));
-  const held = new Map((r?.withheld ?? []).map((w) => [w.entityId, w]));
-  const dr = condition.drafts;
-  const draft = (v: number | undefined, field: string) => (v === undefined ? html`<span class="muted">not read</span>` : html`${q(v, 'length')}${chip(condition.id, field)}`);
-
-  // what lets water in and out of a space: breaches, openings to other spaces, pumps (inputs of the flooding forecast)
-  const floodingInputs = (c: Compartment): SafeHtml | string => {
-    const lines = [
-      ...(c.breaches ?? []).map((b) => `Breach to the sea: ${openingWords(b, d.units)} at ${pointWords(b.position, d.units)}`),
-      ...(c.openings ?? []).map((o) => `Opening to ${doc.compartments.find((x) => x.id === o.toCompartmentId)?.name ?? 'a space since removed'}: ${openingWords(o, d.units)} at ${pointWords(o.position, d.units)}`),
-      ...(c.pumps ?? []).map((p) => `Pump ${p.name}: ${q(p.capacityM3S, 'flow')}${p.running === false ? ', stopped' : ''}`),
-    ];
-    return lines.length ? html`${lines.map((l) => html`<div class="muted">${l}</div>`)}` : '';
+  return {
+    d,
+    q,
+    // stresses in the unit the forms take them in (MPa or ksi), not as a pressure in kPa
+    stress: (pa: number) => formatStress(pa, d.units),
+    doc,
+    r,
+    names,
+    notes,
+    chip,
+    staleVerdict,
+    condition: doc.conditions.find((c) => c.id === doc.activeConditionId) ?? doc.conditions[0]!,
+    sideWords: (s: Boundary['sideA']) => (s.kind === 'sea' ? 'the sea' : s.kind === 'air' ? 'open air' : names.compartment(s.compartmentId)),
+    verdictOf: new Map(d.verdicts.filter((v) => v.scope === 'boundary').map((v) => [v.boundaryId, v])),
+    held: new Map((r?.withheld ?? []).map((w) => [w.entityId, w])),
   };
+}
+type ReportContext = ReturnType<typeof reportContext>;
 
-  const spaceRows = doc.compartments.map((c) => {
-    const res = r?.compartments.find((x) => x.id === c.id);
-    const k = condition.contents.find((x) => x.compartmentId === c.id);
-    const layers = k?.layers ?? [];
-    return html`<tr>
+/** What lets water in and out of a space: breaches, openings to other spaces, pumps (inputs of the flooding forecast). */
+function floodingInputs({ d, doc, q }: ReportContext, c: Compartment): SafeHtml | string {
+  const lines = [
+    ...(c.breaches ?? []).map((b) => `Breach to the sea: ${openingWords(b, d.units)} at ${pointWords(b.position, d.units)}`),
+    ...(c.openings ?? []).map((o) => `Opening to ${doc.compartments.find((x) => x.id === o.toCompartmentId)?.name ?? 'a space since removed'}: ${openingWords(o, d.units)} at ${pointWords(o.position, d.units)}`),
+    ...(c.pumps ?? []).map((p) => `Pump ${p.name}: ${q(p.capacityM3S, 'flow')}${p.running === false ? ', stopped' : ''}`),
+  ];
+  return lines.length ? html`${lines.map((l) => html`<div class="muted">${l}</div>`)}` : '';
+}
+
+function spaceRow(ctx: ReportContext, c: Compartment): SafeHtml {
+  const { d, doc, r, q, chip, condition, held } = ctx;
+  const res = r?.compartments.find((x) => x.id === c.id);
+  const k = condition.contents.find((x) => x.compartmentId === c.id);
+  const layers = k?.layers ?? [];
+  return html`<tr>
 <th scope="row">${c.name}<div class="muted">${SPACE_TYPE_WORDS[c.spaceType]}${c.openToSea ? ', open to the sea' : ''}</div></th>
-<td data-label="Extent">${extentWords(c, q)}${floodingInputs(c)}</td>
+<td data-label="Extent">${extentWords(c, q)}${floodingInputs(ctx, c)}</td>
 <td class="num" data-label="Permeability">${formatNumber(res?.permeability ?? c.permeability ?? defaultPermeability(c.spaceType, c.cargoState).value, 3)}${chip(c.id, 'permeability')}${c.permeability === undefined ? html`<div class="muted">${res?.permeabilitySource ?? defaultPermeability(c.spaceType, c.cargoState).source}</div>` : ''}</td>
 <td data-label="Contents">${layers.length === 0 ? html`<span class="muted">${c.openToSea ? 'floods to the waterline' : 'dry'}</span>` : layers.map((l) => {
-      const fluid = doc.fluids.find((f) => f.id === l.fluidId)?.name ?? catalogueFluid(l.fluidId)?.name ?? l.fluidId;
-      return html`<div>${fluid}: ${levelWords(l.level, q)}${chip(l.id, 'level')}${l.densityKgM3 !== undefined ? html`, density ${q(l.densityKgM3, 'density')}` : chip(l.id, 'densityKgM3')}</div>`;
-    })}</td>
+    const fluid = doc.fluids.find((f) => f.id === l.fluidId)?.name ?? catalogueFluid(l.fluidId)?.name ?? l.fluidId;
+    return html`<div>${fluid}: ${levelWords(l.level, q)}${chip(l.id, 'level')}${l.densityKgM3 !== undefined ? html`, density ${q(l.densityKgM3, 'density')}` : chip(l.id, 'densityKgM3')}</div>`;
+  })}</td>
 <td class="num" data-label="Liquid">${res ? html`${q(res.liquid.volumeM3, 'volume')}<br>${q(res.liquid.massKg, 'mass')}${res.tank ? html`<div class="muted">${tankWords(res.tank, d.units)}</div>` : ''}` : held.has(c.id) ? html`<span class="muted">not shown</span>` : '—'}</td>
 </tr>`;
+}
+
+/** A shore's section and design method in words. */
+function shoreWords({ q, stress }: ReportContext, s: NonNullable<Boundary['shores']>[number]): { sec: string; design: string } {
+  const sec = s.section.kind === 'rectangular' ? `${q(s.section.widthM, 'length')} × ${q(s.section.depthM, 'length')}` : s.section.kind === 'tube' ? `tube ${q(s.section.outerDiameterM, 'length')} × ${q(s.section.wallThicknessM, 'length')}` : `area ${q(s.section.areaM2, 'area')}`;
+  const design = s.design?.method === 'aisc-360-e3' ? `AISC 360 §E3, Fy ${stress(s.design.yieldStressPa)}` : s.design?.method === 'nds-3.7.1' ? `NDS §3.7.1, Fc* ${stress(s.design.adjustedCompressionPa)}, E′min ${stress(s.design.adjustedEMinPa)}` : s.design?.method === 'generic' ? `crushing ${stress(s.design.failureStressPa)} ÷ ${formatNumber(s.design.designFactor, 3)}` : 'no design method (Euler ÷ 2)';
+  return { sec, design };
+}
+
+/** The boundary's inputs as table rows: sides, shape, stiffeners, shores, plating, ratings. */
+function boundaryInputs(ctx: ReportContext, b: Boundary): SafeHtml[] {
+  const { d, q, stress, chip, names, sideWords } = ctx;
+  const st = b.stiffening;
+  const inputs: SafeHtml[] = [
+    html`<tr><th scope="row">Between</th><td>side A: ${sideWords(b.sideA)}; side B: ${sideWords(b.sideB)}</td></tr>`,
+    html`<tr><th scope="row">Shape</th><td>${SHAPE_WORDS[b.geometry.kind]}${b.parentBoundaryId ? html`, set in ${names.boundary(b.parentBoundaryId)}` : ''}</td></tr>`,
+  ];
+  if (st) {
+    inputs.push(
+      html`<tr><th scope="row">Stiffeners</th><td>${q(st.spacingM, 'length')} apart, ${st.endFixity === 'fixed' ? 'fixed ends' : 'simply supported'}, section modulus ${q(st.sectionModulusM3, 'sectionModulus')}${chip(b.id, 'stiffening.sectionModulusM3')}, allowable stress ${stress(st.allowableStressPa)}${chip(b.id, 'stiffening.allowableStressPa')}</td></tr>`,
+    );
+  }
+  (b.shores ?? []).forEach((s, i) => {
+    const { sec, design } = shoreWords(ctx, s);
+    inputs.push(html`<tr><th scope="row">Shore ${i + 1}</th><td>${sec}, length ${q(s.lengthM, 'length')}, stands on side ${s.side}, ${END_CONDITION_WORDS[s.endCondition]}, head at ${pointWords(s.position, d.units)}; ${design}${chip(b.id, `shores.${s.id}.section`)}</td></tr>`);
   });
+  if (b.plating) {
+    const pl = b.plating;
+    const t = (m: number) => (d.units === 'us' ? `${formatNumber(m / 0.0254, 3)} in` : `${formatNumber(m * 1000, 3)} mm`);
+    inputs.push(html`<tr><th scope="row">Plating</th><td>${t(pl.thicknessM)} thick${chip(b.id, 'plating.thicknessM')}, corrosion allowance ${t(pl.corrosionAllowanceM ?? 0)}, yield ${stress(pl.yieldStressPa)}, allowable ${stress(pl.allowableStressPa)}${chip(b.id, 'plating.allowableStressPa')}, edges ${pl.edges === 'fixed' ? 'fixed' : 'simply supported'}</td></tr>`);
+  }
+  if (b.ratedCapacity) {
+    inputs.push(html`<tr><th scope="row">Rated either way</th><td>${b.ratedCapacity.kind === 'pressure' ? q(b.ratedCapacity.pressurePa, 'pressure') : q(b.ratedCapacity.forceN, 'force')}${chip(b.id, 'ratedCapacity')}</td></tr>`);
+  }
+  const dc = b.directionalCapacity;
+  if (dc) {
+    const dim: Dimension = dc.kind === 'pressure' ? 'pressure' : 'force';
+    inputs.push(
+      html`<tr><th scope="row">Rated by direction</th><td>towards side B (${sideWords(b.sideB)}): ${dc.towardsB === undefined ? 'not rated' : q(dc.towardsB, dim)}; towards side A (${sideWords(b.sideA)}): ${dc.towardsA === undefined ? 'not rated' : q(dc.towardsA, dim)}</td></tr>`,
+    );
+  }
+  return inputs;
+}
 
-  const boundarySections = doc.boundaries.map((b) => boundarySection(b, resultOf.get(b.id) ?? null));
+function checksTable({ d, sideWords }: ReportContext, b: Boundary, res: BoundaryResult): SafeHtml | '' {
+  const rows = structureCheckRows(res, d.units, { A: sideWords(b.sideA), B: sideWords(b.sideB) }, b);
+  return rows.length
+    ? html`<table><thead><tr><th scope="col">Check</th><th scope="col">Load</th><th scope="col">Allowed</th><th scope="col" class="num">Use</th></tr></thead><tbody>${rows.map(
+        (c) => html`<tr><th scope="row">${c.check}${c.note ? html`<div class="muted">${c.note}</div>` : ''}</th><td>${c.load}</td><td>${c.capacity}</td><td class="num ${c.utilisation !== null && c.utilisation > 1 ? 'over' : ''}">${c.utilisation === null ? '—' : `${formatNumber(c.utilisation * 100, 3)} %`}</td></tr>`,
+      )}</tbody></table>`
+    : '';
+}
 
-  function boundarySection(b: Boundary, res: BoundaryResult | null): SafeHtml {
-    const v = verdictOf.get(b.id);
-    const st = b.stiffening;
-    const inputs: SafeHtml[] = [
-      html`<tr><th scope="row">Between</th><td>side A: ${sideWords(b.sideA)}; side B: ${sideWords(b.sideB)}</td></tr>`,
-      html`<tr><th scope="row">Shape</th><td>${SHAPE_WORDS[b.geometry.kind]}${b.parentBoundaryId ? html`, set in ${names.boundary(b.parentBoundaryId)}` : ''}</td></tr>`,
-    ];
-    if (st) {
-      inputs.push(
-        html`<tr><th scope="row">Stiffeners</th><td>${q(st.spacingM, 'length')} apart, ${st.endFixity === 'fixed' ? 'fixed ends' : 'simply supported'}, section modulus ${q(st.sectionModulusM3, 'sectionModulus')}${chip(b.id, 'stiffening.sectionModulusM3')}, allowable stress ${stress(st.allowableStressPa)}${chip(b.id, 'stiffening.allowableStressPa')}</td></tr>`,
-      );
-    }
-    (b.shores ?? []).forEach((s, i) => {
-      const sec = s.section.kind === 'rectangular' ? `${q(s.section.widthM, 'length')} × ${q(s.section.depthM, 'length')}` : s.section.kind === 'tube' ? `tube ${q(s.section.outerDiameterM, 'length')} × ${q(s.section.wallThicknessM, 'length')}` : `area ${q(s.section.areaM2, 'area')}`;
-      const design = s.design?.method === 'aisc-360-e3' ? `AISC 360 §E3, Fy ${stress(s.design.yieldStressPa)}` : s.design?.method === 'nds-3.7.1' ? `NDS §3.7.1, Fc* ${stress(s.design.adjustedCompressionPa)}, E′min ${stress(s.design.adjustedEMinPa)}` : s.design?.method === 'generic' ? `crushing ${stress(s.design.failureStressPa)} ÷ ${formatNumber(s.design.designFactor, 3)}` : 'no design method (Euler ÷ 2)';
-      inputs.push(html`<tr><th scope="row">Shore ${i + 1}</th><td>${sec}, length ${q(s.lengthM, 'length')}, stands on side ${s.side}, ${END_CONDITION_WORDS[s.endCondition]}, head at ${pointWords(s.position, d.units)}; ${design}${chip(b.id, `shores.${s.id}.section`)}</td></tr>`);
-    });
-    if (b.plating) {
-      const pl = b.plating;
-      const t = (m: number) => (d.units === 'us' ? `${formatNumber(m / 0.0254, 3)} in` : `${formatNumber(m * 1000, 3)} mm`);
-      inputs.push(html`<tr><th scope="row">Plating</th><td>${t(pl.thicknessM)} thick${chip(b.id, 'plating.thicknessM')}, corrosion allowance ${t(pl.corrosionAllowanceM ?? 0)}, yield ${stress(pl.yieldStressPa)}, allowable ${stress(pl.allowableStressPa)}${chip(b.id, 'plating.allowableStressPa')}, edges ${pl.edges === 'fixed' ? 'fixed' : 'simply supported'}</td></tr>`);
-    }
-    if (b.ratedCapacity) {
-      inputs.push(html`<tr><th scope="row">Rated either way</th><td>${b.ratedCapacity.kind === 'pressure' ? q(b.ratedCapacity.pressurePa, 'pressure') : q(b.ratedCapacity.forceN, 'force')}${chip(b.id, 'ratedCapacity')}</td></tr>`);
-    }
-    const dc = b.directionalCapacity;
-    if (dc) {
-      const dim: Dimension = dc.kind === 'pressure' ? 'pressure' : 'force';
-      inputs.push(
-        html`<tr><th scope="row">Rated by direction</th><td>towards side B (${sideWords(b.sideB)}): ${dc.towardsB === undefined ? 'not rated' : q(dc.towardsB, dim)}; towards side A (${sideWords(b.sideA)}): ${dc.towardsA === undefined ? 'not rated' : q(dc.towardsA, dim)}</td></tr>`,
-      );
-    }
-    const w = held.get(b.id);
-    const checksTable = (res: BoundaryResult): SafeHtml | '' => {
-      const rows = structureCheckRows(res, d.units, { A: sideWords(b.sideA), B: sideWords(b.sideB) }, b);
-      return rows.length
-        ? html`<table><thead><tr><th scope="col">Check</th><th scope="col">Load</th><th scope="col">Allowed</th><th scope="col" class="num">Use</th></tr></thead><tbody>${rows.map(
-            (c) => html`<tr><th scope="row">${c.check}${c.note ? html`<div class="muted">${c.note}</div>` : ''}</th><td>${c.load}</td><td>${c.capacity}</td><td class="num ${c.utilisation !== null && c.utilisation > 1 ? 'over' : ''}">${c.utilisation === null ? '—' : `${formatNumber(c.utilisation * 100, 3)} %`}</td></tr>`,
-          )}</tbody></table>`
-        : '';
-    };
-    const out = res
-      ? html`<table><tbody>
+/** The boundary's loads, or why it has none. */
+function boundaryResults({ d, q, held }: ReportContext, b: Boundary, res: BoundaryResult | null): SafeHtml {
+  const w = held.get(b.id);
+  return res
+    ? html`<table><tbody>
 <tr><th scope="row">Net force</th><td class="num">${q(Math.abs(res.net.resultantN), 'force')}</td><td>${res.net.forceN >= 0 ? 'pushes towards side B' : 'pushes towards side A'}</td></tr>
 <tr><th scope="row">Side A alone</th><td class="num">${q(res.sideA.forceN, 'force')}</td><td>peak ${q(res.sideA.peakPressurePa, 'pressure')}</td></tr>
 <tr><th scope="row">Side B alone</th><td class="num">${q(res.sideB.forceN, 'force')}</td><td>peak ${q(res.sideB.peakPressurePa, 'pressure')}</td></tr>
@@ -235,18 +255,22 @@ export function renderReport(d: ReportData): string {
 <tr><th scope="row">Loaded area</th><td class="num">${q(res.areaM2, 'area')}</td><td></td></tr>
 <tr><th scope="row">Utilisation</th><td class="num ${res.maxUtilisation !== null && res.maxUtilisation > 1 ? 'over' : ''}">${res.maxUtilisation === null ? 'nothing rated' : `${formatNumber(res.maxUtilisation * 100, 3)} %`}</td><td>${res.maxUtilisation !== null && res.maxUtilisation > 1 ? html`<span class="over">▲ OVER CAPACITY</span>` : ''}</td></tr>
 </tbody></table>`
-      : html`<p class="over">${w ? withheldSentence(w) : 'No result for this plate.'}</p>`;
-    return html`<section class="boundary" data-boundary="${b.name}">
-<h3>${b.name} <span class="muted">(${boundaryKindWords(b.kind)})</span></h3>
-<div class="grid"><div><p class="muted">Inputs</p><table><tbody>${inputs}</tbody></table></div><div><p class="muted">Results</p>${out}</div></div>
-${res ? checksTable(res) : ''}
-<p>Reviewer: ${v ? html`<strong>${boundaryVerdictLabel(v.verdict)}</strong>: ${boundaryVerdictMeaning(v.verdict)}.${v.note ? html` ${v.note}` : ''}${staleVerdict(v)}` : html`<span class="muted">no verdict</span>`}</p>
-</section>`;
-  }
+    : html`<p class="over">${w ? withheldSentence(w) : 'No result for this plate.'}</p>`;
+}
 
-  const assumed = notes.filter((n) => n.mark === 'assumed');
-  const estimated = notes.filter((n) => n.mark === 'estimated');
-  const body = html`
+function boundarySection(ctx: ReportContext, b: Boundary, res: BoundaryResult | null): SafeHtml {
+  const v = ctx.verdictOf.get(b.id);
+  return html`<section class="boundary" data-boundary="${b.name}">
+<h3>${b.name} <span class="muted">(${boundaryKindWords(b.kind)})</span></h3>
+<div class="grid"><div><p class="muted">Inputs</p><table><tbody>${boundaryInputs(ctx, b)}</tbody></table></div><div><p class="muted">Results</p>${boundaryResults(ctx, b, res)}</div></div>
+${res ? checksTable(ctx, b, res) : ''}
+<p>Reviewer: ${v ? html`<strong>${boundaryVerdictLabel(v.verdict)}</strong>: ${boundaryVerdictMeaning(v.verdict)}.${v.note ? html` ${v.note}` : ''}${ctx.staleVerdict(v)}` : html`<span class="muted">no verdict</span>`}</p>
+</section>`;
+}
+
+/** The report's head: vessel, title, revision, status, engine version, units. */
+function reportHeader({ d, doc, r }: ReportContext): SafeHtml {
+  return html`
 <header>
 <p class="muted">Calculation report · ${d.organisationName}</p>
 <h1>${doc.vessel.name}${doc.vessel.imo ? html` <span class="muted">IMO ${doc.vessel.imo}</span>` : ''}</h1>
@@ -256,33 +280,28 @@ ${res ? checksTable(res) : ''}
 <tr><td>Engine version</td><td><strong>${r?.engineVersion ?? '—'}</strong></td><td>Printed</td><td>${formatUtc(d.generatedAt)}</td></tr>
 <tr><td>Figures in</td><td>${d.units === 'us' ? 'US customary units' : 'SI units'}</td><td>Signs</td><td>net force positive from side A towards side B</td></tr>
 </tbody></table>
-</header>
-<h2>Casualty</h2>
-<p>${doc.casualtyDescription || '—'}</p>
-<h2>Vessel</h2>
-<p>Length between perpendiculars ${q(doc.vessel.lbpM, 'length')}, breadth ${q(doc.vessel.breadthM, 'length')}, depth ${q(doc.vessel.depthM, 'length')}; draught marks aft at x ${q(doc.vessel.draughtMarks.aftXM, 'length')}, forward at x ${q(doc.vessel.draughtMarks.forwardXM, 'length')}.</p>
-<h2>Condition and readings</h2>
-<p><strong>${condition.name ?? 'Readings'}</strong>, taken ${formatShipAndUtc(condition.time, offset)}.</p>
-<table><tbody>
+</header>`;
+}
+
+/** The readings' table: drafts, heel, sea density, and the heel and trim the engine used. */
+function readingsTable({ q, r, chip, condition }: ReportContext): SafeHtml {
+  const dr = condition.drafts;
+  const draft = (v: number | undefined, field: string) => (v === undefined ? html`<span class="muted">not read</span>` : html`${q(v, 'length')}${chip(condition.id, field)}`);
+  return html`<table><tbody>
 <tr><th scope="row">Draft aft</th><td>${draft(dr.aftM, 'drafts.aftM')}</td><th scope="row">Draft forward</th><td>${draft(dr.forwardM, 'drafts.forwardM')}</td></tr>
 <tr><th scope="row">Midship port</th><td>${draft(dr.midPortM, 'drafts.midPortM')}</td><th scope="row">Midship starboard</th><td>${draft(dr.midStarboardM, 'drafts.midStarboardM')}</td></tr>
 <tr><th scope="row">Heel (inclinometer)</th><td>${condition.heelDeg === undefined ? html`<span class="muted">not read</span>` : html`${formatNumber(condition.heelDeg, 3)}° ${condition.heelDeg > 0 ? 'starboard' : condition.heelDeg < 0 ? 'port' : ''}${chip(condition.id, 'heelDeg')}`}</td>
 <th scope="row">Sea water density</th><td>${q(condition.seaDensityKgM3 ?? 1025, 'density')}${chip(condition.id, 'seaDensityKgM3')}</td></tr>
 ${r && (r.frame.missingReadings ?? []).length === 0 ? html`<tr><th scope="row">Heel used</th><td>${formatNumber(Math.abs(r.frame.heelDeg), 3)}° ${r.frame.heelDeg > 0 ? 'starboard' : r.frame.heelDeg < 0 ? 'port' : ''} (from ${r.frame.heelSource})</td><th scope="row">Trim</th><td>${q(Math.abs(r.frame.trimM), 'length')} ${r.frame.trimM > 0 ? 'by the stern' : r.frame.trimM < 0 ? 'by the head' : ''}</td></tr>` : ''}
-</tbody></table>
-<h2>Methods and sources</h2>
-<ol>${METHODS.map((m) => html`<li>${m.what}. <span class="muted">Source: ${m.source}.</span></li>`)}</ol>
-<h2>Spaces and contents</h2>
-<table class="stack"><thead><tr><th scope="col">Space</th><th scope="col">Extent</th><th scope="col" class="num">Permeability</th><th scope="col">Contents (readings)</th><th scope="col" class="num">Liquid</th></tr></thead><tbody>${spaceRows}</tbody></table>
-${r ? html`<p>Flood water aboard ${q(r.ship.floodWater.massKg, 'mass')}, oil ${q(r.ship.oil.massKg, 'mass')}${r.ship.tankContents.massKg > 0 ? html`, tanks' own liquid (not flood water) ${q(r.ship.tankContents.massKg, 'mass')}` : ''}.</p>` : ''}
-<h2>Boundaries (${doc.boundaries.length})</h2>
-${boundarySections}
-${forecast ? html`<h2>Flooding forecast</h2>
-<p><strong>${forecast.sentence}</strong></p>
-${forecast.downflooding.length ? html`<ul>${forecast.downflooding.map((t) => html`<li>${t}</li>`)}</ul>` : ''}
-<p class="muted">${forecast.attitude}: ${forecast.assumptions}</p>
-<p>${forecast.balance}</p>` : ''}
-<h2>Warnings</h2>
+</tbody></table>`;
+}
+
+/** From the warnings to the signatures: warnings, assumed and estimated figures, verdicts, limits, cautions. */
+function reportClosing({ d, r, notes, names, staleVerdict }: ReportContext): SafeHtml {
+  const assumed = notes.filter((n) => n.mark === 'assumed');
+  const estimated = notes.filter((n) => n.mark === 'estimated');
+  const surveyVerdict = d.verdicts.find((v) => v.scope === 'survey');
+  return html`<h2>Warnings</h2>
 ${r && r.warnings.length ? html`<ul>${r.warnings.map((w) => html`<li class="${w.severity === 'danger' ? 'over' : ''}">${w.message}</li>`)}</ul>` : html`<p class="muted">None.</p>`}
 <h2>Assumptions and estimates</h2>
 ${assumed.length ? html`<p>Assumed (defaults not confirmed):</p><ul>${assumed.map((n) => html`<li>${figureNoteSentence(n)}</li>`)}</ul>` : html`<p class="muted">No assumed figures.</p>`}
@@ -295,6 +314,41 @@ ${d.limits.length ? html`<ol>${d.limits.map((l) => html`<li>${describeLimit(l, n
 <div>Prepared by: ${d.surveyorName ?? ''}<br>Signature and date</div>
 <div>Checked by: ${d.reviewedBy ?? ''}${d.reviewedAt ? html`, ${formatUtc(d.reviewedAt)}` : ''}<br>Signature and date</div>
 </section>`;
+}
+
+/** The forecast as the master's brief words it, with its volume balance (only beside computed results). */
+function forecastSection({ d, doc, r }: ReportContext): SafeHtml | '' {
+  const forecast = r ? nearestLimitWords(doc, d.units) : null;
+  return forecast
+    ? html`<h2>Flooding forecast</h2>
+<p><strong>${forecast.sentence}</strong></p>
+${forecast.downflooding.length ? html`<ul>${forecast.downflooding.map((t) => html`<li>${t}</li>`)}</ul>` : ''}
+<p class="muted">${forecast.attitude}: ${forecast.assumptions}</p>
+<p>${forecast.balance}</p>`
+    : '';
+}
+
+export function renderReport(d: ReportData): string {
+  const ctx = reportContext(d);
+  const { doc, r, q, condition } = ctx;
+  const resultOf = new Map((r?.boundaries ?? []).map((b) => [b.id, b]));
+  const body = html`${reportHeader(ctx)}
+<h2>Casualty</h2>
+<p>${doc.casualtyDescription || '—'}</p>
+<h2>Vessel</h2>
+<p>Length between perpendiculars ${q(doc.vessel.lbpM, 'length')}, breadth ${q(doc.vessel.breadthM, 'length')}, depth ${q(doc.vessel.depthM, 'length')}; draught marks aft at x ${q(doc.vessel.draughtMarks.aftXM, 'length')}, forward at x ${q(doc.vessel.draughtMarks.forwardXM, 'length')}.</p>
+<h2>Condition and readings</h2>
+<p><strong>${condition.name ?? 'Readings'}</strong>, taken ${formatShipAndUtc(condition.time, doc.vessel.shipTimeOffsetMin)}.</p>
+${readingsTable(ctx)}
+<h2>Methods and sources</h2>
+<ol>${METHODS.map((m) => html`<li>${m.what}. <span class="muted">Source: ${m.source}.</span></li>`)}</ol>
+<h2>Spaces and contents</h2>
+<table class="stack"><thead><tr><th scope="col">Space</th><th scope="col">Extent</th><th scope="col" class="num">Permeability</th><th scope="col">Contents (readings)</th><th scope="col" class="num">Liquid</th></tr></thead><tbody>${doc.compartments.map((c) => spaceRow(ctx, c))}</tbody></table>
+${r ? html`<p>Flood water aboard ${q(r.ship.floodWater.massKg, 'mass')}, oil ${q(r.ship.oil.massKg, 'mass')}${r.ship.tankContents.massKg > 0 ? html`, tanks' own liquid (not flood water) ${q(r.ship.tankContents.massKg, 'mass')}` : ''}.</p>` : ''}
+<h2>Boundaries (${doc.boundaries.length})</h2>
+${doc.boundaries.map((b) => boundarySection(ctx, b, resultOf.get(b.id) ?? null))}
+${forecastSection(ctx)}
+${reportClosing(ctx)}`;
 
   return `<!doctype html>
 <html lang="en">
