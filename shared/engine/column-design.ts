@@ -82,6 +82,10 @@ export interface ColumnCheck {
   columnStabilityFactor: number | null;
 }
 
+// the labels that depend on no input, built once (a survey may hold thousands of shores)
+const LEGACY_LABEL = `no design method: Euler ÷ ${LEGACY_DESIGN_FACTOR} or allowable stress, the smaller`;
+const AISC_E3_LABEL = `AISC 360-16 §E3 flexural buckling, ASD (Ωc = ${AISC_OMEGA_C})`;
+
 /**
  * The design check of one shore. `design` absent (documents written before design methods):
  * capacity = min(Euler / 2, area × allowable stress), flagged as "no design method".
@@ -93,7 +97,7 @@ export function columnCheck(design: ShoreDesign | undefined, sec: SectionPropert
   if (!design) {
     const cap = Math.min(pe / LEGACY_DESIGN_FACTOR, sec.areaM2 * allowableStressPa);
     return {
-      method: 'legacy', methodLabel: `no design method: Euler ÷ ${LEGACY_DESIGN_FACTOR} or allowable stress, the smaller`,
+      method: 'legacy', methodLabel: LEGACY_LABEL,
       designCapacityN: cap, eulerLoadN: pe, slenderness: klr, slendernessName: 'KL/r', slendernessExceeded: false,
       slendernessLimit: Infinity, designStressPa: cap / sec.areaM2, columnStabilityFactor: null,
     };
@@ -102,7 +106,7 @@ export function columnCheck(design: ShoreDesign | undefined, sec: SectionPropert
     case 'aisc-360-e3': {
       const e3 = aiscE3(klr, design.yieldStressPa, ePa);
       return {
-        method: design.method, methodLabel: `AISC 360-16 §E3 flexural buckling, ASD (Ωc = ${AISC_OMEGA_C})`,
+        method: design.method, methodLabel: AISC_E3_LABEL,
         designCapacityN: e3.asdPa * sec.areaM2, eulerLoadN: pe, slenderness: klr, slendernessName: 'KL/r',
         slendernessExceeded: klr > AISC_KL_R_NOTE, slendernessLimit: AISC_KL_R_NOTE, designStressPa: e3.asdPa, columnStabilityFactor: null,
       };

@@ -346,3 +346,12 @@ export const PullResponseSchema = z.object({
   serverTime: z.string(),
 });
 export type PullResponse = z.infer<typeof PullResponseSchema>;
+
+/**
+ * The pull's answer as a device reads it: everything checked but each survey's document, which the
+ * device checks against the copy it already holds (`mergeServerSurveys` in
+ * client/src/offline/survey-store.ts), so a 2,000-boundary survey costs what changed, not a full parse.
+ */
+export const PulledSurveySchema = SyncedSurveySchema.extend({ doc: z.unknown() });
+export type PulledSurvey = z.infer<typeof PulledSurveySchema>;
+export const PullEnvelopeSchema = PullResponseSchema.extend({ surveys: z.array(PulledSurveySchema) });

@@ -4,30 +4,24 @@
  * TCP proxy the test can cut and restore.
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { inject } from 'vitest';
 import { ErrorBodySchema } from '@shared/api/errors';
-import { startTestApp, type TestApp } from '../support/app';
-import { authHeader, createOrgWithMembers, TEST_PASSWORD, type TestOrg } from '../support/auth';
+import type { TestApp } from '../support/app';
+import { authHeader, TEST_PASSWORD, type TestOrg } from '../support/auth';
 import { storeSurvey, tokenFor } from '../support/surveys';
-import { createDb, type Db } from '../../server/db/knex';
-import { startPgProxy, type PgProxy } from '../support/pg-proxy';
+import type { Db } from '../../server/db/knex';
+import { startAppThroughProxy, type PgProxy } from '../support/pg-proxy';
 
 let t: TestApp;
 let direct: Db;
 let org: TestOrg;
 let proxy: PgProxy;
+let close: () => Promise<void>;
 
 beforeAll(async () => {
-  direct = createDb(inject('testEnv').DATABASE_URL);
-  proxy = await startPgProxy(inject('testEnv').DATABASE_URL);
-  t = await startTestApp({ DATABASE_URL: proxy.url, RATE_LIMIT_PER_EMAIL: '3', RATE_LIMIT_PER_IP: '6', RATE_LIMIT_PER_ACCOUNT: '3' });
-  org = await createOrgWithMembers(direct);
+  ({ t, direct, org, proxy, close } = await startAppThroughProxy({ RATE_LIMIT_PER_EMAIL: '3', RATE_LIMIT_PER_IP: '6', RATE_LIMIT_PER_ACCOUNT: '3' }));
 });
 afterAll(async () => {
-  proxy?.restore();
-  await t?.close();
-  await direct?.destroy();
-  await proxy?.close();
+  await close?.();
 });
 
 describe('PostgreSQL down', () => {

@@ -7,32 +7,27 @@
  * "Connection terminated unexpectedly", and the outage test looked for that text at the start.)
  */
 import { randomUUID } from 'node:crypto';
-import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { ErrorBodySchema } from '@shared/api/errors';
 import { PushResponseSchema } from '@shared/schemas/sync';
-import { startTestApp, type TestApp } from '../support/app';
-import { authHeader, createOrgWithMembers, type TestOrg } from '../support/auth';
+import type { TestApp } from '../support/app';
+import { authHeader, type TestOrg } from '../support/auth';
 import { change, newSurvey, tokenFor } from '../support/surveys';
-import { startPgProxy, type PgProxy } from '../support/pg-proxy';
-import { createDb, type Db } from '../../server/db/knex';
+import { startAppThroughProxy, type PgProxy } from '../support/pg-proxy';
+import type { Db } from '../../server/db/knex';
 import { isDatabaseUnavailable, outageOutcomeUnknown } from '../../server/middleware/errors';
 
 let t: TestApp;
 let direct: Db;
 let org: TestOrg;
 let proxy: PgProxy;
+let close: () => Promise<void>;
 
 beforeAll(async () => {
-  direct = createDb(inject('testEnv').DATABASE_URL);
-  proxy = await startPgProxy(inject('testEnv').DATABASE_URL);
-  t = await startTestApp({ DATABASE_URL: proxy.url });
-  org = await createOrgWithMembers(direct);
+  ({ t, direct, org, proxy, close } = await startAppThroughProxy());
 });
 afterAll(async () => {
-  proxy?.restore();
-  await t?.close();
-  await direct?.destroy();
-  await proxy?.close();
+  await close?.();
 });
 
 describe('a write whose outcome is unknown', () => {

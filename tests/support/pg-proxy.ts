@@ -4,6 +4,10 @@
  * PostgreSQL has carried out a statement and before its answer reaches the app (`breakAfterSending`).
  */
 import net from 'node:net';
+import { inject } from 'vitest';
+import { createDb, type Db } from '../../server/db/knex';
+import { startTestApp, type TestApp } from './app';
+import { createOrgWithMembers, type TestOrg } from './auth';
 
 export interface PgProxy {
   /** DATABASE_URL for the app, through the proxy. */
@@ -71,6 +75,35 @@ export async function startPgProxy(databaseUrl: string): Promise<PgProxy> {
       up = true;
       for (const s of sockets) s.destroy();
       return new Promise<void>((r) => proxy.close(() => r()));
+    },
+  };
+}
+
+export interface AppThroughProxy {
+  t: TestApp;
+  /** A connection that does not go through the proxy, for set-up and checks. */
+  direct: Db;
+  proxy: PgProxy;
+  org: TestOrg;
+  close(): Promise<void>;
+}
+
+/** The app reaching the tests' PostgreSQL through a proxy, a direct connection, and a firm with one member per role. */
+export async function startAppThroughProxy(overrides: Record<string, string> = {}): Promise<AppThroughProxy> {
+  const direct = createDb(inject('testEnv').DATABASE_URL);
+  const proxy = await startPgProxy(inject('testEnv').DATABASE_URL);
+  const t = await startTestApp({ DATABASE_URL: proxy.url, ...overrides });
+  const org = await createOrgWithMembers(direct);
+  return {
+    t,
+    direct,
+    proxy,
+    org,
+    async close() {
+      proxy.restore();
+      await t.close();
+      await direct.destroy();
+      await proxy.close();
     },
   };
 }

@@ -18,8 +18,15 @@ import { setProfileUnitSystem } from './unit-system';
 import { parseMe, parseSessionResponse } from './session-body';
 import { IDENTITY_KEY } from './identity';
 
-/** Syncs now (the engine is loaded on demand: it is not part of the first screen's JavaScript). */
-const syncNow = () => import('@client/offline/sync').then((m) => m.syncNow());
+/**
+ * Syncs now (the engine is loaded on demand: it is not part of the first screen's JavaScript), and
+ * starts the engine if the app did not at load (nobody had signed in on this device: main.tsx).
+ */
+const syncNow = () =>
+  import('@client/offline/sync').then((m) => {
+    m.startSync();
+    return m.syncNow();
+  });
 
 export type SessionStatus =
   /** Checking the refresh cookie (a remembered profile, if any, is already usable). */

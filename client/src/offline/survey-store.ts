@@ -10,13 +10,15 @@ import {
   SurveyOpSchema,
   type ConflictTarget,
   type SurveyOp,
-  type SyncedSurvey,
+  type PulledSurvey,
   type UserRef,
 } from '@shared/schemas/sync';
 import { applyOp, changedFields, deepEqual, findEntity, leanOp, replay } from '@shared/sync/apply';
 import { formatZodIssues } from '@shared/api/format-issues';
 import { reportStorageError } from './storage';
-import { db, getDeviceId } from './db';
+import { db, getDeviceId, type LocalSurvey } from './db';
+import { upgradeSurvey } from '@shared/schemas/upgrade';
+import { shareUnchanged } from '@client/lib/share-unchanged';
 import { rememberedUserId } from '@client/lib/identity';
 import { noteUnsavedEdit, strikeUnsavedEdit, unsavedEdits } from './unsaved-edits';
 import { rebaseEdit } from './rebase-edit';
@@ -217,7 +219,8 @@ async function storeLocalChanges(surveyId: string, parsedOps: readonly SurveyOp[
       });
     }
     if (ids.length > 0) {
-      await db.surveys.update(surveyId, { doc, title: doc.title, vesselName: vesselNameOf(doc), updatedAt: now });
+      // the whole row put back as read: `update` would read the row (both documents) a second time
+      await db.surveys.put({ ...local, doc, title: doc.title, vesselName: vesselNameOf(doc), updatedAt: now });
     }
   }));
   if (ids.length > 0) notify();
@@ -246,21 +249,40 @@ export async function resolveConflict(conflictId: string, value: unknown): Promi
 }
 
 /**
- * Takes the server's copies into the store without losing local work: each document becomes the
- * server copy with this device's pending edits replayed on top. Called by sync after a pull.
+ * The server's document of a pulled survey, checked. It is shared with the copy this device already
+ * holds (the server's last copy, else the working one: both were checked when stored), so
+ * `isValidEdit` checks only what moved since, exactly as a full parse would; where it refuses, the
+ * full parse runs and throws why (the pull then fails as before and nothing is stored). A full
+ * parse of a 2,000-boundary survey held a phone's main thread for over a second after every push.
  */
-export async function mergeServerSurveys(list: SyncedSurvey[]): Promise<void> {
+export function checkedServerDoc(local: Pick<LocalSurvey, 'doc' | 'serverDoc'> | undefined, raw: unknown): Survey {
+  const doc = upgradeSurvey(raw);
+  const base = local?.serverDoc ?? local?.doc;
+  if (base && typeof doc === 'object' && doc !== null && !Array.isArray(doc)) {
+    const shared = shareUnchanged<unknown>(base, doc) as Survey;
+    if (isValidEdit(base, shared)) return shared;
+  }
+  return SurveySchema.parse(doc);
+}
+
+/**
+ * Takes the server's copies into the store without losing local work: each document becomes the
+ * server copy with this device's pending edits replayed on top. Called by sync after a pull; each
+ * document is checked here (`checkedServerDoc`), so a bad one stores nothing.
+ */
+export async function mergeServerSurveys(list: PulledSurvey[]): Promise<void> {
   if (list.length === 0) return;
   await db.transaction('rw', db.surveys, db.outbox, async () => {
     for (const s of list) {
       const local = await db.surveys.get(s.id);
       if (local && local.serverRevision > s.revision) continue;
+      const serverDoc = checkedServerDoc(local, s.doc);
       const pending = await db.outbox.where({ surveyId: s.id, state: 'pending' }).sortBy('seq');
-      const doc = replay(s.doc, pending.map((e) => e.op)) ?? s.doc;
+      const doc = replay(serverDoc, pending.map((e) => e.op)) ?? serverDoc;
       await db.surveys.put({
         id: s.id,
         doc,
-        serverDoc: s.doc,
+        serverDoc,
         serverRevision: s.revision,
         status: s.status,
         title: doc.title,

@@ -7,7 +7,7 @@
  */
 import {
   MAX_PUSH_CHANGES,
-  PullResponseSchema,
+  PullEnvelopeSchema,
   PushResponseSchema,
   UpsertOpSchema,
   type Conflict,
@@ -147,7 +147,8 @@ async function pushAll(): Promise<void> {
 async function pullAll(): Promise<void> {
   for (let page = 0; page < 1000; page++) {
     const cursor = (await getMeta<string>(META.pullCursor)) ?? '0';
-    const body = PullResponseSchema.parse(await api<unknown>(`/api/sync/pull?cursor=${encodeURIComponent(cursor)}`));
+    // each survey's document is checked in mergeServerSurveys, against the device's own copy
+    const body = PullEnvelopeSchema.parse(await api<unknown>(`/api/sync/pull?cursor=${encodeURIComponent(cursor)}`));
     await mergeServerSurveys(body.surveys);
     await storeConflicts(body.conflicts);
     await storeReviewNotes(body.extras.review);

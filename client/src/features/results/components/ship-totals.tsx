@@ -2,7 +2,8 @@
 import type { BoundarySummary, SurveyLevelResults } from '@shared/engine';
 import type { UnitSystem } from '@shared/units/units';
 import { fmt } from '@client/lib/unit-system';
-import type { ReactNode } from 'react';
+import { useEffect, useMemo, useState, type ReactNode } from 'react';
+import { VirtualList } from '@client/components/ui/virtual-list';
 import { pointParts } from '@shared/units/point-words';
 import { UtilisationBadge } from './utilisation';
 
@@ -66,22 +67,47 @@ export function ShipTotals({ results, rows, system, predicted = false }: { resul
   );
 }
 
+/**
+ * The engine's notes, folded unless one is a danger. Nothing folded is rendered (a big ship has over a
+ * thousand notes: as hidden list items they were most of the Loads screen's elements), and an open
+ * list longer than a screenful renders only the notes in view (`VirtualList`).
+ */
 export function EngineWarnings({ results }: { results: SurveyLevelResults }) {
+  const danger = results.warnings.some((w) => w.severity === 'danger');
+  const [open, setOpen] = useState(danger);
+  // a danger that appears later opens the notes again, as before
+  useEffect(() => {
+    if (danger) setOpen(true);
+  }, [danger]);
+  // notes have no id of their own: their place in the list is their key
+  const notes = useMemo(() => results.warnings.map((w, i) => ({ w, key: String(i) })), [results.warnings]);
   if (results.warnings.length === 0) return null;
   return (
-    <details className="rounded-lg border border-caution bg-caution-soft p-2 text-sm" open={results.warnings.some((w) => w.severity === 'danger')}>
+    <details className="rounded-lg border border-caution bg-caution-soft p-2 text-sm" open={open} onToggle={(e) => setOpen(e.currentTarget.open)} data-testid="engine-notes">
       <summary className="min-h-touch cursor-pointer content-center font-bold">Engine notes ({results.warnings.length})</summary>
-      <ul className="mt-1 space-y-1">
-        {results.warnings.map((w, i) => (
-          <li key={i} className={w.severity === 'danger' ? 'font-bold text-danger' : ''}>
-            <span aria-hidden="true">{w.severity === 'danger' ? '▲ ' : w.severity === 'warning' ? '◆ ' : '· '}</span>
-            {w.message}
-          </li>
-        ))}
-      </ul>
+      {open && (
+        <div className="mt-1">
+          <VirtualList
+            items={notes}
+            itemKey={(n) => n.key}
+            label="Engine notes"
+            className="space-y-1"
+            estimatePx={WARNING_ESTIMATE_PX}
+            render={({ w }) => (
+              <span className={w.severity === 'danger' ? 'font-bold text-danger' : ''}>
+                <span aria-hidden="true">{w.severity === 'danger' ? '▲ ' : w.severity === 'warning' ? '◆ ' : '· '}</span>
+                {w.message}
+              </span>
+            )}
+          />
+        </div>
+      )}
     </details>
   );
 }
+
+/** A note as one line of a phone's width (they wrap to two or three; measured once shown). */
+const WARNING_ESTIMATE_PX = 44;
 
 function namesOf(rows: readonly BoundarySummary[], ids: readonly string[]): string {
   const byId = new Map(rows.map((r) => [r.id, r.name]));

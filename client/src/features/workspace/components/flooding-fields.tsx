@@ -3,7 +3,8 @@
  * plan, the "what if"): a text input and a select with their field errors, a number read in the
  * user's units with the reason it is refused, and a space's vertical extent.
  */
-import type { ReactNode } from 'react';
+import { useMemo, type ReactNode } from 'react';
+import { LongSelect } from '@client/components/ui/long-select';
 import type { Compartment } from '@shared/schemas/survey';
 import type { UnitSystem } from '@shared/units/units';
 import { describedBy, Field, inputCls } from '@client/components/ui/fields';
@@ -67,16 +68,15 @@ export function isoToShipLocal(iso: string, offsetMin: number | undefined): stri
   return d.toISOString().slice(0, 16);
 }
 
-/** A choice of one of the survey's spaces ("—" first, for none yet). */
-export function SpaceSelect({ id, label = 'Space', compartments, value, onChange, error }: { id: string; label?: string; compartments: readonly Compartment[]; value: string; onChange: (v: string) => void; error?: string }) {
+/**
+ * A choice of one of the survey's spaces ("—" first, for none yet, unless `placeholder` is null). A big
+ * ship's 200 spaces are put in as options only while the select is in use (`LongSelect`).
+ */
+export function SpaceSelect({ id, label = 'Space', compartments, value, onChange, error, placeholder = '—' }: { id: string; label?: string; compartments: readonly Compartment[]; value: string; onChange: (v: string) => void; error?: string; placeholder?: string | null }) {
+  const options = useMemo(() => compartments.map((c) => ({ value: c.id, label: c.name })), [compartments]);
   return (
-    <Select id={id} label={label} value={value} onChange={onChange} error={error}>
-      <option value="">—</option>
-      {compartments.map((c) => (
-        <option key={c.id} value={c.id}>
-          {c.name}
-        </option>
-      ))}
-    </Select>
+    <Field id={id} label={label} error={error} wide>
+      <LongSelect id={id} className={inputCls} options={options} value={value} onChange={onChange} placeholder={placeholder ?? undefined} aria-invalid={!!error} aria-describedby={describedBy(id, undefined, error)} />
+    </Field>
   );
 }

@@ -29,6 +29,7 @@ function OpeningForm({ comp, survey, system, apply, internal }: { comp: Compartm
   const lu = measureLabel('length', system);
   const set = (k: keyof typeof v) => (t: string) => setV({ ...v, [k]: t });
   const prefix = `${internal ? 'opening' : 'breach'}-${comp.id}`;
+  const others = useMemo(() => survey.compartments.filter((c) => c.id !== comp.id), [survey.compartments, comp.id]);
   const save = async () => {
     const e: Errors = {};
     const x = need(e, 'x', v.x, 'length', system), y = need(e, 'y', v.y, 'length', system), z = need(e, 'z', v.z, 'length', system);
@@ -47,14 +48,7 @@ function OpeningForm({ comp, survey, system, apply, internal }: { comp: Compartm
   return (
     <form className="grid grid-cols-2 gap-2 rounded-md border-2 border-line p-2 sm:grid-cols-4" onSubmit={(e) => (e.preventDefault(), void save())} noValidate aria-label={internal ? 'Add an opening to another space' : 'Add a breach'}>
       {internal && (
-        <Select id={`${prefix}-to`} label="Leads to" value={v.to} onChange={set('to')} error={errors.to}>
-          <option value="">—</option>
-          {survey.compartments.filter((c) => c.id !== comp.id).map((c) => (
-            <option key={c.id} value={c.id}>
-              {c.name}
-            </option>
-          ))}
-        </Select>
+        <SpaceSelect id={`${prefix}-to`} label="Leads to" compartments={others} value={v.to} onChange={set('to')} error={errors.to} />
       )}
       <Select id={`${prefix}-face`} label="Face" value={v.face} onChange={(t) => setV({ ...v, face: t as OpeningFace })}>
         {OPENING_FACES.map((f) => (
@@ -257,13 +251,7 @@ export function FloodingSection({ survey, apply, system }: SectionProps) {
       <h2 id="flooding-h" className="text-2xl">
         Flooding
       </h2>
-      <Select id="flood-space" label="Space" value={spaceId} onChange={setSpaceId}>
-        {survey.compartments.map((c) => (
-          <option key={c.id} value={c.id}>
-            {c.name}
-          </option>
-        ))}
-      </Select>
+      <SpaceSelect id="flood-space" compartments={survey.compartments} value={spaceId} onChange={setSpaceId} placeholder={null} />
       {comp && (
         <div className="space-y-3" key={comp.id}>
           <h3 className="text-lg">Breaches to the sea</h3>

@@ -6,6 +6,7 @@ import { ServerPhoto, useObjectUrl } from '@client/components/photos/server-phot
 import type { PhotoRef } from '@shared/schemas/survey';
 import type { SectionProps } from '../utils/types';
 import { dangerBtn, inputCls, primaryBtn, secondaryBtn } from '@client/components/ui/fields';
+import { LongSelect } from '@client/components/ui/long-select';
 import { newId } from '../utils/new-entities';
 import { startPhotoUploads, uploadPhotosNow, usePhotoUploadStatus } from '../api/upload-photos';
 
@@ -92,13 +93,7 @@ export function PhotosSection({ survey, apply, selectedId }: SectionProps) {
           <label htmlFor={ids.target} className="block text-sm font-bold">
             Of
           </label>
-          <select id={ids.target} className={`${inputCls} mt-0.5`} value={target} onChange={(e) => setTarget(e.target.value)}>
-            {targets.map((t) => (
-              <option key={t.value} value={t.value}>
-                {t.label}
-              </option>
-            ))}
-          </select>
+          <LongSelect id={ids.target} className={`${inputCls} mt-0.5`} options={targets} value={target} onChange={setTarget} />
         </div>
         <div>
           <label htmlFor={ids.caption} className="block text-sm font-bold">

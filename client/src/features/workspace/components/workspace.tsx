@@ -4,13 +4,14 @@
  * a time under a strip that always shows the ship's state; on a wide screen the loads stay beside
  * the form.
  */
-import { useCallback, useState, type ReactNode } from 'react';
+import { useCallback, useMemo, useRef, useState, type ReactNode } from 'react';
 import { Link, useSearchParams } from 'react-router';
 import type { BoundarySummary, SurveySummary } from '@shared/engine';
 import { useSurveySummary } from '../hooks/use-survey-summary';
 import { useMediaQuery, WIDE_SCREEN } from '@client/lib/use-media-query';
 import type { Survey } from '@shared/schemas/survey';
 import { applyLocalChange, useLocalSurvey, usePendingCount } from '@client/offline/survey-store';
+import { shareUnchanged } from '@client/lib/share-unchanged';
 import { useSyncState } from '@client/offline/sync';
 import { setUnitSystem, useUnitSystem, fmt } from '@client/lib/unit-system';
 import { changeUnitSystem, useSession } from '@client/lib/session';
@@ -68,6 +69,17 @@ function titleAfterVessel(title: string, vessel: string): string {
   return rest || title;
 }
 
+/** `doc` sharing every unchanged part with the document this hook returned last (`shareUnchanged`). */
+function useSharedDoc(doc: Survey | undefined): Survey | undefined {
+  const last = useRef<Survey | undefined>(undefined);
+  return useMemo(() => {
+    const prev = last.current;
+    const shared = doc && prev && prev.id === doc.id ? shareUnchanged(prev, doc) : doc;
+    last.current = shared;
+    return shared;
+  }, [doc]);
+}
+
 export function Workspace({ surveyId }: { surveyId: string }) {
   const local = useLocalSurvey(surveyId);
   const system = useUnitSystem();
@@ -81,7 +93,9 @@ export function Workspace({ surveyId }: { surveyId: string }) {
   const warning = local ? changeSendsBackWarning(local.status) : null;
   // edits already waiting on this device mean the surveyor chose to change it (e.g. before a reload)
   const locked = warning !== null && confirmedFor !== `${surveyId}:${local?.status}` && pending === 0;
-  const survey = local?.doc;
+  // each read of the store is a new copy: shared with the one shown, what did not change keeps its
+  // identity, so a pull that brought nothing new recomputes and re-renders nothing
+  const survey = useSharedDoc(local?.doc);
   const { user } = useSession();
   // an engineer reviews a surveyor's survey on the desk: here its fields are shown, never editable
   const readOnly = !!user && reviewsOnly(user.role, user.id, local?.ownerUserId);
