@@ -108,7 +108,7 @@ interface Window {
   /** Of appMs, the main threads' (the request loops): the rest is worker threads, zlib and GC helpers. */
   mainMs?: number;
   /** CPU of this process (autocannon, the load generator) per request, ms. */
-  loadMs: number;
+  loadMs?: number;
 }
 
 type Requests = autocannon.Options['requests'];
@@ -140,7 +140,8 @@ async function measuredWindow(base: string, requests: Requests, seconds: number,
   const before = { app: cpuSeconds(pids), main: cpuSeconds(mains), pg: postgresCpuSeconds(), load: process.cpuUsage() };
   const result = await autocannon({ url: base, connections: 50, requests, duration: seconds });
   const after = { app: cpuSeconds(pids), main: cpuSeconds(mains), pg: postgresCpuSeconds(), load: process.cpuUsage(before.load) };
-  const perRequest = (a?: number, b?: number) => (a !== undefined && b !== undefined ? ((b - a) * 1000) / result.requests.total : undefined);
+  // no figure per request when none was answered (a host so busy that every request timed out)
+  const perRequest = (a?: number, b?: number) => (a !== undefined && b !== undefined && result.requests.total > 0 ? ((b - a) * 1000) / result.requests.total : undefined);
   const win: Window = {
     rps: result.requests.average,
     p99: result.latency.p99,
@@ -149,15 +150,15 @@ async function measuredWindow(base: string, requests: Requests, seconds: number,
     mainMs: perRequest(before.main, after.main),
     pgMs: perRequest(before.pg, after.pg),
     appBusy: before.app !== undefined && after.app !== undefined ? ((after.app - before.app) / seconds) * 100 : undefined,
-    loadMs: (after.load.user + after.load.system) / 1000 / result.requests.total,
+    loadMs: perRequest(0, (after.load.user + after.load.system) / 1e6),
   };
   return { result, win };
 }
 
 const cpuWords = (win: Window) =>
   win.appMs !== undefined
-    ? `CPU per request: app ${win.appMs.toFixed(2)} ms (main threads ${win.mainMs?.toFixed(2) ?? '?'}), PostgreSQL ${win.pgMs?.toFixed(2) ?? '?'} ms, load generator ${win.loadMs.toFixed(2)} ms; app processes busy ${win.appBusy?.toFixed(0)} % of a core`
-    : 'CPU per request: not readable from /proc';
+    ? `CPU per request: app ${win.appMs.toFixed(2)} ms (main threads ${win.mainMs?.toFixed(2) ?? '?'}), PostgreSQL ${win.pgMs?.toFixed(2) ?? '?'} ms, load generator ${win.loadMs?.toFixed(2) ?? '?'} ms; app processes busy ${win.appBusy?.toFixed(0)} % of a core`
+    : 'CPU per request: not known (no request answered, or /proc not readable)';
 
 /**
  * The most requests per second the host's cores could serve at the median window's CPU per request,
@@ -166,7 +167,7 @@ const cpuWords = (win: Window) =>
  * the latency; a goal above the second needs less CPU per request, not more processes.
  */
 function ceilingWords(win: Window): string {
-  if (win.appMs === undefined || win.pgMs === undefined) return 'CPU ceiling: not known (no CPU figures)';
+  if (win.appMs === undefined || win.pgMs === undefined || win.loadMs === undefined) return 'CPU ceiling: not known (no CPU figures per request)';
   const cores = os.availableParallelism();
   const served = win.appMs + win.pgMs;
   const all = served + win.loadMs;
