@@ -34,7 +34,7 @@ import {
 } from './flooding-model';
 import { rosenbrock23 } from './flooding-ode';
 import { soundingEvidence, type SoundingEvidence } from './flooding-soundings';
-import type { BoundaryTable, EngineWarning, SurveySummary } from './results';
+import type { BoundaryTable, CapacityResult, EngineWarning, SurveySummary } from './results';
 import { measuredAttitude } from './stability-check';
 import type { ShipAttitude } from './stability';
 import { ENGINE_VERSION } from './version';
@@ -54,6 +54,8 @@ export const JACOBIAN_STEPS = 4;
 export const STEADY_LEVEL_RATE_M_S = 0.001 / 3600;
 
 export type Governs = 'rating' | 'stiffeners' | 'plating' | 'shores';
+/** A boundary's governing rating at a moment: its kind, direction and rated value (Pa or N, SI). */
+export type LimitRating = Pick<CapacityResult, 'kind' | 'direction' | 'rated'>;
 
 /** A "what if" change to the survey before the forecast runs. */
 export type FloodVariant =
@@ -120,6 +122,8 @@ export interface BoundaryForecast {
   /** First time at or above 100 %, s (0: already there), and what governs then. */
   limitAtS: number | null;
   limitGoverns: Governs | null;
+  /** The governing rating then (null: none). */
+  limitRating: LimitRating | null;
 }
 
 /** Why a plan step is left out of the run, in the words the forecast and its warnings use. */
@@ -172,7 +176,8 @@ export interface FloodForecast {
   boundaries: BoundaryForecast[];
   worst: { utilisation: number | null; boundaryId: string | null }[];
   /** Boundaries reaching 100 %, earliest first. */
-  limits: { boundaryId: string; name: string; atS: number; governs: Governs | null }[];
+  /** `rating`: the governing rating at that moment (Pa or N, SI; its direction), null when none. */
+  limits: { boundaryId: string; name: string; atS: number; governs: Governs | null; rating: LimitRating | null }[];
   worstMoment: { atS: number; utilisation: number; boundaryId: string } | null;
   plan: PlanStepForecast[];
   balance: { inM3: number; outM3: number; storedM3: number; balanceM3: number; relative: number };
@@ -558,7 +563,7 @@ export function forecastFlooding(surveyIn: Survey, options: ForecastOptions = {}
     worst: loads.worst,
     limits: loads.boundaries
       .filter((b) => b.limitAtS !== null)
-      .map((b) => ({ boundaryId: b.id, name: b.name, atS: b.limitAtS!, governs: b.limitGoverns }))
+      .map((b) => ({ boundaryId: b.id, name: b.name, atS: b.limitAtS!, governs: b.limitGoverns, rating: b.limitRating }))
       .sort((a, b) => a.atS - b.atS),
     worstMoment,
     plan: steps,
@@ -606,6 +611,7 @@ function boundaryLoads(survey: Survey, snapshots: { t: number; y: Float64Array; 
   const pos = new Map(ids.map((id, i) => [id, i]));
   const u: (number | null)[][] = ids.map(() => []);
   const gov: (Governs | null)[][] = ids.map(() => []);
+  const rat: (LimitRating | null)[][] = ids.map(() => []);
   const fill = (r: SurveySummary, k: number) => {
     const t = r.boundaries;
     for (let row = 0; row < t.length; row++) {
@@ -614,6 +620,8 @@ function boundaryLoads(survey: Survey, snapshots: { t: number; y: Float64Array; 
       const v = t.maxUtilisation[row];
       u[i][k] = Number.isNaN(v) ? null : v;
       gov[i][k] = governsOf(t, row);
+      const kind = t.capacityKind[row], direction = t.capacityDirection[row], rated = t.capacityRated[row];
+      rat[i][k] = kind && direction && !Number.isNaN(rated) ? { kind, direction, rated } : null;
     }
   };
   let runs = 0;
@@ -681,16 +689,17 @@ function boundaryLoads(survey: Survey, snapshots: { t: number; y: Float64Array; 
   });
   const times = snapshots.map((s) => s.t);
   const boundaries: BoundaryForecast[] = survey.boundaries.map((b, i) => {
-    let limitAtS: number | null = null, limitGoverns: Governs | null = null;
+    let limitAtS: number | null = null, limitGoverns: Governs | null = null, limitRating: LimitRating | null = null;
     for (let k = 0; k < times.length; k++) {
       const v = u[i][k];
       if (v === null || v === undefined || v < 1) continue;
       const prev = k > 0 ? u[i][k - 1] : null;
       limitAtS = k === 0 || prev === null || prev === undefined ? times[k] : times[k - 1] + ((1 - prev) / (v - prev)) * (times[k] - times[k - 1]);
       limitGoverns = gov[i][k];
+      limitRating = rat[i][k] ?? null;
       break;
     }
-    return { id: b.id, name: b.name, utilisation: u[i].map((x) => x ?? null), governs: gov[i].map((x) => x ?? null), limitAtS, limitGoverns };
+    return { id: b.id, name: b.name, utilisation: u[i].map((x) => x ?? null), governs: gov[i].map((x) => x ?? null), limitAtS, limitGoverns, limitRating };
   });
   const worst = times.map((_, k) => {
     let best: number | null = null, id: string | null = null;

@@ -52,6 +52,7 @@ export {
   type FloodVariant,
   type ForecastOptions,
   type Governs,
+  type LimitRating,
   type PlanStepForecast,
   type SpaceForecast,
 } from './flooding';

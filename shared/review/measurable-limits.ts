@@ -12,6 +12,7 @@ import type { LimitRule } from '../api/review';
 import { catalogueFluid } from '../fluids/catalogue';
 import type { Boundary, Compartment, LevelSource, Survey } from '../schemas/survey';
 import { formatQuantity, STANDARD_GRAVITY_M_S2, type UnitSystem } from '../units/units';
+import { pointParts } from '../units/point-words';
 
 type Gauge = { kind: 'sounding'; x: number; y: number; bottomZM: number } | { kind: 'ullage'; x: number; y: number; referenceZM: number };
 
@@ -56,7 +57,9 @@ function lowestZ(b: Boundary): number {
 
 function gaugeSentence(name: string, gauge: Gauge, levelM: number, keep: 'above' | 'below', units: UnitSystem): string {
   const L = (v: number) => formatQuantity(v, 'length', units, 3).text;
-  const where = `x ${L(gauge.x)}, y ${L(gauge.y)}`;
+  // along and across in words (the height is the reading itself)
+  const [along, across] = pointParts({ x: gauge.x, y: gauge.y, z: 0 }, units);
+  const where = `${along}, ${across}`;
   if (gauge.kind === 'sounding') {
     return `On deck: keep the sounding in ${name} (pipe at ${where}) ${keep} ${L(levelM - gauge.bottomZM)}.`;
   }

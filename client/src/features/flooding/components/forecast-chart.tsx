@@ -1,5 +1,5 @@
 /**
- * The forecast's timeline: liquid levels of the spaces that change (left axis, m above their
+ * The forecast's timeline: liquid levels of the spaces that change (left axis, in the user's length unit above their
  * lowest point) against the ship's clock, and the worst boundary utilisation (right axis, %), with a marker at each time a
  * boundary reaches its limit. uPlot, in its own lazily loaded chunk (a lazy default export).
  */
@@ -7,6 +7,8 @@ import { useEffect, useRef } from 'react';
 import uPlot from 'uplot';
 import 'uplot/dist/uPlot.min.css';
 import type { FloodForecast } from '@shared/engine';
+import type { UnitSystem } from '@shared/units/units';
+import { display, unitLabel } from '@client/lib/unit-system';
 import { utcOffsetWords } from '@shared/review/time-words';
 
 const COLOURS = ['#0b4f6c', '#2a9d8f', '#8a5a00', '#5b3a8c', '#1d6f42', '#7a1f1f'];
@@ -17,7 +19,7 @@ function clockAt(readingsTime: string, h: number, offsetMin: number | undefined)
   return d.toISOString().slice(11, 16);
 }
 
-export default function ForecastChart({ forecast, width, offsetMin }: { forecast: FloodForecast; width: number; offsetMin?: number }) {
+export default function ForecastChart({ forecast, width, offsetMin, system }: { forecast: FloodForecast; width: number; offsetMin?: number; system: UnitSystem }) {
   const ref = useRef<HTMLDivElement>(null);
   useEffect(() => {
     if (!ref.current) return;
@@ -25,7 +27,8 @@ export default function ForecastChart({ forecast, width, offsetMin }: { forecast
     const hours = forecast.times.map((t) => t / 3600);
     const worst = forecast.worst.map((w) => (w.utilisation === null ? null : 100 * w.utilisation));
     const limitHours = forecast.limits.map((l) => l.atS / 3600);
-    const data: uPlot.AlignedData = [hours, ...moving.map((s) => s.levelM), worst];
+    // levels in the user's length unit, as the rest of the screen
+    const data: uPlot.AlignedData = [hours, ...moving.map((s) => s.levelM.map((v) => display(v, 'length', system))), worst];
     const opts: uPlot.Options = {
       width,
       height: 260,
@@ -38,7 +41,7 @@ export default function ForecastChart({ forecast, width, offsetMin }: { forecast
           values: (_u, splits) => splits.map((h) => `${clockAt(forecast.readingsTime, h, offsetMin)}\n+${h} h`),
           size: 48,
         },
-        { label: 'level, m' },
+        { label: `level, ${unitLabel('length', system)}` },
         { side: 1, scale: 'pct', label: 'worst utilisation, %', grid: { show: false } },
       ],
       series: [
@@ -68,6 +71,6 @@ export default function ForecastChart({ forecast, width, offsetMin }: { forecast
     };
     const plot = new uPlot(opts, data, ref.current);
     return () => plot.destroy();
-  }, [forecast, width, offsetMin]);
+  }, [forecast, width, offsetMin, system]);
   return <div ref={ref} data-testid="forecast-chart" />;
 }

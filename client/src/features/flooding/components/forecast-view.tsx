@@ -4,17 +4,23 @@
  * workspace and the review desk show the same view.
  */
 import { lazy, Suspense, useEffect, useRef, useState } from 'react';
-import type { FloodForecast, Governs } from '@shared/engine';
+import type { FloodForecast } from '@shared/engine';
 import type { Survey } from '@shared/schemas/survey';
 import type { UnitSystem } from '@shared/units/units';
 import { FORECAST_CAUTION, STABILITY_CAUTION, hmm } from '@shared/api/cautions';
 import { fmt, num, percent, unitLabel } from '@client/lib/unit-system';
-import { downfloodingSentences, flowWords, forecastAttitudeWords, volumeBalanceSentence } from '@shared/review/forecast-words';
+import { downfloodingSentences, flowWords, forecastAttitudeWords, limitGovernsWords, pumpsWords, volumeBalanceSentence } from '@shared/review/forecast-words';
 import { ageWords, formatShipTime, formatUtc, utcOffsetWords } from '@shared/review/time-words';
 
 const ForecastChart = lazy(() => import('./forecast-chart'));
 
-const GOVERNS: Record<Governs, string> = { rating: 'rated capacity', stiffeners: 'stiffeners', plating: 'plating', shores: 'shores' };
+/** The plain names of the spaces either side of a boundary, for the side a rating holds towards. */
+function sidesOf(survey: Survey, boundaryId: string): { A: string; B: string } {
+  const b = survey.boundaries.find((x) => x.id === boundaryId);
+  const side = (s: Survey['boundaries'][number]['sideA'] | undefined) =>
+    !s ? 'unknown' : s.kind === 'sea' ? 'sea' : s.kind === 'air' ? 'open air' : (survey.compartments.find((c) => c.id === s.compartmentId)?.name ?? 'unknown space');
+  return { A: side(b?.sideA), B: side(b?.sideB) };
+}
 
 const heelWords = (deg: number) => `${Math.abs(deg).toFixed(1)}° ${deg > 0.05 ? 'stbd' : deg < -0.05 ? 'port' : ''}`.trim();
 
@@ -103,12 +109,12 @@ export function clockWords(offsetMin: number | undefined): string {
 }
 
 /** A forecast's timeline chart, lazily loaded, at the width of its box. */
-export function ForecastTimeline({ forecast, offsetMin }: { forecast: FloodForecast; offsetMin: number | undefined }) {
+export function ForecastTimeline({ forecast, offsetMin, system }: { forecast: FloodForecast; offsetMin: number | undefined; system: UnitSystem }) {
   const { ref, w } = useWidth();
   return (
     <div ref={ref} className="min-w-0 overflow-hidden rounded-lg border-2 border-line bg-card p-2">
       <Suspense fallback={<p className="p-4 text-ink-soft">Drawing the timeline…</p>}>
-        <ForecastChart forecast={forecast} width={w - 16} offsetMin={offsetMin} />
+        <ForecastChart forecast={forecast} width={w - 16} offsetMin={offsetMin} system={system} />
       </Suspense>
     </div>
   );
@@ -152,7 +158,7 @@ export function ForecastView({ forecast, survey, system, now = Date.now() }: { f
         </div>
       )}
       <ForecastAttitude forecast={forecast} survey={survey} system={system} />
-      <ForecastTimeline forecast={forecast} offsetMin={offsetMin} />
+      <ForecastTimeline forecast={forecast} offsetMin={offsetMin} system={system} />
       <section aria-labelledby="limits-h">
         <h3 id="limits-h" className="text-lg">
           When boundaries reach their limit ({(forecast.horizonS / 3600).toFixed(0)} h ahead)
@@ -178,7 +184,7 @@ export function ForecastView({ forecast, survey, system, now = Date.now() }: { f
                     <td className="tabular-nums" data-testid="limit-hmm">
                       {hmm(l.atS)}
                     </td>
-                    <td>{l.governs ? GOVERNS[l.governs] : '—'}</td>
+                    <td data-testid="limit-governs">{limitGovernsWords(l, system, sidesOf(survey, l.boundaryId))}</td>
                   </tr>
                 ))}
               </tbody>
@@ -201,14 +207,7 @@ export function ForecastView({ forecast, survey, system, now = Date.now() }: { f
                   {flowWords(s.netFlowM3S[0], system)}. {s.equalisedAtS === null ? 'Still moving at the end.' : s.equalisedAtS === 0 ? 'Steady now.' : `Settles in ${hmm(s.equalisedAtS)}.`}
                   {s.pumps && (
                     <span className="block">
-                      Pumps ({fmt(s.pumps.capacityM3S, 'flow', system, 3)}):{' '}
-                      {s.pumps.verdict === 'dry'
-                        ? `gain; pumped dry in ${hmm(s.pumps.dryAtS ?? 0)}.`
-                        : s.pumps.verdict === 'gaining'
-                          ? 'gain, but not dry within the forecast.'
-                          : s.pumps.verdict === 'holding'
-                            ? 'hold the level; they do not gain.'
-                            : 'do not keep up: the level rises.'}
+                      {pumpsWords(s.pumps, system)}
                     </span>
                   )}
                   {s.firstSounding && (

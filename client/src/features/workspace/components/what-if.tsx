@@ -221,11 +221,11 @@ export function WhatIf({ survey, base, system }: { survey: Survey; base: FloodFo
           <div className="grid gap-2 lg:grid-cols-2">
             <figure className="min-w-0">
               <figcaption className="text-sm font-bold">As entered</figcaption>
-              <ForecastTimeline forecast={base} offsetMin={offsetMin} />
+              <ForecastTimeline forecast={base} offsetMin={offsetMin} system={system} />
             </figure>
             <figure className="min-w-0">
               <figcaption className="text-sm font-bold">What if</figcaption>
-              <ForecastTimeline forecast={v} offsetMin={offsetMin} />
+              <ForecastTimeline forecast={v} offsetMin={offsetMin} system={system} />
             </figure>
           </div>
         </>
