@@ -64,10 +64,14 @@ async function storedResults(surveyId: string, revision: number): Promise<Survey
   throw new Error(`no results for revision ${revision}`);
 }
 
-/** The brief's words for a boundary's governing utilisation (render-brief.ts). */
+/**
+ * The start of the brief's words for a boundary's governing utilisation (render-brief.ts): the figure
+ * and " % of", which is what tells one revision's figures from another's (what follows names the
+ * check or the rating, in the brief's own words).
+ */
 const utilisationWords = (r: SurveyResults, boundaryId: string) => {
   const g = governingCheck(r.boundaries.find((b) => b.id === boundaryId)!)!;
-  return `${formatNumber(g.utilisation * 100, 3)} % of ${g.what}`;
+  return `${formatNumber(g.utilisation * 100, 3)} % of `;
 };
 
 /** Draft → sent by the surveyor → under review → verdicts → accepted by the engineer. */
