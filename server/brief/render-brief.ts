@@ -25,6 +25,7 @@ import { measurableLimit } from '@shared/review/measurable-limits';
 import { structureCheckRows } from '@shared/review/structure-rows';
 import { governingCheckWords } from '@shared/review/rating-words';
 import { html, type SafeHtml } from './html';
+import { briefSeenToken } from './brief-seen';
 
 export interface BriefPageData {
   /** The document whose figures are shown: the accepted revision's while newer, unreviewed ones exist. */
@@ -188,9 +189,11 @@ function ackSection({ d, utc }: BriefContext, opts: BriefPageOptions): SafeHtml 
     ? html`<section aria-labelledby="h-ack" id="acknowledged" class="ack">
   <h2 id="h-ack">Received and understood</h2>
   ${ack ? html`<p class="done">Acknowledged by <strong>${ack.name}</strong>, ${utc(ack.at)} (survey revision ${ack.revision}).</p>` : ''}
+  ${opts.ackNotice ? html`<p class="err" id="ack-notice" role="alert">${opts.ackNotice}</p>` : ''}
   <form method="post" action="/brief/${d.token}/acknowledge">
+    <input type="hidden" name="seen" value="${briefSeenToken(d)}">
     <label for="ack-name">Your name and rank</label>
-    <input id="ack-name" name="name" autocomplete="name" maxlength="120" required${opts.ackError ? html` aria-invalid="true" aria-describedby="ack-error"` : ''}>
+    <input id="ack-name" name="name" autocomplete="name" maxlength="120" required${opts.ackName ? html` value="${opts.ackName}"` : ''}${opts.ackError ? html` aria-invalid="true" aria-describedby="ack-error"` : ''}>
     ${opts.ackError ? html`<p class="err" id="ack-error">${opts.ackError}</p>` : ''}
     <button type="submit">${ack ? 'Acknowledge again' : 'Received and understood'}</button>
   </form>
@@ -289,6 +292,10 @@ ${flooded.length ? html`<table><thead><tr><th scope="col">Space</th><th scope="c
 export interface BriefPageOptions {
   /** The acknowledgement form's field error. */
   ackError?: string;
+  /** Said above the form when the brief changed after the master opened it. */
+  ackNotice?: string;
+  /** The name the master typed, kept when the form comes back. */
+  ackName?: string;
 }
 
 export function renderBriefPage(d: BriefPageData, opts: BriefPageOptions = {}): string {

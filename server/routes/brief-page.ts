@@ -8,6 +8,8 @@ import { PUBLIC, type RouteSpec } from '../http/route';
 import type { BriefService } from '../services/briefs';
 import { renderBriefNotFound, renderBriefPage } from '../brief/render-brief';
 
+export const BRIEF_CHANGED_NOTICE = 'This brief changed after you opened it: read it again, then acknowledge.';
+
 function privateHeaders(res: Response): void {
   res.setHeader('Cache-Control', 'no-store');
   res.setHeader('Pragma', 'no-cache');
@@ -51,8 +53,14 @@ export function briefPageRoutes(briefs: BriefService): RouteSpec[] {  return [
           res.status(400).send(renderBriefPage(data, { ackError: parsed.error.issues[0]?.message ?? 'Write your name and rank.' }));
           return;
         }
-        if (!(await briefs.acknowledge(token, parsed.data.name, meta))) {
+        const outcome = await briefs.acknowledge(token, parsed.data, meta);
+        if (outcome.kind === 'gone') {
           res.status(404).send(renderBriefNotFound());
+          return;
+        }
+        if (outcome.kind === 'changed') {
+          // the page the master read is not the brief now: show the current one, keep the typed name
+          res.status(409).send(renderBriefPage(outcome.brief, { ackNotice: BRIEF_CHANGED_NOTICE, ackName: parsed.data.name }));
           return;
         }
         // post, redirect, get: a reload does not send it twice

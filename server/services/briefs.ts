@@ -18,6 +18,7 @@ import type { Mailer } from '../mail/mailer';
 import { briefMail } from '../mail/brief-mail';
 import { hashSecret, issueSecret, looksLikeSecret } from './secrets';
 import type { BriefPageData } from '../brief/render-brief';
+import { briefSeenToken } from '../brief/brief-seen';
 import * as repo from '../db/repositories/review';
 import { ensureResults } from './engine-results';
 
@@ -170,20 +171,28 @@ async function acceptedFigures(
   return { ...common, doc: keptDoc.data, results: (stored.results as SurveyResults | null) ?? null, figuresWithheld: false };
 }
 
+/** What an acknowledgement post came to: logged, refused because the brief changed since it was read, or no live link. */
+export type AcknowledgeOutcome = { kind: 'logged' } | { kind: 'changed'; brief: BriefPageData } | { kind: 'gone' };
+
 /**
  * The master's "received and understood": logged with the revision the brief shows (the accepted
- * one while newer, unreviewed figures exist), the one the master read. False for a
- * token that is not live (the caller answers as for an unknown link).
+ * one while newer, unreviewed figures exist), the one the master read, and only when the form's
+ * `seen` token (`briefSeenToken`) still matches the brief as it is now; otherwise the current
+ * brief comes back to be read again. A missing token counts as changed.
  */
-async function acknowledge(db: Knex, token: string, name: string, meta: { ip: string | null; userAgent: string | null }): Promise<boolean> {
-  if (!looksLikeSecret(token)) return false;
+async function acknowledge(
+  db: Knex,
+  token: string,
+  ack: { name: string; seen?: string },
+  meta: { ip: string | null; userAgent: string | null },
+): Promise<AcknowledgeOutcome> {
+  const brief = await open(db, token, { ...meta, log: false });
+  if (!brief) return { kind: 'gone' };
+  if (ack.seen !== briefSeenToken(brief)) return { kind: 'changed', brief };
   const link = await repo.findLiveBrief(db, hashSecret(token));
-  if (!link) return false;
-  const s = await repo.findSurvey(db, link.orgId, link.surveyId);
-  if (!s) return false;
-  const revision = shownRevision(await repo.listStatusEvents(db, s.id), s.revision);
-  await repo.insertBriefAcknowledgement(db, { briefId: link.id, name, revision, ip: meta.ip, userAgent: meta.userAgent });
-  return true;
+  if (!link) return { kind: 'gone' };
+  await repo.insertBriefAcknowledgement(db, { briefId: link.id, name: ack.name, revision: brief.shownRevision ?? brief.revision, ip: meta.ip, userAgent: meta.userAgent });
+  return { kind: 'logged' };
 }
 
 export function createBriefService(deps: BriefDeps) {
@@ -192,7 +201,7 @@ export function createBriefService(deps: BriefDeps) {
     issue: (auth: AuthContext, surveyId: string, body: IssueBrief) => issue(deps, auth, surveyId, body),
     revoke: (auth: AuthContext, briefId: string) => revoke(db, auth, briefId),
     open: (token: string, meta: { ip: string | null; userAgent: string | null; log?: boolean }) => open(db, token, meta),
-    acknowledge: (token: string, name: string, meta: { ip: string | null; userAgent: string | null }) => acknowledge(db, token, name, meta),
+    acknowledge: (token: string, ack: { name: string; seen?: string }, meta: { ip: string | null; userAgent: string | null }) => acknowledge(db, token, ack, meta),
   };
 }
 

@@ -308,6 +308,8 @@ export type BriefLink = z.infer<typeof BriefLinkSchema>;
 /** The master's acknowledgement, posted by a plain HTML form (no script): a name is all it asks. */
 export const BriefAcknowledgementSchema = z.object({
   name: z.string().trim().min(1, 'Write your name and rank.').max(120, 'At most 120 characters.'),
+  /** The brief as the master saw it (revision and a short hash, from the form's hidden field); the server refuses a stale one. */
+  seen: z.string().max(80).optional(),
 });
 
 export const IssueBriefResponseSchema = z.object({

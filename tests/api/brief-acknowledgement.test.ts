@@ -22,6 +22,29 @@ afterAll(async () => t?.close());
 const acknowledge = (token: string, body: string) =>
   fetch(`${t.url}/brief/${token}/acknowledge`, { method: 'POST', redirect: 'manual', headers: { 'content-type': 'application/x-www-form-urlencoded' }, body });
 
+/** The form's hidden record of what the page showed, as the master's browser would post it back. */
+function seenField(page: string): string {
+  const seen = /<input type="hidden" name="seen" value="([^"]+)">/.exec(page)?.[1];
+  expect(seen).toBeTruthy();
+  return `seen=${encodeURIComponent(seen!)}`;
+}
+
+/** The surveyor changes the survey (a new revision, unreviewed). */
+async function surveyorRenames(surveyId: string, title: string) {
+  const surveyor = await tokenFor(t.config.JWT_SECRET, org.surveyor);
+  return fetch(`${t.url}/api/sync/push`, {
+    method: 'POST',
+    headers: { ...authHeader(surveyor), 'content-type': 'application/json' },
+    body: JSON.stringify({ changes: [change(randomUUID(), surveyId, { kind: 'set', path: 'title', value: title }, 1)] }),
+  });
+}
+
+/** Opens the brief as the master does and posts the form from that very page. */
+async function readThenAcknowledge(token: string, name: string) {
+  const page = await (await fetch(`${t.url}/brief/${token}`)).text();
+  return acknowledge(token, `name=${encodeURIComponent(name)}&${seenField(page)}`);
+}
+
 describe('the master acknowledges the brief', () => {
   it('logs the name, redirects back to the brief, and the brief and the desk show it', async () => {
     const s = await surveyInStatus(t.db, org, 'accepted');
@@ -31,7 +54,7 @@ describe('the master acknowledges the brief', () => {
     expect(before).toContain('Received and understood');
     expect(before).toContain('ship&#39;s time (UTC+01:00)');
 
-    const res = await acknowledge(link.token, 'name=J.+Okafor%2C+Master');
+    const res = await acknowledge(link.token, `name=J.+Okafor%2C+Master&${seenField(before)}`);
     expect(res.status).toBe(303);
     expect(res.headers.get('location')).toBe(`/brief/${link.token}#acknowledged`);
 
@@ -63,21 +86,60 @@ describe('the master acknowledges the brief', () => {
     const s = await surveyInStatus(t.db, org, 'accepted');
     const link = await briefLink(t.db, org, s.id);
     // the surveyor changes the survey after acceptance: revision 2, unreviewed; the brief still shows revision 1
-    const surveyor = await tokenFor(t.config.JWT_SECRET, org.surveyor);
-    const pushed = await fetch(`${t.url}/api/sync/push`, {
-      method: 'POST',
-      headers: { ...authHeader(surveyor), 'content-type': 'application/json' },
-      body: JSON.stringify({ changes: [change(randomUUID(), s.id, { kind: 'set', path: 'title', value: 'Changed after acceptance' }, 1)] }),
-    });
-    expect(pushed.status).toBe(200);
+    expect((await surveyorRenames(s.id, 'Changed after acceptance')).status).toBe(200);
     expect(((await t.db('surveys').where({ id: s.id }).first('revision')) as { revision: number }).revision).toBe(2);
     const page = await (await fetch(`${t.url}/brief/${link.token}`)).text();
     expect(page).toMatch(/survey revision 1\b/);
 
-    expect((await acknowledge(link.token, 'name=J.+Okafor%2C+Master')).status).toBe(303);
+    expect((await acknowledge(link.token, `name=J.+Okafor%2C+Master&${seenField(page)}`)).status).toBe(303);
     const rows = await t.db('brief_acknowledgements').where({ brief_link_id: link.id });
     expect(rows.map((r: { revision: number }) => r.revision)).toEqual([1]);
     const after = await (await fetch(`${t.url}/brief/${link.token}`)).text();
     expect(after).toContain('(survey revision 1)');
+  });
+
+  it('refuses an acknowledgement of a brief that changed after it was opened, keeping the name; the re-read brief can be acknowledged', async () => {
+    const s = await surveyInStatus(t.db, org, 'in_review');
+    const link = await briefLink(t.db, org, s.id);
+    const engineer = await tokenFor(t.config.JWT_SECRET, org.engineer);
+    const send = (method: string, path: string, body: unknown) =>
+      fetch(`${t.url}${path}`, { method, headers: { ...authHeader(engineer), 'content-type': 'application/json' }, body: JSON.stringify(body) });
+    const stored = () => t.db('brief_acknowledgements').where({ brief_link_id: link.id });
+
+    // the master opens the brief; meanwhile the engineer gives a verdict (no new survey revision)
+    const opened = await (await fetch(`${t.url}/brief/${link.token}`)).text();
+    expect((await send('PUT', `/api/review/surveys/${s.id}/verdicts`, { scope: 'survey', verdict: 'proceed_within_limits' })).status).toBe(200);
+    const stale = await acknowledge(link.token, `name=J.+Okafor%2C+Master&${seenField(opened)}`);
+    expect(stale.status).toBe(409);
+    const back = await stale.text();
+    expect(back).toContain('This brief changed after you opened it: read it again, then acknowledge.');
+    expect(back).toContain('value="J. Okafor, Master"');
+    expect(await stored()).toHaveLength(0);
+
+    // a limit added after the master re-read: refused again
+    const reread = await (await fetch(`${t.url}/brief/${link.token}`)).text();
+    expect((await send('POST', `/api/review/surveys/${s.id}/limits`, { rule: { kind: 'text' }, text: 'No hot work near the fore peak.' })).status).toBe(201);
+    expect((await acknowledge(link.token, `name=J.+Okafor%2C+Master&${seenField(reread)}`)).status).toBe(409);
+    // a form with no record of what was read (an old page) is refused too
+    const unmarked = await acknowledge(link.token, 'name=J.+Okafor%2C+Master');
+    expect(unmarked.status).toBe(409);
+    expect(await stored()).toHaveLength(0);
+
+    // the page that came back with the notice is the current brief: acknowledging it is logged
+    const current = await acknowledge(link.token, `name=J.+Okafor%2C+Master&${seenField(await unmarked.text())}`);
+    expect(current.status).toBe(303);
+    expect((await stored()).map((r: { name: string }) => r.name)).toEqual(['J. Okafor, Master']);
+  });
+
+  it('refuses an acknowledgement read before the survey moved to a new revision', async () => {
+    const s = await surveyInStatus(t.db, org, 'accepted');
+    const link = await briefLink(t.db, org, s.id);
+    const opened = await (await fetch(`${t.url}/brief/${link.token}`)).text();
+    expect((await surveyorRenames(s.id, 'Changed while the master read')).status).toBe(200);
+    const stale = await acknowledge(link.token, `name=Master&${seenField(opened)}`);
+    expect(stale.status).toBe(409);
+    expect(await stale.text()).toContain('This brief changed after you opened it');
+    expect(await t.db('brief_acknowledgements').where({ brief_link_id: link.id })).toHaveLength(0);
+    expect((await readThenAcknowledge(link.token, 'Master')).status).toBe(303);
   });
 });

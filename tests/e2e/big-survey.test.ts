@@ -5,25 +5,18 @@
  * here, and no screen may hold 3,000 elements or more: long lists render only what is in view, and
  * nothing hidden is rendered. A count, not a timing (timings are `npm run bench -- browser`'s).
  */
-import { afterAll, beforeAll, describe, expect, it, inject } from 'vitest';
-import type { Browser } from 'playwright-core';
+import { describe, expect, it, inject } from 'vitest';
 import { computeSurveySummary } from '@shared/engine';
 import type { Survey } from '@shared/schemas/survey';
-import { launchBrowser, screenshotPath } from '../support/browser';
-import { DEMO, localDoc, section, signIn } from '../support/e2e';
+import { screenshotPath } from '../support/browser';
+import { DEMO, localDoc, section, signIn, startE2eFile } from '../support/e2e';
 import { bigSurvey, elementCount, importSurvey, openContentsOf, SOUNDED_SPACE } from '../support/big-survey';
 
 const baseUrl = inject('baseUrl');
 const MAX_ELEMENTS = 3000;
 const SECTIONS = ['Ship', 'Readings', 'Spaces', 'Contents', 'Boundaries', 'Loads', 'Stability', 'Flooding', '3D', 'Photos'];
 
-let browser: Browser;
-beforeAll(async () => {
-  browser = await launchBrowser();
-});
-afterAll(async () => {
-  await browser?.close();
-});
+const e2e = startE2eFile();
 
 /** The space's fill as the engine gives it for `doc`, in the words the contents form shows ("57 % full"). */
 function fillWords(doc: Survey, spaceName: string): string {
@@ -34,7 +27,7 @@ function fillWords(doc: Survey, spaceName: string): string {
 
 describe('the 2,000-boundary survey on a 390 px phone', () => {
   it('imports, takes a sounding edit with the loads following it, and keeps every screen under 3,000 elements', { timeout: 600_000 }, async () => {
-    const context = await browser.newContext({ viewport: { width: 390, height: 844 }, isMobile: true, hasTouch: true });
+    const context = await e2e.browser.newContext({ viewport: { width: 390, height: 844 }, isMobile: true, hasTouch: true });
     const page = await context.newPage();
     try {
       await signIn(page, DEMO.surveyor);

@@ -9,15 +9,12 @@
  */
 import http from 'node:http';
 import { brotliDecompressSync, gunzipSync } from 'node:zlib';
-import { afterAll, beforeAll, describe, expect, it, inject } from 'vitest';
-import type { Browser } from 'playwright-core';
-import { launchBrowser } from '../support/browser';
-import { DEMO } from '../support/e2e';
+import { describe, expect, it, inject } from 'vitest';
+import { DEMO, startE2eFile } from '../support/e2e';
 import { authHeader, signIn } from '../support/auth';
 import { SurveyListResponseSchema } from '@shared/schemas/sync';
 
 const baseUrl = inject('baseUrl');
-
 
 /** One GET with the bytes exactly as sent (Node's fetch would undo the compression). */
 function rawGet(path: string, headers: Record<string, string> = {}): Promise<{ status: number; headers: http.IncomingHttpHeaders; body: Buffer }> {
@@ -33,13 +30,7 @@ function rawGet(path: string, headers: Record<string, string> = {}): Promise<{ s
   });
 }
 
-let browser: Browser;
-beforeAll(async () => {
-  browser = await launchBrowser();
-});
-afterAll(async () => {
-  await browser?.close();
-});
+const e2e = startE2eFile();
 
 describe('static files', () => {
   it('a hashed script goes out pre-compressed, brotli first, gzip for a browser without it, cached for a year', async () => {
@@ -107,7 +98,7 @@ describe('API answers', () => {
 
 describe('a visitor who never signed in', () => {
   it('opens the app and the sign-in page without a single request answering 401', async () => {
-    const context = await browser.newContext({ viewport: { width: 390, height: 844 } });
+    const context = await e2e.browser.newContext({ viewport: { width: 390, height: 844 } });
     const answers: { url: string; status: number }[] = [];
     context.on('response', (r) => answers.push({ url: r.url(), status: r.status() }));
     try {

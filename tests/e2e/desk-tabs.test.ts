@@ -8,21 +8,14 @@
  *   page error and logs no React error (the 3D scene's labels are DOM nodes the scene adds beside
  *   its canvas, which once broke React's removal of the tab).
  */
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import type { Browser, Page } from 'playwright-core';
+import { describe, expect, it } from 'vitest';
+import type { Page } from 'playwright-core';
 import { boundaryRows, computeSurveySummary } from '@shared/engine';
 import { demoSubmittedSurvey, DEMO_SUBMITTED_SURVEY_ID } from '../../seeds/demo-survey';
-import { launchBrowser, screenshotPath } from '../support/browser';
-import { DEMO, signIn } from '../support/e2e';
+import { screenshotPath } from '../support/browser';
+import { DEMO, signIn, startE2eFile } from '../support/e2e';
 
-
-let browser: Browser;
-beforeAll(async () => {
-  browser = await launchBrowser();
-});
-afterAll(async () => {
-  await browser?.close();
-});
+const e2e = startE2eFile();
 
 /** Uncaught errors and console errors of a page, from now on. */
 function errorsOf(page: Page): string[] {
@@ -38,7 +31,7 @@ const tab = (page: Page, name: string) => page.getByRole('tablist', { name: 'Sur
 
 describe('the review desk', () => {
   it('names the governing rating’s direction in the results row, and switches from the 3D model to the forecast without errors', { timeout: 240_000 }, async () => {
-    const context = await browser.newContext({ viewport: { width: 1440, height: 900 } });
+    const context = await e2e.browser.newContext({ viewport: { width: 1440, height: 900 } });
     const page = await context.newPage();
     const errors = errorsOf(page);
     try {

@@ -6,32 +6,21 @@
  */
 import http from 'node:http';
 import { randomUUID } from 'node:crypto';
-import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
-import type { Browser, BrowserContext, Page } from 'playwright-core';
+import { describe, expect, inject, it } from 'vitest';
+import type { BrowserContext, Page } from 'playwright-core';
 import type { Survey } from '@shared/schemas/survey';
-import { createDb, type Db } from '../../server/db/knex';
 import { DEMO_USERS } from '../../seeds/demo-people';
-import { launchBrowser, screenshotPath } from '../support/browser';
+import { screenshotPath } from '../support/browser';
 import { newSurvey, tokenFor } from '../support/surveys';
 import { SimDevice } from '../support/sync-device';
-import { signIn } from '../support/e2e';
+import { signIn, startE2eFile } from '../support/e2e';
 
 const baseUrl = inject('baseUrl');
 const env = inject('testEnv');
 const SURVEYOR = DEMO_USERS.find((u) => u.role === 'surveyor' && u.email.endsWith('skerrow.example'))!;
 const ENGINEER = DEMO_USERS.find((u) => u.role === 'engineer')!;
 
-let browser: Browser;
-let db: Db;
-
-beforeAll(async () => {
-  browser = await launchBrowser();
-  db = createDb(env.DATABASE_URL);
-});
-afterAll(async () => {
-  await browser?.close();
-  await db?.destroy();
-});
+const e2e = startE2eFile({ db: true });
 
 /** A survey made on the server by the engineer's "other device", for this test only. */
 async function surveyOnServer(base: string): Promise<{ survey: Survey; shore: SimDevice }> {
@@ -64,14 +53,14 @@ async function waitSynced(page: Page) {
   } catch (err) {
     // Say why the device is not synced: what its panel shows, and what the server holds open.
     const panel = await page.getByTestId('sync-status').innerText().catch(() => '(no sync panel)');
-    const open = await db('survey_conflicts').where({ status: 'open' }).select('survey_id', 'target', 'created_at');
-    const rejected = await db('processed_changes').where({ status: 'rejected' }).select('survey_id', 'reason');
+    const open = await e2e.db('survey_conflicts').where({ status: 'open' }).select('survey_id', 'target', 'created_at');
+    const rejected = await e2e.db('processed_changes').where({ status: 'rejected' }).select('survey_id', 'reason');
     throw new Error(`Not synced. Panel: ${panel}. Open conflicts: ${JSON.stringify(open)}. Rejected changes: ${JSON.stringify(rejected)}.`, { cause: err });
   }
 }
 
 async function serverTitle(id: string): Promise<string> {
-  const row = await db('surveys').where({ id }).first('doc');
+  const row = await e2e.db('surveys').where({ id }).first('doc');
   return (row.doc as Survey).title;
 }
 
@@ -87,7 +76,7 @@ async function editTitle(page: Page, title: string) {
 describe('working with no network', () => {
   it('opens the app and the survey after an offline reload, and the offline edit reaches PostgreSQL', async () => {
     const { survey } = await surveyOnServer(baseUrl);
-    const context = await browser.newContext({ viewport: { width: 390, height: 844 } });
+    const context = await e2e.browser.newContext({ viewport: { width: 390, height: 844 } });
     const page = await context.newPage();
     try {
       await signIn(page, SURVEYOR);
@@ -136,7 +125,7 @@ describe('working with no network', () => {
 
   it('shows a clash with a colleague’s edit as a conflict and settles it on the device', async () => {
     const { survey, shore } = await surveyOnServer(baseUrl);
-    const context = await browser.newContext({ viewport: { width: 1280, height: 900 } });
+    const context = await e2e.browser.newContext({ viewport: { width: 1280, height: 900 } });
     const page = await context.newPage();
     try {
       await signIn(page, SURVEYOR);
@@ -164,7 +153,7 @@ describe('working with no network', () => {
       await item.getByTestId('conflict-proposed').getByRole('button', { name: 'Keep this' }).click();
       await expect.poll(() => serverTitle(survey.id), { timeout: 30_000 }).toBe('Title from the deck');
       await waitSynced(page);
-      const row = await db('survey_conflicts').where({ survey_id: survey.id }).first('status');
+      const row = await e2e.db('survey_conflicts').where({ survey_id: survey.id }).first('status');
       expect(row.status).toBe('resolved');
       await shore.pull();
       expect(shore.doc(survey.id)?.title).toBe('Title from the deck');
@@ -234,7 +223,7 @@ describe('a new version deployed during work', () => {
     const { survey } = await surveyOnServer(baseUrl);
     let context: BrowserContext | undefined;
     try {
-      context = await browser.newContext({ viewport: { width: 390, height: 844 } });
+      context = await e2e.browser.newContext({ viewport: { width: 390, height: 844 } });
       const page = await context.newPage();
       await signIn(page, SURVEYOR, undefined, proxy.url);
       await waitForServiceWorker(page);

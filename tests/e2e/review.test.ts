@@ -4,11 +4,11 @@
  * accepts it and sends the master a brief; the link arrives by mail, opens at 360 px (and prints on
  * at most two A4 pages), and dies when withdrawn; the surveyor's device shows the comment after sync.
  */
-import { afterAll, beforeAll, describe, expect, it, inject } from 'vitest';
-import type { Browser, BrowserContext, Page } from 'playwright-core';
-import { launchBrowser, screenshotPath } from '../support/browser';
+import { beforeAll, describe, expect, it, inject } from 'vitest';
+import type { BrowserContext, Page } from 'playwright-core';
+import { screenshotPath } from '../support/browser';
 import { readCaughtMail } from '../../scripts/lib/mail-catcher';
-import { DEMO, signIn } from '../support/e2e';
+import { DEMO, signIn, startE2eFile } from '../support/e2e';
 
 const baseUrl = inject('baseUrl');
 const SURVEYOR = DEMO.surveyor;
@@ -19,21 +19,17 @@ const BOUNDARY = 'No. 2/3 hold bulkhead';
 const COMMENT = 'Confirm the stiffener spacing on this bulkhead: 700 or 750 mm?';
 const MASTER = 'master.corran-tide@ship.example';
 
-let browser: Browser;
+const e2e = startE2eFile();
 let surveyorCtx: BrowserContext;
 let engineerCtx: BrowserContext;
 let surveyor: Page;
 let engineer: Page;
 
 beforeAll(async () => {
-  browser = await launchBrowser();
-  surveyorCtx = await browser.newContext({ viewport: { width: 360, height: 760 } });
-  engineerCtx = await browser.newContext({ viewport: { width: 1280, height: 900 } });
+  surveyorCtx = await e2e.browser.newContext({ viewport: { width: 360, height: 760 } });
+  engineerCtx = await e2e.browser.newContext({ viewport: { width: 1280, height: 900 } });
   surveyor = await surveyorCtx.newPage();
   engineer = await engineerCtx.newPage();
-});
-afterAll(async () => {
-  await browser?.close();
 });
 
 const noSideScroll = (page: Page) => page.evaluate(() => document.documentElement.scrollWidth - window.innerWidth);
@@ -123,7 +119,7 @@ describe('review desk and master’s brief', () => {
     briefUrl = /(https?:\/\/\S+\/brief\/[A-Za-z0-9_-]{43})/.exec(mail.text)![1]!;
     expect(briefUrl).toBe(shown);
 
-    const master = await browser.newContext({ viewport: { width: 360, height: 740 } });
+    const master = await e2e.browser.newContext({ viewport: { width: 360, height: 740 } });
     const page = await master.newPage();
     const res = await page.goto(briefUrl);
     expect(res?.status()).toBe(200);

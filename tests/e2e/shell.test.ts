@@ -1,21 +1,14 @@
-import { afterAll, beforeAll, describe, expect, it, inject } from 'vitest';
-import type { Browser } from 'playwright-core';
-import { launchBrowser, screenshotPath } from '../support/browser';
+import { describe, expect, it, inject } from 'vitest';
+import { screenshotPath } from '../support/browser';
+import { startE2eFile } from '../support/e2e';
 
-let browser: Browser;
+const e2e = startE2eFile();
 const baseUrl = inject('baseUrl');
-
-beforeAll(async () => {
-  browser = await launchBrowser();
-});
-afterAll(async () => {
-  await browser?.close();
-});
 
 describe('the app shell', () => {
   for (const width of [360, 1280]) {
     it(`loads at ${width} px with the product name in the shipped font`, async () => {
-      const page = await browser.newPage({ viewport: { width, height: 800 } });
+      const page = await e2e.browser.newPage({ viewport: { width, height: 800 } });
       await page.goto(baseUrl);
       await expect(page.getByTestId('product-name').textContent()).resolves.toBe('Brineline');
       await page.evaluate(() => document.fonts.ready);
@@ -38,7 +31,7 @@ describe('the app shell', () => {
   }
 
   it('shows a 404 screen for an unknown address', async () => {
-    const page = await browser.newPage({ viewport: { width: 360, height: 800 } });
+    const page = await e2e.browser.newPage({ viewport: { width: 360, height: 800 } });
     await page.goto(`${baseUrl}/no/such/screen`);
     await page.getByRole('heading', { name: 'Nothing here' }).waitFor();
     await page.close();

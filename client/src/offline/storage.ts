@@ -39,12 +39,30 @@ export function isQuotaError(err: unknown): boolean {
 export const QUOTA_MESSAGE =
   'This device is out of storage space, so the last change was not saved. Free some space (old photos, other apps) and try again; everything saved before is still here.';
 
+/**
+ * What the surveyor is told when the store write failed but the edit is held in its note
+ * (./unsaved-edits.ts): it is not lost, but not in the device store either until it goes in.
+ */
+export function heldEditMessage(err: unknown): string {
+  const why = isQuotaError(err)
+    ? 'this device is out of storage space; free some (old photos, other apps)'
+    : `the device store refused the write: ${err instanceof Error ? err.message : String(err)}`;
+  return `Your edit is held on this device but NOT yet stored (${why}). It goes in with your next edit, or when the app next starts on this device; do not clear this browser's data.`;
+}
+
 let storageError: string | null = null;
 const subs = new Set<() => void>();
 
-/** Records a failed write for the storage panel; returns the message to show beside the form. */
-export function reportStorageError(err: unknown): string {
-  const message = isQuotaError(err) ? QUOTA_MESSAGE : `The change could not be saved on this device: ${err instanceof Error ? err.message : String(err)}`;
+/**
+ * Records a failed write for the storage panel; returns the message to show beside the form.
+ * `held`: the edit is kept in its note for a later write (see heldEditMessage).
+ */
+export function reportStorageError(err: unknown, held = false): string {
+  const message = held
+    ? heldEditMessage(err)
+    : isQuotaError(err)
+      ? QUOTA_MESSAGE
+      : `The change could not be saved on this device: ${err instanceof Error ? err.message : String(err)}`;
   storageError = message;
   subs.forEach((fn) => fn());
   return message;

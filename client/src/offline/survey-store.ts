@@ -15,7 +15,7 @@ import {
 } from '@shared/schemas/sync';
 import { applyOp, changedFields, deepEqual, findEntity, leanOp, replay } from '@shared/sync/apply';
 import { formatZodIssues } from '@shared/api/format-issues';
-import { reportStorageError } from './storage';
+import { clearStorageError, reportStorageError } from './storage';
 import { db, getDeviceId, type LocalSurvey } from './db';
 import { upgradeSurvey } from '@shared/schemas/upgrade';
 import { shareUnchanged } from '@client/lib/share-unchanged';
@@ -152,10 +152,54 @@ export async function applyLocalChanges(surveyId: string, ops: SurveyOp[], bases
   // Noted before the first wait: a page closing now still keeps the edit (./unsaved-edits.ts).
   const note = parsedOps.some((op) => op.kind === 'resolve-conflict') ? null : noteUnsavedEdit(surveyId, parsedOps, bases);
   try {
-    return await storeLocalChanges(surveyId, parsedOps, bases);
-  } finally {
+    // edits held earlier go in first, so this one never lands under an older value
+    await storeHeldEdits();
+    const ids = await storeLocalChanges(surveyId, parsedOps, bases);
     if (note !== null) strikeUnsavedEdit(note);
+    return ids;
+  } catch (err) {
+    if (note === null) throw err;
+    if (err instanceof LocalChangeError) {
+      strikeUnsavedEdit(note); // refused as invalid: the form says why and keeps what was typed
+      throw err;
+    }
+    // the store failed (full disk, broken store): the note stays, so the edit is not lost
+    heldNotes.add(note);
+    throw new HeldEditError(reportStorageError(err, true), { cause: err });
   }
+}
+
+/**
+ * The store write failed but the edit is kept in its note (./unsaved-edits.ts) and goes in with the
+ * next edit on this page, or at the next start (`replayUnsavedEdits`). Its message says so.
+ */
+export class HeldEditError extends Error {
+  constructor(message: string, options?: { cause?: unknown }) {
+    super(message, options);
+    this.name = 'HeldEditError';
+  }
+}
+
+/** Notes of edits this page could not store (a failed write); stored first at the next edit. */
+const heldNotes = new Set<number>();
+
+/** Stores the held edits, oldest first; throws (keeping the rest held) if the store still fails. */
+async function storeHeldEdits(): Promise<void> {
+  if (heldNotes.size === 0) return;
+  const notes = unsavedEdits();
+  for (const n of [...heldNotes]) if (!notes.some((e) => e.n === n)) heldNotes.delete(n); // stored elsewhere
+  for (const e of notes) {
+    if (!heldNotes.has(e.n)) continue;
+    try {
+      await storeLocalChanges(e.surveyId, e.ops, e.bases ?? []);
+    } catch (err) {
+      // as at start: an edit the survey no longer takes is dropped, a failing store keeps it
+      if (!(err instanceof LocalChangeError)) throw err;
+    }
+    strikeUnsavedEdit(e.n);
+    heldNotes.delete(e.n);
+  }
+  if (heldNotes.size === 0) clearStorageError(); // the "held, not yet stored" message is no longer true
 }
 
 /**

@@ -10,6 +10,7 @@ import { SurveySchema, type Survey } from '@shared/schemas/survey';
 import { shareUnchanged } from '@client/lib/share-unchanged';
 import { db } from '@client/offline/db';
 import { applyLocalChange, checkedServerDoc, mergeServerSurveys, replayUnsavedEdits } from '@client/offline/survey-store';
+import { freshDeviceStore } from '../../support/device-store';
 import demo from '../../../seeds/demo-survey.json';
 
 const base = SurveySchema.parse(demo) as Survey;
@@ -90,19 +91,7 @@ describe('checkedServerDoc agrees with the full survey schema', () => {
 
 describe('the device store', () => {
   const storage = new Map<string, string>();
-  beforeEach(async () => {
-    storage.clear();
-    Object.assign(globalThis, {
-      localStorage: {
-        getItem: (k: string) => storage.get(k) ?? null,
-        setItem: (k: string, v: string) => void storage.set(k, v),
-        removeItem: (k: string) => void storage.delete(k),
-      },
-    });
-    await db.surveys.clear();
-    await db.outbox.clear();
-    await db.surveys.put({ id: base.id, doc: base, serverDoc: base, serverRevision: 3, status: 'draft', title: base.title, vesselName: base.vessel.name, updatedAt: '2026-12-01T00:00:00.000Z', ownerUserId: null, createdBy: null });
-  });
+  beforeEach(() => freshDeviceStore(storage, base));
 
   const titleOp = (title: string) => ({ kind: 'set' as const, path: 'title' as const, value: title });
 
