@@ -7,7 +7,7 @@
  */
 import { createHash } from 'node:crypto';
 import { ENGINE_VERSION } from '@shared/engine';
-import type { BriefPageData } from './render-brief';
+import type { BriefPageData } from './brief-data';
 
 /** Lists whose row order the database does not fix (equal timestamps): compare as sorted sets. */
 const sortedJson = (rows: readonly unknown[]): string[] => rows.map((r) => JSON.stringify(r)).sort();

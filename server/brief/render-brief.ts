@@ -4,10 +4,10 @@
  */
 import type { Survey } from '@shared/schemas/survey';
 import { type BoundaryResult, type SurveyResults } from '@shared/engine';
-import type { OperatingLimit, Verdict } from '@shared/api/review';
+import type { Verdict } from '@shared/api/review';
 import { CAUTIONS, FORECAST_CAUTION, STABILITY_CAUTION, hmm } from '@shared/api/cautions';
 import { downfloodingFreeboards, forecastFlooding, measuredAttitude, readingsVersusModel, shipResponseOf } from '@shared/engine';
-import { STATUS_LABELS, type SurveyStatus } from '@shared/review/status';
+import { STATUS_LABELS } from '@shared/review/status';
 import { formatNumber, formatQuantity, type UnitSystem } from '@shared/units/units';
 import {
   boundaryVerdictLabel,
@@ -26,36 +26,8 @@ import { structureCheckRows } from '@shared/review/structure-rows';
 import { governingCheckWords } from '@shared/review/rating-words';
 import { html, type SafeHtml } from './html';
 import { briefSeenToken } from './brief-seen';
+import type { BriefPageData } from './brief-data';
 
-export interface BriefPageData {
-  /** The document whose figures are shown: the accepted revision's while newer, unreviewed ones exist. */
-  doc: Survey;
-  results: SurveyResults | null;
-  status: SurveyStatus;
-  /** The survey's current revision. */
-  revision: number;
-  /** The revision of `doc` and `results` (defaults to `revision`). */
-  shownRevision?: number;
-  /** Set when the survey changed after the revision shown was accepted: the current, unreviewed revision. */
-  newerRevision?: number | null;
-  /** The accepted revision's document is not kept (changed before the rule existed): no figures shown. */
-  figuresWithheld?: boolean;
-  /** Revision the link was issued on; a later one means the survey changed since. */
-  issuedRevision: number;
-  units: UnitSystem;
-  verdicts: Verdict[];
-  limits: OperatingLimit[];
-  organisationName: string;
-  reviewedBy: string | null;
-  reviewedAt: string | null;
-  expiresAt: string;
-  /** The engineer who sent the link, so the bridge knows whom to call. */
-  engineer?: { name: string; email: string } | null;
-  /** The master's latest "received and understood" on this link. */
-  acknowledgement?: { name: string; at: string; revision: number } | null;
-  /** The link's own token, for the acknowledgement form's address. */
-  token?: string;
-}
 
 /** How many boundaries the brief lists at most, so it stays on one or two pages. */
 const MAX_BOUNDARIES = 8;

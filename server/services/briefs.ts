@@ -17,7 +17,7 @@ import { conflict, notFound } from '../errors';
 import type { Mailer } from '../mail/mailer';
 import { briefMail } from '../mail/brief-mail';
 import { hashSecret, issueSecret, looksLikeSecret } from './secrets';
-import type { BriefPageData } from '../brief/render-brief';
+import type { BriefPageData } from '../brief/brief-data';
 import { briefSeenToken } from '../brief/brief-seen';
 import * as repo from '../db/repositories/review';
 import { ensureResults } from './engine-results';
