@@ -9,7 +9,7 @@ import type { Survey } from '@shared/schemas/survey';
 import type { UnitSystem } from '@shared/units/units';
 import { FORECAST_CAUTION, STABILITY_CAUTION, hmm } from '@shared/api/cautions';
 import { fmt, num, percent, unitLabel } from '@client/lib/unit-system';
-import { downfloodingSentences, flowWords, forecastAttitudeWords, limitGovernsWords, pumpsWords, volumeBalanceSentence } from '@shared/review/forecast-words';
+import { downfloodingSentences, durationWords, flowWords, forecastAttitudeWords, limitGovernsWords, pumpsWords, volumeBalanceSentence } from '@shared/review/forecast-words';
 import { ageWords, formatShipTime, formatUtc, utcOffsetWords } from '@shared/review/time-words';
 
 const ForecastChart = lazy(() => import('./forecast-chart'));
@@ -204,7 +204,7 @@ export function ForecastView({ forecast, survey, system, now = Date.now() }: { f
               return (
                 <li key={s.id} className="rounded-md border-2 border-line bg-card p-2 text-sm" data-testid="forecast-space">
                   <b>{s.name}</b>: level {fmt(s.levelM[0], 'length', system, 3)} above its bottom now, {fmt(s.levelM[last], 'length', system, 3)} at the end; flow now{' '}
-                  {flowWords(s.netFlowM3S[0], system)}. {s.equalisedAtS === null ? 'Still moving at the end.' : s.equalisedAtS === 0 ? 'Steady now.' : `Settles in ${hmm(s.equalisedAtS)}.`}
+                  {flowWords(s.netFlowM3S[0], system)}. {s.equalisedAtS === null ? 'Still moving at the end.' : s.equalisedAtS === 0 ? 'Steady now.' : `Settles in ${durationWords(s.equalisedAtS)}.`}
                   {s.pumps && (
                     <span className="block">
                       {pumpsWords(s.pumps, system)}
@@ -253,7 +253,7 @@ export function ForecastView({ forecast, survey, system, now = Date.now() }: { f
       )}
       {worst && (
         <p className="text-sm" data-testid="worst-moment">
-          <b>Worst moment:</b> {at(worst.atS)}, {hmm(worst.atS)} after the readings, {survey.boundaries.find((b) => b.id === worst.boundaryId)?.name ?? ''} at {percent(worst.utilisation)}.
+          <b>Worst moment:</b> {at(worst.atS)}, {worst.atS === 0 ? 'at the readings' : `${durationWords(worst.atS)} after the readings`}, {survey.boundaries.find((b) => b.id === worst.boundaryId)?.name ?? ''} at {percent(worst.utilisation)}.
         </p>
       )}
       <p className="text-xs text-ink-soft">
