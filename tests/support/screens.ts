@@ -124,6 +124,9 @@ export async function walkEveryScreen(browser: Browser, setup: WalkSetup, widths
     const settleWorkspace = async (p: Page) => {
       await p.getByTestId('workspace').waitFor({ timeout: 30_000 });
       await settleModel(p);
+      // the flooding forecast arrives from its worker after the section opens: settled once it is shown
+      await p.getByText('Working out the forecast…').waitFor({ state: 'detached', timeout: 60_000 });
+      await p.waitForTimeout(300);
     };
     const settleDesk = async (p: Page) => {
       await p.getByTestId('review-desk').waitFor({ timeout: 30_000 });

@@ -499,6 +499,9 @@ export default function SurveyScene({ survey, results, rows, system, selectedId,
           gl={{ preserveDrawingBuffer: true, antialias: true }}
           camera={{ fov: 40, position: [0, 0, 100] }}
           onPointerMissed={() => setTapped(null)}
+          // an image to assistive technology (a div may not carry a label without a role); the words
+          // laid over it are page elements beside it
+          role="img"
           aria-label={`3D model of ${survey.vessel.name}`}
         >
           <Scene drawn={drawn} highlightId={tapped?.id ?? selectedId} onTap={tap} />
