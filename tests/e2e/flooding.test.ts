@@ -7,6 +7,7 @@ import { describe, expect, it, inject } from 'vitest';
 import { screenshotPath } from '../support/browser';
 import { forecastFlooding } from '@shared/engine';
 import { hmm } from '@shared/api/cautions';
+import { durationWords } from '@shared/review/forecast-words';
 import { formatShipTime } from '@shared/review/time-words';
 import { DEMO, localDoc, makeChangesIfAsked, signIn, startE2eFile } from '../support/e2e';
 
@@ -98,7 +99,7 @@ describe('flooding forecast on the phone, offline', () => {
       ],
     });
     const wl = wf.limits[0];
-    await expect.poll(() => page.getByTestId('what-if-nearest').textContent(), { timeout: 20_000 }).toContain(wl ? (wl.atS === 0 ? 'already over' : `(in ${hmm(wl.atS)})`) : 'no boundary reaches its limit');
+    await expect.poll(() => page.getByTestId('what-if-nearest').textContent(), { timeout: 20_000 }).toContain(wl ? (wl.atS === 0 ? 'already over' : `(in ${durationWords(wl.atS)})`) : 'no boundary reaches its limit');
     await page.getByTestId('forecast-chart').first().waitFor({ timeout: 20_000 });
     expect(await page.evaluate(() => document.documentElement.scrollWidth - window.innerWidth)).toBeLessThanOrEqual(0);
     await page.screenshot({ path: screenshotPath('flooding-390'), fullPage: true });

@@ -10,7 +10,7 @@ import { forecastFlooding, type FloodForecast, type FloodVariant } from '@shared
 import type { Survey } from '@shared/schemas/survey';
 import { formatOpeningArea, type UnitSystem } from '@shared/units/units';
 import { openingWords } from '@shared/review/plain-words';
-import { hmm } from '@shared/api/cautions';
+import { durationWords } from '@shared/review/forecast-words';
 import { dangerBtn, primaryBtn } from '@client/components/ui/fields';
 import { fmt, percent } from '@client/lib/unit-system';
 import { ForecastTimeline, shipTime } from '@client/features/flooding/components/forecast-view';
@@ -134,13 +134,13 @@ function ChangeForm({ survey, system, count, onAdd }: { survey: Survey; system: 
 function nearestWords(f: FloodForecast, offsetMin: number | undefined): string {
   const l = f.limits[0];
   if (!l) return 'no boundary reaches its limit';
-  return l.atS === 0 ? `${l.name}: already over` : `${l.name} at ${shipTime(f.readingsTime, l.atS, offsetMin)} (in ${hmm(l.atS)})`;
+  return l.atS === 0 ? `${l.name}: already over` : `${l.name} at ${shipTime(f.readingsTime, l.atS, offsetMin)} (in ${durationWords(l.atS)})`;
 }
 
 function outlook(p: FloodForecast['spaces'][number]['pumps']): string {
   if (!p) return 'no pumps';
-  if (p.verdict === 'dry') return `dry in ${hmm(p.dryAtS ?? 0)}`;
-  return p.verdict === 'gaining' ? 'pumps gain, not dry' : p.verdict === 'holding' ? 'pumps hold' : 'pumps lose: rising';
+  if (p.verdict === 'dry') return `pumped dry in ${durationWords(p.dryAtS ?? 0)}`;
+  return p.verdict === 'gaining' ? 'the pumps gain on the inflow, not dry within the forecast' : p.verdict === 'holding' ? 'the pumps only match the inflow: the level holds' : 'the pumps do not keep up: the level rises';
 }
 
 export function WhatIf({ survey, base, system }: { survey: Survey; base: FloodForecast; system: UnitSystem }) {
