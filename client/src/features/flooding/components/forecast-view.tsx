@@ -49,8 +49,10 @@ function ForecastAttitude({ forecast, survey, system }: { forecast: FloodForecas
         {attitude.note}
       </p>
       {follows && rows.length > 0 && (
-        <div className="overflow-x-auto" tabIndex={0} role="region" aria-label="Attitude over the forecast (scrolls sideways)">
-          <table className="w-full text-left text-sm tabular-nums [&_td]:pr-3 [&_th]:pr-3" data-testid="forecast-attitude-table">
+        // on a phone the table wraps its cells to fit, so it does not scroll (a scrolling region inside the
+        // workspace's disabled fieldset cannot take keyboard focus); it scrolls only if it still cannot fit
+        <div className="overflow-x-auto" tabIndex={0} role="region" aria-label="Attitude over the forecast">
+          <table className="w-full text-left text-xs tabular-nums sm:text-sm [&_td]:pr-2 [&_th]:pr-2 sm:[&_td]:pr-3 sm:[&_th]:pr-3" data-testid="forecast-attitude-table">
             <thead>
               <tr className="text-xs font-bold text-ink-soft">
                 <th scope="col">After (h:mm)</th>
@@ -69,10 +71,10 @@ function ForecastAttitude({ forecast, survey, system }: { forecast: FloodForecas
                   <tr key={k} className="border-t border-line">
                     <th scope="row">{k === 0 ? 'readings' : hmm(forecast.times[k])}</th>
                     <td>{num(a.meanDraftM, 'length', system, 4)}</td>
-                    <td className="whitespace-nowrap">
+                    <td className="sm:whitespace-nowrap">
                       {num(Math.abs(a.trimM), 'length', system, 2)} {a.trimM > 0.005 ? 'by stern' : a.trimM < -0.005 ? 'by head' : ''}
                     </td>
-                    <td className="whitespace-nowrap">{heelWords(a.heelDeg)}</td>
+                    <td className="sm:whitespace-nowrap">{heelWords(a.heelDeg)}</td>
                     <td className={gm !== null && gm <= 0 ? 'font-bold text-danger' : ''}>{gm === null ? '—' : num(gm, 'length', system, 3)}</td>
                     {aground && <td data-testid="forecast-ground-reaction">{reaction[k] === 0 ? 'afloat' : num(reaction[k], 'mass', system, 4)}</td>}
                   </tr>
